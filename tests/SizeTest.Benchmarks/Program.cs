@@ -1,0 +1,13 @@
+using BenchmarkDotNet.Running;
+
+namespace SizeTest.Benchmarks;
+
+/// <summary>
+/// Runs the benchmarks: <c>dotnet run -c Release --project tests/SizeTest.Benchmarks -- --filter '*'</c>.
+/// Each benchmark class states the target it checks (see DEVELOPERS.md).
+/// </summary>
+public static class Program
+{
+    /// <summary>Entry point; arguments go to BenchmarkDotNet's switcher.</summary>
+    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+}

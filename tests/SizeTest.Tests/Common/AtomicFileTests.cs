@@ -1,0 +1,33 @@
+using SizeTest.Common;
+using Xunit;
+
+namespace SizeTest.Tests.Common;
+
+public sealed class AtomicFileTests
+{
+    [Fact]
+    public void FailedWriteLeavesOldContentAndNoTemporaryFile()
+    {
+        var dir = Directory.CreateTempSubdirectory("sizetest-atomic-").FullName;
+        var path = Path.Combine(dir, "out.txt");
+        AtomicFile.WriteAllText(path, "old");
+        Assert.Throws<InvalidOperationException>(() =>
+            AtomicFile.Write(path, s => { s.WriteByte(1); throw new InvalidOperationException("boom"); }));
+        Assert.Equal("old", File.ReadAllText(path));
+        Assert.Single(Directory.GetFiles(dir));
+    }
+
+    [Fact]
+    public void OutputFolderRefusesNonEmptyTargetWithoutForce()
+    {
+        var dir = Directory.CreateTempSubdirectory("sizetest-out-").FullName;
+        File.WriteAllText(Path.Combine(dir, "keep.txt"), "user data");
+        Assert.Throws<InputException>(() => OutputFolder.Begin(dir, force: false));
+        var folder = OutputFolder.Begin(dir, force: true);
+        File.WriteAllText(folder.PathOf("new.txt"), "x");
+        Assert.True(File.Exists(Path.Combine(dir, "keep.txt")));   // untouched until commit
+        folder.Commit();
+        Assert.False(File.Exists(Path.Combine(dir, "keep.txt")));
+        Assert.True(File.Exists(Path.Combine(dir, "new.txt")));
+    }
+}
