@@ -1,0 +1,40 @@
+namespace SizeTest.Inference;
+
+/// <summary>
+/// The reported outcome of fitting one hypothesis (world model + nuisance model) to a sample:
+/// the <c>models[]</c> entry of <c>results.json</c> (schema in design.md and the README).
+/// Comparison fields (ΔBIC, weights) are filled in by the model comparison.
+/// </summary>
+public sealed record ModelFitSummary
+{
+    /// <summary>World-model name (e.g. <c>lcdm</c>).</summary>
+    public required string Name { get; init; }
+    /// <summary>Every parameter, free and fixed.</summary>
+    public required IReadOnlyList<ParameterEstimate> Parameters { get; init; }
+    /// <summary>Maximum log-likelihood ln L̂.</summary>
+    public required double LogLikelihood { get; init; }
+    /// <summary>Number of free parameters k.</summary>
+    public required int K { get; init; }
+    /// <summary>Number of data points n.</summary>
+    public required int N { get; init; }
+    /// <summary>AIC = 2k − 2 ln L̂ (Akaike 1974).</summary>
+    public required double Aic { get; init; }
+    /// <summary>AICc = AIC + 2k(k+1)/(n−k−1) (Hurvich &amp; Tsai 1989).</summary>
+    public required double Aicc { get; init; }
+    /// <summary>BIC = k ln n − 2 ln L̂ (Schwarz 1978).</summary>
+    public required double Bic { get; init; }
+    /// <summary>BIC minus the smallest BIC among the compared models.</summary>
+    public double DeltaBic { get; init; }
+    /// <summary>AIC minus the smallest AIC among the compared models.</summary>
+    public double DeltaAic { get; init; }
+    /// <summary>Akaike weight exp(−ΔAIC/2) / Σ exp(−ΔAIC_j/2).</summary>
+    public double AkaikeWeight { get; init; }
+    /// <summary>ln evidence, when computed (nested sampling or Laplace), else null.</summary>
+    public double? LogEvidence { get; init; }
+    /// <summary>1σ uncertainty of <see cref="LogEvidence"/>, when known.</summary>
+    public double? LogEvidenceError { get; init; }
+    /// <summary>Whether the fit converged (optimiser and, if run, sampler diagnostics).</summary>
+    public required bool Converged { get; init; }
+    /// <summary>Why the fit stopped or failed, in words.</summary>
+    public string ExitReason { get; init; } = "";
+}
