@@ -124,14 +124,14 @@ public abstract class FlrwModel : IWorldModel
     protected virtual double ComovingIntegral(double z)
     {
         double x = Log1P(z);
-        return EnsureComoving(x).Evaluate(x);
+        return x < SmallX ? SmallValue(TableKind.Comoving, x) : EnsureComoving(x).Evaluate(x);
     }
 
     /// <summary>Lookback integral ∫0^z dz′/[(1+z′)E(z′)] = t_L/t_H. Closed-form models override it.</summary>
     protected virtual double LookbackIntegral(double z)
     {
         double x = Log1P(z);
-        return EnsureLookback(x).Evaluate(x);
+        return x < SmallX ? SmallValue(TableKind.Lookback, x) : EnsureLookback(x).Evaluate(x);
     }
 
     /// <summary>Curvature mapping D_M/D_H = S_k(χ) of the comoving integral χ (Hogg 1999 eq. 16).</summary>
@@ -239,7 +239,7 @@ public abstract class FlrwModel : IWorldModel
             return;
         }
         var table = EnsureLookback(Log1P(zMax));
-        EvaluateTable(table, z, result, HubbleTime, divide: false, multiply: false);
+        EvaluateTable(table, TableKind.Lookback, z, result, HubbleTime, divide: false, multiply: false);
     }
 
     private enum Output { Comoving, Transverse, AngularDiameter, Luminosity }
@@ -259,8 +259,9 @@ public abstract class FlrwModel : IWorldModel
             return;
         }
         double xMax = Log1P(zMax);
-        var table = output == Output.Comoving || OmegaCurvature == 0 ? EnsureComoving(xMax) : EnsureTransverse(xMax);
-        EvaluateTable(table, z, result, HubbleDistance, output == Output.AngularDiameter, output == Output.Luminosity);
+        bool transverse = output != Output.Comoving && OmegaCurvature != 0;
+        var table = transverse ? EnsureTransverse(xMax) : EnsureComoving(xMax);
+        EvaluateTable(table, transverse ? TableKind.Transverse : TableKind.Comoving, z, result, HubbleDistance, output == Output.AngularDiameter, output == Output.Luminosity);
     }
 
     private static double CheckAll(ReadOnlySpan<double> z, Span<double> result)
@@ -284,7 +285,7 @@ public abstract class FlrwModel : IWorldModel
     /// consecutive redshifts overlap in the pipeline), then D = scale · T(x) · (1+z)^(−1, 0, +1).
     /// Four redshifts at a time share one vector logarithm.
     /// </summary>
-    private static void EvaluateTable(ChebyshevPanelTable table, ReadOnlySpan<double> z, Span<double> result, double scale, bool divide, bool multiply)
+    private void EvaluateTable(ChebyshevPanelTable table, TableKind kind, ReadOnlySpan<double> z, Span<double> result, double scale, bool divide, bool multiply)
     {
         if (table.Stride != Stride) throw new InvalidOperationException("Table stride does not match the evaluator.");
         int last = table.PanelCount - 1;
@@ -303,16 +304,45 @@ public abstract class FlrwModel : IWorldModel
             for (int l = 0; l < 4; l++)
             {
                 double zi = Unsafe.Add(ref zr, i + l);
-                double value = scale * Panel(ref c0, xs[l], invH, last);
+                double xl = xs[l];
+                double value = scale * (xl < SmallX ? SmallValue(kind, xl) : Panel(ref c0, xl, invH, last));
                 Unsafe.Add(ref rr, i + l) = divide ? value / (1.0 + zi) : multiply ? value * (1.0 + zi) : value;
             }
         }
         for (; i < n; i++)
         {
             double zi = z[i];
-            double value = scale * Panel(ref c0, Log1P(zi), invH, last);
+            double xi = Log1P(zi);
+            double value = scale * (xi < SmallX ? SmallValue(kind, xi) : Panel(ref c0, xi, invH, last));
             result[i] = divide ? value / (1.0 + zi) : multiply ? value * (1.0 + zi) : value;
         }
+    }
+
+    private enum TableKind { Comoving, Transverse, Lookback }
+
+    /// <summary>Below this x = ln(1+z) the tables are bypassed for a direct 6-point Gauss–Legendre rule.</summary>
+    private const double SmallX = 1e-3;
+
+    private static readonly double[] GaussNodes = [-0.9324695142031521, -0.6612093864662645, -0.2386191860831969, 0.2386191860831969, 0.6612093864662645, 0.9324695142031521];
+    private static readonly double[] GaussWeights = [0.1713244923791704, 0.3607615730481386, 0.4679139345726910, 0.4679139345726910, 0.3607615730481386, 0.1713244923791704];
+
+    /// <summary>
+    /// Near z = 0 the tables lose relative accuracy (the value is a small difference of panel
+    /// sums), so for x &lt; 1e-3 the integral is taken directly with 6-point Gauss–Legendre
+    /// (error ~ x¹³ f⁽¹²⁾, far below rounding); exactly 0 at z = 0.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private double SmallValue(TableKind kind, double x)
+    {
+        if (x <= 0) return 0.0;
+        double half = 0.5 * x, sum = 0.0;
+        for (int k = 0; k < GaussNodes.Length; k++)
+        {
+            double s = half * (GaussNodes[k] + 1.0);
+            sum += GaussWeights[k] * (kind == TableKind.Lookback ? LookbackIntegrand(s) : ComovingIntegrand(s));
+        }
+        sum *= half;
+        return kind == TableKind.Transverse ? TransverseFromComoving(sum) : sum;
     }
 
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
