@@ -21,8 +21,15 @@ internal sealed class WorldModelOptions
         {
             Description = $"World model: {string.Join(", ", WorldModels.Names)} (see 'sizetest models').",
             DefaultValueFactory = _ => "lcdm",
+            HelpName = string.Join('|', WorldModels.Names),
         };
-        Model.AcceptOnlyFromAmong(WorldModels.Names.ToArray());
+        // A validator rather than AcceptOnlyFromAmong: its message is one line.
+        Model.Validators.Add(result =>
+        {
+            string? name = result.GetValueOrDefault<string>();
+            if (name is null || !WorldModels.TryGet(name, out _))
+                result.AddError($"Unknown world model '{name}' for --model; known models are {string.Join(", ", WorldModels.Names)}.");
+        });
         var seen = new HashSet<string>();
         foreach (var family in WorldModels.All)
             foreach (var spec in family.Parameters)
@@ -41,7 +48,13 @@ internal sealed class WorldModelOptions
         {
             Description = "Static models: 'energy-loss' (D_L = d(1+z)^0.5, default) or 'time-dilation' (D_L = d(1+z)); same as --luminosity-exponent 0.5 or 1.",
         };
-        FluxConvention.AcceptOnlyFromAmong("energy-loss", "time-dilation");
+        FluxConvention.HelpName = "energy-loss|time-dilation";
+        FluxConvention.Validators.Add(result =>
+        {
+            string? value = result.GetValueOrDefault<string?>();
+            if (value is not ("energy-loss" or "time-dilation"))
+                result.AddError($"--flux-convention must be energy-loss or time-dilation; got '{value}'.");
+        });
     }
 
     /// <summary><c>--model</c>.</summary>

@@ -163,6 +163,12 @@ public abstract class FlrwModel : IWorldModel
     public double LuminosityDistance(double z) => TransverseComovingDistance(z) * (1.0 + z);
 
     /// <inheritdoc/>
+    public double TolmanDimmingMagnitudes(double z) => TolmanDimming.Magnitudes(BolometricDimmingExponent, z);
+
+    /// <inheritdoc/>
+    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
+
+    /// <inheritdoc/>
     public double LookbackTime(double z)
     {
         CheckRedshift(z);

@@ -98,6 +98,12 @@ public sealed class StaticEuclideanModel : IWorldModel
     /// <inheritdoc/>
     public double ComovingDistance(double z) => Distance(z);
 
+    /// <inheritdoc/>
+    public double TolmanDimmingMagnitudes(double z) => TolmanDimming.Magnitudes(BolometricDimmingExponent, z);
+
+    /// <inheritdoc/>
+    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
+
     /// <summary>Not defined in a static model: NaN (after checking z).</summary>
     public double TransverseComovingDistance(double z)
     {
