@@ -101,15 +101,23 @@ internal sealed class VoTableReader : ICatalogReader
             throw new InputException("not a VOTable: the root element is not VOTABLE", path);
         int tableIndex = 0;
         bool byIndex = int.TryParse(selector, NumberStyles.None, CultureInfo.InvariantCulture, out int wanted);
-        while (xml.Read())
+        bool skipped = false;
+        while (skipped || xml.Read())
         {
+            skipped = false;
             if (xml.NodeType != XmlNodeType.Element || xml.LocalName != "TABLE") continue;
             tableIndex++;
             string? name = xml.GetAttribute("name");
             string? id = xml.GetAttribute("ID");
             bool match = selector is null || (byIndex ? wanted == tableIndex
                 : string.Equals(name, selector, StringComparison.OrdinalIgnoreCase) || string.Equals(id, selector, StringComparison.OrdinalIgnoreCase));
-            if (!match) { if (!xml.IsEmptyElement) xml.Skip(); continue; }
+            if (!match)
+            {
+                if (xml.IsEmptyElement) continue;
+                xml.Skip(); // now on the node after the table: examine it before reading on
+                skipped = !xml.EOF;
+                continue;
+            }
             string label = $"TABLE {tableIndex}" + ((name ?? id) is { } shown ? $" '{shown}'" : "");
             if (xml.IsEmptyElement) throw new InputException($"{label} is empty (no FIELD, no DATA)", path);
             var fields = new List<VoTableField>();
@@ -268,7 +276,12 @@ internal sealed class VoTableReader : ICatalogReader
             }
         }
         if (f.Kind == ColumnKind.Unsupported) { buf.SetInvalid(row, t); return; }
-        if (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var v))
+        if (f.Datatype == "float" && float.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var single))
+        {
+            // A float FIELD holds single-precision values: "0.1" means the float nearest 0.1.
+            if (float.IsNaN(single)) buf.SetNull(row); else buf.SetNumber(row, single);
+        }
+        else if (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var v))
         {
             if (double.IsNaN(v)) buf.SetNull(row); else buf.SetNumber(row, v);
         }
@@ -375,7 +388,9 @@ internal sealed class VoTableReader : ICatalogReader
                     default: buf.SetInvalid(row, $"0x{cell[0]:X2}"); return;
                 }
                 break;
-            case "bit": v = (cell[0] & 0x80) != 0 ? 1 : 0; break;
+            // A scalar bit is one byte. The recommendation packs bits from the most significant one;
+            // astropy 5.2 writes a true scalar bit as 0x08. Any set bit reads as true.
+            case "bit": v = cell[0] != 0 ? 1 : 0; break;
             case "float" or "double":
                 v = f.Datatype == "float" ? BinaryPrimitives.ReadSingleBigEndian(cell) : BinaryPrimitives.ReadDoubleBigEndian(cell);
                 if (double.IsNaN(v) || (_nullReals[col] is double nr && v == nr)) { buf.SetNull(row); return; }
