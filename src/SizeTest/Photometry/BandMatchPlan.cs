@@ -174,7 +174,7 @@ internal sealed class BandMatchPlan
     }
 
     /// <summary>Lines for the corrections list.</summary>
-    public IEnumerable<string> Describe(BandTable? zeroPoints)
+    public IEnumerable<string> Describe()
     {
         var counts = new int[_bands.Length];
         for (int i = 0; i < _a.Length; i++) { counts[_a[i]]++; if (_b[i] != _a[i]) counts[_b[i]]++; }
@@ -183,7 +183,5 @@ internal sealed class BandMatchPlan
         yield return $"band matching: rest-frame target {ObservablesBuilder.F(_option.TargetLambdaAngstrom)} A observed at lambda (1+z); {mode}; bands {list}.";
         if (_outside > 0)
             yield return $"band matching: {_outside} objects need a wavelength outside the observed bands; the nearest end band is used and the residual K-correction covers the gap.";
-        if (zeroPoints is not null)
-            yield return $"zero points: AB offsets per band from {zeroPoints.Source} added to each band's surface brightness; all surface brightness is AB mag/arcsec^2.";
     }
 }

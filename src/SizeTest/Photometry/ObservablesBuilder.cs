@@ -38,13 +38,13 @@ public static class ObservablesBuilder
         // --- surface brightness and magnitudes, zero-pointed to AB
         double[]? mu, muErr;
         double[]? mag = Copy(sample.Mag);
-        if (mag is not null) ApplyZeroPoints(sample, options, mag, "mag", notes, quiet: false);
+        if (mag is not null) ApplyZeroPoints(sample, options, mag);
         if (match is not null)
         {
             if (options.SurfaceBrightness.FromMagnitude)
                 throw new InputException("Band matching takes surface brightness from the band columns; it cannot be combined with surface brightness from magnitudes.");
             (mu, muErr) = match.SurfaceBrightness(sample, options.ZeroPoints);
-            notes.AddRange(match.Describe(options.ZeroPoints));
+            notes.AddRange(match.Describe());
         }
         else if (options.SurfaceBrightness.FromMagnitude)
         {
@@ -69,7 +69,7 @@ public static class ObservablesBuilder
         {
             mu = Copy(sample.Mu);
             muErr = sample.MuErr;
-            if (mu is not null) ApplyZeroPoints(sample, options, mu, "mu", notes, quiet: mag is not null);
+            if (mu is not null) ApplyZeroPoints(sample, options, mu);
         }
 
         // --- SB definition
@@ -105,10 +105,15 @@ public static class ObservablesBuilder
                 throw new InputException($"{sample.SourceName}: the sizes are isophotal (mu_iso = {F(level)}); set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii.");
             iso = new double[n];
             Array.Fill(iso, level);
-            ApplyZeroPoints(sample, options, iso, "isophote", notes, quiet: true);
+            ApplyZeroPoints(sample, options, iso);
             notes.Add($"sizes are isophotal at {F(level)} mag/arcsec^2 (observed frame): the fit predicts r_iso/R_e for a Sérsic profile n = {F(nIso)} under each world model's dimming, K and extinction.");
         }
 
+        if (options.ZeroPoints is { } zpt)
+            notes.Add($"zero points: AB offsets per band from {zpt.Source} added (m_AB = m + offset) to " +
+                      (match is not null ? "each matched band's surface brightness" : "surface brightness") +
+                      (mag is not null ? ", magnitudes" : "") + (iso is not null ? ", the isophote" : "") +
+                      "; all surface brightness is AB mag/arcsec^2.");
         if (notes.Count == 0) notes.Add("no photometric corrections applied.");
         var obs = new Observables(sample.Z, basic.LnTheta, basic.LnThetaErr, mu, muErr, kc, ext, mag, sample.MagErr,
             sample.SizeDefinition, iso, sersic);
@@ -262,7 +267,7 @@ public static class ObservablesBuilder
                ?? throw new InputException($"{sample.SourceName}: the {forWhat} table needs each object's band; map a 'band' column or set a default band.");
     }
 
-    private static void ApplyZeroPoints(Sample sample, PhotometryOptions options, double[] values, string what, List<string> notes, bool quiet)
+    private static void ApplyZeroPoints(Sample sample, PhotometryOptions options, double[] values)
     {
         if (options.ZeroPoints is not { } zp) return;
         for (int i = 0; i < values.Length; i++)
@@ -273,8 +278,6 @@ public static class ObservablesBuilder
                     sample.SourceName, sample.SourceRows[i], "band");
             values[i] += off;
         }
-        if (!quiet)
-            notes.Add($"zero points: AB offsets per band from {zp.Source} added to {what} (m_AB = m + offset); all surface brightness is AB mag/arcsec^2.");
     }
 
     internal static double[] RequireColumn(Sample sample, string name, string forWhat)
