@@ -44,8 +44,10 @@ internal sealed class BandMatchPlan
         {
             if (!names.Add(band.Name)) throw new InputException($"Band matching lists band '{band.Name}' twice.");
             if (!(band.EffectiveLambdaAngstrom > 0)) throw new InputException($"Band '{band.Name}' needs an effective wavelength > 0 Å.");
-            ObservablesBuilder.RequireColumn(sample, band.MuColumn, $"band-{band.Name} surface-brightness");
-            if (band.MuErrColumn is { } ec) ObservablesBuilder.RequireColumn(sample, ec, $"band-{band.Name} surface-brightness error");
+            // Existence only: a band's values may be missing for objects that do not use it;
+            // the values actually used are checked in SurfaceBrightness.
+            ObservablesBuilder.RequireColumn(sample, band.MuColumn, $"band-{band.Name} surface-brightness", checkValues: false);
+            if (band.MuErrColumn is { } ec) ObservablesBuilder.RequireColumn(sample, ec, $"band-{band.Name} surface-brightness error", checkValues: false);
         }
         var bands = option.Bands.OrderBy(b => b.EffectiveLambdaAngstrom).ToArray();
         var ln = bands.Select(b => Math.Log(b.EffectiveLambdaAngstrom)).ToArray();
@@ -91,16 +93,24 @@ internal sealed class BandMatchPlan
         {
             var (ba, bb, wa) = (_bands[_a[i]], _bands[_b[i]], _w[i]);
             double wb = 1.0 - wa;
-            mu[i] = wa * (sample.ExtraColumns[ba.MuColumn][i] + ZeroPoint(sample, zeroPoints, ba, i));
-            if (wb > 0) mu[i] += wb * (sample.ExtraColumns[bb.MuColumn][i] + ZeroPoint(sample, zeroPoints, bb, i));
+            mu[i] = wa * (Value(sample, ba.MuColumn, i) + ZeroPoint(sample, zeroPoints, ba, i));
+            if (wb > 0) mu[i] += wb * (Value(sample, bb.MuColumn, i) + ZeroPoint(sample, zeroPoints, bb, i));
             if (err is not null)
             {
-                double ea = sample.ExtraColumns[ba.MuErrColumn!][i];
-                double eb = wb > 0 ? sample.ExtraColumns[bb.MuErrColumn!][i] : 0.0;
+                double ea = Value(sample, ba.MuErrColumn!, i);
+                double eb = wb > 0 ? Value(sample, bb.MuErrColumn!, i) : 0.0;
                 err[i] = Math.Sqrt(wa * wa * ea * ea + wb * wb * eb * eb);   // independent band errors
             }
         }
         return (mu, err);
+    }
+
+    private static double Value(Sample sample, string column, int i)
+    {
+        double v = sample.ExtraColumns[column][i];
+        return double.IsFinite(v) ? v
+            : throw new InputException("the matched band's value is missing or not a number; this object needs it.",
+                sample.SourceName, sample.SourceRows[i], column);
     }
 
     private static double ZeroPoint(Sample sample, BandTable? zp, ObservedBand band, int i)

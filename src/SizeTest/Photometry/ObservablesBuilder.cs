@@ -280,12 +280,12 @@ public static class ObservablesBuilder
         }
     }
 
-    internal static double[] RequireColumn(Sample sample, string name, string forWhat)
+    internal static double[] RequireColumn(Sample sample, string name, string forWhat, bool checkValues = true)
     {
         if (!sample.ExtraColumns.TryGetValue(name, out var col))
             throw new InputException($"the {forWhat} column '{name}' is not in the sample; keep it as an extra column when loading the catalogue.",
                 sample.SourceName, column: name);
-        for (int i = 0; i < col.Length; i++)
+        for (int i = 0; checkValues && i < col.Length; i++)
             if (!double.IsFinite(col[i]))
                 throw new InputException($"the {forWhat} value is missing or not a number.", sample.SourceName, sample.SourceRows[i], name);
         return col;

@@ -110,10 +110,24 @@ public sealed class BandMatchingTests
             BandMatch = new BandMatchOption(bands, target.PivotWavelengthAngstrom, target),
             KCorrection = new KCorrectionOption.Template(t, null),
         }).Observables;
-        // Same definition (Hogg et al. 2002 eq. 8) evaluated directly; builder uses a 1e-3 z grid (≤ 1e-4 mag).
-        Assert.Equal(new TemplateKCorrection(t, g, target).Evaluate(0.05), o.KCorrection![0], 4);
-        Assert.Equal(new TemplateKCorrection(t, rr, target).Evaluate(0.45), o.KCorrection[1], 4);
+        // Same definition (Hogg et al. 2002 eq. 8) evaluated directly; builder uses a 1e-3 z grid with cubic interpolation (≤ 2e-6 mag).
+        Assert.Equal(new TemplateKCorrection(t, g, target).Evaluate(0.05), o.KCorrection![0], 2e-6);
+        Assert.Equal(new TemplateKCorrection(t, rr, target).Evaluate(0.45), o.KCorrection[1], 2e-6);
         Assert.Null(o.MuErr);
+    }
+
+    [Fact]
+    public void MissingValuesOnlyMatterWhereTheBandIsUsed()
+    {
+        // g is used only by the z = 0.1 object; a missing g value for the z = 0.75 object (uses i) is fine.
+        var s = MakeSample([0.1, 0.75]);
+        s.ExtraColumns["mu_g"][1] = double.NaN;
+        var o = ObservablesBuilder.Build(s, new PhotometryOptions { BandMatch = new BandMatchOption(Bands, 4400) }).Observables;
+        Assert.Equal(20.51, o.Mu![1], 12);
+        s.ExtraColumns["mu_g"][0] = double.NaN;
+        var e = Assert.Throws<InputException>(() => ObservablesBuilder.Build(s, new PhotometryOptions { BandMatch = new BandMatchOption(Bands, 4400) }));
+        Assert.Equal(2, e.Line);
+        Assert.Equal("mu_g", e.Column);
     }
 
     [Fact]

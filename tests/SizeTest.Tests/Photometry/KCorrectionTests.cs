@@ -169,11 +169,11 @@ public sealed class KCorrectionTests
     [Fact]
     public void GridInterpolationIsCloseToExact()
     {
-        // Linear interpolation on a 1e-3 grid: error ≤ h² max|K''|/8 (standard bound); checked at off-grid points.
+        // Cubic interpolation on a 1e-3 grid: error O(h⁴ K); measured 5e-7 mag for this template; checked off-grid.
         var kc = new TemplateKCorrection(BumpyTemplate(), R, B);
         Assert.True(KCorrectionGrid.TryTabulate(kc.TryEvaluate, 0.05, 1.5, 1e-3, out var grid, out _));
         foreach (double z in new[] { 0.05, 0.1234567, 0.77777, 1.3141, 1.5 })
-            Assert.Equal(kc.Evaluate(z), grid!.At(z), 4);
+            Assert.Equal(kc.Evaluate(z), grid!.At(z), 2e-6);
         Assert.False(KCorrectionGrid.TryTabulate(kc.TryEvaluate, 0.1, 50, 0.5, out var none, out double failed));
         Assert.Null(none);
         Assert.True(failed > kc.MaxRedshift);
