@@ -200,7 +200,7 @@ public static class ObservablesBuilder
             zMin = Math.Min(zMin, z);
             zMax = Math.Max(zMax, z);
         }
-        if (!KCorrectionGrid.TryTabulate(kc.TryEvaluate, zMin, zMax, step, out var grid, out double bad))
+        if (!KCorrectionGrid.TryTabulate(kc.TryEvaluate, zMin, zMax, step, out var grid, out _))
         {
             int row = 0;
             for (int j = 0; j < count; j++)
@@ -218,7 +218,6 @@ public static class ObservablesBuilder
             double w = weight?[i] ?? 1.0;
             k[i] += w * grid!.At(sample.Z[i]);
         }
-        _ = bad;
     }
 
     private static double[]? Extinctions(Sample sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)
