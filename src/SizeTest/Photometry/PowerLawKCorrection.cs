@@ -9,7 +9,7 @@ namespace SizeTest.Photometry;
 public static class PowerLawKCorrection
 {
     /// <summary>
-    /// Same observed and rest-frame band (R = Q in Hogg et al. 2002 eq. 8; equation number from memory): K = −2.5 log10[(1+z) L_ν((1+z)ν)/L_ν(ν)]
+    /// Same observed and rest-frame band (R = Q in Hogg et al. 2002 eq. 8): K = −2.5 log10[(1+z) L_ν((1+z)ν)/L_ν(ν)]
     /// = −2.5 (1+α) log10(1+z) (closed form for a power law; exact for any
     /// filter curve). α = 0 (flat f_ν) gives −2.5 log10(1+z), α = −2 (flat f_λ) gives +2.5 log10(1+z).
     /// </summary>

@@ -2,7 +2,7 @@ namespace SizeTest.Photometry;
 
 /// <summary>
 /// K-correction of a spectral template observed through band R and referred to rest-frame
-/// band Q (Hogg, Baldry, Blanton &amp; Eisenstein 2002, astro-ph/0210394, eq. 8; equation number from memory):
+/// band Q (Hogg, Baldry, Blanton &amp; Eisenstein 2002, astro-ph/0210394, eq. 8; m_R = M_Q + DM + K_QR is their eq. 2):
 /// <code>
 /// K_QR(z) = −2.5 log10 { (1+z) ∫ L_ν((1+z)ν_o) R(ν_o) dν_o/ν_o · ∫ g^Q_ν(ν_e) Q(ν_e) dν_e/ν_e
 ///                       / [ ∫ g^R_ν(ν_o) R(ν_o) dν_o/ν_o · ∫ L_ν(ν_e) Q(ν_e) dν_e/ν_e ] }

@@ -90,7 +90,8 @@ public sealed class KCorrectionTests
     [InlineData(0.3)] [InlineData(1.0)] [InlineData(2.5)]
     public void BandwidthFactorCountedOnce(double z)
     {
-        // Observe through R(λ) = Q(λ/(1+z)), Q blue-shifted... i.e. the rest band redshifted onto the sky.
+        // Observe through R(λ) = Q(λ/(1+z)): the rest band redshifted onto the sky. Hogg et al. 2002 (§3) note that
+        // such a band makes K independent of the source spectrum — it does not make K vanish.
         // Then ∫ L_ν(λ/(1+z)) R dλ/λ = ∫ L_ν Q dλ'/λ' and, with AB references, ∫g R = ∫g Q, so for ANY spectrum
         // eq. 8 of Hogg et al. 2002 leaves only the bandwidth factor: K = −2.5 log10(1+z).
         // Counting (1+z) twice would give −5 log10(1+z); forgetting it would give 0.
