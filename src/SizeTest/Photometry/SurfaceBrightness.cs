@@ -27,6 +27,15 @@ public static class SurfaceBrightness
         totalMag + 2.5 * Math.Log10(2.0 * Math.PI * effectiveRadiusArcsec * effectiveRadiusArcsec);
 
     /// <summary>
+    /// Observed surface brightness of a source of rest-frame surface brightness
+    /// <paramref name="muRest"/>: μ_obs = μ_rest + 2.5 n log10(1+z) + K + A (Tolman 1930 dimming with
+    /// bolometric exponent n — 4 for FLRW — plus the Hogg et al. 2002 K-correction, which holds the
+    /// bandwidth term, plus extinction). Add any evolution term to <paramref name="muRest"/>.
+    /// </summary>
+    public static double Observed(double muRest, double z, double bolometricDimmingExponent, double kCorrection = 0.0, double extinction = 0.0) =>
+        muRest + 2.5 * bolometricDimmingExponent * Math.Log10(1.0 + z) + kCorrection + extinction;
+
+    /// <summary>
     /// The offset that converts a surface brightness of kind <paramref name="from"/> into kind
     /// <paramref name="to"/> for a Sérsic profile of index n: μ_to = μ_from + Offset. Uses
     /// <see cref="SersicProfile.MeanMinusEffective"/> and <see cref="SersicProfile.CentralMinusEffective"/>.

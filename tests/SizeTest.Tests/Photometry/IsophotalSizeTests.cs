@@ -81,3 +81,49 @@ public sealed class IsophotalSizeTests
         }
     }
 }
+
+public sealed class IsophotalRecipeTests
+{
+    [Fact]
+    public void DocumentedRecipeReproducesIsophotalSizesOfSyntheticDisks()
+    {
+        // Synthetic isophotal sample: exponential disks (n = 1), R_e = 5 kpc, μ_e,rest = 21.5 AB, in Einstein–de Sitter
+        // (D_A = 2 D_H [1 − (1+z)^{−1/2}]/(1+z), closed form; D_H = 4282.7494 Mpc for H0 = 70), flat f_ν spectrum
+        // (K = −2.5 log10(1+z), Hogg et al. 2002), A = 0.1, isophote 26 (observed, Vega-like, AB offset +0.2).
+        double dh = 4282.7494, reKpc = 5, muRest = 21.5, isoNative = 26, zp = 0.2;
+        double[] z = [0.05, 0.2, 0.5, 0.9];
+        var theta = new double[z.Length];
+        for (int i = 0; i < z.Length; i++)
+        {
+            double da = 2 * dh * (1 - 1 / Math.Sqrt(1 + z[i])) / (1 + z[i]);
+            double thetaE = reKpc / (da * 1000);   // rad
+            double muObs = SurfaceBrightness.Observed(muRest, z[i], 4, -2.5 * Math.Log10(1 + z[i]), 0.1);
+            Assert.True(IsophotalSize.TryLnRadiusRatio(1, muObs, isoNative + zp, out double ln));
+            theta[i] = thetaE * Math.Exp(ln);
+        }
+        var sample = new SizeTest.Catalogs.Sample("synthetic-isophotal", [1, 2, 3, 4], z, thetaRad: theta,
+            sizeDefinition: new SizeTest.Catalogs.SizeDefinition(SizeTest.Catalogs.SizeKind.Isophotal, isoNative),
+            extraColumns: new Dictionary<string, double[]> { ["A"] = [0.1, 0.1, 0.1, 0.1] });
+        var zpTable = new BandTable(new Dictionary<string, double> { ["V"] = zp }, "synthetic", "AB zero-point offset");
+        var o = ObservablesBuilder.Build(sample, new PhotometryOptions
+        {
+            KCorrection = new KCorrectionOption.PowerLaw(0), Extinction = new ExtinctionOption.Column("A"),
+            ZeroPoints = zpTable, DefaultBand = "V", SersicIndex = 1,
+        }).Observables;
+        // DEVELOPERS.md recipe: muEffObs = μ_e,rest + 2.5·n_bol·log10(1+z) + K_i + A_i; ln θ_iso = ln(R/D_A) + lnRatio.
+        var iso = new IsophotalSize(o.SersicIndex!.Value);
+        for (int i = 0; i < z.Length; i++)
+        {
+            double da = 2 * dh * (1 - 1 / Math.Sqrt(1 + z[i])) / (1 + z[i]);
+            double muEffObs = SurfaceBrightness.Observed(muRest, z[i], 4, o.KCorrection![i], o.Extinction![i]);
+            Assert.True(iso.TryLnRadiusRatio(muEffObs, o.Isophote![i], out double lnRatio));
+            Assert.Equal(o.LnTheta![i], Math.Log(reKpc / (da * 1000)) + lnRatio, 12);
+        }
+        // Under static-model dimming (n_bol = 1) the same disks would be seen larger: the bias the recipe removes.
+        double muStatic = SurfaceBrightness.Observed(muRest, 0.9, 1, o.KCorrection![3], o.Extinction![3]);
+        Assert.True(iso.TryLnRadiusRatio(muStatic, o.Isophote![3], out double lnStatic));
+        double muFlrw = SurfaceBrightness.Observed(muRest, 0.9, 4, o.KCorrection[3], o.Extinction[3]);
+        Assert.True(iso.TryLnRadiusRatio(muFlrw, o.Isophote[3], out double lnFlrw));
+        Assert.True(lnStatic > lnFlrw);
+    }
+}
