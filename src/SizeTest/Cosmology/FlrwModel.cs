@@ -240,6 +240,7 @@ public abstract class FlrwModel : IWorldModel
     public void LookbackTimes(ReadOnlySpan<double> z, Span<double> result)
     {
         double zMax = CheckAll(z, result);
+        if (z.Length == 0) return;
         if (HasClosedForm)
         {
             for (int i = 0; i < z.Length; i++) result[i] = HubbleTime * LookbackIntegral(z[i]);
@@ -254,6 +255,7 @@ public abstract class FlrwModel : IWorldModel
     private void Evaluate(ReadOnlySpan<double> z, Span<double> result, Output output)
     {
         double zMax = CheckAll(z, result);
+        if (z.Length == 0) return;
         if (HasClosedForm)
         {
             for (int i = 0; i < z.Length; i++)
