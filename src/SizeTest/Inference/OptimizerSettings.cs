@@ -1,0 +1,14 @@
+namespace SizeTest.Inference;
+
+/// <summary>Settings of the bounded multi-start maximum-likelihood search.</summary>
+/// <param name="Starts">Number of starting points (the first is the data-driven start, the rest are seeded random
+/// perturbations of it in the unbounded coordinates).</param>
+/// <param name="Seed">Seed of the random starts.</param>
+/// <param name="Tolerance">Relative function tolerance of each Nelder–Mead run.</param>
+/// <param name="MaxIterations">Iteration cap of each run.</param>
+/// <param name="AgreementTolerance">Two starts agree when their maxima differ by less than this in ln L.</param>
+public sealed record OptimizerSettings(int Starts = 4, int Seed = 1, double Tolerance = 1e-10, int MaxIterations = 5000, double AgreementTolerance = 0.01)
+{
+    /// <summary>Defaults.</summary>
+    public static OptimizerSettings Default { get; } = new();
+}
