@@ -14,7 +14,9 @@ public static class MaximumLikelihood
     /// <param name="likelihood">The bound hypothesis.</param>
     /// <param name="settings">Starts, seed and tolerances.</param>
     /// <param name="start">Starting vector (default: <see cref="HypothesisLikelihood.SuggestStart"/>).</param>
-    public static MaximumLikelihoodResult Fit(HypothesisLikelihood likelihood, OptimizerSettings? settings = null, double[]? start = null)
+    /// <param name="covariance">Whether to compute the Hessian covariance (bootstrap refits skip it; their verdict
+    /// then rests on the optimiser alone).</param>
+    public static MaximumLikelihoodResult Fit(HypothesisLikelihood likelihood, OptimizerSettings? settings = null, double[]? start = null, bool covariance = true)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
         settings ??= OptimizerSettings.Default;
@@ -74,24 +76,28 @@ public static class MaximumLikelihood
         for (int j = 0; j < d; j++)
             atBound[j] = Math.Min(theta[j] - min[j], max[j] - theta[j]) <= 1e-6 * (max[j] - min[j]);
         var active = atBound.Select(b => !b).ToArray();
-        var (hess, he) = NumericalHessian.Compute(post, theta, min, max, active);
-        evals += he;
-        var cov = NumericalHessian.Covariance(hess, active);
+        double[,]? cov = null;
+        if (covariance)
+        {
+            var (hess, he) = NumericalHessian.Compute(post, theta, min, max, active);
+            evals += he;
+            cov = NumericalHessian.Covariance(hess, active);
+        }
         double ll = likelihood.LogDensity(theta);
         double lp = post.LogDensity(theta);
         evals += 2;
 
         bool optimiserOk = reason == "converged" && double.IsFinite(ll);
-        bool converged = optimiserOk && stable && cov is not null;
+        bool converged = optimiserOk && stable && (cov is not null || !covariance);
         var words = new List<string>();
         if (!double.IsFinite(ll)) words.Add("the likelihood is not finite anywhere the search went (check the data against the model)");
         else if (!optimiserOk) words.Add($"Nelder–Mead stopped without meeting its tolerance ({reason})");
         else if (!stable) words.Add("restarts kept improving the maximum (a ridge or a very flat likelihood)");
-        if (double.IsFinite(ll) && cov is null)
+        if (double.IsFinite(ll) && cov is null && covariance)
             words.Add("the Hessian is not negative definite (a parameter is unconstrained or degenerate with another, e.g. r0_kpc with h0)");
         var bounds = Enumerable.Range(0, d).Where(j => atBound[j]).Select(j => free[j].Name).ToArray();
         string summary = converged
-            ? $"converged: Nelder–Mead met the relative tolerance {settings.Tolerance:g2}, a restart did not improve it, {agreeing} of {starts.Count} starts agree, Hessian negative definite"
+            ? $"converged: Nelder–Mead met the relative tolerance {settings.Tolerance:g2}, a restart did not improve it, {agreeing} of {starts.Count} starts agree" + (covariance ? ", Hessian negative definite" : "")
             : "not converged: " + string.Join("; ", words);
         if (bounds.Length > 0) summary += $"; at a bound: {string.Join(", ", bounds)} (its interval is one-sided)";
         return new MaximumLikelihoodResult(theta, ll, lp, converged, summary, evals, agreeing, starts.Count, cov, atBound);

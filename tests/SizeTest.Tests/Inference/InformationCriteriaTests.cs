@@ -30,12 +30,12 @@ public sealed class InformationCriteriaTests
         // χ²(2) upper 5% point 5.991464547107979 (tables) gives p = 0.05 for 2 dof.
         var t2 = LikelihoodRatioTest.Compute("m", "x", 0, 5.991464547107979 / 2, 0, 2);
         Assert.Equal(0.05, t2.PValue, 9);
-        // Far tail stays positive: Λ = 400, 1 dof → p = erfc(√200) ≈ 1.3e-89 (closed form for 1 dof).
+        // Far tail stays positive: Λ = 400, 1 dof → p = erfc(√200) ≈ 5.5e-89 (closed form for 1 dof: P(χ²₁ ≥ Λ) = erfc(√(Λ/2))).
         var t3 = LikelihoodRatioTest.Compute("m", "size_evolution", 0, 200, 0, 1);
         double pExact = MathNet.Numerics.SpecialFunctions.Erfc(Math.Sqrt(200));
         Assert.True(Math.Abs(t3.PValue - pExact) < 1e-6 * pExact);
         Assert.True(t3.PValue > 0);
-        Assert.StartsWith("m needs size evolution at p = 1.", t3.Statement);
+        Assert.StartsWith("m needs size evolution at p = 5.5e-89", t3.Statement);
         Assert.Equal(20.0, t3.Sigma, 1);
     }
 
