@@ -63,10 +63,22 @@ public sealed class Hypothesis
                 s = s with { Min = b.Min, Max = b.Max, Value = Math.Clamp(s.Value, b.Min, b.Max) };
             if (s.IsFree && !EntersLikelihood(spec.Name, nuisance, family))
                 throw new ArgumentException($"parameter '{spec.Name}' does not enter the {Describe(nuisance.Observable)} likelihood of world model '{family.Name}', so it cannot be fitted; remove it from --free/--prior");
+            if (s.IsFree && double.IsNaN(s.Value)) s = s with { Value = RealisedDefault(family, spec.Name) ?? 0.5 * (s.Min + s.Max) };
+            if (s.IsFree) s = s with { Value = Math.Clamp(s.Value, s.Min, s.Max) };
             s.Validate();
             settings[i] = s;
         }
         return new Hypothesis(family, nuisance, settings, family.Name);
+    }
+
+    // The value a model built with all defaults actually uses (for parameters whose default is "not given").
+    private static double? RealisedDefault(IWorldModelFamily family, string name)
+    {
+        try
+        {
+            return family.Create(new Dictionary<string, double>()).ParameterValues.TryGetValue(name, out var v) && double.IsFinite(v) ? v : null;
+        }
+        catch (ArgumentException) { return null; }
     }
 
     /// <summary>A copy with one parameter held fixed (for nested-model tests); the label records the change.</summary>

@@ -262,7 +262,8 @@ public sealed class HypothesisLikelihood : ILogDensity
     private IWorldModel? CreateModel(double[] values)
     {
         var dict = new Dictionary<string, double>(_cosmoIdx.Length);
-        foreach (var i in _cosmoIdx) dict[_h.Parameters[i].Name] = values[i];
+        foreach (var i in _cosmoIdx)
+            if (!double.IsNaN(values[i])) dict[_h.Parameters[i].Name] = values[i]; // NaN = not given (model default)
         try { return _h.Family.Create(dict); }
         catch (ArgumentException) { return null; }
     }

@@ -9,7 +9,8 @@ namespace SizeTest.Inference;
 /// </summary>
 /// <param name="Spec">Declaration (name, unit, default, allowed range).</param>
 /// <param name="Status">Free, fixed or Gaussian prior.</param>
-/// <param name="Value">Fixed value, or the starting value of a free parameter.</param>
+/// <param name="Value">Fixed value, or the starting value of a free parameter. NaN for a fixed parameter whose spec default
+/// is NaN means "not given": it is left out when the world model is built (e.g. omega_lambda → flat).</param>
 /// <param name="Min">Lower bound for a free parameter (within the spec's range).</param>
 /// <param name="Max">Upper bound for a free parameter (within the spec's range).</param>
 /// <param name="PriorMean">Gaussian prior mean (only for <see cref="ParameterStatus.GaussianPrior"/>).</param>
@@ -52,6 +53,8 @@ public sealed record ParameterSetting(
     {
         if (Status == ParameterStatus.Fixed)
         {
+            // A NaN default means "not given" (e.g. omega_lambda: flat); the world model decides.
+            if (double.IsNaN(Value) && double.IsNaN(Spec.Default)) return;
             if (!Spec.Allows(Value))
                 throw new ArgumentException($"parameter '{Name}' fixed at {Value} is outside its allowed range [{Spec.Min}, {Spec.Max}]");
             return;
