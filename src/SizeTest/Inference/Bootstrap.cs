@@ -43,7 +43,7 @@ public static class Bootstrap
         var thetas = new double[resamples][];
         var ok = new bool[resamples];
         int done = 0;
-        var settings = new OptimizerSettings(Starts: 1, Tolerance: 1e-9);
+        var settings = new OptimizerSettings(Starts: 1, Tolerance: 1e-9, InitialStep: 0.1);
         Parallel.For(0, resamples, new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism, CancellationToken = cancel }, i =>
         {
             var rng = new Random(unchecked(seed * 1_000_003 + i * 7919 + 17));

@@ -1,3 +1,6 @@
+using System.Buffers;
+using System.Numerics;
+using System.Runtime.InteropServices;
 using SizeTest.Common;
 using SizeTest.Cosmology;
 using SizeTest.Photometry;
@@ -32,7 +35,8 @@ public sealed class HypothesisLikelihood : ILogDensity
     private readonly Hypothesis _h;
     private readonly int _n;
     private readonly ObservableKind _kind;
-    private readonly double[] _y = [], _s2y = [], _mu = [], _s2mu = [], _corr = [], _l10, _ln1pz, _lnz;
+    private readonly double[] _y = [], _s2y = [], _mu = [], _s2mu = [], _corr = [], _negCorr = [], _l10, _ln1pz, _lnz;
+    private readonly bool _uniformS2y, _uniformS2mu;
     private readonly double[]? _lnDaFixed;
     private readonly double _nFixed;
     private readonly bool _cosmoFree;
@@ -63,6 +67,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         {
             _y = observables.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
             _s2y = Square(observables.LnThetaErr, _n);
+            _uniformS2y = Array.TrueForAll(_s2y, x => x == _s2y[0]);
         }
         if (sb)
         {
@@ -71,6 +76,8 @@ public sealed class HypothesisLikelihood : ILogDensity
             _corr = new double[_n];
             for (int i = 0; i < _n; i++)
                 _corr[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
+            _negCorr = Array.ConvertAll(_corr, c => -c);
+            _uniformS2mu = Array.TrueForAll(_s2mu, x => x == _s2mu[0]);
         }
         _l10 = new double[_n];
         _ln1pz = new double[_n];
@@ -289,29 +296,108 @@ public sealed class HypothesisLikelihood : ILogDensity
         var v = e.Values;
         double c0 = Math.Log(v[_iR0]) + LnKpcPerMpc, a = v[_iA];
         double sig = Ln10 * v[_iSd], sig2 = sig * sig;
-        double acc = 0, sel = 0;
-        var y = _y; var s2 = _s2y; var l1 = _ln1pz;
-        if (_lnDaFixed is { } lnDa && !_hasThetaCut)
+        int len = end - start;
+        if (_hasThetaCut)
         {
+            double acc = 0, sel = 0;
             for (int i = start; i < end; i++)
             {
-                double r = y[i] - (c0 + a * l1[i] - lnDa[i]);
-                double var = s2[i] + sig2;
+                double m = c0 + a * _ln1pz[i] - LnDa(e, i);
+                double r = _y[i] - m;
+                double var = _s2y[i] + sig2;
                 acc += r * r / var + Math.Log(var);
+                sel += NormalMath.LogPhi((m - _lnThetaMin) / Math.Sqrt(var));
             }
+            return -0.5 * acc - sel - HalfLn2Pi * len;
         }
+        double[]? rented = null;
+        ReadOnlySpan<double> lnDa;
+        if (_lnDaFixed is not null) lnDa = _lnDaFixed.AsSpan(start, len);
         else
         {
+            rented = ArrayPool<double>.Shared.Rent(len);
+            var span = rented.AsSpan(0, len);
+            var g = e.GridG!;
+            var idx = _grid!.Index;
+            var w = _grid.Weights;
             for (int i = start; i < end; i++)
             {
-                double m = c0 + a * l1[i] - LnDa(e, i);
-                double r = y[i] - m;
-                double var = s2[i] + sig2;
-                acc += r * r / var + Math.Log(var);
-                if (_hasThetaCut) sel += NormalMath.LogPhi((m - _lnThetaMin) / Math.Sqrt(var));
+                int j = idx[i], k = 4 * i;
+                span[i - start] = _lnz[i] + w[k] * g[j] + w[k + 1] * g[j + 1] + w[k + 2] * g[j + 2] + w[k + 3] * g[j + 3];
             }
+            lnDa = span;
         }
-        return -0.5 * acc - sel - HalfLn2Pi * (end - start);
+        double result = -0.5 * GaussianSum(_y.AsSpan(start, len), _ln1pz.AsSpan(start, len), lnDa, _s2y.AsSpan(start, len), c0, a, sig2, _uniformS2y)
+                        - HalfLn2Pi * len;
+        if (rented is not null) ArrayPool<double>.Shared.Return(rented);
+        return result;
+    }
+
+    /// <summary>
+    /// Σ [r²/v + ln v] with r = y − (c0 + slope·x − offset), v = s2 + extra: the Gaussian core of the size and SB
+    /// models, vectorised (System.Numerics.Vector). With uniform s2 the logarithm is taken once.
+    /// </summary>
+    private static double GaussianSum(ReadOnlySpan<double> y, ReadOnlySpan<double> x, ReadOnlySpan<double> offset, ReadOnlySpan<double> s2,
+        double c0, double slope, double extra, bool uniformS2)
+    {
+        int n = y.Length, i = 0;
+        double q = 0, l = 0;
+        if (uniformS2)
+        {
+            double var = (n > 0 ? s2[0] : 0) + extra, inv = 1 / var;
+            if (Vector.IsHardwareAccelerated && n >= Vector<double>.Count)
+            {
+                var vc = new Vector<double>(c0);
+                var vs = new Vector<double>(slope);
+                var acc = Vector<double>.Zero;
+                var yv = MemoryMarshal.Cast<double, Vector<double>>(y);
+                var xv = MemoryMarshal.Cast<double, Vector<double>>(x);
+                var ov = MemoryMarshal.Cast<double, Vector<double>>(offset);
+                for (int k = 0; k < yv.Length; k++)
+                {
+                    var r = yv[k] - (vc + vs * xv[k] - ov[k]);
+                    acc += r * r;
+                }
+                q = Vector.Sum(acc);
+                i = yv.Length * Vector<double>.Count;
+            }
+            for (; i < n; i++)
+            {
+                double r = y[i] - (c0 + slope * x[i] - offset[i]);
+                q += r * r;
+            }
+            return q * inv + n * Math.Log(var);
+        }
+        if (Vector.IsHardwareAccelerated && n >= Vector<double>.Count)
+        {
+            var vc = new Vector<double>(c0);
+            var vs = new Vector<double>(slope);
+            var ve = new Vector<double>(extra);
+            var accQ = Vector<double>.Zero;
+            var accL = Vector<double>.Zero;
+            var yv = MemoryMarshal.Cast<double, Vector<double>>(y);
+            var xv = MemoryMarshal.Cast<double, Vector<double>>(x);
+            var ov = MemoryMarshal.Cast<double, Vector<double>>(offset);
+            var sv = MemoryMarshal.Cast<double, Vector<double>>(s2);
+            for (int k = 0; k < yv.Length; k++)
+            {
+                var r = yv[k] - (vc + vs * xv[k] - ov[k]);
+                var var = sv[k] + ve;
+                accQ += r * r / var;
+                accL += Vector.Log(var);
+            }
+            q = Vector.Sum(accQ);
+            l = Vector.Sum(accL);
+            i = yv.Length * Vector<double>.Count;
+        }
+        for (; i < n; i++)
+        {
+            double r = y[i] - (c0 + slope * x[i] - offset[i]);
+            double var = s2[i] + extra;
+            q += r * r / var;
+            l += Math.Log(var);
+        }
+        return q + l;
     }
 
     private double SbSlice(Evaluation e, int start, int end)
@@ -319,6 +405,12 @@ public sealed class HypothesisLikelihood : ILogDensity
         var v = e.Values;
         double mu0 = v[_iMu0], slope = 2.5 * (e.Dimming - v[_iB]);
         double sm = v[_iSm], sm2 = sm * sm;
+        if (!_hasSbCut)
+        {
+            // m = μ0 + slope·log10(1+z) − (−K−A): same Gaussian core as the size model.
+            return -0.5 * GaussianSum(_mu.AsSpan(start, end - start), _l10.AsSpan(start, end - start), _negCorr.AsSpan(start, end - start),
+                _s2mu.AsSpan(start, end - start), mu0, slope, sm2, _uniformS2mu) - HalfLn2Pi * (end - start);
+        }
         double acc = 0, sel = 0;
         for (int i = start; i < end; i++)
         {

@@ -107,7 +107,7 @@ public static class MaximumLikelihood
     {
         var nm = new NelderMeadSimplex(s.Tolerance, s.MaxIterations);
         var init = Vector<double>.Build.DenseOfArray(u0);
-        var pert = Vector<double>.Build.Dense(u0.Length, 0.5);
+        var pert = Vector<double>.Build.Dense(u0.Length, s.InitialStep);
         try
         {
             var r = nm.FindMinimum(objective, init, pert);
