@@ -45,10 +45,10 @@ public class LikelihoodBenchmarks
 public static class BenchData
 {
     /// <summary>The world-model family used (flat ΛCDM from the registry).</summary>
-    public static IWorldModelFamily Family => LikelihoodBenchWorldModels.Get("lcdm");
+    public static IWorldModelFamily Family => WorldModels.Get("lcdm");
 
     /// <summary>Family by name.</summary>
-    public static IWorldModelFamily Get(string name) => LikelihoodBenchWorldModels.Get(name);
+    public static IWorldModelFamily Get(string name) => WorldModels.Get(name);
 
     /// <summary>A synthetic (mock) angular-size sample: flat ΛCDM, R0 = 4 kpc, a = −1, 0.2 dex, 0.1 &lt; z &lt; 3.</summary>
     public static Observables SizeSample(int n, int seed)

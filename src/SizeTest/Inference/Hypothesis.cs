@@ -103,7 +103,8 @@ public sealed class Hypothesis
         bool sb = nuisance.Observable != ObservableKind.Size;
         if (NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Any(p => p.Name == name)) return true;
         if (NuisanceParameters.All.Any(p => p.Name == name)) return false;
-        if (name == "dimming_exponent") return sb;
+        // The dimming exponent (and the flux convention it defaults from) act only on surface brightness.
+        if (name is "dimming_exponent" or "luminosity_exponent") return sb;
         // Every other cosmological parameter acts through D_A, which only the size model sees
         // (the joint model with a size–SB relation sees it through the physical size too).
         return size && family.Parameters.Any(p => p.Name == name);

@@ -271,8 +271,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         var dict = new Dictionary<string, double>(_cosmoIdx.Length);
         foreach (var i in _cosmoIdx)
             if (!double.IsNaN(values[i])) dict[_h.Parameters[i].Name] = values[i]; // NaN = not given (model default)
-        try { return _h.Family.Create(dict); }
-        catch (ArgumentException) { return null; }
+        return _h.Family.TryCreate(dict, out var model, out _) ? model : null;
     }
 
     /// <summary>Sum of per-object log densities (with all constants) over rows [start, end).</summary>

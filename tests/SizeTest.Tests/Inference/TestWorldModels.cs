@@ -42,6 +42,14 @@ internal sealed class TestFamily(string name, bool expanding, IReadOnlyList<Para
         }
         return create(all);
     }
+
+    public bool TryCreate(IReadOnlyDictionary<string, double> values, [System.Diagnostics.CodeAnalysis.NotNullWhen(true)] out IWorldModel? model, [System.Diagnostics.CodeAnalysis.NotNullWhen(false)] out string? error)
+    {
+        try { model = Create(values); error = null; return true; }
+        catch (ArgumentException ex) { model = null; error = ex.Message; return false; }
+    }
+
+    public string DimmingLaw => expanding ? "(1+z)^-4" : "(1+z)^-n";
 }
 
 internal static class TestWorldModels
