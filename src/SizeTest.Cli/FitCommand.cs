@@ -25,7 +25,7 @@ internal static class FitCommand
         var cols = new Option<string[]>("--col") { Description = "Column mapping ROLE=NAME[:UNIT] (roles id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band); repeatable.", AllowMultipleArgumentsPerToken = false };
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
-        observable.AcceptOnlyFromAmong("size", "sb", "joint");
+        OneOf(observable, "--observable", "size", "sb", "joint");
         var relation = new Option<bool>("--size-sb-relation") { Description = "Joint only: link μ to log10 physical size with a free Kormendy-type slope (kormendy_slope), so the SB test is at matched physical size." };
         var pivot = new Option<double>("--pivot-kpc") { Description = "Pivot physical size of the size–SB relation, kpc (mu0 is the SB at this size).", DefaultValueFactory = _ => 5.0 };
         var dimOffset = new Option<double>("--dimming-offset") { Description = "Added to every model's bolometric dimming exponent: −1 for f_ν (AB) band SB without a bandwidth K-correction, +1 for f_λ; 0 when bolometric or K-corrected.", DefaultValueFactory = _ => 0.0 };
@@ -37,7 +37,7 @@ internal static class FitCommand
         var folds = new Option<int>("--cv-folds") { Description = "Folds of the cross-validated log predictive density (0: none).", DefaultValueFactory = _ => 5 };
         var profile = new Option<string?>("--profile") { Description = "Parameter to profile (writes profile_MODEL_NAME.csv)." };
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
-        sampler.AcceptOnlyFromAmong("none", "mcmc", "nested");
+        OneOf(sampler, "--sampler", "none", "mcmc", "nested");
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
         var sbLimit = new Option<double?>("--sb-limit") { Description = "Survey surface-brightness limit μ < MU (mag/arcsec²), modelled as a truncation." };
@@ -132,6 +132,14 @@ internal static class FitCommand
         });
         return command;
     }
+
+    // A validator rather than AcceptOnlyFromAmong: its message is one line.
+    private static void OneOf(Option<string> option, string name, params string[] allowed) =>
+        option.Validators.Add(result =>
+        {
+            string? v = result.GetValueOrDefault<string>();
+            if (v is null || !allowed.Contains(v)) result.AddError($"{name} must be one of {string.Join(", ", allowed)}; got '{v}'.");
+        });
 
     private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
     {

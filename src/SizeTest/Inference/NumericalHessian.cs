@@ -7,6 +7,9 @@ namespace SizeTest.Inference;
 /// </summary>
 public static class NumericalHessian
 {
+    /// <summary>Smallest eigenvalue the unit-diagonal curvature matrix may have before the fit counts as degenerate.</summary>
+    public const double MinScaledEigenvalue = 1e-3;
+
     /// <summary>
     /// Computes H_jk = ∂²ln p/∂θ_j∂θ_k at <paramref name="theta"/> for the parameters in <paramref name="active"/>
     /// (others get zero rows). Off-diagonal terms use the four-point formula
@@ -75,6 +78,12 @@ public static class NumericalHessian
         var m = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(idx.Length, idx.Length, (a, b) => -hessian[idx[a], idx[b]]);
         for (int a = 0; a < idx.Length; a++)
             if (!(m[a, a] > 0) || !double.IsFinite(m[a, a])) return null;
+        // Degeneracy: the curvature matrix scaled to unit diagonal must be well conditioned. An exact degeneracy
+        // (e.g. r0_kpc with h0 for sizes) leaves a near-zero eigenvalue that finite differences blur to ~1e-4;
+        // real correlations of |ρ| ≤ 0.999 keep it above 1e-3 (2-D case: eigenvalues 1 ± ρ).
+        var scaled = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(idx.Length, idx.Length, (a, b) => m[a, b] / Math.Sqrt(m[a, a] * m[b, b]));
+        var eig = scaled.Evd(MathNet.Numerics.LinearAlgebra.Symmetricity.Symmetric).EigenValues;
+        if (eig.Min(e => e.Real) < MinScaledEigenvalue) return null;
         MathNet.Numerics.LinearAlgebra.Matrix<double> inv;
         try { inv = m.Cholesky().Solve(MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseIdentity(idx.Length)); }
         catch (ArgumentException) { return null; }
