@@ -15,5 +15,6 @@ public sealed record SelectionLimits(double? SbLimit = null, double? MagLimit = 
     public static SelectionLimits None { get; } = new();
 
     /// <summary>True when no cut is set.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
     public bool IsEmpty => SbLimit is null && MagLimit is null && MinThetaArcsec is null;
 }
