@@ -58,5 +58,6 @@ public static class Program
         yield return ModelsCommand.Create(context);
         yield return PredictCommand.Create(context);
         yield return InspectCommand.Create(context);
+        yield return FitCommand.Create(context);
     }
 }
