@@ -211,6 +211,38 @@ public sealed class EnsembleSampler
     }
 
     /// <summary>
+    /// Like <see cref="GaussianBall(ReadOnlySpan{double}, ReadOnlySpan{double}, int, int)"/>, but every point
+    /// whose log density under <paramref name="density"/> is not finite (e.g. outside a prior bound when the
+    /// centre sits near one) is drawn again, up to 1000 times per walker.
+    /// </summary>
+    /// <exception cref="ArgumentException">When no valid point is found for some walker.</exception>
+    public static double[][] GaussianBall(ILogDensity density, ReadOnlySpan<double> centre, ReadOnlySpan<double> scale, int walkers, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(density);
+        if (centre.Length != density.Dimension) throw new ArgumentException("The centre must have one coordinate per parameter.");
+        var rng = new Random(seed);
+        var result = new double[walkers][];
+        for (int w = 0; w < walkers; w++)
+        {
+            var x = new double[centre.Length];
+            bool ok = false;
+            for (int attempt = 0; attempt < 1000 && !ok; attempt++)
+            {
+                for (int p = 0; p < centre.Length; p++)
+                {
+                    double u1 = 1.0 - rng.NextDouble(), u2 = rng.NextDouble();
+                    x[p] = centre[p] + scale[p] * Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
+                }
+                ok = double.IsFinite(density.LogDensity(x));
+            }
+            if (!ok)
+                throw new ArgumentException($"No starting point with a finite log density was found near the centre for walker {w}; check the centre and the scale.");
+            result[w] = x;
+        }
+        return result;
+    }
+
+    /// <summary>
     /// Refuses an ensemble whose centred, per-parameter-standardised coordinates have a
     /// condition number above 10⁸ (the walkers then lie, numerically, in a lower-dimensional
     /// subspace that affine-invariant moves cannot leave).

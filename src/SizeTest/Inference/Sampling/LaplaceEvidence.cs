@@ -152,16 +152,6 @@ public static class LaplaceEvidence
         }
         return warnings;
     }
-
-    private sealed class LogPosterior(ILogDensity logLikelihood, IReadOnlyList<ParameterPrior> priors) : ILogDensity
-    {
-        public int Dimension => logLikelihood.Dimension;
-        public double LogDensity(ReadOnlySpan<double> theta)
-        {
-            double lp = LogPrior(priors, theta);
-            return double.IsNegativeInfinity(lp) ? lp : logLikelihood.LogDensity(theta) + lp;
-        }
-    }
 }
 
 /// <summary>A Laplace evidence estimate.</summary>

@@ -233,6 +233,22 @@ public sealed class EnsembleSamplerTests
         Assert.Equal(run.Chain.AcceptedCounts.Sum(), run.AcceptanceFraction * 4 * 11, 9);
     }
 
+    [Fact]
+    public void StartsNearAPriorBoundThroughLogPosterior()
+    {
+        // Likelihood peaked at the lower bound 0 of a uniform prior: a plain ball around 0.001 would put
+        // walkers outside the support; the density-aware ball redraws them.
+        var like = new DelegateDensity(2, x => -0.5 * ((x[0] - 0.001) * (x[0] - 0.001) / 1e-4 + x[1] * x[1]));
+        var posterior = new LogPosterior(like, [new SizeTest.Inference.UniformPrior(0, 1), new SizeTest.Inference.UniformPrior(-5, 5)]);
+        Assert.Equal(double.NegativeInfinity, posterior.LogDensity([-0.1, 0.0]));
+        Assert.Equal(like.LogDensity([0.5, 0.2]) - Math.Log(10), posterior.LogDensity([0.5, 0.2]), 12);
+        var start = EnsembleSampler.GaussianBall(posterior, [0.001, 0.0], [0.01, 0.01], 8, seed: 3);
+        Assert.All(start, w => Assert.True(w[0] >= 0));
+        var run = new EnsembleSampler(posterior, new EnsembleSamplerOptions { Walkers = 8, Steps = 300 }).Run(start);
+        Assert.All(run.Samples, s => Assert.InRange(s[0], 0.0, 1.0));
+        Assert.True(run.Percentile(0, 50) > 0);
+    }
+
     private static double[,] Diagonal(int d, double v)
     {
         var m = new double[d, d];
