@@ -1,11 +1,8 @@
-using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
-
 namespace SizeTest.Inference.Sampling;
 
 /// <summary>
 /// Integrated autocorrelation time τ = 1 + 2 Σ_{t≥1} ρ(t) of a Markov chain, with the
-/// normalised autocorrelation ρ(t) computed by FFT (zero-padded to avoid wrap-around) and the
+/// normalised autocorrelation ρ(t) computed by FFT (zero-padded to avoid wrap-around; own radix-2 transform) and the
 /// sum cut at Sokal's automatic window: the smallest M with M ≥ c·τ̂(M), c = 5 by default
 /// (Sokal 1997, "Monte Carlo methods in statistical mechanics", in Functional Integration,
 /// NATO ASI Series B 361, §3; Goodman &amp; Weare 2010 §5 for its use with ensembles).
@@ -43,24 +40,8 @@ public static class Autocorrelation
     /// </summary>
     public static double[] Autocovariance(ReadOnlySpan<double> series)
     {
-        int n = series.Length;
-        var result = new double[n];
-        if (n == 0) return result;
-        double mean = 0;
-        for (int i = 0; i < n; i++) mean += series[i];
-        mean /= n;
-        int m = 1;
-        while (m < 2 * n) m <<= 1;
-        var buffer = new Complex[m];
-        for (int i = 0; i < n; i++) buffer[i] = new Complex(series[i] - mean, 0);
-        Fourier.Forward(buffer, FourierOptions.Matlab);
-        for (int i = 0; i < m; i++)
-        {
-            double re = buffer[i].Real, im = buffer[i].Imaginary;
-            buffer[i] = new Complex(re * re + im * im, 0);
-        }
-        Fourier.Inverse(buffer, FourierOptions.Matlab);
-        for (int t = 0; t < n; t++) result[t] = buffer[t].Real / n;
+        var result = new double[series.Length];
+        Fft.AutocovariancePair(series, [], result, []);
         return result;
     }
 
@@ -82,13 +63,30 @@ public static class Autocorrelation
         int n = walkers[0].Length;
         var mean = new double[n];
         foreach (var w in walkers)
-        {
             if (w.Length != n) throw new ArgumentException("All walker series must have the same length.", nameof(walkers));
-            var rho = Function(w);
-            for (int t = 0; t < n; t++) mean[t] += rho[t];
+        var ax = new double[n];
+        var ay = new double[n];
+        for (int k = 0; k < walkers.Count; k += 2)
+        {
+            bool pair = k + 1 < walkers.Count;
+            Fft.AutocovariancePair(walkers[k], pair ? walkers[k + 1] : [], ax, pair ? ay : []);
+            AddNormalised(ax, mean);
+            if (pair) AddNormalised(ay, mean);
         }
         for (int t = 0; t < n; t++) mean[t] /= walkers.Count;
         return Windowed(mean, n, windowConstant);
+    }
+
+    /// <summary>Adds ρ(t) = γ(t)/γ(0) to <paramref name="sum"/> (ρ ≡ 1 for a constant series, which never decorrelates).</summary>
+    private static void AddNormalised(double[] acov, double[] sum)
+    {
+        if (!(acov[0] > 0))
+        {
+            for (int t = 0; t < sum.Length; t++) sum[t] += 1.0;
+            return;
+        }
+        double inv = 1.0 / acov[0];
+        for (int t = 0; t < sum.Length; t++) sum[t] += acov[t] * inv;
     }
 
     private static IntegratedTimeEstimate Windowed(double[] rho, int n, double c)

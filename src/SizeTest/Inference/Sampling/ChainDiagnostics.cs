@@ -69,6 +69,18 @@ public sealed record ChainDiagnostics(IReadOnlyList<ParameterDiagnostics> Parame
                 string.Create(inv, $"only {steps} steps after burn-in; at least 8 are needed before any diagnostic can be computed (and far more for convergence)")));
         }
 
+        // The per-parameter work (FFTs, ranks) is independent: compute it in parallel, then build checks in order.
+        var computed = new (IntegratedTimeEstimate Tau, double Rhat, double Bulk, double Tail)[series.Count];
+        if (steps >= 8)
+            Parallel.For(0, series.Count, p =>
+            {
+                var c = series[p];
+                computed[p] = (Autocorrelation.IntegratedTime(c, criteria.WindowConstant),
+                               RankNormalizedDiagnostics.SplitRhat(GroupWalkers(c, criteria.RhatGroups)),
+                               RankNormalizedDiagnostics.BulkEss(c),
+                               RankNormalizedDiagnostics.TailEss(c));
+            });
+
         for (int p = 0; p < series.Count; p++)
         {
             var chains = series[p];
@@ -89,11 +101,8 @@ public sealed record ChainDiagnostics(IReadOnlyList<ParameterDiagnostics> Parame
                 parameters.Add(new ParameterDiagnostics(name, count > 0 ? mean : double.NaN, sd, double.NaN, false, double.NaN, double.NaN, double.NaN, double.NaN));
                 continue;
             }
-            var tau = Autocorrelation.IntegratedTime(chains, criteria.WindowConstant);
+            var (tau, rhat, bulk, tail) = computed[p];
             double essTau = (double)walkers * steps / tau.Tau;
-            double rhat = RankNormalizedDiagnostics.SplitRhat(GroupWalkers(chains, criteria.RhatGroups));
-            double bulk = RankNormalizedDiagnostics.BulkEss(chains);
-            double tail = RankNormalizedDiagnostics.TailEss(chains);
             var d = new ParameterDiagnostics(name, mean, sd, tau.Tau, tau.WindowReached, essTau, rhat, bulk, tail);
             parameters.Add(d);
 

@@ -101,13 +101,23 @@ public static class RankNormalizedDiagnostics
         var acovMean = new double[n];
         var chainMeans = new double[m];
         double meanVar = 0;
+        var ax = new double[n];
+        var ay = new double[n];
         for (int c = 0; c < m; c++)
-        {
             if (chains[c].Length != n) throw new ArgumentException("All chains must have the same length.", nameof(chains));
-            var acov = Autocorrelation.Autocovariance(chains[c]);
-            for (int t = 0; t < n; t++) acovMean[t] += acov[t] / m;
+        for (int c = 0; c < m; c += 2)
+        {
+            bool pair = c + 1 < m;
+            Fft.AutocovariancePair(chains[c], pair ? chains[c + 1] : [], ax, pair ? ay : []);
+            for (int t = 0; t < n; t++) acovMean[t] += ax[t] / m;
             chainMeans[c] = chains[c].Average();
-            meanVar += acov[0] * n / (n - 1.0) / m;
+            meanVar += ax[0] * n / (n - 1.0) / m;
+            if (pair)
+            {
+                for (int t = 0; t < n; t++) acovMean[t] += ay[t] / m;
+                chainMeans[c + 1] = chains[c + 1].Average();
+                meanVar += ay[0] * n / (n - 1.0) / m;
+            }
         }
         double varPlus = meanVar * (n - 1.0) / n;
         if (m > 1)
