@@ -20,8 +20,17 @@ public class SamplerBenchmarks
     private static readonly double[] Centre = [0.3, 70.0, -1.0, 0.2];
     private double[][] _start = [];
 
+    private EnsembleRun? _finished;
+
     [GlobalSetup]
-    public void Setup() => _start = EnsembleSampler.GaussianBall(Centre, [0.01, 0.1, 0.01, 0.01], 32, seed: 1);
+    public void Setup()
+    {
+        _start = EnsembleSampler.GaussianBall(Centre, [0.01, 0.1, 0.01, 0.01], 32, seed: 1);
+        _finished = Run(new CheapGaussian(), 1);
+    }
+
+    [Benchmark(Description = "diagnostics only: tau, R-hat, bulk/tail ESS of 32 walkers x 2250 steps x 4 parameters")]
+    public double DiagnosticsOnly() => ChainDiagnostics.Compute(_finished!.Chain, _finished.BurnIn, null, _finished.AcceptanceFraction).MaxTau;
 
     private EnsembleRun Run(ILogDensity density, int threads) =>
         new EnsembleSampler(density, new EnsembleSamplerOptions { Walkers = 32, Steps = 3000, Seed = 1, MaxDegreeOfParallelism = threads }).Run(_start);

@@ -42,7 +42,7 @@ public sealed record EnsembleRun
     /// <summary>Whether the verdict says converged.</summary>
     public bool Converged => Diagnostics.Verdict.Converged;
 
-    /// <summary>Kept samples [sample][parameter]: burn-in discarded, thinned, all walkers.</summary>
+    /// <summary>Kept samples [sample][parameter]: burn-in discarded, thinned, all walkers (a new array on each access).</summary>
     public double[][] Samples => Chain.GetFlatChain(BurnIn, Thin);
 
     /// <summary>

@@ -299,7 +299,15 @@ public sealed class EnsembleSampler
             }
             _points = points;
             _output = output;
-            Parallel.For(0, count, _parallel, _body);
+            try
+            {
+                Parallel.For(0, count, _parallel, _body);
+            }
+            catch (AggregateException ex) when (ex.InnerExceptions.Count == 1)
+            {
+                // Surface the density's own exception (e.g. an InputException) rather than the wrapper.
+                System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(ex.InnerExceptions[0]).Throw();
+            }
         }
     }
 }

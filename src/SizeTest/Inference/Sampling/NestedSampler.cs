@@ -50,6 +50,8 @@ public sealed class NestedSampler
         if (!(options.Tolerance > 0)) throw new ArgumentException("The tolerance must be positive.", nameof(options));
         if (options.SliceSteps is < 1) throw new ArgumentException("SliceSteps must be at least 1.", nameof(options));
         if (options.MaxIterations < 1) throw new ArgumentException("MaxIterations must be at least 1.", nameof(options));
+        if (options.ParameterNames is { } names && names.Count != priors.Count)
+            throw new ArgumentException($"Expected {priors.Count} parameter names, got {names.Count}.", nameof(options));
         _logLikelihood = logLikelihood;
         _priors = [.. priors];
         _options = options;
@@ -273,9 +275,11 @@ public sealed class NestedSampler
         double logL = _logLikelihood.LogDensity(theta);
         if (double.IsNaN(logL))
             throw new AnalysisException(
-                $"The log-likelihood returned NaN at ({string.Join(", ", theta.Select(x => x.ToString("G6", CultureInfo.InvariantCulture)))}); it must return −∞ where the model is undefined, never NaN.");
+                $"The log-likelihood returned NaN at ({string.Join(", ", theta.Select((x, i) => $"{ParameterName(i)} = {x.ToString("G6", CultureInfo.InvariantCulture)}"))}); it must return −∞ where the model is undefined, never NaN.");
         return logL;
     }
+
+    private string ParameterName(int i) => _options.ParameterNames is { } names && i < names.Count ? names[i] : $"theta_{i}";
 
     private static double Interior(double u) => u <= 0.0 ? double.Epsilon : u;
 

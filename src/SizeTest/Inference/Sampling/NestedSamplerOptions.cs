@@ -24,6 +24,6 @@ public sealed record NestedSamplerOptions
     /// <summary>Hard limit on iterations (dead points); reaching it gives a not-converged result. Default 1 000 000.</summary>
     public int MaxIterations { get; init; } = 1_000_000;
 
-    /// <summary>Parameter names (for messages); null for <c>theta_0</c>, ….</summary>
+    /// <summary>Parameter names for error messages; null for <c>theta_0</c>, ….</summary>
     public IReadOnlyList<string>? ParameterNames { get; init; }
 }

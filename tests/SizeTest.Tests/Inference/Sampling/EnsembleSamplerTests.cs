@@ -170,6 +170,14 @@ public sealed class EnsembleSamplerTests
     }
 
     [Fact]
+    public void ExceptionFromParallelEvaluationIsNotWrapped()
+    {
+        var density = new DelegateDensity(1, x => x[0] > 2 ? throw new InputException("bad value") : -0.5 * x[0] * x[0]);
+        var sampler = new EnsembleSampler(density, new EnsembleSamplerOptions { Walkers = 8, Steps = 100000, MaxDegreeOfParallelism = 2 });
+        Assert.Throws<InputException>(() => sampler.Run(Ball([0], 0.5, 8, 4)));
+    }
+
+    [Fact]
     public void ReportsProgressAndHonoursCancellation()
     {
         var target = new GaussianDensity([0, 0], Diagonal(2, 1.0));

@@ -185,7 +185,9 @@ public sealed class NestedSamplerTests
         Assert.Throws<ArgumentException>(() => new NestedSampler(like, [new UniformPrior(-1, 1)]));
         Assert.Throws<ArgumentException>(() => new NestedSampler(like, [new UniformPrior(-1, 1), new UniformPrior(-1, 1)], new NestedSamplerOptions { LivePoints = 3 }));
         var nan = new DelegateDensity(1, x => x[0] > 0.5 ? double.NaN : 0.0);
-        Assert.Throws<AnalysisException>(() => new NestedSampler(nan, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 50 }).Run());
+        var ex = Assert.Throws<AnalysisException>(() =>
+            new NestedSampler(nan, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 50, ParameterNames = ["omega_m"] }).Run());
+        Assert.Contains("omega_m = ", ex.Message);
         var flat = new ConstantDensity(1, -1.0);
         Assert.Contains("plateau", Assert.Throws<AnalysisException>(() =>
             new NestedSampler(flat, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 20 }).Run()).Message);
