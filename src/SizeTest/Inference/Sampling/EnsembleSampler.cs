@@ -36,6 +36,8 @@ public sealed class EnsembleSampler
                 $"The ensemble sampler needs at least 2 × {d} = {2 * d} walkers for {d} parameters, but {options.Walkers} were requested; use more walkers.",
                 nameof(options));
         if (options.Steps < 1) throw new ArgumentException($"Steps must be at least 1, got {options.Steps}.", nameof(options));
+        if (options.MaxSteps is { } max && max < options.Steps)
+            throw new ArgumentException($"MaxSteps ({max}) must be at least Steps ({options.Steps}).", nameof(options));
         if (options.Thin < 1) throw new ArgumentException($"Thin must be at least 1, got {options.Thin}.", nameof(options));
         if (options.EffectiveBurnIn < 0 || options.EffectiveBurnIn >= options.Steps)
             throw new ArgumentException($"Burn-in must be between 0 and Steps − 1 = {options.Steps - 1}, got {options.EffectiveBurnIn}.", nameof(options));
@@ -125,50 +127,66 @@ public sealed class EnsembleSampler
         int reportEvery = Math.Max(1, steps / 100);
         var clock = Stopwatch.StartNew();
 
-        for (int step = 0; step < steps; step++)
+        int target = steps;
+        int step = 0;
+        int burnIn;
+        ChainDiagnostics diagnostics;
+        while (true)
         {
-            cancellationToken.ThrowIfCancellationRequested();
-            Array.Clear(acceptedStep);
-            for (int h = 0; h < 2; h++)
+            for (; step < target; step++)
             {
-                var active = h == 0 ? setA : setB;
-                var complement = h == 0 ? setB : setA;
-                int na = active.Length;
-                _options.Move.Propose(positions, d, active, complement, rng, proposals.AsSpan(0, na * d), logFactors.AsSpan(0, na));
-                for (int i = 0; i < na; i++) logU[i] = Math.Log(1.0 - rng.NextDouble());
-                evaluator.Evaluate(proposals, na, newLogProbs);
-                evaluations += na;
-                for (int i = 0; i < na; i++)
+                cancellationToken.ThrowIfCancellationRequested();
+                Array.Clear(acceptedStep);
+                for (int h = 0; h < 2; h++)
                 {
-                    double lp = newLogProbs[i];
-                    if (double.IsNaN(lp))
-                        throw new AnalysisException(
-                            $"The log density returned NaN at step {step} for the point ({string.Join(", ", proposals.AsSpan(i * d, d).ToArray().Select(x => x.ToString("G6", inv)))}); the posterior must return −∞ outside its support, never NaN.");
-                    int k = active[i];
-                    double logRatio = logFactors[i] + lp - logProbs[k];
-                    if (lp > double.NegativeInfinity && logU[i] < logRatio)
+                    var active = h == 0 ? setA : setB;
+                    var complement = h == 0 ? setB : setA;
+                    int na = active.Length;
+                    _options.Move.Propose(positions, d, active, complement, rng, proposals.AsSpan(0, na * d), logFactors.AsSpan(0, na));
+                    for (int i = 0; i < na; i++) logU[i] = Math.Log(1.0 - rng.NextDouble());
+                    evaluator.Evaluate(proposals, na, newLogProbs);
+                    evaluations += na;
+                    for (int i = 0; i < na; i++)
                     {
-                        proposals.AsSpan(i * d, d).CopyTo(positions.AsSpan(k * d, d));
-                        logProbs[k] = lp;
-                        acceptedStep[k] = true;
-                        acceptedTotal[k]++;
-                        acceptedAll++;
+                        double lp = newLogProbs[i];
+                        if (double.IsNaN(lp))
+                            throw new AnalysisException(
+                                $"The log density returned NaN at step {step} for the point ({string.Join(", ", proposals.AsSpan(i * d, d).ToArray().Select(x => x.ToString("G6", inv)))}); the posterior must return −∞ outside its support, never NaN.");
+                        int k = active[i];
+                        double logRatio = logFactors[i] + lp - logProbs[k];
+                        if (lp > double.NegativeInfinity && logU[i] < logRatio)
+                        {
+                            proposals.AsSpan(i * d, d).CopyTo(positions.AsSpan(k * d, d));
+                            logProbs[k] = lp;
+                            acceptedStep[k] = true;
+                            acceptedTotal[k]++;
+                            acceptedAll++;
+                        }
                     }
                 }
+                memory.Append(step, positions, logProbs, acceptedStep);
+                store?.Append(step, positions, logProbs, acceptedStep);
+                if (progress is not null && ((step + 1) % reportEvery == 0 || step + 1 == target))
+                    progress.Report(new SamplerProgress(step + 1, target, (double)acceptedAll / ((long)nw * (step + 1)), clock.Elapsed));
             }
-            memory.Append(step, positions, logProbs, acceptedStep);
-            store?.Append(step, positions, logProbs, acceptedStep);
-            if (progress is not null && ((step + 1) % reportEvery == 0 || step + 1 == steps))
-                progress.Report(new SamplerProgress(step + 1, steps, (double)acceptedAll / ((long)nw * (step + 1)), clock.Elapsed));
+            burnIn = _options.BurnIn ?? step / 4;
+            diagnostics = ChainDiagnostics.Compute(memory, burnIn, _options.Criteria, (double)acceptedAll / ((long)nw * step));
+            if (diagnostics.Verdict.Converged || _options.MaxSteps is not { } maxSteps || step >= maxSteps)
+                break;
+            // Extend: enough steps for MinLengthInTau·τ after the burn-in (+10%), at least half the run again.
+            double tau = diagnostics.MaxTau;
+            double keptFraction = _options.BurnIn is null ? 0.75 : 1.0;
+            double needed = double.IsFinite(tau) ? 1.1 * _options.Criteria.MinLengthInTau * tau / keptFraction + (_options.BurnIn ?? 0) : 0;
+            target = (int)Math.Min(maxSteps, Math.Max(step + step / 2.0, needed));
+            if (target <= step) break;
         }
         memory.Complete();
         store?.Complete();
         clock.Stop();
+        int stepsRun = step;
 
-        var walkerAcceptance = acceptedTotal.Select(a => (double)a / steps).ToArray();
+        var walkerAcceptance = acceptedTotal.Select(a => (double)a / stepsRun).ToArray();
         double acceptance = walkerAcceptance.Average();
-        int burnIn = _options.EffectiveBurnIn;
-        var diagnostics = ChainDiagnostics.Compute(memory, burnIn, _options.Criteria, acceptance);
         var final = new double[nw][];
         for (int w = 0; w < nw; w++) final[w] = positions.AsSpan(w * d, d).ToArray();
         return new EnsembleRun

@@ -195,19 +195,37 @@ public static class RankNormalizedDiagnostics
             }
         Array.Sort(values, index);
         var z = new double[total];
+        var table = ScoreTable(total);
         int start = 0;
         while (start < total)
         {
             int end = start;
             while (end + 1 < total && values[end + 1] == values[start]) end++;
             double rank = (start + end) / 2.0 + 1.0;          // average 1-based rank of the tie group
-            double score = Normal.InvCDF(0.0, 1.0, (rank - 0.375) / (total + 0.25));
+            double score = start == end ? table[start] : Normal.InvCDF(0.0, 1.0, (rank - 0.375) / (total + 0.25));
             for (int k = start; k <= end; k++) z[index[k]] = score;
             start = end + 1;
         }
         var result = new double[m][];
         for (int c = 0; c < m; c++) result[c] = z.AsSpan(c * n, n).ToArray();
         return result;
+    }
+
+    private static Tuple<int, double[]>? _lastScores;
+
+    /// <summary>
+    /// Normal scores Φ⁻¹((r − 3/8)/(S + 1/4)) for the integer ranks r = 1 … S. The inverse normal CDF
+    /// dominates the cost of rank normalisation, and every parameter of a run has the same S, so the
+    /// most recent table is kept (swapped atomically; safe for concurrent callers).
+    /// </summary>
+    private static double[] ScoreTable(int total)
+    {
+        var cached = Volatile.Read(ref _lastScores);
+        if (cached is not null && cached.Item1 == total) return cached.Item2;
+        var table = new double[total];
+        for (int r = 1; r <= total; r++) table[r - 1] = Normal.InvCDF(0.0, 1.0, (r - 0.375) / (total + 0.25));
+        Volatile.Write(ref _lastScores, Tuple.Create(total, table));
+        return table;
     }
 
     private static double Median(IReadOnlyList<double[]> chains)

@@ -117,6 +117,28 @@ public sealed class EnsembleSamplerTests
     }
 
     [Fact]
+    public void ExtendsARunUntilItConverges()
+    {
+        // 4-D Gaussian, 16 walkers: τ is several tens of steps, so 400 steps (300 after burn-in) is far below
+        // 50 τ; with MaxSteps the run must keep going until the verdict passes, and stay deterministic.
+        var target = new GaussianDensity([0, 0, 0, 0], Diagonal(4, 1.0));
+        var options = new EnsembleSamplerOptions { Walkers = 16, Steps = 400, MaxSteps = 40000, Seed = 4, MaxDegreeOfParallelism = 1 };
+        var start = Ball([0, 0, 0, 0], 0.1, 16, 5);
+        var run = new EnsembleSampler(target, options).Run(start);
+        Assert.True(run.Converged, run.Diagnostics.Verdict.Summary);
+        Assert.True(run.Chain.Steps > 400);
+        Assert.Equal(run.Chain.Steps / 4, run.BurnIn);
+        Assert.True(run.Chain.Steps - run.BurnIn >= 50 * run.Diagnostics.MaxTau);
+        var again = new EnsembleSampler(target, options).Run(start);
+        Assert.Equal(run.Chain.Steps, again.Chain.Steps);
+        Assert.Equal(run.FinalPositions[3][2], again.FinalPositions[3][2]);
+        var plain = new EnsembleSampler(target, options with { MaxSteps = null }).Run(start);
+        Assert.Equal(400, plain.Chain.Steps);
+        Assert.False(plain.Converged);
+        Assert.Throws<ArgumentException>(() => new EnsembleSampler(target, options with { MaxSteps = 100 }));
+    }
+
+    [Fact]
     public void RefusesTooFewWalkers()
     {
         var target = new GaussianDensity([0, 0, 0], Diagonal(3, 1.0));
