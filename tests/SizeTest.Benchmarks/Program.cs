@@ -9,5 +9,9 @@ namespace SizeTest.Benchmarks;
 public static class Program
 {
     /// <summary>Entry point; arguments go to BenchmarkDotNet's switcher.</summary>
-    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    public static void Main(string[] args)
+    {
+        if (args.Length > 0 && args[0] == "--reader-scale") { ReaderScaleHarness.Run(args[1..]); return; }
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
 }

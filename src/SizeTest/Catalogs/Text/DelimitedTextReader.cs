@@ -77,7 +77,7 @@ internal sealed class DelimitedTextReader : ICatalogReader
                     var span = _csv.GetSpan(req.ColumnIndex);
                     if (IsNull(span)) { buf.SetNull(row); continue; }
                     if (req.AsText) { buf.SetText(row, Encoding.UTF8.GetString(span)); continue; }
-                    if (double.TryParse(span, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) buf.SetNumber(row, v);
+                    if (FastDecimal.TryParse(span, out var v)) buf.SetNumber(row, v);
                     else buf.SetInvalid(row, Encoding.UTF8.GetString(span));
                 }
             }
