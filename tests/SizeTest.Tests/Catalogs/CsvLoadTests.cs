@@ -122,6 +122,20 @@ public sealed class CsvLoadTests
     }
 
     [Fact]
+    public void WhitespaceTableWithHeaderLineQuotedNamesAndNulls()
+    {
+        using var t = new TempFiles();
+        var p = t.Write("w.dat", "# synthetic\n  name     z      Re[arcsec]\n\"NGC 1\"  0.01   12.5\n  G2      NaN    1.0\n  G3      0.2    0.5   extra\n\tG4\t0.3\t0.25\n");
+        var load = CatalogLoader.Load(p, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["id=name", "theta=Re"]) });
+        Assert.Contains("delimiter: runs of spaces/tabs (detected)", load.LayoutNotes);
+        Assert.Equal(4, load.RowsRead);
+        Assert.Equal(new[] { "NGC 1", "G4" }, load.Sample.Id);
+        Assert.Equal(new long[] { 3, 6 }, load.Sample.SourceRows.ToArray());
+        Assert.Equal(new[] { (4L, RejectReason.MissingValue), (5L, RejectReason.Unparsable) }, load.RejectLog.Entries.Select(e => (e.Row, e.Reason)));
+        Rel.Equal(12.5 * Math.PI / 648000, load.Sample.ThetaRad![0]); // unit from the header "Re[arcsec]"
+    }
+
+    [Fact]
     public void VanDerWel2014Table5ReadsAsAWhitespaceCatalogueWithHeaderFromComment()
     {
         // Real table: van der Wel et al. 2014, ApJ 788, 28, Table 5 (V-band luminosity bins); 21 data rows (lines 8–28; line 29 is empty).
