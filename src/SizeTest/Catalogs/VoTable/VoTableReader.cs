@@ -329,7 +329,7 @@ internal sealed class VoTableReader : ICatalogReader
                 if (!Take(flags, true)) { _done = true; return; }
                 first = false;
             }
-            else if (nf == 0) { _done = true; return; }
+            else if (nf == 0 || _fields.All(f => f.FixedCount == 0)) { _done = true; return; } // rows of no bytes: nothing to read
             _row++;
             int row = -1;
             for (int c = 0; c < nf; c++)
