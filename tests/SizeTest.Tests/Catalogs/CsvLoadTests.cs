@@ -136,6 +136,22 @@ public sealed class CsvLoadTests
     }
 
     [Fact]
+    public void AFileWithoutHeaderButWithTextIdsIsNotMistakenForAHeader()
+    {
+        using var t = new TempFiles();
+        var p = t.Write("nh.csv", "G1,0.5,1.2\nG2,0.6,1.1\n");
+        var load = CatalogLoader.Load(p, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["id=col1", "z=col2", "theta=col3"]) });
+        Assert.Equal(2, load.Accepted);
+        Assert.Contains(load.LayoutNotes, n => n.StartsWith("header: none"));
+        var given = CatalogLoader.Load(p, new CatalogLoadOptions
+        {
+            Reader = new ReaderOptions { HasHeader = true },
+            Mapping = ColumnMapping.FromOptions(["z=0.5"]),
+        });
+        Assert.Equal(1, given.RowsRead);
+    }
+
+    [Fact]
     public void VanDerWel2014Table5ReadsAsAWhitespaceCatalogueWithHeaderFromComment()
     {
         // Real table: van der Wel et al. 2014, ApJ 788, 28, Table 5 (V-band luminosity bins); 21 data rows (lines 8–28; line 29 is empty).

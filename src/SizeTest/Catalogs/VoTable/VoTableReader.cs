@@ -125,7 +125,18 @@ internal sealed class VoTableReader : ICatalogReader
             while (xml.Read() && xml.Depth > depth)
             {
                 if (xml.NodeType != XmlNodeType.Element) continue;
-                if (xml.LocalName == "FIELD" && xml.Depth == depth + 1) { fields.Add(ReadField(xml, path, fields.Count + 1)); continue; }
+                if (xml.LocalName == "FIELD" && xml.Depth == depth + 1)
+                {
+                    var field = ReadField(xml, path, fields.Count + 1);
+                    var unique = field.Name;
+                    for (int k = 2; fields.Any(f => f.Name == unique); k++) unique = $"{field.Name}_{k}";
+                    fields.Add(unique == field.Name ? field : new VoTableField
+                    {
+                        Name = unique, Datatype = field.Datatype, ArraySize = field.ArraySize, Unit = field.Unit, Ucd = field.Ucd,
+                        Description = field.Description, NullText = field.NullText, FixedCount = field.FixedCount,
+                    });
+                    continue;
+                }
                 if (xml.LocalName == "DATA" && xml.Depth == depth + 1)
                 {
                     if (xml.IsEmptyElement) return Empty(file, xml, path, label, fields);
