@@ -42,6 +42,7 @@ public sealed class CsvLoadTests
             "0.5,abc,0.1,21",      // line 8 unparsable
             "0.5,1.0,0.1",         // line 9 wrong field count
             "# a comment",         // line 10
+            "   ",                 // line 11: blank, not a row
             "0.7,2.0,0.2,22") + "\n");
         var load = CatalogLoader.Load(p);
         Assert.Equal(9, load.RowsRead);
@@ -56,7 +57,7 @@ public sealed class CsvLoadTests
         Assert.Equal((7L, RejectReason.OutOfRange), (e[4].Row, e[4].Reason));
         Assert.Equal((8L, "abc", RejectReason.Unparsable), (e[5].Row, e[5].Value, e[5].Reason));
         Assert.Equal((9L, RejectReason.Unparsable), (e[6].Row, e[6].Reason));
-        Assert.Equal(new long[] { 2, 11 }, load.Sample.SourceRows.ToArray());
+        Assert.Equal(new long[] { 2, 12 }, load.Sample.SourceRows.ToArray());
         var csv = load.RejectLog.ToCsv();
         Assert.StartsWith("row,column,value,reason,detail\n3,z,,missing value,", csv);
     }
