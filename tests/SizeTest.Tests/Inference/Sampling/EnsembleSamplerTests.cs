@@ -71,7 +71,7 @@ public sealed class EnsembleSamplerTests
                 cov[i, j] = (0.5 + 0.5 * i) * (0.5 + 0.5 * j) * Math.Pow(0.5, Math.Abs(i - j));
         }
         var target = new GaussianDensity(mean, cov);
-        var options = new EnsembleSamplerOptions { Walkers = 40, Steps = 4000, Seed = 5, MaxDegreeOfParallelism = 2 };
+        var options = new EnsembleSamplerOptions { Walkers = 40, Steps = 4000, Seed = 5, MaxDegreeOfParallelism = 1 };
         var run = new EnsembleSampler(target, options).Run(Ball(mean, 0.05, 40, 11));
         AssertMatchesGaussian(run, target);
         // Stretch move acceptance falls with dimension; ~0.3–0.5 in 5-D (Goodman & Weare 2010 §5; from memory).

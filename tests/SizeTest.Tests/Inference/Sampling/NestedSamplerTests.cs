@@ -170,6 +170,21 @@ public sealed class NestedSamplerTests
     }
 
     [Fact]
+    public void HandlesZeroLikelihoodRegions()
+    {
+        // L = exp(−(x−1)²/(2·0.5²)) for x > 0 and 0 (ln L = −∞) for x ≤ 0, prior U[−5, 5]: half the prior has no
+        // likelihood. Z = (1/10) σ√(2π) [Φ((5−1)/σ) − Φ((0−1)/σ)] (elementary integral, closed form).
+        const double s = 0.5;
+        var like = new DelegateDensity(1, x => x[0] > 0 ? -(x[0] - 1) * (x[0] - 1) / (2 * s * s) : double.NegativeInfinity);
+        double exact = Math.Log(0.1 * s * Math.Sqrt(2 * Math.PI) *
+            (MathNet.Numerics.Distributions.Normal.CDF(0, 1, 4 / s) - MathNet.Numerics.Distributions.Normal.CDF(0, 1, -1 / s)));
+        var result = new NestedSampler(like, [new UniformPrior(-5, 5)], new NestedSamplerOptions { LivePoints = 400, Seed = 13 }).Run();
+        Assert.True(Math.Abs(result.LogEvidence - exact) < 3 * result.LogEvidenceError,
+            $"lnZ {result.LogEvidence} ± {result.LogEvidenceError}, exact {exact}");
+        Assert.All(result.WeightedSamples.Where(w => w.Theta[0] <= 0), w => Assert.Equal(double.NegativeInfinity, w.LogWeight));
+    }
+
+    [Fact]
     public void IterationLimitGivesNotConverged()
     {
         var like = new GaussianDataLikelihood([0.0], [0.1], n: 10, seed: 12);
