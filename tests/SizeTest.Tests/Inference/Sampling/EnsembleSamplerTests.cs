@@ -250,6 +250,23 @@ public sealed class EnsembleSamplerTests
     }
 
     [Fact]
+    public void WritesChainThroughATextWriterWithAnOddWalkerCount()
+    {
+        // 7 walkers: halves of 3 and 4 (the split need not be even).
+        var target = new GaussianDensity([0, 0, 0], Diagonal(3, 1.0));
+        using var writer = new StringWriter();
+        var store = new CsvChainStore(writer, thin: 5);
+        var run = new EnsembleSampler(target, new EnsembleSamplerOptions { Walkers = 7, Steps = 50, BurnIn = 0 }).Run(Ball([0, 0, 0], 0.1, 7, 2), store: store);
+        var lines = writer.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal("step,walker,log_prob,theta_0,theta_1,theta_2", lines[0]);
+        Assert.Equal(1 + 10 * 7, lines.Length);                     // steps 0, 5, …, 45
+        var row = lines[1 + 7 * 3 + 6].Split(',');                    // step 15, walker 6
+        Assert.Equal("15", row[0]);
+        Assert.Equal(run.Chain.LogProbability(15, 6), double.Parse(row[2], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(7, run.WalkerAcceptanceFractions.Count);
+    }
+
+    [Fact]
     public void MemoryStoreDiscardsAndThins()
     {
         var target = new GaussianDensity([0], Diagonal(1, 1.0));
