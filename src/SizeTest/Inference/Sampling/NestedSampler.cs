@@ -63,7 +63,7 @@ public sealed class NestedSampler
     /// <summary>Runs nested sampling to the tolerance.</summary>
     /// <param name="progress">Receives progress every 100 iterations and at the end; may be null.</param>
     /// <param name="cancellationToken">Checked every iteration.</param>
-    /// <exception cref="AnalysisException">The likelihood returned NaN, or the live points sit on a plateau the sampler cannot leave.</exception>
+    /// <exception cref="AnalysisException">The likelihood returned NaN, or no live point has a non-zero likelihood.</exception>
     /// <exception cref="OperationCanceledException">When cancelled.</exception>
     public EvidenceResult Run(IProgress<NestedProgress>? progress = null, CancellationToken cancellationToken = default)
     {
@@ -113,8 +113,17 @@ public sealed class NestedSampler
             tied.Clear();
             for (int k = 0; k < n; k++) if (liveLogL[k] == threshold) tied.Add(k);
             if (tied.Count == n)
-                throw new AnalysisException(string.Create(CultureInfo.InvariantCulture,
-                    $"Nested sampling stalled at iteration {iteration + 1}: every live point has ln L = {threshold:G6}, a plateau the constrained sampler cannot leave; check the likelihood for flat regions."));
+            {
+                if (double.IsNegativeInfinity(threshold))
+                    throw new AnalysisException(string.Create(CultureInfo.InvariantCulture,
+                        $"Nested sampling found no point with a non-zero likelihood (every live point has ln L = −∞ at iteration {iteration + 1}); check the priors and the likelihood's support."));
+                // The whole remaining prior mass X lies on one plateau of height L: its evidence X·L is exact
+                // and is added below as the live-point contribution.
+                converged = true;
+                exitReason = string.Create(CultureInfo.InvariantCulture,
+                    $"all live points lie on one likelihood plateau (ln L = {threshold:G6}); its prior mass was added exactly");
+                break;
+            }
             for (int t = 0; t < tied.Count; t++)
             {
                 int liveCount = n - t;

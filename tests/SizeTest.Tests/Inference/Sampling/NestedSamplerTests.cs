@@ -203,8 +203,20 @@ public sealed class NestedSamplerTests
         var ex = Assert.Throws<AnalysisException>(() =>
             new NestedSampler(nan, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 50, ParameterNames = ["omega_m"] }).Run());
         Assert.Contains("omega_m = ", ex.Message);
-        var flat = new ConstantDensity(1, -1.0);
-        Assert.Contains("plateau", Assert.Throws<AnalysisException>(() =>
-            new NestedSampler(flat, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 20 }).Run()).Message);
+        var nowhere = new ConstantDensity(1, double.NegativeInfinity);
+        Assert.Contains("no point with a non-zero likelihood", Assert.Throws<AnalysisException>(() =>
+            new NestedSampler(nowhere, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 20 }).Run()).Message);
+    }
+
+    [Fact]
+    public void ConstantLikelihoodGivesItsValueExactly()
+    {
+        // Z = ∫ L π dθ = L for constant L and a normalised prior (definition), with H = 0 and so σ = 0.
+        var flat = new ConstantDensity(2, -1.5);
+        var r = new NestedSampler(flat, [new UniformPrior(0, 1), new UniformPrior(-3, 3)], new NestedSamplerOptions { LivePoints = 20 }).Run();
+        Assert.Equal(-1.5, r.LogEvidence, 12);
+        Assert.Equal(0.0, r.LogEvidenceError, 6);
+        Assert.True(r.Converged);
+        Assert.Contains("plateau", r.ExitReason);
     }
 }
