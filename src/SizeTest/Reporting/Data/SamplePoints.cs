@@ -1,0 +1,19 @@
+namespace SizeTest.Reporting.Data;
+
+/// <summary>The accepted objects as drawn: redshift, angular size in arcsec and surface brightness in mag/arcsec², with 1σ errors.</summary>
+/// <param name="Z">Redshift per object.</param>
+public sealed record SamplePoints(IReadOnlyList<double> Z)
+{
+    /// <summary>Redshift errors, or null.</summary>
+    public IReadOnlyList<double>? ZErr { get; init; }
+    /// <summary>Angular size (arcsec), or null when the sample has none.</summary>
+    public IReadOnlyList<double>? ThetaArcsec { get; init; }
+    /// <summary>Angular-size error (arcsec), or null.</summary>
+    public IReadOnlyList<double>? ThetaErrArcsec { get; init; }
+    /// <summary>Surface brightness (mag/arcsec²), or null.</summary>
+    public IReadOnlyList<double>? Mu { get; init; }
+    /// <summary>Surface-brightness error (mag/arcsec²), or null.</summary>
+    public IReadOnlyList<double>? MuErr { get; init; }
+    /// <summary>Number of objects.</summary>
+    public int Count => Z.Count;
+}
