@@ -68,7 +68,7 @@ public static class FigureRenderer
             Draw(canvas, spec);
         }
         var svg = System.Text.Encoding.UTF8.GetString(ms.ToArray());
-        return AddViewBox(svg, w, h);
+        return RenumberIds(AddViewBox(svg, w, h), spec.Id);
     }
 
     /// <summary>Renders a one-page vector PDF of the figure's physical size.</summary>
@@ -548,6 +548,21 @@ public static class FigureRenderer
             xs.Add(a); ys.Add(b);
         }
         return (xs.ToArray(), ys.ToArray(), lost);
+    }
+
+    /// <summary>
+    /// Skia numbers clip paths from a process-wide counter; renumber them per figure
+    /// ("ID-c1", "ID-c2", …) so the SVG is the same on every run and several figures can be
+    /// inlined in one HTML page without clashing ids.
+    /// </summary>
+    private static string RenumberIds(string svg, string prefix)
+    {
+        var map = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (System.Text.RegularExpressions.Match m in System.Text.RegularExpressions.Regex.Matches(svg, "id=\"([^\"]+)\""))
+            if (!map.ContainsKey(m.Groups[1].Value)) map[m.Groups[1].Value] = $"{prefix}-c{map.Count + 1}";
+        if (map.Count == 0) return svg;
+        return System.Text.RegularExpressions.Regex.Replace(svg, "(id=\"|url\\(#|href=\"#)([^\"\\)]+)", m =>
+            map.TryGetValue(m.Groups[2].Value, out var n) ? m.Groups[1].Value + n : m.Value);
     }
 
     private static string AddViewBox(string svg, float w, float h)
