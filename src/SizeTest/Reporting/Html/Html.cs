@@ -14,7 +14,11 @@ public static class Html
     public static void Table(StringBuilder sb, ReportTable t)
     {
         sb.Append("<table id=\"table-").Append(Text(t.Id)).Append("\"><caption><strong>").Append(Text(t.Title)).Append(".</strong> ").Append(Text(t.Caption)).Append("</caption>\n<thead><tr>");
-        foreach (var c in t.Columns) sb.Append("<th>").Append(Text(c)).Append("</th>");
+        for (int j = 0; j < t.Columns.Count; j++)
+        {
+            bool numeric = t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]));
+            sb.Append(numeric ? "<th class=\"num\">" : "<th>").Append(Text(t.Columns[j])).Append("</th>");
+        }
         sb.Append("</tr></thead>\n<tbody>\n");
         foreach (var r in t.Rows)
         {

@@ -81,7 +81,7 @@ public sealed class HtmlReportWriter
         caption strong { color: var(--ink); }
         th, td { border-bottom: 1px solid var(--rule); padding: .25rem .5rem; text-align: left; vertical-align: top; }
         thead th { border-bottom: 2px solid var(--ink); }
-        td.num { text-align: right; font-variant-numeric: tabular-nums; }
+        td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
         table.kv { width: auto; }
         table.kv th { font-weight: normal; color: var(--muted); padding-right: 1.5rem; }
         td.hash { font-family: 'DejaVu Sans Mono', monospace; font-size: 12px; word-break: break-all; }

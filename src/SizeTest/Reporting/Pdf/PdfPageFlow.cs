@@ -108,45 +108,57 @@ internal sealed class PdfPageFlow : IDisposable
         Y += size * 0.6f;
     }
 
-    /// <summary>A table with a caption; the font shrinks (down to 6 pt) until the columns fit the width.</summary>
+    /// <summary>
+    /// A table with a caption. Column headings break at '_' and spaces onto several lines; the
+    /// font shrinks (down to 6 pt) until the columns fit the width; numeric columns are right-aligned.
+    /// </summary>
     public void Table(Tables.ReportTable t)
     {
         Paragraph(t.Title + ". " + t.Caption, 9f, isMuted: true);
+        var heads = t.Columns.Select(c => c.Split(['_', ' '], StringSplitOptions.RemoveEmptyEntries)).ToArray();
+        var numeric = t.Columns.Select((_, j) => t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]))).ToArray();
         float size = 9f;
         float[] widths;
         while (true)
         {
             using var f = Font(false, size);
             using var fb = Font(true, size);
-            widths = t.Columns.Select((c, j) => Math.Max(fb.MeasureText(c), t.Rows.Select(r => f.MeasureText(r[j])).DefaultIfEmpty(0).Max()) + size).ToArray();
+            widths = t.Columns.Select((c, j) => Math.Max(heads[j].Select(w => fb.MeasureText(w)).DefaultIfEmpty(0).Max(),
+                t.Rows.Select(r => f.MeasureText(r[j])).DefaultIfEmpty(0).Max()) + 1.2f * size).ToArray();
             if (widths.Sum() <= Width || size <= 6f) break;
             size -= 0.5f;
         }
         float scale = widths.Sum() > Width ? Width / widths.Sum() : 1f;
         for (int j = 0; j < widths.Length; j++) widths[j] *= scale;
         float lh = size * 1.5f;
+        int headLines = heads.Max(h => Math.Max(1, h.Length));
         using (var fb = Font(true, size))
         {
-            Ensure(lh * 2, "continued");
-            DrawRow(t.Columns, widths, fb, size);
-            Canvas.DrawLine(Left, Y, Left + Width, Y, ink);
+            Ensure(lh * (headLines + 1), "continued");
+            for (int line = 0; line < headLines; line++)
+                DrawRow(heads.Select(h => line < h.Length ? h[line] : "").ToArray(), widths, numeric, fb, size);
+            Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, ink);
         }
         using var fr = Font(false, size);
         foreach (var r in t.Rows)
         {
             Ensure(lh, "continued");
-            DrawRow(r, widths, fr, size);
-            Canvas.DrawLine(Left, Y, Left + Width, Y, rule);
+            DrawRow(r, widths, numeric, fr, size);
+            Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, rule);
         }
         Y += 10f;
     }
 
-    private void DrawRow(IReadOnlyList<string> cells, float[] widths, SKFont f, float size)
+    private static bool IsNumber(string s) =>
+        double.TryParse(s, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
+
+    private void DrawRow(IReadOnlyList<string> cells, float[] widths, bool[] numeric, SKFont f, float size)
     {
         float x = Left;
         for (int j = 0; j < cells.Count; j++)
         {
-            Canvas.DrawText(cells[j], x + size * 0.3f, Y + size * 1.1f, SKTextAlign.Left, f, ink);
+            if (numeric[j]) Canvas.DrawText(cells[j], x + widths[j] - size * 0.6f, Y + size * 1.1f, SKTextAlign.Right, f, ink);
+            else Canvas.DrawText(cells[j], x + size * 0.3f, Y + size * 1.1f, SKTextAlign.Left, f, ink);
             x += widths[j];
         }
         Y += size * 1.5f;

@@ -237,6 +237,7 @@ public static class FigureRenderer
             plot.Legend.BackgroundColor = Colors.White.WithAlpha(0.85);
             plot.Legend.OutlineColor = Color.FromHex("#BBBBBB");
             plot.Legend.ShadowColor = Colors.Transparent;
+            plot.Legend.SymbolWidth = 30;
         }
         else plot.HideLegend();
 

@@ -1,0 +1,64 @@
+using SizeTest.Reporting.Data;
+using SizeTest.Reporting.Figures;
+using SizeTest.Reporting.Rendering;
+using SizeTest.Reporting.Tables;
+using Xunit;
+
+namespace SizeTest.Tests.Reporting;
+
+public sealed class TablesAndStatisticsTests
+{
+    [Fact]
+    public void CsvQuotesOnlyWhatNeedsQuoting()
+    {
+        var t = new ReportTable("t", "T", ["a", "b"], [["x,y", "say \"hi\""], ["1.5", "plain"]]);
+        Assert.Equal("a,b\n\"x,y\",\"say \"\"hi\"\"\"\n1.5,plain\n", TableFormats.ToCsv(t)); // RFC 4180 §2
+    }
+
+    [Fact]
+    public void LatexEscapesSpecialCharacters()
+    {
+        Assert.Equal("delta\\_BIC 50\\% $\\Omega$m", TableFormats.Tex("delta_BIC 50% Ωm"));
+        var t = new ReportTable("t", "T", ["name", "v"], [["a", "1"], ["b", "2.5"]]);
+        Assert.Contains("\\begin{tabular}{lr}", TableFormats.ToLatex(t));
+    }
+
+    [Fact]
+    public void BinnedMedianAndBootstrapAreRightAndRepeatable()
+    {
+        double[] z = [0.1, 0.2, 0.3, 0.6, 0.7, 0.8, 0.9];
+        double[] v = [1, 2, 3, 10, 20, 30, 40];
+        var bins = BinnedStatistics.Compute(z, v, [0.0, 0.5, 1.0], BinnedStatistics.Statistic.Median, 500, 3);
+        Assert.Equal(2.0, bins[0].Value);   // median of 1, 2, 3
+        Assert.Equal(25.0, bins[1].Value);  // median of 10, 20, 30, 40 = (20+30)/2
+        Assert.Equal(3, bins[0].Count);
+        Assert.True(bins[1].Lo <= 25 && bins[1].Hi >= 25);
+        Assert.Equal(bins, BinnedStatistics.Compute(z, v, [0.0, 0.5, 1.0], BinnedStatistics.Statistic.Median, 500, 3)); // same seed, same result
+    }
+
+    [Fact]
+    public void EqualCountEdgesSplitTheSampleEvenly()
+    {
+        var z = Enumerable.Range(1, 100).Select(i => i / 100.0).ToArray();
+        var e = BinnedStatistics.EqualCountEdges(z, 4);
+        Assert.Equal([0.01, 0.255, 0.505, 0.755, 1.0], e.Select(x => Math.Round(x, 6)));
+    }
+
+    [Fact]
+    public void BicWeightsSumToOneAndFollowDeltaBic()
+    {
+        var data = SyntheticReport.Create(posterior: false, power: false);
+        var w = ReportNumbers.BicWeights(data.Models);
+        Assert.Equal(1.0, w.Sum(), 12);
+        // w_i / w_j = exp(−(ΔBIC_i − ΔBIC_j)/2) by definition.
+        Assert.Equal(Math.Exp(-(data.Models[1].Fit.DeltaBic - data.Models[0].Fit.DeltaBic) / 2), w[1] / w[0], 10);
+    }
+
+    [Fact]
+    public void EmbeddedFontsLoadAsDejaVuSans()
+    {
+        Assert.Equal("DejaVu Sans", FontRegistry.Regular.FamilyName);
+        Assert.True(FontRegistry.Bold.IsBold);
+        Assert.Contains("Bitstream", FontRegistry.LicenceText);
+    }
+}
