@@ -41,7 +41,7 @@ public sealed class PdfReportTests
             Assert.Contains("do not say which model is true", text);
             Assert.Contains("rows read", text);
             for (int i = 1; i <= Content.Value.Figures.Count; i++) Assert.Contains($"Figure {i}.", text);
-            Assert.Contains("delta_BIC", text);
+            Assert.Contains("converged", text); // comparison-table heading
             Assert.Contains("sha256", text);
             // Figure text is vector text too (axis title from inside a figure).
             Assert.Contains("angular size θ (arcsec)", text);

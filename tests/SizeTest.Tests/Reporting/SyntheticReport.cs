@@ -82,7 +82,7 @@ internal static class SyntheticReport
                 new("K-corrections", "None applied (synthetic bolometric surface brightness)."),
             ],
             Posterior = posterior ? Posterior(rng) : null,
-            Power = power ? new PowerCurve("objects per catalogue", "objects",
+            Power = power ? new PowerCurve("catalogue size", "objects",
             [
                 new PowerLine("truth lcdm: ΔBIC > 6 against static-linear", [50, 100, 200, 400, 800], [0.22, 0.41, 0.68, 0.89, 0.98], [0.16, 0.34, 0.61, 0.85, 0.96], [0.28, 0.48, 0.74, 0.92, 0.99]),
                 new PowerLine("truth static-linear: ΔBIC > 6 against lcdm", [50, 100, 200, 400, 800], [0.15, 0.30, 0.55, 0.80, 0.95], [0.10, 0.24, 0.48, 0.75, 0.92], [0.21, 0.37, 0.62, 0.85, 0.97]),

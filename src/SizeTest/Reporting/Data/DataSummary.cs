@@ -14,6 +14,7 @@ public sealed record DataSummary(long RowsRead, long Accepted, long Rejected, IR
     public string Band { get; init; } = "";
 
     /// <summary>True when rows_read = accepted + rejected, the bookkeeping rule of every load.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
     public bool Balanced => RowsRead == Accepted + Rejected;
 }
 

@@ -28,6 +28,7 @@ public sealed record ModelReport(ModelFitSummary Fit)
     public IReadOnlyList<EvolutionRequirement> RequiredEvolution { get; init; } = [];
 
     /// <summary><see cref="DisplayName"/> or the model name.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
     public string Label => DisplayName.Length > 0 ? DisplayName : Fit.Name;
 }
 

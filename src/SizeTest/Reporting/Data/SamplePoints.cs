@@ -15,5 +15,6 @@ public sealed record SamplePoints(IReadOnlyList<double> Z)
     /// <summary>Surface-brightness error (mag/arcsec²), or null.</summary>
     public IReadOnlyList<double>? MuErr { get; init; }
     /// <summary>Number of objects.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
     public int Count => Z.Count;
 }
