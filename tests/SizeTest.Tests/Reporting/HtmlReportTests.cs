@@ -79,8 +79,27 @@ public sealed class HtmlReportTests
         Assert.Contains("\"seed\": 7", doc.QuerySelector("pre.manifest")!.TextContent);
     }
 
+    /// <summary>Screenshots a page in headless Chromium; returns the exit code, stderr and the console lines it logged.</summary>
+    private static (int Exit, string Err, IReadOnlyList<string> Console) Screenshot(string html, string shot)
+    {
+        var profile = Directory.CreateTempSubdirectory("sizetest-chromium-");
+        try
+        {
+            var (exit, _, err) = ExternalTool.Run("chromium",
+            [
+                "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
+                "--disable-sync", "--no-first-run", $"--user-data-dir={profile.FullName}", "--enable-logging=stderr", "--v=0",
+                $"--screenshot={shot}", "--window-size=1200,900", new Uri(html).AbsoluteUri,
+            ], 180_000);
+            // Chromium logs every console message (errors and uncaught exceptions included) as ":CONSOLE" lines.
+            var console = err.Split('\n').Where(l => l.Contains(":CONSOLE", StringComparison.Ordinal) || l.Contains("Uncaught", StringComparison.Ordinal)).ToList();
+            return (exit, err, console);
+        }
+        finally { try { profile.Delete(true); } catch (IOException) { } }
+    }
+
     [ToolFact("chromium")]
-    public void RendersInHeadlessChromiumWithoutConsoleErrors()
+    public void RendersInHeadlessChromiumWithoutConsoleMessages()
     {
         var dir = Directory.CreateTempSubdirectory("sizetest-html-");
         try
@@ -88,24 +107,31 @@ public sealed class HtmlReportTests
             var html = Path.Combine(dir.FullName, "report.html");
             File.WriteAllText(html, Page.Value);
             var shot = Path.Combine(dir.FullName, "shot.png");
-            var profile = Directory.CreateTempSubdirectory("sizetest-chromium-");
-            var (exit, _, err) = ExternalTool.Run("chromium",
-            [
-                "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
-                "--disable-sync", "--no-first-run", $"--user-data-dir={profile.FullName}", "--enable-logging=stderr", "--v=0",
-                $"--screenshot={shot}", "--window-size=1200,900", new Uri(html).AbsoluteUri,
-            ], 180_000);
-            try { profile.Delete(true); } catch (IOException) { }
+            var (exit, err, console) = Screenshot(html, shot);
             Assert.True(exit == 0, $"chromium exited with {exit}: {err}");
             Assert.True(File.Exists(shot), "no screenshot written");
-            Assert.DoesNotContain("Uncaught", err);
-            Assert.DoesNotContain("CONSOLE", err.ToUpperInvariant().Contains("ERROR:CONSOLE") ? "CONSOLE" : "");
+            Assert.Empty(console);
             using var bmp = SKBitmap.Decode(File.ReadAllBytes(shot));
             Assert.Equal(1200, bmp.Width);
-            // The page shows text and figures, not a blank screen: a clear share of non-white pixels.
+            // The page shows text, not a blank screen.
             Assert.True(PixelCheck.NonWhite(bmp) > 2000, "screenshot is nearly blank");
             var keep = Environment.GetEnvironmentVariable("SIZETEST_KEEP_SCREENSHOT");
             if (!string.IsNullOrEmpty(keep)) File.Copy(shot, keep, true);
+        }
+        finally { dir.Delete(true); }
+    }
+
+    [ToolFact("chromium")]
+    public void ConsoleCheckCatchesAPageWithAnError()
+    {
+        // Negative control for the check above: a page whose script throws must be caught.
+        var dir = Directory.CreateTempSubdirectory("sizetest-html-bad-");
+        try
+        {
+            var html = Path.Combine(dir.FullName, "bad.html");
+            File.WriteAllText(html, "<!DOCTYPE html><html><body><p>x</p><script>undefinedFunction();</script></body></html>");
+            var (_, _, console) = Screenshot(html, Path.Combine(dir.FullName, "bad.png"));
+            Assert.Contains(console, l => l.Contains("Uncaught ReferenceError", StringComparison.Ordinal));
         }
         finally { dir.Delete(true); }
     }
