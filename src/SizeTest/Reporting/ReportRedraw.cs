@@ -13,7 +13,7 @@ namespace SizeTest.Reporting;
 public static class ReportRedraw
 {
     /// <summary>Files and folders a redraw writes (everything else in the folder is kept).</summary>
-    public static IReadOnlyList<string> ReportOutputs { get; } = ["figures", "tables", "report.html", "report.pdf", "manifest.json"];
+    public static IReadOnlyList<string> ReportOutputs { get; } = ["figures", "tables", "report.html", "report.pdf", "manifest.json", ReportDataJson.FileName];
 
     /// <summary>
     /// Redraws the report in <paramref name="reportDir"/> in place, or into

@@ -17,7 +17,6 @@ public sealed class ReportCommandTests
         new ReportPackWriter(Light).Write(dir, false, ReportContent.From(data), f =>
         {
             File.WriteAllText(f.PathOf("results.json"), "{\"models\": []}\n");
-            File.WriteAllText(f.PathOf(ReportDataJson.FileName), ReportDataJson.ToJson(data));
         });
         return dir;
     }

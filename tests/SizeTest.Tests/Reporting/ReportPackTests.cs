@@ -30,6 +30,7 @@ public sealed class ReportPackTests
             }
             Assert.Contains("manifest.json", files);
             Assert.Contains("report.html", files);
+            Assert.Contains("report-data.json", files);
             Assert.Empty(Directory.GetDirectories(root.FullName, ".out.tmp-*"));
         }
         finally { root.Delete(true); }

@@ -8,8 +8,9 @@ namespace SizeTest.Reporting.Pack;
 
 /// <summary>
 /// Writes a report folder: <c>report.html</c>, <c>report.pdf</c>, <c>figures/</c> (every figure
-/// as 300-dpi PNG, SVG and PDF), <c>tables/</c> (CSV and LaTeX tabular of each table) and
-/// <c>manifest.json</c>. <see cref="Write"/> builds the folder in a staging copy and swaps it in
+/// as 300-dpi PNG, SVG and PDF), <c>tables/</c> (CSV and LaTeX tabular of each table),
+/// <c>manifest.json</c> and <c>report-data.json</c> (what everything is drawn from, so
+/// <see cref="ReportRedraw"/> can redraw the folder later). <see cref="Write"/> builds the folder in a staging copy and swaps it in
 /// only when complete, so a failure leaves the previous report untouched.
 /// </summary>
 public sealed class ReportPackWriter
@@ -64,6 +65,7 @@ public sealed class ReportPackWriter
             Text($"tables/{t.Id}.tex", TableFormats.ToLatex(t));
         }
         if (content.Data.Manifest is { } m) Text("manifest.json", m.ToJson());
+        Text(Data.ReportDataJson.FileName, Data.ReportDataJson.ToJson(content.Data));
         if (Options.Html) Text("report.html", new HtmlReportWriter().Render(content));
         if (Options.PdfReport) Bytes("report.pdf", new PdfReportWriter(Options.Paper).Render(content).Bytes);
         written.Sort(StringComparer.Ordinal);
