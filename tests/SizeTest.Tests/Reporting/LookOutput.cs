@@ -12,7 +12,22 @@ public sealed class LookOutput
     {
         var dir = Environment.GetEnvironmentVariable("SIZETEST_LOOK_DIR");
         if (string.IsNullOrEmpty(dir)) return;
-        new ReportPackWriter().Write(Path.Combine(dir, "sparse"), true, ReportContent.From(SyntheticReport.Create()));
-        new ReportPackWriter().Write(Path.Combine(dir, "dense"), true, ReportContent.From(SyntheticReport.Create(5000, seed: 3)));
+        var log = new System.Text.StringBuilder();
+        foreach (var (name, n) in new[] { ("sparse", 300), ("dense", 5000) })
+        {
+            var content = ReportContent.From(SyntheticReport.Create(n, seed: 3));
+            var sw = System.Diagnostics.Stopwatch.StartNew();
+            foreach (var f in content.Figures) SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(f);
+            log.AppendLine($"{name}: {content.Figures.Count} figures as 300-dpi PNG in {sw.Elapsed.TotalSeconds:0.00} s");
+            sw.Restart();
+            new ReportPackWriter().Write(Path.Combine(dir, name), true, content);
+            log.AppendLine($"{name}: whole report folder in {sw.Elapsed.TotalSeconds:0.00} s");
+            var png1 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(content.Figures[0]).Bytes;
+            var png2 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(content.Figures[0]).Bytes;
+            var pdf1 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPdf(content.Figures[0]);
+            var pdf2 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPdf(content.Figures[0]);
+            log.AppendLine($"{name}: PNG repeatable {png1.AsSpan().SequenceEqual(png2)}, figure PDF repeatable {pdf1.AsSpan().SequenceEqual(pdf2)}");
+        }
+        File.WriteAllText(Path.Combine(dir, "timings.txt"), log.ToString());
     }
 }
