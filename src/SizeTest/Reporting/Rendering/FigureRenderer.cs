@@ -115,18 +115,26 @@ public static class FigureRenderer
             leftPad[p.Spec.Column] = Math.Max(leftPad[p.Spec.Column], need);
         }
 
+        // The figure title is drawn once, centred over the whole width; row-0 panels leave room for it.
+        bool titled = spec.Title.Length > 0;
+        float titleBand = titled ? TitleFontPx + 20f : 0f;
         var panels = new List<RenderedPanel>();
         foreach (var p in prepared)
         {
             var ps = p.Spec;
             var cell = new PixelRect(ps.Column * colWidth, (ps.Column + 1) * colWidth, rowTop[ps.Row + 1], rowTop[ps.Row]);
-            bool titled = ps.Row == 0 && ps.Column == 0 && spec.Title.Length > 0;
             var pad = new PixelPadding(
                 leftPad[ps.Column],
                 spec.Columns > 1 ? 6f : 14f,
                 ps.XAxisLabelled ? 14f + AxisFontPx + TickFontPx + 8f : 4f,
-                titled ? TitleFontPx + 26f : (ps.Row == 0 ? 10f : 4f));
-            panels.Add(DrawPanel(canvas, p, cell, pad, titled ? spec.Title : ""));
+                ps.Row == 0 ? (titled ? titleBand : 10f) : 4f);
+            panels.Add(DrawPanel(canvas, p, cell, pad, ""));
+        }
+        if (titled)
+        {
+            using var font = new SKFont(FontRegistry.Bold, TitleFontPx) { Subpixel = true };
+            using var paint = new SKPaint { Color = SKColors.Black, IsAntialias = true };
+            canvas.DrawText(spec.Title, w / 2f, TitleFontPx + 6f, SKTextAlign.Center, font, paint);
         }
         return new RenderedFigure(w, h, panels);
     }
