@@ -16,6 +16,25 @@ public sealed class PdfReportTests
         return p;
     }
 
+    [ToolFact("pdffonts")]
+    public void EmbedsOnlyDejaVuSans()
+    {
+        var report = new PdfReportWriter().Render(Content.Value);
+        var dir = Directory.CreateTempSubdirectory("sizetest-pdffonts-");
+        try
+        {
+            var path = Save(report.Bytes, dir);
+            var lines = ExternalTool.Run("pdffonts", [path]).Stdout.Split('\n').Skip(2).Where(l => l.Trim().Length > 0).ToList();
+            Assert.NotEmpty(lines);
+            foreach (var l in lines)
+            {
+                Assert.Contains("DejaVuSans", l);
+                Assert.Matches(@"\byes\b", l); // emb column
+            }
+        }
+        finally { dir.Delete(true); }
+    }
+
     [ToolFact("pdftotext", "pdfinfo")]
     public void HasTitleSummaryFiguresTablesAndManifestAsExtractableText()
     {

@@ -61,6 +61,17 @@ public sealed class TablesAndStatisticsTests
         Assert.True(FontRegistry.Bold.IsBold);
         Assert.Contains("Bitstream", FontRegistry.LicenceText);
     }
+
+    [Theory]
+    [InlineData("DejaVu Sans")]
+    [InlineData("Helvetica")]
+    [InlineData("no such font family")]
+    public void PlotsNeverFallBackToSystemFonts(string family)
+    {
+        // Every request resolves to the embedded faces, so text renders the same on a machine without fonts.
+        Assert.Same(FontRegistry.Regular, FigureRenderer.ResolveTypeface(family, false));
+        Assert.Same(FontRegistry.Bold, FigureRenderer.ResolveTypeface(family, true));
+    }
 }
 
 public sealed class ReportDataJsonTests

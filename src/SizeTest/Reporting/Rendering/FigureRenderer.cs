@@ -582,6 +582,13 @@ public static class FigureRenderer
         return svg.Insert(i + 4, vb);
     }
 
+    /// <summary>The typeface the plotting library hands out for a family name (tests check it is always the embedded one).</summary>
+    internal static SKTypeface ResolveTypeface(string family, bool bold)
+    {
+        EnsureFonts();
+        return Fonts.GetTypeface(family, bold, false);
+    }
+
     /// <summary>Registers the embedded fonts with the plotting library once per process.</summary>
     private static void EnsureFonts()
     {
