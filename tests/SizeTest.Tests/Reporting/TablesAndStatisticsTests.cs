@@ -100,3 +100,35 @@ public sealed class ReportDataJsonTests
         Assert.Contains("report data", v.Message);
     }
 }
+
+public sealed class AdapterHelperTests
+{
+    [Fact]
+    public void CurveSampleIsLogSpacedAndInterpolates()
+    {
+        var c = SizeTest.Reporting.Data.Curve.Sample(z => 1 / z, 0.1, 10, 3);
+        Assert.Equal([0.1, 1.0, 10.0], c.X.Select(x => Math.Round(x, 12)));
+        // 1/z is a straight line in log–log, so log-log interpolation is exact: 1/2 = 0.5.
+        Assert.Equal(0.5, c.At(2, logLog: true), 12);
+        Assert.True(double.IsNaN(c.At(20)));
+    }
+
+    [Fact]
+    public void SamplePointsConvertRadiansToArcsec()
+    {
+        var s = new SizeTest.Catalogs.Sample("t", [2, 3], [0.5, 1.0], thetaRad: [SizeTest.Common.Units.RadiansPerArcsec * 2, SizeTest.Common.Units.RadiansPerArcsec]);
+        var p = SizeTest.Reporting.Data.SamplePoints.FromSample(s);
+        Assert.Equal(2.0, p.ThetaArcsec![0], 12); // 2″ in radians back to arcsec
+        Assert.Equal(1.0, p.ThetaArcsec[1], 12);
+        Assert.Null(p.Mu);
+    }
+
+    [Fact]
+    public void WithBinsFillsBothBinSets()
+    {
+        var d = SyntheticReport.Create(200, posterior: false, power: false) with { ThetaBins = null, MuBins = null };
+        var b = d.WithBins(5, 50, 1);
+        Assert.Equal(5, b.ThetaBins!.Count);
+        Assert.Equal(200, b.MuBins!.Sum(x => x.Count)); // every object in exactly one bin
+    }
+}

@@ -37,6 +37,27 @@ public sealed record ModelReport(ModelFitSummary Fit)
 /// <param name="Y">y values.</param>
 public sealed record Curve(IReadOnlyList<double> X, IReadOnlyList<double> Y)
 {
+    /// <summary>
+    /// Samples <paramref name="f"/> at <paramref name="points"/> values from <paramref name="xMin"/>
+    /// to <paramref name="xMax"/> (log-spaced when <paramref name="logSpaced"/>, the default for
+    /// redshift curves drawn on log axes). Non-finite values are kept out.
+    /// </summary>
+    public static Curve Sample(Func<double, double> f, double xMin, double xMax, int points = 100, bool logSpaced = true)
+    {
+        ArgumentNullException.ThrowIfNull(f);
+        if (points < 2 || !(xMax > xMin) || (logSpaced && !(xMin > 0)))
+            throw new ArgumentException("need at least 2 points on a range with max > min (> 0 when log-spaced)");
+        var xs = new List<double>(points); var ys = new List<double>(points);
+        for (int i = 0; i < points; i++)
+        {
+            double t = (double)i / (points - 1);
+            double x = logSpaced ? Math.Exp(Math.Log(xMin) + t * (Math.Log(xMax) - Math.Log(xMin))) : xMin + t * (xMax - xMin);
+            double y = f(x);
+            if (double.IsFinite(y)) { xs.Add(x); ys.Add(y); }
+        }
+        return new Curve(xs, ys);
+    }
+
     /// <summary>Linear interpolation at <paramref name="x"/> (in log-log when <paramref name="logLog"/>); NaN outside the curve.</summary>
     public double At(double x, bool logLog = false)
     {

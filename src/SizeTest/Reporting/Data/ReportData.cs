@@ -43,6 +43,23 @@ public sealed record ReportData
     /// <summary>Extra conclusions in words, added after the ones the report derives from the criteria.</summary>
     public IReadOnlyList<string> ExtraConclusions { get; init; } = [];
 
+    /// <summary>
+    /// A copy with <see cref="ThetaBins"/> (medians) and <see cref="MuBins"/> (means) computed
+    /// from <see cref="Sample"/> in <paramref name="bins"/> equal-count redshift bins with
+    /// <paramref name="resamples"/> bootstrap resamples seeded by <paramref name="seed"/>
+    /// (see <see cref="BinnedStatistics"/>).
+    /// </summary>
+    public ReportData WithBins(int bins = 8, int resamples = 200, int seed = 0)
+    {
+        var edges = BinnedStatistics.EqualCountEdges(Sample.Z, bins);
+        if (edges.Length < 2) return this;
+        return this with
+        {
+            ThetaBins = Sample.ThetaArcsec is { } th ? BinnedStatistics.Compute(Sample.Z, th, edges, BinnedStatistics.Statistic.Median, resamples, seed) : null,
+            MuBins = Sample.Mu is { } mu ? BinnedStatistics.Compute(Sample.Z, mu, edges, BinnedStatistics.Statistic.Mean, resamples, seed + 1) : null,
+        };
+    }
+
     /// <summary>The run manifest shown at the end of the report (may be null before it is known).</summary>
     public Pack.RunManifest? Manifest { get; init; }
 }

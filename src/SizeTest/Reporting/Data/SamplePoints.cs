@@ -14,6 +14,21 @@ public sealed record SamplePoints(IReadOnlyList<double> Z)
     public IReadOnlyList<double>? Mu { get; init; }
     /// <summary>Surface-brightness error (mag/arcsec²), or null.</summary>
     public IReadOnlyList<double>? MuErr { get; init; }
+    /// <summary>
+    /// The points of a validated sample: angles converted from radians to arcsec
+    /// (× 648000/π, <see cref="Common.Units.ArcsecPerRadian"/>), surface brightness as is.
+    /// </summary>
+    public static SamplePoints FromSample(Catalogs.Sample sample)
+    {
+        ArgumentNullException.ThrowIfNull(sample);
+        static double[]? Arcsec(double[]? rad) => rad?.Select(r => r * Common.Units.ArcsecPerRadian).ToArray();
+        return new SamplePoints(sample.Z)
+        {
+            ZErr = sample.ZErr, ThetaArcsec = Arcsec(sample.ThetaRad), ThetaErrArcsec = Arcsec(sample.ThetaErrRad),
+            Mu = sample.Mu, MuErr = sample.MuErr,
+        };
+    }
+
     /// <summary>Number of objects.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public int Count => Z.Count;
