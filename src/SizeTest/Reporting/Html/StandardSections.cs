@@ -100,7 +100,10 @@ public sealed class FiguresSection : IHtmlSection
             n++;
             var svg = FigureRenderer.RenderSvg(f);
             int start = svg.IndexOf("<svg", StringComparison.Ordinal);
-            html.Append("<figure id=\"fig-").Append(Html.Text(f.Id)).Append("\">\n")
+            // Figures are drawn for 96 dpi; let them grow to 1.4× that at most so text stays near body size.
+            var (w, _) = FigureRenderer.LogicalSize(f);
+            html.Append("<figure id=\"fig-").Append(Html.Text(f.Id)).Append("\" style=\"max-width: ")
+                .Append(Math.Round(w * 1.4).ToString(CultureInfo.InvariantCulture)).Append("px\">\n")
                 .Append(svg, start, svg.Length - start).Append('\n')
                 .Append("<figcaption><strong>Figure ").Append(n).Append(". ").Append(Html.Text(f.Title)).Append(".</strong> ")
                 .Append(Html.Text(f.Caption)).Append("</figcaption>\n</figure>\n");

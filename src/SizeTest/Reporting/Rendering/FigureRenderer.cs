@@ -146,6 +146,12 @@ public static class FigureRenderer
     {
         var (x0, x1) = Limits(p.X, p.Series.SelectMany(s => s.XExtent()));
         var (y0, y1) = Limits(p.Y, p.Series.SelectMany(s => s.YExtent()));
+        // A panel note sits in the upper-left corner: give it headroom so it does not cover data.
+        if (p.Note.Length > 0 && p.Y.Categories is null)
+        {
+            if (!p.Y.Inverted && p.Y.Max is null) y1 += 0.25 * (y1 - y0);
+            else if (p.Y.Inverted && p.Y.Min is null) y0 -= 0.25 * (y1 - y0);
+        }
         return new PreparedPanel(p, x0, x1, y0, y1, Ticks(p.X, x0, x1), Ticks(p.Y, y0, y1));
     }
 
