@@ -63,6 +63,14 @@ public sealed class ReportCommandTests
     }
 
     [Fact]
+    public void HelpNamesTheOptions()
+    {
+        var (exit, output, _) = CliRunner.Run("report", "--help");
+        Assert.Equal(0, exit);
+        foreach (var o in new[] { "--out", "--paper", "--force", "DIR" }) Assert.Contains(o, output);
+    }
+
+    [Fact]
     public void MissingOrBrokenDataIsBadInput()
     {
         var root = Directory.CreateTempSubdirectory("sizetest-report-bad-");
