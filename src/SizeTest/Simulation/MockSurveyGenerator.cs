@@ -116,6 +116,9 @@ public static class MockSurveyGenerator
         var da = new double[m];
         for (int i = 0; i < m; i++) zTrue[i] = zDist.Sample(ref rng);
         spec.Model.AngularDiameterDistances(zTrue, da);
+        var log10Da = new double[m];
+        if (galaxy)
+            for (int i = 0; i < m; i++) log10Da[i] = Math.Log10(da[i]);
 
         var g = spec.GalaxyTruth;
         var r = spec.RadioTruth;
@@ -125,7 +128,8 @@ public static class MockSurveyGenerator
         double sbSlope = 2.5 * (spec.Model.BolometricDimmingExponent - g.SbEvolution);
         double log10Pivot = Math.Log10(g.PivotSizeKpc);
         double radPerKpcMpc = 1e-3 * Units.ArcsecPerRadian; // θ[arcsec] = 1e-3 R[kpc] / D_A[Mpc] rad
-        double f2 = errors.SizeErrorFraction * errors.SizeErrorFraction, floor = errors.SizeErrorFloorArcsec;
+        double log10RadPerKpcMpc = Math.Log10(radPerKpcMpc);
+        double f2 = errors.SizeErrorFraction * errors.SizeErrorFraction, floor = errors.SizeErrorFloorArcsec, sigmaFrac = errors.SizeErrorFraction;
         double muErr = errors.MuErrorMag, sz = errors.PhotoZError;
         bool hasSb = cuts.SbLimit is not null, hasMag = cuts.MagLimit is not null, hasSize = cuts.MinThetaArcsec is not null;
         double sbLimit = cuts.SbLimit ?? 0, magLimit = cuts.MagLimit ?? 0, minTheta = cuts.MinThetaArcsec ?? 0;
@@ -143,16 +147,18 @@ public static class MockSurveyGenerator
             double e1 = rng.NextGaussian(), e2 = rng.NextGaussian(), e3 = rng.NextGaussian(), e4 = rng.NextGaussian();
             double log10Size = log10Size0 + sizeEvolution * l10 + sizeScatter * e1;
             if (!galaxy) log10Size += r.LuminosityExponent * (logL - r.LogLuminosityPivot);
-            double sizeKpc = Math.Pow(10.0, log10Size);
+            double sizeKpc = Math.Exp(Ln10 * log10Size);
             double thetaTrue = sizeKpc / da[i] * radPerKpcMpc;
-            double sigmaLn = Math.Sqrt(f2 + (floor > 0 ? floor * floor / (thetaTrue * thetaTrue) : 0.0));
-            double thetaObs = thetaTrue * Math.Exp(sigmaLn * e3);
+            double sigmaLn = floor > 0 ? Math.Sqrt(f2 + floor * floor / (thetaTrue * thetaTrue)) : sigmaFrac;
+            double growth = sigmaLn * e3;            // ln θ_obs − ln θ_true
+            double thetaObs = thetaTrue * Math.Exp(growth);
             double muTrue = 0, muObs = 0, mag = 0;
             if (galaxy)
             {
                 muTrue = g.Mu0 + sbSlope * l10 + g.KormendySlope * (log10Size - log10Pivot) + g.ScatterMag * e2;
                 muObs = muTrue + muErr * e4;
-                mag = muObs - 5.0 * Math.Log10(thetaObs) - magOffset;
+                // m = μ − 5 log10 θ_obs − 2.5 log10(2π), with log10 θ_obs = log10 θ_true + growth/ln10
+                mag = muObs - 5.0 * (log10Size - log10Da[i] + log10RadPerKpcMpc + growth / Ln10) - magOffset;
             }
             double zObs = z;
             if (sz > 0)
