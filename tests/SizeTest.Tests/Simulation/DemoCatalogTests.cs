@@ -6,7 +6,7 @@ using Xunit;
 
 namespace SizeTest.Tests.Simulation;
 
-/// <summary>The committed demo catalogues are reproduced byte for byte by the commands in their truth files and READMEs.</summary>
+/// <summary>The committed demo catalogues are reproduced by the commands in their truth files and READMEs.</summary>
 public sealed class DemoCatalogTests
 {
     private static string DemoFolder()
@@ -37,7 +37,21 @@ public sealed class DemoCatalogTests
         args[o + 1] = redrawn;
         var (code, _, err) = CliRunner.Run([.. args]);
         Assert.True(code == 0, err);
-        Assert.Equal(File.ReadAllBytes(committed), File.ReadAllBytes(redrawn));
-        Assert.Equal(rows, CatalogLoader.Load(committed).Accepted);
+        // Same code gives the same bytes (SimulateCommandTests); across revisions of the distance code the last bits of
+        // D_A may move, so the committed file is compared value by value to 1e-9 relative (regenerate.sh refreshes it).
+        var a = CatalogLoader.Load(committed).Sample;
+        var b = CatalogLoader.Load(redrawn).Sample;
+        Assert.Equal(rows, a.Count);
+        Assert.Equal(a.Id, b.Id);
+        Close(a.Z, b.Z);
+        Close(a.ThetaRad!, b.ThetaRad!);
+        Close(a.ThetaErrRad!, b.ThetaErrRad!);
+        if (a.Mu is not null) Close(a.Mu, b.Mu!);
+    }
+
+    private static void Close(double[] x, double[] y)
+    {
+        Assert.Equal(x.Length, y.Length);
+        for (int i = 0; i < x.Length; i++) Assert.True(Math.Abs(x[i] - y[i]) <= 1e-9 * Math.Abs(x[i]), $"row {i + 1}: {x[i]} vs {y[i]}");
     }
 }
