@@ -147,7 +147,7 @@ public static class PowerAnalysis
                 continue;
             }
             bic[c] = double.IsFinite(fit.LogLikelihood) ? InformationCriteria.Bic(fit.LogLikelihood, h.K, lik.Count) : double.PositiveInfinity;
-            converged &= fit.Converged || (!isTrue && double.IsFinite(fit.LogLikelihood));
+            converged &= fit.Converged;
             if (isTrue) estimates = FitSummaries.From(lik, fit).Parameters.Where(p => !p.Fixed).ToArray();
         }
         double bestOther = double.PositiveInfinity;
