@@ -59,7 +59,7 @@ public static class PowerAnalysis
         string conclusion = required is { } r
             ? FormattableString.Invariant($"a sample of N = {r} decides: the true model {trueName} wins by ΔBIC > 10 in {points.First(p => p.SampleSize == r).ProbabilityDecisive:P0} of mocks (target {request.TargetPower:P0})")
             : last.Verdict == "unable to decide"
-                ? FormattableString.Invariant($"unable to decide: even at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3} and the true model {trueName} wins by ΔBIC > 10 in only {last.ProbabilityDecisive:P0} of mocks; the design lacks the leverage (widen the redshift range or add objects)")
+                ? FormattableString.Invariant($"unable to decide: even at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3} and the true model {trueName} wins by ΔBIC > 10 in only {last.ProbabilityDecisive:P0} of mocks; this design cannot tell the models apart (widen the redshift range, add objects, or constrain the evolution the models may use)")
                 : FormattableString.Invariant($"no N in the grid is decisive: at N = {last.SampleSize} the true model {trueName} wins by ΔBIC > 10 in {last.ProbabilityDecisive:P0} of mocks (target {request.TargetPower:P0}); try larger N");
         var notes = new List<string>
         {
