@@ -51,6 +51,8 @@ internal static class PowerCommand
                 var design = survey.Design(parse, grid.Max());
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse));
                 string obsText = parse.GetValue(observable) ?? (design.Kind == MockObjectKind.Galaxy ? "joint" : "size");
+                if (design.Kind == MockObjectKind.CompactRadio && obsText != "size")
+                    throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
                 var kind = obsText switch { "size" => ObservableKind.Size, "sb" => ObservableKind.SurfaceBrightness, _ => ObservableKind.Joint };
                 var cuts = design.Cuts;
                 var selection = new SelectionLimits(

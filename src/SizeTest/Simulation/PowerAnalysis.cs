@@ -39,13 +39,21 @@ public static class PowerAnalysis
         int done = 0;
         var options = new ParallelOptions { CancellationToken = cancel, MaxDegreeOfParallelism = request.MaxThreads ?? Environment.ProcessorCount };
         progress?.Report(new PowerProgress(0, total));
-        Parallel.For(0, total, options, job =>
+        try
         {
-            int n = sizes[job / k], mock = job % k;
-            outcomes[job] = FitMock(request, n, mock, seeds[mock], trueIndex);
-            int d = Interlocked.Increment(ref done);
-            progress?.Report(new PowerProgress(d, total));
-        });
+            Parallel.For(0, total, options, job =>
+            {
+                int n = sizes[job / k], mock = job % k;
+                outcomes[job] = FitMock(request, n, mock, seeds[mock], trueIndex);
+                int d = Interlocked.Increment(ref done);
+                progress?.Report(new PowerProgress(d, total));
+            });
+        }
+        catch (AggregateException ex) when (ex.InnerExceptions.Count > 0)
+        {
+            // Surface the first worker's error as itself (an input or analysis error keeps its exit code).
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(ex.InnerExceptions[0]).Throw();
+        }
 
         var points = new List<PowerPoint>();
         for (int s = 0; s < sizes.Length; s++)
