@@ -60,5 +60,7 @@ public static class Program
         yield return InspectCommand.Create(context);
         yield return FitCommand.Create(context);
         yield return ReportCommand.Create(context);
+        yield return SimulateCommand.Create(context);
+        yield return PowerCommand.Create(context);
     }
 }

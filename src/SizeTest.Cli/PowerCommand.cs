@@ -1,0 +1,149 @@
+using System.CommandLine;
+using System.Globalization;
+using SizeTest.Common;
+using SizeTest.Cosmology;
+using SizeTest.Inference;
+using SizeTest.Simulation;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// <c>sizetest power</c>: K mock surveys of a design under a true world model, every candidate fitted to each;
+/// writes <c>DIR/power.json</c>, <c>DIR/power.csv</c> and <c>DIR/mocks.csv</c> and prints the table per sample size.
+/// Exit 0 when the analysis ran (whatever its verdict), 1 when no mock could be fitted, 2 on bad input.
+/// </summary>
+internal static class PowerCommand
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static Command Create(CliContext context)
+    {
+        var command = new Command("power", "Power analysis: can a survey design tell the world models apart? Fits every candidate model to K mocks drawn under a true model, over a grid of sample sizes.");
+        var models = new WorldModelOptions();
+        var survey = new MockSurveyOptions("Sample sizes to try, comma-separated (e.g. 250,500,1000,2000).");
+        var sizes = new Option<string?>("--n") { Description = "Sample sizes N to try, comma-separated (e.g. 250,500,1000,2000); default 2000." };
+        var mocks = new Option<int>("--mocks") { Description = "Mocks per sample size (default 100).", DefaultValueFactory = _ => 100 };
+        var candidates = new Option<string>("--models") { Description = $"Candidate world models fitted to every mock, comma-separated ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
+        var observable = new Option<string?>("--observable") { Description = "What the fits use: size, sb or joint (default joint for galaxies, size for radio sources)." };
+        observable.AcceptOnlyFromAmong("size", "sb", "joint");
+        var target = new Option<double>("--target-power") { Description = "Fraction of mocks that must give ΔBIC > 10 for a decisive design (default 0.9).", DefaultValueFactory = _ => 0.9 };
+        var starts = new Option<int>("--starts") { Description = "Optimiser starting points per fit (default 1).", DefaultValueFactory = _ => 1 };
+        var threads = new Option<int?>("--threads") { Description = "Most threads to use (default: all cores)." };
+        var seed = new Option<long?>("--seed") { Description = "Base seed of the mocks (required)." };
+        var output = new Option<string?>("--out") { Description = "Output folder for power.json, power.csv and mocks.csv." };
+        var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
+        var fix = new Option<string[]>("--fix") { Description = "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable." };
+        var free = new Option<string[]>("--free") { Description = "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated." };
+        var format = CliOptions.Format();
+        models.AddTo(command);
+        command.Options.Add(sizes);
+        survey.AddTo(command, includeCount: false);
+        foreach (var o in new Option[] { mocks, candidates, observable, fix, free, target, starts, threads, seed, output, force, format }) command.Options.Add(o);
+        command.SetAction(parse =>
+        {
+            OutputFolder? folder = null;
+            try
+            {
+                long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the mocks can be reproduced, e.g. --seed 1");
+                string outDir = parse.GetValue(output) ?? throw new InputException("--out is required: the folder for power.json, power.csv and mocks.csv");
+                var grid = ParseSizes(parse.GetValue(sizes) ?? "2000");
+                var trueModel = models.Create(parse);
+                var design = survey.Design(parse, grid.Max());
+                var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse));
+                string obsText = parse.GetValue(observable) ?? (design.Kind == MockObjectKind.Galaxy ? "joint" : "size");
+                if (design.Kind == MockObjectKind.CompactRadio && obsText != "size")
+                    throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
+                var kind = obsText switch { "size" => ObservableKind.Size, "sb" => ObservableKind.SurfaceBrightness, _ => ObservableKind.Joint };
+                var cuts = design.Cuts;
+                var selection = new SelectionLimits(
+                    kind == ObservableKind.Size ? null : cuts.SbLimit,
+                    kind == ObservableKind.Joint ? cuts.MagLimit : null,
+                    kind == ObservableKind.SurfaceBrightness ? null : cuts.MinThetaArcsec);
+                var nuisance = new NuisanceModel(kind, selection, SizeSbRelation: kind == ObservableKind.Joint && template.GalaxyTruth.KormendySlope != 0);
+                var userFixed = FitOptionParsing.Fixed(parse.GetValue(fix));
+                var userFree = FitOptionParsing.List(parse.GetValue(free)).ToHashSet(StringComparer.Ordinal);
+                var names = (parse.GetValue(candidates) ?? "").Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries).Distinct().ToArray();
+                var hypotheses = new List<Hypothesis>();
+                foreach (var name in names)
+                {
+                    if (!WorldModels.TryGet(name, out var family))
+                        throw new InputException($"--models: unknown world model '{name}'; known models are {string.Join(", ", WorldModels.Names)}");
+                    // The true family is fitted with the true cosmological parameters held fixed; the others at their defaults.
+                    var fixedValues = family.Name == trueModel.Name
+                        ? trueModel.ParameterValues.Where(p => family.Parameters.Any(q => q.Name == p.Key) && !userFree.Contains(p.Key)).ToDictionary(p => p.Key, p => p.Value)
+                        : new Dictionary<string, double>();
+                    foreach (var (key, value) in userFixed) fixedValues[key] = value;
+                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(kind, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet();
+                    hypotheses.Add(Hypothesis.Create(family, nuisance, new ParameterOverrides(
+                        Free: userFree.Where(known.Contains).ToHashSet(),
+                        Fixed: fixedValues.Where(kv => known.Contains(kv.Key)).ToDictionary())));
+                }
+                var allKnown = hypotheses.SelectMany(h => h.Parameters.Select(p => p.Name)).ToHashSet();
+                foreach (var name in userFixed.Keys.Concat(userFree))
+                    if (!allKnown.Contains(name))
+                        throw new InputException($"unknown parameter '{name}' for these models and --observable {obsText}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
+                var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
+                request.Validate();
+                folder = OutputFolder.Begin(outDir, parse.GetValue(force));
+                var result = PowerAnalysis.Run(request, new PowerProgressReporter(context));
+                AtomicFile.WriteAllText(folder.PathOf("power.json"), PowerResultFiles.Json(result));
+                AtomicFile.WriteAllText(folder.PathOf("power.csv"), PowerResultFiles.Csv(result));
+                AtomicFile.WriteAllText(folder.PathOf("mocks.csv"), PowerResultFiles.MocksCsv(result));
+                folder.Commit();
+                folder = null;
+                switch (parse.GetValue(format))
+                {
+                    case "json": context.Out.Write(PowerResultFiles.Json(result)); break;
+                    case "csv": context.Out.Write(PowerResultFiles.Csv(result)); break;
+                    default: WriteTable(context.Out, result); break;
+                }
+                if (result.Outcomes.All(o => double.IsPositiveInfinity(o.Bic[result.Candidates.ToList().IndexOf(result.TrueCandidate)])))
+                {
+                    context.Err.WriteLine("sizetest: no mock could be fitted with the true model; the numbers are meaningless");
+                    return ExitCodes.AnalysisFailed;
+                }
+                return ExitCodes.Success;
+            }
+            catch (Exception ex)
+            {
+                folder?.Abandon();
+                return context.Fail(ex);
+            }
+        });
+        return command;
+    }
+
+    private static int[] ParseSizes(string text)
+    {
+        var list = new List<int>();
+        foreach (var item in text.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        {
+            if (!int.TryParse(item, NumberStyles.Integer, Inv, out int n) || n < 10)
+                throw new InputException($"--n: '{item}' is not a sample size of at least 10; write e.g. --n 250,500,1000,2000");
+            list.Add(n);
+        }
+        if (list.Count == 0) throw new InputException("--n needs at least one sample size, e.g. --n 250,500,1000,2000");
+        return list.ToArray();
+    }
+
+    private static void WriteTable(TextWriter o, PowerResult r)
+    {
+        o.WriteLine(FormattableString.Invariant($"Power analysis (synthetic mocks): true model {r.TrueCandidate}, candidates {string.Join(", ", r.Candidates)}; {r.Mocks} mocks per N; observable {r.Observable}; z {r.ZDist}; seed {r.Seed}."));
+        var header = new[] { "N", "P(best)", "P(dBIC>6)", "P(dBIC>10)", "dBIC q16", "q50", "q84", "a bias", "a spread", "a cover", "verdict" };
+        var rows = new List<string[]> { header };
+        foreach (var p in r.Points)
+        {
+            var a = p.Recovery.FirstOrDefault(x => x.Name == "size_evolution");
+            rows.Add([
+                p.SampleSize.ToString(Inv), p.ProbabilityTrueBest.ToString("F2", Inv), p.ProbabilityStrong.ToString("F2", Inv), p.ProbabilityDecisive.ToString("F2", Inv),
+                G(p.DeltaBicQuantiles[1]), G(p.DeltaBicQuantiles[2]), G(p.DeltaBicQuantiles[3]),
+                a is null ? "" : G(a.Bias), a is null ? "" : G(a.Spread), a is null ? "" : a.Coverage.ToString("F2", Inv), p.Verdict,
+            ]);
+        }
+        int[] w = Enumerable.Range(0, header.Length).Select(c => rows.Max(x => x[c].Length)).ToArray();
+        foreach (var row in rows) o.WriteLine(string.Join("  ", row.Select((x, c) => c == row.Length - 1 ? x : x.PadLeft(w[c]))).TrimEnd());
+        o.WriteLine("Conclusion: " + r.Conclusion + ".");
+    }
+
+    private static string G(double v) => double.IsFinite(v) ? v.ToString("G4", Inv) : "";
+}

@@ -1,0 +1,94 @@
+using System.CommandLine;
+using SizeTest.Catalogs;
+using SizeTest.Catalogs.Fits;
+using SizeTest.Catalogs.Text;
+using SizeTest.Catalogs.VoTable;
+using SizeTest.Common;
+using SizeTest.Simulation;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// <c>sizetest simulate</c>: draws a synthetic catalogue from a world model, a population and a survey design
+/// and writes it (CSV, FITS or VOTable by the extension of <c>--out</c>) with <c>FILE.truth.json</c>.
+/// Columns are named by role (<c>id, z, [z_err], theta, theta_err, mu, mu_err, mag</c>), so <c>fit</c> reads the
+/// file with no mapping.
+/// </summary>
+internal static class SimulateCommand
+{
+    public static Command Create(CliContext context)
+    {
+        var command = new Command("simulate", "Draw a synthetic (mock) catalogue of galaxies or compact radio sources from a world model and a survey design; writes the catalogue and FILE.truth.json.");
+        var models = new WorldModelOptions();
+        var survey = new MockSurveyOptions("Objects in the catalogue (after selection; drawing continues until this many pass).");
+        var seed = new Option<long?>("--seed") { Description = "Seed of every random draw (required: the same seed gives the same catalogue bit for bit)." };
+        var output = new Option<string?>("--out") { Description = "Catalogue file: .csv, .fits (.fit, .fts) or .vot (.votable, .xml). The truth goes to FILE.truth.json." };
+        var force = new Option<bool>("--force") { Description = "Replace existing output files." };
+        models.AddTo(command);
+        survey.AddTo(command);
+        command.Options.Add(seed);
+        command.Options.Add(output);
+        command.Options.Add(force);
+        command.SetAction(parse =>
+        {
+            try
+            {
+                int n = parse.GetValue(survey.Count) ?? throw new InputException("--n is required: the number of objects in the catalogue, e.g. --n 2000");
+                long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the catalogue can be reproduced, e.g. --seed 1");
+                string outPath = parse.GetValue(output) ?? throw new InputException("--out is required: the catalogue file, e.g. --out mock.csv");
+                var format = FormatOf(outPath);
+                string truthPath = outPath + ".truth.json";
+                bool replace = parse.GetValue(force);
+                foreach (var p in new[] { outPath, truthPath })
+                    if (File.Exists(p) && !replace)
+                        throw new InputException("already exists; pass --force to replace it or choose another --out", p);
+                var model = models.Create(parse);
+                var design = survey.Design(parse, n);
+                var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse));
+                var catalog = MockSurveyGenerator.Generate(spec);
+                Write(catalog, outPath, format);
+                AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalog, Path.GetFileName(outPath), CommandText(parse)));
+                context.Out.WriteLine(FormattableString.Invariant(
+                    $"Wrote {catalog.Count} synthetic {(design.Kind == MockObjectKind.Galaxy ? "galaxies" : "radio sources")} to {outPath} ({format.ToString().ToLowerInvariant()}; drawn {catalog.Drawn}, pass fraction {catalog.PassFraction:G4}) and the truth to {truthPath}."));
+                return ExitCodes.Success;
+            }
+            catch (Exception ex)
+            {
+                return context.Fail(ex);
+            }
+        });
+        return command;
+    }
+
+    /// <summary>The command line as given (tokens after the verb), for the truth record.</summary>
+    private static string CommandText(ParseResult parse) =>
+        "sizetest simulate " + string.Join(' ', parse.Tokens.Skip(1).Select(t => t.Value.Contains(' ') ? $"\"{t.Value}\"" : t.Value));
+
+    private enum OutputFormat { Csv, Fits, VoTable }
+
+    private static OutputFormat FormatOf(string path) => Path.GetExtension(path).ToLowerInvariant() switch
+    {
+        ".csv" => OutputFormat.Csv,
+        ".fits" or ".fit" or ".fts" => OutputFormat.Fits,
+        ".vot" or ".votable" or ".xml" => OutputFormat.VoTable,
+        _ => throw new InputException("--out must end in .csv, .fits (.fit, .fts) or .vot (.votable, .xml) to choose the format", path),
+    };
+
+    private static void Write(MockCatalog catalog, string path, OutputFormat format)
+    {
+        bool radio = catalog.Spec.Design.Kind == MockObjectKind.CompactRadio;
+        string name = radio ? "MOCK_RADIO" : "MOCK_GALAXIES";
+        switch (format)
+        {
+            case OutputFormat.Csv:
+                CsvTableWriter.Write(path, catalog.ToTable(name));
+                break;
+            case OutputFormat.Fits:
+                FitsTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio));
+                break;
+            default:
+                VoTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio), "Synthetic mock catalogue drawn by SizeTest (not an observation); truth in the .truth.json file beside it.");
+                break;
+        }
+    }
+}

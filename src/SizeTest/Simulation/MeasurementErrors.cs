@@ -1,0 +1,32 @@
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// Measurement errors of a mock survey.
+/// </summary>
+/// <remarks>
+/// <para>Sizes: log-normal, ln θ_obs = ln θ_true + σ_ln ε with σ_ln = √(f² + (floor/θ_true)²) (a fractional error f
+/// plus an absolute floor, added in quadrature); the catalogue's <c>theta_err</c> is σ_ln·θ_obs, so
+/// theta_err/theta = σ_ln exactly, the error of ln θ that the fitter uses. Log-normal keeps every size positive.</para>
+/// <para>Surface brightness: μ_obs = μ_true + σ_μ ε (mag). Photometric redshifts: z_obs = z_true + σ_z (1+z_true) ε,
+/// redrawn until z_obs &gt; 0 (a truncated normal); the model quantities stay at z_true and the catalogue reports z_obs
+/// with <c>z_err</c> = σ_z (1+z_obs).</para>
+/// </remarks>
+/// <param name="SizeErrorFraction">f, fractional size error (default 0.05).</param>
+/// <param name="SizeErrorFloorArcsec">Absolute size-error floor, arcsec (default 0).</param>
+/// <param name="MuErrorMag">σ_μ, mag (default 0.1).</param>
+/// <param name="PhotoZError">σ_z in σ_z (1+z) (default 0: spectroscopic redshifts, no z_err column).</param>
+public sealed record MeasurementErrors(
+    double SizeErrorFraction = 0.05,
+    double SizeErrorFloorArcsec = 0.0,
+    double MuErrorMag = 0.1,
+    double PhotoZError = 0.0)
+{
+    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    public void Validate()
+    {
+        if (!(SizeErrorFraction >= 0) || !double.IsFinite(SizeErrorFraction)) throw new ArgumentException($"--size-err-frac must be ≥ 0; got {SizeErrorFraction}");
+        if (!(SizeErrorFloorArcsec >= 0) || !double.IsFinite(SizeErrorFloorArcsec)) throw new ArgumentException($"--size-err-floor must be ≥ 0 arcsec; got {SizeErrorFloorArcsec}");
+        if (!(MuErrorMag >= 0) || !double.IsFinite(MuErrorMag)) throw new ArgumentException($"--mu-err must be ≥ 0 mag; got {MuErrorMag}");
+        if (!(PhotoZError >= 0) || !(PhotoZError < 1)) throw new ArgumentException($"--photoz-err must be in [0, 1); got {PhotoZError}");
+    }
+}

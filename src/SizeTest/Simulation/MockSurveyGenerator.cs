@@ -1,0 +1,193 @@
+using SizeTest.Common;
+
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// Draws mock catalogues (<see cref="MockCatalog"/>) from a <see cref="MockSurveySpec"/>. Physics only, no I/O.
+/// </summary>
+/// <remarks>
+/// <para>Objects are drawn in chunks of <see cref="ChunkSize"/>; chunk c uses its own
+/// <see cref="SimulationRandom.ForStream"/>(seed, c), so its objects depend only on the seed and c. Chunks run in
+/// parallel and are merged in chunk order, keeping the first <see cref="SurveyDesign.Count"/> objects that pass the
+/// selection: the catalogue is the same bit for bit whatever the number of threads.</para>
+/// <para>Per object, in this order: z_true from N(z); for radio sources log10 L ~ N(mean, sd); ε₁ (intrinsic size),
+/// ε₂ (intrinsic SB), ε₃ (size error), ε₄ (SB error) ~ N(0,1), always all four so that changing one error level
+/// leaves the other draws unchanged; then, with photometric redshifts, ε_z until z_obs &gt; 0.
+/// Galaxy: log10 R = log10 R0 + a log10(1+z) + σ_R ε₁; θ = R / D_A(z) (10⁻³ R[kpc]/D_A[Mpc] rad);
+/// μ = μ0 + 2.5 (n − b) log10(1+z) + κ (log10 R − log10 R_pivot) + σ_μ ε₂ (Tolman 1930; n from the world model).
+/// Radio: log10 ℓ = log10 ℓ_m + β (log10 L − log10 L_pivot) + n log10(1+z) + σ ε₁; θ = ℓ / D_A
+/// (Gurvits, Kellermann &amp; Frey 1999). Errors and selection: see <see cref="MeasurementErrors"/> and
+/// <see cref="MockSelection"/>.</para>
+/// </remarks>
+public static class MockSurveyGenerator
+{
+    /// <summary>Objects drawn per chunk (and per random stream).</summary>
+    public const int ChunkSize = 16384;
+
+    private const double Ln10 = 2.302585092994046;
+
+    /// <summary>Draws the catalogue of <paramref name="spec"/>.</summary>
+    /// <param name="spec">World model, population, design, seed.</param>
+    /// <param name="parallel">Whether chunks may run on several threads (the result is identical either way).</param>
+    /// <param name="cancel">Cancellation.</param>
+    /// <exception cref="ArgumentException">The spec is invalid.</exception>
+    /// <exception cref="AnalysisException">The selection passes too few objects (more than the draw cap needed).</exception>
+    public static MockCatalog Generate(MockSurveySpec spec, bool parallel = true, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        spec.Validate();
+        var design = spec.Design;
+        int n = design.Count;
+        // Warm the model's distance tables over the whole redshift range once, so that parallel chunks only read them.
+        Span<double> warm = stackalloc double[2];
+        spec.Model.AngularDiameterDistances([design.Redshifts.ZMin, design.Redshifts.ZMax], warm);
+
+        var result = new MockColumns(n);
+        long drawn = 0, failSb = 0, failMag = 0, failSize = 0;
+        long maxDraws = (long)design.MaxDrawsPerObject * n;
+        long nextChunk = 0;
+        double passEstimate = 1.0;
+        while (result.Count < n)
+        {
+            cancel.ThrowIfCancellationRequested();
+            int needed = n - result.Count;
+            long batch = (long)Math.Ceiling(needed / Math.Max(passEstimate, 1e-3) * 1.1 / ChunkSize);
+            batch = Math.Clamp(batch, 1, Math.Max(1, 4 * Environment.ProcessorCount));
+            var chunks = new ChunkResult[batch];
+            long first = nextChunk;
+            if (parallel && batch > 1)
+                Parallel.For(0, (int)batch, new ParallelOptions { CancellationToken = cancel }, c => chunks[c] = DrawChunk(spec, first + c));
+            else
+                for (int c = 0; c < batch; c++) chunks[c] = DrawChunk(spec, first + c);
+            nextChunk += batch;
+            long passedThisRound = 0, drawnThisRound = 0;
+            foreach (var chunk in chunks)
+            {
+                int take = Math.Min(chunk.Columns.Count, n - result.Count);
+                if (take > 0 && result.Count + take == n)
+                {
+                    // The catalogue completes in this chunk: count draws and failures only up to the last object taken.
+                    int lastDraw = chunk.DrawIndex[take - 1];
+                    for (int i = 0; i <= lastDraw; i++) Tally(chunk.Fail[i], ref failSb, ref failMag, ref failSize);
+                    drawn += lastDraw + 1;
+                }
+                else
+                {
+                    for (int i = 0; i < ChunkSize; i++) Tally(chunk.Fail[i], ref failSb, ref failMag, ref failSize);
+                    drawn += ChunkSize;
+                }
+                result.Append(chunk.Columns, 0, take);
+                passedThisRound += chunk.Columns.Count;
+                drawnThisRound += ChunkSize;
+                if (result.Count >= n) break;
+            }
+            passEstimate = Math.Max((double)passedThisRound / drawnThisRound, 1e-6);
+            if (result.Count < n && drawn >= maxDraws)
+                throw new AnalysisException(FormattableString.Invariant(
+                    $"the selection passes too few objects: only {result.Count} of {drawn} drawn objects passed (pass fraction {(double)result.Count / drawn:G3}); loosen --sb-limit/--mag-limit/--min-size or lower --n"));
+        }
+        return new MockCatalog(spec, result, drawn, failSb, failMag, failSize);
+    }
+
+    private static void Tally(byte code, ref long sb, ref long mag, ref long size)
+    {
+        if (code == 1) sb++;
+        else if (code == 2) mag++;
+        else if (code == 3) size++;
+    }
+
+    private sealed class ChunkResult(MockColumns columns, int[] drawIndex, byte[] fail)
+    {
+        public MockColumns Columns { get; } = columns;
+        public int[] DrawIndex { get; } = drawIndex;
+        public byte[] Fail { get; } = fail;
+    }
+
+    private static ChunkResult DrawChunk(MockSurveySpec spec, long chunkIndex)
+    {
+        var rng = SimulationRandom.ForStream(spec.Seed, chunkIndex);
+        var design = spec.Design;
+        var errors = design.MeasurementErrors;
+        var cuts = design.Cuts;
+        var zDist = design.Redshifts;
+        bool galaxy = design.Kind == MockObjectKind.Galaxy;
+        const int m = ChunkSize;
+        var zTrue = new double[m];
+        var da = new double[m];
+        for (int i = 0; i < m; i++) zTrue[i] = zDist.Sample(ref rng);
+        spec.Model.AngularDiameterDistances(zTrue, da);
+        var log10Da = new double[m];
+        if (galaxy)
+            for (int i = 0; i < m; i++) log10Da[i] = Math.Log10(da[i]);
+
+        var g = spec.GalaxyTruth;
+        var r = spec.RadioTruth;
+        double log10Size0 = galaxy ? Math.Log10(g.R0Kpc) : Math.Log10(r.LinearSizePc / 1000.0);
+        double sizeEvolution = galaxy ? g.SizeEvolution : r.SizeEvolution;
+        double sizeScatter = galaxy ? g.ScatterDex : r.ScatterDex;
+        double sbSlope = 2.5 * (spec.Model.BolometricDimmingExponent - g.SbEvolution);
+        double log10Pivot = Math.Log10(g.PivotSizeKpc);
+        double radPerKpcMpc = 1e-3 * Units.ArcsecPerRadian; // θ[arcsec] = 1e-3 R[kpc] / D_A[Mpc] rad
+        double log10RadPerKpcMpc = Math.Log10(radPerKpcMpc);
+        double f2 = errors.SizeErrorFraction * errors.SizeErrorFraction, floor = errors.SizeErrorFloorArcsec, sigmaFrac = errors.SizeErrorFraction;
+        double muErr = errors.MuErrorMag, sz = errors.PhotoZError;
+        bool hasSb = cuts.SbLimit is not null, hasMag = cuts.MagLimit is not null, hasSize = cuts.MinThetaArcsec is not null;
+        double sbLimit = cuts.SbLimit ?? 0, magLimit = cuts.MagLimit ?? 0, minTheta = cuts.MinThetaArcsec ?? 0;
+        double magOffset = 2.5 * Math.Log10(2 * Math.PI);
+
+        var cols = new MockColumns(m);
+        var drawIndex = new int[m];
+        var fail = new byte[m];
+        int k = 0;
+        for (int i = 0; i < m; i++)
+        {
+            double z = zTrue[i];
+            double l10 = Math.Log10(1.0 + z);
+            double logL = galaxy ? 0.0 : r.LogLuminosityMean + r.LogLuminositySd * rng.NextGaussian();
+            double e1 = rng.NextGaussian(), e2 = rng.NextGaussian(), e3 = rng.NextGaussian(), e4 = rng.NextGaussian();
+            double log10Size = log10Size0 + sizeEvolution * l10 + sizeScatter * e1;
+            if (!galaxy) log10Size += r.LuminosityExponent * (logL - r.LogLuminosityPivot);
+            double sizeKpc = Math.Exp(Ln10 * log10Size);
+            double thetaTrue = sizeKpc / da[i] * radPerKpcMpc;
+            double sigmaLn = floor > 0 ? Math.Sqrt(f2 + floor * floor / (thetaTrue * thetaTrue)) : sigmaFrac;
+            double growth = sigmaLn * e3;            // ln θ_obs − ln θ_true
+            double thetaObs = thetaTrue * Math.Exp(growth);
+            double muTrue = 0, muObs = 0, mag = 0;
+            if (galaxy)
+            {
+                muTrue = g.Mu0 + sbSlope * l10 + g.KormendySlope * (log10Size - log10Pivot) + g.ScatterMag * e2;
+                muObs = muTrue + muErr * e4;
+                // m = μ − 5 log10 θ_obs − 2.5 log10(2π), with log10 θ_obs = log10 θ_true + growth/ln10
+                mag = muObs - 5.0 * (log10Size - log10Da[i] + log10RadPerKpcMpc + growth / Ln10) - magOffset;
+            }
+            double zObs = z;
+            if (sz > 0)
+            {
+                do zObs = z + sz * (1.0 + z) * rng.NextGaussian();
+                while (!(zObs > 0));
+            }
+            byte code = 0;
+            if (hasSb && !(muObs < sbLimit)) code = 1;
+            else if (hasMag && !(mag < magLimit)) code = 2;
+            else if (hasSize && !(thetaObs > minTheta)) code = 3;
+            fail[i] = code;
+            if (code != 0) continue;
+            cols.ZObs[k] = zObs;
+            cols.ZErr[k] = sz * (1.0 + zObs);
+            cols.ZTrue[k] = z;
+            cols.ThetaObs[k] = thetaObs;
+            cols.ThetaErr[k] = sigmaLn * thetaObs;
+            cols.ThetaTrue[k] = thetaTrue;
+            cols.MuObs[k] = muObs;
+            cols.MuErr[k] = muErr;
+            cols.MuTrue[k] = muTrue;
+            cols.Mag[k] = mag;
+            cols.LogL[k] = logL;
+            cols.SizeKpc[k] = sizeKpc;
+            drawIndex[k] = i;
+            k++;
+        }
+        cols.Count = k;
+        return new ChunkResult(cols, drawIndex, fail);
+    }
+}

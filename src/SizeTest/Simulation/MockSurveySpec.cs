@@ -1,0 +1,39 @@
+using SizeTest.Cosmology;
+
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// Everything that defines a mock catalogue: the true world model, the true population (galaxies or radio
+/// sources, by <see cref="SurveyDesign.Kind"/>), the survey design and the seed. The same spec and seed give the
+/// same catalogue bit for bit, whatever the number of threads.
+/// </summary>
+/// <param name="Model">The true world model (its <see cref="IWorldModel.BolometricDimmingExponent"/> sets the Tolman dimming).</param>
+/// <param name="Design">The survey design.</param>
+/// <param name="Seed">Seed of every random draw.</param>
+/// <param name="Galaxies">Galaxy population (null: defaults), used when the kind is <see cref="MockObjectKind.Galaxy"/>.</param>
+/// <param name="RadioSources">Radio-source population (null: defaults), used when the kind is <see cref="MockObjectKind.CompactRadio"/>.</param>
+public sealed record MockSurveySpec(
+    IWorldModel Model,
+    SurveyDesign Design,
+    long Seed,
+    GalaxyPopulation? Galaxies = null,
+    RadioSourcePopulation? RadioSources = null)
+{
+    /// <summary>The galaxy population (never null).</summary>
+    public GalaxyPopulation GalaxyTruth => Galaxies ?? new GalaxyPopulation();
+
+    /// <summary>The radio-source population (never null).</summary>
+    public RadioSourcePopulation RadioTruth => RadioSources ?? new RadioSourcePopulation();
+
+    /// <summary>Checks the spec; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    public void Validate()
+    {
+        ArgumentNullException.ThrowIfNull(Model);
+        ArgumentNullException.ThrowIfNull(Design);
+        Design.Validate();
+        if (Design.Kind == MockObjectKind.Galaxy) GalaxyTruth.Validate();
+        else RadioTruth.Validate();
+        if (!Model.IsExpanding && Design.Redshifts.ZMin <= 0)
+            throw new ArgumentException($"the static world model '{Model.Name}' needs redshifts above 0");
+    }
+}

@@ -1,0 +1,125 @@
+using System.Text;
+using System.Text.Json;
+
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// The truth record of a mock catalogue (<c>FILE.truth.json</c>): every setting, the seed, the random-number
+/// method, and the outcome of the selection. Builds the text only; the caller writes it (atomically).
+/// </summary>
+/// <remarks>
+/// Layout (schema_version 1): <c>synthetic</c> (always true), <c>catalog</c>, <c>command</c>, <c>seed</c>,
+/// <c>random</c>, <c>world_model</c> {<c>name</c>, <c>expanding</c>, <c>parameters</c>, <c>dimming_exponent</c>},
+/// <c>kind</c>, <c>population</c> (galaxy: <c>r0_kpc, size_evolution, scatter_dex, mu0, sb_evolution, scatter_mag,
+/// kormendy_slope, pivot_size_kpc</c>; radio: <c>linear_size_pc, luminosity_exponent, size_evolution, scatter_dex,
+/// log_lum_mean, log_lum_sd, log_lum_pivot</c>), <c>design</c> {<c>n, z_dist, z_min, z_max, errors, selection,
+/// selection_mode</c>}, <c>outcome</c> {<c>drawn, passed, pass_fraction, failed_sb_limit, failed_mag_limit,
+/// failed_min_size</c>}.
+/// </remarks>
+public static class MockTruthJson
+{
+    /// <summary>Serialises the truth of <paramref name="catalog"/>.</summary>
+    /// <param name="catalog">The drawn catalogue.</param>
+    /// <param name="catalogFile">File name of the catalogue it describes (for the record), or null.</param>
+    /// <param name="command">The command line that made it, or null.</param>
+    public static string Serialize(MockCatalog catalog, string? catalogFile = null, string? command = null)
+    {
+        ArgumentNullException.ThrowIfNull(catalog);
+        var spec = catalog.Spec;
+        var design = spec.Design;
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            w.WriteStartObject();
+            w.WriteNumber("schema_version", 1);
+            w.WriteBoolean("synthetic", true);
+            w.WriteString("note", "synthetic mock catalogue drawn by SizeTest; not an observation");
+            if (catalogFile is not null) w.WriteString("catalog", catalogFile);
+            if (command is not null) w.WriteString("command", command);
+            w.WriteNumber("seed", spec.Seed);
+            w.WriteStartObject("random");
+            w.WriteString("generator", "xoshiro256** 1.0 seeded by SplitMix64; chunk c uses stream SplitMix64(seed ^ SplitMix64(c + 0x9E3779B97F4A7C15))");
+            w.WriteString("normal_deviates", "Marsaglia-Bray polar method");
+            w.WriteNumber("chunk_size", MockSurveyGenerator.ChunkSize);
+            w.WriteEndObject();
+            w.WriteStartObject("world_model");
+            w.WriteString("name", spec.Model.Name);
+            w.WriteBoolean("expanding", spec.Model.IsExpanding);
+            w.WriteStartObject("parameters");
+            foreach (var (k, v) in spec.Model.ParameterValues) Number(w, k, v);
+            w.WriteEndObject();
+            Number(w, "dimming_exponent", spec.Model.BolometricDimmingExponent);
+            w.WriteEndObject();
+            w.WriteString("kind", design.Kind == MockObjectKind.Galaxy ? "galaxy" : "radio");
+            w.WriteStartObject("population");
+            if (design.Kind == MockObjectKind.Galaxy)
+            {
+                var g = spec.GalaxyTruth;
+                Number(w, "r0_kpc", g.R0Kpc);
+                Number(w, "size_evolution", g.SizeEvolution);
+                Number(w, "scatter_dex", g.ScatterDex);
+                Number(w, "mu0", g.Mu0);
+                Number(w, "sb_evolution", g.SbEvolution);
+                Number(w, "scatter_mag", g.ScatterMag);
+                Number(w, "kormendy_slope", g.KormendySlope);
+                Number(w, "pivot_size_kpc", g.PivotSizeKpc);
+            }
+            else
+            {
+                var r = spec.RadioTruth;
+                Number(w, "linear_size_pc", r.LinearSizePc);
+                Number(w, "luminosity_exponent", r.LuminosityExponent);
+                Number(w, "size_evolution", r.SizeEvolution);
+                Number(w, "scatter_dex", r.ScatterDex);
+                Number(w, "log_lum_mean", r.LogLuminosityMean);
+                Number(w, "log_lum_sd", r.LogLuminositySd);
+                Number(w, "log_lum_pivot", r.LogLuminosityPivot);
+                Number(w, "r0_kpc_equivalent", r.LinearSizePc / 1000.0);
+            }
+            w.WriteEndObject();
+            w.WriteStartObject("design");
+            w.WriteNumber("n", design.Count);
+            w.WriteString("z_dist", design.Redshifts.Text);
+            Number(w, "z_min", design.Redshifts.ZMin);
+            Number(w, "z_max", design.Redshifts.ZMax);
+            var e = design.MeasurementErrors;
+            w.WriteStartObject("errors");
+            Number(w, "size_err_frac", e.SizeErrorFraction);
+            Number(w, "size_err_floor_arcsec", e.SizeErrorFloorArcsec);
+            Number(w, "mu_err_mag", e.MuErrorMag);
+            Number(w, "photoz_err", e.PhotoZError);
+            w.WriteString("size_error_model", "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/theta_true)^2); theta_err = sigma_ln theta_obs");
+            w.WriteEndObject();
+            var s = design.Cuts;
+            w.WriteStartObject("selection");
+            NullableNumber(w, "sb_limit", s.SbLimit);
+            NullableNumber(w, "mag_limit", s.MagLimit);
+            NullableNumber(w, "min_size_arcsec", s.MinThetaArcsec);
+            w.WriteEndObject();
+            w.WriteString("selection_mode", "applied to observed values; objects drawn until n pass");
+            w.WriteEndObject();
+            w.WriteStartObject("outcome");
+            w.WriteNumber("drawn", catalog.Drawn);
+            w.WriteNumber("passed", catalog.Count);
+            Number(w, "pass_fraction", catalog.PassFraction);
+            w.WriteNumber("failed_sb_limit", catalog.FailedSbLimit);
+            w.WriteNumber("failed_mag_limit", catalog.FailedMagLimit);
+            w.WriteNumber("failed_min_size", catalog.FailedMinSize);
+            w.WriteEndObject();
+            w.WriteEndObject();
+        }
+        return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
+    }
+
+    private static void Number(Utf8JsonWriter w, string name, double v)
+    {
+        if (double.IsFinite(v)) w.WriteNumber(name, v);
+        else w.WriteNull(name);
+    }
+
+    private static void NullableNumber(Utf8JsonWriter w, string name, double? v)
+    {
+        if (v is { } x) Number(w, name, x);
+        else w.WriteNull(name);
+    }
+}

@@ -1,0 +1,49 @@
+using SizeTest.Inference;
+
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// A power analysis: K mock surveys of a design drawn under a true world model, each fitted with every
+/// candidate hypothesis, repeated over a grid of sample sizes.
+/// </summary>
+/// <param name="Template">The true world model, population and design; its <see cref="SurveyDesign.Count"/> is replaced by each
+/// entry of <paramref name="SampleSizes"/> and its <see cref="MockSurveySpec.Seed"/> is the base seed of the mock seeds.</param>
+/// <param name="Candidates">Hypotheses fitted to each mock (one per world model).</param>
+/// <param name="TrueCandidate">Label of the candidate that matches the truth (its fit gives the recovered parameters).</param>
+/// <param name="Mocks">Mocks per sample size, K ≥ 1.</param>
+/// <param name="SampleSizes">Grid of catalogue sizes N (ascending after sorting).</param>
+/// <param name="TargetPower">Probability of a decisive win (ΔBIC &gt; 10) that counts as "decisive" (default 0.9).</param>
+/// <param name="Starts">Optimiser starts per fit (default 1: the data-driven start plus the fitter's restarts).</param>
+/// <param name="MaxThreads">Most threads (default: all cores).</param>
+public sealed record PowerRequest(
+    MockSurveySpec Template,
+    IReadOnlyList<Hypothesis> Candidates,
+    string TrueCandidate,
+    int Mocks,
+    IReadOnlyList<int> SampleSizes,
+    double TargetPower = 0.9,
+    int Starts = 1,
+    int? MaxThreads = null)
+{
+    /// <summary>Checks the request; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    public void Validate()
+    {
+        ArgumentNullException.ThrowIfNull(Template);
+        ArgumentNullException.ThrowIfNull(Candidates);
+        if (Candidates.Count < 2) throw new ArgumentException("a power analysis needs at least two candidate world models to compare");
+        if (Candidates.All(c => c.Label != TrueCandidate))
+            throw new ArgumentException($"the true model '{TrueCandidate}' is not among the candidates ({string.Join(", ", Candidates.Select(c => c.Label))}); add it to --models");
+        if (Mocks < 1) throw new ArgumentException($"--mocks must be at least 1; got {Mocks}");
+        if (SampleSizes is null || SampleSizes.Count == 0 || SampleSizes.Any(n => n < 10))
+            throw new ArgumentException("--n needs one or more sample sizes of at least 10 objects, e.g. --n 250,500,1000,2000");
+        if (!(TargetPower > 0 && TargetPower < 1)) throw new ArgumentException($"--target-power must be between 0 and 1; got {TargetPower}");
+        if (Starts < 1) throw new ArgumentException("--starts must be at least 1");
+        if (MaxThreads is < 1) throw new ArgumentException("--threads must be at least 1");
+        Template.Validate();
+    }
+}
+
+/// <summary>Progress of a power analysis: mocks fitted so far out of the total (over all sample sizes).</summary>
+/// <param name="Done">Mocks fitted.</param>
+/// <param name="Total">Mocks in the whole analysis.</param>
+public sealed record PowerProgress(int Done, int Total);
