@@ -44,7 +44,7 @@ internal static class FitCommand
         var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
-        var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024).", DefaultValueFactory = _ => 96 };
+        var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
