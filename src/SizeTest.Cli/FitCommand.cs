@@ -38,6 +38,9 @@ internal static class FitCommand
         var profile = new Option<string?>("--profile") { Description = "Parameter to profile (writes profile_MODEL_NAME.csv)." };
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
         OneOf(sampler, "--sampler", "none", "mcmc", "nested");
+        var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
+        var steps = new Option<int>("--steps") { Description = "MCMC: steps per walker.", DefaultValueFactory = _ => 3000 };
+        var live = new Option<int>("--live-points") { Description = "Nested sampling: live points.", DefaultValueFactory = _ => 400 };
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
         var sbLimit = new Option<double?>("--sb-limit") { Description = "Survey surface-brightness limit μ < MU (mag/arcsec²), modelled as a truncation." };
@@ -49,7 +52,7 @@ internal static class FitCommand
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
         command.Arguments.Add(catalog);
-        foreach (var o in new Option[] { cols, models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { cols, models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -77,8 +80,8 @@ internal static class FitCommand
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 string samplerName = parse.GetValue(sampler) ?? "none";
-                if (samplerName != "none")
-                    throw new InputException($"--sampler {samplerName} is not available in this build yet; use --sampler none (maximum likelihood with Hessian or --bootstrap intervals)");
+                int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
+                if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
 
                 string path = parse.GetValue(catalog)!;
@@ -100,11 +103,17 @@ internal static class FitCommand
                     ProfileParameter = parse.GetValue(profile),
                     Expected = expected,
                     Sampler = samplerName,
+                    Walkers = nWalkers,
+                    Steps = nSteps,
+                    LivePoints = nLive,
+                    ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
                 }, new FitProgressReporter(context));
 
                 AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
                 AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
                 AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
+                foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
+                    AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
                 foreach (var p in result.Profiles)
                     AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
                 folder.Commit();
