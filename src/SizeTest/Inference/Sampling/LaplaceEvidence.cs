@@ -50,7 +50,7 @@ public static class LaplaceEvidence
 
     /// <summary>
     /// ln Z with the covariance from the numerical Hessian of ln L + Σ ln π_i at <paramref name="mode"/>
-    /// (<see cref="NumericalHessian"/>).
+    /// (<see cref="UnboundedHessian"/>).
     /// </summary>
     /// <param name="logLikelihood">ln L(θ).</param>
     /// <param name="priors">One prior per parameter.</param>
@@ -71,7 +71,7 @@ public static class LaplaceEvidence
         CheckShapes(logLikelihood, priors, mode);
         result = null!;
         var posterior = new LogPosterior(logLikelihood, priors);
-        if (!NumericalHessian.TryCompute(posterior, mode, out var hessian, out failure, initialSteps))
+        if (!UnboundedHessian.TryCompute(posterior, mode, out var hessian, out failure, initialSteps))
             return false;
         int d = mode.Length;
         var negH = Matrix<double>.Build.DenseOfArray(hessian).Negate();
@@ -153,13 +153,3 @@ public static class LaplaceEvidence
         return warnings;
     }
 }
-
-/// <summary>A Laplace evidence estimate.</summary>
-/// <param name="LogEvidence">ln Z.</param>
-/// <param name="LogLikelihoodAtMode">ln L(θ̂).</param>
-/// <param name="LogPriorAtMode">ln π(θ̂).</param>
-/// <param name="Covariance">Posterior covariance used.</param>
-/// <param name="LogDeterminant">ln |Σ|.</param>
-/// <param name="Warnings">Reasons to distrust the approximation (mode near a prior bound); empty when none.</param>
-public sealed record LaplaceResult(double LogEvidence, double LogLikelihoodAtMode, double LogPriorAtMode, double[,] Covariance,
-                                   double LogDeterminant, IReadOnlyList<string> Warnings);

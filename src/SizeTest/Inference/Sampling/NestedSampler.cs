@@ -12,6 +12,8 @@ namespace SizeTest.Inference.Sampling;
 /// w_i = X_{i−1} − X_i, X_i = exp(−i/N), and is replaced by a point drawn from the prior
 /// restricted to L &gt; L_i. Z = Σ w_i L_i + (X_end/N) Σ_live L_j, accumulated in log space; the
 /// information H = Σ p_i ln L_i − ln Z and the uncertainty σ(ln Z) ≈ √(H/N) (Skilling 2006 §9).
+/// Live points tied on the lowest contour (a likelihood plateau, e.g. ln L = −∞ over part of the
+/// prior) die together with the shrinkage of a shrinking live set (Fowlie, Handley &amp; Su 2021).
 /// </summary>
 /// <remarks>
 /// Replacement uses slice sampling (Neal 2003, Ann. Stat. 31, 705: stepping out and shrinkage)
@@ -61,7 +63,7 @@ public sealed class NestedSampler
     /// <summary>Runs nested sampling to the tolerance.</summary>
     /// <param name="progress">Receives progress every 100 iterations and at the end; may be null.</param>
     /// <param name="cancellationToken">Checked every iteration.</param>
-    /// <exception cref="AnalysisException">The likelihood returned NaN, or the live points sit on a plateau the sampler cannot leave.</exception>
+    /// <exception cref="AnalysisException">The likelihood returned NaN, or no live point has a non-zero likelihood.</exception>
     /// <exception cref="OperationCanceledException">When cancelled.</exception>
     public EvidenceResult Run(IProgress<NestedProgress>? progress = null, CancellationToken cancellationToken = default)
     {
@@ -85,7 +87,6 @@ public sealed class NestedSampler
 
         var dead = new List<WeightedSample>();   // LogWeight holds ln(w_i L_i) until normalised
         double logZ = double.NegativeInfinity, h = 0.0;
-        double logShrinkWidth = Math.Log(-double.ExpM1(-1.0 / n));   // ln(1 − e^{−1/N})
         int iteration = 0;
         bool converged = false;
         string exitReason = "";
@@ -93,26 +94,49 @@ public sealed class NestedSampler
         var candidateTheta = new double[d];
         int recomputeEvery = Math.Max(1, n / 20);
 
+        double logX = 0.0;                        // ln X of the current contour (X_0 = 1)
+        int nextShapeUpdate = 0;
+        var tied = new List<int>();
         while (true)
         {
             cancellationToken.ThrowIfCancellationRequested();
-            int worst = 0;
-            double maxLogL = double.NegativeInfinity;
+            double threshold = double.PositiveInfinity, maxLogL = double.NegativeInfinity;
             for (int k = 0; k < n; k++)
             {
-                if (liveLogL[k] < liveLogL[worst]) worst = k;
+                if (liveLogL[k] < threshold) threshold = liveLogL[k];
                 if (liveLogL[k] > maxLogL) maxLogL = liveLogL[k];
             }
-            iteration++;
-            double logX = -(double)iteration / n;
-            double logWidth = -(iteration - 1.0) / n + logShrinkWidth;
-            double threshold = liveLogL[worst];
-            double logWt = logWidth + threshold;
-            Accumulate(logWt, threshold, ref logZ, ref h);
-            dead.Add(new WeightedSample((double[])liveTheta[worst].Clone(), threshold, logWt));
+            // All live points on the lowest contour die together. With k tied points they are removed one at
+            // a time from n, n−1, …, n−k+1 live points, each removal shrinking ln X by 1/(live count), so a
+            // plateau holding a fraction f of the mass is compressed by ≈ f (Fowlie, Handley & Su 2021,
+            // MNRAS 503, 1199). Without ties (k = 1) this is the usual X_i = exp(−i/N).
+            tied.Clear();
+            for (int k = 0; k < n; k++) if (liveLogL[k] == threshold) tied.Add(k);
+            if (tied.Count == n)
+            {
+                if (double.IsNegativeInfinity(threshold))
+                    throw new AnalysisException(string.Create(CultureInfo.InvariantCulture,
+                        $"Nested sampling found no point with a non-zero likelihood (every live point has ln L = −∞ at iteration {iteration + 1}); check the priors and the likelihood's support."));
+                // The whole remaining prior mass X lies on one plateau of height L: its evidence X·L is exact
+                // and is added below as the live-point contribution.
+                converged = true;
+                exitReason = string.Create(CultureInfo.InvariantCulture,
+                    $"all live points lie on one likelihood plateau (ln L = {threshold:G6}); its prior mass was added exactly");
+                break;
+            }
+            for (int t = 0; t < tied.Count; t++)
+            {
+                int liveCount = n - t;
+                double logWidth = logX + Math.Log(-double.ExpM1(-1.0 / liveCount));   // ln(X − X e^{−1/n})
+                double logWt = logWidth + threshold;
+                Accumulate(logWt, threshold, ref logZ, ref h);
+                dead.Add(new WeightedSample((double[])liveTheta[tied[t]].Clone(), threshold, logWt));
+                logX -= 1.0 / liveCount;
+                iteration++;
+            }
 
             double remaining = RemainingLogEvidence(maxLogL + logX, logZ);
-            if (progress is not null && iteration % 100 == 0)
+            if (progress is not null && iteration / 100 != (iteration - tied.Count) / 100)
                 progress.Report(new NestedProgress(iteration, logZ, remaining, _options.Tolerance, threshold, evaluations, clock.Elapsed));
             if (remaining < _options.Tolerance)
             {
@@ -128,25 +152,26 @@ public sealed class NestedSampler
                 break;
             }
 
-            if ((iteration - 1) % recomputeEvery == 0) state.UpdateShape(liveU);
-            int start = PickStart(rng, liveLogL, worst, threshold);
-            if (start < 0)
+            if (iteration >= nextShapeUpdate)
             {
-                throw new AnalysisException(string.Create(CultureInfo.InvariantCulture,
-                    $"Nested sampling stalled at iteration {iteration}: every live point has ln L = {threshold:G6}, a plateau the constrained sampler cannot leave; check the likelihood for flat regions."));
+                state.UpdateShape(liveU);
+                nextShapeUpdate = iteration + recomputeEvery;
             }
-            liveU[start].CopyTo(candidate, 0);
-            double candidateLogL = liveLogL[start];
-            for (int s = 0; s < sliceSteps; s++)
-                candidateLogL = SliceStep(rng, state, candidate, candidateTheta, candidateLogL, threshold, ref evaluations);
-            candidate.CopyTo(liveU[worst], 0);
-            for (int p = 0; p < d; p++) liveTheta[worst][p] = _priors[p].FromUnit(candidate[p]);
-            liveLogL[worst] = candidateLogL;
+            foreach (int worst in tied)
+            {
+                int start = PickStart(rng, liveLogL, worst, threshold);
+                liveU[start].CopyTo(candidate, 0);
+                double candidateLogL = liveLogL[start];
+                for (int s = 0; s < sliceSteps; s++)
+                    candidateLogL = SliceStep(rng, state, candidate, candidateTheta, candidateLogL, threshold, ref evaluations);
+                candidate.CopyTo(liveU[worst], 0);
+                for (int p = 0; p < d; p++) liveTheta[worst][p] = _priors[p].FromUnit(candidate[p]);
+                liveLogL[worst] = candidateLogL;
+            }
         }
 
         // Final live points: each holds X_end / N of the prior mass.
-        double logXEnd = -(double)iteration / n;
-        double liveLogWidth = logXEnd - Math.Log(n);
+        double liveLogWidth = logX - Math.Log(n);
         var order = Enumerable.Range(0, n).OrderBy(k => liveLogL[k]).ToArray();
         foreach (int k in order)
         {
@@ -213,7 +238,7 @@ public sealed class NestedSampler
         return a > b ? a + double.LogP1(Math.Exp(b - a)) : b + double.LogP1(Math.Exp(a - b));
     }
 
-    /// <summary>A random live point other than <paramref name="worst"/> strictly above the contour, or −1 if none.</summary>
+    /// <summary>A random live point strictly above the contour (the caller guarantees one exists).</summary>
     private static int PickStart(Random rng, double[] liveLogL, int worst, double threshold)
     {
         int n = liveLogL.Length;
@@ -222,7 +247,7 @@ public sealed class NestedSampler
         if (liveLogL[j] > threshold) return j;
         var above = new List<int>();
         for (int k = 0; k < n; k++) if (liveLogL[k] > threshold) above.Add(k);
-        return above.Count == 0 ? -1 : above[rng.Next(above.Count)];
+        return above[rng.Next(above.Count)];
     }
 
     /// <summary>

@@ -71,7 +71,7 @@ public sealed class EnsembleSamplerTests
                 cov[i, j] = (0.5 + 0.5 * i) * (0.5 + 0.5 * j) * Math.Pow(0.5, Math.Abs(i - j));
         }
         var target = new GaussianDensity(mean, cov);
-        var options = new EnsembleSamplerOptions { Walkers = 40, Steps = 4000, Seed = 5, MaxDegreeOfParallelism = 2 };
+        var options = new EnsembleSamplerOptions { Walkers = 40, Steps = 4000, Seed = 5, MaxDegreeOfParallelism = 1 };
         var run = new EnsembleSampler(target, options).Run(Ball(mean, 0.05, 40, 11));
         AssertMatchesGaussian(run, target);
         // Stretch move acceptance falls with dimension; ~0.3–0.5 in 5-D (Goodman & Weare 2010 §5; from memory).
@@ -247,6 +247,23 @@ public sealed class EnsembleSamplerTests
         }
         Assert.False(File.Exists(failed));
         Assert.Single(Directory.GetFiles(dir));
+    }
+
+    [Fact]
+    public void WritesChainThroughATextWriterWithAnOddWalkerCount()
+    {
+        // 7 walkers: halves of 3 and 4 (the split need not be even).
+        var target = new GaussianDensity([0, 0, 0], Diagonal(3, 1.0));
+        using var writer = new StringWriter();
+        var store = new CsvChainStore(writer, thin: 5);
+        var run = new EnsembleSampler(target, new EnsembleSamplerOptions { Walkers = 7, Steps = 50, BurnIn = 0 }).Run(Ball([0, 0, 0], 0.1, 7, 2), store: store);
+        var lines = writer.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal("step,walker,log_prob,theta_0,theta_1,theta_2", lines[0]);
+        Assert.Equal(1 + 10 * 7, lines.Length);                     // steps 0, 5, …, 45
+        var row = lines[1 + 7 * 3 + 6].Split(',');                    // step 15, walker 6
+        Assert.Equal("15", row[0]);
+        Assert.Equal(run.Chain.LogProbability(15, 6), double.Parse(row[2], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(7, run.WalkerAcceptanceFractions.Count);
     }
 
     [Fact]

@@ -170,6 +170,21 @@ public sealed class NestedSamplerTests
     }
 
     [Fact]
+    public void HandlesZeroLikelihoodRegions()
+    {
+        // L = exp(−(x−1)²/(2·0.5²)) for x > 0 and 0 (ln L = −∞) for x ≤ 0, prior U[−5, 5]: half the prior has no
+        // likelihood. Z = (1/10) σ√(2π) [Φ((5−1)/σ) − Φ((0−1)/σ)] (elementary integral, closed form).
+        const double s = 0.5;
+        var like = new DelegateDensity(1, x => x[0] > 0 ? -(x[0] - 1) * (x[0] - 1) / (2 * s * s) : double.NegativeInfinity);
+        double exact = Math.Log(0.1 * s * Math.Sqrt(2 * Math.PI) *
+            (MathNet.Numerics.Distributions.Normal.CDF(0, 1, 4 / s) - MathNet.Numerics.Distributions.Normal.CDF(0, 1, -1 / s)));
+        var result = new NestedSampler(like, [new UniformPrior(-5, 5)], new NestedSamplerOptions { LivePoints = 400, Seed = 13 }).Run();
+        Assert.True(Math.Abs(result.LogEvidence - exact) < 3 * result.LogEvidenceError,
+            $"lnZ {result.LogEvidence} ± {result.LogEvidenceError}, exact {exact}");
+        Assert.All(result.WeightedSamples.Where(w => w.Theta[0] <= 0), w => Assert.Equal(double.NegativeInfinity, w.LogWeight));
+    }
+
+    [Fact]
     public void IterationLimitGivesNotConverged()
     {
         var like = new GaussianDataLikelihood([0.0], [0.1], n: 10, seed: 12);
@@ -188,8 +203,20 @@ public sealed class NestedSamplerTests
         var ex = Assert.Throws<AnalysisException>(() =>
             new NestedSampler(nan, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 50, ParameterNames = ["omega_m"] }).Run());
         Assert.Contains("omega_m = ", ex.Message);
-        var flat = new ConstantDensity(1, -1.0);
-        Assert.Contains("plateau", Assert.Throws<AnalysisException>(() =>
-            new NestedSampler(flat, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 20 }).Run()).Message);
+        var nowhere = new ConstantDensity(1, double.NegativeInfinity);
+        Assert.Contains("no point with a non-zero likelihood", Assert.Throws<AnalysisException>(() =>
+            new NestedSampler(nowhere, [new UniformPrior(0, 1)], new NestedSamplerOptions { LivePoints = 20 }).Run()).Message);
+    }
+
+    [Fact]
+    public void ConstantLikelihoodGivesItsValueExactly()
+    {
+        // Z = ∫ L π dθ = L for constant L and a normalised prior (definition), with H = 0 and so σ = 0.
+        var flat = new ConstantDensity(2, -1.5);
+        var r = new NestedSampler(flat, [new UniformPrior(0, 1), new UniformPrior(-3, 3)], new NestedSamplerOptions { LivePoints = 20 }).Run();
+        Assert.Equal(-1.5, r.LogEvidence, 12);
+        Assert.Equal(0.0, r.LogEvidenceError, 6);
+        Assert.True(r.Converged);
+        Assert.Contains("plateau", r.ExitReason);
     }
 }

@@ -13,7 +13,7 @@ namespace SizeTest.Inference.Sampling;
 /// each improved by one Richardson extrapolation D = (4 D(h/2) − D(h))/3, which removes the
 /// O(h²) error term (Press et al. 2007 §5.7). All are exact for a quadratic function.
 /// </summary>
-public static class NumericalHessian
+public static class UnboundedHessian
 {
     /// <summary>
     /// Computes the Hessian of <paramref name="f"/> at <paramref name="x"/>.
