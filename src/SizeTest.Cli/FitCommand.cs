@@ -22,7 +22,7 @@ internal static class FitCommand
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
-        var cols = new Option<string[]>("--col") { Description = "Column mapping ROLE=NAME[:UNIT] (roles id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band); repeatable.", AllowMultipleArgumentsPerToken = false };
+        var catalogOptions = new CatalogOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -52,7 +52,8 @@ internal static class FitCommand
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
         command.Arguments.Add(catalog);
-        foreach (var o in new Option[] { cols, models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        catalogOptions.AddTo(command);
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -86,7 +87,7 @@ internal static class FitCommand
 
                 string path = parse.GetValue(catalog)!;
                 folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(parse.GetValue(cols)) });
+                var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
                 var observables = ObservablesBuilder.Build(load.Sample, PhotometryOptions.Default).Observables;
                 if (nFolds > observables.Count) nFolds = 0;
                 var result = FitStudy.Run(new FitRequest
