@@ -59,5 +59,6 @@ public static class Program
         yield return PredictCommand.Create(context);
         yield return InspectCommand.Create(context);
         yield return FitCommand.Create(context);
+        yield return ReportCommand.Create(context);
     }
 }

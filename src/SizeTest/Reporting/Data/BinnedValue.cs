@@ -1,0 +1,10 @@
+namespace SizeTest.Reporting.Data;
+
+/// <summary>A statistic of the objects in one redshift bin with its bootstrap interval.</summary>
+/// <param name="ZLow">Lower bin edge.</param>
+/// <param name="ZHigh">Upper bin edge.</param>
+/// <param name="Value">Statistic (median or mean).</param>
+/// <param name="Lo">16th percentile of the bootstrap distribution of the statistic.</param>
+/// <param name="Hi">84th percentile.</param>
+/// <param name="Count">Objects in the bin.</param>
+public sealed record BinnedValue(double ZLow, double ZHigh, double Value, double Lo, double Hi, int Count);

@@ -1,0 +1,65 @@
+namespace SizeTest.Reporting.Data;
+
+/// <summary>
+/// Everything a report shows, as plain data: filled by an adapter from the study result (or by
+/// tests from synthetic numbers). Reporting never refits: model curves, criteria and intervals
+/// arrive here already computed; the report only draws, tabulates and words them.
+/// </summary>
+public sealed record ReportData
+{
+    /// <summary>What was run: study name, versions, seed.</summary>
+    public required JobSummary Job { get; init; }
+
+    /// <summary>Rows read, accepted and rejected, with reject reasons.</summary>
+    public required DataSummary Data { get; init; }
+
+    /// <summary>The accepted objects (redshift, angular size, surface brightness).</summary>
+    public required SamplePoints Sample { get; init; }
+
+    /// <summary>Per fitted model: its fit summary, curves and required evolution. Order is display order.</summary>
+    public required IReadOnlyList<ModelReport> Models { get; init; }
+
+    /// <summary>The assumptions every conclusion rests on (cosmology priors, evolution form, selection model, K-corrections).</summary>
+    public required IReadOnlyList<Assumption> Assumptions { get; init; }
+
+    /// <summary>Binned angular-size medians (arcsec) with bootstrap intervals, or null.</summary>
+    public IReadOnlyList<BinnedValue>? ThetaBins { get; init; }
+
+    /// <summary>Binned surface-brightness means (mag/arcsec²) with bootstrap intervals, or null.</summary>
+    public IReadOnlyList<BinnedValue>? MuBins { get; init; }
+
+    /// <summary>
+    /// Surface brightness at z → 0 (mag/arcsec²) that anchors the (1+z)^4 and (1+z)^1 dimming
+    /// curves; null anchors them at the lowest-redshift bin of <see cref="MuBins"/>.
+    /// </summary>
+    public double? SurfaceBrightnessZeroPoint { get; init; }
+
+    /// <summary>Posterior samples for a corner plot, when the study sampled.</summary>
+    public PosteriorSamples? Posterior { get; init; }
+
+    /// <summary>Power curve from mock catalogues, when the study ran a power analysis.</summary>
+    public PowerCurve? Power { get; init; }
+
+    /// <summary>Extra conclusions in words, added after the ones the report derives from the criteria.</summary>
+    public IReadOnlyList<string> ExtraConclusions { get; init; } = [];
+
+    /// <summary>
+    /// A copy with <see cref="ThetaBins"/> (medians) and <see cref="MuBins"/> (means) computed
+    /// from <see cref="Sample"/> in <paramref name="bins"/> equal-count redshift bins with
+    /// <paramref name="resamples"/> bootstrap resamples seeded by <paramref name="seed"/>
+    /// (see <see cref="BinnedStatistics"/>).
+    /// </summary>
+    public ReportData WithBins(int bins = 8, int resamples = 200, int seed = 0)
+    {
+        var edges = BinnedStatistics.EqualCountEdges(Sample.Z, bins);
+        if (edges.Length < 2) return this;
+        return this with
+        {
+            ThetaBins = Sample.ThetaArcsec is { } th ? BinnedStatistics.Compute(Sample.Z, th, edges, BinnedStatistics.Statistic.Median, resamples, seed) : null,
+            MuBins = Sample.Mu is { } mu ? BinnedStatistics.Compute(Sample.Z, mu, edges, BinnedStatistics.Statistic.Mean, resamples, seed + 1) : null,
+        };
+    }
+
+    /// <summary>The run manifest shown at the end of the report (may be null before it is known).</summary>
+    public Pack.RunManifest? Manifest { get; init; }
+}

@@ -1,0 +1,41 @@
+using System.Net;
+using System.Text;
+using SizeTest.Reporting.Tables;
+
+namespace SizeTest.Reporting.Html;
+
+/// <summary>Escaping and small building blocks for the HTML report.</summary>
+public static class Html
+{
+    /// <summary>HTML-escapes text.</summary>
+    public static string Text(string s) => WebUtility.HtmlEncode(s);
+
+    /// <summary>Appends a table with a caption.</summary>
+    public static void Table(StringBuilder sb, ReportTable t)
+    {
+        sb.Append("<table id=\"table-").Append(Text(t.Id)).Append("\"><caption><strong>").Append(Text(t.Title)).Append(".</strong> ").Append(Text(t.Caption)).Append("</caption>\n<thead><tr>");
+        for (int j = 0; j < t.Columns.Count; j++)
+        {
+            bool numeric = t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]));
+            sb.Append(numeric ? "<th class=\"num\">" : "<th>").Append(Text(t.Columns[j])).Append("</th>");
+        }
+        sb.Append("</tr></thead>\n<tbody>\n");
+        foreach (var r in t.Rows)
+        {
+            sb.Append("<tr>");
+            foreach (var c in r) sb.Append(IsNumber(c) ? "<td class=\"num\">" : "<td>").Append(Text(c)).Append("</td>");
+            sb.Append("</tr>\n");
+        }
+        sb.Append("</tbody></table>\n");
+    }
+
+    /// <summary>Appends a two-column key/value table.</summary>
+    public static void KeyValues(StringBuilder sb, string cssClass, IEnumerable<(string Key, string Value)> rows)
+    {
+        sb.Append("<table class=\"").Append(cssClass).Append("\"><tbody>\n");
+        foreach (var (k, v) in rows) sb.Append("<tr><th scope=\"row\">").Append(Text(k)).Append("</th><td>").Append(Text(v)).Append("</td></tr>\n");
+        sb.Append("</tbody></table>\n");
+    }
+
+    private static bool IsNumber(string s) => double.TryParse(s, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
+}

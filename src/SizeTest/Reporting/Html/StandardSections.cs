@@ -1,0 +1,135 @@
+using System.Globalization;
+using System.Text;
+using SizeTest.Reporting.Rendering;
+
+namespace SizeTest.Reporting.Html;
+
+/// <summary>Job summary: what was run, with which build and seed.</summary>
+public sealed class JobSummarySection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "job-summary";
+    /// <inheritdoc />
+    public string Heading => "Job summary";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        var j = content.Data.Job;
+        Html.KeyValues(html, "kv", [
+            ("study file", j.StudyFile.Length > 0 ? j.StudyFile : "(none)"),
+            ("catalogue", j.Catalogue + (j.Synthetic ? " (synthetic)" : "")),
+            ("models", string.Join(", ", content.Data.Models.Select(m => m.Label))),
+            ("method", j.Method.Length > 0 ? j.Method : "(not stated)"),
+            ("SizeTest", j.SizeTestVersion + (j.GitCommit.Length > 0 ? $" (commit {j.GitCommit})" : "")),
+            ("seed", j.Seed.ToString(CultureInfo.InvariantCulture)),
+        ]);
+    }
+}
+
+/// <summary>Data summary: rows read, accepted and rejected, and why.</summary>
+public sealed class DataSummarySection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "data-summary";
+    /// <inheritdoc />
+    public string Heading => "Data";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        var d = content.Data.Data;
+        Html.KeyValues(html, "kv", [
+            ("rows read", d.RowsRead.ToString(CultureInfo.InvariantCulture)),
+            ("accepted", d.Accepted.ToString(CultureInfo.InvariantCulture)),
+            ("rejected", d.Rejected.ToString(CultureInfo.InvariantCulture) + (d.Balanced ? "" : " (does not add up: rows read ≠ accepted + rejected)")),
+            ("size definition", d.SizeDefinition.Length > 0 ? d.SizeDefinition : "(not stated)"),
+            ("band", d.Band.Length > 0 ? d.Band : "(not stated)"),
+        ]);
+        if (d.RejectReasons.Count > 0) Html.Table(html, content.Table("rejects"));
+        else html.Append("<p>No row was rejected.</p>\n");
+    }
+}
+
+/// <summary>Conclusions with the assumptions they rest on beside them, and the caution on information criteria.</summary>
+public sealed class ConclusionsSection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "conclusions";
+    /// <inheritdoc />
+    public string Heading => "Conclusions and the assumptions they rest on";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        html.Append("<div class=\"pair\">\n<div class=\"conclusions\"><h3>Conclusions</h3><ul>\n");
+        foreach (var c in content.Conclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+        html.Append("</ul></div>\n<div class=\"assumptions\"><h3>Assumptions</h3><dl>\n");
+        foreach (var a in content.Data.Assumptions)
+            html.Append("<dt>").Append(Html.Text(a.Topic)).Append("</dt><dd>").Append(Html.Text(a.Statement)).Append("</dd>\n");
+        if (content.Data.Assumptions.Count == 0) html.Append("<dt>none stated</dt><dd>The study stated no assumptions; read every conclusion with that in mind.</dd>\n");
+        html.Append("</dl></div>\n</div>\n<p class=\"caution\"><strong>Caution.</strong> ").Append(Html.Text(ReportConclusions.Caution)).Append("</p>\n");
+    }
+}
+
+/// <summary>Parameter and criteria tables.</summary>
+public sealed class TablesSection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "tables";
+    /// <inheritdoc />
+    public string Heading => "Parameters and model comparison";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        Html.Table(html, content.Table("parameters"));
+        Html.Table(html, content.Table("comparison"));
+    }
+}
+
+/// <summary>Every figure as inline SVG with its caption.</summary>
+public sealed class FiguresSection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "figures";
+    /// <inheritdoc />
+    public string Heading => "Figures";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        int n = 0;
+        foreach (var f in content.Figures)
+        {
+            n++;
+            var svg = FigureRenderer.RenderSvg(f);
+            int start = svg.IndexOf("<svg", StringComparison.Ordinal);
+            // Figures are drawn for 96 dpi; let them grow to 1.4× that at most so text stays near body size.
+            var (w, _) = FigureRenderer.LogicalSize(f);
+            html.Append("<figure id=\"fig-").Append(Html.Text(f.Id)).Append("\" style=\"max-width: ")
+                .Append(Math.Round(w * 1.4).ToString(CultureInfo.InvariantCulture)).Append("px\">\n")
+                .Append(svg, start, svg.Length - start).Append('\n')
+                .Append("<figcaption><strong>Figure ").Append(n).Append(". ").Append(Html.Text(f.Title)).Append(".</strong> ")
+                .Append(Html.Text(f.Caption)).Append("</figcaption>\n</figure>\n");
+        }
+        if (n == 0) html.Append("<p>No figure could be drawn from these results.</p>\n");
+    }
+}
+
+/// <summary>The run manifest: inputs with checksums and the full manifest JSON.</summary>
+public sealed class ManifestSection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "manifest";
+    /// <inheritdoc />
+    public string Heading => "Run manifest";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        if (content.Data.Manifest is not { } m)
+        {
+            html.Append("<p>No run manifest was recorded.</p>\n");
+            return;
+        }
+        html.Append("<p>Every input file with its SHA-256 checksum; the complete manifest follows. Timestamps and timings are kept in its <code>volatile</code> field.</p>\n");
+        html.Append("<table id=\"table-inputs\"><thead><tr><th>input</th><th>sha256</th></tr></thead><tbody>\n");
+        foreach (var i in m.Inputs) html.Append("<tr><td>").Append(Html.Text(i.Path)).Append("</td><td class=\"hash\">").Append(Html.Text(i.Sha256)).Append("</td></tr>\n");
+        html.Append("</tbody></table>\n<pre class=\"manifest\">").Append(Html.Text(m.ToJson())).Append("</pre>\n");
+    }
+}

@@ -1,0 +1,225 @@
+using SkiaSharp;
+
+namespace SizeTest.Reporting.Pdf;
+
+/// <summary>
+/// A minimal top-to-bottom page flow on an SKDocument: wrapped paragraphs, headings, key/value
+/// lists, tables and vector figures, breaking to a new page when the next block does not fit.
+/// Units are points.
+/// </summary>
+internal sealed class PdfPageFlow : IDisposable
+{
+    private readonly SKDocument doc;
+    private readonly PaperSize paper;
+    private readonly string footer;
+    private SKCanvas? canvas;
+    private readonly SKPaint ink = new() { Color = new SKColor(0x1a, 0x1a, 0x1a), IsAntialias = true };
+    private readonly SKPaint muted = new() { Color = new SKColor(0x55, 0x55, 0x55), IsAntialias = true };
+    private readonly SKPaint accent = new() { Color = new SKColor(0x00, 0x72, 0xB2), IsAntialias = true, StrokeWidth = 1.2f };
+    private readonly SKPaint rule = new() { Color = new SKColor(0xC8, 0xC8, 0xC8), IsAntialias = true, StrokeWidth = 0.5f };
+
+    public PdfPageFlow(SKDocument doc, PaperSize paper, string footer)
+    {
+        this.doc = doc;
+        this.paper = paper;
+        this.footer = footer;
+    }
+
+    public const float MarginPt = 56f;
+    public float Left => MarginPt;
+    public float Width => paper.WidthPt - 2 * MarginPt;
+    public float Bottom => paper.HeightPt - MarginPt;
+    public float Y { get; private set; }
+    public int Pages { get; private set; }
+    public List<string> PageHeadings { get; } = [];
+
+    public SKCanvas Canvas => canvas ?? throw new InvalidOperationException("no page");
+
+    public void NewPage(string heading)
+    {
+        EndPage();
+        canvas = doc.BeginPage(paper.WidthPt, paper.HeightPt);
+        Pages++;
+        PageHeadings.Add(heading);
+        Y = MarginPt;
+        using var f = Font(false, 8f);
+        canvas.DrawText($"{footer} — page {Pages}", Left, paper.HeightPt - MarginPt / 2, SKTextAlign.Left, f, muted);
+    }
+
+    public void EndPage()
+    {
+        if (canvas is null) return;
+        doc.EndPage();
+        canvas = null;
+    }
+
+    public void Ensure(float height, string headingIfNew)
+    {
+        if (canvas is null || Y + height > Bottom) NewPage(headingIfNew);
+    }
+
+    public static SKFont Font(bool bold, float size) =>
+        new(bold ? Rendering.FontRegistry.Bold : Rendering.FontRegistry.Regular, size) { Subpixel = true };
+
+    public void Heading(string text, float size = 15f)
+    {
+        Ensure(size * 2.6f, text);
+        Y += size * 0.9f;
+        using var f = Font(true, size);
+        Canvas.DrawText(text, Left, Y + size * 0.8f, SKTextAlign.Left, f, ink);
+        Y += size * 1.2f;
+        Canvas.DrawLine(Left, Y, Left + Width, Y, accent);
+        Y += size * 0.6f;
+    }
+
+    public void Paragraph(string text, float size = 10f, bool bold = false, bool isMuted = false, float indent = 0f, string bullet = "")
+    {
+        using var f = Font(bold, size);
+        var lines = Wrap(text, f, Width - indent);
+        float lh = size * 1.35f;
+        for (int i = 0; i < lines.Count; i++)
+        {
+            Ensure(lh, "continued");
+            if (i == 0 && bullet.Length > 0) Canvas.DrawText(bullet, Left + indent - size * 0.9f, Y + size, SKTextAlign.Left, f, ink);
+            Canvas.DrawText(lines[i], Left + indent, Y + size, SKTextAlign.Left, f, isMuted ? muted : ink);
+            Y += lh;
+        }
+        Y += size * 0.45f;
+    }
+
+    public void Space(float pt) => Y += pt;
+
+    public void KeyValues(IEnumerable<(string Key, string Value)> rows, float size = 10f)
+    {
+        using var fk = Font(false, size);
+        float keyW = 120f;
+        foreach (var (k, v) in rows)
+        {
+            var lines = Wrap(v, fk, Width - keyW);
+            float lh = size * 1.35f;
+            Ensure(lh * lines.Count, "continued");
+            Canvas.DrawText(k, Left, Y + size, SKTextAlign.Left, fk, muted);
+            foreach (var l in lines)
+            {
+                Canvas.DrawText(l, Left + keyW, Y + size, SKTextAlign.Left, fk, ink);
+                Y += lh;
+            }
+        }
+        Y += size * 0.6f;
+    }
+
+    /// <summary>
+    /// A table with a caption. Column headings break at '_' and spaces onto several lines; the
+    /// font shrinks (down to 6 pt) until the columns fit the width; numeric columns are right-aligned.
+    /// </summary>
+    public void Table(Tables.ReportTable t)
+    {
+        Paragraph(t.Title + ". " + t.Caption, 9f, isMuted: true);
+        var heads = t.Columns.Select(c => c.Split(['_', ' '], StringSplitOptions.RemoveEmptyEntries)).ToArray();
+        var numeric = t.Columns.Select((_, j) => t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]))).ToArray();
+        float size = 9f;
+        float[] widths;
+        while (true)
+        {
+            using var f = Font(false, size);
+            using var fb = Font(true, size);
+            widths = t.Columns.Select((c, j) => Math.Max(heads[j].Select(w => fb.MeasureText(w)).DefaultIfEmpty(0).Max(),
+                t.Rows.Select(r => f.MeasureText(r[j])).DefaultIfEmpty(0).Max()) + 1.2f * size).ToArray();
+            if (widths.Sum() <= Width || size <= 6f) break;
+            size -= 0.5f;
+        }
+        float scale = widths.Sum() > Width ? Width / widths.Sum() : 1f;
+        for (int j = 0; j < widths.Length; j++) widths[j] *= scale;
+        float lh = size * 1.5f;
+        int headLines = heads.Max(h => Math.Max(1, h.Length));
+        using (var fb = Font(true, size))
+        {
+            Ensure(lh * (headLines + 1), "continued");
+            for (int line = 0; line < headLines; line++)
+                DrawRow(heads.Select(h => line < h.Length ? h[line] : "").ToArray(), widths, numeric, fb, size);
+            Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, ink);
+        }
+        using var fr = Font(false, size);
+        foreach (var r in t.Rows)
+        {
+            Ensure(lh, "continued");
+            DrawRow(r, widths, numeric, fr, size);
+            Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, rule);
+        }
+        Y += 10f;
+    }
+
+    private static bool IsNumber(string s) =>
+        double.TryParse(s, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
+
+    private void DrawRow(IReadOnlyList<string> cells, float[] widths, bool[] numeric, SKFont f, float size)
+    {
+        float x = Left;
+        for (int j = 0; j < cells.Count; j++)
+        {
+            if (numeric[j]) Canvas.DrawText(cells[j], x + widths[j] - size * 0.6f, Y + size * 1.1f, SKTextAlign.Right, f, ink);
+            else Canvas.DrawText(cells[j], x + size * 0.3f, Y + size * 1.1f, SKTextAlign.Left, f, ink);
+            x += widths[j];
+        }
+        Y += size * 1.5f;
+    }
+
+    /// <summary>Draws a figure scaled to the text width (or to the remaining page height) as vectors.</summary>
+    public void Figure(Figures.FigureSpec spec, int number)
+    {
+        var (w, h) = Rendering.FigureRenderer.LogicalSize(spec);
+        float scale = Width / w;
+        float maxH = (Bottom - MarginPt) * 0.78f;
+        if (h * scale > maxH) scale = maxH / h;
+        using var cf = Font(false, 8.5f);
+        float captionH = Wrap(spec.Caption, cf, Width).Count * 8.5f * 1.35f + 20f;
+        Ensure(h * scale + captionH, $"Figure {number}");
+        Canvas.Save();
+        Canvas.Translate(Left + (Width - w * scale) / 2, Y);
+        Canvas.Scale(scale);
+        Rendering.FigureRenderer.Draw(Canvas, spec);
+        Canvas.Restore();
+        Y += h * scale + 6f;
+        Paragraph($"Figure {number}. {spec.Title}.", 9f, bold: true);
+        Y -= 4f;
+        Paragraph(spec.Caption, 8.5f, isMuted: true);
+        Y += 6f;
+    }
+
+    public static List<string> Wrap(string text, SKFont font, float width)
+    {
+        var lines = new List<string>();
+        foreach (var para in text.Replace("\r", "").Split('\n'))
+        {
+            var line = "";
+            foreach (var word in para.Split(' '))
+            {
+                var candidate = line.Length == 0 ? word : line + " " + word;
+                if (font.MeasureText(candidate) <= width || line.Length == 0)
+                {
+                    line = candidate;
+                    // A single word wider than the line (hashes, paths): break it by characters.
+                    while (font.MeasureText(line) > width && line.Length > 1)
+                    {
+                        int cut = line.Length - 1;
+                        while (cut > 1 && font.MeasureText(line[..cut]) > width) cut--;
+                        lines.Add(line[..cut]);
+                        line = line[cut..];
+                    }
+                }
+                else
+                {
+                    lines.Add(line);
+                    line = word;
+                }
+            }
+            lines.Add(line);
+        }
+        return lines;
+    }
+
+    public void Dispose()
+    {
+        ink.Dispose(); muted.Dispose(); accent.Dispose(); rule.Dispose();
+    }
+}
