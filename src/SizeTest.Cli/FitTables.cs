@@ -35,7 +35,7 @@ internal static class FitTables
     }
 
     /// <summary>Nested-sampling weighted samples as CSV: the free parameters, log_likelihood, log_weight.</summary>
-    public static string SamplesCsv(PosteriorSamples s)
+    public static string SamplesCsv(PosteriorDraws s)
     {
         var sb = new StringBuilder(string.Join(',', s.ParameterNames) + ",log_likelihood,log_weight\n");
         foreach (var row in s.Rows) sb.Append(string.Join(',', row.Select(R))).Append('\n');

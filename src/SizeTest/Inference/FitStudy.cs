@@ -20,7 +20,7 @@ public static class FitStudy
         var cvs = new List<CrossValidationResult>();
         var profiles = new List<ProfileLikelihoodResult>();
         var required = new List<RequiredEvolution>();
-        var samples = new List<PosteriorSamples>();
+        var samples = new List<PosteriorDraws>();
         var opt = new OptimizerSettings(Starts: request.Starts, Seed: request.Seed);
         int m = 0;
         foreach (var h in request.Hypotheses)

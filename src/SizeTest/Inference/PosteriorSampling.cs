@@ -7,7 +7,7 @@ namespace SizeTest.Inference;
 /// <param name="Sampler"><c>mcmc</c> or <c>nested</c>.</param>
 /// <param name="ParameterNames">Free-parameter names, in column order.</param>
 /// <param name="Rows">Nested sampling: the weighted samples (θ…, ln L, ln weight); MCMC: empty (the chain store has it).</param>
-public sealed record PosteriorSamples(string Model, string Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows);
+public sealed record PosteriorDraws(string Model, string Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows);
 
 /// <summary>
 /// Runs the samplers of <c>Inference/Sampling</c> on a fitted hypothesis and folds their results into the
@@ -25,7 +25,7 @@ public static class PosteriorSampling
     /// <param name="seed">Seed for this model.</param>
     /// <param name="progress">Progress sink.</param>
     /// <param name="cancel">Cancellation.</param>
-    public static (ModelFitSummary Summary, PosteriorSamples? Samples) Run(HypothesisLikelihood likelihood, MaximumLikelihoodResult fit,
+    public static (ModelFitSummary Summary, PosteriorDraws? Samples) Run(HypothesisLikelihood likelihood, MaximumLikelihoodResult fit,
         ModelFitSummary summary, FitRequest request, int seed, IProgress<FitProgress>? progress, CancellationToken cancel)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
@@ -41,7 +41,7 @@ public static class PosteriorSampling
         bool converged;
         string verdict;
         double? lnZ = null, lnZErr = null;
-        PosteriorSamples? samples = null;
+        PosteriorDraws? samples = null;
         if (request.Sampler == "mcmc")
         {
             var scale = Enumerable.Range(0, d).Select(j =>
@@ -77,7 +77,7 @@ public static class PosteriorSampling
             if (LaplaceEvidence.TryCompute(likelihood, likelihood.Priors, fit.Theta, out var laplace, out var failure))
                 lnZ = laplace.LogEvidence;
             else verdict += $"; Laplace evidence not available ({failure})";
-            samples = new PosteriorSamples(label, "mcmc", names, []);
+            samples = new PosteriorDraws(label, "mcmc", names, []);
         }
         else if (request.Sampler == "nested")
         {
@@ -96,7 +96,7 @@ public static class PosteriorSampling
             verdict = $"nested sampling ({request.LivePoints} live points): {(ev.Converged ? "converged" : "not converged")} ({ev.ExitReason})";
             lnZ = ev.LogEvidence;
             lnZErr = ev.LogEvidenceError;
-            samples = new PosteriorSamples(label, "nested", names,
+            samples = new PosteriorDraws(label, "nested", names,
                 ev.WeightedSamples.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
         }
         else throw new ArgumentException($"unknown sampler '{request.Sampler}'; use none, mcmc or nested");

@@ -61,7 +61,7 @@ public sealed record StudyResult
     public IReadOnlyList<string> Notes { get; init; } = [];
     /// <summary>Posterior samples for writing next to results.json (not serialised into it).</summary>
     [System.Text.Json.Serialization.JsonIgnore]
-    public IReadOnlyList<PosteriorSamples> Samples { get; init; } = [];
+    public IReadOnlyList<PosteriorDraws> Samples { get; init; } = [];
     /// <summary>True when every model's fit converged.</summary>
     public bool AllConverged => Models.All(m => m.Converged);
 }
