@@ -22,7 +22,7 @@ internal static class FitCommand
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
-        var cols = new Option<string[]>("--col") { Description = "Column mapping ROLE=NAME[:UNIT] (roles id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band); repeatable.", AllowMultipleArgumentsPerToken = false };
+        var catalogOptions = new CatalogOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -38,18 +38,22 @@ internal static class FitCommand
         var profile = new Option<string?>("--profile") { Description = "Parameter to profile (writes profile_MODEL_NAME.csv)." };
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
         OneOf(sampler, "--sampler", "none", "mcmc", "nested");
+        var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
+        var steps = new Option<int>("--steps") { Description = "MCMC: steps per walker.", DefaultValueFactory = _ => 3000 };
+        var live = new Option<int>("--live-points") { Description = "Nested sampling: live points.", DefaultValueFactory = _ => 400 };
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
         var sbLimit = new Option<double?>("--sb-limit") { Description = "Survey surface-brightness limit μ < MU (mag/arcsec²), modelled as a truncation." };
         var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
-        var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024).", DefaultValueFactory = _ => 96 };
+        var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
         command.Arguments.Add(catalog);
-        foreach (var o in new Option[] { cols, models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        catalogOptions.AddTo(command);
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -77,13 +81,13 @@ internal static class FitCommand
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 string samplerName = parse.GetValue(sampler) ?? "none";
-                if (samplerName != "none")
-                    throw new InputException($"--sampler {samplerName} is not available in this build yet; use --sampler none (maximum likelihood with Hessian or --bootstrap intervals)");
+                int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
+                if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
 
                 string path = parse.GetValue(catalog)!;
                 folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(parse.GetValue(cols)) });
+                var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
                 var observables = ObservablesBuilder.Build(load.Sample, PhotometryOptions.Default).Observables;
                 if (nFolds > observables.Count) nFolds = 0;
                 var result = FitStudy.Run(new FitRequest
@@ -100,11 +104,17 @@ internal static class FitCommand
                     ProfileParameter = parse.GetValue(profile),
                     Expected = expected,
                     Sampler = samplerName,
+                    Walkers = nWalkers,
+                    Steps = nSteps,
+                    LivePoints = nLive,
+                    ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
                 }, new FitProgressReporter(context));
 
                 AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
                 AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
                 AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
+                foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
+                    AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
                 foreach (var p in result.Profiles)
                     AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
                 folder.Commit();

@@ -34,6 +34,14 @@ internal static class FitTables
         return sb.ToString();
     }
 
+    /// <summary>Nested-sampling weighted samples as CSV: the free parameters, log_likelihood, log_weight.</summary>
+    public static string SamplesCsv(PosteriorDraws s)
+    {
+        var sb = new StringBuilder(string.Join(',', s.ParameterNames) + ",log_likelihood,log_weight\n");
+        foreach (var row in s.Rows) sb.Append(string.Join(',', row.Select(R))).Append('\n');
+        return sb.ToString();
+    }
+
     /// <summary>The ranked table and the statements under it.</summary>
     public static void WriteTable(TextWriter o, StudyResult r)
     {

@@ -102,6 +102,33 @@ public class LikelihoodQuickTimings
             var (gw, gc) = Time(() => b.CosmologyFree(), n);
             Console.WriteLine($"N={n}: fixed {fw:0.000} µs wall / {fc:0.000} µs CPU; free {gw:0.000} µs wall / {gc:0.000} µs CPU");
         }
+        {
+            // The MCMC case of the brief: flat ΛCDM with Ωm free (4 parameters), 2000 galaxies; and the grid alone.
+            var obs = BenchData.SizeSample(2000, seed: 1);
+            var lik = Hypothesis.Create(BenchData.Family, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "omega_m" })).Bind(obs);
+            var th = lik.SuggestStart();
+            var rng = new Random(1);
+            var (w, c) = Time(() => { th[0] = 0.25 + 0.1 * rng.NextDouble(); return lik.LogDensity(th); }, 2000);
+            var family = BenchData.Family;
+            var nodes = Enumerable.Range(0, 96).Select(k => 0.1 * Math.Pow(30, k / 95.0)).ToArray();
+            var da = new double[96];
+            var (gw2, gc2) = Time(() => { var m = family.Create(new Dictionary<string, double> { ["omega_m"] = 0.25 + 0.1 * rng.NextDouble() }); m.AngularDiameterDistances(nodes, da); return da[0]; }, 2000);
+            Console.WriteLine($"N=2000, omega_m free (varying): {w:0.000} µs wall / {c:0.000} µs CPU; world model + 96-node D_A alone: {gw2:0.000} µs wall / {gc2:0.000} µs CPU");
+            // The brief's MCMC target: 32 walkers × 3000 steps on 2000 galaxies, Ωm free.
+            var fit = MaximumLikelihood.Fit(lik);
+            foreach (int par in new[] { 1, -1 })
+            {
+                var start = SizeTest.Inference.Sampling.EnsembleSampler.GaussianBall(lik.Posterior, fit.Theta, Enumerable.Range(0, fit.Theta.Length).Select(j => fit.StandardError(j)).ToArray(), 32, 1);
+                var sampler = new SizeTest.Inference.Sampling.EnsembleSampler(lik.Posterior, new SizeTest.Inference.Sampling.EnsembleSamplerOptions { Walkers = 32, Steps = 3000, Seed = 1, MaxDegreeOfParallelism = par });
+                var pr = System.Diagnostics.Process.GetCurrentProcess();
+                pr.Refresh();
+                var cpu0 = pr.TotalProcessorTime;
+                var clock = System.Diagnostics.Stopwatch.StartNew();
+                var run = sampler.Run(start);
+                pr.Refresh();
+                Console.WriteLine($"MCMC 32×3000, 2000 galaxies, Ωm free, threads {par}: {clock.Elapsed.TotalMilliseconds:0} ms wall, {(pr.TotalProcessorTime - cpu0).TotalMilliseconds:0} ms CPU, {run.Evaluations} evaluations, {run.Diagnostics.Verdict.Summary[..Math.Min(40, run.Diagnostics.Verdict.Summary.Length)]}");
+            }
+        }
         var f = new FitBenchmarks();
         f.Setup();
         var proc = System.Diagnostics.Process.GetCurrentProcess();

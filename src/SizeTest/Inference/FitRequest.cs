@@ -27,8 +27,17 @@ public sealed record FitRequest
     public string? ProfileParameter { get; init; }
     /// <summary>Expected ranges for the evolution parameters.</summary>
     public IReadOnlyList<ExpectedRange> Expected { get; init; } = [];
-    /// <summary>Sampler name recorded in the settings (sampling itself is run by the caller).</summary>
+    /// <summary>Posterior sampling after each fit: <c>none</c>, <c>mcmc</c> (Goodman–Weare ensemble) or <c>nested</c> (Skilling).</summary>
     public string Sampler { get; init; } = "none";
+    /// <summary>MCMC walkers.</summary>
+    public int Walkers { get; init; } = 32;
+    /// <summary>MCMC steps per walker.</summary>
+    public int Steps { get; init; } = 3000;
+    /// <summary>Nested-sampling live points.</summary>
+    public int LivePoints { get; init; } = 400;
+    /// <summary>Makes a chain store for a model's MCMC chain (e.g. a CSV file), or null to keep it in memory only.
+    /// Stores that are <see cref="IDisposable"/> are disposed after the run.</summary>
+    public Func<string, Sampling.IChainStore?>? ChainStoreFactory { get; init; }
 }
 
 /// <summary>Progress of a study: a stage name and how far it is.</summary>

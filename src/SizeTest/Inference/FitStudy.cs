@@ -20,6 +20,7 @@ public static class FitStudy
         var cvs = new List<CrossValidationResult>();
         var profiles = new List<ProfileLikelihoodResult>();
         var required = new List<RequiredEvolution>();
+        var samples = new List<PosteriorDraws>();
         var opt = new OptimizerSettings(Starts: request.Starts, Seed: request.Seed);
         int m = 0;
         foreach (var h in request.Hypotheses)
@@ -29,6 +30,12 @@ public static class FitStudy
             var lik = h.Bind(obs);
             var fit = MaximumLikelihood.Fit(lik, opt);
             var summary = FitSummaries.From(lik, fit);
+            if (request.Sampler != "none")
+            {
+                var (sampled, draws) = PosteriorSampling.Run(lik, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
+                summary = sampled;
+                if (draws is not null) samples.Add(draws);
+            }
             summaries.Add(summary);
 
             foreach (var name in EvolutionParameters)
@@ -72,9 +79,13 @@ public static class FitStudy
         if (first.Observable != ObservableKind.Size)
             notes.Add("surface-brightness dimming uses each model's bolometric exponent (4 for FLRW, dimming_exponent for static models)"
                       + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
+        if (first.Observable == ObservableKind.SurfaceBrightness && request.Hypotheses.All(h => h.FreeParameters.Any(p => p.Name == "sb_evolution")))
+            notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation (--expect sb_evolution=LO:HI), or fit --observable joint");
         if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
         if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
         if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");
+        if (request.Sampler == "mcmc") notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");
+        if (request.Sampler == "nested") notes.Add("parameters are posterior medians with 16th–84th percentiles from nested sampling; Bayes factors use its evidences and depend on the prior bounds");
         return new StudyResult
         {
             Source = request.Source,
@@ -84,8 +95,9 @@ public static class FitStudy
             Seed = request.Seed,
             Settings = new FitSettings(
                 first.Observable switch { ObservableKind.Size => "size", ObservableKind.SurfaceBrightness => "sb", _ => "joint" },
-                first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.GridNodes,
-                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.ProfileParameter, request.Expected, request.Seed),
+                first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(obs.Count),
+                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
+                request.ProfileParameter, request.Expected, request.Seed),
             Models = ranked,
             BayesFactors = ModelComparison.BayesFactors(ranked),
             LikelihoodRatioTests = lrts,
@@ -94,6 +106,7 @@ public static class FitStudy
             CrossValidation = cvs,
             Profiles = profiles,
             Notes = notes,
+            Samples = samples,
         };
     }
 }

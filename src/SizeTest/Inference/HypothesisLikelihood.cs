@@ -120,7 +120,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
 
         if (size && _cosmoFree)
-            _grid = new RedshiftGrid(observables.Z, hypothesis.Nuisance.GridNodes);
+            _grid = new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(_n));
         if (!_cosmoFree)
         {
             var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))

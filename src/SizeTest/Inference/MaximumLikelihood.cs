@@ -79,9 +79,9 @@ public static class MaximumLikelihood
         double[,]? cov = null;
         if (covariance)
         {
-            var (hess, he) = NumericalHessian.Compute(post, theta, min, max, active);
+            var (hess, he) = FiniteDifferenceHessian.Compute(post, theta, min, max, active);
             evals += he;
-            cov = NumericalHessian.Covariance(hess, active);
+            cov = FiniteDifferenceHessian.Covariance(hess, active);
         }
         double ll = likelihood.LogDensity(theta);
         double lp = post.LogDensity(theta);

@@ -11,12 +11,15 @@ namespace SizeTest.Inference;
 /// <param name="Bootstrap">Bootstrap resamples (0: none).</param>
 /// <param name="CrossValidationFolds">Folds (0: none).</param>
 /// <param name="Sampler"><c>none</c>, <c>mcmc</c> or <c>nested</c>.</param>
+/// <param name="Walkers">MCMC walkers (when sampled).</param>
+/// <param name="Steps">MCMC steps (when sampled).</param>
+/// <param name="LivePoints">Nested-sampling live points (when sampled).</param>
 /// <param name="ProfileParameter">Profiled parameter, if any.</param>
 /// <param name="Expected">Expected ranges given by the user.</param>
 /// <param name="Seed">Seed of every random process in the study.</param>
 public sealed record FitSettings(
     string Observable, SelectionLimits Selection, bool SizeSbRelation, double PivotSizeKpc, double DimmingExponentOffset,
-    int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, string Sampler, string? ProfileParameter,
+    int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, string Sampler, int Walkers, int Steps, int LivePoints, string? ProfileParameter,
     IReadOnlyList<ExpectedRange> Expected, int Seed);
 
 /// <summary>
@@ -56,6 +59,9 @@ public sealed record StudyResult
     public IReadOnlyList<ProfileLikelihoodResult> Profiles { get; init; } = [];
     /// <summary>Caveats (degeneracies, conventions) for the reader.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+    /// <summary>Posterior samples for writing next to results.json (not serialised into it).</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public IReadOnlyList<PosteriorDraws> Samples { get; init; } = [];
     /// <summary>True when every model's fit converged.</summary>
     public bool AllConverged => Models.All(m => m.Converged);
 }

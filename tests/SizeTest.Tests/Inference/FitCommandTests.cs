@@ -118,6 +118,33 @@ public sealed class FitCommandTests : IDisposable
     }
 
     [Fact]
+    public void SamplersWriteChainsAndEvidence()
+    {
+        var cat = WriteCatalog(200);
+        var mc = Path.Combine(_dir, "mc");
+        var (exitMc, _, errMc) = Fit(cat, mc, "--models", "eds", "--cv-folds", "0", "--sampler", "mcmc", "--walkers", "16", "--steps", "300");
+        // 300 steps may be too short for the strict diagnostics: either verdict is acceptable, but it must be stated.
+        Assert.True(exitMc is 0 or 1, errMc);
+        Assert.True(File.Exists(Path.Combine(mc, "chains_eds.csv")));
+        using (var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(mc, "results.json"))))
+        {
+            var m = doc.RootElement.GetProperty("models")[0];
+            Assert.Equal(JsonValueKind.Number, m.GetProperty("log_evidence").ValueKind); // Laplace evidence
+            Assert.Contains("ensemble MCMC", m.GetProperty("exit_reason").GetString());
+            var a = m.GetProperty("parameters").GetProperty("size_evolution");
+            Assert.True(a.GetProperty("lo").GetDouble() < a.GetProperty("value").GetDouble() && a.GetProperty("value").GetDouble() < a.GetProperty("hi").GetDouble());
+        }
+        var ns = Path.Combine(_dir, "ns");
+        var (exitNs, _, errNs) = Fit(cat, ns, "--models", "eds,static-linear", "--cv-folds", "0", "--sampler", "nested", "--live-points", "60");
+        Assert.True(exitNs is 0 or 1, errNs);
+        Assert.True(File.Exists(Path.Combine(ns, "samples_eds.csv")));
+        using var d2 = JsonDocument.Parse(File.ReadAllText(Path.Combine(ns, "results.json")));
+        var bf = d2.RootElement.GetProperty("bayes_factors")[0];
+        Assert.False(bf.GetProperty("bic_approximate").GetBoolean()); // from the nested-sampling evidences
+        Assert.Equal(JsonValueKind.Number, bf.GetProperty("ln_b_error").ValueKind);
+    }
+
+    [Fact]
     public void DegenerateFitIsFlaggedAndExitsOne()
     {
         // Freeing h0 for sizes leaves only R0·H0 constrained: the Hessian is singular, so the fit is not converged.

@@ -5,7 +5,7 @@ using Xunit;
 
 namespace SizeTest.Tests.Inference;
 
-public sealed class RealDataTests
+public sealed class RealDataTests(Xunit.Abstractions.ITestOutputHelper output)
 {
     private static readonly string TablePath = Path.Combine(AppContext.BaseDirectory, "Reference", "Inference", "van_der_Wel_2014_ApJ_788_28_Table5_VLuminosity.txt");
 
@@ -47,9 +47,11 @@ public sealed class RealDataTests
             double a = FitSummaries.From(lik, fit).Parameters.Single(p => p.Name == "size_evolution").Value;
             Assert.InRange(a, -1.6, -0.5); // each luminosity bin: between the late- and early-type slopes, with bin noise
             slopes.Add(a);
+            output.WriteLine($"log L_V = {group.Key}: size_evolution = {a:0.000}");
         }
         Assert.Equal(4, slopes.Count); // log L = 9.75, 10.25, 10.75, 11.25 have ≥ 4 redshift bins
         // van der Wel et al. 2014 (abstract): R_eff ∝ (1+z)^−0.75 (late) … (1+z)^−1.48 (early); mixed types at fixed L lie between.
+        output.WriteLine($"mean slope {slopes.Average():0.000}");
         Assert.InRange(slopes.Average(), -1.5, -0.75);
     }
 }

@@ -5,7 +5,7 @@ namespace SizeTest.Inference;
 /// diagonal second difference changes ln p by about ½ (roughly a 1σ step: large enough to beat rounding,
 /// small enough that the quadratic approximation holds), and kept inside the bounds.
 /// </summary>
-public static class NumericalHessian
+public static class FiniteDifferenceHessian
 {
     /// <summary>Smallest eigenvalue the unit-diagonal curvature matrix may have before the fit counts as degenerate.</summary>
     public const double MinScaledEigenvalue = 1e-3;
