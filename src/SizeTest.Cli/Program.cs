@@ -54,6 +54,6 @@ public static class Program
     private static IEnumerable<Command> Verbs(CliContext context)
     {
         // One line per verb; keep the order of the command-line contract in design.md.
-        yield break;
+        yield return RanksCommand.Create(context);
     }
 }
