@@ -54,6 +54,8 @@ public static class Program
     private static IEnumerable<Command> Verbs(CliContext context)
     {
         // One line per verb; keep the order of the command-line contract in design.md.
+        yield return ModelsCommand.Create(context);
+        yield return PredictCommand.Create(context);
         yield return RanksCommand.Create(context);
     }
 }

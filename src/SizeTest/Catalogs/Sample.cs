@@ -12,7 +12,7 @@ public sealed class Sample
     /// <summary>Builds a sample; all present arrays must have length <see cref="Count"/>.</summary>
     public Sample(
         string sourceName,
-        long[] sourceRows,
+        RowNumbers sourceRows,
         double[] z,
         string[]? id = null,
         double[]? zErr = null,
@@ -28,7 +28,9 @@ public sealed class Sample
     {
         Count = z.Length;
         SourceName = sourceName;
-        SourceRows = Check(sourceRows, nameof(sourceRows))!;
+        ArgumentNullException.ThrowIfNull(sourceRows);
+        if (sourceRows.Length != Count) throw new ArgumentException($"sourceRows has {sourceRows.Length} entries, expected {Count}");
+        SourceRows = sourceRows;
         Z = z;
         Id = Check(id, nameof(id));
         ZErr = Check(zErr, nameof(zErr));
@@ -54,8 +56,11 @@ public sealed class Sample
     /// <summary>File (or mock) the sample came from, for messages and the manifest.</summary>
     public string SourceName { get; }
 
-    /// <summary>For each object, its 1-based line (CSV) or row (FITS, VOTable) in the source.</summary>
-    public long[] SourceRows { get; }
+    /// <summary>
+    /// For each object, its 1-based line (CSV) or row (FITS, VOTable) in the source, stored
+    /// compactly as runs (index it like an array; a <c>long[]</c> converts implicitly).
+    /// </summary>
+    public RowNumbers SourceRows { get; }
 
     /// <summary>Object identifiers, if the catalogue had them.</summary>
     public string[]? Id { get; }

@@ -53,6 +53,19 @@ public interface IWorldModel
     /// redshift. <paramref name="result"/> must have the length of <paramref name="z"/>.
     /// </summary>
     void AngularDiameterDistances(ReadOnlySpan<double> z, Span<double> result);
+
+    /// <summary>
+    /// Bolometric Tolman surface-brightness dimming at z in magnitudes,
+    /// 2.5·n·log10(1+z) with n = <see cref="BolometricDimmingExponent"/> (see <see cref="TolmanDimming"/>).
+    /// </summary>
+    double TolmanDimmingMagnitudes(double z) => TolmanDimming.Magnitudes(BolometricDimmingExponent, z);
+
+    /// <summary>
+    /// Angular size θ in arcsec of an object of proper (physical) size <paramref name="sizeKpc"/>
+    /// at redshift z, small-angle θ = ℓ/D_A (static models: D_A = d). +∞ where D_A = 0 (z = 0 in FLRW).
+    /// </summary>
+    double AngularSizeArcsec(double z, double sizeKpc)
+        => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
 }
 
 /// <summary>The distance-like quantities a world model may define.</summary>

@@ -25,4 +25,14 @@ public interface IWorldModelFamily
     /// with a message fit for the user.
     /// </summary>
     IWorldModel Create(IReadOnlyDictionary<string, double> values);
+
+    /// <summary>
+    /// Like <see cref="Create"/> but reports a refused parameter set through
+    /// <paramref name="error"/> (the same message) instead of throwing: the cheap path for
+    /// samplers that meet invalid regions often.
+    /// </summary>
+    bool TryCreate(IReadOnlyDictionary<string, double> values, [System.Diagnostics.CodeAnalysis.NotNullWhen(true)] out IWorldModel? model, [System.Diagnostics.CodeAnalysis.NotNullWhen(false)] out string? error);
+
+    /// <summary>The bolometric surface-brightness dimming law the family implies, in words, e.g. <c>(1+z)^-4</c>.</summary>
+    string DimmingLaw { get; }
 }

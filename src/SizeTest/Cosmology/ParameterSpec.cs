@@ -16,4 +16,11 @@ public sealed record ParameterSpec(string Name, string Symbol, string Unit, doub
 {
     /// <summary>True when <paramref name="value"/> is finite and within [Min, Max].</summary>
     public bool Allows(double value) => double.IsFinite(value) && value >= Min && value <= Max;
+
+    /// <summary>
+    /// True when <see cref="Default"/> is NaN, meaning "not given: derived from the other
+    /// parameters" (e.g. <c>omega_lambda</c> not given = flat, 1 − Ωm − Ωr). Passing NaN for
+    /// such a parameter is the same as leaving it out.
+    /// </summary>
+    public bool DefaultIsDerived => double.IsNaN(Default);
 }

@@ -1,0 +1,12 @@
+namespace SizeTest.Catalogs;
+
+/// <summary>Catalogue file formats.</summary>
+public enum CatalogFormat
+{
+    /// <summary>Delimited text: CSV, TSV, other single-character delimiters, or runs of whitespace.</summary>
+    Text,
+    /// <summary>FITS binary table (BINTABLE extension).</summary>
+    Fits,
+    /// <summary>IVOA VOTable (TABLEDATA, BINARY or BINARY2 serialisation).</summary>
+    VoTable,
+}

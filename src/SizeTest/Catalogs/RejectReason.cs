@@ -1,0 +1,34 @@
+namespace SizeTest.Catalogs;
+
+/// <summary>Why a catalogue row was rejected.</summary>
+public enum RejectReason
+{
+    /// <summary>A mapped role has no value in this row (empty cell, null token, TNULL, null flag, NaN).</summary>
+    MissingValue,
+    /// <summary>The cell (or the whole line) cannot be read as the role's type.</summary>
+    Unparsable,
+    /// <summary>Redshift not greater than zero.</summary>
+    NonPositiveRedshift,
+    /// <summary>Angular size not greater than zero.</summary>
+    NonPositiveSize,
+    /// <summary>An error (1σ) below zero.</summary>
+    NegativeError,
+    /// <summary>A value outside the physically possible or plausible range (infinite, θ ≥ π rad, |mag| &gt; 50 such as 99 sentinels, z &gt; the maximum).</summary>
+    OutOfRange,
+}
+
+/// <summary>Text forms of <see cref="RejectReason"/> used in the reject log and reports.</summary>
+public static class RejectReasons
+{
+    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>.</summary>
+    public static string Code(this RejectReason reason) => reason switch
+    {
+        RejectReason.MissingValue => "missing value",
+        RejectReason.Unparsable => "unparsable",
+        RejectReason.NonPositiveRedshift => "z <= 0",
+        RejectReason.NonPositiveSize => "non-positive size",
+        RejectReason.NegativeError => "negative error",
+        RejectReason.OutOfRange => "out of range",
+        _ => reason.ToString(),
+    };
+}
