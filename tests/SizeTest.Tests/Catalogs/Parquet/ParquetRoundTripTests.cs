@@ -56,7 +56,7 @@ public sealed class ParquetRoundTripTests : IDisposable
     [Fact]
     public void SampleRoundTripsWithAnglesInArcsec()
     {
-        var sample = new Sample("synthetic", [1, 2], [0.5, 1.5], id: ["a", "b"], thetaRad: [1e-5, 2e-6], thetaErrRad: [1e-7, 2e-8],
+        var sample = new Sample("synthetic", RowNumbers.Range(1, 2), [0.5, 1.5], id: ["a", "b"], thetaRad: [1e-5, 2e-6], thetaErrRad: [1e-7, 2e-8],
             mu: [22, 23], muErr: [0.1, 0.2], band: ["r", "i"]);
         var path = PathOf("sample.parquet");
         ParquetTableWriter.WriteSample(path, sample);
