@@ -56,6 +56,7 @@ public static class Program
         // One line per verb; keep the order of the command-line contract in design.md.
         yield return ModelsCommand.Create(context);
         yield return PredictCommand.Create(context);
+        yield return InspectCommand.Create(context);
         yield return RanksCommand.Create(context);
     }
 }

@@ -23,7 +23,9 @@ public sealed class Observables
         double[]? extinction = null,
         double[]? mag = null,
         double[]? magErr = null,
-        Catalogs.SizeDefinition? sizeDefinition = null)
+        Catalogs.SizeDefinition? sizeDefinition = null,
+        double[]? isophote = null,
+        double? sersicIndex = null)
     {
         Count = z.Length;
         Z = z;
@@ -36,6 +38,8 @@ public sealed class Observables
         Mag = Check(mag, nameof(mag));
         MagErr = Check(magErr, nameof(magErr));
         SizeDefinition = sizeDefinition ?? Catalogs.SizeDefinition.Effective;
+        Isophote = Check(isophote, nameof(isophote));
+        SersicIndex = sersicIndex;
     }
 
     private double[]? Check(double[]? a, string name) =>
@@ -73,6 +77,16 @@ public sealed class Observables
 
     /// <summary>How the size was measured.</summary>
     public Catalogs.SizeDefinition SizeDefinition { get; }
+
+    /// <summary>
+    /// For isophotal sizes: the isophote level per object in AB mag/arcsec² (the sample's
+    /// isophote after its band's zero-point offset); null for other size definitions.
+    /// Use with <see cref="SersicIndex"/> and <see cref="IsophotalSize"/>.
+    /// </summary>
+    public double[]? Isophote { get; }
+
+    /// <summary>Sérsic index n assumed for the profiles (isophotal sizes, SB conversions), or null.</summary>
+    public double? SersicIndex { get; }
 
     /// <summary>
     /// The simplest conversion: no K-correction, no extinction, sizes converted to ln θ

@@ -1,0 +1,83 @@
+using System.CommandLine;
+using SizeTest.Catalogs;
+using SizeTest.Common;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// The catalogue options shared by verbs that read a catalogue (<c>inspect</c>, and for
+/// <c>fit</c>/<c>simulate</c> to reuse): <c>--col</c>, <c>--hdu</c>, <c>--size-def</c>, <c>--keep</c>,
+/// <c>--catalog-format</c>, <c>--delimiter</c>. <see cref="ToLoadOptions"/> turns them into
+/// <see cref="CatalogLoadOptions"/>.
+/// </summary>
+internal sealed class CatalogOptions
+{
+    public Option<string[]> Col { get; } = new("--col")
+    {
+        Description = "Map a column to a role: ROLE=NAME[:UNIT] (repeatable). Roles: id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band. Units: arcsec (default), mas, arcmin, deg, rad; frac or % for relative errors.",
+        Arity = ArgumentArity.ZeroOrMore,
+        AllowMultipleArgumentsPerToken = false,
+    };
+
+    public Option<string?> Hdu { get; } = new("--hdu")
+    {
+        Description = "Which table: a FITS HDU index (1 = first extension) or EXTNAME, or a VOTable TABLE index (1-based) or name. Default: the first table.",
+    };
+
+    public Option<string?> SizeDef { get; } = new("--size-def")
+    {
+        Description = "How the sizes were measured: effective (default), petrosian, isophotal:LEVEL (mag/arcsec2) or fwhm.",
+    };
+
+    public Option<string[]> Keep { get; } = new("--keep")
+    {
+        Description = "Keep a further numeric column by name (repeatable), e.g. a K-correction or extinction column.",
+        Arity = ArgumentArity.ZeroOrMore,
+        AllowMultipleArgumentsPerToken = false,
+    };
+
+    public Option<string?> CatalogFormat { get; } = new("--catalog-format")
+    {
+        Description = "The catalogue's format if detection is wrong: csv (any delimited text), fits or votable.",
+    };
+
+    public Option<string?> Delimiter { get; } = new("--delimiter")
+    {
+        Description = "Text catalogues: the field delimiter (a character, or 'tab', or 'space' for runs of blanks). Default: detected.",
+    };
+
+    public void AddTo(Command command)
+    {
+        command.Options.Add(Col);
+        command.Options.Add(Hdu);
+        command.Options.Add(SizeDef);
+        command.Options.Add(Keep);
+        command.Options.Add(CatalogFormat);
+        command.Options.Add(Delimiter);
+    }
+
+    /// <summary>Builds load options; throws <see cref="InputException"/> on a bad value.</summary>
+    public CatalogLoadOptions ToLoadOptions(ParseResult parse)
+    {
+        var mapping = ColumnMapping.FromOptions(parse.GetValue(Col), parse.GetValue(SizeDef), parse.GetValue(Keep));
+        CatalogFormat? format = null;
+        if (parse.GetValue(CatalogFormat) is { } f)
+        {
+            if (!CatalogReaders.TryParseFormat(f, out var cf)) throw new InputException($"unknown catalogue format '{f}'; use csv, fits or votable");
+            format = cf;
+        }
+        char? delimiter = parse.GetValue(Delimiter) switch
+        {
+            null => null,
+            "tab" or "\\t" => '\t',
+            "space" or "whitespace" or " " => ' ',
+            { Length: 1 } d => d[0],
+            var d => throw new InputException($"--delimiter '{d}' must be one character, 'tab' or 'space'"),
+        };
+        return new CatalogLoadOptions
+        {
+            Mapping = mapping,
+            Reader = new ReaderOptions { Format = format, Table = parse.GetValue(Hdu), Delimiter = delimiter },
+        };
+    }
+}

@@ -1,0 +1,197 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using SizeTest.Catalogs;
+using SizeTest.Common;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// <c>sizetest inspect CATALOG</c>: what SizeTest sees in a catalogue — format and table, the
+/// columns with type/unit/UCD, the column mapping and why, row counts with the main reject
+/// reasons, and per-role statistics. Optionally writes the reject log.
+/// </summary>
+internal static class InspectCommand
+{
+    public static Command Create(CliContext context)
+    {
+        var catalog = new Argument<string>("catalog") { Description = "The catalogue file (CSV/TSV/text, FITS binary table or VOTable)." };
+        var cat = new CatalogOptions();
+        var format = CliOptions.Format();
+        var rejectLog = new Option<string?>("--reject-log") { Description = "Write the rejected rows (row,column,value,reason,detail) to this CSV file." };
+        var force = new Option<bool>("--force") { Description = "Replace an existing reject log." };
+        var cmd = new Command("inspect", "Show how a catalogue is read: format, columns, column mapping, accepted and rejected rows, per-role statistics.");
+        cmd.Arguments.Add(catalog);
+        cat.AddTo(cmd);
+        cmd.Options.Add(format);
+        cmd.Options.Add(rejectLog);
+        cmd.Options.Add(force);
+        cmd.SetAction(parse =>
+        {
+            try
+            {
+                var path = parse.GetValue(catalog)!;
+                var logPath = parse.GetValue(rejectLog);
+                bool overwrite = parse.GetValue(force);
+                if (logPath is not null && File.Exists(logPath) && !overwrite)
+                    throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
+                var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
+                var load = CatalogLoader.Load(path, options);
+                if (context.IsInteractive && load.RowsRead >= 1_000_000) context.Err.WriteLine();
+                if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
+                switch (parse.GetValue(format))
+                {
+                    case "json": WriteJson(context.Out, path, load); break;
+                    case "csv": WriteCsv(context.Out, load); break;
+                    default: WriteTable(context.Out, path, load, logPath); break;
+                }
+                return ExitCodes.Success;
+            }
+            catch (Exception ex)
+            {
+                return context.Fail(ex);
+            }
+        });
+        return cmd;
+    }
+
+    private static void Progress(CliContext context, long rows)
+    {
+        if (rows < 1_000_000) return;
+        if (context.IsInteractive) context.Err.Write($"\rsizetest: read {rows:N0} rows");
+        else context.Err.WriteLine($"sizetest: read {rows.ToString(CultureInfo.InvariantCulture)} rows");
+    }
+
+    private static string F(double v) => double.IsNaN(v) ? "" : v.ToString("G6", CultureInfo.InvariantCulture);
+
+    private static string FormatName(SampleLoad load) => load.Format switch
+    {
+        CatalogFormat.Fits => "FITS binary table",
+        CatalogFormat.VoTable => "VOTable",
+        _ => "delimited text",
+    };
+
+    private static void WriteTable(TextWriter o, string path, SampleLoad load, string? logPath)
+    {
+        o.WriteLine($"catalogue: {path}");
+        o.WriteLine($"format:    {FormatName(load)}{(load.Table is null ? "" : $", {load.Table}")}");
+        foreach (var n in load.LayoutNotes) o.WriteLine($"           {n}");
+        o.WriteLine();
+        o.WriteLine($"columns ({load.Columns.Count}):");
+        var rows = load.Columns.Select(c => new[] { c.Name, c.Kind.ToString().ToLowerInvariant(), c.NativeType, c.Unit ?? "", c.Ucd ?? "", c.Description ?? "" }).ToList();
+        WriteGrid(o, ["name", "type", "stored as", "unit", "UCD", "description"], rows);
+        o.WriteLine();
+        o.WriteLine("mapping:");
+        foreach (var line in load.DetectionReport) o.WriteLine($"  {line}");
+        o.WriteLine();
+        o.WriteLine($"rows: {load.RowsRead} read, {load.Accepted} accepted, {load.Rejected} rejected");
+        foreach (var (reason, count) in load.RejectLog.CountsByReason().Take(5))
+        {
+            var example = load.RejectLog.Entries.First(e => e.Reason == reason);
+            o.WriteLine($"  {count,8} {reason.Code()} (first: row {example.Row}{(example.Column.Length > 0 ? $", column '{example.Column}'" : "")}{(example.Detail.Length > 0 ? $", {example.Detail}" : "")})");
+        }
+        if (logPath is not null) o.WriteLine($"  reject log written to {logPath}");
+        else if (load.Rejected > 0) o.WriteLine("  (write them all with --reject-log PATH)");
+        o.WriteLine();
+        o.WriteLine("accepted rows by role:");
+        var stats = load.Statistics().Select(s => new[]
+        {
+            s.Role.Name(), s.Column, s.Unit, s.Count.ToString(CultureInfo.InvariantCulture), s.NullCount.ToString(CultureInfo.InvariantCulture),
+            F(s.Min), F(s.Median), F(s.Max),
+        }).ToList();
+        WriteGrid(o, ["role", "column", "unit", "count", "nulls", "min", "median", "max"], stats);
+    }
+
+    private static void WriteGrid(TextWriter o, string[] header, List<string[]> rows)
+    {
+        var widths = header.Select((h, i) => Math.Min(40, Math.Max(h.Length, rows.Count == 0 ? 0 : rows.Max(r => r[i].Length)))).ToArray();
+        string Line(string[] cells) => "  " + string.Join("  ", cells.Select((c, i) => (c.Length > widths[i] ? c[..(widths[i] - 1)] + "…" : c).PadRight(widths[i]))).TrimEnd();
+        o.WriteLine(Line(header));
+        foreach (var r in rows) o.WriteLine(Line(r));
+    }
+
+    private static void WriteCsv(TextWriter o, SampleLoad load)
+    {
+        o.WriteLine("role,column,unit,count,null_count,min,median,max");
+        foreach (var s in load.Statistics())
+            o.WriteLine(string.Join(",", RejectLog.Quote(s.Role.Name()), RejectLog.Quote(s.Column), RejectLog.Quote(s.Unit),
+                s.Count.ToString(CultureInfo.InvariantCulture), s.NullCount.ToString(CultureInfo.InvariantCulture),
+                R(s.Min), R(s.Median), R(s.Max)));
+    }
+
+    private static string R(double v) => double.IsNaN(v) ? "" : v.ToString("R", CultureInfo.InvariantCulture);
+
+    private static void WriteJson(TextWriter o, string path, SampleLoad load)
+    {
+        using var ms = new MemoryStream();
+        using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
+        {
+            void Num(string name, double v) { if (double.IsFinite(v)) w.WriteNumber(name, v); else w.WriteNull(name); }
+            w.WriteStartObject();
+            w.WriteString("file", path);
+            w.WriteString("format", load.Format switch { CatalogFormat.Fits => "fits", CatalogFormat.VoTable => "votable", _ => "text" });
+            if (load.Table is null) w.WriteNull("table"); else w.WriteString("table", load.Table);
+            w.WriteStartArray("layout");
+            foreach (var n in load.LayoutNotes) w.WriteStringValue(n);
+            w.WriteEndArray();
+            w.WriteStartArray("columns");
+            foreach (var c in load.Columns)
+            {
+                w.WriteStartObject();
+                w.WriteString("name", c.Name);
+                w.WriteString("type", c.Kind.ToString().ToLowerInvariant());
+                w.WriteString("stored_as", c.NativeType);
+                if (c.Unit is null) w.WriteNull("unit"); else w.WriteString("unit", c.Unit);
+                if (c.Ucd is null) w.WriteNull("ucd"); else w.WriteString("ucd", c.Ucd);
+                if (c.Description is null) w.WriteNull("description"); else w.WriteString("description", c.Description);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteStartArray("mapping");
+            foreach (var role in ColumnRoles.All)
+            {
+                if (!load.Mapping.Roles.TryGetValue(role, out var b)) continue;
+                w.WriteStartObject();
+                w.WriteString("role", role.Name());
+                w.WriteString("column", b.ColumnName);
+                w.WriteString("unit", b.Unit);
+                w.WriteString("unit_source", b.UnitReason);
+                w.WriteBoolean("relative", b.IsRelative);
+                w.WriteString("reason", b.Reason);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteString("size_definition", SizeDefinitions.Format(load.Mapping.SizeDefinition));
+            w.WriteStartArray("kept_columns");
+            foreach (var (name, _) in load.Mapping.Kept) w.WriteStringValue(name);
+            w.WriteEndArray();
+            w.WriteStartArray("detection");
+            foreach (var line in load.DetectionReport) w.WriteStringValue(line);
+            w.WriteEndArray();
+            w.WriteNumber("rows_read", load.RowsRead);
+            w.WriteNumber("accepted", load.Accepted);
+            w.WriteNumber("rejected", load.Rejected);
+            w.WriteStartObject("reject_reasons");
+            foreach (var (reason, count) in load.RejectLog.CountsByReason()) w.WriteNumber(reason.Code(), count);
+            w.WriteEndObject();
+            w.WriteStartArray("statistics");
+            foreach (var s in load.Statistics())
+            {
+                w.WriteStartObject();
+                w.WriteString("role", s.Role.Name());
+                w.WriteString("column", s.Column);
+                w.WriteString("unit", s.Unit);
+                w.WriteNumber("count", s.Count);
+                w.WriteNumber("null_count", s.NullCount);
+                Num("min", s.Min);
+                Num("median", s.Median);
+                Num("max", s.Max);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        o.WriteLine(Encoding.UTF8.GetString(ms.ToArray()));
+    }
+}
