@@ -69,6 +69,7 @@ internal static class InspectCommand
     {
         CatalogFormat.Fits => "FITS binary table",
         CatalogFormat.VoTable => "VOTable",
+        CatalogFormat.Parquet => "Parquet",
         _ => "delimited text",
     };
 

@@ -30,7 +30,7 @@ public sealed class ParquetTableReader : IDisposable
             if (field is DataField df && !df.IsArray && df.MaxRepetitionLevel == 0)
             {
                 var kind = KindOf(df.ClrType);
-                columns.Add(new ParquetColumnInfo(df.Name, kind, df.IsNullable, df.ClrType.Name));
+                columns.Add(new ParquetColumnInfo(df.Name, kind, df.IsNullable, TypeName(df.ClrType)));
                 if (kind != ParquetValueKind.Unsupported) _fields[df.Name] = df;
             }
             else
@@ -87,6 +87,12 @@ public sealed class ParquetTableReader : IDisposable
         stream.ReadExactly(tail);
         return head.SequenceEqual("PAR1"u8) && tail.SequenceEqual("PAR1"u8);
     }
+
+    private static string TypeName(Type t) =>
+        t == typeof(double) ? "double" : t == typeof(float) ? "float" : t == typeof(int) ? "int32" : t == typeof(long) ? "int64"
+        : t == typeof(short) ? "int16" : t == typeof(sbyte) ? "int8" : t == typeof(byte) ? "uint8" : t == typeof(ushort) ? "uint16"
+        : t == typeof(uint) ? "uint32" : t == typeof(ulong) ? "uint64" : t == typeof(bool) ? "boolean"
+        : t == typeof(string) || t == typeof(ReadOnlyMemory<char>) ? "string" : t.Name;
 
     private static ParquetValueKind KindOf(Type t) =>
         t == typeof(double) || t == typeof(float) ? ParquetValueKind.Real
