@@ -1,4 +1,5 @@
 using System.Collections;
+using System.Runtime.CompilerServices;
 
 namespace SizeTest.Catalogs;
 
@@ -8,6 +9,7 @@ namespace SizeTest.Catalogs;
 /// (16 bytes per run instead of 8 bytes per object). Reads like a <c>long[]</c>: <c>rows[i]</c>,
 /// <see cref="Length"/>; a <c>long[]</c> converts to it implicitly.
 /// </summary>
+[CollectionBuilder(typeof(RowNumbers), nameof(Create))]
 public sealed class RowNumbers : IReadOnlyList<long>
 {
     private readonly long[] _runStart;   // first row number of each run
@@ -58,6 +60,14 @@ public sealed class RowNumbers : IReadOnlyList<long>
     {
         if (count < 0) throw new ArgumentOutOfRangeException(nameof(count));
         return count == 0 ? new RowNumbers([], [0]) : new RowNumbers([first], [0, count]);
+    }
+
+    /// <summary>Builds from a span of numbers (lets a collection expression <c>[1, 2, 3]</c> make a <see cref="RowNumbers"/>).</summary>
+    public static RowNumbers Create(ReadOnlySpan<long> rows)
+    {
+        var b = new Builder();
+        foreach (var r in rows) b.Add(r);
+        return b.Build();
     }
 
     /// <summary>Converts an array of row numbers.</summary>
