@@ -122,6 +122,8 @@ internal static class PredictCommand
             json.WriteEndObject();
             json.WriteNumber("size_kpc", sizeKpc);
             json.WriteNumber("dimming_exponent", model.BolometricDimmingExponent);
+            if (model is FlrwModel flrw && double.IsFinite(flrw.AgeGyr)) json.WriteNumber("age_gyr", flrw.AgeGyr);
+            else json.WriteNull("age_gyr");
             json.WriteStartArray("rows");
             foreach (var row in rows)
             {
@@ -142,7 +144,8 @@ internal static class PredictCommand
     private static void WriteTable(TextWriter output, IWorldModel model, double sizeKpc, double[][] rows)
     {
         string parameters = string.Join(", ", model.ParameterValues.Select(p => FormattableString.Invariant($"{p.Key} = {p.Value:G6}")));
-        output.WriteLine(FormattableString.Invariant($"World model {model.Name} ({parameters}); theta for {sizeKpc:G6} kpc; dimming (1+z)^-{model.BolometricDimmingExponent:G4} in mag; empty = not defined."));
+        string age = model is FlrwModel flrw ? FormattableString.Invariant($"; age {flrw.AgeGyr:G6} Gyr") : "";
+        output.WriteLine(FormattableString.Invariant($"World model {model.Name} ({parameters}){age}; theta for {sizeKpc:G6} kpc; dimming (1+z)^-{model.BolometricDimmingExponent:G4} in mag; empty = not defined."));
         var cells = new List<string[]> { Columns };
         foreach (var row in rows)
             cells.Add(row.Select((v, c) => double.IsFinite(v) ? v.ToString(c == 0 ? "G10" : "G7", CultureInfo.InvariantCulture) : "").ToArray());

@@ -20,7 +20,8 @@ public static class Program
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {
-            stderr.WriteLine($"sizetest: {parse.Errors[0].Message} (see 'sizetest {CommandPath(parse)} --help')");
+            var message = string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+            stderr.WriteLine($"sizetest: {message} (see 'sizetest {CommandPath(parse)} --help')");
             return ExitCodes.BadInput;
         }
         try
@@ -57,6 +58,7 @@ public static class Program
         yield return ModelsCommand.Create(context);
         yield return PredictCommand.Create(context);
         yield return InspectCommand.Create(context);
+        yield return FitCommand.Create(context);
         yield return RanksCommand.Create(context);
     }
 }

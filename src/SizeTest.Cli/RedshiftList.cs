@@ -12,7 +12,7 @@ namespace SizeTest.Cli;
 internal static class RedshiftList
 {
     /// <summary>Most redshifts one <c>--z</c> may produce.</summary>
-    public const int MaxCount = 10_000_000;
+    public const int MaxCount = 1_000_000;
 
     /// <summary>Parses <paramref name="text"/>; bad input throws <see cref="InputException"/> naming the option.</summary>
     public static double[] Parse(string text, string option = "--z")

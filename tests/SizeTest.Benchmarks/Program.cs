@@ -9,5 +9,9 @@ namespace SizeTest.Benchmarks;
 public static class Program
 {
     /// <summary>Entry point; arguments go to BenchmarkDotNet's switcher.</summary>
-    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    public static void Main(string[] args)
+    {
+        if (args is ["--distance-timings"]) { DistanceTimings.Run(Console.Out); return; } // quick CPU-time harness (DistanceTimings.cs)
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
 }

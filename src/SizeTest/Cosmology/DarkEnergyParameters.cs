@@ -29,8 +29,13 @@ internal sealed record DarkEnergyParameters(double H0, double OmegaM, double Ome
 
     /// <summary>Resolves defaults (flat when <paramref name="ode"/> is null), checks, and throws on error.</summary>
     public static DarkEnergyParameters Resolve(string model, double h0, double om, double? ode, double w0, double wa, double t, double nEff, bool includeWa)
+        => TryResolve(model, h0, om, ode, w0, wa, t, nEff, includeWa, out string? error) ?? throw new ArgumentException(error);
+
+    /// <summary>Resolves and checks; returns null and a message for a refused set (no exception).</summary>
+    public static DarkEnergyParameters? TryResolve(string model, double h0, double om, double? ode, double w0, double wa, double t, double nEff, bool includeWa, out string? error)
     {
-        if (Check(model, h0, om, ode, w0, wa, t, nEff) is { } error) throw new ArgumentException(error);
+        error = Check(model, h0, om, ode, w0, wa, t, nEff);
+        if (error is not null) return null;
         double r = PhysicalConstants.RadiationDensity(t, nEff, h0);
         double de = ode ?? 1.0 - om - r;
         var values = new Dictionary<string, double>

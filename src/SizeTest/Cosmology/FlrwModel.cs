@@ -1,6 +1,7 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
+using System.Runtime.Intrinsics.X86;
 
 namespace SizeTest.Cosmology;
 
@@ -38,7 +39,7 @@ public abstract class FlrwModel : IWorldModel
     private const int IntegralNodes = 10;
     private const int TransverseNodes = 11;
     internal const int Stride = 11;
-    private const double TailTolerance = 1e-12;
+    private const double TailTolerance = 1e-10;
 
     private readonly IReadOnlyDictionary<string, double> _parameterValues;
     private volatile ChebyshevPanelTable? _comoving;
@@ -239,6 +240,7 @@ public abstract class FlrwModel : IWorldModel
     public void LookbackTimes(ReadOnlySpan<double> z, Span<double> result)
     {
         double zMax = CheckAll(z, result);
+        if (z.Length == 0) return;
         if (HasClosedForm)
         {
             for (int i = 0; i < z.Length; i++) result[i] = HubbleTime * LookbackIntegral(z[i]);
@@ -253,6 +255,7 @@ public abstract class FlrwModel : IWorldModel
     private void Evaluate(ReadOnlySpan<double> z, Span<double> result, Output output)
     {
         double zMax = CheckAll(z, result);
+        if (z.Length == 0) return;
         if (HasClosedForm)
         {
             for (int i = 0; i < z.Length; i++)
@@ -266,6 +269,19 @@ public abstract class FlrwModel : IWorldModel
         }
         double xMax = Log1P(zMax);
         bool transverse = output != Output.Comoving && OmegaCurvature != 0;
+        if (transverse && z.Length < TransverseTableMinimumCount && (_transverse is null || _transverse.XMax < xMax))
+        {
+            // Few redshifts on a curved model without a transverse table yet (the fitter's
+            // case): sin/sinh per redshift is cheaper than building that table.
+            EvaluateTable(EnsureComoving(xMax), TableKind.Comoving, z, result, 1.0, divide: false, multiply: false);
+            for (int i = 0; i < z.Length; i++)
+            {
+                double dm = HubbleDistance * TransverseFromComoving(result[i]);
+                double zp = 1.0 + z[i];
+                result[i] = output == Output.AngularDiameter ? dm / zp : output == Output.Luminosity ? dm * zp : dm;
+            }
+            return;
+        }
         var table = transverse ? EnsureTransverse(xMax) : EnsureComoving(xMax);
         EvaluateTable(table, transverse ? TableKind.Transverse : TableKind.Comoving, z, result, HubbleDistance, output == Output.AngularDiameter, output == Output.Luminosity);
     }
@@ -294,28 +310,13 @@ public abstract class FlrwModel : IWorldModel
     private void EvaluateTable(ChebyshevPanelTable table, TableKind kind, ReadOnlySpan<double> z, Span<double> result, double scale, bool divide, bool multiply)
     {
         if (table.Stride != Stride) throw new InvalidOperationException("Table stride does not match the evaluator.");
+        int i = 0;
+        if (!DisableVectorPath && Avx2.IsSupported && Fma.IsSupported && z.Length >= 4)
+            i = EvaluateTableAvx2(table, kind, z, result, scale, divide, multiply);
         int last = table.PanelCount - 1;
         double invH = table.InversePanelWidth;
         ref double c0 = ref MemoryMarshal.GetReference(table.Monomials);
-        int n = z.Length, i = 0;
-        Span<double> xs = stackalloc double[4];
-        ref double zr = ref MemoryMarshal.GetReference(z);
-        ref double rr = ref MemoryMarshal.GetReference(result);
-        for (; i + 4 <= n; i += 4)
-        {
-            var zv = Vector256.LoadUnsafe(ref zr, (nuint)i);
-            var u = Vector256<double>.One + zv;
-            var x = Vector256.Log(u) + (zv - (u - Vector256<double>.One)) / u;
-            x.StoreUnsafe(ref MemoryMarshal.GetReference(xs));
-            for (int l = 0; l < 4; l++)
-            {
-                double zi = Unsafe.Add(ref zr, i + l);
-                double xl = xs[l];
-                double value = scale * (xl < SmallX ? SmallValue(kind, xl) : Panel(ref c0, xl, invH, last));
-                Unsafe.Add(ref rr, i + l) = divide ? value / (1.0 + zi) : multiply ? value * (1.0 + zi) : value;
-            }
-        }
-        for (; i < n; i++)
+        for (; i < z.Length; i++)
         {
             double zi = z[i];
             double xi = Log1P(zi);
@@ -323,6 +324,71 @@ public abstract class FlrwModel : IWorldModel
             result[i] = divide ? value / (1.0 + zi) : multiply ? value * (1.0 + zi) : value;
         }
     }
+
+    /// <summary>
+    /// AVX2 version of the hot loop, four redshifts per step: vector log, 32-bit panel
+    /// indices, one gather per coefficient, Estrin's scheme in vector FMAs. Returns the
+    /// number of elements done (a multiple of 4); the caller finishes the rest.
+    /// </summary>
+    private unsafe int EvaluateTableAvx2(ChebyshevPanelTable table, TableKind kind, ReadOnlySpan<double> z, Span<double> result, double scale, bool divide, bool multiply)
+    {
+        int n = z.Length & ~3;
+        var one = Vector256<double>.One;
+        var two = Vector256.Create(2.0);
+        var invH = Vector256.Create(table.InversePanelWidth);
+        var scaleV = Vector256.Create(scale);
+        var small = Vector256.Create(SmallX);
+        var lastV = Vector128.Create(table.PanelCount - 1);
+        var strideV = Vector128.Create(Stride);
+        fixed (double* cp = table.Monomials)
+        fixed (double* zp = z)
+        fixed (double* rp = result)
+        {
+            for (int i = 0; i < n; i += 4)
+            {
+                var zv = Avx.LoadVector256(zp + i);
+                var u = one + zv;
+                var inv = one / u;
+                var x = Vector256.Log(u) + (zv - (u - one)) * inv;
+                if (Vector256.LessThanAny(x, small))
+                {
+                    for (int l = 0; l < 4; l++)
+                    {
+                        double zi = zp[i + l], xi = Log1P(zi);
+                        double value = scale * (xi < SmallX ? SmallValue(kind, xi) : Panel(ref *cp, xi, table.InversePanelWidth, table.PanelCount - 1));
+                        rp[i + l] = divide ? value / (1.0 + zi) : multiply ? value * (1.0 + zi) : value;
+                    }
+                    continue;
+                }
+                var v = x * invH;
+                var j = Sse41.Min(Avx.ConvertToVector128Int32WithTruncation(v), lastV);
+                var t = Fma.MultiplyAdd(two, v - Avx.ConvertToVector256Double(j), -one);
+                var idx = Sse41.MultiplyLow(j, strideV);
+                var t2 = t * t;
+                var t4 = t2 * t2;
+                var t8 = t4 * t4;
+                var q0 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 1, idx, 8), t, Avx2.GatherVector256(cp, idx, 8));
+                var q1 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 3, idx, 8), t, Avx2.GatherVector256(cp + 2, idx, 8));
+                var q2 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 5, idx, 8), t, Avx2.GatherVector256(cp + 4, idx, 8));
+                var q3 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 7, idx, 8), t, Avx2.GatherVector256(cp + 6, idx, 8));
+                var q4 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 9, idx, 8), t, Avx2.GatherVector256(cp + 8, idx, 8));
+                var r0 = Fma.MultiplyAdd(q1, t2, q0);
+                var r1 = Fma.MultiplyAdd(q3, t2, q2);
+                var r2 = Fma.MultiplyAdd(Avx2.GatherVector256(cp + 10, idx, 8), t2, q4);
+                var p = Fma.MultiplyAdd(r2, t8, Fma.MultiplyAdd(r1, t4, r0)) * scaleV;
+                if (divide) p *= inv;
+                else if (multiply) p *= u;
+                Avx.Store(rp + i, p);
+            }
+        }
+        return n;
+    }
+
+    /// <summary>Below this many redshifts a curved model maps χ by sin/sinh per redshift instead of building the D_M table.</summary>
+    private const int TransverseTableMinimumCount = 4096;
+
+    /// <summary>For benchmarks and tests: forces the scalar hot loop.</summary>
+    internal static bool DisableVectorPath;
 
     private enum TableKind { Comoving, Transverse, Lookback }
 

@@ -24,7 +24,8 @@ public sealed class W0WaCdmModel : FlrwModel
     {
     }
 
-    private W0WaCdmModel(DarkEnergyParameters p)
+    /// <summary>Builds from parameters already resolved and checked (the family's no-exception path).</summary>
+    internal W0WaCdmModel(DarkEnergyParameters p)
         : base("w0wacdm", p.H0, p.OmegaM, p.OmegaR, p.OmegaDe, p.Values, p.Flat ? 0.0 : null)
     {
         _r = OmegaRadiation;

@@ -22,7 +22,8 @@ public sealed class WCdmModel : FlrwModel
     {
     }
 
-    private WCdmModel(DarkEnergyParameters p)
+    /// <summary>Builds from parameters already resolved and checked (the family's no-exception path).</summary>
+    internal WCdmModel(DarkEnergyParameters p)
         : base("wcdm", p.H0, p.OmegaM, p.OmegaR, p.OmegaDe, p.Values, p.Flat ? 0.0 : null)
     {
         _r = OmegaRadiation;

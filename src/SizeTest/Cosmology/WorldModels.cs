@@ -43,8 +43,8 @@ public static class WorldModels
         (ReadOnlySpan<double> v, out string? error) =>
         {
             double? ode = double.IsNaN(v[2]) ? null : v[2];
-            error = DarkEnergyParameters.Check("wcdm", v[0], v[1], ode, v[3], 0.0, v[4], v[5]);
-            return error is null ? new WCdmModel(v[0], v[1], v[3], ode, v[4], v[5]) : null;
+            var p = DarkEnergyParameters.TryResolve("wcdm", v[0], v[1], ode, v[3], 0.0, v[4], v[5], includeWa: false, out error);
+            return p is null ? null : new WCdmModel(p);
         });
 
     /// <summary>CPL dark energy w(a) = w0 + wa(1 − a).</summary>
@@ -54,8 +54,8 @@ public static class WorldModels
         (ReadOnlySpan<double> v, out string? error) =>
         {
             double? ode = double.IsNaN(v[2]) ? null : v[2];
-            error = DarkEnergyParameters.Check("w0wacdm", v[0], v[1], ode, v[3], v[4], v[5], v[6]);
-            return error is null ? new W0WaCdmModel(v[0], v[1], v[3], v[4], ode, v[5], v[6]) : null;
+            var p = DarkEnergyParameters.TryResolve("w0wacdm", v[0], v[1], ode, v[3], v[4], v[5], v[6], includeWa: true, out error);
+            return p is null ? null : new W0WaCdmModel(p);
         });
 
     /// <summary>Einstein–de Sitter (Ωm = 1).</summary>

@@ -103,6 +103,16 @@ public sealed class PredictCommandTests
     }
 
     [Fact]
+    public void JsonReportsTheAgeOfExpandingModelsOnly()
+    {
+        using var flrw = JsonDocument.Parse(CliRunner.Run("predict", "--z", "1", "--format", "json").Out);
+        // Flat ΛCDM 0.3, H0 = 70: age 13.46698 Gyr (astropy 5.2.1, science-checks §2.2).
+        Assert.Equal(13.46698, flrw.RootElement.GetProperty("age_gyr").GetDouble(), 4);
+        using var stat = JsonDocument.Parse(CliRunner.Run("predict", "--model", "tired-light", "--z", "1", "--format", "json").Out);
+        Assert.Equal(JsonValueKind.Null, stat.RootElement.GetProperty("age_gyr").ValueKind);
+    }
+
+    [Fact]
     public void TableFormatIsTheDefaultAndReadable()
     {
         var (exit, output, _) = CliRunner.Run("predict", "--z", "1,2");

@@ -25,7 +25,7 @@ public sealed class PredictRedshiftListTests
     [InlineData("1:2:3:4")]
     [InlineData("2:1:0.1")]
     [InlineData("1:2:-0.1")]
-    [InlineData("0:100:0.000001")]
+    [InlineData("0:100:0.00001")]
     public void RejectsMalformedInput(string text)
     {
         var ex = Assert.Throws<InputException>(() => RedshiftList.Parse(text));

@@ -20,3 +20,15 @@ public sealed class RootCommandTests
         Assert.Contains("SizeTest", output);
     }
 }
+
+public sealed class ParseErrorMessageTests
+{
+    [Fact]
+    public void BadFormatValueGivesOneLine()
+    {
+        // The value list of --format spans several lines in System.CommandLine's own message; we fold it.
+        var (exit, _, err) = CliRunner.Run("predict", "--z", "1", "--format", "xml");
+        Assert.Equal(2, exit);
+        Assert.Single(err.Trim().Split('\n'));
+    }
+}

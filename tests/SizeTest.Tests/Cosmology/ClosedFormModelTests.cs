@@ -79,3 +79,60 @@ public sealed class MilneTests : FlrwContractTests
         Assert.True(TestMath.Relative(m.AgeGyr, 13.96846) < 1e-6);
     }
 }
+
+/// <summary>Independent closed forms checked against the general ΛCDM integral.</summary>
+public sealed class ClosedFormCrossChecks
+{
+    [Theory]
+    [InlineData(0.3)]
+    [InlineData(1.0)]
+    [InlineData(2.0)]
+    public void MatterOnlyModelsFollowMattig(double omegaM)
+    {
+        // Λ = 0: D_L = (D_H/q0²)[q0 z + (q0 − 1)(√(1 + 2q0 z) − 1)], q0 = Ωm/2 (Mattig 1958; science-checks §1.4).
+        var m = new LambdaCdmModel(70, omegaM, 0.0);
+        double q0 = omegaM / 2;
+        foreach (double z in new[] { 0.1, 1.0, 3.0, 9.0 })
+        {
+            double mattig = m.HubbleDistance / (q0 * q0) * (q0 * z + (q0 - 1) * (Math.Sqrt(1 + 2 * q0 * z) - 1));
+            Assert.True(TestMath.Relative(m.LuminosityDistance(z), mattig) < 1e-11, $"Ωm = {omegaM}, z = {z}");
+        }
+    }
+
+    [Fact]
+    public void EinsteinDeSitterAndMilneAreTheLimitsOfGeneralLambdaCdm()
+    {
+        // Ωm = 1, ΩΛ = 0 is EdS; Ωm = ΩΛ = 0 is Milne (definitions): the table path must reproduce the closed forms.
+        var eds = new EinsteinDeSitterModel();
+        var milne = new MilneModel();
+        var lEds = new LambdaCdmModel(70, 1.0, 0.0);
+        var lMilne = new LambdaCdmModel(70, 0.0, 0.0);
+        foreach (double z in new[] { 0.01, 0.5, 1.25, 4.0, 100.0 })
+        {
+            Assert.True(TestMath.Relative(lEds.AngularDiameterDistance(z), eds.AngularDiameterDistance(z)) < 1e-10);
+            Assert.True(TestMath.Relative(lMilne.AngularDiameterDistance(z), milne.AngularDiameterDistance(z)) < 1e-10);
+            Assert.True(TestMath.Relative(lMilne.LookbackTime(z), milne.LookbackTime(z)) < 1e-10);
+        }
+    }
+
+    [Theory]
+    // θ of 10 kpc in arcsec, EdS and Milne (astropy 5.2.1, science-checks §2.6).
+    [InlineData(0.5, 1.96843, 1.73382)]
+    [InlineData(2.0, 1.70928, 1.08364)]
+    [InlineData(5.0, 2.44165, 0.99076)]
+    public void AngularSizesMatchTable(double z, double edsTheta, double milneTheta)
+    {
+        Assert.True(TestMath.Relative(new EinsteinDeSitterModel().AngularSizeArcsec(z, 10), edsTheta) < 5e-6);
+        Assert.True(TestMath.Relative(new MilneModel().AngularSizeArcsec(z, 10), milneTheta) < 5e-6);
+        // EdS θ_min = 1.62546″ at z = 1.25 (science-checks §2.6).
+        Assert.True(TestMath.Relative(new EinsteinDeSitterModel().AngularSizeArcsec(1.25, 10), 1.62546) < 5e-6);
+    }
+
+    [Fact]
+    public void EmptyInputIsFine()
+    {
+        var m = new LambdaCdmModel();
+        m.AngularDiameterDistances([], []);
+        m.LookbackTimes([], []);
+    }
+}

@@ -52,4 +52,26 @@ public sealed class ExpansionHistoryTests
         foreach (double z in new[] { 0.5, 2.0, 2.3, 2.6, 5.0 })
             Assert.True(TestMath.Relative(m.AngularDiameterDistance(z), m.AngularDiameterDistanceByQuadrature(z)) < 1e-9, $"z = {z}");
     }
+
+    [Fact]
+    public void ExactAndSampledChecksAgreeOnRandomLambdaCdmSets()
+    {
+        var rng = new Random(99);
+        int refused = 0;
+        for (int k = 0; k < 2000; k++)
+        {
+            double r = rng.NextDouble() < 0.5 ? 0 : 1e-4 * rng.NextDouble();
+            double m = 2 * rng.NextDouble(), l = -1 + 4 * rng.NextDouble();
+            double kk = 1 - r - m - l;
+            double? exact = ExpansionHistoryCheck.PolynomialZero(r, m, kk, l);
+            double? sampled = ExpansionHistoryCheck.SampledZero(x => { double y = Math.Exp(x); return ((r * y + m) * y + kk) * y * y + l; });
+            Assert.Equal(exact is null, sampled is null);
+            if (exact is { } ze && sampled is { } zs)
+            {
+                refused++;
+                Assert.True(Math.Abs(ze - zs) <= 1e-6 * (1 + ze), $"Ωr={r} Ωm={m} ΩΛ={l}: {ze} vs {zs}");
+            }
+        }
+        Assert.True(refused > 100);
+    }
 }

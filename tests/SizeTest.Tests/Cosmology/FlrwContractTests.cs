@@ -69,6 +69,21 @@ public abstract class FlrwContractTests : WorldModelContractTests
     }
 
     [Fact]
+    public void VectorAndScalarHotLoopsAgree()
+    {
+        var m = Flrw;
+        var rng = new Random(11);
+        var z = Enumerable.Range(0, 5003).Select(_ => Math.Pow(10, -4 + 5 * rng.NextDouble())).ToArray();
+        var fast = new double[z.Length];
+        var plain = new double[z.Length];
+        m.AngularDiameterDistances(z, fast);
+        FlrwModel.DisableVectorPath = true; // harmless to tests running meanwhile: both loops give the same numbers
+        try { m.AngularDiameterDistances(z, plain); }
+        finally { FlrwModel.DisableVectorPath = false; }
+        for (int i = 0; i < z.Length; i++) Assert.Equal(plain[i], fast[i], 1e-13 * plain[i]);
+    }
+
+    [Fact]
     public void LuminosityAndTransverseVectorsAgreeWithScalars()
     {
         var m = Flrw;

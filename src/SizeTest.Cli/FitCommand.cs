@@ -1,0 +1,152 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text;
+using SizeTest.Catalogs;
+using SizeTest.Common;
+using SizeTest.Cosmology;
+using SizeTest.Inference;
+using SizeTest.Photometry;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// <c>sizetest fit CATALOG --out DIR</c>: loads a catalogue, fits every requested world model with its nuisance
+/// model, compares them and writes <c>DIR/results.json</c>, <c>DIR/results.csv</c> and <c>DIR/rejects.csv</c>;
+/// prints the ranked table. Exit 1 when a fit did not converge (outputs are still written), 2 on bad input.
+/// </summary>
+internal static class FitCommand
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static Command Create(CliContext context)
+    {
+        var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
+        var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
+        var cols = new Option<string[]>("--col") { Description = "Column mapping ROLE=NAME[:UNIT] (roles id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band); repeatable.", AllowMultipleArgumentsPerToken = false };
+        var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
+        var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
+        OneOf(observable, "--observable", "size", "sb", "joint");
+        var relation = new Option<bool>("--size-sb-relation") { Description = "Joint only: link μ to log10 physical size with a free Kormendy-type slope (kormendy_slope), so the SB test is at matched physical size." };
+        var pivot = new Option<double>("--pivot-kpc") { Description = "Pivot physical size of the size–SB relation, kpc (mu0 is the SB at this size).", DefaultValueFactory = _ => 5.0 };
+        var dimOffset = new Option<double>("--dimming-offset") { Description = "Added to every model's bolometric dimming exponent: −1 for f_ν (AB) band SB without a bandwidth K-correction, +1 for f_λ; 0 when bolometric or K-corrected.", DefaultValueFactory = _ => 0.0 };
+        var free = new Option<string[]>("--free") { Description = "Parameter(s) to fit (e.g. omega_m); repeatable or comma-separated." };
+        var fix = new Option<string[]>("--fix") { Description = "NAME=VALUE: hold a parameter fixed (e.g. size_evolution=0); repeatable." };
+        var prior = new Option<string[]>("--prior") { Description = "NAME=MEAN,SD: free with a Gaussian prior (truncated to the bounds); repeatable." };
+        var bound = new Option<string[]>("--bound") { Description = "NAME=LO:HI: narrower bounds for a free parameter; repeatable." };
+        var bootstrap = new Option<int>("--bootstrap") { Description = "Bootstrap resamples per model (0: none).", DefaultValueFactory = _ => 0 };
+        var folds = new Option<int>("--cv-folds") { Description = "Folds of the cross-validated log predictive density (0: none).", DefaultValueFactory = _ => 5 };
+        var profile = new Option<string?>("--profile") { Description = "Parameter to profile (writes profile_MODEL_NAME.csv)." };
+        var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
+        OneOf(sampler, "--sampler", "none", "mcmc", "nested");
+        var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
+        var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
+        var sbLimit = new Option<double?>("--sb-limit") { Description = "Survey surface-brightness limit μ < MU (mag/arcsec²), modelled as a truncation." };
+        var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
+        var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
+        var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
+        var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024).", DefaultValueFactory = _ => 96 };
+        var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
+        var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
+        var format = CliOptions.Format();
+        command.Arguments.Add(catalog);
+        foreach (var o in new Option[] { cols, models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+            command.Options.Add(o);
+
+        command.SetAction(parse =>
+        {
+            OutputFolder? folder = null;
+            try
+            {
+                var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
+                var nuisance = new NuisanceModel(kind,
+                    new SelectionLimits(parse.GetValue(sbLimit), parse.GetValue(magLimit), parse.GetValue(minSize)),
+                    parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
+                nuisance.Validate();
+                var overrides = new ParameterOverrides(
+                    Free: FitOptionParsing.List(parse.GetValue(free)).ToHashSet(StringComparer.Ordinal),
+                    Fixed: FitOptionParsing.Fixed(parse.GetValue(fix)),
+                    Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
+                    Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
+                var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
+                var families = FitOptionParsing.List([parse.GetValue(models) ?? ""]).Distinct().Select(n =>
+                    WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
+                if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
+                CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+                int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
+                if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
+                if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
+                if (nStarts < 1) throw new InputException("--starts must be at least 1");
+                string samplerName = parse.GetValue(sampler) ?? "none";
+                if (samplerName != "none")
+                    throw new InputException($"--sampler {samplerName} is not available in this build yet; use --sampler none (maximum likelihood with Hessian or --bootstrap intervals)");
+                var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+
+                string path = parse.GetValue(catalog)!;
+                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
+                var load = CatalogLoader.Load(path, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(parse.GetValue(cols)) });
+                var observables = ObservablesBuilder.Build(load.Sample, PhotometryOptions.Default).Observables;
+                if (nFolds > observables.Count) nFolds = 0;
+                var result = FitStudy.Run(new FitRequest
+                {
+                    Hypotheses = hypotheses,
+                    Observables = observables,
+                    Source = path,
+                    RowsRead = load.RowsRead,
+                    Rejected = load.Rejected,
+                    Seed = parse.GetValue(seed),
+                    Starts = nStarts,
+                    Bootstrap = nBoot,
+                    CrossValidationFolds = nFolds,
+                    ProfileParameter = parse.GetValue(profile),
+                    Expected = expected,
+                    Sampler = samplerName,
+                }, new FitProgressReporter(context));
+
+                AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
+                AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
+                AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
+                foreach (var p in result.Profiles)
+                    AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
+                folder.Commit();
+                folder = null;
+
+                switch (parse.GetValue(format))
+                {
+                    case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
+                    case "csv": context.Out.Write(FitTables.Csv(result)); break;
+                    default: FitTables.WriteTable(context.Out, result); break;
+                }
+                if (!result.AllConverged)
+                {
+                    var bad = result.Models.Where(m => !m.Converged).Select(m => $"{m.Name} ({m.ExitReason})");
+                    context.Err.WriteLine($"sizetest: fit did not converge for {string.Join("; ", bad)}; results were written to {parse.GetValue(output)} but are not reliable");
+                    return ExitCodes.AnalysisFailed;
+                }
+                return ExitCodes.Success;
+            }
+            catch (Exception ex)
+            {
+                folder?.Abandon();
+                return context.Fail(ex);
+            }
+        });
+        return command;
+    }
+
+    // A validator rather than AcceptOnlyFromAmong: its message is one line.
+    private static void OneOf(Option<string> option, string name, params string[] allowed) =>
+        option.Validators.Add(result =>
+        {
+            string? v = result.GetValueOrDefault<string>();
+            if (v is null || !allowed.Contains(v)) result.AddError($"{name} must be one of {string.Join(", ", allowed)}; got '{v}'.");
+        });
+
+    private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
+    {
+        var known = families.SelectMany(f => f.Parameters.Select(p => p.Name))
+            .Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
+        foreach (var name in o.Names.Concat(expected.Select(e => e.Parameter)).Concat(profile is null ? [] : [profile]))
+            if (!known.Contains(name))
+                throw new InputException($"unknown parameter '{name}' for these models and --observable; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
+    }
+}

@@ -1,0 +1,93 @@
+using System.Globalization;
+using SizeTest.Common;
+using SizeTest.Inference;
+
+namespace SizeTest.Cli;
+
+/// <summary>Parses the <c>fit</c> verb's NAME=VALUE style options into inference types. No physics.</summary>
+internal static class FitOptionParsing
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Splits repeated and comma-separated values (<c>--free omega_m,h0 --free w0</c>).</summary>
+    public static IEnumerable<string> List(IEnumerable<string>? values) =>
+        (values ?? []).SelectMany(v => v.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+
+    /// <summary>Parses a finite number or throws naming the option.</summary>
+    public static double Number(string text, string option, string what)
+    {
+        if (double.TryParse(text.Trim(), NumberStyles.Float, Inv, out var v) && double.IsFinite(v)) return v;
+        throw new InputException($"{option}: '{text}' is not a number ({what}); write e.g. {option} {Example(option)}");
+    }
+
+    private static string Example(string option) => option switch
+    {
+        "--fix" => "size_evolution=0",
+        "--prior" => "omega_m=0.3,0.02",
+        "--expect" => "size_evolution=-1.5:-0.7",
+        "--bound" => "omega_m=0.05:1",
+        _ => "VALUE",
+    };
+
+    private static (string Name, string Value) NameValue(string text, string option)
+    {
+        int eq = text.IndexOf('=');
+        if (eq <= 0 || eq == text.Length - 1)
+            throw new InputException($"{option}: '{text}' is not NAME=VALUE; write e.g. {option} {Example(option)}");
+        return (text[..eq].Trim(), text[(eq + 1)..].Trim());
+    }
+
+    /// <summary><c>--fix NAME=VALUE</c>.</summary>
+    public static Dictionary<string, double> Fixed(IEnumerable<string>? values)
+    {
+        var d = new Dictionary<string, double>(StringComparer.Ordinal);
+        foreach (var t in values ?? [])
+        {
+            var (n, v) = NameValue(t, "--fix");
+            d[n] = Number(v, "--fix", "the fixed value");
+        }
+        return d;
+    }
+
+    /// <summary><c>--prior NAME=MEAN,SD</c>.</summary>
+    public static Dictionary<string, (double Mean, double Sd)> Priors(IEnumerable<string>? values)
+    {
+        var d = new Dictionary<string, (double, double)>(StringComparer.Ordinal);
+        foreach (var t in values ?? [])
+        {
+            var (n, v) = NameValue(t, "--prior");
+            var parts = v.Split(',');
+            if (parts.Length != 2) throw new InputException($"--prior: '{t}' needs NAME=MEAN,SD; write e.g. --prior omega_m=0.3,0.02");
+            double mean = Number(parts[0], "--prior", "the prior mean"), sd = Number(parts[1], "--prior", "the prior standard deviation");
+            if (!(sd > 0)) throw new InputException($"--prior: the standard deviation in '{t}' must be positive");
+            d[n] = (mean, sd);
+        }
+        return d;
+    }
+
+    /// <summary><c>NAME=LO:HI</c> for <c>--expect</c> and <c>--bound</c>.</summary>
+    public static Dictionary<string, (double Lo, double Hi)> Ranges(IEnumerable<string>? values, string option)
+    {
+        var d = new Dictionary<string, (double, double)>(StringComparer.Ordinal);
+        foreach (var t in values ?? [])
+        {
+            var (n, v) = NameValue(t, option);
+            // Split at the first ':' that is not a leading minus sign's neighbour: "-1.5:-0.7".
+            int colon = v.IndexOf(':', 1);
+            if (colon <= 0) throw new InputException($"{option}: '{t}' needs NAME=LO:HI; write e.g. {option} {Example(option)}");
+            double lo = Number(v[..colon], option, "the lower end"), hi = Number(v[(colon + 1)..], option, "the upper end");
+            if (!(lo < hi)) throw new InputException($"{option}: in '{t}' the lower end must be below the upper end");
+            d[n] = (lo, hi);
+        }
+        return d;
+    }
+
+    /// <summary>The observable kind from <c>--observable</c>.</summary>
+    public static ObservableKind Observable(string text) => text switch
+    {
+        "size" => ObservableKind.Size,
+        "sb" => ObservableKind.SurfaceBrightness,
+        "joint" => ObservableKind.Joint,
+        _ => throw new InputException($"--observable must be size, sb or joint; got '{text}'"),
+    };
+}

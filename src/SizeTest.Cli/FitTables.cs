@@ -1,0 +1,64 @@
+using System.Globalization;
+using System.Text;
+using SizeTest.Inference;
+
+namespace SizeTest.Cli;
+
+/// <summary>Text renderings of a <see cref="StudyResult"/>: the ranked table for people and results.csv.</summary>
+internal static class FitTables
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    private static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : "";
+
+    /// <summary>results.csv: one row per (model, parameter), models in rank order.</summary>
+    public static string Csv(StudyResult r)
+    {
+        var sb = new StringBuilder();
+        sb.Append("rank,model,parameter,value,lo,hi,fixed,unit,log_likelihood,k,n,aic,aicc,bic,delta_aic,delta_bic,akaike_weight,converged\n");
+        int rank = 0;
+        foreach (var m in r.Models)
+        {
+            rank++;
+            foreach (var p in m.Parameters)
+                sb.Append(Inv, $"{rank},{m.Name},{p.Name},{R(p.Value)},{R(p.Lo)},{R(p.Hi)},{(p.Fixed ? "true" : "false")},{p.Unit},{R(m.LogLikelihood)},{m.K},{m.N},{R(m.Aic)},{R(m.Aicc)},{R(m.Bic)},{R(m.DeltaAic)},{R(m.DeltaBic)},{R(m.AkaikeWeight)},{(m.Converged ? "true" : "false")}\n");
+        }
+        return sb.ToString();
+    }
+
+    /// <summary>A profile curve as CSV.</summary>
+    public static string ProfileCsv(ProfileLikelihoodResult p)
+    {
+        var sb = new StringBuilder($"{p.Parameter},log_likelihood,converged\n");
+        foreach (var pt in p.Points) sb.Append(Inv, $"{R(pt.Value)},{R(pt.LogLikelihood)},{(pt.Converged ? "true" : "false")}\n");
+        return sb.ToString();
+    }
+
+    /// <summary>The ranked table and the statements under it.</summary>
+    public static void WriteTable(TextWriter o, StudyResult r)
+    {
+        o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable}; seed {r.Seed}");
+        o.WriteLine();
+        string evo = r.Settings.Observable == "sb" ? "sb_evolution" : "size_evolution";
+        o.WriteLine($"{"rank",4}  {"model",-16} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",8} {"BIC",11} {"ΔBIC",8} {"w(AIC)",7}  {evo + " (68%)",-28} converged");
+        int rank = 0;
+        foreach (var m in r.Models)
+        {
+            rank++;
+            var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
+            string ev = e is null ? "" : e.Fixed ? $"{e.Value.ToString("0.000", Inv)} (fixed)" : $"{e.Value.ToString("0.000", Inv)} [{e.Lo.ToString("0.000", Inv)}, {e.Hi.ToString("0.000", Inv)}]";
+            o.WriteLine(string.Create(Inv, $"{rank,4}  {m.Name,-16} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,8:0.00} {m.Bic,11:0.00} {m.DeltaBic,8:0.00} {m.AkaikeWeight,7:0.000}  {ev,-28} {(m.Converged ? "yes" : "NO")}"));
+        }
+        o.WriteLine();
+        foreach (var b in r.BayesFactors)
+            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.00}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
+        foreach (var q in r.RequiredEvolution) o.WriteLine(q.Verdict);
+        foreach (var c in r.CrossValidation)
+            o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
+        foreach (var b in r.Bootstrap)
+            o.WriteLine($"{b.Model}: bootstrap of {b.Resamples} resamples ({b.Failed} failed): " + string.Join(", ", b.Intervals.Select(i => string.Create(Inv, $"{i.Name} {i.Median:0.###} [{i.Lo:0.###}, {i.Hi:0.###}]"))));
+        foreach (var p in r.Profiles)
+            o.WriteLine(string.Create(Inv, $"{p.Model}: profile likelihood of {p.Parameter}: 68% interval [{p.Lo:0.###}, {p.Hi:0.###}]"));
+        foreach (var n in r.Notes) o.WriteLine($"note: {n}");
+    }
+}

@@ -1,0 +1,38 @@
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference;
+
+/// <summary>What a fit study needs: the hypotheses, the sample and its counts, and the work to do.</summary>
+public sealed record FitRequest
+{
+    /// <summary>Hypotheses to fit and compare (one per world model).</summary>
+    public required IReadOnlyList<Hypothesis> Hypotheses { get; init; }
+    /// <summary>The observables.</summary>
+    public required Observables Observables { get; init; }
+    /// <summary>Source name for the record.</summary>
+    public string Source { get; init; } = "";
+    /// <summary>Rows read (defaults to the number of objects).</summary>
+    public long? RowsRead { get; init; }
+    /// <summary>Rows rejected by the loader.</summary>
+    public long Rejected { get; init; }
+    /// <summary>Seed of every random process.</summary>
+    public int Seed { get; init; } = 1;
+    /// <summary>Optimiser starts per model.</summary>
+    public int Starts { get; init; } = 4;
+    /// <summary>Bootstrap resamples per model (0: none).</summary>
+    public int Bootstrap { get; init; }
+    /// <summary>Cross-validation folds (0: none).</summary>
+    public int CrossValidationFolds { get; init; }
+    /// <summary>Parameter to profile in every model where it is free, or null.</summary>
+    public string? ProfileParameter { get; init; }
+    /// <summary>Expected ranges for the evolution parameters.</summary>
+    public IReadOnlyList<ExpectedRange> Expected { get; init; } = [];
+    /// <summary>Sampler name recorded in the settings (sampling itself is run by the caller).</summary>
+    public string Sampler { get; init; } = "none";
+}
+
+/// <summary>Progress of a study: a stage name and how far it is.</summary>
+/// <param name="Stage">What is running (e.g. "bootstrap lcdm").</param>
+/// <param name="Done">Units done.</param>
+/// <param name="Total">Units in this stage.</param>
+public sealed record FitProgress(string Stage, int Done, int Total);

@@ -1,0 +1,45 @@
+namespace SizeTest.Inference;
+
+/// <summary>Turns a maximum-likelihood fit into the reported <see cref="ModelFitSummary"/>.</summary>
+public static class FitSummaries
+{
+    /// <summary>
+    /// Every parameter with its value and 68% interval (Hessian ±1σ, clipped to the bounds; fixed parameters have
+    /// lo = hi = value), ln L̂, k, n and AIC, AICc, BIC. Comparison fields are filled by <see cref="ModelComparison.Rank"/>.
+    /// </summary>
+    public static ModelFitSummary From(HypothesisLikelihood likelihood, MaximumLikelihoodResult fit, string? name = null)
+    {
+        ArgumentNullException.ThrowIfNull(likelihood);
+        ArgumentNullException.ThrowIfNull(fit);
+        var h = likelihood.Hypothesis;
+        var values = h.FullValues(fit.Theta);
+        var list = new List<ParameterEstimate>();
+        int j = 0;
+        for (int i = 0; i < h.Parameters.Count; i++)
+        {
+            var p = h.Parameters[i];
+            if (!p.IsFree) { list.Add(new ParameterEstimate(p.Name, p.Value, p.Value, p.Value, true, p.Spec.Unit)); continue; }
+            double se = fit.StandardError(j);
+            double v = values[i];
+            double lo = double.IsFinite(se) ? Math.Max(p.Min, v - se) : double.NaN;
+            double hi = double.IsFinite(se) ? Math.Min(p.Max, v + se) : double.NaN;
+            if (fit.AtBound[j]) { lo = v <= p.Min + 1e-6 * (p.Max - p.Min) ? p.Min : lo; hi = v >= p.Max - 1e-6 * (p.Max - p.Min) ? p.Max : hi; }
+            list.Add(new ParameterEstimate(p.Name, v, lo, hi, false, p.Spec.Unit));
+            j++;
+        }
+        int k = h.K, n = likelihood.Count;
+        return new ModelFitSummary
+        {
+            Name = name ?? h.Label,
+            Parameters = list,
+            LogLikelihood = fit.LogLikelihood,
+            K = k,
+            N = n,
+            Aic = InformationCriteria.Aic(fit.LogLikelihood, k),
+            Aicc = InformationCriteria.Aicc(fit.LogLikelihood, k, n),
+            Bic = InformationCriteria.Bic(fit.LogLikelihood, k, n),
+            Converged = fit.Converged,
+            ExitReason = fit.ExitReason,
+        };
+    }
+}

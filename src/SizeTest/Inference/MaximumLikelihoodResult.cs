@@ -1,0 +1,21 @@
+namespace SizeTest.Inference;
+
+/// <summary>The outcome of a maximum-likelihood (or, with Gaussian priors, maximum-posterior) fit.</summary>
+/// <param name="Theta">Best free-parameter vector.</param>
+/// <param name="LogLikelihood">ln L at <paramref name="Theta"/> (data only).</param>
+/// <param name="LogPosterior">Objective at the maximum (ln L + ln prior).</param>
+/// <param name="Converged">Whether the search converged: the optimiser met its tolerance, a restart from the best
+/// point did not improve it, and the Hessian of the free (interior) parameters is negative definite.</param>
+/// <param name="ExitReason">Why it stopped, in words.</param>
+/// <param name="Evaluations">Likelihood evaluations used.</param>
+/// <param name="StartsAgreeing">How many of the starts reached the best maximum (within the agreement tolerance).</param>
+/// <param name="Starts">Number of starts.</param>
+/// <param name="Covariance">Covariance from the inverse negative Hessian (null when it is not positive definite).</param>
+/// <param name="AtBound">For each free parameter, whether the maximum lies on (within 1e-6 of the range of) a bound.</param>
+public sealed record MaximumLikelihoodResult(
+    double[] Theta, double LogLikelihood, double LogPosterior, bool Converged, string ExitReason, int Evaluations,
+    int StartsAgreeing, int Starts, double[,]? Covariance, bool[] AtBound)
+{
+    /// <summary>Standard error of free parameter j (NaN without a covariance).</summary>
+    public double StandardError(int j) => Covariance is null ? double.NaN : Math.Sqrt(Math.Max(0, Covariance[j, j]));
+}

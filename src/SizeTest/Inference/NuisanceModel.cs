@@ -1,0 +1,45 @@
+namespace SizeTest.Inference;
+
+/// <summary>
+/// The non-cosmological part of a hypothesis: which observable is fitted, whether a size–surface-brightness
+/// relation links them, the dimming-exponent convention and the selection cuts.
+/// </summary>
+/// <param name="Observable">Size, surface brightness or both.</param>
+/// <param name="Selection">Selection cuts modelled as truncations.</param>
+/// <param name="SizeSbRelation">Joint mode only: μ depends on log10 physical size with slope <c>kormendy_slope</c>,
+/// so the SB test is done at matched physical size (μ0 is the SB at <paramref name="PivotSizeKpc"/>).</param>
+/// <param name="PivotSizeKpc">Reference physical size of the size–SB relation, kpc.</param>
+/// <param name="DimmingExponentOffset">Added to the world model's bolometric dimming exponent n; use −1 for
+/// f_ν (AB) band magnitudes and +1 for f_λ ones when the K-correction does not already remove the bandwidth
+/// term (Tolman 1930; common practice). 0 (default) means bolometric or K-corrected to the rest band.</param>
+/// <param name="GridNodes">Redshift-grid nodes for ln D_A (16–1024).</param>
+public sealed record NuisanceModel(
+    ObservableKind Observable,
+    SelectionLimits? Selection = null,
+    bool SizeSbRelation = false,
+    double PivotSizeKpc = 5.0,
+    double DimmingExponentOffset = 0.0,
+    int GridNodes = 96)
+{
+    /// <summary>The selection cuts (never null).</summary>
+    public SelectionLimits Cuts => Selection ?? SelectionLimits.None;
+
+    /// <summary>Checks consistency; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    public void Validate()
+    {
+        var s = Cuts;
+        if (Observable == ObservableKind.Size && (s.SbLimit is not null || s.MagLimit is not null))
+            throw new ArgumentException("a surface-brightness or magnitude limit needs --observable sb or joint (a size-only fit has no surface-brightness model)");
+        if (Observable == ObservableKind.SurfaceBrightness && (s.MinThetaArcsec is not null || s.MagLimit is not null))
+            throw new ArgumentException("a minimum size or magnitude limit needs --observable size or joint (a surface-brightness-only fit has no size model)");
+        int cuts = (s.SbLimit is null ? 0 : 1) + (s.MagLimit is null ? 0 : 1) + (s.MinThetaArcsec is null ? 0 : 1);
+        if (cuts > 2)
+            throw new ArgumentException("at most two selection cuts can be modelled together (the joint truncation is bivariate); drop one of --sb-limit, --mag-limit, --min-size");
+        if (s.MinThetaArcsec is { } t && !(t > 0))
+            throw new ArgumentException("--min-size must be positive (arcsec)");
+        if (SizeSbRelation && Observable != ObservableKind.Joint)
+            throw new ArgumentException("the size–surface-brightness relation needs --observable joint");
+        if (!(PivotSizeKpc > 0)) throw new ArgumentException("the pivot size must be positive (kpc)");
+        if (GridNodes is < 16 or > 1024) throw new ArgumentException("the redshift grid needs 16 to 1024 nodes");
+    }
+}

@@ -1,0 +1,51 @@
+using SizeTest.Cosmology;
+
+namespace SizeTest.Inference;
+
+/// <summary>
+/// The non-cosmological parameters of the size and surface-brightness models, with the
+/// names used in <c>results.json</c>. Ranges are wide physical bounds; fits may narrow them.
+/// </summary>
+public static class NuisanceParameters
+{
+    /// <summary>R0: physical size at z = 0 in kpc, in R(z) = R0 (1+z)^a. Degenerate with H0 for sizes (only R0·H0 is constrained).</summary>
+    public static readonly ParameterSpec R0Kpc = new("r0_kpc", "R0", "kpc", 5.0, 1e-4, 1e4,
+        "physical size at z = 0, R(z) = R0 (1+z)^a");
+
+    /// <summary>a: size-evolution exponent in R ∝ (1+z)^a (a &lt; 0: smaller in the past).</summary>
+    public static readonly ParameterSpec SizeEvolution = new("size_evolution", "a", "", 0.0, -6.0, 6.0,
+        "size evolution exponent a in R ∝ (1+z)^a");
+
+    /// <summary>Intrinsic log-normal size scatter in dex (σ_ln = ln 10 · dex).</summary>
+    public static readonly ParameterSpec ScatterDex = new("scatter_dex", "σ_R", "dex", 0.2, 1e-4, 3.0,
+        "intrinsic scatter of log10 size");
+
+    /// <summary>μ0: surface brightness at z = 0 (at the pivot size in the joint model with a size–SB relation), mag/arcsec².</summary>
+    public static readonly ParameterSpec Mu0 = new("mu0", "μ0", "mag/arcsec2", 21.0, -10.0, 50.0,
+        "surface brightness at z = 0");
+
+    /// <summary>b: surface-brightness (luminosity) evolution exponent, Δμ = −2.5 b log10(1+z) (b &gt; 0: brighter in the past).</summary>
+    public static readonly ParameterSpec SbEvolution = new("sb_evolution", "b", "", 0.0, -10.0, 10.0,
+        "surface-brightness evolution exponent b, Δμ = −2.5 b log10(1+z)");
+
+    /// <summary>Intrinsic surface-brightness scatter in mag.</summary>
+    public static readonly ParameterSpec ScatterMag = new("scatter_mag", "σ_μ", "mag", 0.3, 1e-4, 5.0,
+        "intrinsic scatter of surface brightness");
+
+    /// <summary>Kormendy-type slope: dμ/dlog10 R at fixed redshift, mag/arcsec² per dex of physical size.</summary>
+    public static readonly ParameterSpec KormendySlope = new("kormendy_slope", "κ", "mag/dex", 0.0, -20.0, 20.0,
+        "slope of μ against log10 physical size (Kormendy-type relation)");
+
+    /// <summary>All nuisance parameters, in reporting order.</summary>
+    public static IReadOnlyList<ParameterSpec> All { get; } = [R0Kpc, SizeEvolution, ScatterDex, Mu0, SbEvolution, ScatterMag, KormendySlope];
+
+    /// <summary>Nuisance parameters that enter the likelihood for the given observable.</summary>
+    public static IReadOnlyList<ParameterSpec> For(ObservableKind kind, bool sizeSbRelation) => kind switch
+    {
+        ObservableKind.Size => [R0Kpc, SizeEvolution, ScatterDex],
+        ObservableKind.SurfaceBrightness => [Mu0, SbEvolution, ScatterMag],
+        _ => sizeSbRelation
+            ? [R0Kpc, SizeEvolution, ScatterDex, Mu0, SbEvolution, ScatterMag, KormendySlope]
+            : [R0Kpc, SizeEvolution, ScatterDex, Mu0, SbEvolution, ScatterMag],
+    };
+}

@@ -1,0 +1,84 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace SizeTest.Inference;
+
+/// <summary>
+/// Reads and writes <c>results.json</c>: snake_case keys, indented, non-finite numbers as <c>null</c>, and each
+/// model's <c>parameters</c> as an object keyed by parameter name with <c>{value, lo, hi, fixed, unit}</c>.
+/// Output is deterministic: the same <see cref="StudyResult"/> always gives the same bytes.
+/// </summary>
+public static class ResultsJson
+{
+    /// <summary>The serializer options used for results.json.</summary>
+    public static JsonSerializerOptions Options { get; } = CreateOptions();
+
+    private static JsonSerializerOptions CreateOptions()
+    {
+        var o = new JsonSerializerOptions
+        {
+            PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+            WriteIndented = true,
+            DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+        };
+        o.Converters.Add(new FiniteDoubleConverter());
+        o.Converters.Add(new ParameterListConverter());
+        o.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower));
+        o.MakeReadOnly(populateMissingResolver: true);
+        return o;
+    }
+
+    /// <summary>Serialises a study (with a trailing newline).</summary>
+    public static string Serialize(StudyResult result) => JsonSerializer.Serialize(result, Options) + "\n";
+
+    /// <summary>Reads a results.json written by <see cref="Serialize"/>.</summary>
+    public static StudyResult Deserialize(string json) =>
+        JsonSerializer.Deserialize<StudyResult>(json, Options) ?? throw new JsonException("results.json is empty");
+
+    private sealed class FiniteDoubleConverter : JsonConverter<double>
+    {
+        public override bool HandleNull => true;
+        public override double Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options) =>
+            reader.TokenType == JsonTokenType.Null ? double.NaN : reader.GetDouble();
+        public override void Write(Utf8JsonWriter writer, double value, JsonSerializerOptions options)
+        {
+            if (double.IsFinite(value)) writer.WriteNumberValue(value);
+            else writer.WriteNullValue();
+        }
+    }
+
+    private sealed class ParameterListConverter : JsonConverter<IReadOnlyList<ParameterEstimate>>
+    {
+        public override IReadOnlyList<ParameterEstimate> Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)
+        {
+            var list = new List<ParameterEstimate>();
+            using var doc = JsonDocument.ParseValue(ref reader);
+            foreach (var p in doc.RootElement.EnumerateObject())
+            {
+                double D(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.Number ? e.GetDouble() : double.NaN;
+                list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"),
+                    p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean(),
+                    p.Value.TryGetProperty("unit", out var u) ? u.GetString() ?? "" : ""));
+            }
+            return list;
+        }
+
+        public override void Write(Utf8JsonWriter writer, IReadOnlyList<ParameterEstimate> value, JsonSerializerOptions options)
+        {
+            writer.WriteStartObject();
+            foreach (var p in value)
+            {
+                writer.WritePropertyName(p.Name);
+                writer.WriteStartObject();
+                void Num(string k, double v) { writer.WritePropertyName(k); if (double.IsFinite(v)) writer.WriteNumberValue(v); else writer.WriteNullValue(); }
+                Num("value", p.Value);
+                Num("lo", p.Lo);
+                Num("hi", p.Hi);
+                writer.WriteBoolean("fixed", p.Fixed);
+                writer.WriteString("unit", p.Unit);
+                writer.WriteEndObject();
+            }
+            writer.WriteEndObject();
+        }
+    }
+}
