@@ -7,7 +7,7 @@ namespace SizeTest.Cli;
 /// <summary>
 /// The catalogue options shared by verbs that read a catalogue (<c>inspect</c>, and for
 /// <c>fit</c>/<c>simulate</c> to reuse): <c>--col</c>, <c>--hdu</c>, <c>--size-def</c>, <c>--keep</c>,
-/// <c>--catalog-format</c>, <c>--delimiter</c>. <see cref="ToLoadOptions"/> turns them into
+/// <c>--catalog-format</c>, <c>--delimiter</c>, <c>--header</c>. <see cref="ToLoadOptions"/> turns them into
 /// <see cref="CatalogLoadOptions"/>.
 /// </summary>
 internal sealed class CatalogOptions
@@ -46,8 +46,14 @@ internal sealed class CatalogOptions
         Description = "Text catalogues: the field delimiter (a character, or 'tab', or 'space' for runs of blanks). Default: detected.",
     };
 
+    public Option<string?> Header { get; } = new("--header")
+    {
+        Description = "Text catalogues: whether the first line is a header: auto (default), yes or no.",
+    };
+
     public void AddTo(Command command)
     {
+        command.Options.Add(Header);
         command.Options.Add(Col);
         command.Options.Add(Hdu);
         command.Options.Add(SizeDef);
@@ -74,10 +80,17 @@ internal sealed class CatalogOptions
             { Length: 1 } d => d[0],
             var d => throw new InputException($"--delimiter '{d}' must be one character, 'tab' or 'space'"),
         };
+        bool? header = parse.GetValue(Header)?.Trim().ToLowerInvariant() switch
+        {
+            null or "auto" => null,
+            "yes" or "true" => true,
+            "no" or "false" => false,
+            var h => throw new InputException($"--header '{h}' must be auto, yes or no"),
+        };
         return new CatalogLoadOptions
         {
             Mapping = mapping,
-            Reader = new ReaderOptions { Format = format, Table = parse.GetValue(Hdu), Delimiter = delimiter },
+            Reader = new ReaderOptions { Format = format, Table = parse.GetValue(Hdu), Delimiter = delimiter, HasHeader = header },
         };
     }
 }

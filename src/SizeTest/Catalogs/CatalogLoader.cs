@@ -50,7 +50,6 @@ public static class CatalogLoader
         var bindings = Order.Where(mapping.Roles.ContainsKey).Select(r => mapping.Roles[r]).ToArray();
         var requests = bindings.Select(b => new ColumnRequest(b.ColumnIndex, b.Role.IsText()))
             .Concat(mapping.Kept.Select(k => new ColumnRequest(k.ColumnIndex, false))).ToList();
-        var chunk = new RowChunk(requests, Math.Max(1, options.ChunkRows));
 
         long? hint = reader.RowCountHint;
         if (hint is > int.MaxValue) hint = int.MaxValue;
@@ -71,7 +70,8 @@ public static class CatalogLoader
         int zSlot = Array.FindIndex(bindings, b => b.Role == ColumnRole.Z);
         long rowsRead = 0, nextProgress = 1_000_000;
 
-        while (reader.ReadChunk(chunk))
+        using var pipeline = new ChunkPipeline(reader, requests, Math.Max(1, options.ChunkRows));
+        foreach (var chunk in pipeline.Chunks())
         {
             for (int r = 0; r < chunk.Count; r++)
             {
@@ -100,6 +100,7 @@ public static class CatalogLoader
                 }
                 for (int k = 0; k < kept.Length; k++) kept[k].Add(chunk.Columns[bindings.Length + k].Numbers![r]);
             }
+            pipeline.Return(chunk);
             if (options.Progress is { } progress && rowsRead >= nextProgress)
             {
                 progress(rowsRead);

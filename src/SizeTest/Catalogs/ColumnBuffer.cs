@@ -55,5 +55,8 @@ public sealed class ColumnBuffer
     /// <summary>The raw text of an invalid cell (empty if none was kept).</summary>
     public string InvalidText(int row) => _invalidText.TryGetValue(row, out var s) ? s : "";
 
-    internal void Clear() => _invalidText.Clear();
+    internal void Clear()
+    {
+        if (_invalidText.Count != 0) _invalidText.Clear();
+    }
 }

@@ -71,6 +71,14 @@ public static class MappingResolver
                 if (!roles.ContainsKey(role)) DetectError(role, columns, used, roles, notes);
         }
 
+        // A relative error needs its value.
+        foreach (var b in roles.Values.Where(b => b.IsRelative).ToArray())
+        {
+            var valueRole = b.Role.ValueRoleOf()!.Value;
+            if (!roles.ContainsKey(valueRole))
+                throw new InputException($"{b.Role.Name()} is relative ({b.Unit}) but no {valueRole.Name()} column is mapped; map one with --col {valueRole.Name()}=NAME", sourceName, column: b.ColumnName);
+        }
+
         // 3. Kept columns.
         var kept = new List<(string, int)>();
         foreach (var name in mapping.Keep)

@@ -60,5 +60,5 @@ public sealed class RowChunk
     public void SetRowProblem(int row, string problem) => _rowProblems[row] = problem;
 
     /// <summary>The row's problem, or null.</summary>
-    public string? RowProblem(int row) => _rowProblems.TryGetValue(row, out var p) ? p : null;
+    public string? RowProblem(int row) => _rowProblems.Count != 0 && _rowProblems.TryGetValue(row, out var p) ? p : null;
 }

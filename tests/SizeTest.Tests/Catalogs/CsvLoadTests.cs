@@ -42,6 +42,7 @@ public sealed class CsvLoadTests
             "0.5,abc,0.1,21",      // line 8 unparsable
             "0.5,1.0,0.1",         // line 9 wrong field count
             "# a comment",         // line 10
+            "   ",                 // line 11: blank, not a row
             "0.7,2.0,0.2,22") + "\n");
         var load = CatalogLoader.Load(p);
         Assert.Equal(9, load.RowsRead);
@@ -56,7 +57,7 @@ public sealed class CsvLoadTests
         Assert.Equal((7L, RejectReason.OutOfRange), (e[4].Row, e[4].Reason));
         Assert.Equal((8L, "abc", RejectReason.Unparsable), (e[5].Row, e[5].Value, e[5].Reason));
         Assert.Equal((9L, RejectReason.Unparsable), (e[6].Row, e[6].Reason));
-        Assert.Equal(new long[] { 2, 11 }, load.Sample.SourceRows.ToArray());
+        Assert.Equal(new long[] { 2, 12 }, load.Sample.SourceRows.ToArray());
         var csv = load.RejectLog.ToCsv();
         Assert.StartsWith("row,column,value,reason,detail\n3,z,,missing value,", csv);
     }
@@ -119,6 +120,36 @@ public sealed class CsvLoadTests
         var load = CatalogLoader.Load(p);
         Rel.Equal(0.5 * Math.PI / 10800.0, load.Sample.ThetaRad![0]); // 1′ = π/10800 rad exactly
         Assert.Contains(load.DetectionReport, l => l.Contains("[arcmin, from the file]"));
+    }
+
+    [Fact]
+    public void WhitespaceTableWithHeaderLineQuotedNamesAndNulls()
+    {
+        using var t = new TempFiles();
+        var p = t.Write("w.dat", "# synthetic\n  name     z      Re[arcsec]\n\"NGC 1\"  0.01   12.5\n  G2      NaN    1.0\n  G3      0.2    0.5   extra\n\tG4\t0.3\t0.25\n");
+        var load = CatalogLoader.Load(p, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["id=name", "theta=Re"]) });
+        Assert.Contains("delimiter: runs of spaces/tabs (detected)", load.LayoutNotes);
+        Assert.Equal(4, load.RowsRead);
+        Assert.Equal(new[] { "NGC 1", "G4" }, load.Sample.Id);
+        Assert.Equal(new long[] { 3, 6 }, load.Sample.SourceRows.ToArray());
+        Assert.Equal(new[] { (4L, RejectReason.MissingValue), (5L, RejectReason.Unparsable) }, load.RejectLog.Entries.Select(e => (e.Row, e.Reason)));
+        Rel.Equal(12.5 * Math.PI / 648000, load.Sample.ThetaRad![0]); // unit from the header "Re[arcsec]"
+    }
+
+    [Fact]
+    public void AFileWithoutHeaderButWithTextIdsIsNotMistakenForAHeader()
+    {
+        using var t = new TempFiles();
+        var p = t.Write("nh.csv", "G1,0.5,1.2\nG2,0.6,1.1\n");
+        var load = CatalogLoader.Load(p, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["id=col1", "z=col2", "theta=col3"]) });
+        Assert.Equal(2, load.Accepted);
+        Assert.Contains(load.LayoutNotes, n => n.StartsWith("header: none"));
+        var given = CatalogLoader.Load(p, new CatalogLoadOptions
+        {
+            Reader = new ReaderOptions { HasHeader = true },
+            Mapping = ColumnMapping.FromOptions(["z=0.5"]),
+        });
+        Assert.Equal(1, given.RowsRead);
     }
 
     [Fact]

@@ -80,6 +80,24 @@ public sealed class FitsReaderTests
     }
 
     [Fact]
+    public void UnsupportedTypesAreListedAndSkippedAndTheHeapIsStepped()
+    {
+        // HDU 'ODD' (astropy 5.2.1): 12X, C, PJ() with a 16-byte heap (PCOUNT), 100E, then D.
+        using var reader = CatalogReaders.Open(Fixture, new ReaderOptions { Table = "ODD" });
+        Assert.Equal(new[] { ColumnKind.Unsupported, ColumnKind.Unsupported, ColumnKind.Unsupported, ColumnKind.Unsupported, ColumnKind.Real },
+            reader.Columns.Select(c => c.Kind));
+        Assert.Equal(new[] { "12X", "C", "PJ(3)", "100E", "D" }, reader.Columns.Select(c => c.NativeType));
+        var z = TableReading.ReadAll(reader).Values["z"];
+        Assert.Equal(TableReading.Expected("ODD", "z"), z); // reference: astropy 5.2.1
+        var ex = Assert.Throws<InputException>(() => CatalogLoader.Load(Fixture, new CatalogLoadOptions
+        {
+            Reader = new ReaderOptions { Table = "ODD" },
+            Mapping = ColumnMapping.FromOptions(["theta=wide"]),
+        }));
+        Assert.Contains("cannot hold theta values", ex.Message);
+    }
+
+    [Fact]
     public void LoadsAsASampleWithDetectionAndRejects()
     {
         var load = CatalogLoader.Load(Fixture);
@@ -138,7 +156,7 @@ public sealed class FitsReaderTests
     {
         using var fs = File.OpenRead(Fixture);
         var hdus = FitsFile.Scan(fs, Fixture);
-        Assert.Equal(3, hdus.Count);
+        Assert.Equal(4, hdus.Count);
         var expected = TableReading.Reference().GetProperty("longstr").GetString(); // reference: astropy 5.2.1 header read-back
         Assert.Equal(expected, hdus[1].Header.GetString("LONGSTR"));
         Assert.All(hdus, h => Assert.Equal(0, h.HeaderOffset % 2880)); // every HDU starts on a 2880-byte block

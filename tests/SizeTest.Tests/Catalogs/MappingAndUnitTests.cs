@@ -121,6 +121,14 @@ public sealed class MappingAndUnitTests
     }
 
     [Fact]
+    public void RelativeErrorWithoutItsValueIsAnInputException()
+    {
+        var cols = new[] { Col("z"), Col("e_size") };
+        var ex = Assert.Throws<InputException>(() => MappingResolver.Resolve(cols, ColumnMapping.FromOptions(["theta_err=e_size:%"]), "x.csv"));
+        Assert.Contains("no theta column", ex.Message);
+    }
+
+    [Fact]
     public void RowNumbersAreCompactRuns()
     {
         var b = new RowNumbers.Builder();

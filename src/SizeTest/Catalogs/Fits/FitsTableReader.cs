@@ -152,6 +152,8 @@ internal sealed class FitsTableReader : ICatalogReader
             throw new InputException($"HDU {i}: the TFORMn widths add up to {offset} bytes per row but NAXIS1 = {rowBytes}", path);
         long rows = h.GetInteger("NAXIS2", null, path, i);
         if (rows < 0) throw new InputException($"HDU {i} has NAXIS2 = {rows}", path);
+        if (rowBytes == 0 && rows > 0)
+            throw new InputException($"HDU {i} claims {rows} rows of 0 bytes (NAXIS1 = 0); there is nothing to read", path);
         return fields;
     }
 
@@ -167,13 +169,6 @@ internal sealed class FitsTableReader : ICatalogReader
         chunk.Reset();
         if (_nextRow >= _rows) return false;
         int rows = (int)Math.Min(chunk.Capacity, _rows - _nextRow);
-        if (_rowBytes == 0)
-        {
-            for (int r = 0; r < rows; r++) chunk.BeginRow(_nextRow + r + 1);
-            foreach (var c in chunk.Columns) for (int r = 0; r < rows; r++) c.SetNull(r);
-            _nextRow += rows;
-            return true;
-        }
         // Keep each read under ~8 MB.
         rows = (int)Math.Max(1, Math.Min(rows, (8L << 20) / _rowBytes));
         long bytes = rows * _rowBytes;

@@ -65,8 +65,9 @@ internal sealed class DelimitedTextReader : ICatalogReader
             while (!chunk.IsFull)
             {
                 if (!_csv.Read()) { _done = true; break; }
-                int row = chunk.BeginRow(_csv.LineNumber);
                 int fc = _csv.FieldCount;
+                if (fc <= 1 && _fieldCount > 1 && _csv.RawRecord.Trim(" \t\r"u8).IsEmpty) continue; // a blank line (spaces only) is no row
+                int row = chunk.BeginRow(_csv.LineNumber);
                 if (fc != _fieldCount)
                     chunk.SetRowProblem(row, $"{fc} fields, the header has {_fieldCount}");
                 for (int k = 0; k < requests.Count; k++)
@@ -77,7 +78,7 @@ internal sealed class DelimitedTextReader : ICatalogReader
                     var span = _csv.GetSpan(req.ColumnIndex);
                     if (IsNull(span)) { buf.SetNull(row); continue; }
                     if (req.AsText) { buf.SetText(row, Encoding.UTF8.GetString(span)); continue; }
-                    if (double.TryParse(span, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) buf.SetNumber(row, v);
+                    if (FastDecimal.TryParse(span, out var v)) buf.SetNumber(row, v);
                     else buf.SetInvalid(row, Encoding.UTF8.GetString(span));
                 }
             }

@@ -70,14 +70,15 @@ internal sealed class TextLayout
         }
         else
         {
-            headerFirst = first.Any(f => f.Length > 0 && !IsNumber(f));
+            // A header names every column: no field of it is a number (a data line with a text id has numbers beside it).
+            headerFirst = first.Any(f => f.Length > 0) && first.All(f => f.Length == 0 || !IsNumber(f));
         }
         if (headerFirst)
         {
             names = first;
             headerLine = data[0].No;
             data.RemoveAt(0);
-            notes.Add($"header: line {headerLine}");
+            notes.Add($"header: line {headerLine}" + (options.HasHeader is null ? " (detected: no field is a number)" : " (given)"));
         }
         else if (options.HasHeader is null && lastComment is not null
                  && Split(lastComment.Trim(), delim) is { } cnames && cnames.Length == first.Length && cnames.All(f => f.Length > 0 && !IsNumber(f)))

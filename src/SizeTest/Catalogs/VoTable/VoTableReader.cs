@@ -125,7 +125,18 @@ internal sealed class VoTableReader : ICatalogReader
             while (xml.Read() && xml.Depth > depth)
             {
                 if (xml.NodeType != XmlNodeType.Element) continue;
-                if (xml.LocalName == "FIELD" && xml.Depth == depth + 1) { fields.Add(ReadField(xml, path, fields.Count + 1)); continue; }
+                if (xml.LocalName == "FIELD" && xml.Depth == depth + 1)
+                {
+                    var field = ReadField(xml, path, fields.Count + 1);
+                    var unique = field.Name;
+                    for (int k = 2; fields.Any(f => f.Name == unique); k++) unique = $"{field.Name}_{k}";
+                    fields.Add(unique == field.Name ? field : new VoTableField
+                    {
+                        Name = unique, Datatype = field.Datatype, ArraySize = field.ArraySize, Unit = field.Unit, Ucd = field.Ucd,
+                        Description = field.Description, NullText = field.NullText, FixedCount = field.FixedCount,
+                    });
+                    continue;
+                }
                 if (xml.LocalName == "DATA" && xml.Depth == depth + 1)
                 {
                     if (xml.IsEmptyElement) return Empty(file, xml, path, label, fields);
@@ -329,7 +340,7 @@ internal sealed class VoTableReader : ICatalogReader
                 if (!Take(flags, true)) { _done = true; return; }
                 first = false;
             }
-            else if (nf == 0) { _done = true; return; }
+            else if (nf == 0 || _fields.All(f => f.FixedCount == 0)) { _done = true; return; } // rows of no bytes: nothing to read
             _row++;
             int row = -1;
             for (int c = 0; c < nf; c++)
