@@ -2,6 +2,7 @@ using MathNet.Numerics.Optimization;
 using SizeTest.Catalogs;
 using SizeTest.Catalogs.Parquet;
 using SizeTest.Inference;
+using SizeTest.Inference.Sampling;
 using SizeTest.Photometry;
 using LinearVector = MathNet.Numerics.LinearAlgebra.Vector<double>;
 
@@ -19,8 +20,18 @@ namespace SizeTest.Distributed;
 /// <param name="Accepted">Rows accepted by all ranks together.</param>
 /// <param name="Rejected">Rows rejected by all ranks together (RowsRead = Accepted + Rejected).</param>
 /// <param name="Ranks">Description of the rank layer.</param>
+/// <param name="Mcmc">The ensemble-sampler run started at the maximum, if one was asked for.</param>
 public sealed record DistributedFitResult(string Model, string[] ParameterNames, double[] Theta, double LogLikelihood, bool Converged,
-    double[,]? Covariance, long Evaluations, long RowsRead, long Accepted, long Rejected, string Ranks);
+    double[,]? Covariance, long Evaluations, long RowsRead, long Accepted, long Rejected, string Ranks, DistributedMcmcSummary? Mcmc = null);
+
+/// <summary>Posterior summary of an ensemble-sampler run through the ranks.</summary>
+/// <param name="Median">Posterior median per parameter.</param>
+/// <param name="Lo">16th percentile per parameter.</param>
+/// <param name="Hi">84th percentile per parameter.</param>
+/// <param name="AcceptanceFraction">Mean acceptance fraction.</param>
+/// <param name="Converged">The sampler's convergence verdict.</param>
+/// <param name="Evaluations">Log-density evaluations (each one collective).</param>
+public sealed record DistributedMcmcSummary(double[] Median, double[] Lo, double[] Hi, double AcceptanceFraction, bool Converged, long Evaluations);
 
 /// <summary>
 /// Maximum likelihood of one <see cref="Hypothesis"/> with the catalogue split across ranks. Each rank loads its
@@ -28,7 +39,8 @@ public sealed record DistributedFitResult(string Model, string[] ParameterNames,
 /// the accepted rows split by range), binds the inference stage's <see cref="HypothesisLikelihood"/> to its own
 /// objects, and evaluates that partial sum; rank 0 runs a bounded Nelder–Mead (MathNet.Numerics, in the
 /// <see cref="BoundedTransform"/> coordinates the single-process fitter uses) and the numerical Hessian through
-/// <see cref="DistributedLogDensity"/>, adding the log prior once.
+/// <see cref="DistributedLogDensity"/>, adding the log prior once; optionally the ensemble sampler then explores the
+/// posterior through the same collective evaluations.
 /// </summary>
 /// <remarks>
 /// With the cosmology fixed (the default hypothesis) every object uses its exact D_A, so the result does not depend
@@ -39,8 +51,17 @@ public sealed record DistributedFitResult(string Model, string[] ParameterNames,
 public static class DistributedMaximumLikelihood
 {
     /// <summary>Runs the fit; every rank must call it. Returns the result on rank 0 and null elsewhere.</summary>
+    /// <param name="ranks">The rank layer.</param>
+    /// <param name="catalogPath">Catalogue file (Parquet is split by row groups).</param>
+    /// <param name="options">Catalogue loading options (mapping, limits).</param>
+    /// <param name="hypothesis">World model family with its free parameters.</param>
+    /// <param name="tolerance">Nelder–Mead relative tolerance.</param>
+    /// <param name="maxIterations">Nelder–Mead iteration cap.</param>
+    /// <param name="mcmcSteps">If &gt; 0, then run the project's Goodman–Weare ensemble sampler (<see cref="EnsembleSampler"/>, serial
+    /// evaluations, each collective) for this many steps from a small ball around the maximum.</param>
+    /// <param name="seed">Seed of the sampler and of its starting ball.</param>
     public static DistributedFitResult? Fit(IRankReducer ranks, string catalogPath, CatalogLoadOptions options, Hypothesis hypothesis,
-        double tolerance = 1e-10, int maxIterations = 20000)
+        double tolerance = 1e-10, int maxIterations = 20000, int mcmcSteps = 0, int seed = 1)
     {
         ArgumentNullException.ThrowIfNull(ranks);
         ArgumentNullException.ThrowIfNull(catalogPath);
@@ -90,10 +111,28 @@ public static class DistributedMaximumLikelihood
             var cov = NumericalHessian.Covariance(hessian, active);
             double ll = likelihood.LogDensity(theta);
             long evaluations = likelihood.Evaluations;
+            DistributedMcmcSummary? mcmc = null;
+            if (mcmcSteps > 0)
+            {
+                var scale = new double[d];
+                for (int j = 0; j < d; j++)
+                    scale[j] = 1e-2 * (cov is not null && cov[j, j] > 0 ? Math.Sqrt(cov[j, j]) : 1e-3 * Math.Max(1, Math.Abs(theta[j])));
+                var sampler = new EnsembleSampler(posterior, new EnsembleSamplerOptions
+                {
+                    Walkers = Math.Max(16, 4 * d), Steps = mcmcSteps, Seed = seed, MaxDegreeOfParallelism = 1,
+                    ParameterNames = free.Select(p => p.Name).ToArray(),
+                });
+                var run = sampler.Run(EnsembleSampler.GaussianBall(posterior, theta, scale, sampler.Options.Walkers, seed));
+                mcmc = new DistributedMcmcSummary(
+                    Enumerable.Range(0, d).Select(j => run.Percentile(j, 50)).ToArray(),
+                    Enumerable.Range(0, d).Select(j => run.Percentile(j, 16)).ToArray(),
+                    Enumerable.Range(0, d).Select(j => run.Percentile(j, 84)).ToArray(),
+                    run.AcceptanceFraction, run.Converged, run.Evaluations);
+            }
             likelihood.Stop();
             bool converged = best.ReasonForExit == ExitCondition.Converged && cov is not null && double.IsFinite(ll);
             return new DistributedFitResult(hypothesis.Label, free.Select(p => p.Name).ToArray(), theta, ll, converged, cov, evaluations,
-                (long)counts[0], (long)counts[1], (long)counts[2], ranks.Description);
+                (long)counts[0], (long)counts[1], (long)counts[2], ranks.Description, mcmc);
         }
         catch (Exception) when (ranks.Size > 1)
         {
