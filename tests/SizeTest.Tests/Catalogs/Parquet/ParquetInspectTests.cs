@@ -1,4 +1,6 @@
+using System.Text.Json;
 using SizeTest.Catalogs.Parquet;
+using SizeTest.Distributed;
 using SizeTest.Tests.Cli;
 using Xunit;
 
@@ -26,5 +28,26 @@ public sealed class ParquetInspectTests : IDisposable
         (exit, stdout, _) = CliRunner.Run("inspect", path, "--format", "json");
         Assert.Equal(0, exit);
         Assert.Contains("\"format\": \"parquet\"", stdout);
+    }
+
+    [Fact]
+    public void FitReadsParquetWithTheSameRowAccounting()
+    {
+        // SYNTHETIC 3000-row catalogue (SyntheticKernelRows, Einstein–de Sitter truth), row 4 with z < 0.
+        const int n = 3000;
+        var z = new double[n]; var y = new double[n]; var e = new double[n];
+        SyntheticKernelRows.Fill(8, 0, z, y, e);
+        var th = y.Select(v => Math.Exp(v) * SizeTest.Common.Units.ArcsecPerRadian).ToArray();
+        z[3] = -0.5;
+        var path = Path.Combine(_dir, "fit.parquet");
+        ParquetTableWriter.Write(path, [ParquetColumnValues.Number("z", z), ParquetColumnValues.Number("theta", th),
+            ParquetColumnValues.Number("theta_err", th.Select((t, i) => t * e[i]).ToArray())], rowGroupRows: 700);
+        var outDir = Path.Combine(_dir, "out");
+        var (exit, _, stderr) = CliRunner.Run("fit", path, "--models", "eds", "--cv-folds", "0", "--out", outDir);
+        Assert.True(exit == 0, stderr);
+        var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "results.json"))).RootElement;
+        Assert.Equal(3000, json.GetProperty("rows_read").GetInt64());
+        Assert.Equal(2999, json.GetProperty("accepted").GetInt64());
+        Assert.Equal(1, json.GetProperty("rejected").GetInt64());
     }
 }
