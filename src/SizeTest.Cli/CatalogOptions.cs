@@ -38,7 +38,7 @@ internal sealed class CatalogOptions
 
     public Option<string?> CatalogFormat { get; } = new("--catalog-format")
     {
-        Description = "The catalogue's format if detection is wrong: csv (any delimited text), fits or votable.",
+        Description = "The catalogue's format if detection is wrong: csv (any delimited text), fits, votable or parquet.",
     };
 
     public Option<string?> Delimiter { get; } = new("--delimiter")

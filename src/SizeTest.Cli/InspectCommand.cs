@@ -69,6 +69,7 @@ internal static class InspectCommand
     {
         CatalogFormat.Fits => "FITS binary table",
         CatalogFormat.VoTable => "VOTable",
+        CatalogFormat.Parquet => "Parquet",
         _ => "delimited text",
     };
 
@@ -130,7 +131,7 @@ internal static class InspectCommand
             void Num(string name, double v) { if (double.IsFinite(v)) w.WriteNumber(name, v); else w.WriteNull(name); }
             w.WriteStartObject();
             w.WriteString("file", path);
-            w.WriteString("format", load.Format switch { CatalogFormat.Fits => "fits", CatalogFormat.VoTable => "votable", _ => "text" });
+            w.WriteString("format", load.Format switch { CatalogFormat.Fits => "fits", CatalogFormat.VoTable => "votable", CatalogFormat.Parquet => "parquet", _ => "text" });
             if (load.Table is null) w.WriteNull("table"); else w.WriteString("table", load.Table);
             w.WriteStartArray("layout");
             foreach (var n in load.LayoutNotes) w.WriteStringValue(n);

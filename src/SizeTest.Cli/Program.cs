@@ -62,5 +62,6 @@ public static class Program
         yield return ReportCommand.Create(context);
         yield return SimulateCommand.Create(context);
         yield return PowerCommand.Create(context);
+        yield return RanksCommand.Create(context);
     }
 }

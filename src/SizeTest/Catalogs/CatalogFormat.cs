@@ -9,4 +9,7 @@ public enum CatalogFormat
     Fits,
     /// <summary>IVOA VOTable (TABLEDATA, BINARY or BINARY2 serialisation).</summary>
     VoTable,
+
+    /// <summary>Apache Parquet (read one row group at a time; see <see cref="Parquet.ParquetCatalogReader"/>).</summary>
+    Parquet,
 }

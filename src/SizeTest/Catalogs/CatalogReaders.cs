@@ -1,5 +1,6 @@
 using System.Text;
 using SizeTest.Catalogs.Fits;
+using SizeTest.Catalogs.Parquet;
 using SizeTest.Catalogs.Text;
 using SizeTest.Catalogs.VoTable;
 using SizeTest.Common;
@@ -11,8 +12,8 @@ public static class CatalogReaders
 {
     /// <summary>
     /// Detects the format: FITS if the file starts with <c>SIMPLE  =</c>; VOTable if it is XML
-    /// with a <c>VOTABLE</c> element near the start; otherwise by extension
-    /// (<c>.fits .fit .fts</c> → FITS, <c>.vot .votable .xml</c> → VOTable), otherwise text.
+    /// with a <c>VOTABLE</c> element near the start; Parquet if it starts with <c>PAR1</c>; otherwise by extension
+    /// (<c>.fits .fit .fts</c> → FITS, <c>.vot .votable .xml</c> → VOTable, <c>.parquet .pq</c> → Parquet), otherwise text.
     /// </summary>
     public static CatalogFormat DetectFormat(string path)
     {
@@ -22,12 +23,14 @@ public static class CatalogReaders
             n = fs.ReadAtLeast(head, head.Length, throwOnEndOfStream: false);
         var span = head.AsSpan(0, n);
         if (span.StartsWith("SIMPLE  ="u8)) return CatalogFormat.Fits;
+        if (span.StartsWith("PAR1"u8)) return CatalogFormat.Parquet;
         var text = Encoding.UTF8.GetString(span).TrimStart('\uFEFF', ' ', '\t', '\r', '\n');
         if (text.StartsWith('<') && text.Contains("VOTABLE", StringComparison.Ordinal)) return CatalogFormat.VoTable;
         return Path.GetExtension(path).ToLowerInvariant() switch
         {
             ".fits" or ".fit" or ".fts" => CatalogFormat.Fits,
             ".vot" or ".votable" or ".xml" => CatalogFormat.VoTable,
+            ".parquet" or ".pq" => CatalogFormat.Parquet,
             _ => CatalogFormat.Text,
         };
     }
@@ -49,6 +52,10 @@ public static class CatalogReaders
                     return FitsTableReader.Open(path, options.Table);
                 case CatalogFormat.VoTable:
                     return VoTableReader.Open(path, options.Table);
+                case CatalogFormat.Parquet:
+                    if (options.Table is not null)
+                        throw new InputException($"a Parquet file has only one table; drop --hdu '{options.Table}'", path);
+                    return ParquetCatalogReader.Open(path);
                 default:
                     if (options.Table is not null)
                         throw new InputException($"a text table has only one table; drop --hdu '{options.Table}'", path);
@@ -68,7 +75,7 @@ public static class CatalogReaders
         }
     }
 
-    /// <summary>Parses a <c>--format</c> text for catalogues: <c>csv</c>/<c>text</c>/<c>tsv</c>, <c>fits</c>, <c>votable</c>/<c>vot</c>.</summary>
+    /// <summary>Parses a <c>--format</c> text for catalogues: <c>csv</c>/<c>text</c>/<c>tsv</c>, <c>fits</c>, <c>votable</c>/<c>vot</c>, <c>parquet</c>.</summary>
     public static bool TryParseFormat(string? text, out CatalogFormat format)
     {
         switch ((text ?? "").Trim().ToLowerInvariant())
@@ -76,6 +83,7 @@ public static class CatalogReaders
             case "csv" or "tsv" or "text" or "txt" or "ascii": format = CatalogFormat.Text; return true;
             case "fits" or "fit": format = CatalogFormat.Fits; return true;
             case "votable" or "vot" or "xml": format = CatalogFormat.VoTable; return true;
+            case "parquet" or "pq": format = CatalogFormat.Parquet; return true;
             default: format = default; return false;
         }
     }
