@@ -154,7 +154,7 @@ public static class StudyRunner
                 Svg = study.Report.FigureSvg, Pdf = study.Report.FigurePdf, Paper = study.Report.Paper,
             };
             // The manifest is written last with the timings of every stage, so write the report with them filled in.
-            Stage("write");
+            Stage("write results");
             var finalManifest = manifest with { Volatile = new RunTimings(started, DateTimeOffset.UtcNow, timings.ToArray()) };
             data = data with { Manifest = finalManifest };
             files.AddRange(new ReportPackWriter(packOptions).WriteInto(folder.Staging, ReportContent.From(data)));
