@@ -24,7 +24,7 @@ public sealed class StudyFileParserTests
             z = "zspec"
             theta = "Re:mas"
             [corrections]
-            kcorr = "power:alpha=0.7"
+            kcorr = "powerlaw:0.7"
             [models]
             names = ["lcdm", "tired-light"]
             observable = "joint"
@@ -55,7 +55,7 @@ public sealed class StudyFileParserTests
         Assert.Equal("1", s.Reader.Table);
         Assert.Equal(25.0, s.Mapping.SizeDefinition!.IsophoteMagPerArcsec2);
         Assert.Equal("mas", s.Mapping.Assignments.Single(a => a.ColumnName == "Re").Unit);
-        Assert.Equal("power:alpha=0.7", s.Corrections.KCorrection);
+        Assert.Equal("powerlaw:0.7", s.Corrections.KCorrection);
         Assert.Equal(ObservableKind.Joint, s.Nuisance.Observable);
         Assert.Equal(24.5, s.Nuisance.Cuts.SbLimit);
         Assert.Equal(0.1, s.Nuisance.Cuts.MinThetaArcsec);
@@ -125,5 +125,23 @@ public sealed class StudyFileParserTests
         for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
             if (File.Exists(Path.Combine(d.FullName, "SizeTest.sln"))) return d.FullName;
         throw new InvalidOperationException("repository root not found");
+    }
+}
+
+public sealed class ReadmeStudyExampleTests
+{
+    [Fact]
+    public void TheReadmeExampleParsesAndItsCorrectionsAreValid()
+    {
+        var readme = File.ReadAllText(Path.Combine(StudyFileParserTests.RepoRoot(), "README.md"));
+        int start = readme.IndexOf("```toml\n", StringComparison.Ordinal);
+        Assert.True(start >= 0, "README has a ```toml study example");
+        start += "```toml\n".Length;
+        var text = readme[start..readme.IndexOf("```", start, StringComparison.Ordinal)];
+        var s = StudyFileParser.Parse(text, "README.md", "/data");
+        Assert.Equal("my-study", s.Name);
+        Assert.Equal(4, s.Models.Count);
+        Assert.Equal(4, StudyHypotheses.Build(s).Count);
+        SizeTest.Photometry.PhotometryOptionParser.Parse(s.Corrections, _ => "");
     }
 }
