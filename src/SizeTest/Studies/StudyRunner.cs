@@ -11,34 +11,6 @@ using SizeTest.Simulation;
 
 namespace SizeTest.Studies;
 
-/// <summary>How to run a study: where to write, whether to replace, and what to record.</summary>
-public sealed record StudyRunOptions
-{
-    /// <summary>Output folder.</summary>
-    public required string OutputDirectory { get; init; }
-    /// <summary>Replace an existing non-empty output folder.</summary>
-    public bool Force { get; init; }
-    /// <summary>Working directory that manifest paths are relative to (default: the current directory).</summary>
-    public string? WorkingDirectory { get; init; }
-    /// <summary>SizeTest version for the manifest.</summary>
-    public string Version { get; init; } = "unknown";
-    /// <summary>Git commit of the build (read by the command line), or "unknown".</summary>
-    public string GitCommit { get; init; } = "unknown";
-    /// <summary>Receives one line per stage (e.g. "loading catalogue …"); may be null.</summary>
-    public Action<string>? Log { get; init; }
-    /// <summary>Receives fit progress; may be null.</summary>
-    public IProgress<FitProgress>? FitProgress { get; init; }
-    /// <summary>Called after every output file is written into the staging folder and before it is swapped in (tests use it to fail midway).</summary>
-    public Action<string>? BeforeCommit { get; init; }
-}
-
-/// <summary>What a study run produced.</summary>
-/// <param name="Result">The fit study's result (results.json).</param>
-/// <param name="Report">The report data (report-data.json).</param>
-/// <param name="OutputDirectory">The folder written.</param>
-/// <param name="Files">Relative paths of every file written, sorted.</param>
-public sealed record StudyRunOutcome(StudyResult Result, ReportData Report, string OutputDirectory, IReadOnlyList<string> Files);
-
 /// <summary>
 /// Runs a whole study: loads the catalogue, applies the photometric corrections, fits and ranks every world model,
 /// optionally samples the best one, builds the report data and writes the output folder —
