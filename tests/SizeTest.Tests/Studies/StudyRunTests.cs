@@ -30,6 +30,12 @@ public sealed class StudyRunTests
         Assert.All(data.Models, m => Assert.NotNull(m.Theta));                   // best-fit curves came through
         Assert.Contains(data.Assumptions, a => a.Topic == "selection model");
         Assert.NotNull(data.ThetaBins);
+        // The curve is the fitted model evaluated: θ(1) = R0·2^a / D_A(1) (small angle, kpc → Mpc, rad → arcsec).
+        var lcdm = data.Models.Single(m => m.Fit.Name == "lcdm");
+        double r0 = lcdm.Fit.Parameters.Single(p => p.Name == "r0_kpc").Value, a = lcdm.Fit.Parameters.Single(p => p.Name == "size_evolution").Value;
+        double dA = SizeTest.Cosmology.WorldModels.Get("lcdm").Create(new Dictionary<string, double>()).AngularDiameterDistance(1.0);
+        double expected = r0 * Math.Pow(2, a) / 1000.0 / dA * SizeTest.Common.Units.ArcsecPerRadian;
+        Assert.Equal(expected, lcdm.Theta!.At(1.0, logLog: true), expected * 2e-3);   // log-log interpolation between 100 samples
 
         using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "manifest.json")));
         var inputs = manifest.RootElement.GetProperty("inputs").EnumerateArray().Select(i => i.GetProperty("path").GetString()!).ToArray();
@@ -117,6 +123,19 @@ public sealed class StudyRunTests
         Assert.Contains("typo", stderr);
         Assert.Contains("study.toml", stderr);
         Assert.False(Directory.Exists(fx.Out()));
+    }
+
+    [Fact]
+    public void McmcStudyCarriesPosteriorSamples()
+    {
+        using var fx = new StudyFixture(n: 200);
+        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nsampler = \"mcmc\"\nsampler_steps = 200"));
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit == 0, stderr);
+        var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
+        Assert.NotNull(data.Posterior);
+        Assert.Equal(3, data.Posterior!.Parameters.Count);               // r0_kpc, size_evolution, scatter_dex of the size model
+        Assert.True(data.Posterior.Samples.Count > 100);
     }
 
     [Fact]
