@@ -60,6 +60,8 @@ public static class Program
         yield return InspectCommand.Create(context);
         yield return FitCommand.Create(context);
         yield return ReportCommand.Create(context);
+        yield return StudyCommands.Run(context);
+        yield return StudyCommands.Demo(context);
         yield return SimulateCommand.Create(context);
         yield return PowerCommand.Create(context);
         yield return RanksCommand.Create(context);

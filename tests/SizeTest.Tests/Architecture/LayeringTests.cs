@@ -12,7 +12,7 @@ public sealed partial class LayeringTests
 {
     // The order of design.md's data flow; Distributed sits beside Inference and may use it.
     private static readonly string[] Stages =
-        ["Common", "Cosmology", "Catalogs", "Photometry", "Inference", "Distributed", "Simulation", "Reporting"];
+        ["Common", "Cosmology", "Catalogs", "Photometry", "Inference", "Distributed", "Simulation", "Reporting", "Studies"];
 
     // Files in physics stages that are allowed to touch the file system, with the reason.
     private static readonly Dictionary<string, string> IoAllowed = new()

@@ -1,0 +1,127 @@
+using System.CommandLine;
+using System.Diagnostics;
+using System.Globalization;
+using System.Reflection;
+using SizeTest.Common;
+using SizeTest.Studies;
+
+namespace SizeTest.Cli;
+
+/// <summary>
+/// <c>sizetest run STUDY.toml [--out DIR] [--force]</c> runs a whole study from its study file;
+/// <c>sizetest demo [--out DIR] [--force]</c> runs the shipped demo study (demo-catalogs/demo-study.toml) into reports/demo/.
+/// Exit 0 on success, 1 when a fit did not converge (the report is still written), 2 on bad input.
+/// </summary>
+internal static class StudyCommands
+{
+    /// <summary>The shipped demo study, relative to the repository root.</summary>
+    public const string DemoStudy = "demo-catalogs/demo-study.toml";
+
+    public static Command Run(CliContext context)
+    {
+        var study = new Argument<string>("STUDY") { Description = "Study file (TOML): catalogue, columns, corrections, models, priors, selection, inference and report settings." };
+        var output = new Option<string?>("--out") { Description = "Output folder (default: reports/<study name>/)." };
+        var force = new Option<bool>("--force") { Description = "Replace the output folder if it exists." };
+        var cmd = new Command("run", "Run a whole study from a study file: load, correct, fit, compare, and write the report folder.");
+        cmd.Arguments.Add(study);
+        cmd.Options.Add(output);
+        cmd.Options.Add(force);
+        cmd.SetAction(parse =>
+        {
+            try
+            {
+                var def = StudyFileParser.Load(parse.GetValue(study)!);
+                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), parse.GetValue(force), "run");
+            }
+            catch (Exception ex)
+            {
+                return context.Fail(ex);
+            }
+        });
+        return cmd;
+    }
+
+    public static Command Demo(CliContext context)
+    {
+        var output = new Option<string?>("--out") { Description = "Output folder (default: reports/demo/ beside demo-catalogs/)." };
+        var force = new Option<bool>("--force") { Description = "Replace the output folder if it exists." };
+        var cmd = new Command("demo", $"Run the shipped demo study ({DemoStudy}, synthetic Quillon Deep Field catalogue) and write its report to reports/demo/.");
+        cmd.Options.Add(output);
+        cmd.Options.Add(force);
+        cmd.SetAction(parse =>
+        {
+            try
+            {
+                var root = FindRoot() ?? throw new InputException($"cannot find {DemoStudy} in this folder or any folder above it; run the demo from the SizeTest repository");
+                var path = Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, DemoStudy));
+                var def = StudyFileParser.Load(path);
+                var outDir = parse.GetValue(output) ?? Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, "reports", "demo"));
+                return Execute(context, def, outDir, parse.GetValue(force), "demo");
+            }
+            catch (Exception ex)
+            {
+                return context.Fail(ex);
+            }
+        });
+        return cmd;
+    }
+
+    private static string? FindRoot()
+    {
+        for (var d = new DirectoryInfo(Directory.GetCurrentDirectory()); d is not null; d = d.Parent)
+            if (File.Exists(Path.Combine(d.FullName, DemoStudy))) return d.FullName;
+        return null;
+    }
+
+    private static int Execute(CliContext context, StudyDefinition def, string outDir, bool force, string verb)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        var outcome = StudyRunner.Run(def, new StudyRunOptions
+        {
+            OutputDirectory = outDir,
+            Force = force,
+            Version = Version(),
+            GitCommit = GitCommit(),
+            Log = line => context.Err.WriteLine($"sizetest {verb}: {line}"),
+            FitProgress = new FitProgressReporter(context),
+        });
+        var r = outcome.Result;
+        context.Out.WriteLine($"{def.Name}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; seed {r.Seed}");
+        foreach (var (m, i) in r.Models.Select((m, i) => (m, i + 1)))
+            context.Out.WriteLine(string.Create(inv, $"{i,3}. {m.Name,-14} k={m.K,-2} BIC={m.Bic,12:0.00}  ΔBIC={m.DeltaBic,9:0.00}  ΔAIC={m.DeltaAic,9:0.00}  {(m.Converged ? "" : "NOT CONVERGED")}"));
+        foreach (var q in r.RequiredEvolution) context.Out.WriteLine(q.Verdict);
+        context.Out.WriteLine($"report: {Path.Combine(outDir, "report.html")}");
+        if (!r.AllConverged)
+        {
+            context.Err.WriteLine($"sizetest: a fit did not converge ({string.Join("; ", r.Models.Where(m => !m.Converged).Select(m => $"{m.Name}: {m.ExitReason}"))}); the report was written to {outDir} but is not reliable");
+            return ExitCodes.AnalysisFailed;
+        }
+        return ExitCodes.Success;
+    }
+
+    private static string Version() =>
+        typeof(StudyRunner).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0]
+        ?? typeof(StudyRunner).Assembly.GetName().Version?.ToString() ?? "unknown";
+
+    /// <summary><c>git rev-parse HEAD</c> in the working directory, or "unknown" without git or outside a repository.</summary>
+    private static string GitCommit()
+    {
+        try
+        {
+            var psi = new ProcessStartInfo("git", "rev-parse HEAD")
+            {
+                RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
+                WorkingDirectory = Directory.GetCurrentDirectory(),
+            };
+            using var p = Process.Start(psi);
+            if (p is null) return "unknown";
+            var text = p.StandardOutput.ReadToEnd().Trim();
+            p.WaitForExit(5000);
+            return p.ExitCode == 0 && text.Length >= 7 ? text : "unknown";
+        }
+        catch (Exception e) when (e is System.ComponentModel.Win32Exception or InvalidOperationException or IOException)
+        {
+            return "unknown";
+        }
+    }
+}

@@ -1,0 +1,309 @@
+using SizeTest.Catalogs;
+using SizeTest.Common;
+using SizeTest.Cosmology;
+using SizeTest.Inference;
+using SizeTest.Photometry;
+using SizeTest.Reporting.Pdf;
+
+namespace SizeTest.Studies;
+
+/// <summary>
+/// Reads a study file (TOML) into a <see cref="StudyDefinition"/>. Every key is checked: an unknown key, a value of the
+/// wrong kind or an inconsistent setting is an <see cref="InputException"/> naming the file, line and column.
+/// The layout is documented in the README (section "Study files").
+/// </summary>
+public static class StudyFileParser
+{
+    private static readonly Dictionary<string, string> TableKeys = new(StringComparer.Ordinal)
+    {
+        [""] = "top-level keys are name, seed and the tables [catalogue], [columns], [corrections], [models], [parameters], [selection], [inference], [expected], [power], [report]",
+        ["catalogue"] = "[catalogue] takes path, format, table, size_definition, synthetic, keep",
+        ["columns"] = $"[columns] takes one ROLE = \"NAME[:UNIT]\" per role ({string.Join(", ", ColumnRoles.All.Select(r => r.Name()))})",
+        ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
+        ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
+        ["selection"] = "[selection] takes sb_limit, mag_limit, min_size",
+        ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps",
+        ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
+        ["report"] = "[report] takes title, paper, formats, bins, bin_resamples",
+    };
+
+    /// <summary>Reads and parses <paramref name="path"/>; the path is kept as given for the manifest.</summary>
+    public static StudyDefinition Load(string path)
+    {
+        string text;
+        try
+        {
+            text = File.ReadAllText(path);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            throw new InputException($"cannot read the study file ({e.Message.TrimEnd('.')}); check the path", path, inner: e);
+        }
+        return Parse(text, path, Path.GetDirectoryName(Path.GetFullPath(path))!);
+    }
+
+    /// <summary>
+    /// Parses study-file text. <paramref name="fileName"/> names the file in errors; relative paths inside are resolved
+    /// against <paramref name="baseDirectory"/> (the study file's folder).
+    /// </summary>
+    public static StudyDefinition Parse(string text, string fileName, string baseDirectory)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        var root = TomlNode.Parse(text, fileName);
+        string name = root.String("name") ?? Path.GetFileNameWithoutExtension(fileName);
+        if (name.Length == 0 || name.IndexOfAny(Path.GetInvalidFileNameChars()) >= 0 || name is "." or "..")
+            throw root.Get("name")!.Error($"study name '{name}' cannot be a folder name; use letters, digits, '-' and '_'");
+        int seed = root.Integer("seed") ?? 1;
+
+        // [catalogue]
+        var cat = root.Table("catalogue") ?? throw new InputException("the study file has no [catalogue] table; add [catalogue] with path = \"CATALOGUE\"", fileName, 1, "1");
+        var catPathNode = cat.Get("path") ?? throw cat.Error("[catalogue] needs path = \"CATALOGUE\" (relative to the study file)");
+        string catPath = catPathNode.Scalar as string ?? throw catPathNode.Error("'catalogue.path' must be a string");
+        if (catPath.Trim().Length == 0) throw catPathNode.Error("'catalogue.path' is empty");
+        var reader = new ReaderOptions { Format = Format(cat), Table = cat.Get("table") is { } t ? (t.Scalar is long l ? l.ToString(System.Globalization.CultureInfo.InvariantCulture) : t.Scalar as string ?? throw t.Error("'catalogue.table' must be an HDU/table number or name")) : null };
+        SizeDefinition? sizeDef = null;
+        if (cat.Get("size_definition") is { } sd)
+        {
+            if (!SizeDefinitions.TryParse(sd.Scalar as string ?? throw sd.Error("'catalogue.size_definition' must be a string"), out var def, out var err)) throw sd.Error(err);
+            sizeDef = def;
+        }
+        bool synthetic = cat.Boolean("synthetic") ?? false;
+        var keep = cat.Strings("keep") ?? [];
+
+        // [columns]
+        var assignments = new List<ColumnAssignment>();
+        if (root.Table("columns") is { } cols)
+            foreach (var role in cols.Keys)
+            {
+                var node = cols.Get(role)!;
+                var value = node.Scalar as string ?? throw node.Error($"'columns.{role}' must be a string \"NAME[:UNIT]\"");
+                if (!ColumnAssignment.TryParse($"{role}={value}", out var a, out var error)) throw node.Error(error);
+                if (assignments.Any(x => x.Role == a.Role)) throw node.Error($"role {a.Role.Name()} is assigned twice; give each role once");
+                assignments.Add(a);
+            }
+        var mapping = new ColumnMapping { Assignments = assignments, SizeDefinition = sizeDef, Keep = keep.ToArray() };
+
+        // [corrections]: the photometry option strings, parsed for syntax now (tables are read when the study runs).
+        var corrections = new PhotometryOptionText();
+        if (root.Table("corrections") is { } corr)
+        {
+            corrections = new PhotometryOptionText
+            {
+                KCorrection = corr.String("kcorr"),
+                Extinction = corr.String("extinction"),
+                ZeroPoints = corr.String("zero_points"),
+                DefaultBand = corr.String("band"),
+                BandMatch = corr.String("band_match"),
+                SersicIndex = corr.Get("sersic_n") is { } n ? (n.Scalar is string ns ? ns : n.AsNumber().ToString("R", System.Globalization.CultureInfo.InvariantCulture)) : null,
+                SurfaceBrightness = corr.String("sb"),
+            };
+        }
+
+        // [models]
+        var modelsNode = root.Table("models") ?? throw new InputException("the study file has no [models] table; add [models] with names = [\"lcdm\", \"tired-light\"]", fileName, 1, "1");
+        var namesNode = modelsNode.Get("names") ?? throw modelsNode.Error("[models] needs names = [\"lcdm\", …]");
+        var names = modelsNode.Strings("names")!;
+        if (names.Count == 0) throw namesNode.Error("'models.names' is empty; name at least one world model");
+        foreach (var (n, i) in names.Select((n, i) => (n, i)))
+        {
+            if (!WorldModels.TryGet(n, out _)) throw (namesNode.Items?[i] ?? namesNode).Error($"unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}");
+            if (names.Take(i).Contains(n)) throw (namesNode.Items?[i] ?? namesNode).Error($"world model '{n}' is listed twice");
+        }
+        var obsNode = modelsNode.Get("observable");
+        var observable = obsNode?.Scalar switch
+        {
+            null => ObservableKind.Size,
+            "size" => ObservableKind.Size,
+            "sb" => ObservableKind.SurfaceBrightness,
+            "joint" => ObservableKind.Joint,
+            _ => throw obsNode!.Error("'models.observable' must be \"size\", \"sb\" or \"joint\""),
+        };
+
+        // [selection]
+        var selection = SelectionLimits.None;
+        TomlNode? selNode = root.Table("selection");
+        if (selNode is not null)
+            selection = new SelectionLimits(selNode.Number("sb_limit"), selNode.Number("mag_limit"), selNode.Number("min_size"));
+        var nuisance = new NuisanceModel(observable, selection, modelsNode.Boolean("size_sb_relation") ?? false,
+            modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96);
+        try
+        {
+            nuisance.Validate();
+        }
+        catch (ArgumentException e)
+        {
+            throw (selNode ?? modelsNode).Error(e.Message.Replace("--observable", "models.observable").Replace("--", "selection."));
+        }
+
+        // [parameters] (every model) and [models.NAME] (one model).
+        var families = names.Select(WorldModels.Get).ToArray();
+        var allKnown = families.SelectMany(f => StudyHypotheses.KnownNames(f, nuisance)).ToHashSet(StringComparer.Ordinal);
+        var shared = root.Table("parameters") is { } pt ? Parameters(pt, allKnown, "any listed model with this observable") : [];
+        var perModel = new Dictionary<string, IReadOnlyList<StudyParameter>>(StringComparer.Ordinal);
+        var perModelNodes = new Dictionary<string, TomlNode>(StringComparer.Ordinal);
+        foreach (var key in modelsNode.Keys)
+        {
+            if (key is "names" or "observable" or "size_sb_relation" or "pivot_kpc" or "dimming_offset" or "grid_nodes") continue;
+            var node = modelsNode.Get(key)!;
+            if (!node.IsTable || !names.Contains(key))
+                throw node.Error($"unknown key 'models.{key}'; {TableKeys["models"]} (listed: {string.Join(", ", names)})");
+            perModel[key] = Parameters(node, StudyHypotheses.KnownNames(WorldModels.Get(key), nuisance), $"world model '{key}' with this observable");
+            perModelNodes[key] = node;
+        }
+
+        // [expected]
+        var expected = new List<ExpectedRange>();
+        if (root.Table("expected") is { } ex)
+            foreach (var key in ex.Keys)
+            {
+                var node = ex.Get(key)!;
+                if (!allKnown.Contains(key)) throw node.Error($"unknown parameter '{key}' in [expected]; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
+                var r = node.AsNumbers(2, "[-1.5, -0.7]");
+                if (!(r[0] < r[1])) throw node.Error($"'expected.{key}': the lower end must be below the upper end");
+                expected.Add(new ExpectedRange(key, r[0], r[1]));
+            }
+
+        // [inference]
+        var inf = root.Table("inference");
+        int starts = inf?.Integer("starts") ?? 4, bootstrap = inf?.Integer("bootstrap") ?? 0, folds = inf?.Integer("cv_folds") ?? 0, steps = inf?.Integer("sampler_steps") ?? 2000;
+        string sampler = inf?.String("sampler") ?? "none";
+        if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
+        if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
+        if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
+        if (sampler is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
+        if (steps < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be at least 100");
+
+        // [power]
+        string? power = null;
+        if (root.Table("power") is { } pw && pw.String("results") is { } pr) power = Path.GetFullPath(pr, baseDirectory);
+
+        // [report]
+        var report = new StudyReportOptions();
+        if (root.Table("report") is { } rep)
+        {
+            var paper = PaperSize.A4;
+            if (rep.Get("paper") is { } pn && !PaperSize.TryParse(pn.Scalar as string, out paper)) throw pn.Error("'report.paper' must be \"a4\" or \"letter\"");
+            report = report with { Title = rep.String("title"), Paper = paper, Bins = rep.Integer("bins") ?? 8, BinResamples = rep.Integer("bin_resamples") ?? 200 };
+            if (report.Bins < 1) throw rep.Get("bins")!.Error("'report.bins' must be at least 1");
+            if (report.BinResamples < 1) throw rep.Get("bin_resamples")!.Error("'report.bin_resamples' must be at least 1");
+            var fnode = rep.Get("formats");
+            if (fnode is not null)
+            {
+                var formats = rep.Strings("formats") ?? [];
+                for (int i = 0; i < formats.Count; i++)
+                    if (!StudyReportOptions.FormatNames.Contains(formats[i]))
+                        throw (fnode.Items?[i] ?? fnode).Error($"unknown report format '{formats[i]}'; formats are {string.Join(", ", StudyReportOptions.FormatNames)}");
+                report = report with
+                {
+                    Html = formats.Contains("html"), Pdf = formats.Contains("pdf"), FigurePng = formats.Contains("png"),
+                    FigureSvg = formats.Contains("svg"), FigurePdf = formats.Contains("figure-pdf"),
+                };
+            }
+        }
+
+        root.RejectUnknown(table => TableKeys.TryGetValue(table, out var h) ? h : "see the README's study-file reference");
+
+        var study = new StudyDefinition
+        {
+            Name = name,
+            StudyFilePath = fileName,
+            StudyFileText = text,
+            BaseDirectory = baseDirectory,
+            CataloguePath = Path.GetFullPath(catPath, baseDirectory),
+            Reader = reader,
+            Mapping = mapping,
+            Synthetic = synthetic,
+            Corrections = corrections,
+            Models = names,
+            Nuisance = nuisance,
+            Parameters = shared,
+            ModelParameters = perModel,
+            Expected = expected,
+            Seed = seed,
+            Starts = starts,
+            Bootstrap = bootstrap,
+            CrossValidationFolds = folds,
+            Sampler = sampler,
+            SamplerSteps = steps,
+            PowerResultPath = power,
+            Report = report,
+        };
+        // Build every hypothesis now, so a setting a model cannot take is reported at parse time with its place.
+        foreach (var f in families)
+        {
+            try
+            {
+                StudyHypotheses.For(f, study);
+            }
+            catch (ArgumentException e)
+            {
+                var at = perModelNodes.GetValueOrDefault(f.Name) ?? root.Get("parameters") ?? modelsNode;
+                throw at.Error(e.Message.Replace("remove it from --free/--prior", "fix it in the study file"));
+            }
+        }
+        return study;
+    }
+
+    private static CatalogFormat? Format(TomlNode cat)
+    {
+        var node = cat.Get("format");
+        return node?.Scalar switch
+        {
+            null => null,
+            "csv" or "text" or "tsv" or "txt" => CatalogFormat.Text,
+            "fits" => CatalogFormat.Fits,
+            "votable" or "vot" => CatalogFormat.VoTable,
+            _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\" or \"votable\" (or left out to detect)"),
+        };
+    }
+
+    // A parameter setting: "free", "fixed", a number (fixed there), or a table
+    // { fixed = V } | { free = true, min = LO, max = HI } | { prior = [MEAN, SD], min, max }.
+    private static IReadOnlyList<StudyParameter> Parameters(TomlNode table, HashSet<string> known, string what)
+    {
+        var list = new List<StudyParameter>();
+        foreach (var key in table.Keys)
+        {
+            var node = table.Get(key)!;
+            if (!known.Contains(key))
+                throw node.Error($"unknown parameter '{key}' for {what}; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
+            list.Add(Setting(key, node));
+        }
+        return list;
+    }
+
+    private static StudyParameter Setting(string name, TomlNode node)
+    {
+        const string Forms = "write \"free\", \"fixed\", a number (fixed at it), { fixed = V }, { free = true, min = LO, max = HI } or { prior = [MEAN, SD] }";
+        if (node.Scalar is string s)
+            return s switch
+            {
+                "free" => new StudyParameter(name, ParameterStatus.Free),
+                "fixed" => new StudyParameter(name, ParameterStatus.Fixed),
+                _ => throw node.Error($"'{node.Path}' = \"{s}\" is not a parameter setting; {Forms}"),
+            };
+        if (node.Scalar is long or double) return new StudyParameter(name, ParameterStatus.Fixed, node.AsNumber());
+        if (!node.IsTable) throw node.Error($"'{node.Path}' is not a parameter setting; {Forms}");
+        double? min = node.Number("min"), max = node.Number("max");
+        if (min is not null && max is not null && !(min < max)) throw node.Error($"'{node.Path}': min must be below max");
+        StudyParameter result;
+        if (node.Get("fixed") is { } f)
+        {
+            result = new StudyParameter(name, ParameterStatus.Fixed, f.AsNumber());
+            if (min is not null || max is not null) throw node.Error($"'{node.Path}': a fixed parameter takes no bounds");
+        }
+        else if (node.Get("prior") is { } p)
+        {
+            var ms = p.AsNumbers(2, "[0.3, 0.02]");
+            if (!(ms[1] > 0)) throw p.Error($"'{p.Path}': the prior standard deviation must be positive");
+            result = new StudyParameter(name, ParameterStatus.GaussianPrior, null, ms[0], ms[1], min, max);
+        }
+        else
+        {
+            if (node.Boolean("free") is false) throw node.Error($"'{node.Path}': free = false needs a value; write {{ fixed = V }}");
+            result = new StudyParameter(name, ParameterStatus.Free, null, null, null, min, max);
+        }
+        node.RejectUnknown(_ => $"a parameter table takes fixed, free, prior, min, max; {Forms}");
+        return result;
+    }
+}

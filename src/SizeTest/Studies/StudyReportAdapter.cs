@@ -1,0 +1,203 @@
+using System.Globalization;
+using SizeTest.Catalogs;
+using SizeTest.Cosmology;
+using SizeTest.Inference;
+using SizeTest.Reporting.Data;
+using SizeTest.Reporting.Pack;
+using SizeTest.Simulation;
+
+namespace SizeTest.Studies;
+
+/// <summary>
+/// Fills <see cref="ReportData"/> from a study's results: the sample points, per model the best-fit curves with and
+/// without evolution (evaluated from the fitted parameters — prediction, not refitting), binned medians and means with
+/// bootstrap errors, required evolution, reject reasons, posterior samples and a power curve when present, and the
+/// assumptions every conclusion rests on.
+/// </summary>
+public static class StudyReportAdapter
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Everything the adapter reads besides the study result.</summary>
+    /// <param name="Study">The study definition (settings and report options).</param>
+    /// <param name="Load">The catalogue load (sample, reject log, mapping).</param>
+    /// <param name="CorrectionLines">The photometry corrections applied, in words (<c>PhotometryResult.Corrections</c>).</param>
+    /// <param name="Hypotheses">The hypotheses fitted (for parameter statuses and priors).</param>
+    public sealed record Inputs(StudyDefinition Study, SampleLoad Load, IReadOnlyList<string> CorrectionLines, IReadOnlyList<Hypothesis> Hypotheses);
+
+    /// <summary>Builds the report data; <paramref name="posterior"/>, <paramref name="power"/> and <paramref name="manifest"/> may be null.</summary>
+    public static ReportData Build(StudyResult result, Inputs inputs, string version, string gitCommit, string catalogueLabel,
+        PosteriorSamples? posterior = null, PowerResult? power = null, RunManifest? manifest = null)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(inputs);
+        var study = inputs.Study;
+        var sample = inputs.Load.Sample;
+        var points = SamplePoints.FromSample(sample);
+        double zMin = sample.Count > 0 ? sample.Z.Min() : 0.01, zMax = sample.Count > 0 ? sample.Z.Max() : 3;
+        if (!(zMax > zMin)) { zMin = Math.Max(1e-3, 0.5 * zMin); zMax = Math.Max(2 * zMax, zMin * 2); }
+
+        var models = new List<ModelReport>();
+        foreach (var fit in result.Models)
+        {
+            var report = new ModelReport(fit)
+            {
+                RequiredEvolution = result.RequiredEvolution.Where(r => r.Model == fit.Name && !r.Fixed)
+                    .Select(r => new EvolutionRequirement(r.Parameter, Describe(r.Parameter), r.Value, r.Lo, r.Hi)).ToArray(),
+            };
+            if (WorldModels.TryGet(fit.Name, out var family)) report = WithCurves(report, family, fit, study.Nuisance, zMin, zMax);
+            models.Add(report);
+        }
+
+        var reasons = inputs.Load.RejectLog.CountsByReason()
+            .Select(c => new RejectReasonCount(c.Reason.Code(), c.Count))
+            .OrderByDescending(c => c.Count).ThenBy(c => c.Reason, StringComparer.Ordinal).ToArray();
+        var data = new ReportData
+        {
+            Job = new JobSummary(study.Report.Title ?? study.Name, study.StudyFilePath.Replace('\\', '/'), catalogueLabel, version, gitCommit, study.Seed, study.Synthetic)
+            {
+                Method = Method(study),
+            },
+            Data = new DataSummary(result.RowsRead, result.Accepted, result.Rejected, reasons)
+            {
+                SizeDefinition = SizeDefinitions.Format(sample.SizeDefinition) switch
+                {
+                    "effective" => "effective (half-light) radius",
+                    var s => s,
+                },
+                Band = sample.Band is { Length: > 0 } b ? string.Join(", ", b.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Take(6)) : "",
+            },
+            Sample = points,
+            Models = models,
+            Assumptions = Assumptions(result, inputs),
+            SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == "mu0")?.Value).FirstOrDefault(v => v is not null),
+            Posterior = posterior,
+            Power = power is null ? null : PowerCurveFrom(power),
+            // The report words the fitted exponents itself; add only the likelihood-ratio test and the expected range.
+            ExtraConclusions = result.RequiredEvolution.Where(r => !r.Fixed && r.PValue is not null)
+                .Select(r => $"{r.Model}, {(r.Parameter == "size_evolution" ? "size evolution" : "surface-brightness evolution")} (likelihood-ratio test against the same model without it): {string.Join("; ", r.Verdict.Split("; ").Skip(1))}.")
+                .Concat(result.BayesFactors.Select(bf => string.Create(Inv, $"ln B({bf.Favoured} : {bf.Against}) = {bf.LnB:0.0}{(bf.BicApproximate ? " (BIC approximation)" : "")}: {bf.Strength}.")))
+                .Concat(result.Notes).ToArray(),
+            Manifest = manifest,
+        };
+        return data.WithBins(study.Report.Bins, study.Report.BinResamples, study.Seed);
+    }
+
+    private static string Describe(string parameter) => parameter switch
+    {
+        "size_evolution" => "size evolution a, R ∝ (1+z)^a",
+        "sb_evolution" => "surface-brightness evolution b, Δμ = −2.5 b log10(1+z)",
+        _ => parameter,
+    };
+
+    private static string Method(StudyDefinition s)
+    {
+        var parts = new List<string> { $"maximum likelihood ({s.Starts} optimiser start{(s.Starts == 1 ? "" : "s")} per model, Hessian 68% intervals)" };
+        if (s.Bootstrap > 0) parts.Add($"{s.Bootstrap} bootstrap resamples per model");
+        if (s.CrossValidationFolds > 0) parts.Add($"{s.CrossValidationFolds}-fold cross-validation");
+        if (s.Sampler == "mcmc") parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");
+        parts.Add("models ranked by BIC");
+        return string.Join("; ", parts);
+    }
+
+    /// <summary>
+    /// The fitted model's predictions: θ(z) = R0 (1+z)^a / D_A(z) in arcsec (small-angle, θ = ℓ/D_A) and
+    /// μ(z) = μ0 + 2.5 (n − b) log10(1+z) [+ κ (log10 R(z) − log10 R_pivot) with a size–SB relation], n the model's
+    /// bolometric dimming exponent plus the study's offset (Tolman 1930) — the mean relations of the likelihood
+    /// without the per-object K-corrections. "Without evolution" sets a = 0 and b = 0, keeping R0 and μ0.
+    /// </summary>
+    private static ModelReport WithCurves(ModelReport report, IWorldModelFamily family, ModelFitSummary fit, NuisanceModel nuisance, double zMin, double zMax)
+    {
+        var values = fit.Parameters.ToDictionary(p => p.Name, p => p.Value, StringComparer.Ordinal);
+        var cosmo = family.Parameters.Where(p => values.ContainsKey(p.Name) && double.IsFinite(values[p.Name]))
+            .ToDictionary(p => p.Name, p => values[p.Name], StringComparer.Ordinal);
+        if (!family.TryCreate(cosmo, out var model, out _)) return report;
+        double Get(string n, double fallback) => values.TryGetValue(n, out var v) && double.IsFinite(v) ? v : fallback;
+        // Static models are not defined at z = 0; start at the sample's smallest redshift.
+        double lo = Math.Max(zMin, 1e-4);
+        if (values.ContainsKey("r0_kpc"))
+        {
+            double r0 = Get("r0_kpc", 5), a = Get("size_evolution", 0);
+            report = report with
+            {
+                Theta = Curve.Sample(z => model.AngularSizeArcsec(z, r0 * Math.Pow(1 + z, a)), lo, zMax),
+                ThetaNoEvolution = a == 0 ? null : Curve.Sample(z => model.AngularSizeArcsec(z, r0), lo, zMax),
+            };
+        }
+        if (values.ContainsKey("mu0"))
+        {
+            double mu0 = Get("mu0", 21), b = Get("sb_evolution", 0), kappa = Get("kormendy_slope", 0);
+            double n = model.BolometricDimmingExponent + nuisance.DimmingExponentOffset;
+            double r0 = Get("r0_kpc", nuisance.PivotSizeKpc), a = Get("size_evolution", 0);
+            bool relation = nuisance.SizeSbRelation && values.ContainsKey("kormendy_slope");
+            double Mu(double z, double bb, double aa) =>
+                mu0 + 2.5 * (n - bb) * Math.Log10(1 + z)
+                + (relation ? kappa * (Math.Log10(r0 * Math.Pow(1 + z, aa)) - Math.Log10(nuisance.PivotSizeKpc)) : 0);
+            report = report with
+            {
+                Mu = Curve.Sample(z => Mu(z, b, a), lo, zMax),
+                MuNoEvolution = b == 0 && (!relation || a == 0) ? null : Curve.Sample(z => Mu(z, 0, 0), lo, zMax),
+            };
+        }
+        return report;
+    }
+
+    private static IReadOnlyList<Assumption> Assumptions(StudyResult result, Inputs inputs)
+    {
+        var study = inputs.Study;
+        var list = new List<Assumption>();
+        foreach (var h in inputs.Hypotheses)
+        {
+            var cosmo = h.Parameters.Where(p => h.Family.Parameters.Any(s => s.Name == p.Name)).ToArray();
+            string Words(ParameterSetting p) => p.Status switch
+            {
+                ParameterStatus.Fixed => double.IsNaN(p.Value) ? $"{p.Name} derived" : string.Create(Inv, $"{p.Name} = {p.Value:0.####} fixed"),
+                ParameterStatus.GaussianPrior => string.Create(Inv, $"{p.Name} free with a Gaussian prior N({p.PriorMean:0.####}, {p.PriorSd:0.####}) within [{p.Min:0.###}, {p.Max:0.###}]"),
+                _ => string.Create(Inv, $"{p.Name} free in [{p.Min:0.###}, {p.Max:0.###}]"),
+            };
+            list.Add(new Assumption("cosmology priors",
+                $"{h.Label} ({h.Family.Description}): {(cosmo.Length == 0 ? "no cosmological parameters" : string.Join("; ", cosmo.Select(Words)))}."));
+        }
+        var ev = new List<string>();
+        if (study.Nuisance.Observable != ObservableKind.SurfaceBrightness)
+            ev.Add("physical sizes follow R(z) = R0 (1+z)^a with log-normal intrinsic scatter (scatter_dex)");
+        if (study.Nuisance.Observable != ObservableKind.Size)
+            ev.Add("surface brightness follows μ = μ0 + 2.5 (n − b) log10(1+z) with Gaussian intrinsic scatter (scatter_mag); n is the model's bolometric dimming exponent (4 for FLRW, Tolman 1930)" +
+                   (study.Nuisance.DimmingExponentOffset != 0 ? string.Create(Inv, $" plus an offset of {study.Nuisance.DimmingExponentOffset:0.##} for the band convention") : ""));
+        if (study.Nuisance.SizeSbRelation)
+            ev.Add(string.Create(Inv, $"μ is linked to log10 physical size by a free Kormendy-type slope at pivot {study.Nuisance.PivotSizeKpc:0.##} kpc"));
+        var fixedEvolution = inputs.Hypotheses.SelectMany(h => h.Parameters.Where(p => p.Name is "size_evolution" or "sb_evolution" && !p.IsFree)
+            .Select(p => string.Create(Inv, $"{h.Label}: {p.Name} fixed at {p.Value:0.###}"))).ToArray();
+        if (fixedEvolution.Length > 0) ev.Add("held fixed: " + string.Join(", ", fixedEvolution));
+        list.Add(new Assumption("evolution form", string.Join("; ", ev) + "."));
+        var cuts = result.Settings.Selection;
+        var cutWords = new List<string>();
+        if (cuts.SbLimit is { } sb) cutWords.Add(string.Create(Inv, $"μ < {sb:0.##} mag/arcsec²"));
+        if (cuts.MagLimit is { } m) cutWords.Add(string.Create(Inv, $"m < {m:0.##} mag"));
+        if (cuts.MinThetaArcsec is { } t) cutWords.Add(string.Create(Inv, $"θ > {t:0.###} arcsec"));
+        list.Add(new Assumption("selection model", cutWords.Count == 0
+            ? "no selection cuts are modelled: the sample is taken to be complete in size and surface brightness at every redshift."
+            : $"the likelihood is truncated at {string.Join(" and ", cutWords)} (each object's density renormalised by the probability of passing the cuts at its redshift)."));
+        list.Add(new Assumption("K-corrections", inputs.CorrectionLines.Count == 0
+            ? "no photometric corrections were applied (magnitudes and surface brightnesses as catalogued)."
+            : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));
+        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Sample.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6))}."));
+        return list;
+    }
+
+    private static PowerCurve PowerCurveFrom(PowerResult power)
+    {
+        var pts = power.Points.OrderBy(p => p.SampleSize).ToArray();
+        double[] x = pts.Select(p => (double)p.SampleSize).ToArray();
+        static double Lo(double p, int n) => Math.Max(0, p - Math.Sqrt(Math.Max(p * (1 - p), 0) / Math.Max(n, 1)));
+        static double Hi(double p, int n) => Math.Min(1, p + Math.Sqrt(Math.Max(p * (1 - p), 0) / Math.Max(n, 1)));
+        // 68% intervals from the binomial standard error √(p(1−p)/N) (normal approximation; common practice).
+        return new PowerCurve("objects per catalogue", "objects",
+        [
+            new PowerLine($"true model ({power.TrueCandidate}) has the lowest BIC", x, pts.Select(p => p.ProbabilityTrueBest).ToArray(),
+                pts.Select(p => Lo(p.ProbabilityTrueBest, p.Mocks)).ToArray(), pts.Select(p => Hi(p.ProbabilityTrueBest, p.Mocks)).ToArray()),
+            new PowerLine("ΔBIC > 6 for the true model (strong)", x, pts.Select(p => p.ProbabilityStrong).ToArray(),
+                pts.Select(p => Lo(p.ProbabilityStrong, p.Mocks)).ToArray(), pts.Select(p => Hi(p.ProbabilityStrong, p.Mocks)).ToArray()),
+        ]);
+    }
+}

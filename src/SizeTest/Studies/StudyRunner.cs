@@ -1,0 +1,175 @@
+using System.Diagnostics;
+using SizeTest.Catalogs;
+using SizeTest.Common;
+using SizeTest.Inference;
+using SizeTest.Inference.Sampling;
+using SizeTest.Photometry;
+using SizeTest.Reporting;
+using SizeTest.Reporting.Data;
+using SizeTest.Reporting.Pack;
+using SizeTest.Simulation;
+
+namespace SizeTest.Studies;
+
+/// <summary>
+/// Runs a whole study: loads the catalogue, applies the photometric corrections, fits and ranks every world model,
+/// optionally samples the best one, builds the report data and writes the output folder —
+/// <c>results.json</c>, <c>results.csv</c>, <c>rejects.csv</c>, <c>report.html</c>, <c>report.pdf</c>,
+/// <c>figures/</c>, <c>tables/</c>, <c>manifest.json</c> and <c>report-data.json</c> — through a staging folder that is
+/// swapped in only when complete (a failure leaves any previous output untouched).
+/// </summary>
+public static class StudyRunner
+{
+    /// <summary>Runs <paramref name="study"/> with <paramref name="options"/>.</summary>
+    /// <exception cref="InputException">Bad input (catalogue, corrections, settings) or an existing output folder without force.</exception>
+    public static StudyRunOutcome Run(StudyDefinition study, StudyRunOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(study);
+        ArgumentNullException.ThrowIfNull(options);
+        var wd = Path.GetFullPath(options.WorkingDirectory ?? Directory.GetCurrentDirectory());
+        var started = DateTimeOffset.UtcNow;
+        var timings = new List<StageTiming>();
+        var clock = Stopwatch.StartNew();
+        void Stage(string name) { timings.Add(new StageTiming(name, clock.Elapsed.TotalSeconds)); clock.Restart(); }
+        string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
+
+        // Refuse an existing output before any work.
+        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force);
+        try
+        {
+            var inputs = new List<string>();
+            if (study.StudyFilePath.Length > 0) inputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
+
+            options.Log?.Invoke($"loading catalogue {Rel(study.CataloguePath)}");
+            if (!File.Exists(study.CataloguePath))
+                throw new InputException("catalogue file not found; check catalogue.path (it is relative to the study file)", Rel(study.CataloguePath));
+            var load = CatalogLoader.Load(study.CataloguePath, new CatalogLoadOptions { Reader = study.Reader, Mapping = study.Mapping });
+            inputs.Add(study.CataloguePath);
+            options.Log?.Invoke($"{load.RowsRead} rows read, {load.Accepted} accepted, {load.Rejected} rejected");
+            Stage("load");
+
+            string ReadTable(string path)
+            {
+                var full = Path.GetFullPath(path, study.BaseDirectory);
+                var text = PhotometryFiles.ReadText(full);
+                inputs.Add(full);
+                return text;
+            }
+            var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
+            Stage("photometry");
+
+            var hypotheses = StudyHypotheses.Build(study);
+            options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
+            var observables = photometry.Observables;
+            int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
+            var result = FitStudy.Run(new FitRequest
+            {
+                Hypotheses = hypotheses,
+                Observables = observables,
+                Source = Rel(study.CataloguePath),
+                RowsRead = load.RowsRead,
+                Rejected = load.Rejected,
+                Seed = study.Seed,
+                Starts = study.Starts,
+                Bootstrap = study.Bootstrap,
+                CrossValidationFolds = folds,
+                Expected = study.Expected,
+                Sampler = study.Sampler,
+            }, options.FitProgress);
+            Stage("fit");
+
+            PosteriorSamples? posterior = null;
+            if (study.Sampler == "mcmc" && result.Models.Count > 0)
+            {
+                options.Log?.Invoke($"sampling the posterior of {result.Models[0].Name}");
+                posterior = Sample(result.Models[0], hypotheses, observables, study);
+                Stage("sampling");
+            }
+
+            PowerResult? power = null;
+            if (study.PowerResultPath is { } pp)
+            {
+                if (!File.Exists(pp)) throw new InputException("power result file not found; check power.results (relative to the study file)", Rel(pp));
+                try
+                {
+                    power = PowerResultFiles.ReadJson(File.ReadAllText(pp));
+                }
+                catch (System.Text.Json.JsonException e)
+                {
+                    throw new InputException($"not a power.json written by 'sizetest power' ({e.Message.Split(". Path:")[0]})", Rel(pp), (e.LineNumber ?? 0) + 1, inner: e);
+                }
+                inputs.Add(pp);
+            }
+
+            var manifest = new RunManifest
+            {
+                SizeTestVersion = options.Version,
+                GitCommit = options.GitCommit,
+                Seed = study.Seed,
+                StudyFilePath = study.StudyFilePath.Length > 0 ? Rel(study.StudyFilePath) : "",
+                StudyFileText = study.StudyFileText,
+                Inputs = RunManifest.DescribeInputs(inputs, wd),
+            };
+            var adapterInputs = new StudyReportAdapter.Inputs(study, load, photometry.Corrections, hypotheses);
+            var data = StudyReportAdapter.Build(result, adapterInputs, options.Version, options.GitCommit, Rel(study.CataloguePath), posterior, power, manifest);
+            Stage("report data");
+
+            options.Log?.Invoke("writing the report");
+            var files = new List<string>();
+            void Text(string rel, string text) { AtomicFile.WriteAllText(folder.PathOf(rel), text); files.Add(rel); }
+            Text("results.json", ResultsJson.Serialize(result));
+            Text("results.csv", StudyResultsCsv.Write(result));
+            Text("rejects.csv", load.RejectLog.ToCsv());
+            var packOptions = new ReportPackOptions
+            {
+                Html = study.Report.Html, PdfReport = study.Report.Pdf, Png = study.Report.FigurePng,
+                Svg = study.Report.FigureSvg, Pdf = study.Report.FigurePdf, Paper = study.Report.Paper,
+            };
+            // The manifest is written last with the timings of every stage, so write the report with them filled in.
+            Stage("write results");
+            var finalManifest = manifest with { Volatile = new RunTimings(started, DateTimeOffset.UtcNow, timings.ToArray()) };
+            data = data with { Manifest = finalManifest };
+            files.AddRange(new ReportPackWriter(packOptions).WriteInto(folder.Staging, ReportContent.From(data)));
+            options.BeforeCommit?.Invoke(folder.Staging);
+            folder.Commit();
+            files.Sort(StringComparer.Ordinal);
+            options.Log?.Invoke($"wrote {files.Count} files to {Rel(folder.Target)}");
+            return new StudyRunOutcome(result, data, folder.Target, files);
+        }
+        catch
+        {
+            folder.Abandon();
+            throw;
+        }
+    }
+
+    // Affine-invariant ensemble sampling (Goodman & Weare 2010) of the best model's posterior, started in a small
+    // Gaussian ball around the maximum-likelihood point (scale: 1e-2 of each 68% half-width; common practice).
+    private static PosteriorSamples? Sample(ModelFitSummary best, IReadOnlyList<Hypothesis> hypotheses, Observables observables, StudyDefinition study)
+    {
+        var h = hypotheses.FirstOrDefault(x => x.Label == best.Name);
+        if (h is null || h.K == 0) return null;
+        var lik = h.Bind(observables);
+        var byName = best.Parameters.ToDictionary(p => p.Name, StringComparer.Ordinal);
+        var centre = h.FreeParameters.Select(p => byName[p.Name].Value).ToArray();
+        var scale = h.FreeParameters.Select(p =>
+        {
+            var e = byName[p.Name];
+            double w = 0.5 * (e.Hi - e.Lo);
+            return 1e-2 * (double.IsFinite(w) && w > 0 ? w : Math.Max(1e-3, 1e-3 * Math.Abs(e.Value)));
+        }).ToArray();
+        int walkers = Math.Max(16, 2 * h.K + 2);
+        if (walkers % 2 == 1) walkers++;
+        var sampler = new EnsembleSampler(lik.Posterior, new EnsembleSamplerOptions
+        {
+            Walkers = walkers, Steps = study.SamplerSteps, Seed = study.Seed, ParameterNames = h.FreeParameters.Select(p => p.Name).ToArray(),
+        });
+        var run = sampler.Run(EnsembleSampler.GaussianBall(lik.Posterior, centre, scale, walkers, study.Seed));
+        var samples = run.Samples;
+        // Keep the corner plot light: at most 4000 rows, evenly thinned.
+        int stride = Math.Max(1, samples.Length / 4000);
+        return new PosteriorSamples(best.Name, h.FreeParameters.Select(p => p.Name).ToArray(),
+            h.FreeParameters.Select(p => p.Spec.Unit.Length == 0 ? "dimensionless" : p.Spec.Unit).ToArray(),
+            samples.Where((_, i) => i % stride == 0).ToArray());
+    }
+}

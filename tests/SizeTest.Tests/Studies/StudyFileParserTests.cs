@@ -1,0 +1,147 @@
+using Xunit;
+using SizeTest.Common;
+using SizeTest.Inference;
+using SizeTest.Studies;
+
+namespace SizeTest.Tests.Studies;
+
+public sealed class StudyFileParserTests
+{
+    private static StudyDefinition Parse(string text) => StudyFileParser.Parse(text, "s.toml", "/data");
+
+    [Fact]
+    public void ReadsEveryTable()
+    {
+        var s = Parse("""
+            name = "full"
+            seed = 42
+            [catalogue]
+            path = "cat/x.fits"
+            format = "fits"
+            table = 1
+            size_definition = "isophotal:25"
+            [columns]
+            z = "zspec"
+            theta = "Re:mas"
+            [corrections]
+            kcorr = "powerlaw:0.7"
+            [models]
+            names = ["lcdm", "tired-light"]
+            observable = "joint"
+            pivot_kpc = 4.0
+            [models.lcdm]
+            omega_m = { prior = [0.3, 0.02] }
+            [models.tired-light]
+            size_evolution = 0
+            [parameters]
+            size_evolution = { free = true, min = -3, max = 1 }
+            [selection]
+            sb_limit = 24.5
+            min_size = 0.1
+            [expected]
+            size_evolution = [-1.5, -0.7]
+            [inference]
+            bootstrap = 10
+            starts = 2
+            [report]
+            title = "T"
+            paper = "letter"
+            formats = ["html"]
+            """);
+        Assert.Equal("full", s.Name);
+        Assert.Equal(42, s.Seed);
+        Assert.Equal(Path.GetFullPath("/data/cat/x.fits"), s.CataloguePath);
+        Assert.Equal(SizeTest.Catalogs.CatalogFormat.Fits, s.Reader.Format);
+        Assert.Equal("1", s.Reader.Table);
+        Assert.Equal(25.0, s.Mapping.SizeDefinition!.IsophoteMagPerArcsec2);
+        Assert.Equal("mas", s.Mapping.Assignments.Single(a => a.ColumnName == "Re").Unit);
+        Assert.Equal("powerlaw:0.7", s.Corrections.KCorrection);
+        Assert.Equal(ObservableKind.Joint, s.Nuisance.Observable);
+        Assert.Equal(24.5, s.Nuisance.Cuts.SbLimit);
+        Assert.Equal(0.1, s.Nuisance.Cuts.MinThetaArcsec);
+        Assert.Equal(10, s.Bootstrap);
+        Assert.Equal("Letter", s.Report.Paper.Name);
+        Assert.False(s.Report.Pdf);
+        Assert.Single(s.Expected);
+
+        var hyps = StudyHypotheses.Build(s);
+        var lcdm = hyps[0].Parameters.ToDictionary(p => p.Name);
+        Assert.Equal(ParameterStatus.GaussianPrior, lcdm["omega_m"].Status);
+        Assert.Equal(-3.0, lcdm["size_evolution"].Min);   // shared bounds from [parameters]
+        var tl = hyps[1].Parameters.ToDictionary(p => p.Name);
+        Assert.Equal(ParameterStatus.Fixed, tl["size_evolution"].Status); // the per-model table wins over [parameters]
+        Assert.Equal(0.0, tl["size_evolution"].Value);
+    }
+
+    [Theory]
+    // (text, expected line, expected column): unknown keys anywhere point at the key itself.
+    [InlineData("name = \"x\"\ncolour = 1\n[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n", 2, 1)]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n  tabel = 1\n[models]\nnames = [\"lcdm\"]\n", 3, 3)]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nbootstrapp = 3\n", 6, 1)]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[parameters]\nomega_x = \"free\"\n", 6, 1)]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[parameters]\nomega_m = { prior = [0.3, 0.02], sigma = 1 }\n", 6, 34)]  // the key inside the inline table
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\", \"bogus\"]\n", 4, 18)]   // the offending list item
+    public void UnknownKeysAndValuesNameLineAndColumn(string text, int line, int column)
+    {
+        var e = Assert.Throws<InputException>(() => Parse(text));
+        Assert.Equal("s.toml", e.File);
+        Assert.Equal(line, e.Line);
+        Assert.Equal(column.ToString(System.Globalization.CultureInfo.InvariantCulture), e.Column);
+    }
+
+    [Fact]
+    public void UnknownKeyMessageNamesTheKey()
+    {
+        var e = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\nformatt = \"csv\"\n[models]\nnames = [\"lcdm\"]\n"));
+        Assert.Contains("catalogue.formatt", e.Message);
+        Assert.Contains("s.toml", e.Message);
+    }
+
+    [Theory]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[selection]\nsb_limit = 24\n")] // SB cut without an SB model
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[columns]\nthetta = \"Re\"\n")]                          // unknown role
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nsampler = \"gibbs\"\n")]
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[parameters]\nmu0 = \"free\"\n")]                        // not a size-model parameter
+    [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[[report]]\ntitle = \"x\"\n")]
+    [InlineData("[catalogue\npath = 1")]
+    public void BadSettingsAreInputErrorsWithALine(string text)
+    {
+        var e = Assert.Throws<InputException>(() => Parse(text));
+        Assert.NotNull(e.Line);
+    }
+
+    [Fact]
+    public void DemoStudyParses()
+    {
+        var path = Path.Combine(RepoRoot(), "demo-catalogs", "demo-study.toml");
+        var s = StudyFileParser.Load(path);
+        Assert.Equal("demo", s.Name);
+        Assert.True(File.Exists(s.CataloguePath));
+        Assert.True(s.Synthetic);
+    }
+
+    internal static string RepoRoot()
+    {
+        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
+            if (File.Exists(Path.Combine(d.FullName, "SizeTest.sln"))) return d.FullName;
+        throw new InvalidOperationException("repository root not found");
+    }
+}
+
+public sealed class ReadmeStudyExampleTests
+{
+    [Fact]
+    public void TheReadmeExampleParsesAndItsCorrectionsAreValid()
+    {
+        var readme = File.ReadAllText(Path.Combine(StudyFileParserTests.RepoRoot(), "README.md"));
+        int start = readme.IndexOf("```toml\n", StringComparison.Ordinal);
+        Assert.True(start >= 0, "README has a ```toml study example");
+        start += "```toml\n".Length;
+        var text = readme[start..readme.IndexOf("```", start, StringComparison.Ordinal)];
+        var s = StudyFileParser.Parse(text, "README.md", "/data");
+        Assert.Equal("my-study", s.Name);
+        Assert.Equal(4, s.Models.Count);
+        Assert.Equal(4, StudyHypotheses.Build(s).Count);
+        SizeTest.Photometry.PhotometryOptionParser.Parse(s.Corrections, _ => "");
+    }
+}

@@ -1,0 +1,160 @@
+using System.Text.Json;
+using SizeTest.Studies;
+using SizeTest.Tests.Cli;
+using Xunit;
+
+namespace SizeTest.Tests.Studies;
+
+public sealed class StudyRunTests
+{
+    [Fact]
+    public void RunWritesTheWholeFolderAndReportRedrawsIt()
+    {
+        using var fx = new StudyFixture();
+        var (exit, stdout, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit == 0, stderr);
+        foreach (var f in new[] { "results.json", "results.csv", "rejects.csv", "report.html", "manifest.json", "report-data.json", "tables" })
+            Assert.True(File.Exists(Path.Combine(fx.Out(), f)) || Directory.Exists(Path.Combine(fx.Out(), f)), f);
+        Assert.False(File.Exists(Path.Combine(fx.Out(), "report.pdf")));           // formats = ["html", "svg"]
+        Assert.NotEmpty(Directory.GetFiles(Path.Combine(fx.Out(), "figures"), "*.svg"));
+        Assert.Empty(Directory.GetFiles(Path.Combine(fx.Out(), "figures"), "*.png"));
+        Assert.Contains("lcdm", stdout);
+
+        using var results = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "results.json")));
+        var r = results.RootElement;
+        Assert.Equal(300, r.GetProperty("rows_read").GetInt64());
+        Assert.Equal(2, r.GetProperty("models").GetArrayLength());
+
+        // The mock is drawn from flat ΛCDM (MockSurveyGenerator defaults), so ΛCDM should not lose badly by BIC.
+        var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
+        Assert.All(data.Models, m => Assert.NotNull(m.Theta));                   // best-fit curves came through
+        Assert.Contains(data.Assumptions, a => a.Topic == "selection model");
+        Assert.NotNull(data.ThetaBins);
+        // The curve is the fitted model evaluated: θ(1) = R0·2^a / D_A(1) (small angle, kpc → Mpc, rad → arcsec).
+        var lcdm = data.Models.Single(m => m.Fit.Name == "lcdm");
+        double r0 = lcdm.Fit.Parameters.Single(p => p.Name == "r0_kpc").Value, a = lcdm.Fit.Parameters.Single(p => p.Name == "size_evolution").Value;
+        double dA = SizeTest.Cosmology.WorldModels.Get("lcdm").Create(new Dictionary<string, double>()).AngularDiameterDistance(1.0);
+        double expected = r0 * Math.Pow(2, a) / 1000.0 / dA * SizeTest.Common.Units.ArcsecPerRadian;
+        Assert.Equal(expected, lcdm.Theta!.At(1.0, logLog: true), expected * 2e-3);   // log-log interpolation between 100 samples
+
+        using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "manifest.json")));
+        var inputs = manifest.RootElement.GetProperty("inputs").EnumerateArray().Select(i => i.GetProperty("path").GetString()!).ToArray();
+        Assert.Contains(inputs, p => p.EndsWith("mock.csv", StringComparison.Ordinal));
+        Assert.Contains(inputs, p => p.EndsWith("study.toml", StringComparison.Ordinal));
+        Assert.Equal(File.ReadAllText(fx.StudyPath), manifest.RootElement.GetProperty("study_file").GetProperty("text").GetString());
+        Assert.Equal(11, manifest.RootElement.GetProperty("seed").GetInt64());
+
+        // `report DIR` re-renders a run folder in place and keeps results.json.
+        var before = File.ReadAllText(Path.Combine(fx.Out(), "results.json"));
+        var (rexit, _, rerr) = CliRunner.Run("report", fx.Out());
+        Assert.True(rexit == 0, rerr);
+        Assert.Equal(before, File.ReadAllText(Path.Combine(fx.Out(), "results.json")));
+        Assert.True(File.Exists(Path.Combine(fx.Out(), "report.html")));
+    }
+
+    [Fact]
+    public void ExistingOutputNeedsForce()
+    {
+        using var fx = new StudyFixture();
+        Directory.CreateDirectory(fx.Out());
+        File.WriteAllText(Path.Combine(fx.Out(), "keep.txt"), "old");
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.Equal(2, exit);
+        Assert.Contains("--force", stderr);
+        Assert.Equal("old", File.ReadAllText(Path.Combine(fx.Out(), "keep.txt")));
+
+        var (fexit, _, ferr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out(), "--force");
+        Assert.True(fexit == 0, ferr);
+        Assert.False(File.Exists(Path.Combine(fx.Out(), "keep.txt")));
+        Assert.True(File.Exists(Path.Combine(fx.Out(), "results.json")));
+    }
+
+    [Fact]
+    public void InterruptedRunLeavesTheOldReportIntact()
+    {
+        using var fx = new StudyFixture();
+        Directory.CreateDirectory(fx.Out());
+        File.WriteAllText(Path.Combine(fx.Out(), "report.html"), "old report");
+        var study = StudyFileParser.Load(fx.StudyPath);
+        Assert.Throws<IOException>(() => StudyRunner.Run(study, new StudyRunOptions
+        {
+            OutputDirectory = fx.Out(),
+            Force = true,
+            BeforeCommit = staging =>
+            {
+                Assert.True(File.Exists(Path.Combine(staging, "results.json")));   // everything was written, then the run dies
+                throw new IOException("simulated failure before the swap");
+            },
+        }));
+        Assert.Equal("old report", File.ReadAllText(Path.Combine(fx.Out(), "report.html")));
+        Assert.Single(Directory.GetFileSystemEntries(fx.Out()));
+        Assert.DoesNotContain(Directory.GetDirectories(fx.Dir), d => Path.GetFileName(d).StartsWith(".out.tmp", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void SameInputsAndSeedGiveIdenticalOutputs()
+    {
+        using var fx = new StudyFixture(extra: "");
+        var (e1, _, err1) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out("a"));
+        var (e2, _, err2) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out("b"));
+        Assert.True(e1 == 0, err1);
+        Assert.True(e2 == 0, err2);
+        foreach (var f in new[] { "results.json", "results.csv", "rejects.csv" }
+                     .Concat(Directory.GetFiles(Path.Combine(fx.Out("a"), "tables")).Select(p => "tables/" + Path.GetFileName(p))))
+            Assert.Equal(File.ReadAllBytes(Path.Combine(fx.Out("a"), f)), File.ReadAllBytes(Path.Combine(fx.Out("b"), f)));
+        Assert.Equal(WithoutVolatile(Path.Combine(fx.Out("a"), "manifest.json")), WithoutVolatile(Path.Combine(fx.Out("b"), "manifest.json")));
+    }
+
+    // The manifest keeps timestamps and timings in its last field, "volatile"; everything before it must match byte for byte.
+    private static string WithoutVolatile(string path)
+    {
+        var text = File.ReadAllText(path);
+        int i = text.IndexOf("\"volatile\"", StringComparison.Ordinal);
+        Assert.True(i > 0);
+        return text[..i];
+    }
+
+    [Fact]
+    public void BadStudyFileIsExitTwoWithLineAndColumn()
+    {
+        using var fx = new StudyFixture(extra: "\n[typo]\nx = 1\n");
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.Equal(2, exit);
+        Assert.Contains("typo", stderr);
+        Assert.Contains("study.toml", stderr);
+        Assert.False(Directory.Exists(fx.Out()));
+    }
+
+    [Fact]
+    public void McmcStudyCarriesPosteriorSamples()
+    {
+        using var fx = new StudyFixture(n: 200);
+        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nsampler = \"mcmc\"\nsampler_steps = 200"));
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit == 0, stderr);
+        var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
+        Assert.NotNull(data.Posterior);
+        Assert.Equal(3, data.Posterior!.Parameters.Count);               // r0_kpc, size_evolution, scatter_dex of the size model
+        Assert.True(data.Posterior.Samples.Count > 100);
+    }
+
+    [Fact]
+    [Trait("Category", "Slow")]
+    public void DemoRunsTheShippedStudy()
+    {
+        var outDir = Path.Combine(Path.GetTempPath(), "sizetest-demo-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            var (exit, stdout, stderr) = CliRunner.Run("demo", "--out", outDir);
+            Assert.True(exit == 0, stderr);
+            Assert.True(File.Exists(Path.Combine(outDir, "report.html")));
+            Assert.True(File.Exists(Path.Combine(outDir, "report.pdf")));
+            // The demo catalogue is drawn from flat ΛCDM (demo-catalogs/qdf-optical/README.md): ΛCDM should rank first.
+            Assert.Contains("1. lcdm", stdout);
+        }
+        finally
+        {
+            if (Directory.Exists(outDir)) Directory.Delete(outDir, recursive: true);
+        }
+    }
+}
