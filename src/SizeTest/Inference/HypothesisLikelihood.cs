@@ -25,6 +25,13 @@ namespace SizeTest.Inference;
 /// <para>Selection: each density is divided by the probability of passing the cuts at the object's redshift,
 /// Φ of the standardised limit (one cut) or the bivariate Φ₂ (two cuts; Genz 2004) [truncated Gaussian,
 /// common practice]. The magnitude is m = μ − 5 log10(θ/″) − 2.5 log10(2π).</para>
+/// <para>Isophotal sizes (<see cref="Observables.SizeDefinition"/> of kind <see cref="Catalogs.SizeKind.Isophotal"/>; joint
+/// only): the mean ln θ becomes ln θ_iso = ln[R0 (1+z)^a / D_A] + ln(r_iso/R_e) with r_iso/R_e from
+/// <see cref="IsophotalSize"/> for the Sérsic index <see cref="Observables.SersicIndex"/>, the isophote
+/// <see cref="Observables.Isophote"/> and the model's mean observed SB at R_e, μ_e,obs = μ0 + 2.5 (n − b) log10(1+z)
+/// + K + A (+ κ term), i.e. mu0 is read as the rest-frame SB at R_e (Graham &amp; Driver 2005 eq. 5). Where the model's
+/// observed central SB is fainter than the isophote the object could not be in the sample: its density, and the whole
+/// ln L, is −∞. The SB scatter is not propagated into ln(r_iso/R_e) (the correction uses the mean μ_e,obs).</para>
 /// </remarks>
 public sealed class HypothesisLikelihood : ILogDensity
 {
@@ -47,6 +54,9 @@ public sealed class HypothesisLikelihood : ILogDensity
     private readonly bool _hasThetaCut, _hasSbCut, _hasMagCut;
     private readonly double _lnPivot;
     private readonly ParameterSetting[] _free;
+    private readonly bool _isophotal;
+    private readonly double[] _isophote = [];
+    private readonly IsophotalSize? _isoSize;
     private readonly LogPosteriorDensity _posterior;
 
     /// <summary>Objects per chunk when a single evaluation is split over threads.</summary>
@@ -78,6 +88,17 @@ public sealed class HypothesisLikelihood : ILogDensity
                 _corr[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
             _negCorr = Array.ConvertAll(_corr, c => -c);
             _uniformS2mu = Array.TrueForAll(_s2mu, x => x == _s2mu[0]);
+        }
+        if (size && observables.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
+        {
+            if (_kind != ObservableKind.Joint)
+                throw new InputException("the sizes are isophotal: fit them with --observable joint, which predicts each object's isophotal radius from the surface-brightness model (mu0, sb_evolution; hold them with --fix if they are known)");
+            if (hypothesis.Nuisance.Cuts.MagLimit is not null)
+                throw new InputException("--mag-limit cannot be combined with isophotal sizes (the total magnitude is not a function of the isophotal size); drop the magnitude cut");
+            _isophote = observables.Isophote ?? throw new InputException("the sizes are isophotal but the observables carry no isophote level; build them with the photometry stage");
+            double sersicN = observables.SersicIndex ?? throw new InputException("the sizes are isophotal: set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii");
+            _isoSize = new IsophotalSize(sersicN);
+            _isophotal = true;
         }
         _l10 = new double[_n];
         _ln1pz = new double[_n];
@@ -162,7 +183,12 @@ public sealed class HypothesisLikelihood : ILogDensity
             if (name == "r0_kpc" && _y.Length == _n)
             {
                 var t = new double[_n];
-                for (int i = 0; i < _n; i++) t[i] = _y[i] + LnDa(e, i) - LnKpcPerMpc - e.Values[_iA] * _ln1pz[i];
+                for (int i = 0; i < _n; i++)
+                {
+                    t[i] = _y[i] + LnDa(e, i) - LnKpcPerMpc - e.Values[_iA] * _ln1pz[i];
+                    // Isophotal: undo ln(r_iso/R_e) estimated from the object's own μ (model-independent).
+                    if (_isophotal && _isoSize!.TryLnRadiusRatio(_mu[i], _isophote[i], out double lr)) t[i] -= lr;
+                }
                 guess = Math.Exp(Median(t));
             }
             else if (name == "mu0" && _mu.Length == _n)
@@ -443,6 +469,12 @@ public sealed class HypothesisLikelihood : ILogDensity
             double lnSizeMean = lnR0 + a * _ln1pz[i];
             double mt = c0 + a * _ln1pz[i] - LnDa(e, i);
             double mm = mu0 + slope * _l10[i] + _corr[i] + kap * (lnSizeMean - _lnPivot);
+            if (_isophotal)
+            {
+                // ln θ_iso = ln θ_e + ln(r_iso/R_e)(μ_e,obs); −∞ where the isophote is not reached.
+                if (!_isoSize!.TryLnRadiusRatio(mm, _isophote[i], out double lnRatio)) return double.NegativeInfinity;
+                mt += lnRatio;
+            }
             double vt = _s2y[i] + sig2, vm = _s2mu[i] + varMuInt, c = covInt;
             double det = vt * vm - c * c;
             double rt = _y[i] - mt, rm = _mu[i] - mm;
