@@ -309,7 +309,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         {
             ObservableKind.Size => SizeSlice(e, start, end),
             ObservableKind.SurfaceBrightness => SbSlice(e, start, end),
-            _ => JointSlice(e, start, end),
+            _ => _isophotal ? IsophotalJointSlice(e, start, end) : JointSlice(e, start, end),
         };
     }
 
@@ -469,12 +469,48 @@ public sealed class HypothesisLikelihood : ILogDensity
             double lnSizeMean = lnR0 + a * _ln1pz[i];
             double mt = c0 + a * _ln1pz[i] - LnDa(e, i);
             double mm = mu0 + slope * _l10[i] + _corr[i] + kap * (lnSizeMean - _lnPivot);
-            if (_isophotal)
-            {
-                // ln θ_iso = ln θ_e + ln(r_iso/R_e)(μ_e,obs); −∞ where the isophote is not reached.
-                if (!_isoSize!.TryLnRadiusRatio(mm, _isophote[i], out double lnRatio)) return double.NegativeInfinity;
-                mt += lnRatio;
-            }
+            double vt = _s2y[i] + sig2, vm = _s2mu[i] + varMuInt, c = covInt;
+            double det = vt * vm - c * c;
+            double rt = _y[i] - mt, rm = _mu[i] - mm;
+            acc += (vm * rt * rt - 2 * c * rt * rm + vt * rm * rm) / det + Math.Log(det);
+            if (!anyCut) continue;
+            // Each cut is a linear functional s·(ln θ, μ) + o compared with a limit; write all as "w < h".
+            int nc = 0;
+            if (_hasThetaCut) { cx[nc] = -1; cy[nc] = 0; hh[nc] = mt - _lnThetaMin; nc++; }
+            if (_hasSbCut) { cx[nc] = 0; cy[nc] = 1; hh[nc] = _sbLimit - mm; nc++; }
+            if (_hasMagCut) { cx[nc] = MagFromLnTheta; cy[nc] = 1; hh[nc] = _magLimit - (mm + MagFromLnTheta * mt + MagOffset); nc++; }
+            double s0 = Math.Sqrt(cx[0] * cx[0] * vt + 2 * cx[0] * cy[0] * c + cy[0] * cy[0] * vm);
+            if (nc == 1) { sel += NormalMath.LogPhi(hh[0] / s0); continue; }
+            double s1 = Math.Sqrt(cx[1] * cx[1] * vt + 2 * cx[1] * cy[1] * c + cy[1] * cy[1] * vm);
+            double rho = (cx[0] * cx[1] * vt + (cx[0] * cy[1] + cy[0] * cx[1]) * c + cy[0] * cy[1] * vm) / (s0 * s1);
+            sel += NormalMath.LogBivariatePhi(hh[0] / s0, hh[1] / s1, rho);
+        }
+        return -0.5 * acc - sel - 2 * HalfLn2Pi * (end - start);
+    }
+
+    // The joint model with isophotal sizes: JointSlice plus ln(r_iso/R_e) on the mean ln θ (kept separate so the
+    // non-isophotal loop is untouched). The magnitude cut is refused at bind time.
+    private double IsophotalJointSlice(Evaluation e, int start, int end)
+    {
+        var v = e.Values;
+        double lnR0 = Math.Log(v[_iR0]), c0 = lnR0 + LnKpcPerMpc, a = v[_iA];
+        double sig = Ln10 * v[_iSd], sig2 = sig * sig;
+        double mu0 = v[_iMu0], slope = 2.5 * (e.Dimming - v[_iB]);
+        double sm = v[_iSm], sm2 = sm * sm;
+        double kap = _iK >= 0 ? v[_iK] / Ln10 : 0; // dμ/d ln R
+        double covInt = kap * sig2, varMuInt = sm2 + kap * kap * sig2;
+        var iso = _isoSize!;
+        double acc = 0, sel = 0;
+        bool anyCut = _hasThetaCut || _hasSbCut || _hasMagCut;
+        Span<double> cx = stackalloc double[2], cy = stackalloc double[2], hh = stackalloc double[2];
+        for (int i = start; i < end; i++)
+        {
+            double lnSizeMean = lnR0 + a * _ln1pz[i];
+            double mt = c0 + a * _ln1pz[i] - LnDa(e, i);
+            double mm = mu0 + slope * _l10[i] + _corr[i] + kap * (lnSizeMean - _lnPivot);
+            // ln θ_iso = ln θ_e + ln(r_iso/R_e)(μ_e,obs); −∞ where the isophote is not reached.
+            if (!iso.TryLnRadiusRatio(mm, _isophote[i], out double lnRatio)) return double.NegativeInfinity;
+            mt += lnRatio;
             double vt = _s2y[i] + sig2, vm = _s2mu[i] + varMuInt, c = covInt;
             double det = vt * vm - c * c;
             double rt = _y[i] - mt, rm = _mu[i] - mm;
