@@ -23,6 +23,7 @@ internal static class FitCommand
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
         var catalogOptions = new CatalogOptions();
+        var photometryOptions = new PhotometryCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -53,6 +54,7 @@ internal static class FitCommand
         var format = CliOptions.Format();
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
+        photometryOptions.AddTo(command);
         foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
@@ -85,10 +87,12 @@ internal static class FitCommand
                 if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
 
+                var photometry = photometryOptions.ToOptions(parse);
                 string path = parse.GetValue(catalog)!;
                 folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
                 var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
-                var observables = ObservablesBuilder.Build(load.Sample, PhotometryOptions.Default).Observables;
+                var built = ObservablesBuilder.Build(load.Sample, photometry);
+                var observables = built.Observables;
                 if (nFolds > observables.Count) nFolds = 0;
                 var result = FitStudy.Run(new FitRequest
                 {
@@ -109,6 +113,7 @@ internal static class FitCommand
                     LivePoints = nLive,
                     ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
                 }, new FitProgressReporter(context));
+                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
 
                 AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
                 AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));

@@ -4,6 +4,7 @@ using System.Text;
 using System.Text.Json;
 using SizeTest.Catalogs;
 using SizeTest.Common;
+using SizeTest.Photometry;
 
 namespace SizeTest.Cli;
 
@@ -18,12 +19,14 @@ internal static class InspectCommand
     {
         var catalog = new Argument<string>("catalog") { Description = "The catalogue file (CSV/TSV/text, FITS binary table or VOTable)." };
         var cat = new CatalogOptions();
+        var phot = new PhotometryCliOptions();
         var format = CliOptions.Format();
         var rejectLog = new Option<string?>("--reject-log") { Description = "Write the rejected rows (row,column,value,reason,detail) to this CSV file." };
         var force = new Option<bool>("--force") { Description = "Replace an existing reject log." };
         var cmd = new Command("inspect", "Show how a catalogue is read: format, columns, column mapping, accepted and rejected rows, per-role statistics.");
         cmd.Arguments.Add(catalog);
         cat.AddTo(cmd);
+        phot.AddTo(cmd);
         cmd.Options.Add(format);
         cmd.Options.Add(rejectLog);
         cmd.Options.Add(force);
@@ -37,14 +40,17 @@ internal static class InspectCommand
                 if (logPath is not null && File.Exists(logPath) && !overwrite)
                     throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
                 var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
+                var photText = phot.ToText(parse);
+                var photometry = phot.ToOptions(parse);
                 var load = CatalogLoader.Load(path, options);
+                var corrections = Corrections(load, photometry, photText);
                 if (context.IsInteractive && load.RowsRead >= 1_000_000) context.Err.WriteLine();
                 if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
                 switch (parse.GetValue(format))
                 {
-                    case "json": WriteJson(context.Out, path, load); break;
+                    case "json": WriteJson(context.Out, path, load, corrections); break;
                     case "csv": WriteCsv(context.Out, load); break;
-                    default: WriteTable(context.Out, path, load, logPath); break;
+                    default: WriteTable(context.Out, path, load, logPath, corrections); break;
                 }
                 return ExitCodes.Success;
             }
@@ -54,6 +60,22 @@ internal static class InspectCommand
             }
         });
         return cmd;
+    }
+
+    // The corrections the photometry stage will apply (what fit uses). Without photometry options a catalogue the
+    // stage cannot handle (e.g. isophotal sizes without --sersic-n) is still inspected, and the problem is listed;
+    // with options given, the problem is an input error.
+    private static IReadOnlyList<string> Corrections(SampleLoad load, PhotometryOptions photometry, PhotometryOptionText given)
+    {
+        if (load.Accepted == 0) return ["none: no accepted rows"];
+        try
+        {
+            return ObservablesBuilder.Build(load.Sample, photometry).Corrections;
+        }
+        catch (InputException ex) when (given == new PhotometryOptionText())
+        {
+            return [$"cannot be applied as given: {ex.Message}"];
+        }
     }
 
     private static void Progress(CliContext context, long rows)
@@ -73,7 +95,7 @@ internal static class InspectCommand
         _ => "delimited text",
     };
 
-    private static void WriteTable(TextWriter o, string path, SampleLoad load, string? logPath)
+    private static void WriteTable(TextWriter o, string path, SampleLoad load, string? logPath, IReadOnlyList<string> corrections)
     {
         o.WriteLine($"catalogue: {path}");
         o.WriteLine($"format:    {FormatName(load)}{(load.Table is null ? "" : $", {load.Table}")}");
@@ -102,6 +124,9 @@ internal static class InspectCommand
             F(s.Min), F(s.Median), F(s.Max),
         }).ToList();
         WriteGrid(o, ["role", "column", "unit", "count", "nulls", "min", "median", "max"], stats);
+        o.WriteLine();
+        o.WriteLine("corrections that will be applied:");
+        foreach (var c in corrections) o.WriteLine($"  {c}");
     }
 
     private static void WriteGrid(TextWriter o, string[] header, List<string[]> rows)
@@ -123,7 +148,7 @@ internal static class InspectCommand
 
     private static string R(double v) => double.IsNaN(v) ? "" : v.ToString("R", CultureInfo.InvariantCulture);
 
-    private static void WriteJson(TextWriter o, string path, SampleLoad load)
+    private static void WriteJson(TextWriter o, string path, SampleLoad load, IReadOnlyList<string> corrections)
     {
         using var ms = new MemoryStream();
         using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
@@ -190,6 +215,9 @@ internal static class InspectCommand
                 Num("max", s.Max);
                 w.WriteEndObject();
             }
+            w.WriteEndArray();
+            w.WriteStartArray("corrections");
+            foreach (var c in corrections) w.WriteStringValue(c);
             w.WriteEndArray();
             w.WriteEndObject();
         }

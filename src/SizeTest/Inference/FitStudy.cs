@@ -81,6 +81,8 @@ public static class FitStudy
                       + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
         if (first.Observable == ObservableKind.SurfaceBrightness && request.Hypotheses.All(h => h.FreeParameters.Any(p => p.Name == "sb_evolution")))
             notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation (--expect sb_evolution=LO:HI), or fit --observable joint");
+        if (first.Observable != ObservableKind.SurfaceBrightness && obs.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
+            notes.Add("sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
         if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
         if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
         if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");

@@ -25,6 +25,13 @@ namespace SizeTest.Inference;
 /// <para>Selection: each density is divided by the probability of passing the cuts at the object's redshift,
 /// Φ of the standardised limit (one cut) or the bivariate Φ₂ (two cuts; Genz 2004) [truncated Gaussian,
 /// common practice]. The magnitude is m = μ − 5 log10(θ/″) − 2.5 log10(2π).</para>
+/// <para>Isophotal sizes (<see cref="Observables.SizeDefinition"/> of kind <see cref="Catalogs.SizeKind.Isophotal"/>; joint
+/// only): the mean ln θ becomes ln θ_iso = ln[R0 (1+z)^a / D_A] + ln(r_iso/R_e) with r_iso/R_e from
+/// <see cref="IsophotalSize"/> for the Sérsic index <see cref="Observables.SersicIndex"/>, the isophote
+/// <see cref="Observables.Isophote"/> and the model's mean observed SB at R_e, μ_e,obs = μ0 + 2.5 (n − b) log10(1+z)
+/// + K + A (+ κ term), i.e. mu0 is read as the rest-frame SB at R_e (Graham &amp; Driver 2005 eq. 5). Where the model's
+/// observed central SB is fainter than the isophote the object could not be in the sample: its density, and the whole
+/// ln L, is −∞. The SB scatter is not propagated into ln(r_iso/R_e) (the correction uses the mean μ_e,obs).</para>
 /// </remarks>
 public sealed class HypothesisLikelihood : ILogDensity
 {
@@ -47,6 +54,9 @@ public sealed class HypothesisLikelihood : ILogDensity
     private readonly bool _hasThetaCut, _hasSbCut, _hasMagCut;
     private readonly double _lnPivot;
     private readonly ParameterSetting[] _free;
+    private readonly bool _isophotal;
+    private readonly double[] _isophote = [];
+    private readonly IsophotalSize? _isoSize;
     private readonly LogPosteriorDensity _posterior;
 
     /// <summary>Objects per chunk when a single evaluation is split over threads.</summary>
@@ -78,6 +88,17 @@ public sealed class HypothesisLikelihood : ILogDensity
                 _corr[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
             _negCorr = Array.ConvertAll(_corr, c => -c);
             _uniformS2mu = Array.TrueForAll(_s2mu, x => x == _s2mu[0]);
+        }
+        if (size && observables.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
+        {
+            if (_kind != ObservableKind.Joint)
+                throw new InputException("the sizes are isophotal: fit them with --observable joint, which predicts each object's isophotal radius from the surface-brightness model (mu0, sb_evolution; hold them with --fix if they are known)");
+            if (hypothesis.Nuisance.Cuts.MagLimit is not null)
+                throw new InputException("--mag-limit cannot be combined with isophotal sizes (the total magnitude is not a function of the isophotal size); drop the magnitude cut");
+            _isophote = observables.Isophote ?? throw new InputException("the sizes are isophotal but the observables carry no isophote level; build them with the photometry stage");
+            double sersicN = observables.SersicIndex ?? throw new InputException("the sizes are isophotal: set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii");
+            _isoSize = new IsophotalSize(sersicN);
+            _isophotal = true;
         }
         _l10 = new double[_n];
         _ln1pz = new double[_n];
@@ -162,7 +183,12 @@ public sealed class HypothesisLikelihood : ILogDensity
             if (name == "r0_kpc" && _y.Length == _n)
             {
                 var t = new double[_n];
-                for (int i = 0; i < _n; i++) t[i] = _y[i] + LnDa(e, i) - LnKpcPerMpc - e.Values[_iA] * _ln1pz[i];
+                for (int i = 0; i < _n; i++)
+                {
+                    t[i] = _y[i] + LnDa(e, i) - LnKpcPerMpc - e.Values[_iA] * _ln1pz[i];
+                    // Isophotal: undo ln(r_iso/R_e) estimated from the object's own μ (model-independent).
+                    if (_isophotal && _isoSize!.TryLnRadiusRatio(_mu[i], _isophote[i], out double lr)) t[i] -= lr;
+                }
                 guess = Math.Exp(Median(t));
             }
             else if (name == "mu0" && _mu.Length == _n)
@@ -283,7 +309,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         {
             ObservableKind.Size => SizeSlice(e, start, end),
             ObservableKind.SurfaceBrightness => SbSlice(e, start, end),
-            _ => JointSlice(e, start, end),
+            _ => _isophotal ? IsophotalJointSlice(e, start, end) : JointSlice(e, start, end),
         };
     }
 
@@ -443,6 +469,48 @@ public sealed class HypothesisLikelihood : ILogDensity
             double lnSizeMean = lnR0 + a * _ln1pz[i];
             double mt = c0 + a * _ln1pz[i] - LnDa(e, i);
             double mm = mu0 + slope * _l10[i] + _corr[i] + kap * (lnSizeMean - _lnPivot);
+            double vt = _s2y[i] + sig2, vm = _s2mu[i] + varMuInt, c = covInt;
+            double det = vt * vm - c * c;
+            double rt = _y[i] - mt, rm = _mu[i] - mm;
+            acc += (vm * rt * rt - 2 * c * rt * rm + vt * rm * rm) / det + Math.Log(det);
+            if (!anyCut) continue;
+            // Each cut is a linear functional s·(ln θ, μ) + o compared with a limit; write all as "w < h".
+            int nc = 0;
+            if (_hasThetaCut) { cx[nc] = -1; cy[nc] = 0; hh[nc] = mt - _lnThetaMin; nc++; }
+            if (_hasSbCut) { cx[nc] = 0; cy[nc] = 1; hh[nc] = _sbLimit - mm; nc++; }
+            if (_hasMagCut) { cx[nc] = MagFromLnTheta; cy[nc] = 1; hh[nc] = _magLimit - (mm + MagFromLnTheta * mt + MagOffset); nc++; }
+            double s0 = Math.Sqrt(cx[0] * cx[0] * vt + 2 * cx[0] * cy[0] * c + cy[0] * cy[0] * vm);
+            if (nc == 1) { sel += NormalMath.LogPhi(hh[0] / s0); continue; }
+            double s1 = Math.Sqrt(cx[1] * cx[1] * vt + 2 * cx[1] * cy[1] * c + cy[1] * cy[1] * vm);
+            double rho = (cx[0] * cx[1] * vt + (cx[0] * cy[1] + cy[0] * cx[1]) * c + cy[0] * cy[1] * vm) / (s0 * s1);
+            sel += NormalMath.LogBivariatePhi(hh[0] / s0, hh[1] / s1, rho);
+        }
+        return -0.5 * acc - sel - 2 * HalfLn2Pi * (end - start);
+    }
+
+    // The joint model with isophotal sizes: JointSlice plus ln(r_iso/R_e) on the mean ln θ (kept separate so the
+    // non-isophotal loop is untouched). The magnitude cut is refused at bind time.
+    private double IsophotalJointSlice(Evaluation e, int start, int end)
+    {
+        var v = e.Values;
+        double lnR0 = Math.Log(v[_iR0]), c0 = lnR0 + LnKpcPerMpc, a = v[_iA];
+        double sig = Ln10 * v[_iSd], sig2 = sig * sig;
+        double mu0 = v[_iMu0], slope = 2.5 * (e.Dimming - v[_iB]);
+        double sm = v[_iSm], sm2 = sm * sm;
+        double kap = _iK >= 0 ? v[_iK] / Ln10 : 0; // dμ/d ln R
+        double covInt = kap * sig2, varMuInt = sm2 + kap * kap * sig2;
+        var iso = _isoSize!;
+        double acc = 0, sel = 0;
+        bool anyCut = _hasThetaCut || _hasSbCut || _hasMagCut;
+        Span<double> cx = stackalloc double[2], cy = stackalloc double[2], hh = stackalloc double[2];
+        for (int i = start; i < end; i++)
+        {
+            double lnSizeMean = lnR0 + a * _ln1pz[i];
+            double mt = c0 + a * _ln1pz[i] - LnDa(e, i);
+            double mm = mu0 + slope * _l10[i] + _corr[i] + kap * (lnSizeMean - _lnPivot);
+            // ln θ_iso = ln θ_e + ln(r_iso/R_e)(μ_e,obs); −∞ where the isophote is not reached.
+            if (!iso.TryLnRadiusRatio(mm, _isophote[i], out double lnRatio)) return double.NegativeInfinity;
+            mt += lnRatio;
             double vt = _s2y[i] + sig2, vm = _s2mu[i] + varMuInt, c = covInt;
             double det = vt * vm - c * c;
             double rt = _y[i] - mt, rm = _mu[i] - mm;
