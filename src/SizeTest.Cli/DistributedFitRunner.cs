@@ -37,6 +37,9 @@ internal static class DistributedFitRunner
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
             local = ObservablesBuilder.Build(share.Local, PhotometryOptions.Default).Observables;
             if (root && share.Whole is { } w) whole = ObservablesBuilder.Build(w, PhotometryOptions.Default).Observables;
+            // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
+            if (local.Count > 0)
+                foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
         });
         if (code != 0)
         {

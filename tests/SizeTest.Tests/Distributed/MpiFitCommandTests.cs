@@ -130,6 +130,19 @@ public sealed class MpiFitCommandTests : IDisposable
     }
 
     [MpiFact]
+    public void AMissingColumnStopsAllRanksWithOneMessage()
+    {
+        // Surface brightness needs a 'mu' column, which the catalogue lacks: checked before the fit on every rank.
+        var csv = DistributedFitCatalogues.Csv(_dir, 500);
+        string output = Path.Combine(_dir, "sb");
+        var (exit, stdout, stderr) = MpiRunner.Run(2, "fit", csv, "--models", "eds", "--observable", "sb", "--out", output);
+        Assert.Equal(2, exit);
+        Assert.Equal("", stdout.Trim());
+        Assert.Single(stderr.Split('\n'), l => l.Contains("'mu' column", StringComparison.Ordinal));
+        Assert.False(Directory.Exists(output));
+    }
+
+    [MpiFact]
     public void FitUnderAWrongLauncherIsRefused()
     {
         // Launcher variables for 2 processes, but Open MPI starts as a singleton (world size 1): N single-rank jobs.
