@@ -13,6 +13,14 @@ public static class RankContext
     private static IRankReducer? _current;
 
     /// <summary>
+    /// True when this process was started by an MPI launcher (and <c>SIZETEST_MPI</c> is not <c>off</c>): commands then take
+    /// their distributed path, which calls <see cref="Start()"/> (and so detects a wrong launcher). Does not load MPI.
+    /// </summary>
+    public static bool IsDistributed =>
+        LauncherEnvironment.FromProcess().UnderLauncher
+        && !string.Equals(Environment.GetEnvironmentVariable("SIZETEST_MPI"), "off", StringComparison.OrdinalIgnoreCase);
+
+    /// <summary>
     /// Returns the reducer for this process, starting MPI on first use (MPI can be initialised only once per
     /// process, so later calls return the same instance until it is disposed at exit).
     /// </summary>

@@ -73,21 +73,9 @@ public static class FitStudy
         }
         var ranked = ModelComparison.Rank(summaries);
         var first = request.Hypotheses[0].Nuisance;
-        var notes = new List<string>();
-        if (first.Observable != ObservableKind.SurfaceBrightness)
-            notes.Add("angular sizes constrain only R0·H0 (D_A ∝ 1/H0): h0 is held fixed unless freed, and r0_kpc is in kpc for that h0");
-        if (first.Observable != ObservableKind.Size)
-            notes.Add("surface-brightness dimming uses each model's bolometric exponent (4 for FLRW, dimming_exponent for static models)"
-                      + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
-        if (first.Observable == ObservableKind.SurfaceBrightness && request.Hypotheses.All(h => h.FreeParameters.Any(p => p.Name == "sb_evolution")))
-            notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation (--expect sb_evolution=LO:HI), or fit --observable joint");
+        var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
         if (first.Observable != ObservableKind.SurfaceBrightness && obs.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
-            notes.Add("sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
-        if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
-        if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
-        if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");
-        if (request.Sampler == "mcmc") notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");
-        if (request.Sampler == "nested") notes.Add("parameters are posterior medians with 16th–84th percentiles from nested sampling; Bayes factors use its evidences and depend on the prior bounds");
+            notes.Insert(Math.Min(2, notes.Count), "sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
         return new StudyResult
         {
             Source = request.Source,
@@ -110,5 +98,25 @@ public static class FitStudy
             Notes = notes,
             Samples = samples,
         };
+    }
+
+    /// <summary>The caveats FitStudy adds to every study (shared with the distributed study).</summary>
+    internal static List<string> StudyNotes(IReadOnlyList<Hypothesis> hypotheses, IReadOnlyList<ModelFitSummary> ranked, string sampler)
+    {
+        var first = hypotheses[0].Nuisance;
+        var notes = new List<string>();
+        if (first.Observable != ObservableKind.SurfaceBrightness)
+            notes.Add("angular sizes constrain only R0·H0 (D_A ∝ 1/H0): h0 is held fixed unless freed, and r0_kpc is in kpc for that h0");
+        if (first.Observable != ObservableKind.Size)
+            notes.Add("surface-brightness dimming uses each model's bolometric exponent (4 for FLRW, dimming_exponent for static models)"
+                      + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
+        if (first.Observable == ObservableKind.SurfaceBrightness && hypotheses.All(h => h.FreeParameters.Any(p => p.Name == "sb_evolution")))
+            notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation (--expect sb_evolution=LO:HI), or fit --observable joint");
+        if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
+        if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
+        if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");
+        if (sampler == "mcmc") notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");
+        if (sampler == "nested") notes.Add("parameters are posterior medians with 16th–84th percentiles from nested sampling; Bayes factors use its evidences and depend on the prior bounds");
+        return notes;
     }
 }

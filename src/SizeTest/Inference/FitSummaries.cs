@@ -10,8 +10,15 @@ public static class FitSummaries
     public static ModelFitSummary From(HypothesisLikelihood likelihood, MaximumLikelihoodResult fit, string? name = null)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
+        return From(likelihood.Hypothesis, likelihood.Count, fit, name);
+    }
+
+    /// <summary>As <see cref="From(HypothesisLikelihood, MaximumLikelihoodResult, string?)"/> for hypothesis <paramref name="h"/>
+    /// fitted to <paramref name="objects"/> objects (e.g. a sample spread over MPI ranks).</summary>
+    public static ModelFitSummary From(Hypothesis h, int objects, MaximumLikelihoodResult fit, string? name = null)
+    {
+        ArgumentNullException.ThrowIfNull(h);
         ArgumentNullException.ThrowIfNull(fit);
-        var h = likelihood.Hypothesis;
         var values = h.FullValues(fit.Theta);
         var list = new List<ParameterEstimate>();
         int j = 0;
@@ -27,7 +34,7 @@ public static class FitSummaries
             list.Add(new ParameterEstimate(p.Name, v, lo, hi, false, p.Spec.Unit));
             j++;
         }
-        int k = h.K, n = likelihood.Count;
+        int k = h.K, n = objects;
         return new ModelFitSummary
         {
             Name = name ?? h.Label,

@@ -63,8 +63,13 @@ public sealed class HypothesisLikelihood : ILogDensity
     public const int ChunkSize = 32768;
 
     /// <summary>Binds <paramref name="hypothesis"/> to <paramref name="observables"/>.</summary>
+    /// <param name="hypothesis">The hypothesis.</param>
+    /// <param name="observables">The objects.</param>
+    /// <param name="sharedGrid">When these objects are one part of a larger sample (a rank's share), the whole sample's
+    /// redshift bounds and size: the D_A grid of a free-cosmology fit then spans them, so the parts add up to the
+    /// whole-sample likelihood for any split. Null: the grid spans these objects.</param>
     /// <exception cref="InputException">The observables lack what the observable kind needs.</exception>
-    public HypothesisLikelihood(Hypothesis hypothesis, Observables observables)
+    public HypothesisLikelihood(Hypothesis hypothesis, Observables observables, RedshiftGridSpan? sharedGrid = null)
     {
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(observables);
@@ -141,7 +146,9 @@ public sealed class HypothesisLikelihood : ILogDensity
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
 
         if (size && _cosmoFree)
-            _grid = new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(_n));
+            _grid = sharedGrid is { } span
+                ? new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(span.ObjectCount), span.MinZ, span.MaxZ)
+                : new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(_n));
         if (!_cosmoFree)
         {
             var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))

@@ -19,12 +19,32 @@ public static class MaximumLikelihood
     public static MaximumLikelihoodResult Fit(HypothesisLikelihood likelihood, OptimizerSettings? settings = null, double[]? start = null, bool covariance = true)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
+        return Fit(likelihood, likelihood.Posterior, likelihood.Hypothesis.FreeParameters, start ?? likelihood.SuggestStart(), settings, covariance);
+    }
+
+    /// <summary>
+    /// The same search for a likelihood given as any <see cref="ILogDensity"/> (e.g. a sum over MPI ranks): maximises
+    /// <paramref name="posterior"/> over the bounds of <paramref name="free"/> from <paramref name="start"/>, and reports ln L
+    /// from <paramref name="likelihood"/>.
+    /// </summary>
+    /// <param name="likelihood">ln L over the free parameters (data only).</param>
+    /// <param name="posterior">ln L + ln prior, the objective.</param>
+    /// <param name="free">The free parameters (bounds and names), in θ order.</param>
+    /// <param name="start">Starting vector.</param>
+    /// <param name="settings">Starts, seed and tolerances.</param>
+    /// <param name="covariance">Whether to compute the Hessian covariance.</param>
+    public static MaximumLikelihoodResult Fit(ILogDensity likelihood, ILogDensity posterior, IReadOnlyList<ParameterSetting> free, double[] start,
+        OptimizerSettings? settings = null, bool covariance = true)
+    {
+        ArgumentNullException.ThrowIfNull(likelihood);
+        ArgumentNullException.ThrowIfNull(posterior);
+        ArgumentNullException.ThrowIfNull(free);
+        ArgumentNullException.ThrowIfNull(start);
         settings ??= OptimizerSettings.Default;
-        var free = likelihood.Hypothesis.FreeParameters;
         int d = free.Count;
         var min = free.Select(p => p.Min).ToArray();
         var max = free.Select(p => p.Max).ToArray();
-        var post = likelihood.Posterior;
+        var post = posterior;
         if (d == 0)
         {
             double ll0 = likelihood.LogDensity([]);
@@ -43,7 +63,7 @@ public static class MaximumLikelihood
             return double.IsFinite(v) ? v : 1e300;
         }
         var objective = ObjectiveFunction.Value(Objective);
-        var x0 = start ?? likelihood.SuggestStart();
+        var x0 = start;
         var u0 = new double[d];
         tr.ToUnbounded(x0, u0);
         var rng = new Random(settings.Seed);

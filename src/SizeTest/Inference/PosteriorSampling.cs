@@ -29,10 +29,32 @@ public static class PosteriorSampling
         ModelFitSummary summary, FitRequest request, int seed, IProgress<FitProgress>? progress, CancellationToken cancel)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
+        return Run(likelihood.Hypothesis, likelihood, likelihood.Posterior, fit, summary, request, seed, progress, cancel);
+    }
+
+    /// <summary>
+    /// As <see cref="Run(HypothesisLikelihood, MaximumLikelihoodResult, ModelFitSummary, FitRequest, int, IProgress{FitProgress}?, CancellationToken)"/>
+    /// for a likelihood given as any <see cref="ILogDensity"/> over <paramref name="h"/>'s free parameters (e.g. a sum over MPI ranks).
+    /// </summary>
+    /// <param name="h">The hypothesis (free parameters, priors, label).</param>
+    /// <param name="likelihood">ln L over the free parameters.</param>
+    /// <param name="posterior">ln L + ln prior.</param>
+    /// <param name="fit">Its maximum-likelihood fit.</param>
+    /// <param name="summary">Its summary (replaced fields are returned in a copy).</param>
+    /// <param name="request">Sampler kind and sizes, chain-store factory (its observables are not used).</param>
+    /// <param name="seed">Seed for this model.</param>
+    /// <param name="progress">Progress sink.</param>
+    /// <param name="cancel">Cancellation.</param>
+    public static (ModelFitSummary Summary, PosteriorDraws? Samples) Run(Hypothesis h, ILogDensity likelihood, ILogDensity posterior, MaximumLikelihoodResult fit,
+        ModelFitSummary summary, FitRequest request, int seed, IProgress<FitProgress>? progress, CancellationToken cancel)
+    {
+        ArgumentNullException.ThrowIfNull(h);
+        ArgumentNullException.ThrowIfNull(likelihood);
+        ArgumentNullException.ThrowIfNull(posterior);
         ArgumentNullException.ThrowIfNull(fit);
         ArgumentNullException.ThrowIfNull(summary);
         ArgumentNullException.ThrowIfNull(request);
-        var h = likelihood.Hypothesis;
+        var priors = h.FreeParameters.Select(p => p.Prior).ToArray();
         var names = h.FreeParameters.Select(p => p.Name).ToArray();
         int d = names.Length;
         if (d == 0 || request.Sampler == "none") return (summary, null);
@@ -50,8 +72,8 @@ public static class PosteriorSampling
                 var p = h.FreeParameters[j];
                 return double.IsFinite(se) && se > 0 ? Math.Min(se, 0.1 * (p.Max - p.Min)) : 1e-3 * (p.Max - p.Min);
             }).ToArray();
-            var start = EnsembleSampler.GaussianBall(likelihood.Posterior, fit.Theta, scale, request.Walkers, seed);
-            var sampler = new EnsembleSampler(likelihood.Posterior, new EnsembleSamplerOptions
+            var start = EnsembleSampler.GaussianBall(posterior, fit.Theta, scale, request.Walkers, seed);
+            var sampler = new EnsembleSampler(posterior, new EnsembleSamplerOptions
             {
                 Walkers = request.Walkers,
                 Steps = request.Steps,
@@ -74,14 +96,14 @@ public static class PosteriorSampling
             p84 = j => run.Percentile(j, 84);
             converged = run.Converged;
             verdict = $"ensemble MCMC ({request.Walkers} walkers × {request.Steps} steps, acceptance {run.AcceptanceFraction:0.00}): {run.Diagnostics.Verdict.Summary}";
-            if (LaplaceEvidence.TryCompute(likelihood, likelihood.Priors, fit.Theta, out var laplace, out var failure))
+            if (LaplaceEvidence.TryCompute(likelihood, priors, fit.Theta, out var laplace, out var failure))
                 lnZ = laplace.LogEvidence;
             else verdict += $"; Laplace evidence not available ({failure})";
             samples = new PosteriorDraws(label, "mcmc", names, []);
         }
         else if (request.Sampler == "nested")
         {
-            var ns = new NestedSampler(likelihood, likelihood.Priors, new NestedSamplerOptions
+            var ns = new NestedSampler(likelihood, priors, new NestedSamplerOptions
             {
                 LivePoints = request.LivePoints,
                 Seed = seed,

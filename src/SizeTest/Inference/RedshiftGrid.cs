@@ -58,21 +58,43 @@ public sealed class RedshiftGrid
             }
             return;
         }
+        (Nodes, Index, Weights) = Uniform(z, nodes, lo, hi);
+    }
+
+    /// <summary>
+    /// Builds the uniform-in-ln z grid over the given bounds [<paramref name="minZ"/>, <paramref name="maxZ"/>] (which must
+    /// contain every <paramref name="z"/>) with <paramref name="nodes"/> nodes, never the exact distinct-redshift grid: parts of
+    /// one sample built with the whole sample's bounds share nodes and stencil weights (rank-invariant distributed fits).
+    /// </summary>
+    public RedshiftGrid(ReadOnlySpan<double> z, int nodes, double minZ, double maxZ)
+    {
+        if (nodes < 4) throw new ArgumentOutOfRangeException(nameof(nodes), "a cubic grid needs at least 4 nodes");
+        if (!(minZ > 0) || !(maxZ >= minZ) || !double.IsFinite(maxZ)) throw new ArgumentOutOfRangeException(nameof(minZ), $"grid bounds [{minZ}, {maxZ}] must be finite with 0 < min ≤ max");
+        foreach (var v in z)
+            if (!(v >= minZ && v <= maxZ)) throw new ArgumentOutOfRangeException(nameof(z), $"redshift {v} lies outside the grid bounds [{minZ}, {maxZ}]");
+        (Nodes, Index, Weights) = Uniform(z, nodes, minZ, maxZ);
+    }
+
+    private static (double[] Nodes, int[] Index, double[] Weights) Uniform(ReadOnlySpan<double> z, int nodes, double lo, double hi)
+    {
+        var index = new int[z.Length];
+        var weights = new double[4 * z.Length];
         double ulo = Math.Log(lo) - 1e-9, uhi = Math.Log(hi) + 1e-9;
         double h = (uhi - ulo) / (nodes - 1);
-        Nodes = new double[nodes];
-        for (int k = 0; k < nodes; k++) Nodes[k] = Math.Exp(ulo + k * h);
+        var nodeZ = new double[nodes];
+        for (int k = 0; k < nodes; k++) nodeZ[k] = Math.Exp(ulo + k * h);
         for (int i = 0; i < z.Length; i++)
         {
             double t = (Math.Log(z[i]) - ulo) / h;
             int j = Math.Clamp((int)Math.Floor(t) - 1, 0, nodes - 4);
             double s = t - j; // position within the stencil, nodes at 0,1,2,3
-            Index[i] = j;
-            Weights[4 * i + 0] = -(s - 1) * (s - 2) * (s - 3) / 6.0;
-            Weights[4 * i + 1] = s * (s - 2) * (s - 3) / 2.0;
-            Weights[4 * i + 2] = -s * (s - 1) * (s - 3) / 2.0;
-            Weights[4 * i + 3] = s * (s - 1) * (s - 2) / 6.0;
+            index[i] = j;
+            weights[4 * i + 0] = -(s - 1) * (s - 2) * (s - 3) / 6.0;
+            weights[4 * i + 1] = s * (s - 2) * (s - 3) / 2.0;
+            weights[4 * i + 2] = -s * (s - 1) * (s - 3) / 2.0;
+            weights[4 * i + 3] = s * (s - 1) * (s - 2) / 6.0;
         }
+        return (nodeZ, index, weights);
     }
 
     /// <summary>Interpolates node values <paramref name="nodeValues"/> at object <paramref name="i"/>.</summary>
