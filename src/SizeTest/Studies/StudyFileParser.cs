@@ -132,7 +132,7 @@ public static class StudyFileParser
         }
         catch (ArgumentException e)
         {
-            throw (selNode ?? modelsNode).Error(e.Message.Replace("--observable", "models.observable").Replace("--", "selection."));
+            throw (selNode ?? modelsNode).Error(e.Message.Replace("--observable", "models.observable").Replace("--sb-limit", "selection.sb_limit").Replace("--mag-limit", "selection.mag_limit").Replace("--min-size", "selection.min_size"));
         }
 
         // [parameters] (every model) and [models.NAME] (one model).

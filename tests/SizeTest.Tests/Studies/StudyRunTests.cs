@@ -139,6 +139,34 @@ public sealed class StudyRunTests
     }
 
     [Fact]
+    public void PowerResultBecomesThePowerCurve()
+    {
+        using var fx = new StudyFixture(extra: "\n[power]\nresults = \"power.json\"\n");
+        // Made-up power numbers (not a claim about any survey): the adapter must carry them through unchanged.
+        var power = new SizeTest.Simulation.PowerResult
+        {
+            TrueModel = "lcdm", TrueModelParameters = new Dictionary<string, double>(), TrueNuisance = new Dictionary<string, double>(),
+            Candidates = ["lcdm", "tired-light"], TrueCandidate = "lcdm", Observable = "size", Kind = "galaxy", ZDist = "uniform:0.1:2.5",
+            Seed = 1, Mocks = 10, TargetPower = 0.8, Conclusion = "test", Outcomes = [],
+            Points =
+            [
+                new(100, 10, 0.6, 0.3, 0.1, [0, 0, 0, 0, 0], 2, [], 0, "weak"),
+                new(400, 10, 0.9, 0.7, 0.5, [0, 0, 0, 0, 0], 8, [], 0, "strong"),
+            ],
+        };
+        File.WriteAllText(Path.Combine(fx.Dir, "power.json"), SizeTest.Simulation.PowerResultFiles.Json(power));
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit == 0, stderr);
+        var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
+        Assert.NotNull(data.Power);
+        Assert.Equal([100.0, 400.0], data.Power!.Lines[0].X);
+        Assert.Equal([0.6, 0.9], data.Power.Lines[0].Power);
+        Assert.Equal([0.3, 0.7], data.Power.Lines[1].Power);
+        using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "manifest.json")));
+        Assert.Contains(manifest.RootElement.GetProperty("inputs").EnumerateArray(), i => i.GetProperty("path").GetString()!.EndsWith("power.json", StringComparison.Ordinal));
+    }
+
+    [Fact]
     [Trait("Category", "Slow")]
     public void DemoRunsTheShippedStudy()
     {
