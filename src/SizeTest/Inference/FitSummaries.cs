@@ -25,7 +25,13 @@ public static class FitSummaries
         for (int i = 0; i < h.Parameters.Count; i++)
         {
             var p = h.Parameters[i];
-            if (!p.IsFree) { list.Add(new ParameterEstimate(p.Name, p.Value, p.Value, p.Value, true, p.Spec.Unit)); continue; }
+            if (!p.IsFree)
+            {
+                // A "not given" default (NaN, e.g. omega_lambda = flat) is reported as the value the model derived.
+                double fixedValue = double.IsNaN(p.Value) ? DerivedValue(h, values, p.Name) : p.Value;
+                list.Add(new ParameterEstimate(p.Name, fixedValue, fixedValue, fixedValue, true, p.Spec.Unit));
+                continue;
+            }
             double se = fit.StandardError(j);
             double v = values[i];
             double lo = double.IsFinite(se) ? Math.Max(p.Min, v - se) : double.NaN;
@@ -48,5 +54,15 @@ public static class FitSummaries
             Converged = fit.Converged,
             ExitReason = fit.ExitReason,
         };
+    }
+
+    /// <summary>The value a world model derived for a parameter left "not given" (NaN), or NaN if it defines none.</summary>
+    private static double DerivedValue(Hypothesis h, double[] values, string name)
+    {
+        var given = new Dictionary<string, double>(StringComparer.Ordinal);
+        var specs = h.Family.Parameters.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
+        for (int i = 0; i < h.Parameters.Count; i++)
+            if (specs.Contains(h.Parameters[i].Name) && !double.IsNaN(values[i])) given[h.Parameters[i].Name] = values[i];
+        return h.Family.TryCreate(given, out var model, out _) && model!.ParameterValues.TryGetValue(name, out var v) ? v : double.NaN;
     }
 }
