@@ -32,14 +32,25 @@ public sealed record LikelihoodRatioTest(string Model, string Parameter, double 
             "sb_evolution" => "surface-brightness evolution",
             _ => parameter,
         };
-        string ps = p < 1e-4 ? p.ToString("0.0e+0", System.Globalization.CultureInfo.InvariantCulture) : p.ToString("0.0000", System.Globalization.CultureInfo.InvariantCulture);
+        string ps = FormatPValue(p);
         string statement = p < alpha
-            ? $"{model} needs {what} at p = {ps} ({sigma:0.0}σ; Wilks χ² with {dof} dof)"
-            : $"{model} does not need {what} (p = {ps}; Wilks χ² with {dof} dof)";
+            ? $"{model} needs {what} at {ps} ({sigma:0.0}σ; Wilks χ² with {dof} dof)"
+            : $"{model} does not need {what} ({ps}; Wilks χ² with {dof} dof)";
         return new LikelihoodRatioTest(model, parameter, nullValue, lambda, dof, p, sigma, statement);
     }
 
     // Tail of χ² beyond double precision of 1 − CDF: use the regularised upper incomplete gamma directly.
     private static double UpperTailBound(double lambda, int dof) =>
         MathNet.Numerics.SpecialFunctions.GammaUpperRegularized(dof / 2.0, lambda / 2.0);
+
+    /// <summary>
+    /// A p-value clause for people ("p = …"): four decimals down to 1e-4, then scientific, and "&lt; 1e-300" where the
+    /// tail probability underflows double precision (so no "p = 0" is ever printed).
+    /// </summary>
+    public static string FormatPValue(double p)
+    {
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        if (p < 1e-300) return "p < 1e-300";
+        return "p = " + (p < 1e-4 ? p.ToString("0.0e+0", inv) : p.ToString("0.0000", inv));
+    }
 }

@@ -41,7 +41,7 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
             $"{model} needs {what} = {estimate.Value.ToString("0.000", inv)} (68%: {estimate.Lo.ToString("0.000", inv)} … {estimate.Hi.ToString("0.000", inv)})",
         };
         if (lrt is not null)
-            parts.Add(excluded ? $"zero evolution excluded at {lrt.Sigma.ToString("0.0", inv)}σ (p = {lrt.PValue.ToString("0.0e+0", inv)})"
+            parts.Add(excluded ? $"zero evolution excluded at {lrt.Sigma.ToString("0.0", inv)}σ ({LikelihoodRatioTest.FormatPValue(lrt.PValue)})"
                                : $"zero evolution not excluded (p = {lrt.PValue.ToString("0.000", inv)})");
         if (expected is not null)
         {

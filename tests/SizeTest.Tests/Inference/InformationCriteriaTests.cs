@@ -60,3 +60,14 @@ public sealed class InformationCriteriaTests
         Assert.Equal("not worth more than a bare mention", bf[0].Strength); // 2 ln B = 1.39 < 2 (Kass & Raftery 1995)
     }
 }
+
+public sealed class PValueWordingTests
+{
+    [Theory]
+    // Formatting rules (ours): four decimals from 1e-4 up, scientific below, and no "p = 0" when the tail underflows.
+    [InlineData(0.05, "p = 0.0500")]
+    [InlineData(3.5e-7, "p = 3.5e-7")]
+    [InlineData(0.0, "p < 1e-300")]
+    public void PValuesAreNeverPrintedAsZero(double p, string expected) =>
+        Xunit.Assert.Equal(expected, SizeTest.Inference.LikelihoodRatioTest.FormatPValue(p));
+}
