@@ -11,20 +11,8 @@ internal static class FitTables
 
     private static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : "";
 
-    /// <summary>results.csv: one row per (model, parameter), models in rank order.</summary>
-    public static string Csv(StudyResult r)
-    {
-        var sb = new StringBuilder();
-        sb.Append("rank,model,parameter,value,lo,hi,fixed,unit,log_likelihood,k,n,aic,aicc,bic,delta_aic,delta_bic,akaike_weight,converged\n");
-        int rank = 0;
-        foreach (var m in r.Models)
-        {
-            rank++;
-            foreach (var p in m.Parameters)
-                sb.Append(Inv, $"{rank},{m.Name},{p.Name},{R(p.Value)},{R(p.Lo)},{R(p.Hi)},{(p.Fixed ? "true" : "false")},{p.Unit},{R(m.LogLikelihood)},{m.K},{m.N},{R(m.Aic)},{R(m.Aicc)},{R(m.Bic)},{R(m.DeltaAic)},{R(m.DeltaBic)},{R(m.AkaikeWeight)},{(m.Converged ? "true" : "false")}\n");
-        }
-        return sb.ToString();
-    }
+    /// <summary>results.csv: one row per (model, parameter), models in rank order (the one writer, shared with <c>run</c>).</summary>
+    public static string Csv(StudyResult r) => SizeTest.Studies.StudyResultsCsv.Write(r);
 
     /// <summary>A profile curve as CSV.</summary>
     public static string ProfileCsv(ProfileLikelihoodResult p)
