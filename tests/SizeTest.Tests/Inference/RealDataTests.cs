@@ -27,11 +27,11 @@ public sealed class RealDataTests(Xunit.Abstractions.ITestOutputHelper output)
     public void VanDerWelBinsGiveThePublishedSizeEvolutionAtFixedLuminosity()
     {
         var rows = ReadTable();
-        Assert.Equal(21, rows.Count); // 21 bins (science-checks §4)
-        // The paper's sizes are physical kpc for flat ΛCDM H0 = 70, Ωm = 0.3 (science-checks §4); convert back to angles
+        Assert.Equal(21, rows.Count); // 21 bins (docs/science.md §4)
+        // The paper's sizes are physical kpc for flat ΛCDM H0 = 70, Ωm = 0.3 (docs/science.md §4); convert back to angles
         // with the same cosmology, so the fit in angle space sees the real binned θ(z).
         var lcdm = TestWorldModels.FlatLcdm.Create(new Dictionary<string, double> { ["h0"] = 70, ["omega_m"] = 0.3 });
-        // Check the test-local D_A against astropy 5.2.1 (science-checks §2.2: D_A(1) = 1651.9144 Mpc).
+        // Check the test-local D_A against astropy 5.2.1 (docs/science.md §2.2: D_A(1) = 1651.9144 Mpc).
         Assert.Equal(1651.9144, lcdm.AngularDiameterDistance(1.0), 3);
         var slopes = new List<double>();
         foreach (var group in rows.GroupBy(r => r.LogL).Where(g => g.Count() >= 4))
