@@ -59,8 +59,7 @@ public static class FitStudy
                 LikelihoodRatioTest? lrt = null;
                 if (!est.Fixed && h.FreeParameters.First(p => p.Name == name) is { } spec && spec.Min <= 0 && spec.Max >= 0)
                 {
-                    var nested = h.WithFixed(name, 0);
-                    var nlik = nested.Bind(obs);
+                    var nlik = lik.WithFixed(name, 0);
                     int j = h.FreeParameters.ToList().FindIndex(p => p.Name == name);
                     var start = fit.Theta.Where((_, k) => k != j).ToArray();
                     var nfit = MaximumLikelihood.Fit(nlik, opt, start, covariance: false);

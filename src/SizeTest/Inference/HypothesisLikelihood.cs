@@ -94,6 +94,35 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _posterior = new LogPosteriorDensity(this);
     }
 
+    private HypothesisLikelihood(HypothesisLikelihood parent, Hypothesis hypothesis)
+    {
+        _h = hypothesis;
+        _n = parent._n;
+        _cols = parent._cols;
+        _isophotal = parent._isophotal;
+        _free = hypothesis.FreeParameters.ToArray();
+        _layout = new ParameterLayout(hypothesis);
+        _lnPivot = parent._lnPivot;
+        _distances = new DistanceTerms(hypothesis, _layout, parent._distances);
+        var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
+        _kernel = hypothesis.Nuisance.Observable switch
+        {
+            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+            ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
+            _ => new JointKernel(_cols, _distances, cut, _isophotal),
+        };
+        AllowParallel = parent.AllowParallel;
+        _posterior = new LogPosteriorDensity(this);
+    }
+
+    /// <summary>
+    /// This likelihood with free parameter <paramref name="name"/> held at <paramref name="value"/> (the likelihood of
+    /// <c>Hypothesis.WithFixed(name, value)</c>), sharing the bound per-object data and the redshift grid instead of
+    /// binding again — the cheap inner likelihood of profile scans. With a grid, the distances stay the grid's
+    /// interpolation, so the profile and the full fit see the same ln L.
+    /// </summary>
+    public HypothesisLikelihood WithFixed(string name, double value) => new(this, _h.WithFixed(name, value));
+
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
     /// implied by the default world model and mu0 to the median surface brightness corrected for dimming.

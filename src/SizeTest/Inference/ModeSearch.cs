@@ -56,7 +56,7 @@ public static class ModeSearch
         foreach (var name in scanned)
         {
             cancel.ThrowIfCancellationRequested();
-            var refit = new ProfileRefit(h, obs, name);
+            var refit = new ProfileRefit(h, obs, name, likelihood);
             var scan = refit.Sweep(ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, gridPoints), fit.Theta);
             scans[name] = scan;
             foreach (var peak in Peaks(scan).Take(MaxPeaksPerParameter))

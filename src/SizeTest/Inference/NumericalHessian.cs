@@ -35,8 +35,9 @@ public static class NumericalHessian
     /// <param name="active">Which parameters to differentiate.</param>
     /// <param name="initialSteps">First-pass steps; default 10⁻⁴·max(|θ_k|, 10⁻³·range_k) for finite ranges, 10⁻³·max(|θ_k|, 1) otherwise.
     /// A step whose stencil meets a non-finite gradient (outside the support) is divided by 4, up to 20 times.</param>
+    /// <param name="refine">Whether to recompute each column with the step 10⁻³σ_k (false: one pass with the initial steps).</param>
     public static (double[,] Hessian, int Evaluations) Compute(ILogDensity f, ReadOnlySpan<double> theta, IReadOnlyList<double> min, IReadOnlyList<double> max, bool[] active,
-        IReadOnlyList<double>? initialSteps = null)
+        IReadOnlyList<double>? initialSteps = null, bool refine = true)
     {
         ArgumentNullException.ThrowIfNull(f);
         int d = theta.Length, evals = 0;
@@ -82,7 +83,7 @@ public static class NumericalHessian
                 for (int j = 0; j < d; j++) finite &= double.IsFinite(hess[j, k]);
                 if (!finite && shrinks++ < 20) { h *= 0.25; pass--; continue; }
                 double hkk = hess[k, k];
-                if (pass == 1 || !(hkk < 0) || !double.IsFinite(hkk)) break;
+                if (pass == 1 || !refine || !(hkk < 0) || !double.IsFinite(hkk)) break;
                 double next = 1e-3 / Math.Sqrt(-hkk);
                 if (next > 0.3 * h && next < 3 * h) break; // the first step was already right
                 h = Math.Min(next, 0.25 * range);
@@ -98,6 +99,23 @@ public static class NumericalHessian
         for (int j = 0; j < d; j++)
             if (!active[j]) for (int k = 0; k < d; k++) hess[j, k] = hess[k, j] = 0;
         return (hess, evals);
+    }
+
+    /// <summary>(−H)⁻¹ when −H is positive definite (Cholesky) and finite, else null.</summary>
+    public static double[,]? TryInverseOfNegative(double[,] hessian)
+    {
+        int d = hessian.GetLength(0);
+        for (int i = 0; i < d; i++)
+            for (int j = 0; j < d; j++)
+                if (!double.IsFinite(hessian[i, j])) return null;
+        var m = Matrix<double>.Build.Dense(d, d, (a, b) => -hessian[a, b]);
+        try
+        {
+            var chol = m.Cholesky();
+            if (!(chol.Determinant > 0)) return null;
+            return chol.Solve(Matrix<double>.Build.DenseIdentity(d)).ToArray();
+        }
+        catch (ArgumentException) { return null; }
     }
 
     private static void CentralGradient(ILogDensity f, double[] p, double[] into, double step, IReadOnlyList<double> min, IReadOnlyList<double> max)

@@ -20,9 +20,15 @@ public sealed class ProfileRefit
     private readonly Hypothesis _h;
     private readonly Observables _obs;
     private readonly int _j;
+    private HypothesisLikelihood? _bound;
 
     /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/>.</summary>
-    public ProfileRefit(Hypothesis hypothesis, Observables observables, string parameter)
+    /// <param name="hypothesis">The hypothesis.</param>
+    /// <param name="observables">Its objects.</param>
+    /// <param name="parameter">The profiled parameter.</param>
+    /// <param name="bound">The hypothesis already bound to <paramref name="observables"/>, if the caller has it: each refit then
+    /// reuses its per-object data and redshift grid (<see cref="HypothesisLikelihood.WithFixed"/>) instead of binding again.</param>
+    public ProfileRefit(Hypothesis hypothesis, Observables observables, string parameter, HypothesisLikelihood? bound = null)
     {
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(observables);
@@ -31,6 +37,7 @@ public sealed class ProfileRefit
         _j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
         if (_j < 0) throw new ArgumentException($"parameter '{parameter}' is not free in model '{hypothesis.Label}', so it cannot be profiled");
         Parameter = parameter;
+        _bound = bound;
     }
 
     /// <summary>The profiled parameter.</summary>
@@ -60,8 +67,7 @@ public sealed class ProfileRefit
     /// other components of <paramref name="start"/> (a full θ).</summary>
     public ProfileSample At(double value, ReadOnlySpan<double> start)
     {
-        var fixedH = _h.WithFixed(Parameter, value);
-        var lik = fixedH.Bind(_obs);
+        var lik = LazyInitializer.EnsureInitialized(ref _bound, () => _h.Bind(_obs)).WithFixed(Parameter, value);
         var s = new double[start.Length - 1];
         for (int k = 0, m = 0; k < start.Length; k++) if (k != _j) s[m++] = start[k];
         var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1, InitialStep: 0.2), s, covariance: false);

@@ -11,7 +11,7 @@ namespace SizeTest.Inference;
 /// </summary>
 /// <remarks>
 /// Stopping: <see cref="OptimizerExit.Converged"/> when the quasi-Newton decrement −gᵀd of the projected gradient
-/// (≈ twice the predicted remaining decrease) is below <c>max(decrementTolerance, 10⁻¹⁵|f|)</c>;
+/// (≈ twice the predicted remaining decrease) is below <c>max(decrementTolerance, 10⁻¹²|f|)</c> (the rounding level of a sum of many terms);
 /// <see cref="OptimizerExit.NoFurtherProgress"/> when |Δf| ≤ 10⁻¹⁴ max(1, |f|) three times running.
 /// </remarks>
 public static class ProjectedLbfgs
@@ -29,8 +29,18 @@ public static class ProjectedLbfgs
     /// Minimises f from <paramref name="x0"/> (clamped into the box). <paramref name="f"/> returns f(x) and writes ∇f(x);
     /// it may return +∞ (or NaN) where f is undefined — such points are rejected by the line search.
     /// </summary>
+    /// <param name="f">f(x), writing ∇f(x) into the second argument.</param>
+    /// <param name="x0">Start.</param>
+    /// <param name="lower">Lower bounds.</param>
+    /// <param name="upper">Upper bounds.</param>
+    /// <param name="maxIterations">Iteration cap.</param>
+    /// <param name="decrementTolerance">Stopping threshold of the quasi-Newton decrement.</param>
+    /// <param name="memory">Curvature pairs kept.</param>
+    /// <param name="initialInverseHessian">Optional dense H₀ (an inverse-Hessian estimate at the start, e.g. the inverse of a
+    /// finite-difference Hessian): used instead of the scaled identity in the two-loop recursion, so a good estimate gives
+    /// Newton-like steps from the first iteration.</param>
     public static Result Minimize(Func<double[], double[], double> f, double[] x0, double[] lower, double[] upper,
-        int maxIterations = 500, double decrementTolerance = 1e-9, int memory = 10)
+        int maxIterations = 500, double decrementTolerance = 1e-9, int memory = 10, double[,]? initialInverseHessian = null)
     {
         int d = x0.Length, evals = 0;
         var x = new double[d];
@@ -49,22 +59,32 @@ public static class ProjectedLbfgs
                 double room = 1e-12 * Math.Max(1, upper[j] - lower[j]);
                 bind[j] = (x[j] <= lower[j] + room && g[j] > 0) || (x[j] >= upper[j] - room && g[j] < 0);
             }
-            Direction(g, bind, sList, yList, rhoList, dir);
+            Direction(g, bind, sList, yList, rhoList, dir, initialInverseHessian);
             double slope = 0;
             for (int j = 0; j < d; j++) slope += g[j] * dir[j];
             if (!(slope < 0))
             {
                 sList.Clear(); yList.Clear(); rhoList.Clear();
-                Direction(g, bind, sList, yList, rhoList, dir);
+                Direction(g, bind, sList, yList, rhoList, dir, initialInverseHessian);
                 slope = 0;
                 for (int j = 0; j < d; j++) slope += g[j] * dir[j];
             }
-            if (-slope <= Math.Max(decrementTolerance, 1e-15 * Math.Abs(fx)) && sList.Count > 0)
+            if (-slope <= Math.Max(decrementTolerance, 1e-12 * Math.Abs(fx)) && sList.Count > 0 && iter > 0)
                 return new Result(x, fx, g, OptimizerExit.Converged, iter, evals);
-            if (slope == 0) return new Result(x, fx, g, OptimizerExit.Converged, iter, evals);
+            if (!(slope < 0) && initialInverseHessian is not null)
+            {
+                // The dense estimate does not give a descent direction here: drop it for the rest of the run.
+                initialInverseHessian = null;
+                Direction(g, bind, sList, yList, rhoList, dir, null);
+                slope = 0;
+                for (int j = 0; j < d; j++) slope += g[j] * dir[j];
+            }
+            if (-slope <= Math.Max(decrementTolerance, 1e-12 * Math.Abs(fx)) && initialInverseHessian is not null && iter > 0)
+                return new Result(x, fx, g, OptimizerExit.Converged, iter, evals);
+            if (slope == 0 && iter > 0) return new Result(x, fx, g, OptimizerExit.Converged, iter, evals);
             // First step without curvature memory: limit the largest coordinate move to 10% of max(|x_j|, 1e-3·range).
             double alpha = 1;
-            if (sList.Count == 0)
+            if (sList.Count == 0 && initialInverseHessian is null)
             {
                 double worst = 0;
                 for (int j = 0; j < d; j++)
@@ -81,10 +101,13 @@ public static class ProjectedLbfgs
                     xn[j] = bind[j] ? x[j] : Math.Clamp(x[j] + alpha * dir[j], lower[j], upper[j]);
                     decrease += g[j] * (xn[j] - x[j]);
                 }
+                if (-decrease <= 1e-14 * Math.Max(1, Math.Abs(fx))) break; // the step's predicted gain is below rounding
                 fn = f(xn, gn); evals++;
                 if (double.IsFinite(fn) && fn <= fx + 1e-4 * decrease) { accepted = true; break; }
                 alpha *= bt < 3 ? 0.5 : 0.2;
             }
+            if (!accepted && -slope <= 1e-9 * Math.Max(1, Math.Abs(fx)))
+                return new Result(x, fx, g, OptimizerExit.NoFurtherProgress, iter, evals);
             if (!accepted)
             {
                 if (sList.Count > 0) { sList.Clear(); yList.Clear(); rhoList.Clear(); continue; }
@@ -113,7 +136,7 @@ public static class ProjectedLbfgs
 
     // d = −H·g on the non-binding coordinates (binding ones 0), H the L-BFGS inverse-Hessian model with
     // H₀ = (sᵀy/yᵀy) I (Nocedal & Wright 2006 eq. 7.20), or the identity without memory.
-    private static void Direction(double[] g, bool[] bind, List<double[]> sList, List<double[]> yList, List<double> rhoList, double[] dir)
+    private static void Direction(double[] g, bool[] bind, List<double[]> sList, List<double[]> yList, List<double> rhoList, double[] dir, double[,]? h0)
     {
         int d = g.Length, m = sList.Count;
         var q = new double[d];
@@ -134,7 +157,20 @@ public static class ProjectedLbfgs
             for (int j = 0; j < d; j++) { sy += sList[m - 1][j] * yList[m - 1][j]; yy += yList[m - 1][j] * yList[m - 1][j]; }
             if (yy > 0) gamma = sy / yy;
         }
-        for (int j = 0; j < d; j++) q[j] *= gamma;
+        if (h0 is not null)
+        {
+            var r = new double[d];
+            for (int j = 0; j < d; j++)
+            {
+                if (bind[j]) continue;
+                double v = 0;
+                for (int k = 0; k < d; k++) if (!bind[k]) v += h0[j, k] * q[k];
+                r[j] = v;
+            }
+            Array.Copy(r, q, d);
+        }
+        else
+            for (int j = 0; j < d; j++) q[j] *= gamma;
         for (int i = 0; i < m; i++)
         {
             double b = 0;

@@ -22,6 +22,7 @@ internal sealed class DistanceTerms
     private readonly ParameterLayout _layout;
     private readonly double[]? _lnDaFixed;
     private readonly double _nFixed;
+    private readonly double[]? _gridFixed; // g on the grid when cosmology is fixed but the grid is inherited (profiles)
 
     public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, ReadOnlySpan<double> z, bool size, RedshiftGridSpan? sharedGrid)
     {
@@ -51,6 +52,27 @@ internal sealed class DistanceTerms
         }
     }
 
+    /// <summary>
+    /// The distance terms of <paramref name="hypothesis"/> — <paramref name="parent"/>'s hypothesis with some parameters held
+    /// fixed (profile refits) — reusing the parent's per-object work: its grid and stencils when it has one (then, with every
+    /// cosmological parameter now fixed, g is computed once on that grid, so profile and full fit share the same
+    /// interpolated ln D_A), or its exact per-object ln D_A when the cosmology was already fixed.
+    /// </summary>
+    public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, DistanceTerms parent)
+    {
+        _h = hypothesis;
+        _layout = layout;
+        CosmologyFree = layout.FreeCosmological.Length > 0;
+        Grid = parent.Grid;
+        if (CosmologyFree) return;
+        var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
+                    ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its fixed parameters");
+        _nFixed = model.BolometricDimmingExponent + hypothesis.Nuisance.DimmingExponentOffset;
+        if (Grid is not null)
+            _gridFixed = GridValues(model) ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' gives a non-positive angular-diameter distance on the redshift grid");
+        else _lnDaFixed = parent._lnDaFixed;
+    }
+
     /// <summary>Whether any world-model parameter is free.</summary>
     public bool CosmologyFree { get; }
 
@@ -66,7 +88,7 @@ internal sealed class DistanceTerms
     /// <summary>Builds the evaluation state for θ (null: outside the bounds' model domain).</summary>
     public LikelihoodEvaluation? Prepare(double[] theta, double[] values, bool withGradient)
     {
-        if (!CosmologyFree) return new LikelihoodEvaluation(theta, values, null, _nFixed) { HasGradient = withGradient };
+        if (!CosmologyFree) return new LikelihoodEvaluation(theta, values, _gridFixed, _nFixed) { HasGradient = withGradient };
         var model = CreateModel(values);
         if (model is null) return null;
         var g = Grid is null ? null : GridValues(model);
