@@ -22,6 +22,15 @@ public static class ProfileLikelihood
     /// <summary>Profiles <paramref name="parameter"/> on <paramref name="points"/> values spanning ±3σ around the best fit.</summary>
     public static ProfileLikelihoodResult Run(Hypothesis hypothesis, Observables observables, MaximumLikelihoodResult best, string parameter, int points = 21)
     {
+        ArgumentNullException.ThrowIfNull(observables);
+        return Run(Evaluation.EvaluationBackend.InProcess(observables), hypothesis, best, parameter, points);
+    }
+
+    /// <summary>As <see cref="Run(Hypothesis, Observables, MaximumLikelihoodResult, string, int)"/> on <paramref name="backend"/>
+    /// (profile points concurrently in one process, in order under MPI).</summary>
+    public static ProfileLikelihoodResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, MaximumLikelihoodResult best, string parameter, int points = 21)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(best);
         int j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
@@ -32,12 +41,12 @@ public static class ProfileLikelihood
         double lo = Math.Max(spec.Min, best.Theta[j] - 3 * se), hi = Math.Min(spec.Max, best.Theta[j] + 3 * se);
         var values = Enumerable.Range(0, points).Select(i => lo + (hi - lo) * i / (points - 1)).ToArray();
         var result = new ProfilePoint[points];
-        Parallel.For(0, points, i =>
+        backend.ForEach(points, i =>
         {
             var h = hypothesis.WithFixed(parameter, values[i]);
-            var lik = h.Bind(observables);
+            var lik = backend.Bind(h);
             var start = best.Theta.Where((_, k) => k != j).ToArray();
-            var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1), start, covariance: false);
+            var fit = MaximumLikelihood.Fit(lik, lik.Posterior, h.FreeParameters, start, new OptimizerSettings(Starts: 1), covariance: false);
             result[i] = new ProfilePoint(values[i], fit.LogLikelihood, fit.Converged);
         });
         double top = Math.Max(best.LogLikelihood, result.Max(p => p.LogLikelihood));
