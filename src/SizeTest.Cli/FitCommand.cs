@@ -89,7 +89,7 @@ internal static class FitCommand
                 if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 var photometry = photometryOptions.ToOptions(parse);
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry));
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false } });
             }
             catch (Exception ex)
             {

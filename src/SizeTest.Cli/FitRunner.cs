@@ -12,7 +12,11 @@ namespace SizeTest.Cli;
 internal sealed record FitArgs(
     string CatalogPath, CatalogLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
     IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry);
+    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+{
+    /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
+    public bool CvFoldsExplicit { get; init; }
+}
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
@@ -54,6 +58,8 @@ internal static class FitRunner
         {
             var totals = share!.Combine(ranks);
             var local = built!.Observables;
+            if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
+                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CatalogPath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
             var backend = new EvaluationBackend(ranks, local, share.Local.SourceRows, share.ChunkKeys);
             var request = new FitRequest
             {
@@ -66,7 +72,7 @@ internal static class FitRunner
                 Seed = a.Seed,
                 Starts = a.Starts,
                 Bootstrap = a.Bootstrap,
-                CrossValidationFolds = a.CrossValidationFolds > backend.TotalObjects ? 0 : a.CrossValidationFolds,
+                CrossValidationFolds = a.CrossValidationFolds,
                 ProfileParameter = a.ProfileParameter,
                 Expected = a.Expected,
                 Sampler = a.Sampler,

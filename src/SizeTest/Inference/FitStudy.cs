@@ -20,6 +20,17 @@ public static class FitStudy
         if (!backend.IsRoot) progress = null;
         var obs = backend.Local;
         int total = backend.TotalObjects;
+        SampleSizeCheck.RefuseUnidentifiable(request.Hypotheses, total);
+        var extraNotes = new List<string>();
+        if (SampleSizeCheck.Warning(request.Hypotheses, total) is { } small) extraNotes.Add(small);
+        int cvFolds = request.CrossValidationFolds;
+        if (cvFolds > total)
+        {
+            extraNotes.Add($"cross-validation asked for {cvFolds} folds but the sample has {total} objects: capped at {total} folds (leave-one-out)");
+            cvFolds = total;
+        }
+        // One fold assignment from the seed for every model (over the whole sample's positions), so CV differences are paired.
+        int[]? foldOf = cvFolds > 1 ? CrossValidation.AssignFolds(total, cvFolds, request.Seed) : null;
         var summaries = new List<ModelFitSummary>();
         var lrts = new List<LikelihoodRatioTest>();
         var boots = new List<BootstrapResult>();
@@ -36,11 +47,14 @@ public static class FitStudy
             progress?.Report(new FitProgress($"fitting {h.Label}", m, request.Hypotheses.Count));
             var lik = backend.Bind(h);
             var fit = MaximumLikelihood.Fit(lik, lik.Posterior, h.FreeParameters, backend.SuggestStart(h), opt);
-            var summary = FitSummaries.From(h, total, fit);
+            var refined = ModelFitRefinement.Run(backend, lik, fit, request.ModeScanPoints, cancel);
+            fit = refined.Best;
+            var summary = refined.Summary;
+            extraNotes.AddRange(refined.Notes);
             if (request.Sampler != "none")
             {
                 var (sampled, draws) = PosteriorSampling.Run(h, lik, lik.Posterior, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
-                summary = sampled;
+                summary = ModelFitRefinement.MarkPosterior(sampled);
                 if (draws is not null)
                 {
                     samples.Add(draws);
@@ -75,8 +89,8 @@ public static class FitStudy
                 boots.Add(Bootstrap.Run(backend, h, fit.Theta, resamples, unchecked(request.Seed + 7 * m),
                     done => progress?.Report(new FitProgress(stage, done, resamples)), cancel));
             }
-            if (request.CrossValidationFolds > 1 && h.K > 0)
-                cvs.Add(CrossValidation.Run(backend, h, request.CrossValidationFolds, unchecked(request.Seed + 13 * m), fit.Theta));
+            if (foldOf is not null && h.K > 0)
+                cvs.Add(CrossValidation.Run(backend, h, foldOf, cvFolds, fit.Theta));
             if (request.ProfileParameter is { } pp && h.FreeParameters.Any(p => p.Name == pp))
                 profiles.Add(ProfileLikelihood.Run(backend, h, fit, pp));
             m++;
@@ -85,6 +99,9 @@ public static class FitStudy
         var ranked = ModelComparison.Rank(summaries);
         var first = request.Hypotheses[0].Nuisance;
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
+        notes.AddRange(extraNotes);
+        if (ranked.Count > 1 && ranked[0].Tied)
+            notes.Insert(0, $"models {string.Join(", ", ranked.Where(r => r.Rank == 1).Select(r => r.Name))} tie (AIC and BIC equal within {ModelComparison.TieTolerance}): none is ranked first");
         if (!backend.Concurrent)
             notes.Add($"fitted on {backend.Description}: each rank summed the likelihood of its own rows in fixed chunks and one Allreduce per evaluation gathered the chunk sums, added in one order, so every number is the same for any number of ranks");
         if (request.Bootstrap > 0)
@@ -109,6 +126,7 @@ public static class FitStudy
             RequiredEvolution = required,
             Bootstrap = boots,
             CrossValidation = cvs,
+            CrossValidationDifferences = CrossValidationComparison.Compare(cvs),
             Profiles = profiles,
             Notes = notes,
             Samples = samples,

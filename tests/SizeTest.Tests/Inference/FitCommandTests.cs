@@ -49,7 +49,7 @@ public sealed class FitCommandTests : IDisposable
         Assert.Contains("eds", stdout);
         using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "results.json")));
         var root = doc.RootElement;
-        // Keys from design.md ("fit writes OUT/results.json …").
+        // Keys of docs/results-schema.md.
         Assert.Equal(401, root.GetProperty("rows_read").GetInt64());
         Assert.Equal(400, root.GetProperty("accepted").GetInt64());
         Assert.Equal(1, root.GetProperty("rejected").GetInt64());

@@ -70,7 +70,7 @@ public sealed class SimulateCommandTests
         Assert.Equal(300, f.Accepted);
         for (int i = 0; i < 300; i++)
             Assert.Equal(c.Sample.ThetaRad![i], f.Sample.ThetaRad![i], c.Sample.ThetaRad[i] * 1e-14); // mas×1000 vs arcsec: equal to rounding
-        // Compact sources of ℓ_m = 11.03 pc at 0.5 < z < 3 in flat ΛCDM span about 1.2–2 mas (θ = ℓ/D_A; D_A ≈ 1259–1748 Mpc, science-checks §2.2).
+        // Compact sources of ℓ_m = 11.03 pc at 0.5 < z < 3 in flat ΛCDM span about 1.2–2 mas (θ = ℓ/D_A; D_A ≈ 1259–1748 Mpc, docs/science.md §2.2).
         double medianMas = f.Sample.ThetaRad!.Order().ElementAt(150) / Units.RadiansPerMilliarcsec;
         Assert.InRange(medianMas, 0.9, 2.2);
     }

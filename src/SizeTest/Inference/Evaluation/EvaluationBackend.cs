@@ -204,6 +204,16 @@ public sealed class EvaluationBackend
         return all[..d];
     }
 
+    /// <summary>Adds one chunk-slotted vector over the processes (each process fills only its own chunks' slots, so the
+    /// other processes add exact zeros); a single process gets the vector itself.</summary>
+    internal double[] SumAll(double[] slots)
+    {
+        if (_group.Size == 1) return slots;
+        var total = new double[slots.Length];
+        _group.SumAll(slots, total);
+        return total;
+    }
+
     /// <summary>Adds one chunk-slotted vector over the processes and returns the chunks' sum in global order.</summary>
     internal double SumChunks(double[] slots)
     {
