@@ -15,20 +15,10 @@ internal static class FitTables
     public static string Csv(StudyResult r) => SizeTest.Studies.StudyResultsCsv.Write(r);
 
     /// <summary>A profile curve as CSV.</summary>
-    public static string ProfileCsv(ProfileLikelihoodResult p)
-    {
-        var sb = new StringBuilder($"{p.Parameter},log_likelihood,converged\n");
-        foreach (var pt in p.Points) sb.Append(Inv, $"{R(pt.Value)},{R(pt.LogLikelihood)},{(pt.Converged ? "true" : "false")}\n");
-        return sb.ToString();
-    }
+    public static string ProfileCsv(ProfileLikelihoodResult p) => SizeTest.Studies.StudyOutputFiles.ProfileCsv(p);
 
     /// <summary>Nested-sampling weighted samples as CSV: the free parameters, log_likelihood, log_weight.</summary>
-    public static string SamplesCsv(PosteriorDraws s)
-    {
-        var sb = new StringBuilder(string.Join(',', s.ParameterNames) + ",log_likelihood,log_weight\n");
-        foreach (var row in s.Rows) sb.Append(string.Join(',', row.Select(R))).Append('\n');
-        return sb.ToString();
-    }
+    public static string SamplesCsv(PosteriorDraws s) => SizeTest.Studies.StudyOutputFiles.SamplesCsv(s);
 
     // How an interval was obtained, when it is not the Hessian's.
     private static string Marker(ParameterEstimate p) =>

@@ -45,24 +45,32 @@ public static class ModeSearch
     public static ModeSearchResult Run(HypothesisLikelihood likelihood, Photometry.Observables observables, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
-        ArgumentNullException.ThrowIfNull(observables);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Run(backend, backend.Bind(likelihood.Hypothesis), fit, gridPoints, cancel);
+    }
+
+    /// <summary>As <see cref="Run(HypothesisLikelihood, Photometry.Observables, MaximumLikelihoodResult, int, CancellationToken)"/>
+    /// with every refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
+    public static ModeSearchResult Run(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(fit);
         var h = likelihood.Hypothesis;
         var scanned = ScannedParameters(h);
         var scans = new Dictionary<string, ProfileSample[]>(StringComparer.Ordinal);
         if (scanned.Count == 0 || !double.IsFinite(fit.LogLikelihood)) return new ModeSearchResult(fit, [fit], scans);
-        var obs = observables;
         var candidates = new List<MaximumLikelihoodResult> { fit };
         foreach (var name in scanned)
         {
             cancel.ThrowIfCancellationRequested();
-            var refit = new ProfileRefit(h, obs, name);
+            var refit = new ProfileRefit(backend, h, name);
             var scan = refit.Sweep(ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, gridPoints), fit.Theta);
             scans[name] = scan;
             foreach (var peak in Peaks(scan).Take(MaxPeaksPerParameter))
             {
                 cancel.ThrowIfCancellationRequested();
-                var f = MaximumLikelihood.Fit(likelihood, new OptimizerSettings(Starts: 1, InitialStep: 0.2), peak.Theta);
+                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, peak.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }

@@ -61,6 +61,8 @@ public sealed record StudyResult
     public IReadOnlyList<ProfileLikelihoodResult> Profiles { get; init; } = [];
     /// <summary>Caveats (degeneracies, conventions) for the reader.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+    /// <summary>One entry per model sampled by ensemble MCMC: chain length, burn-in and convergence numbers.</summary>
+    public IReadOnlyList<ChainSummary> Chains { get; init; } = [];
     /// <summary>Posterior samples for writing next to results.json (not serialised into it).</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public IReadOnlyList<PosteriorDraws> Samples { get; init; } = [];

@@ -2,26 +2,33 @@ using SizeTest.Catalogs;
 using SizeTest.Common;
 using SizeTest.Distributed;
 using SizeTest.Inference;
+using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
+using SizeTest.Studies;
 
 namespace SizeTest.Cli;
 
-/// <summary>What <c>sizetest fit</c> parsed, handed to its distributed path.</summary>
-internal sealed record DistributedFitArgs(
+/// <summary>What <c>sizetest fit</c> parsed.</summary>
+internal sealed record FitArgs(
     string CatalogPath, CatalogLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
     IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int LivePoints, PhotometryOptions Photometry);
+    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+{
+    /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
+    public bool CvFoldsExplicit { get; init; }
+}
 
 /// <summary>
-/// <c>mpirun -np N sizetest fit …</c>: every rank loads its share of the catalogue (<see cref="CatalogShare"/>), the ranks
-/// run <see cref="DistributedFitStudy"/> together, and rank 0 alone writes the output folder (results.json with the
-/// single-process schema, results.csv, rejects.csv of all ranks, samples/chains) and prints. A failure before the fit
-/// (output folder, catalogue) is agreed between the ranks so all exit with the same code and one rank prints it; a failure
-/// during the fit aborts all ranks.
+/// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
+/// its share of the catalogue (<see cref="CatalogShare"/>; one process: all of it), the processes run
+/// <see cref="FitStudy"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
+/// rank 0 alone writes the output folder through <see cref="StudyOutputFiles"/> (the writer <c>sizetest run</c> uses)
+/// and prints. A failure before the fit (output folder, catalogue) is agreed between the ranks so all exit with the same
+/// code and one rank prints it; a failure during the fit aborts all ranks.
 /// </summary>
-internal static class DistributedFitRunner
+internal static class FitRunner
 {
-    public static int Run(CliContext context, DistributedFitArgs a)
+    public static int Run(CliContext context, FitArgs a)
     {
         var ranks = RankContext.Start(); // throws InputException for a wrong launcher (exit 2)
         bool root = ranks.IsRoot;
@@ -31,12 +38,12 @@ internal static class DistributedFitRunner
         if (code != 0) return code;
 
         CatalogShare? share = null;
-        Observables? local = null, whole = null;
+        PhotometryResult? built = null;
         code = Agree(context, ranks, () =>
         {
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
-            local = ObservablesBuilder.Build(share.Local, a.Photometry).Observables;
-            if (root && share.Whole is { } w) whole = ObservablesBuilder.Build(w, a.Photometry).Observables;
+            built = ObservablesBuilder.Build(share.Local, a.Photometry);
+            var local = built.Observables;
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
                 foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
@@ -50,10 +57,15 @@ internal static class DistributedFitRunner
         try
         {
             var totals = share!.Combine(ranks);
+            var local = built!.Observables;
+            if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
+                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CatalogPath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
+            var backend = new EvaluationBackend(ranks, local, share.Local.SourceRows, share.ChunkKeys);
             var request = new FitRequest
             {
                 Hypotheses = a.Hypotheses,
-                Observables = local!,
+                Observables = local,
+                Backend = backend,
                 Source = a.CatalogPath,
                 RowsRead = totals.RowsRead,
                 Rejected = totals.Rejected,
@@ -66,20 +78,16 @@ internal static class DistributedFitRunner
                 Sampler = a.Sampler,
                 Walkers = a.Walkers,
                 Steps = a.Steps,
+                MaxSteps = a.MaxSteps,
                 LivePoints = a.LivePoints,
                 ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
             };
-            if (root && (a.CrossValidationFolds > 1 || a.ProfileParameter is not null))
-                context.Err.WriteLine("sizetest fit: under MPI cross-validation and --profile are skipped (a note in results.json says so); run as a single process for them");
-            var result = DistributedFitStudy.Run(ranks, request, share.Local.SourceRows, whole, root ? new FitProgressReporter(context) : null);
-            if (result is null) return ExitCodes.Success; // not rank 0: nothing to write or print
+            var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
+            if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
+            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
 
-            AtomicFile.WriteAllText(folder!.PathOf("results.json"), ResultsJson.Serialize(result));
-            AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
-            AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), totals.RejectCsv);
-            foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
-                AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
-            folder.Commit();
+            StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
+            folder!.Commit();
             folder = null;
 
             switch (a.Format)

@@ -1,4 +1,4 @@
-namespace SizeTest.Distributed;
+namespace SizeTest.Inference;
 
 /// <summary>
 /// Per-row weights of the Poisson bootstrap: each replicate gives row i a count w_i ~ Poisson(1) instead of drawing n
