@@ -86,11 +86,12 @@ internal static class FitCommand
                 int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
                 if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                var photometry = photometryOptions.ToOptions(parse);
+                var inputs = new List<string> { parse.GetValue(catalog)! };
+                var photometry = photometryOptions.ToOptions(parse, inputs);
                 if (SizeTest.Distributed.RankContext.IsDistributed) return DistributedFitRunner.Run(context, new DistributedFitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nLive, photometry));
 
                 string path = parse.GetValue(catalog)!;
-                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
+                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force), inputs);
                 var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
                 var built = ObservablesBuilder.Build(load.Sample, photometry);
                 var observables = built.Observables;
