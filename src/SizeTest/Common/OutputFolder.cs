@@ -340,6 +340,7 @@ public sealed class OutputFolder : IDisposable
             var pid = System.Text.Encoding.ASCII.GetBytes(Environment.ProcessId.ToString(System.Globalization.CultureInfo.InvariantCulture) + "\n");
             fs.Write(pid);
             fs.Flush();
+            StagingRegistry.Register(lockPath);   // an interrupt removes it with the staging folder
             return fs;
         }
         catch (UnauthorizedAccessException e)
@@ -360,6 +361,7 @@ public sealed class OutputFolder : IDisposable
     {
         if (fs is null) return;
         try { File.Delete(lockPath); } catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
+        StagingRegistry.Unregister(lockPath);
         fs.Dispose();
     }
 }
