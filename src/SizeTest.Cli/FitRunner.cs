@@ -16,6 +16,8 @@ internal sealed record FitArgs(
 {
     /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
     public bool CvFoldsExplicit { get; init; }
+    /// <summary>Every file the run reads (catalogue, photometry files): an output folder holding one is refused.</summary>
+    public IReadOnlyList<string> Inputs { get; init; } = [];
 }
 
 /// <summary>
@@ -34,7 +36,7 @@ internal static class FitRunner
         bool root = ranks.IsRoot;
 
         OutputFolder? folder = null;
-        int code = Agree(context, ranks, () => { if (root) folder = OutputFolder.Begin(a.OutputPath, a.Force); });
+        int code = Agree(context, ranks, () => { if (root) folder = OutputFolder.Begin(a.OutputPath, a.Force, a.Inputs); });
         if (code != 0) return code;
 
         CatalogShare? share = null;

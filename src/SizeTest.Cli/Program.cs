@@ -7,7 +7,11 @@ namespace SizeTest.Cli;
 public static class Program
 {
     /// <summary>Runs with the process's console streams.</summary>
-    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+    public static int Main(string[] args)
+    {
+        using var interrupts = InterruptCleanup.Install();
+        return Run(args, Console.Out, Console.Error);
+    }
 
     /// <summary>
     /// Runs one command line with the given writers (tests call this in-process).

@@ -34,7 +34,10 @@ public static class StudyRunner
         string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
 
         // Refuse an existing output before any work.
-        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force);
+        var knownInputs = new List<string> { study.CataloguePath };
+        if (study.StudyFilePath.Length > 0) knownInputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
+        if (study.PowerResultPath is { } powerInput) knownInputs.Add(powerInput);
+        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force, knownInputs);
         try
         {
             var inputs = new List<string>();
@@ -51,6 +54,7 @@ public static class StudyRunner
             string ReadTable(string path)
             {
                 var full = Path.GetFullPath(path, study.BaseDirectory);
+                folder.AddInput(full);
                 var text = PhotometryFiles.ReadText(full);
                 inputs.Add(full);
                 return text;
