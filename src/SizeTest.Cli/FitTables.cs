@@ -1,6 +1,8 @@
 using System.Globalization;
 using System.Text;
+using SizeTest.Common;
 using SizeTest.Inference;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Cli;
 
@@ -30,25 +32,41 @@ internal static class FitTables
         return sb.ToString();
     }
 
+    /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>
+    public static void WriteVerdict(TextWriter o, StudyResult r)
+    {
+        var v = r.Verdict;
+        o.WriteLine($"verdict: {DecisionSummary.Headline(v)} [best: {v.Best ?? "none"}; decided: {(v.Decided ? "yes" : "no")}; strength: {v.Strength}]");
+        foreach (var line in DecisionSummary.CanTheDataDecide(r)) o.WriteLine($"can the data decide: {line}");
+        var rows = EvolutionTestTable.From(r);
+        foreach (var row in rows) o.WriteLine(EvolutionTestTable.Statement(row));
+        foreach (var c in DecisionSummary.Implausible(rows)) o.WriteLine($"plausibility: {c}");
+    }
+
     /// <summary>The ranked table and the statements under it.</summary>
     public static void WriteTable(TextWriter o, StudyResult r)
     {
         o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable}; seed {r.Seed}");
         o.WriteLine();
         string evo = r.Settings.Observable == "sb" ? "sb_evolution" : "size_evolution";
-        o.WriteLine($"{"rank",4}  {"model",-16} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",8} {"BIC",11} {"ΔBIC",8} {"w(AIC)",7}  {evo + " (68%)",-28} converged");
+        string sym = evo == "sb_evolution" ? "b" : "a";
+        // ln L, AIC and BIC carry no error of their own: two decimals; ΔAIC/ΔBIC one (the Kass–Raftery scale needs no more);
+        // the evolution estimate is rounded to its 68% interval by the PDG rule.
+        o.WriteLine($"{"rank",4}  {"model",-18} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",7} {"BIC",11} {"ΔBIC",7}  {"evidence against",-34} {sym + " (68% interval)",-22} converged");
         int rank = 0;
         foreach (var m in r.Models)
         {
             rank++;
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{e.Value.ToString("0.000", Inv)} (fixed)" : $"{e.Value.ToString("0.000", Inv)} [{e.Lo.ToString("0.000", Inv)}, {e.Hi.ToString("0.000", Inv)}]";
-            o.WriteLine(string.Create(Inv, $"{rank,4}  {m.Name,-16} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,8:0.00} {m.Bic,11:0.00} {m.DeltaBic,8:0.00} {m.AkaikeWeight,7:0.000}  {ev,-28} {(m.Converged ? "yes" : "NO")}"));
+            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : PdgRounding.ValueWithInterval(e.Value, e.Lo, e.Hi);
+            string words = rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
+            o.WriteLine(string.Create(Inv, $"{rank,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }
         o.WriteLine();
+        WriteVerdict(o, r);
+        o.WriteLine();
         foreach (var b in r.BayesFactors)
-            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.00}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
-        foreach (var q in r.RequiredEvolution) o.WriteLine(q.Verdict);
+            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.0}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
         foreach (var c in r.CrossValidation)
             o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
         foreach (var b in r.Bootstrap)

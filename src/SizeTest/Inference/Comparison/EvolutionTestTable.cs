@@ -139,9 +139,9 @@ public static class EvolutionTestTable
         string src = $"expected {range}: {e.ShortSource}";
         return row.Plausibility switch
         {
-            Plausibility.WrongSign => $"{row.ModelLabel} needs {row.What} of the wrong sign: {row.Symbol} = {row.ValueText}, {physical}, whereas {expectedSign} ({src}).",
-            Plausibility.FarOutside => $"{row.ModelLabel} needs {row.What} far outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
-            Plausibility.Outside => $"{row.ModelLabel} needs {row.What} outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
+            Plausibility.WrongSign => $"{row.ModelLabel}: the fitted {row.What} has the wrong sign: {row.Symbol} = {row.ValueText}, {physical}, whereas {expectedSign} ({src}).",
+            Plausibility.FarOutside => $"{row.ModelLabel}: the fitted {row.What} lies far outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
+            Plausibility.Outside => $"{row.ModelLabel}: the fitted {row.What} lies outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
             _ => null,
         };
     }
