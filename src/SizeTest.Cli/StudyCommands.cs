@@ -81,6 +81,7 @@ internal static class StudyCommands
             Force = force,
             Version = Version(),
             GitCommit = GitCommit(),
+            Command = "sizetest " + string.Join(' ', Environment.GetCommandLineArgs().Skip(1).Select(a => a.Contains(' ', StringComparison.Ordinal) ? $"\"{a}\"" : a)),
             Log = line => context.Err.WriteLine($"sizetest {verb}: {line}"),
             FitProgress = new FitProgressReporter(context),
         });

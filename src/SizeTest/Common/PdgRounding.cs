@@ -75,6 +75,14 @@ public static class PdgRounding
         return Decimals(small) is { } d ? Fixed(RoundTo(value, d), d) : Plain(value);
     }
 
+    /// <summary>The interval's ends "lo … hi" at the precision the smaller side gives.</summary>
+    public static string IntervalBounds(double value, double lo, double hi)
+    {
+        double up = hi - value, down = value - lo;
+        double small = Math.Min(up, down) > 0 ? Math.Min(up, down) : Math.Max(up, down);
+        return Decimals(small) is { } d ? $"{Fixed(RoundTo(lo, d), d)} … {Fixed(RoundTo(hi, d), d)}" : $"{Plain(lo)} … {Plain(hi)}";
+    }
+
     /// <summary><paramref name="x"/> at <paramref name="decimals"/> places of the precision an error gives.</summary>
     public static string AtDecimals(double x, int decimals) => Fixed(RoundTo(x, decimals), decimals);
 
