@@ -32,11 +32,19 @@ public static class DecisionSummary
         return lines;
     }
 
-    /// <summary>One call-out per model whose required evolution is not plausible (wrong sign first).</summary>
+    /// <summary>
+    /// One call-out per model whose required evolution is not plausible, naming it ("static linear needs evolution
+    /// that is not plausible: a = … has the wrong sign (…) and b = … ."); models with a wrong sign come first.
+    /// </summary>
     public static IReadOnlyList<string> Implausible(IReadOnlyList<EvolutionTestRow> rows)
     {
         ArgumentNullException.ThrowIfNull(rows);
-        return rows.OrderByDescending(r => r.Plausibility == Plausibility.WrongSign).ThenByDescending(r => r.Plausibility == Plausibility.FarOutside)
-            .Select(EvolutionTestTable.CallOut).Where(s => s is not null).Select(s => s!).ToList();
+        return rows.GroupBy(r => r.Model)
+            .Select(g => (Label: g.First().ModelLabel, Worst: g.Max(r => r.Plausibility == Plausibility.WrongSign ? 3 : r.Plausibility == Plausibility.FarOutside ? 2 : r.Plausibility == Plausibility.Outside ? 1 : 0),
+                Parts: g.Select(EvolutionTestTable.CallOutFragment).Where(f => f is not null).ToList()))
+            .Where(x => x.Parts.Count > 0)
+            .OrderByDescending(x => x.Worst)
+            .Select(x => $"{x.Label}'s required evolution is not plausible: {string.Join("; and ", x.Parts)}.")
+            .ToList();
     }
 }

@@ -20,8 +20,9 @@ public sealed record EvolutionExpectation(string Parameter, string Population, d
     private static readonly Lazy<IReadOnlyList<EvolutionExpectation>> Table = new(Load);
 
     /// <summary>The citations alone (author, year, journal), without the quoted figures.</summary>
-    public string ShortSource => string.Join("; ", Source.Split(';').Select(s => s.Split(':')[0].Trim())
-        .Where(s => s.Length > 0 && !s.Contains('[', StringComparison.Ordinal)));
+    public string ShortSource => string.Join("; ", Source.Split(';')
+        .Select(s => System.Text.RegularExpressions.Regex.Replace(s, @"\s*\[[^\]]*(read|memory|practice)[^\]]*\]", "").Split(':')[0].Trim())
+        .Where(s => s.Length > 0 && !s.StartsWith("stellar-population", StringComparison.Ordinal)));
 
     /// <summary>The shipped table.</summary>
     public static IReadOnlyList<EvolutionExpectation> Shipped => Table.Value;
@@ -37,6 +38,7 @@ public sealed record EvolutionExpectation(string Parameter, string Population, d
         foreach (var o in overrides ?? [])
         {
             int i = list.FindIndex(e => e.Parameter == o.Parameter);
+            if (i >= 0 && list[i].Lo == o.Lo && list[i].Hi == o.Hi) continue; // the study restates the shipped range: keep its sources
             double w = o.Hi - o.Lo;
             var row = new EvolutionExpectation(o.Parameter, i >= 0 ? list[i].Population : "as given by the study",
                 o.Lo, o.Hi, i >= 0 ? list[i].ExpectedSign : 0, o.Lo - w, o.Hi + w, "the study file's [expected] table");

@@ -116,33 +116,31 @@ public static class EvolutionTestTable
     };
 
     /// <summary>
-    /// A call-out naming the model when its required evolution is not plausible (wrong sign, far outside or outside
-    /// the expected range), or null when it is plausible or not judged.
+    /// The part of a call-out for one row ("b = −1.96 ± 0.02 has the wrong sign (galaxies fading into the past;
+    /// passive evolution gives b &gt; 0)"), or null when the row is plausible or not judged.
     /// </summary>
-    public static string? CallOut(EvolutionTestRow row)
+    public static string? CallOutFragment(EvolutionTestRow row)
     {
         ArgumentNullException.ThrowIfNull(row);
         if (row.Expectation is not { } e) return null;
         string range = $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]";
         string physical = row.Parameter switch
         {
-            "size_evolution" => row.Value > 0 ? "objects larger in the past" : "objects smaller in the past",
-            "sb_evolution" => row.Value < 0 ? "galaxies fading into the past" : "galaxies brightening into the past",
-            _ => "",
+            "size_evolution" => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
+            "sb_evolution" => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",
+            _ => e.ExpectedSign > 0 ? "expected > 0" : "expected < 0",
         };
-        string expectedSign = row.Parameter switch
-        {
-            "size_evolution" => "sizes grow with time, so a < 0",
-            "sb_evolution" => "ageing stellar populations brighten galaxies into the past, so b > 0",
-            _ => e.ExpectedSign > 0 ? "a positive value" : "a negative value",
-        };
-        string src = $"expected {range}: {e.ShortSource}";
+        string v = $"{row.Symbol} = {row.ValueText}";
         return row.Plausibility switch
         {
-            Plausibility.WrongSign => $"{row.ModelLabel}: the fitted {row.What} has the wrong sign: {row.Symbol} = {row.ValueText}, {physical}, whereas {expectedSign} ({src}).",
-            Plausibility.FarOutside => $"{row.ModelLabel}: the fitted {row.What} lies far outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
-            Plausibility.Outside => $"{row.ModelLabel}: the fitted {row.What} lies outside the expected range: {row.Symbol} = {row.ValueText} ({src}).",
+            Plausibility.WrongSign => $"{v} has the wrong sign ({physical})",
+            Plausibility.FarOutside => $"{v} lies far outside the expected {range}",
+            Plausibility.Outside => $"{v} lies outside the expected {range}",
             _ => null,
         };
     }
+
+    /// <summary>A call-out naming the model for one row ("static linear: a = … has the wrong sign (…)."), or null.</summary>
+    public static string? CallOut(EvolutionTestRow row) =>
+        CallOutFragment(row) is { } f ? $"{row.ModelLabel}: {f}." : null;
 }

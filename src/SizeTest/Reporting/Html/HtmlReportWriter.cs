@@ -99,6 +99,7 @@ public sealed class HtmlReportWriter
         pre.study { background: #f6f6f6; border: 1px solid var(--rule); padding: .8rem; font-family: 'DejaVu Sans Mono', monospace; font-size: 12px; overflow-x: auto; white-space: pre; }
         .provenance { border: 1px solid var(--rule); border-left: 4px solid var(--accent); padding: .4rem 1rem; background: #f8fafc; }
         th { white-space: nowrap; }
+        td.num { white-space: nowrap; }
         ul.verdict { font-size: 1.02rem; }
         ul.verdict li { margin-bottom: .3rem; }
         #table-summary td:first-child { font-weight: bold; }

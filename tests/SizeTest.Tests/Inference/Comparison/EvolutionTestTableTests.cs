@@ -96,8 +96,8 @@ public sealed partial class EvolutionTestTableTests
         Assert.Equal(Plausibility.WrongSign, rows.Single(x => x.Model == "static-linear" && x.Parameter == "size_evolution").Plausibility);
         Assert.Equal(Plausibility.Outside, rows.Single(x => x.Model == "tired-light" && x.Parameter == "size_evolution").Plausibility);
         var calls = DecisionSummary.Implausible(rows);
-        Assert.Contains(calls, c => c.StartsWith("tired light: the fitted surface-brightness evolution has the wrong sign", StringComparison.Ordinal) && c.Contains("fading into the past"));
-        Assert.Contains(calls, c => c.StartsWith("static linear: the fitted size evolution has the wrong sign", StringComparison.Ordinal));
+        Assert.Contains(calls, c => c.StartsWith("tired light's required evolution is not plausible", StringComparison.Ordinal) && c.Contains("b = −1.959 ± 0.023 has the wrong sign (galaxies fading into the past"));
+        Assert.Contains(calls, c => c.StartsWith("static linear's required evolution is not plausible", StringComparison.Ordinal) && c.Contains("a = 0.490 ± 0.034 has the wrong sign"));
         Assert.DoesNotContain(calls, c => c.StartsWith("ΛCDM", StringComparison.Ordinal));
     }
 
