@@ -109,6 +109,7 @@ public static class StudyRunner
             {
                 SizeTestVersion = options.Version,
                 GitCommit = options.GitCommit,
+                Command = options.Command,
                 Seed = study.Seed,
                 StudyFilePath = study.StudyFilePath.Length > 0 ? Rel(study.StudyFilePath) : "",
                 StudyFileText = study.StudyFileText,
