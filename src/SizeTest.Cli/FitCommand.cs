@@ -94,7 +94,9 @@ internal static class FitCommand
                 var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
                 var built = ObservablesBuilder.Build(load.Sample, photometry);
                 var observables = built.Observables;
-                if (nFolds > observables.Count) nFolds = 0;
+                // An explicit --cv-folds above the sample size is refused; the default is capped by FitStudy with a note.
+                if (nFolds > observables.Count && parse.GetResult(folds) is { Implicit: false })
+                    throw new InputException($"--cv-folds {nFolds} is more than the {observables.Count} objects accepted from {path}; give at most {observables.Count} folds, or 0 for no cross-validation");
                 var result = FitStudy.Run(new FitRequest
                 {
                     Hypotheses = hypotheses,

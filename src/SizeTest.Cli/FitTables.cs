@@ -30,6 +30,11 @@ internal static class FitTables
         return sb.ToString();
     }
 
+    // How an interval was obtained, when it is not the Hessian's.
+    private static string Marker(ParameterEstimate p) =>
+        (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
+        + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
+
     /// <summary>The ranked table and the statements under it.</summary>
     public static void WriteTable(TextWriter o, StudyResult r)
     {
@@ -41,16 +46,31 @@ internal static class FitTables
         foreach (var m in r.Models)
         {
             rank++;
+            // Tied models share a rank, shown as "=1" (no order among them).
+            string shown = m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{e.Value.ToString("0.000", Inv)} (fixed)" : $"{e.Value.ToString("0.000", Inv)} [{e.Lo.ToString("0.000", Inv)}, {e.Hi.ToString("0.000", Inv)}]";
-            o.WriteLine(string.Create(Inv, $"{rank,4}  {m.Name,-16} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,8:0.00} {m.Bic,11:0.00} {m.DeltaBic,8:0.00} {m.AkaikeWeight,7:0.000}  {ev,-28} {(m.Converged ? "yes" : "NO")}"));
+            string ev = e is null ? "" : e.Fixed ? $"{e.Value.ToString("0.000", Inv)} (fixed)" : $"{e.Value.ToString("0.000", Inv)} [{e.Lo.ToString("0.000", Inv)}, {e.Hi.ToString("0.000", Inv)}]{Marker(e)}";
+            o.WriteLine(string.Create(Inv, $"{shown,4}  {m.Name,-16} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,8:0.00} {m.Bic,11:0.00} {m.DeltaBic,8:0.00} {m.AkaikeWeight,7:0.000}  {ev,-28} {(m.Converged ? "yes" : "NO")}"));
         }
         o.WriteLine();
+        foreach (var m in r.Models)
+        {
+            var special = m.Parameters.Where(p => !p.Fixed && (p.IntervalMethod != IntervalMethods.Hessian || p.AtBound is not null)).ToArray();
+            if (special.Length > 0)
+                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => string.Create(Inv, $"{p.Name} {p.Value:0.####} [{p.Lo:0.####}, {p.Hi:0.####}]{Marker(p)}"))));
+            if (m.Modes.Count > 1)
+                o.WriteLine($"{m.Name}: MULTIMODAL, {m.Modes.Count} maxima within Δ ln L < 2: " + string.Join("; ", m.Modes.Select(
+                    md => string.Join(", ", md.Parameters.Select(kv => string.Create(Inv, $"{kv.Key} {kv.Value:0.####}"))) + string.Create(Inv, $" (ln L {md.LogLikelihood:0.00})"))));
+        }
         foreach (var b in r.BayesFactors)
             o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.00}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
         foreach (var q in r.RequiredEvolution) o.WriteLine(q.Verdict);
         foreach (var c in r.CrossValidation)
             o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
+        foreach (var d in r.CrossValidationDifferences)
+            o.WriteLine(d.Tied
+                ? $"{d.Model} vs {d.Reference}: cross-validated ln p tie (paired difference {d.Difference.ToString("0.00", Inv)} over the same {d.Folds} folds)"
+                : string.Create(Inv, $"{d.Model} − {d.Reference}: paired cross-validated Δ ln p = {d.Difference:0.00} ± {d.StandardError:0.00} (same {d.Folds} folds)"));
         foreach (var b in r.Bootstrap)
             o.WriteLine($"{b.Model}: bootstrap of {b.Resamples} resamples ({b.Failed} failed): " + string.Join(", ", b.Intervals.Select(i => string.Create(Inv, $"{i.Name} {i.Median:0.###} [{i.Lo:0.###}, {i.Hi:0.###}]"))));
         foreach (var p in r.Profiles)

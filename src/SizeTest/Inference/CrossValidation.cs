@@ -8,23 +8,43 @@ namespace SizeTest.Inference;
 /// <param name="LogPredictiveDensity">Σ over folds of ln p(held-out fold | θ̂ fitted to the other folds) (plug-in).</param>
 /// <param name="StandardError">√k × the standard deviation of the per-fold sums (Vehtari, Gelman &amp; Gabry 2017, eq. 23 applied to folds).</param>
 /// <param name="FailedFolds">Folds whose training fit did not converge.</param>
-public sealed record CrossValidationResult(string Model, int Folds, double LogPredictiveDensity, double StandardError, int FailedFolds);
+public sealed record CrossValidationResult(string Model, int Folds, double LogPredictiveDensity, double StandardError, int FailedFolds)
+{
+    /// <summary>The held-out ln p of each fold, in fold order (the folds are the same for every model of a study).</summary>
+    public IReadOnlyList<double> FoldLogDensities { get; init; } = [];
+}
 
-/// <summary>k-fold cross-validation with a seeded random partition of the objects.</summary>
+/// <summary>
+/// k-fold cross-validation with a seeded random partition of the objects. The partition depends only on the number of
+/// objects, k and the seed (<see cref="AssignFolds"/>), so every model of a study is scored on the same folds and the
+/// differences between models are paired (<see cref="CrossValidationComparison"/>).
+/// </summary>
 public static class CrossValidation
 {
-    /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/>.</summary>
-    public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int folds, int seed, double[]? start = null)
+    /// <summary>The fold of each object: a seeded random permutation dealt round-robin into k folds (sizes differ by at most one).</summary>
+    public static int[] AssignFolds(int n, int folds, int seed)
     {
-        ArgumentNullException.ThrowIfNull(hypothesis);
-        ArgumentNullException.ThrowIfNull(observables);
-        int n = observables.Count;
         if (folds < 2 || folds > n) throw new ArgumentOutOfRangeException(nameof(folds), $"cross-validation needs 2 to {n} folds");
         var rng = new Random(seed);
         var perm = Enumerable.Range(0, n).ToArray();
         rng.Shuffle(perm);
         var foldOf = new int[n];
         for (int r = 0; r < n; r++) foldOf[perm[r]] = r % folds;
+        return foldOf;
+    }
+
+    /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on the folds <see cref="AssignFolds"/>(n, k, <paramref name="seed"/>).</summary>
+    public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int folds, int seed, double[]? start = null) =>
+        Run(hypothesis, observables, AssignFolds(observables?.Count ?? 0, folds, seed), folds, start);
+
+    /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on a given fold assignment.</summary>
+    public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int[] foldOf, int folds, double[]? start = null)
+    {
+        ArgumentNullException.ThrowIfNull(hypothesis);
+        ArgumentNullException.ThrowIfNull(observables);
+        ArgumentNullException.ThrowIfNull(foldOf);
+        int n = observables.Count;
+        if (foldOf.Length != n) throw new ArgumentException($"the fold assignment has {foldOf.Length} entries for {n} objects", nameof(foldOf));
         var sums = new double[folds];
         var failed = new bool[folds];
         Parallel.For(0, folds, f =>
@@ -38,6 +58,6 @@ public static class CrossValidation
         });
         double total = sums.Sum(), mean = total / folds;
         double sd = Math.Sqrt(sums.Sum(s => (s - mean) * (s - mean)) / (folds - 1));
-        return new CrossValidationResult(hypothesis.Label, folds, total, Math.Sqrt(folds) * sd, failed.Count(b => b));
+        return new CrossValidationResult(hypothesis.Label, folds, total, Math.Sqrt(folds) * sd, failed.Count(b => b)) { FoldLogDensities = sums };
     }
 }

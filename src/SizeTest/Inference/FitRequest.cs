@@ -23,6 +23,9 @@ public sealed record FitRequest
     public int Bootstrap { get; init; }
     /// <summary>Cross-validation folds (0: none).</summary>
     public int CrossValidationFolds { get; init; }
+    /// <summary>Grid points of the whole-range profile scan of each free cosmological parameter that looks for missed
+    /// maxima before the intervals are assessed (<see cref="ModeSearch"/>; 0: no scan).</summary>
+    public int ModeScanPoints { get; init; } = ModeSearch.DefaultGridPoints;
     /// <summary>Parameter to profile in every model where it is free, or null.</summary>
     public string? ProfileParameter { get; init; }
     /// <summary>Expected ranges for the evolution parameters.</summary>

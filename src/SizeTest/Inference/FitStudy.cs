@@ -14,6 +14,17 @@ public static class FitStudy
         ArgumentNullException.ThrowIfNull(request);
         if (request.Hypotheses.Count == 0) throw new ArgumentException("no world models to fit");
         var obs = request.Observables;
+        SampleSizeCheck.RefuseUnidentifiable(request.Hypotheses, obs.Count);
+        var extraNotes = new List<string>();
+        if (SampleSizeCheck.Warning(request.Hypotheses, obs.Count) is { } small) extraNotes.Add(small);
+        int cvFolds = request.CrossValidationFolds;
+        if (cvFolds > obs.Count)
+        {
+            extraNotes.Add($"cross-validation asked for {cvFolds} folds but the sample has {obs.Count} objects: capped at {obs.Count} folds (leave-one-out)");
+            cvFolds = obs.Count;
+        }
+        // One fold assignment from the seed for every model, so CV differences are paired.
+        int[]? foldOf = cvFolds > 1 ? CrossValidation.AssignFolds(obs.Count, cvFolds, request.Seed) : null;
         var summaries = new List<ModelFitSummary>();
         var lrts = new List<LikelihoodRatioTest>();
         var boots = new List<BootstrapResult>();
@@ -29,11 +40,14 @@ public static class FitStudy
             progress?.Report(new FitProgress($"fitting {h.Label}", m, request.Hypotheses.Count));
             var lik = h.Bind(obs);
             var fit = MaximumLikelihood.Fit(lik, opt);
-            var summary = FitSummaries.From(lik, fit);
+            var refined = ModelFitRefinement.Run(lik, obs, fit, request.ModeScanPoints, cancel);
+            fit = refined.Best;
+            var summary = refined.Summary;
+            extraNotes.AddRange(refined.Notes);
             if (request.Sampler != "none")
             {
                 var (sampled, draws) = PosteriorSampling.Run(lik, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
-                summary = sampled;
+                summary = ModelFitRefinement.MarkPosterior(sampled);
                 if (draws is not null) samples.Add(draws);
             }
             summaries.Add(summary);
@@ -64,8 +78,8 @@ public static class FitStudy
                 boots.Add(Bootstrap.Run(h, obs, fit.Theta, total, unchecked(request.Seed + 7 * m),
                     done => progress?.Report(new FitProgress(stage, done, total)), cancel: cancel));
             }
-            if (request.CrossValidationFolds > 1 && h.K > 0)
-                cvs.Add(CrossValidation.Run(h, obs, request.CrossValidationFolds, unchecked(request.Seed + 13 * m), fit.Theta));
+            if (foldOf is not null && h.K > 0)
+                cvs.Add(CrossValidation.Run(h, obs, foldOf, cvFolds, fit.Theta));
             if (request.ProfileParameter is { } pp && h.FreeParameters.Any(p => p.Name == pp))
                 profiles.Add(ProfileLikelihood.Run(h, obs, fit, pp));
             m++;
@@ -74,6 +88,9 @@ public static class FitStudy
         var ranked = ModelComparison.Rank(summaries);
         var first = request.Hypotheses[0].Nuisance;
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
+        notes.AddRange(extraNotes);
+        if (ranked.Count > 1 && ranked[0].Tied)
+            notes.Insert(0, $"models {string.Join(", ", ranked.Where(r => r.Rank == 1).Select(r => r.Name))} tie (AIC and BIC equal within {ModelComparison.TieTolerance}): none is ranked first");
         if (first.Observable != ObservableKind.SurfaceBrightness && obs.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
             notes.Insert(Math.Min(2, notes.Count), "sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
         return new StudyResult
@@ -94,6 +111,7 @@ public static class FitStudy
             RequiredEvolution = required,
             Bootstrap = boots,
             CrossValidation = cvs,
+            CrossValidationDifferences = CrossValidationComparison.Compare(cvs),
             Profiles = profiles,
             Notes = notes,
             Samples = samples,

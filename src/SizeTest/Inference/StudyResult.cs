@@ -55,6 +55,8 @@ public sealed record StudyResult
     public IReadOnlyList<BootstrapResult> Bootstrap { get; init; } = [];
     /// <summary>Cross-validated log predictive densities, when run.</summary>
     public IReadOnlyList<CrossValidationResult> CrossValidation { get; init; } = [];
+    /// <summary>Paired differences of cross-validated ln p from the best-scoring model (same folds for every model).</summary>
+    public IReadOnlyList<CrossValidationDifference> CrossValidationDifferences { get; init; } = [];
     /// <summary>Profile likelihoods, when requested.</summary>
     public IReadOnlyList<ProfileLikelihoodResult> Profiles { get; init; } = [];
     /// <summary>Caveats (degeneracies, conventions) for the reader.</summary>
