@@ -1,10 +1,10 @@
 using SizeTest.Reporting;
 using SizeTest.Reporting.Data;
 using SizeTest.Reporting.Pack;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Reporting;
 using Xunit;
 
-namespace SizeTest.Tests.Reporting;
+namespace SizeTest.Tests.Cli;
 
 public sealed class ReportCommandTests
 {
