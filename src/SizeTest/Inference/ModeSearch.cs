@@ -75,7 +75,7 @@ public static class ModeSearch
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }
-        var genuine = candidates.Where(c => IsMaximumAtBounds(h, obs, c)).ToList();
+        var genuine = candidates.Where(c => IsMaximumAtBounds(h, backend, c)).ToList();
         if (genuine.Count == 0) genuine.Add(fit);
         var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
@@ -135,7 +135,7 @@ public static class ModeSearch
     /// inward (10⁻³ of the range) must not be higher. In the optimiser's logistic coordinates a bound is infinitely far,
     /// so a search can stall against it on a slope that rises inward (e.g. Ωm → 0 beside a narrow maximum at 0.02).
     /// </summary>
-    public static bool IsMaximumAtBounds(Hypothesis h, Photometry.Observables observables, MaximumLikelihoodResult f)
+    public static bool IsMaximumAtBounds(Hypothesis h, Evaluation.EvaluationBackend backend, MaximumLikelihoodResult f)
     {
         ArgumentNullException.ThrowIfNull(h);
         ArgumentNullException.ThrowIfNull(f);
@@ -146,7 +146,7 @@ public static class ModeSearch
             var p = h.FreeParameters[j];
             double step = 1e-3 * (p.Max - p.Min);
             double inward = f.Theta[j] - p.Min <= p.Max - f.Theta[j] ? p.Min + step : p.Max - step;
-            var s = new ProfileRefit(h, observables, p.Name).At(inward, f.Theta);
+            var s = new ProfileRefit(backend, h, p.Name).At(inward, f.Theta);
             if (s.Objective > here + 1e-6) return false;
         }
         return true;
