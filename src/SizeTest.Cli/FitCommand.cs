@@ -48,6 +48,7 @@ internal static class FitCommand
         var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
+        var maxOutside = new Option<double>("--max-outside-selection") { Description = "Largest fraction (0–1) of objects that may lie outside --sb-limit/--mag-limit/--min-size; they go to the reject log, and beyond it the fit is refused.", DefaultValueFactory = _ => SelectionConsistency.DefaultMaxOutsideFraction };
         var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
@@ -55,7 +56,7 @@ internal static class FitCommand
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -94,7 +95,11 @@ internal static class FitCommand
                 folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force), inputs);
                 var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
                 var built = ObservablesBuilder.Build(load.Sample, photometry);
-                var observables = built.Observables;
+                // Objects outside a stated cut go to the reject log (or the fit is refused) before any likelihood.
+                var selected = SelectionConsistency.Apply(load, built.Observables, nuisance, parse.GetValue(maxOutside));
+                foreach (var w in selected.Warnings) context.Err.WriteLine($"sizetest: warning: {w}");
+                load = selected.Load;
+                var observables = selected.Observables;
                 if (nFolds > observables.Count) nFolds = 0;
                 var result = FitStudy.Run(new FitRequest
                 {
@@ -115,7 +120,7 @@ internal static class FitCommand
                     LivePoints = nLive,
                     ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
                 }, new FitProgressReporter(context));
-                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
+                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. selected.Warnings.Select(w => "selection: " + w), .. result.Notes] };
 
                 AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
                 AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
