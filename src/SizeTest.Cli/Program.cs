@@ -58,7 +58,7 @@ public static class Program
 
     private static IEnumerable<Command> Verbs(CliContext context)
     {
-        // One line per verb; keep the order of the command-line contract in design.md.
+        // One line per verb; this order is the order of 'sizetest --help' (approved in tests/SizeTest.Tests/Cli/Approved/).
         yield return ModelsCommand.Create(context);
         yield return PredictCommand.Create(context);
         yield return InspectCommand.Create(context);
