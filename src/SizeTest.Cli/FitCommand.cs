@@ -40,7 +40,8 @@ internal static class FitCommand
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
         OneOf(sampler, "--sampler", "none", "mcmc", "nested");
         var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
-        var steps = new Option<int>("--steps") { Description = "MCMC: steps per walker.", DefaultValueFactory = _ => 3000 };
+        var steps = new Option<string>("--steps") { Description = "MCMC: steps per walker, or auto: run in blocks until ≥ 50 τ, split-R̂ ≤ 1.01 and ESS ≥ 400 hold (or --max-steps is reached: not converged, exit 1).", DefaultValueFactory = _ => "auto" };
+        var maxSteps = new Option<int>("--max-steps") { Description = "MCMC with --steps auto: the most steps per walker.", DefaultValueFactory = _ => SizeTest.Inference.Sampling.ChainMemory.DefaultMaxSteps };
         var live = new Option<int>("--live-points") { Description = "Nested sampling: live points.", DefaultValueFactory = _ => 400 };
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
@@ -55,12 +56,11 @@ internal static class FitCommand
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
         {
-            OutputFolder? folder = null;
             try
             {
                 var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
@@ -83,68 +83,17 @@ internal static class FitCommand
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 string samplerName = parse.GetValue(sampler) ?? "none";
-                int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
-                if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
+                int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
+                if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                var photometry = photometryOptions.ToOptions(parse);
-                if (SizeTest.Distributed.RankContext.IsDistributed) return DistributedFitRunner.Run(context, new DistributedFitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nLive, photometry));
-
-                string path = parse.GetValue(catalog)!;
-                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
-                var built = ObservablesBuilder.Build(load.Sample, photometry);
-                var observables = built.Observables;
-                // An explicit --cv-folds above the sample size is refused; the default is capped by FitStudy with a note.
-                if (nFolds > observables.Count && parse.GetResult(folds) is { Implicit: false })
-                    throw new InputException($"--cv-folds {nFolds} is more than the {observables.Count} objects accepted from {path}; give at most {observables.Count} folds, or 0 for no cross-validation");
-                var result = FitStudy.Run(new FitRequest
-                {
-                    Hypotheses = hypotheses,
-                    Observables = observables,
-                    Source = path,
-                    RowsRead = load.RowsRead,
-                    Rejected = load.Rejected,
-                    Seed = parse.GetValue(seed),
-                    Starts = nStarts,
-                    Bootstrap = nBoot,
-                    CrossValidationFolds = nFolds,
-                    ProfileParameter = parse.GetValue(profile),
-                    Expected = expected,
-                    Sampler = samplerName,
-                    Walkers = nWalkers,
-                    Steps = nSteps,
-                    LivePoints = nLive,
-                    ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
-                }, new FitProgressReporter(context));
-                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
-
-                AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
-                AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
-                AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
-                foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
-                    AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
-                foreach (var p in result.Profiles)
-                    AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
-                folder.Commit();
-                folder = null;
-
-                switch (parse.GetValue(format))
-                {
-                    case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
-                    case "csv": context.Out.Write(FitTables.Csv(result)); break;
-                    default: FitTables.WriteTable(context.Out, result); break;
-                }
-                if (!result.AllConverged)
-                {
-                    var bad = result.Models.Where(m => !m.Converged).Select(m => $"{m.Name} ({m.ExitReason})");
-                    context.Err.WriteLine($"sizetest: fit did not converge for {string.Join("; ", bad)}; results were written to {parse.GetValue(output)} but are not reliable");
-                    return ExitCodes.AnalysisFailed;
-                }
-                return ExitCodes.Success;
+                var inputs = new List<string> { parse.GetValue(catalog)! };
+                var photometry = photometryOptions.ToOptions(parse, inputs);
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs });
             }
             catch (Exception ex)
             {
-                folder?.Abandon();
                 return context.Fail(ex);
             }
         });

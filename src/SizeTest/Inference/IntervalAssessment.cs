@@ -40,7 +40,16 @@ public static class IntervalAssessment
     public static IntervalAssessmentResult Apply(HypothesisLikelihood likelihood, Observables observables, ModeSearchResult search, ModelFitSummary summary)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
-        ArgumentNullException.ThrowIfNull(observables);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Apply(backend, backend.Bind(likelihood.Hypothesis), search, summary);
+    }
+
+    /// <summary>As <see cref="Apply(HypothesisLikelihood, Observables, ModeSearchResult, ModelFitSummary)"/> with every
+    /// refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
+    public static IntervalAssessmentResult Apply(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, ModeSearchResult search, ModelFitSummary summary)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(search);
         ArgumentNullException.ThrowIfNull(summary);
         var h = likelihood.Hypothesis;
@@ -65,7 +74,7 @@ public static class IntervalAssessment
             bool must = atBound is not null || !hasSe || affected;
             if (!must && QuadraticScreenPasses(likelihood, best, j, top)) continue;
 
-            var refit = new ProfileRefit(h, observables, p.Name);
+            var refit = new ProfileRefit(backend, h, p.Name);
             var samples = new List<ProfileSample> { new(v, top, best.LogLikelihood, best.Theta, best.Converged) };
             foreach (var m in search.Modes.Skip(1)) samples.Add(new ProfileSample(m.Theta[j], ModeSearch.Objective(h, m), m.LogLikelihood, m.Theta, m.Converged));
             if (search.Scans.TryGetValue(p.Name, out var scan)) samples.AddRange(scan.Where(s => double.IsFinite(s.Objective)));
@@ -103,7 +112,7 @@ public static class IntervalAssessment
     }
 
     // ln L at θ̂ ± Σ e_j / σ_j (inside the bounds) should be ½ below the maximum for a quadratic log-likelihood.
-    private static bool QuadraticScreenPasses(HypothesisLikelihood likelihood, MaximumLikelihoodResult best, int j, double top)
+    private static bool QuadraticScreenPasses(Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult best, int j, double top)
     {
         var cov = best.Covariance;
         if (cov is null) return false;

@@ -46,28 +46,36 @@ public static class ModeSearch
     public static ModeSearchResult Run(HypothesisLikelihood likelihood, Photometry.Observables observables, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
-        ArgumentNullException.ThrowIfNull(observables);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Run(backend, backend.Bind(likelihood.Hypothesis), fit, gridPoints, cancel);
+    }
+
+    /// <summary>As <see cref="Run(HypothesisLikelihood, Photometry.Observables, MaximumLikelihoodResult, int, CancellationToken)"/>
+    /// with every refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
+    public static ModeSearchResult Run(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(fit);
         var h = likelihood.Hypothesis;
         var scanned = ScannedParameters(h);
         var scans = new Dictionary<string, ProfileSample[]>(StringComparer.Ordinal);
         if (scanned.Count == 0 || !double.IsFinite(fit.LogLikelihood)) return new ModeSearchResult(fit, [fit], scans);
-        var obs = observables;
         var candidates = new List<MaximumLikelihoodResult> { fit };
         foreach (var name in scanned)
         {
             cancel.ThrowIfCancellationRequested();
-            var refit = new ProfileRefit(h, obs, name);
+            var refit = new ProfileRefit(backend, h, name);
             var scan = Scan(refit, fit.Theta, gridPoints);
             scans[name] = scan;
             foreach (var start in StartPoints(scan))
             {
                 cancel.ThrowIfCancellationRequested();
-                var f = MaximumLikelihood.Fit(likelihood, new OptimizerSettings(Starts: 1, InitialStep: 0.2), start.Theta);
+                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, start.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }
-        var genuine = candidates.Where(c => IsMaximumAtBounds(h, obs, c)).ToList();
+        var genuine = candidates.Where(c => IsMaximumAtBounds(backend, h, c)).ToList();
         if (genuine.Count == 0) genuine.Add(fit);
         var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
@@ -127,7 +135,7 @@ public static class ModeSearch
     /// inward (10⁻³ of the range) must not be higher. In the optimiser's logistic coordinates a bound is infinitely far,
     /// so a search can stall against it on a slope that rises inward (e.g. Ωm → 0 beside a narrow maximum at 0.02).
     /// </summary>
-    public static bool IsMaximumAtBounds(Hypothesis h, Photometry.Observables observables, MaximumLikelihoodResult f)
+    public static bool IsMaximumAtBounds(Evaluation.EvaluationBackend backend, Hypothesis h, MaximumLikelihoodResult f)
     {
         ArgumentNullException.ThrowIfNull(h);
         ArgumentNullException.ThrowIfNull(f);
@@ -138,7 +146,7 @@ public static class ModeSearch
             var p = h.FreeParameters[j];
             double step = 1e-3 * (p.Max - p.Min);
             double inward = f.Theta[j] - p.Min <= p.Max - f.Theta[j] ? p.Min + step : p.Max - step;
-            var s = new ProfileRefit(h, observables, p.Name).At(inward, f.Theta);
+            var s = new ProfileRefit(backend, h, p.Name).At(inward, f.Theta);
             if (s.Objective > here + 1e-6) return false;
         }
         return true;

@@ -2,7 +2,7 @@ namespace SizeTest.Inference;
 
 /// <summary>
 /// The reported outcome of fitting one hypothesis (world model + nuisance model) to a sample:
-/// the <c>models[]</c> entry of <c>results.json</c> (schema in design.md and the README).
+/// the <c>models[]</c> entry of <c>results.json</c> (schema in docs/results-schema.md).
 /// Comparison fields (ΔBIC, weights) are filled in by the model comparison.
 /// </summary>
 public sealed record ModelFitSummary
