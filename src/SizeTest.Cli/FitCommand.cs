@@ -89,6 +89,9 @@ internal static class FitCommand
                 if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+                if (samplerName == "mcmc")
+                    foreach (var h in hypotheses.Where(h => h.K > 0))
+                        SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
                 var inputs = new List<string> { parse.GetValue(catalog)! };
                 var photometry = photometryOptions.ToOptions(parse, inputs);
                 return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, MaxOutsideSelection = parse.GetValue(maxOutside) });
