@@ -49,7 +49,7 @@ internal static class PowerCommand
                 var grid = ParseSizes(parse.GetValue(sizes) ?? "2000");
                 var trueModel = models.Create(parse);
                 var design = survey.Design(parse, grid.Max());
-                var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse));
+                var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 string obsText = parse.GetValue(observable) ?? (design.Kind == MockObjectKind.Galaxy ? "joint" : "size");
                 if (design.Kind == MockObjectKind.CompactRadio && obsText != "size")
                     throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
