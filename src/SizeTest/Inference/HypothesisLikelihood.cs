@@ -9,7 +9,7 @@ namespace SizeTest.Inference;
 
 /// <summary>
 /// The log-likelihood of a <see cref="Hypothesis"/> for a set of <see cref="Observables"/>, over the
-/// hypothesis's free parameters. It is a sum over objects: <see cref="Prepare"/> computes everything that
+/// hypothesis's free parameters. It is a sum over objects: <see cref="Prepare(ReadOnlySpan{double}, bool)"/> computes everything that
 /// depends only on the parameters and redshift (D_A on a <see cref="RedshiftGrid"/>), <see cref="SumSlice"/>
 /// adds the objects of a row range [start, end), and partial sums add up to <see cref="LogDensity"/>
 /// (threads here; ranks later, one reduction per evaluation).
@@ -33,7 +33,7 @@ namespace SizeTest.Inference;
 /// observed central SB is fainter than the isophote the object could not be in the sample: its density, and the whole
 /// ln L, is −∞. The SB scatter is not propagated into ln(r_iso/R_e) (the correction uses the mean μ_e,obs).</para>
 /// </remarks>
-public sealed class HypothesisLikelihood : ILogDensity
+public sealed class HypothesisLikelihood : ISlicedLogLikelihood
 {
     private const double Ln10 = 2.302585092994046;
     private const double HalfLn2Pi = 0.91893853320467274;
@@ -240,7 +240,7 @@ public sealed class HypothesisLikelihood : ILogDensity
     /// (uniform on its bounds or truncated Gaussian). Maximum-likelihood fits maximise this (identical to
     /// ln L up to a constant unless a Gaussian prior is set).
     /// </summary>
-    public ILogDensity Posterior => _posterior;
+    public ILogDensityWithGradient Posterior => _posterior;
 
     /// <summary>Priors of the free parameters, in θ order (for samplers and evidence).</summary>
     public IReadOnlyList<ParameterPrior> Priors => _free.Select(f => f.Prior).ToArray();
@@ -264,24 +264,17 @@ public sealed class HypothesisLikelihood : ILogDensity
         return double.IsNaN(ll) ? double.NegativeInfinity : ll;
     }
 
-    /// <summary>The per-evaluation state: parameter values and redshift-grid terms.</summary>
-    public sealed class Evaluation
-    {
-        internal Evaluation(double[] values, double[]? g, double dimming) { Values = values; GridG = g; Dimming = dimming; }
-        /// <summary>All parameter values (fixed and free), in <see cref="Hypothesis.Parameters"/> order.</summary>
-        public double[] Values { get; }
-        internal double[]? GridG { get; }
-        internal double Dimming { get; }
-    }
-
     /// <summary>Computes the per-evaluation state, or null when θ is outside the bounds or the model is undefined.</summary>
-    public Evaluation? Prepare(ReadOnlySpan<double> theta)
+    public LikelihoodEvaluation? Prepare(ReadOnlySpan<double> theta) => Prepare(theta, false);
+
+    /// <inheritdoc/>
+    public LikelihoodEvaluation? Prepare(ReadOnlySpan<double> theta, bool withGradient)
     {
         if (theta.Length != _free.Length) throw new ArgumentException($"expected {_free.Length} parameters, got {theta.Length}");
         for (int j = 0; j < theta.Length; j++)
             if (!(theta[j] >= _free[j].Min && theta[j] <= _free[j].Max)) return null;
         var values = _h.FullValues(theta);
-        if (!_cosmoFree) return new Evaluation(values, null, _nFixed);
+        if (!_cosmoFree) return new LikelihoodEvaluation(theta.ToArray(), values, null, _nFixed) { HasGradient = withGradient };
         var model = CreateModel(values);
         if (model is null) return null;
         double[]? g = null;
@@ -296,7 +289,49 @@ public sealed class HypothesisLikelihood : ILogDensity
                 g[k] = Math.Log(g[k]) - Math.Log(nodes[k]);
             }
         }
-        return new Evaluation(values, g, model.BolometricDimmingExponent + _h.Nuisance.DimmingExponentOffset);
+        return new LikelihoodEvaluation(theta.ToArray(), values, g, model.BolometricDimmingExponent + _h.Nuisance.DimmingExponentOffset) { HasGradient = withGradient };
+    }
+
+    /// <inheritdoc/>
+    /// <remarks>Interim: central differences of <see cref="SumSlice"/> (the analytic form replaces it).</remarks>
+    public double SumSliceWithGradient(LikelihoodEvaluation evaluation, int start, int end, Span<double> gradient)
+    {
+        ArgumentNullException.ThrowIfNull(evaluation);
+        double f = SumSlice(evaluation, start, end);
+        var t = evaluation.Theta.ToArray();
+        for (int j = 0; j < t.Length; j++)
+        {
+            double h = 1e-6 * Math.Max(Math.Abs(t[j]), 1e-3 * (_free[j].Max - _free[j].Min));
+            double lo = Math.Max(_free[j].Min, t[j] - h), hi = Math.Min(_free[j].Max, t[j] + h);
+            double tj = t[j];
+            t[j] = hi; var ep = Prepare(t, false);
+            t[j] = lo; var em = Prepare(t, false);
+            t[j] = tj;
+            gradient[j] = ep is null || em is null || hi == lo ? 0 : (SumSlice(ep, start, end) - SumSlice(em, start, end)) / (hi - lo);
+        }
+        return f;
+    }
+
+    /// <inheritdoc/>
+    public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
+    {
+        gradient.Clear();
+        var e = Prepare(theta, true);
+        if (e is null) return double.NegativeInfinity;
+        int d = _free.Length;
+        int chunks = !AllowParallel || _n < 2 * ChunkSize || Environment.ProcessorCount < 2 ? 1 : (_n + ChunkSize - 1) / ChunkSize;
+        var parts = new double[chunks];
+        var grads = new double[chunks * d];
+        if (chunks == 1) parts[0] = SumSliceWithGradient(e, 0, _n, grads);
+        else Parallel.For(0, chunks, c => parts[c] = SumSliceWithGradient(e, c * ChunkSize, Math.Min(_n, (c + 1) * ChunkSize), grads.AsSpan(c * d, d)));
+        double ll = 0;
+        for (int c = 0; c < chunks; c++)
+        {
+            ll += parts[c];
+            for (int j = 0; j < d; j++) gradient[j] += grads[c * d + j];
+        }
+        if (double.IsNaN(ll) || double.IsNegativeInfinity(ll)) { gradient.Clear(); return double.NegativeInfinity; }
+        return ll;
     }
 
     private IWorldModel? CreateModel(double[] values)
@@ -308,7 +343,7 @@ public sealed class HypothesisLikelihood : ILogDensity
     }
 
     /// <summary>Sum of per-object log densities (with all constants) over rows [start, end).</summary>
-    public double SumSlice(Evaluation e, int start, int end)
+    public double SumSlice(LikelihoodEvaluation e, int start, int end)
     {
         ArgumentNullException.ThrowIfNull(e);
         if (start < 0 || end > _n || start > end) throw new ArgumentOutOfRangeException(nameof(start));
@@ -320,10 +355,10 @@ public sealed class HypothesisLikelihood : ILogDensity
         };
     }
 
-    private double LnDa(Evaluation e, int i) =>
+    private double LnDa(LikelihoodEvaluation e, int i) =>
         _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridG, i);
 
-    private double SizeSlice(Evaluation e, int start, int end)
+    private double SizeSlice(LikelihoodEvaluation e, int start, int end)
     {
         var v = e.Values;
         double c0 = Math.Log(v[_iR0]) + LnKpcPerMpc, a = v[_iA];
@@ -432,7 +467,7 @@ public sealed class HypothesisLikelihood : ILogDensity
         return q + l;
     }
 
-    private double SbSlice(Evaluation e, int start, int end)
+    private double SbSlice(LikelihoodEvaluation e, int start, int end)
     {
         var v = e.Values;
         double mu0 = v[_iMu0], slope = 2.5 * (e.Dimming - v[_iB]);
@@ -459,7 +494,7 @@ public sealed class HypothesisLikelihood : ILogDensity
     private static readonly double MagFromLnTheta = -5.0 / Ln10;
     private static readonly double MagOffset = -5.0 / Ln10 * Math.Log(Units.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
 
-    private double JointSlice(Evaluation e, int start, int end)
+    private double JointSlice(LikelihoodEvaluation e, int start, int end)
     {
         var v = e.Values;
         double lnR0 = Math.Log(v[_iR0]), c0 = lnR0 + LnKpcPerMpc, a = v[_iA];
@@ -497,7 +532,7 @@ public sealed class HypothesisLikelihood : ILogDensity
 
     // The joint model with isophotal sizes: JointSlice plus ln(r_iso/R_e) on the mean ln θ (kept separate so the
     // non-isophotal loop is untouched). The magnitude cut is refused at bind time.
-    private double IsophotalJointSlice(Evaluation e, int start, int end)
+    private double IsophotalJointSlice(LikelihoodEvaluation e, int start, int end)
     {
         var v = e.Values;
         double lnR0 = Math.Log(v[_iR0]), c0 = lnR0 + LnKpcPerMpc, a = v[_iA];
@@ -537,8 +572,22 @@ public sealed class HypothesisLikelihood : ILogDensity
         return -0.5 * acc - sel - 2 * HalfLn2Pi * (end - start);
     }
 
-    private sealed class LogPosteriorDensity(HypothesisLikelihood owner) : ILogDensity
+    private sealed class LogPosteriorDensity(HypothesisLikelihood owner) : ILogDensityWithGradient
     {
+        public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
+        {
+            double lp = 0;
+            for (int j = 0; j < _priors.Length; j++)
+            {
+                lp += _priors[j].LogDensity(theta[j]);
+                if (double.IsNegativeInfinity(lp)) { gradient.Clear(); return lp; }
+            }
+            double ll = owner.LogDensityAndGradient(theta, gradient);
+            if (double.IsNegativeInfinity(ll)) return ll;
+            for (int j = 0; j < _priors.Length; j++) gradient[j] += _priors[j].LogDensityDerivative(theta[j]);
+            return lp + ll;
+        }
+
         private readonly ParameterPrior[] _priors = owner._free.Select(f => f.Prior).ToArray();
         public int Dimension => owner.Dimension;
         public double LogDensity(ReadOnlySpan<double> theta)

@@ -17,6 +17,9 @@ public abstract record ParameterPrior
 
     /// <summary>Inverse CDF: maps u ∈ (0,1) to a value distributed as the prior.</summary>
     public abstract double FromUnit(double u);
+
+    /// <summary>d ln p(x)/dx inside [Min, Max] (0 outside).</summary>
+    public abstract double LogDensityDerivative(double x);
 }
 
 /// <summary>Uniform prior on [Min, Max].</summary>
@@ -30,6 +33,8 @@ public sealed record UniformPrior(double Lower, double Upper) : ParameterPrior
     public override double LogDensity(double x) => x >= Lower && x <= Upper ? -Math.Log(Upper - Lower) : double.NegativeInfinity;
     /// <inheritdoc/>
     public override double FromUnit(double u) => Lower + u * (Upper - Lower);
+    /// <inheritdoc/>
+    public override double LogDensityDerivative(double x) => 0;
 }
 
 /// <summary>Gaussian prior N(Mean, Sd²) truncated to [Lower, Upper] and renormalised.</summary>
@@ -50,4 +55,6 @@ public sealed record GaussianPrior(double Mean, double Sd, double Lower, double 
     /// <inheritdoc/>
     public override double FromUnit(double u) =>
         Math.Clamp(MathNet.Numerics.Distributions.Normal.InvCDF(Mean, Sd, CdfLo + u * (CdfHi - CdfLo)), Lower, Upper);
+    /// <inheritdoc/>
+    public override double LogDensityDerivative(double x) => x >= Lower && x <= Upper ? -(x - Mean) / (Sd * Sd) : 0;
 }

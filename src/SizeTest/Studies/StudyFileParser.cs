@@ -10,7 +10,7 @@ namespace SizeTest.Studies;
 /// <summary>
 /// Reads a study file (TOML) into a <see cref="StudyDefinition"/>. Every key is checked: an unknown key, a value of the
 /// wrong kind or an inconsistent setting is an <see cref="InputException"/> naming the file, line and column.
-/// The layout is documented in the README (section "Study files").
+/// The layout is documented in docs/study-file.md.
 /// </summary>
 public static class StudyFileParser
 {
@@ -201,7 +201,7 @@ public static class StudyFileParser
             }
         }
 
-        root.RejectUnknown(table => TableKeys.TryGetValue(table, out var h) ? h : "see the README's study-file reference");
+        root.RejectUnknown(table => TableKeys.TryGetValue(table, out var h) ? h : "see docs/study-file.md");
 
         var study = new StudyDefinition
         {
