@@ -160,7 +160,7 @@ internal static class FitCommand
     private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
     {
         var known = families.SelectMany(f => f.Parameters.Select(p => p.Name))
-            .Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
+            .Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
         foreach (var name in o.Names.Concat(expected.Select(e => e.Parameter)).Concat(profile is null ? [] : [profile]))
             if (!known.Contains(name))
                 throw new InputException($"unknown parameter '{name}' for these models and --observable; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");

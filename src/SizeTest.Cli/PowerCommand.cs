@@ -73,7 +73,7 @@ internal static class PowerCommand
                         ? trueModel.ParameterValues.Where(p => family.Parameters.Any(q => q.Name == p.Key) && !userFree.Contains(p.Key)).ToDictionary(p => p.Key, p => p.Value)
                         : new Dictionary<string, double>();
                     foreach (var (key, value) in userFixed) fixedValues[key] = value;
-                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(kind, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet();
+                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet();
                     hypotheses.Add(Hypothesis.Create(family, nuisance, new ParameterOverrides(
                         Free: userFree.Where(known.Contains).ToHashSet(),
                         Fixed: fixedValues.Where(kv => known.Contains(kv.Key)).ToDictionary())));

@@ -131,7 +131,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
                 case "sb_evolution": _iB = i; break;
                 case "scatter_mag": _iSm = i; break;
                 case "kormendy_slope": _iK = i; break;
-                default: cosmo.Add(i); break;
+                default: if (!NuisanceParameters.IsSurveyName(ps[i].Name)) cosmo.Add(i); break;
             }
         }
         _cosmoIdx = cosmo.ToArray();
@@ -145,7 +145,12 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _magLimit = cuts.MagLimit ?? 0;
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
 
-        if (size && _cosmoFree)
+        var survey = hypothesis.Nuisance.SurveyTerms;
+        double gridMinZ = sharedGrid?.MinZ ?? observables.Z.Min(), gridMaxZ = sharedGrid?.MaxZ ?? observables.Z.Max();
+        if (size && _cosmoFree && survey.MarginaliseRedshift)
+            // Photometric redshifts: a uniform-in-ln z grid over the prior range, so the quadrature nodes share its nodes.
+            _grid = new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(sharedGrid?.ObjectCount ?? _n), gridMinZ, gridMaxZ);
+        else if (size && _cosmoFree)
             _grid = sharedGrid is { } span
                 ? new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(span.ObjectCount), span.MinZ, span.MaxZ)
                 : new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(_n));
@@ -170,8 +175,21 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
                 }
             }
         }
+        if (survey.IsActive)
+        {
+            var startModel = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
+                             ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
+            _survey = new Survey.SurveySizeLikelihood(hypothesis, observables, _lnDaFixed, _grid, gridMinZ, gridMaxZ, startModel);
+        }
         _posterior = new LogPosteriorDensity(this);
     }
+
+    // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
+    // weights, luminosity window): when set, rows are summed by this object instead of the built-in size model.
+    private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Notes on the survey terms applied (empty when none).</summary>
+    public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];
 
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
@@ -183,6 +201,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var e = Prepare(start);
         if (e is null) return start;
         var free = _free;
+        if (_survey is not null) { _survey.SuggestStart(start, free, _h, e); return start; }
         for (int j = 0; j < free.Length; j++)
         {
             var name = free[j].Name;
@@ -347,6 +366,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     {
         ArgumentNullException.ThrowIfNull(e);
         if (start < 0 || end > _n || start > end) throw new ArgumentOutOfRangeException(nameof(start));
+        if (_survey is not null) return _survey.SumSlice(e, start, end);
         return _kind switch
         {
             ObservableKind.Size => SizeSlice(e, start, end),

@@ -15,8 +15,9 @@ namespace SizeTest.Simulation;
 /// <param name="SizeErrorFloorArcsec">Absolute size-error floor, arcsec (default 0).</param>
 /// <param name="MuErrorMag">σ_μ, mag (default 0.1).</param>
 /// <param name="PhotoZError">σ_z in σ_z (1+z) (default 0: spectroscopic redshifts, no z_err column).</param>
-/// <param name="SizeErrors">Log-normal (default) or Gaussian-in-θ size errors. Gaussian: θ_obs = θ_true (1 + f ε), theta_err = f θ_true
-/// (the error a catalogue quotes in θ); objects with θ_obs ≤ 0 fail selection as unmeasured.</param>
+/// <param name="SizeErrors">Log-normal (default) or Gaussian-in-θ size errors. Gaussian: θ_obs = θ_true + σ_θ ε with σ_θ = f · θ_med(z),
+/// θ_med the population's median angular size at z (at the pivot luminosity), quoted as theta_err; objects with θ_obs ≤ 0 fail
+/// selection as unmeasured.</param>
 /// <param name="SizeErrorFractionAtZMax">When set, the fractional size error grows linearly in z from f at the N(z)'s z_min to this value at its z_max.</param>
 public sealed record MeasurementErrors(
     double SizeErrorFraction = 0.05,

@@ -176,8 +176,11 @@ public static class MockSurveyGenerator
             double thetaObs, growth, thetaErr;
             if (gaussianErrors)
             {
-                thetaObs = thetaTrue * (1 + frac * e3);
-                thetaErr = frac * thetaTrue;
+                // The quoted error is a fraction of the population's median size at this z (not of the object's own size), so it
+                // carries no information about θ_true: θ_obs ~ N(θ_true, σ_θ²) with σ_θ known, as a catalogue quotes it.
+                double thetaRef = Math.Exp(Ln10 * (s0 + sEvo * l10)) / da[i] * radPerKpcMpc;
+                thetaErr = frac * thetaRef;
+                thetaObs = thetaTrue + thetaErr * e3;
                 growth = thetaObs > 0 ? Math.Log(thetaObs / thetaTrue) : double.NaN;
             }
             else
