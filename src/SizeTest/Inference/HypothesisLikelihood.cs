@@ -147,6 +147,8 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
 
         var survey = hypothesis.Nuisance.SurveyTerms;
         double gridMinZ = sharedGrid?.MinZ ?? observables.Z.Min(), gridMaxZ = sharedGrid?.MaxZ ?? observables.Z.Max();
+        double priorMinZ = survey.RedshiftPriorMin ?? gridMinZ, priorMaxZ = survey.RedshiftPriorMax ?? gridMaxZ;
+        if (survey.MarginaliseRedshift) { gridMinZ = Math.Min(gridMinZ, priorMinZ); gridMaxZ = Math.Max(gridMaxZ, priorMaxZ); }
         if (size && _cosmoFree && survey.MarginaliseRedshift)
             // Photometric redshifts: a uniform-in-ln z grid over the prior range, so the quadrature nodes share its nodes.
             _grid = new RedshiftGrid(observables.Z, hypothesis.Nuisance.NodesFor(sharedGrid?.ObjectCount ?? _n), gridMinZ, gridMaxZ);
@@ -179,7 +181,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         {
             var startModel = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                              ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
-            _survey = new Survey.SurveySizeLikelihood(hypothesis, observables, _lnDaFixed, _grid, gridMinZ, gridMaxZ, startModel);
+            _survey = new Survey.SurveySizeLikelihood(hypothesis, observables, _lnDaFixed, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
         }
         _posterior = new LogPosteriorDensity(this);
     }

@@ -16,6 +16,8 @@ namespace SizeTest.Inference.Survey;
 /// <param name="SizeErrors">Log-normal or Gaussian-in-θ size errors.</param>
 /// <param name="AbsMagMin">Luminosity window: keep objects with M ≥ this (brighter end), recomputed per world model; null = open.</param>
 /// <param name="AbsMagMax">Keep objects with M ≤ this (fainter end); null = open.</param>
+/// <param name="RedshiftPriorMin">Lower end of the flat redshift prior of the photo-z marginalisation (null: the sample's lowest z).</param>
+/// <param name="RedshiftPriorMax">Upper end of that prior (null: the sample's highest z).</param>
 public sealed record SurveyModel(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -25,7 +27,9 @@ public sealed record SurveyModel(
     int RedshiftNodes = 7,
     SizeErrorKind SizeErrors = SizeErrorKind.LogNormal,
     double? AbsMagMin = null,
-    double? AbsMagMax = null)
+    double? AbsMagMax = null,
+    double? RedshiftPriorMin = null,
+    double? RedshiftPriorMax = null)
 {
     /// <summary>Nothing beyond the basic size model.</summary>
     public static SurveyModel None { get; } = new();
@@ -65,6 +69,8 @@ public sealed record SurveyModel(
                 if (!(e[k] > e[k - 1])) throw new ArgumentException("the evolution bins' redshift edges must increase (too few distinct redshifts for K bins?)");
         }
         if (Groups is { } g && g.Distinct(StringComparer.Ordinal).Count() != g.Count) throw new ArgumentException("group labels must be distinct");
+        if (RedshiftPriorMin is { } zl && !(zl > 0)) throw new ArgumentException("the redshift prior's lower end must be > 0");
+        if (RedshiftPriorMin is { } z0 && RedshiftPriorMax is { } z1 && !(z0 < z1)) throw new ArgumentException("--z-prior LO:HI needs LO < HI");
         if (RedshiftNodes is < 2 or > 40) throw new ArgumentException("the redshift quadrature needs 2–40 nodes");
         if (AbsMagMin is { } lo && AbsMagMax is { } hi && !(lo < hi)) throw new ArgumentException("--abs-mag-range LO:HI needs LO < HI (LO the bright end, e.g. -23:-20)");
         if (Relation == SizeRelationKind.Mass && HasWindow) throw new ArgumentException("--abs-mag-range selects on luminosity; it cannot be combined with --size-mass");

@@ -20,8 +20,9 @@ namespace SizeTest.Inference.Survey;
 /// p(θ_i) = ∫ N(θ_i; e^u, σ_θ²) N(u; m_i, σ_g²) du / P(θ_obs &gt; 0), the integral by 12-point adaptive Gauss–Hermite quadrature
 /// centred on the integrand's mode with its curvature as scale (Liu &amp; Pierce 1994, Biometrika 81, 624), and
 /// P(θ_obs &gt; 0) = ∫ Φ(e^u/σ_θ) N(u; m_i, σ_g²) du by 12-point Gauss–Hermite on the intrinsic distribution.</para>
-/// <para>Photometric redshifts: p_i = ∫ p_i(θ | z) N(z; z_obs, σ_z²) π(z) dz with π flat in z over the redshift grid's range
-/// [z_min, z_max] of the sample (the stated prior), by Gauss–Hermite with <see cref="SurveyModel.RedshiftNodes"/> nodes
+/// <para>Photometric redshifts: p_i = ∫ p_i(θ | z) N(z; z_obs, σ_z²) π(z) dz with π flat in z over [z_lo, z_hi] (the stated prior:
+/// <see cref="SurveyModel.RedshiftPriorMin"/>…<see cref="SurveyModel.RedshiftPriorMax"/>, default the sample's observed range; σ_z is the
+/// quoted z_err, taken as the error at the object's z), by Gauss–Hermite with <see cref="SurveyModel.RedshiftNodes"/> nodes
 /// z_ij = z_obs + √2 σ_z x_j; nodes outside the prior range are dropped and the rest renormalised. D_A at the nodes comes from the
 /// same redshift grid (its nodes are computed once per parameter vector; fixed cosmology: exact per node). The luminosity of
 /// flux-density objects is re-evaluated at each node (flux and magnitudes held fixed, K and A at the catalogue's values).</para>
@@ -55,7 +56,8 @@ internal sealed class SurveySizeLikelihood
     /// <summary>Notes for the results (window membership, prior, quadrature).</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    public SurveySizeLikelihood(Hypothesis h, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ, IWorldModel startModel)
+    public SurveySizeLikelihood(Hypothesis h, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
+        double priorMinZ, double priorMaxZ, IWorldModel startModel)
     {
         var sv = h.Nuisance.SurveyTerms;
         var notes = new List<string>();
@@ -190,7 +192,7 @@ internal sealed class SurveySizeLikelihood
                 for (int j = 0; j < J; j++)
                 {
                     double z = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
-                    bool inside = z >= gridMinZ && z <= gridMaxZ && z > 0;
+                    bool inside = z >= priorMinZ && z <= priorMaxZ && z > 0;
                     int q = i * J + j;
                     nodeZ[q] = inside ? z : o.Z[i];
                     _nodeLogW[q] = inside ? gh.Weights[j] : 0;
@@ -213,7 +215,7 @@ internal sealed class SurveySizeLikelihood
             }
             else
                 _nodeGrid = new RedshiftGrid(nodeZ, grid!.Nodes.Length, gridMinZ, gridMaxZ);
-            notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{gridMinZ:G4}, {gridMaxZ:G4}] (the sample's redshift range) times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
+            notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
         }
         Notes = notes;
     }
