@@ -24,6 +24,7 @@ internal static class FitCommand
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
         var catalogOptions = new CatalogOptions();
         var photometryOptions = new PhotometryCliOptions();
+        var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -55,6 +56,7 @@ internal static class FitCommand
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
+        surveyOptions.AddTo(command);
         foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
@@ -77,7 +79,10 @@ internal static class FitCommand
                 var families = FitOptionParsing.List([parse.GetValue(models) ?? ""]).Distinct().Select(n =>
                     WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
-                CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+                var surveyRequest = surveyOptions.Request(parse);
+                var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
+                bool surveyAsked = surveyRequest != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
@@ -86,14 +91,36 @@ internal static class FitCommand
                 int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
                 if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                var photometry = photometryOptions.ToOptions(parse);
+                var photometry = photometryOptions.ToOptions(parse) with { Luminosity = luminosity };
+                var loadOptions = catalogOptions.ToLoadOptions(parse);
+                if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
+                    loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
+                if (SizeTest.Distributed.RankContext.IsDistributed && surveyAsked)
+                    throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
                 if (SizeTest.Distributed.RankContext.IsDistributed) return DistributedFitRunner.Run(context, new DistributedFitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nLive, photometry));
 
                 string path = parse.GetValue(catalog)!;
                 folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
+                var load = CatalogLoader.Load(path, loadOptions);
                 var built = ObservablesBuilder.Build(load.Sample, photometry);
                 var observables = built.Observables;
+                var surveyNotes = new List<string>();
+                var surveyModel = surveyRequest.Build(observables, kind, surveyNotes);
+                if (surveyModel.IsActive || surveyAsked)
+                {
+                    nuisance = nuisance with { Survey = surveyModel };
+                    nuisance.Validate();
+                    CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+                    hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+                    foreach (var h in hypotheses)
+                        foreach (var note in h.Bind(observables).SurveyNotes)
+                            if (!surveyNotes.Contains(note)) surveyNotes.Add(note);
+                }
+                if (kind != ObservableKind.SurfaceBrightness && SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(observables, surveyModel.SizeErrors) is { } warning)
+                {
+                    context.Err.WriteLine("sizetest: warning: " + warning);
+                    surveyNotes.Add("warning: " + warning);
+                }
                 if (nFolds > observables.Count) nFolds = 0;
                 var result = FitStudy.Run(new FitRequest
                 {
@@ -114,7 +141,7 @@ internal static class FitCommand
                     LivePoints = nLive,
                     ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
                 }, new FitProgressReporter(context));
-                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
+                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. surveyNotes.Select(c => "survey: " + c), .. result.Notes] };
 
                 AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
                 AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));

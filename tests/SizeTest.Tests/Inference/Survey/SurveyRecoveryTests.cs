@@ -83,7 +83,7 @@ public sealed class SurveyRecoveryTests(Xunit.Abstractions.ITestOutputHelper out
         output.WriteLine($"log-normal model: a = {a0.Value:F3} [{a0.Lo:F3}, {a0.Hi:F3}]; gaussian model: a = {a1.Value:F3} [{a1.Lo:F3}, {a1.Hi:F3}]");
         Assert.True(Within(a1, -1.0, 2), $"gaussian a = {a1.Value}");
         Assert.False(Within(a0, -1.0, 3), $"log-normal a = {a0.Value} should be biased");
-        Assert.NotNull(SurveySizeLikelihood.LargeErrorWarning(obs, SizeErrorKind.LogNormal));
+        Assert.NotNull(SizeErrorCheck.LargeErrorWarning(obs, SizeErrorKind.LogNormal));
     }
 
     [Fact]
