@@ -41,7 +41,8 @@ internal static class FitCommand
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
         OneOf(sampler, "--sampler", "none", "mcmc", "nested");
         var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
-        var steps = new Option<int>("--steps") { Description = "MCMC: steps per walker.", DefaultValueFactory = _ => 3000 };
+        var steps = new Option<string>("--steps") { Description = "MCMC: steps per walker, or auto: run in blocks until ≥ 50 τ, split-R̂ ≤ 1.01 and ESS ≥ 400 hold (or --max-steps is reached: not converged, exit 1).", DefaultValueFactory = _ => "auto" };
+        var maxSteps = new Option<int>("--max-steps") { Description = "MCMC with --steps auto: the most steps per walker.", DefaultValueFactory = _ => SizeTest.Inference.Sampling.ChainMemory.DefaultMaxSteps };
         var live = new Option<int>("--live-points") { Description = "Nested sampling: live points.", DefaultValueFactory = _ => 400 };
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
@@ -57,12 +58,11 @@ internal static class FitCommand
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
         surveyOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
         {
-            OutputFolder? folder = null;
             try
             {
                 var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
@@ -88,88 +88,43 @@ internal static class FitCommand
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 string samplerName = parse.GetValue(sampler) ?? "none";
-                int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
-                if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
+                int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
+                if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                var photometry = photometryOptions.ToOptions(parse) with { Luminosity = luminosity };
+                var inputs = new List<string> { parse.GetValue(catalog)! };
+                var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
                 var loadOptions = catalogOptions.ToLoadOptions(parse);
                 if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
                     loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
                 if (SizeTest.Distributed.RankContext.IsDistributed && surveyAsked)
                     throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
-                if (SizeTest.Distributed.RankContext.IsDistributed) return DistributedFitRunner.Run(context, new DistributedFitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nLive, photometry));
-
-                string path = parse.GetValue(catalog)!;
-                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, loadOptions);
-                var built = ObservablesBuilder.Build(load.Sample, photometry);
-                var observables = built.Observables;
-                var surveyNotes = new List<string>();
-                var surveyModel = surveyRequest.Build(observables, kind, surveyNotes);
-                if (surveyModel.IsActive || surveyAsked)
+                string? profileName = parse.GetValue(profile);
+                // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
+                Func<Observables, SurveyBinding> survey = obs =>
                 {
-                    nuisance = nuisance with { Survey = surveyModel };
-                    nuisance.Validate();
-                    CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
-                    hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                    foreach (var h in hypotheses)
-                        foreach (var note in h.Bind(observables).SurveyNotes)
-                            if (!surveyNotes.Contains(note)) surveyNotes.Add(note);
-                }
-                if (kind != ObservableKind.SurfaceBrightness && SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(observables, surveyModel.SizeErrors) is { } warning)
-                {
-                    context.Err.WriteLine("sizetest: warning: " + warning);
-                    surveyNotes.Add("warning: " + warning);
-                }
-                if (nFolds > observables.Count) nFolds = 0;
-                var result = FitStudy.Run(new FitRequest
-                {
-                    Hypotheses = hypotheses,
-                    Observables = observables,
-                    Source = path,
-                    RowsRead = load.RowsRead,
-                    Rejected = load.Rejected,
-                    Seed = parse.GetValue(seed),
-                    Starts = nStarts,
-                    Bootstrap = nBoot,
-                    CrossValidationFolds = nFolds,
-                    ProfileParameter = parse.GetValue(profile),
-                    Expected = expected,
-                    Sampler = samplerName,
-                    Walkers = nWalkers,
-                    Steps = nSteps,
-                    LivePoints = nLive,
-                    ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
-                }, new FitProgressReporter(context));
-                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. surveyNotes.Select(c => "survey: " + c), .. result.Notes] };
-
-                AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
-                AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
-                AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
-                foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
-                    AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
-                foreach (var p in result.Profiles)
-                    AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
-                folder.Commit();
-                folder = null;
-
-                switch (parse.GetValue(format))
-                {
-                    case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
-                    case "csv": context.Out.Write(FitTables.Csv(result)); break;
-                    default: FitTables.WriteTable(context.Out, result); break;
-                }
-                if (!result.AllConverged)
-                {
-                    var bad = result.Models.Where(m => !m.Converged).Select(m => $"{m.Name} ({m.ExitReason})");
-                    context.Err.WriteLine($"sizetest: fit did not converge for {string.Join("; ", bad)}; results were written to {parse.GetValue(output)} but are not reliable");
-                    return ExitCodes.AnalysisFailed;
-                }
-                return ExitCodes.Success;
+                    var notes = new List<string>();
+                    var model = surveyRequest.Build(obs, kind, notes);
+                    var hs = hypotheses;
+                    if (model.IsActive || surveyAsked)
+                    {
+                        var nm = nuisance with { Survey = model };
+                        nm.Validate();
+                        CheckNames(overrides, expected, families, nm, profileName);
+                        hs = families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+                        foreach (var h in hs)
+                            foreach (var note in h.Bind(obs).SurveyNotes)
+                                if (!notes.Contains(note)) notes.Add(note);
+                    }
+                    string? warning = kind != ObservableKind.SurfaceBrightness ? SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(obs, model.SizeErrors) : null;
+                    if (warning is not null) notes.Add("warning: " + warning);
+                    return new SurveyBinding(hs, notes, warning);
+                };
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey });
             }
             catch (Exception ex)
             {
-                folder?.Abandon();
                 return context.Fail(ex);
             }
         });

@@ -5,7 +5,8 @@ namespace SizeTest.Inference;
 
 /// <summary>
 /// Reads and writes <c>results.json</c>: snake_case keys, indented, non-finite numbers as <c>null</c>, and each
-/// model's <c>parameters</c> as an object keyed by parameter name with <c>{value, lo, hi, fixed, unit}</c>.
+/// model's <c>parameters</c> as an object keyed by parameter name with
+/// <c>{value, lo, hi, fixed, unit, interval_method, at_bound}</c>.
 /// Output is deterministic: the same <see cref="StudyResult"/> always gives the same bytes.
 /// </summary>
 public static class ResultsJson
@@ -56,9 +57,10 @@ public static class ResultsJson
             foreach (var p in doc.RootElement.EnumerateObject())
             {
                 double D(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.Number ? e.GetDouble() : double.NaN;
-                list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"),
-                    p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean(),
-                    p.Value.TryGetProperty("unit", out var u) ? u.GetString() ?? "" : ""));
+                bool isFixed = p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean();
+                string? S(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.String ? e.GetString() : null;
+                list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"), isFixed, S("unit") ?? "",
+                    S("interval_method") ?? (isFixed ? IntervalMethods.Fixed : IntervalMethods.Hessian), S("at_bound")));
             }
             return list;
         }
@@ -76,6 +78,8 @@ public static class ResultsJson
                 Num("hi", p.Hi);
                 writer.WriteBoolean("fixed", p.Fixed);
                 writer.WriteString("unit", p.Unit);
+                writer.WriteString("interval_method", p.IntervalMethod);
+                if (p.AtBound is null) writer.WriteNull("at_bound"); else writer.WriteString("at_bound", p.AtBound);
                 writer.WriteEndObject();
             }
             writer.WriteEndObject();

@@ -22,7 +22,7 @@ public static class StudyFileParser
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size",
-        ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps",
+        ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, bins, bin_resamples",
     };
@@ -165,13 +165,19 @@ public static class StudyFileParser
 
         // [inference]
         var inf = root.Table("inference");
-        int starts = inf?.Integer("starts") ?? 4, bootstrap = inf?.Integer("bootstrap") ?? 0, folds = inf?.Integer("cv_folds") ?? 0, steps = inf?.Integer("sampler_steps") ?? 2000;
+        int starts = inf?.Integer("starts") ?? 4, bootstrap = inf?.Integer("bootstrap") ?? 0, folds = inf?.Integer("cv_folds") ?? 0;
+        int steps = inf?.Get("sampler_steps") is { Scalar: string auto } stepsNode
+            ? (auto == "auto" ? 0 : throw stepsNode.Error("'inference.sampler_steps' must be \"auto\" or a whole number of steps per walker"))
+            : inf?.Integer("sampler_steps") ?? 0;
+        int maxSteps = inf?.Integer("sampler_max_steps") ?? Inference.Sampling.ChainMemory.DefaultMaxSteps, walkers = inf?.Integer("sampler_walkers") ?? 32;
         string sampler = inf?.String("sampler") ?? "none";
         if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
         if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
         if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
         if (sampler is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
-        if (steps < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be at least 100");
+        if (steps is > 0 and < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be \"auto\" or at least 100");
+        if (maxSteps < 100) throw inf!.Get("sampler_max_steps")!.Error("'inference.sampler_max_steps' must be at least 100");
+        if (walkers is < 4 or > 100_000) throw inf!.Get("sampler_walkers")!.Error("'inference.sampler_walkers' must be between 4 and 100000");
 
         // [power]
         string? power = null;
@@ -225,6 +231,8 @@ public static class StudyFileParser
             CrossValidationFolds = folds,
             Sampler = sampler,
             SamplerSteps = steps,
+            SamplerMaxSteps = maxSteps,
+            SamplerWalkers = walkers,
             PowerResultPath = power,
             Report = report,
         };

@@ -73,11 +73,13 @@ public static class StudyReportAdapter
             SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == "mu0")?.Value).FirstOrDefault(v => v is not null),
             Posterior = posterior,
             Power = power is null ? null : PowerCurveFrom(power),
-            // The report words the fitted exponents itself; add only the likelihood-ratio test and the expected range.
-            ExtraConclusions = result.RequiredEvolution.Where(r => !r.Fixed && r.PValue is not null)
-                .Select(r => $"{r.Model}, {(r.Parameter == "size_evolution" ? "size evolution" : "surface-brightness evolution")} (likelihood-ratio test against the same model without it): {string.Join("; ", r.Verdict.Split("; ").Skip(1))}.")
-                .Concat(result.BayesFactors.Select(bf => string.Create(Inv, $"ln B({bf.Favoured} : {bf.Against}) = {bf.LnB:0.0}{(bf.BicApproximate ? " (BIC approximation)" : "")}: {bf.Strength}.")))
+            // Caveats only: the evolution statements come from the one table of tests (EvolutionTests), the verdict from results.
+            ExtraConclusions = result.BayesFactors.Select(bf => string.Create(Inv, $"ln B({WorldModelDisplayNames.For(bf.Favoured)} : {WorldModelDisplayNames.For(bf.Against)}) = {bf.LnB:0.0}{(bf.BicApproximate ? " (BIC approximation)" : "")}: {bf.Strength}."))
                 .Concat(result.Notes).ToArray(),
+            Verdict = result.Verdict,
+            EvolutionTests = Inference.Comparison.EvolutionTestTable.From(result),
+            DecisionLines = Inference.Comparison.DecisionSummary.CanTheDataDecide(result),
+            SurfaceBrightnessLimit = result.Settings.Selection.SbLimit,
             Manifest = manifest,
         };
         return data.WithBins(study.Report.Bins, study.Report.BinResamples, study.Seed);

@@ -59,7 +59,7 @@ public sealed class MpiFitCommandTests : IDisposable
             // Only rank 0 prints and writes: one table on stdout, one output folder with the three files, nothing else.
             Assert.Single(stdout.Split('\n'), l => l.StartsWith("rank  model", StringComparison.Ordinal));
             Assert.Equal(["out"], Directory.GetFileSystemEntries(parent).Select(Path.GetFileName));
-            Assert.Equal(["rejects.csv", "results.csv", "results.json"], Directory.GetFiles(output).Select(Path.GetFileName).Order());
+            Assert.Equal([".sizetest-output", "rejects.csv", "results.csv", "results.json"], Directory.GetFiles(output).Select(Path.GetFileName).Order(StringComparer.Ordinal));
             Assert.Contains(Results(output).GetProperty("notes").EnumerateArray(), n => n.GetString()!.Contains($"{np} ranks"));
         }
     }

@@ -1,5 +1,6 @@
 using SizeTest.Common;
 using SizeTest.Cosmology;
+using SizeTest.Inference.Likelihood;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference.Survey;
@@ -17,9 +18,9 @@ namespace SizeTest.Inference.Survey;
 /// model is judged with its own luminosities. Radio sources: R0 is ℓ_m (in kpc), a is n, β the luminosity exponent (Gurvits,
 /// Kellermann &amp; Frey 1999).</para>
 /// <para>Log-normal errors: ln θ_i ~ N(m_i, σ_i² + σ_g²), σ_i = σ_θ/θ. Gaussian errors (exact for errors quoted in θ):
-/// p(θ_i) = ∫ N(θ_i; e^u, σ_θ²) N(u; m_i, σ_g²) du / P(θ_obs &gt; 0), the integral by 12-point adaptive Gauss–Hermite quadrature
+/// p(θ_i) = ∫ N(θ_i; e^u, σ_θ²) N(u; m_i, σ_g²) du / P(θ_obs &gt; 0), the integral by 20-point adaptive Gauss–Hermite quadrature
 /// centred on the integrand's mode with its curvature as scale (Liu &amp; Pierce 1994, Biometrika 81, 624), and
-/// P(θ_obs &gt; 0) = ∫ Φ(e^u/σ_θ) N(u; m_i, σ_g²) du by 12-point Gauss–Hermite on the intrinsic distribution.</para>
+/// P(θ_obs &gt; 0) = ∫ Φ(e^u/σ_θ) N(u; m_i, σ_g²) du by 20-point Gauss–Hermite on the intrinsic distribution.</para>
 /// <para>Photometric redshifts: p_i = ∫ p_i(θ | z) N(z; z_obs, σ_z²) π(z) dz with π flat in z over [z_lo, z_hi] (the stated prior:
 /// <see cref="SurveyModel.RedshiftPriorMin"/>…<see cref="SurveyModel.RedshiftPriorMax"/>, default the sample's observed range; σ_z is the
 /// quoted z_err, taken as the error at the object's z), by Gauss–Hermite with <see cref="SurveyModel.RedshiftNodes"/> nodes
@@ -29,12 +30,16 @@ namespace SizeTest.Inference.Survey;
 /// <para>Each object's log density is multiplied by its weight; objects outside the luminosity window get weight 0. The window is
 /// evaluated once, with each world model's start (or fixed) parameters.</para>
 /// </remarks>
-internal sealed class SurveySizeLikelihood
+/// <para>Gradient (<see cref="SumWithAdjoint"/>): analytic. Per point, ∂ℓ/∂m and ∂ℓ/∂σ (log-normal: r/V and σ(r²/V² − 1/V); Gaussian:
+/// posterior expectations E[(u − m)/σ²] and E[(u − m)²/σ³] − 1/σ over the same quadrature nodes, minus the derivatives of ln P);
+/// then ∂m/∂R0 = 1/R0, ∂m/∂a = ln(1+z), ∂m/∂β = ln(L/L_pivot), ∂m/∂ln D_A = 2β − 1 (to the grid nodes through the stencil weights, as
+/// the built-in kernels), ∂m/∂e = 2β ln(1+z); photometric redshifts weight each node's partials by its posterior share.</para>
+internal sealed class SurveySizeLikelihood : IObservableKernel
 {
     private const double Ln10 = 2.302585092994046;
     private const double HalfLn2Pi = 0.91893853320467274;
     private static readonly double LnKpcPerMpc = Math.Log(1e-3);
-    private static readonly GaussHermite Gh12 = new(12);
+    private static readonly GaussHermite Gh12 = new(20);
 
     private readonly int _n, _groups, _bins, _nodesPerObject;
     private readonly double[] _y, _s2, _theta, _sTheta, _ln1pz, _lnz;
@@ -56,10 +61,13 @@ internal sealed class SurveySizeLikelihood
     /// <summary>Notes for the results (window membership, prior, quadrature).</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    public SurveySizeLikelihood(Hypothesis h, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
+    private readonly ParameterLayout _layout;
+
+    public SurveySizeLikelihood(Hypothesis h, ParameterLayout layout, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
         double priorMinZ, double priorMaxZ, IWorldModel startModel)
     {
         var sv = h.Nuisance.SurveyTerms;
+        _layout = layout;
         var notes = new List<string>();
         _n = o.Count;
         _y = o.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
@@ -91,7 +99,7 @@ internal sealed class SurveySizeLikelihood
             if (o.LnThetaErr is null) throw new InputException("--size-errors gaussian needs a 'theta_err' column (the error quoted in θ)");
             for (int i = 0; i < _n; i++)
                 if (!(_sTheta[i] > 0)) throw new InputException($"--size-errors gaussian needs a positive theta_err for every object; object {i + 1} has none");
-            notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (12-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0).");
+            notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (20-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0).");
         }
 
         // --- groups
@@ -220,8 +228,16 @@ internal sealed class SurveySizeLikelihood
         Notes = notes;
     }
 
+    /// <inheritdoc/>
+    public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) => Accumulate(e, start, end, null);
+
+    /// <inheritdoc/>
+    public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) => Accumulate(e, start, end, adjoint);
+
     /// <summary>Sum over rows [start, end) of the weighted per-object log densities (all constants kept).</summary>
-    public double SumSlice(LikelihoodEvaluation e, int start, int end)
+    public double SumSlice(LikelihoodEvaluation e, int start, int end) => Accumulate(e, start, end, null);
+
+    private double Accumulate(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
     {
         var v = e.Values;
         int gb = _groups * _bins;
@@ -235,20 +251,32 @@ internal sealed class SurveySizeLikelihood
             beta[g] = _iBeta[g] >= 0 ? v[_iBeta[g]] : 0;
         }
         double eExp = _expanding ? 2.0 : _iLumExp >= 0 && double.IsFinite(v[_iLumExp]) ? v[_iLumExp] : _eFixed;
+        double[]? direct = null;
+        double[]? nodeA = adj?.NodeAdjoint;
+        if (adj is not null) direct = adj.Direct ??= new double[_layout.FreeCount];
         double acc = 0;
         int J = _nodesPerObject;
         Span<double> lp = stackalloc double[Math.Max(J, 1)];
+        Span<double> dmj = stackalloc double[Math.Max(J, 1)];
+        Span<double> dsj = stackalloc double[Math.Max(J, 1)];
+        Span<double> lnDaj = stackalloc double[Math.Max(J, 1)];
         for (int i = start; i < end; i++)
         {
             double w = _weight?[i] ?? 1.0;
             if (w == 0) continue;
-            int g = _group[i];
-            double r0 = lnR0[g * _bins + _bin[i]], ag = a[g], bg = beta[g], sg = sig[g];
-            double li;
+            int g = _group[i], q0 = g * _bins + _bin[i];
+            double r0 = lnR0[q0], ag = a[g], bg = beta[g], sg = sig[g];
             if (!_photoZ)
             {
                 double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridG, i);
-                li = PointLogDensity(i, r0, ag, bg, sg, eExp, _ln1pz[i], lnDa, _lumBase?[i] ?? 0);
+                double c = _lumBase?[i] ?? 0;
+                double li = PointLogDensity(i, r0, ag, bg, sg, eExp, _ln1pz[i], lnDa, c, out double dm, out double ds);
+                acc += w * li;
+                if (adj is not null)
+                {
+                    AddPartials(direct!, v, g, q0, w * dm, w * ds, _ln1pz[i], lnDa, c, bg, eExp);
+                    if (nodeA is not null) ScatterNodes(nodeA, _grid!, i, -w * dm * (2 * bg - 1));
+                }
             }
             else
             {
@@ -257,36 +285,78 @@ internal sealed class SurveySizeLikelihood
                 {
                     int q = i * J + j;
                     if (double.IsNegativeInfinity(_nodeLogW[q])) { lp[j] = double.NegativeInfinity; continue; }
-                    double lnDa = _nodeLnDaFixed is not null ? _nodeLnDaFixed[q] : _nodeLnz[q] + _nodeGrid!.Interpolate(e.GridG, q);
-                    lp[j] = _nodeLogW[q] + PointLogDensity(i, r0, ag, bg, sg, eExp, _nodeLn1pz[q], lnDa, _lumBase is null ? 0 : _nodeLumBase[q]);
+                    lnDaj[j] = _nodeLnDaFixed is not null ? _nodeLnDaFixed[q] : _nodeLnz[q] + _nodeGrid!.Interpolate(e.GridG, q);
+                    lp[j] = _nodeLogW[q] + PointLogDensity(i, r0, ag, bg, sg, eExp, _nodeLn1pz[q], lnDaj[j], _lumBase is null ? 0 : _nodeLumBase[q], out dmj[j], out dsj[j]);
                     if (lp[j] > max) max = lp[j];
                 }
-                double s = 0;
-                for (int j = 0; j < J; j++) s += Math.Exp(lp[j] - max);
-                li = max + Math.Log(s);
+                double sum = 0;
+                for (int j = 0; j < J; j++) sum += Math.Exp(lp[j] - max);
+                acc += w * (max + Math.Log(sum));
+                if (adj is not null)
+                    for (int j = 0; j < J; j++)
+                    {
+                        if (double.IsNegativeInfinity(lp[j])) continue;
+                        int q = i * J + j;
+                        double share = w * Math.Exp(lp[j] - max) / sum;
+                        AddPartials(direct!, v, g, q0, share * dmj[j], share * dsj[j], _nodeLn1pz[q], lnDaj[j], _lumBase is null ? 0 : _nodeLumBase[q], bg, eExp);
+                        if (nodeA is not null) ScatterNodes(nodeA, _nodeGrid!, q, -share * dmj[j] * (2 * bg - 1));
+                    }
             }
-            acc += w * li;
         }
         return acc;
     }
 
-    private double PointLogDensity(int i, double lnR0, double a, double beta, double sig, double eExp, double ln1pz, double lnDa, double lumBase)
+    private void AddPartials(double[] direct, double[] v, int g, int q0, double dm, double ds, double ln1pz, double lnDa, double c, double beta, double eExp)
+    {
+        Add(direct, _iR0[q0], dm / v[_iR0[q0]]);
+        Add(direct, _iA[g], dm * ln1pz);
+        Add(direct, _iSd[g], ds * Ln10);
+        if (_hasLum)
+        {
+            Add(direct, _iBeta[g], dm * (c + 2 * (lnDa + eExp * ln1pz)));
+            Add(direct, _iLumExp, dm * 2 * beta * ln1pz);
+        }
+    }
+
+    private void Add(double[] direct, int full, double value)
+    {
+        int j = _layout.FreeIndex(full);
+        if (j >= 0) direct[j] += value;
+    }
+
+    private static void ScatterNodes(double[] nodeAdjoint, RedshiftGrid grid, int row, double value)
+    {
+        int j = grid.Index[row], k = 4 * row;
+        var w = grid.Weights;
+        nodeAdjoint[j] += value * w[k];
+        nodeAdjoint[j + 1] += value * w[k + 1];
+        nodeAdjoint[j + 2] += value * w[k + 2];
+        nodeAdjoint[j + 3] += value * w[k + 3];
+    }
+
+    private double PointLogDensity(int i, double lnR0, double a, double beta, double sig, double eExp, double ln1pz, double lnDa, double lumBase,
+        out double dm, out double ds)
     {
         double m = lnR0 + a * ln1pz - lnDa;
         if (_hasLum) m += beta * (lumBase + 2 * (lnDa + eExp * ln1pz));
         if (!_gaussian)
         {
             double r = _y[i] - m, var = _s2[i] + sig * sig;
+            dm = r / var;
+            ds = sig * (r * r / (var * var) - 1 / var);
             return -0.5 * (r * r / var + Math.Log(var)) - HalfLn2Pi;
         }
-        return GaussianThetaLogDensity(_theta[i], _sTheta[i], m, sig);
+        return GaussianThetaLogDensity(_theta[i], _sTheta[i], m, sig, out dm, out ds);
     }
 
     /// <summary>
     /// ln [∫ N(θ; e^u, s²) N(u; m, σ²) du / ∫ Φ(e^u/s) N(u; m, σ²) du]: the exact density of a θ measured with Gaussian error s
     /// for a log-normal true size, given that θ_obs &gt; 0 (see the type's remarks for the quadrature).
     /// </summary>
-    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig)
+    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig) => GaussianThetaLogDensity(theta, s, m, sig, out _, out _);
+
+    /// <summary>As <see cref="GaussianThetaLogDensity(double, double, double, double)"/>, with ∂/∂m and ∂/∂σ.</summary>
+    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig, out double dm, out double ds)
     {
         double s2 = s * s, sig2 = sig * sig;
         // Mode of f(u) = −(θ − e^u)²/(2s²) − (u − m)²/(2σ²) by Fisher scoring from the precision-weighted start.
@@ -310,17 +380,31 @@ internal sealed class SurveySizeLikelihood
         if (!(curv > 0)) curv = e0 * e0 / s2 + 1 / sig2;
         double tau = Math.Sqrt(2 / curv);
         double F(double x) { double ex = Math.Exp(x), d = theta - ex, t = x - m; return -d * d / (2 * s2) - t * t / (2 * sig2); }
-        double f0 = F(u), sum = 0;
+        double f0 = F(u), sum = 0, e1 = 0, e2 = 0;
         var gh = Gh12;
         for (int j = 0; j < gh.Nodes.Length; j++)
         {
-            double x = gh.Nodes[j];
-            sum += gh.Weights[j] * Math.Exp(F(u + tau * x) - f0 + x * x);
+            double x = gh.Nodes[j], uj = u + tau * x;
+            double wj = gh.Weights[j] * Math.Exp(F(uj) - f0 + x * x);
+            sum += wj;
+            e1 += wj * (uj - m);
+            e2 += wj * (uj - m) * (uj - m);
         }
+        e1 /= sum;
+        e2 /= sum;
         double lnI = f0 + Math.Log(tau * sum) - Math.Log(2 * Math.PI * s * sig);
-        double p = 0;
+        double p = 0, dp = 0, dps = 0;
         for (int j = 0; j < gh.Nodes.Length; j++)
-            p += gh.Weights[j] * NormalMath.Phi(Math.Exp(m + Math.Sqrt(2) * sig * gh.Nodes[j]) / s);
+        {
+            double t = Math.Exp(m + Math.Sqrt(2) * sig * gh.Nodes[j]) / s;
+            p += gh.Weights[j] * NormalMath.Phi(t);
+            double dens = gh.Weights[j] * Math.Exp(-0.5 * t * t) / Math.Sqrt(2 * Math.PI) * t;
+            dp += dens;
+            dps += dens * Math.Sqrt(2) * gh.Nodes[j];
+        }
+        // ∂lnI/∂m = E[(u−m)]/σ², ∂lnI/∂σ = E[(u−m)²]/σ³ − 1/σ; ∂lnP = ∂P/P with ∂t_j/∂m = t_j, ∂t_j/∂σ = √2 x_j t_j.
+        dm = e1 / sig2 - dp / p;
+        ds = e2 / (sig2 * sig) - 1 / sig - dps / p;
         p /= Math.Sqrt(Math.PI);
         return lnI - Math.Log(p);
     }

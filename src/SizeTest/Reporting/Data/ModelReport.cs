@@ -29,7 +29,7 @@ public sealed record ModelReport(ModelFitSummary Fit)
 
     /// <summary><see cref="DisplayName"/> or the model name.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
-    public string Label => DisplayName.Length > 0 ? DisplayName : Fit.Name;
+    public string Label => DisplayName.Length > 0 ? DisplayName : Cosmology.WorldModelDisplayNames.For(Fit.Name);
 }
 
 /// <summary>A curve y(x) sampled at increasing x.</summary>

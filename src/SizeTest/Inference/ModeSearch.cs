@@ -1,0 +1,125 @@
+namespace SizeTest.Inference;
+
+/// <summary>What <see cref="ModeSearch"/> found.</summary>
+/// <param name="Best">The global maximum (the multi-start fit, or a higher maximum reached from a profile peak).</param>
+/// <param name="Modes">The distinct maxima within <see cref="ModeSearch.ModeWindow"/> in ln L of the best, best first
+/// (one entry when the fit is unimodal).</param>
+/// <param name="Scans">The whole-range profile scan of each free cosmological parameter, by name.</param>
+public sealed record ModeSearchResult(MaximumLikelihoodResult Best, IReadOnlyList<MaximumLikelihoodResult> Modes, IReadOnlyDictionary<string, ProfileSample[]> Scans)
+{
+    /// <summary>True when more than one distinct maximum lies within the window.</summary>
+    public bool Multimodal => Modes.Count > 1;
+}
+
+/// <summary>
+/// Guards a multi-start fit against a missed maximum: scans the profile likelihood of each free cosmological
+/// parameter over its whole bounded range on a coarse grid (the nuisance parameters refitted at every point, warm-started
+/// from the neighbour), starts a full fit from every local maximum of each scan, and keeps the distinct maxima.
+/// </summary>
+/// <remarks>
+/// The cosmological parameters enter only through distances, and for an angular-size sample at N ~ 10³ the Ωm profile
+/// often has two maxima (one near Ωm → 0, one near 0.5) within Δ ln L &lt; 1 that a handful of local starts can miss.
+/// Two maxima are distinct when some free parameter differs by more than its Hessian σ at the better one.
+/// </remarks>
+public static class ModeSearch
+{
+    /// <summary>Maxima within this Δ ln L of the best are reported as modes.</summary>
+    public const double ModeWindow = 2.0;
+
+    /// <summary>Default number of grid points per scanned parameter.</summary>
+    public const int DefaultGridPoints = 32;
+
+    /// <summary>Most profile peaks refitted per scanned parameter (the highest ones).</summary>
+    public const int MaxPeaksPerParameter = 6;
+
+    /// <summary>The free parameters scanned: those of the world-model family (not the nuisance model).</summary>
+    public static IReadOnlyList<string> ScannedParameters(Hypothesis hypothesis)
+    {
+        ArgumentNullException.ThrowIfNull(hypothesis);
+        var cosmo = hypothesis.Family.Parameters.Select(p => p.Name).ToHashSet(StringComparer.Ordinal);
+        return hypothesis.FreeParameters.Where(p => cosmo.Contains(p.Name)).Select(p => p.Name).ToArray();
+    }
+
+    /// <summary>Runs the search around the multi-start fit <paramref name="fit"/> of <paramref name="likelihood"/>
+    /// (bound to <paramref name="observables"/>).</summary>
+    public static ModeSearchResult Run(HypothesisLikelihood likelihood, Photometry.Observables observables, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(likelihood);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Run(backend, backend.Bind(likelihood.Hypothesis), fit, gridPoints, cancel);
+    }
+
+    /// <summary>As <see cref="Run(HypothesisLikelihood, Photometry.Observables, MaximumLikelihoodResult, int, CancellationToken)"/>
+    /// with every refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
+    public static ModeSearchResult Run(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult fit, int gridPoints = DefaultGridPoints, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
+        ArgumentNullException.ThrowIfNull(fit);
+        var h = likelihood.Hypothesis;
+        var scanned = ScannedParameters(h);
+        var scans = new Dictionary<string, ProfileSample[]>(StringComparer.Ordinal);
+        if (scanned.Count == 0 || !double.IsFinite(fit.LogLikelihood)) return new ModeSearchResult(fit, [fit], scans);
+        var candidates = new List<MaximumLikelihoodResult> { fit };
+        foreach (var name in scanned)
+        {
+            cancel.ThrowIfCancellationRequested();
+            var refit = new ProfileRefit(backend, h, name);
+            var scan = refit.Sweep(ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, gridPoints), fit.Theta);
+            scans[name] = scan;
+            foreach (var peak in Peaks(scan).Take(MaxPeaksPerParameter))
+            {
+                cancel.ThrowIfCancellationRequested();
+                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, peak.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
+                if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
+            }
+        }
+        var ordered = candidates.OrderByDescending(c => Objective(h, c)).ToList();
+        var distinct = new List<MaximumLikelihoodResult>();
+        foreach (var c in ordered)
+            if (!distinct.Any(d => Same(h, d, c))) distinct.Add(c);
+        var best = distinct[0];
+        if (!ReferenceEquals(best, fit))
+        {
+            string found = $"global maximum reached from a profile peak of {string.Join(", ", scanned)} (the multi-start fit had stopped {Objective(h, best) - Objective(h, fit):0.###} lower in ln L)";
+            best = best with { ExitReason = best.ExitReason + "; " + found };
+        }
+        double topObjective = Objective(h, best);
+        var modes = distinct.Select((d, i) => i == 0 ? best : d).Where(d => Objective(h, d) >= topObjective - ModeWindow).ToArray();
+        return new ModeSearchResult(best, modes, scans);
+    }
+
+    /// <summary>The penalised ln L of a fit (the quantity compared across maxima).</summary>
+    public static double Objective(Hypothesis h, MaximumLikelihoodResult f) => ProfileRefit.Penalised(h, f.Theta, f.LogLikelihood);
+
+    /// <summary>Local maxima of a scan (end points included when higher than their neighbour), highest first.</summary>
+    public static IEnumerable<ProfileSample> Peaks(IReadOnlyList<ProfileSample> scan)
+    {
+        ArgumentNullException.ThrowIfNull(scan);
+        const double eps = 1e-3; // ln L noise of the inner refits is ~1e-6; a plateau (e.g. h0 for sizes) has no peak
+        var peaks = new List<ProfileSample>();
+        for (int i = 0; i < scan.Count; i++)
+        {
+            double v = scan[i].Objective;
+            if (!double.IsFinite(v)) continue;
+            bool left = i == 0 || v > scan[i - 1].Objective + eps;
+            bool right = i == scan.Count - 1 || v > scan[i + 1].Objective + eps;
+            if (left && right && scan.Count > 1) peaks.Add(scan[i]);
+        }
+        return peaks.OrderByDescending(p => p.Objective);
+    }
+
+    // Two maxima are the same when every free parameter agrees within the Hessian σ of the better one
+    // (or, without a covariance, within 1% of its magnitude).
+    private static bool Same(Hypothesis h, MaximumLikelihoodResult better, MaximumLikelihoodResult other)
+    {
+        for (int k = 0; k < better.Theta.Length; k++)
+        {
+            var p = h.FreeParameters[k];
+            double s = better.StandardError(k);
+            double tol = double.IsFinite(s) && s > 0 ? s : 0.01 * Math.Max(Math.Abs(better.Theta[k]), 1e-4 * (p.Max - p.Min));
+            if (Math.Abs(better.Theta[k] - other.Theta[k]) > tol) return false;
+        }
+        return true;
+    }
+}
