@@ -24,6 +24,7 @@ internal static class FitCommand
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
         var catalogOptions = new CatalogOptions();
         var photometryOptions = new PhotometryCliOptions();
+        var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -40,7 +41,8 @@ internal static class FitCommand
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
         OneOf(sampler, "--sampler", "none", "mcmc", "nested");
         var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
-        var steps = new Option<int>("--steps") { Description = "MCMC: steps per walker.", DefaultValueFactory = _ => 3000 };
+        var steps = new Option<string>("--steps") { Description = "MCMC: steps per walker, or auto: run in blocks until ≥ 50 τ, split-R̂ ≤ 1.01 and ESS ≥ 400 hold (or --max-steps is reached: not converged, exit 1).", DefaultValueFactory = _ => "auto" };
+        var maxSteps = new Option<int>("--max-steps") { Description = "MCMC with --steps auto: the most steps per walker.", DefaultValueFactory = _ => SizeTest.Inference.Sampling.ChainMemory.DefaultMaxSteps };
         var live = new Option<int>("--live-points") { Description = "Nested sampling: live points.", DefaultValueFactory = _ => 400 };
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
@@ -48,6 +50,7 @@ internal static class FitCommand
         var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
+        var maxOutside = new Option<double>("--max-outside-selection") { Description = "Largest fraction (0–1) of objects that may lie outside --sb-limit/--mag-limit/--min-size; they go to the reject log, and beyond it the fit is refused.", DefaultValueFactory = _ => SelectionConsistency.DefaultMaxOutsideFraction };
         var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
@@ -55,12 +58,12 @@ internal static class FitCommand
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, live, seed, starts, sbLimit, magLimit, minSize, expect, nodes, force, output, format })
+        surveyOptions.AddTo(command);
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
         {
-            OutputFolder? folder = null;
             try
             {
                 var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
@@ -77,74 +80,55 @@ internal static class FitCommand
                 var families = FitOptionParsing.List([parse.GetValue(models) ?? ""]).Distinct().Select(n =>
                     WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
-                CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+                var surveyRequest = surveyOptions.Request(parse);
+                var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
+                bool surveyAsked = surveyRequest != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 string samplerName = parse.GetValue(sampler) ?? "none";
-                int nWalkers = parse.GetValue(walkers), nSteps = parse.GetValue(steps), nLive = parse.GetValue(live);
-                if (nWalkers < 4 || nSteps < 10 || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
+                int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
+                if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
+                if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                var photometry = photometryOptions.ToOptions(parse);
-                if (SizeTest.Distributed.RankContext.IsDistributed) return DistributedFitRunner.Run(context, new DistributedFitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nLive, photometry));
-
-                string path = parse.GetValue(catalog)!;
-                folder = OutputFolder.Begin(parse.GetValue(output)!, parse.GetValue(force));
-                var load = CatalogLoader.Load(path, catalogOptions.ToLoadOptions(parse));
-                var built = ObservablesBuilder.Build(load.Sample, photometry);
-                var observables = built.Observables;
-                // An explicit --cv-folds above the sample size is refused; the default is capped by FitStudy with a note.
-                if (nFolds > observables.Count && parse.GetResult(folds) is { Implicit: false })
-                    throw new InputException($"--cv-folds {nFolds} is more than the {observables.Count} objects accepted from {path}; give at most {observables.Count} folds, or 0 for no cross-validation");
-                var result = FitStudy.Run(new FitRequest
+                if (samplerName == "mcmc")
+                    foreach (var h in hypotheses.Where(h => h.K > 0))
+                        SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
+                var inputs = new List<string> { parse.GetValue(catalog)! };
+                var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
+                var loadOptions = catalogOptions.ToLoadOptions(parse);
+                if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
+                    loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
+                if (SizeTest.Distributed.RankContext.IsDistributed && surveyAsked)
+                    throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
+                string? profileName = parse.GetValue(profile);
+                // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
+                Func<Observables, SurveyBinding> survey = obs =>
                 {
-                    Hypotheses = hypotheses,
-                    Observables = observables,
-                    Source = path,
-                    RowsRead = load.RowsRead,
-                    Rejected = load.Rejected,
-                    Seed = parse.GetValue(seed),
-                    Starts = nStarts,
-                    Bootstrap = nBoot,
-                    CrossValidationFolds = nFolds,
-                    ProfileParameter = parse.GetValue(profile),
-                    Expected = expected,
-                    Sampler = samplerName,
-                    Walkers = nWalkers,
-                    Steps = nSteps,
-                    LivePoints = nLive,
-                    ChainStoreFactory = samplerName == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
-                }, new FitProgressReporter(context));
-                result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
-
-                AtomicFile.WriteAllText(folder.PathOf("results.json"), ResultsJson.Serialize(result));
-                AtomicFile.WriteAllText(folder.PathOf("results.csv"), FitTables.Csv(result));
-                AtomicFile.WriteAllText(folder.PathOf("rejects.csv"), load.RejectLog.ToCsv());
-                foreach (var draws in result.Samples.Where(x => x.Rows.Count > 0))
-                    AtomicFile.WriteAllText(folder.PathOf($"samples_{draws.Model}.csv"), FitTables.SamplesCsv(draws));
-                foreach (var p in result.Profiles)
-                    AtomicFile.WriteAllText(folder.PathOf($"profile_{p.Model}_{p.Parameter}.csv"), FitTables.ProfileCsv(p));
-                folder.Commit();
-                folder = null;
-
-                switch (parse.GetValue(format))
-                {
-                    case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
-                    case "csv": context.Out.Write(FitTables.Csv(result)); break;
-                    default: FitTables.WriteTable(context.Out, result); break;
-                }
-                if (!result.AllConverged)
-                {
-                    var bad = result.Models.Where(m => !m.Converged).Select(m => $"{m.Name} ({m.ExitReason})");
-                    context.Err.WriteLine($"sizetest: fit did not converge for {string.Join("; ", bad)}; results were written to {parse.GetValue(output)} but are not reliable");
-                    return ExitCodes.AnalysisFailed;
-                }
-                return ExitCodes.Success;
+                    var notes = new List<string>();
+                    var model = surveyRequest.Build(obs, kind, notes);
+                    var hs = hypotheses;
+                    if (model.IsActive || surveyAsked)
+                    {
+                        var nm = nuisance with { Survey = model };
+                        nm.Validate();
+                        CheckNames(overrides, expected, families, nm, profileName);
+                        hs = families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+                        foreach (var h in hs)
+                            foreach (var note in h.Bind(obs).SurveyNotes)
+                                if (!notes.Contains(note)) notes.Add(note);
+                    }
+                    string? warning = kind != ObservableKind.SurfaceBrightness ? SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(obs, model.SizeErrors) : null;
+                    if (warning is not null) notes.Add("warning: " + warning);
+                    return new SurveyBinding(hs, notes, warning);
+                };
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
             {
-                folder?.Abandon();
                 return context.Fail(ex);
             }
         });
@@ -162,7 +146,7 @@ internal static class FitCommand
     private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
     {
         var known = families.SelectMany(f => f.Parameters.Select(p => p.Name))
-            .Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
+            .Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
         foreach (var name in o.Names.Concat(expected.Select(e => e.Parameter)).Concat(profile is null ? [] : [profile]))
             if (!known.Contains(name))
                 throw new InputException($"unknown parameter '{name}' for these models and --observable; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");

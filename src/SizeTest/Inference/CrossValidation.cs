@@ -37,24 +37,37 @@ public static class CrossValidation
     public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int folds, int seed, double[]? start = null) =>
         Run(hypothesis, observables, AssignFolds(observables?.Count ?? 0, folds, seed), folds, start);
 
-    /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on a given fold assignment.</summary>
+    /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on a given fold assignment, in this process.</summary>
     public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int[] foldOf, int folds, double[]? start = null)
     {
-        ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(observables);
+        return Run(Evaluation.EvaluationBackend.InProcess(observables), hypothesis, foldOf, folds, start);
+    }
+
+    /// <summary>
+    /// Runs k-fold cross-validation of <paramref name="hypothesis"/> on <paramref name="backend"/> (folds concurrently in
+    /// one process, in order under MPI). <paramref name="foldOf"/> gives the fold of every object of the whole sample, by
+    /// its position; each process reads its own rows' folds, so the folds do not depend on the number of ranks.
+    /// </summary>
+    public static CrossValidationResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, int[] foldOf, int folds, double[]? start = null)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(foldOf);
-        int n = observables.Count;
+        int n = backend.TotalObjects;
         if (foldOf.Length != n) throw new ArgumentException($"the fold assignment has {foldOf.Length} entries for {n} objects", nameof(foldOf));
+        var local = foldOf.AsSpan((int)backend.FirstIndex, backend.Local.Count).ToArray();
+        start ??= backend.SuggestStart(hypothesis);
         var sums = new double[folds];
         var failed = new bool[folds];
-        Parallel.For(0, folds, f =>
+        backend.ForEach(folds, f =>
         {
-            var train = Enumerable.Range(0, n).Where(i => foldOf[i] != f).ToArray();
-            var test = Enumerable.Range(0, n).Where(i => foldOf[i] == f).ToArray();
-            var lik = hypothesis.Bind(ObservablesSubset.Take(observables, train));
-            var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1), start, covariance: false);
+            var train = Array.ConvertAll(local, k => k != f ? 1 : 0);
+            var test = Array.ConvertAll(local, k => k == f ? 1 : 0);
+            var lik = backend.Bind(hypothesis, train);
+            var fit = MaximumLikelihood.Fit(lik, lik.Posterior, hypothesis.FreeParameters, start, new OptimizerSettings(Starts: 1), covariance: false);
             failed[f] = !fit.Converged;
-            sums[f] = hypothesis.Bind(ObservablesSubset.Take(observables, test)).LogDensity(fit.Theta);
+            sums[f] = backend.Bind(hypothesis, test).LogDensity(fit.Theta);
         });
         double total = sums.Sum(), mean = total / folds;
         double sd = Math.Sqrt(sums.Sum(s => (s - mean) * (s - mean)) / (folds - 1));

@@ -83,14 +83,32 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
+        var survey = hypothesis.Nuisance.SurveyTerms;
+        double gridMinZ = sharedGrid?.MinZ ?? observables.Z.Min(), gridMaxZ = sharedGrid?.MaxZ ?? observables.Z.Max();
+        double priorMinZ = survey.RedshiftPriorMin ?? gridMinZ, priorMaxZ = survey.RedshiftPriorMax ?? gridMaxZ;
+        if (survey.MarginaliseRedshift)
+        {
+            // Photometric redshifts: a uniform-in-ln z grid over the data and prior range, so the quadrature nodes share its nodes.
+            gridMinZ = Math.Min(gridMinZ, priorMinZ);
+            gridMaxZ = Math.Max(gridMaxZ, priorMaxZ);
+            sharedGrid = new RedshiftGridSpan(gridMinZ, gridMaxZ, sharedGrid?.ObjectCount ?? _n);
+        }
         _distances = new DistanceTerms(hypothesis, _layout, observables.Z, size, sharedGrid);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
-        _kernel = kind switch
+        if (survey.IsActive)
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
-            ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
-            _ => new JointKernel(_cols, _distances, cut, _isophotal),
-        };
+            var startModel = _distances.CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
+                             ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
+            _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+            _kernel = _survey;
+        }
+        else
+            _kernel = kind switch
+            {
+                ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+                ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
+                _ => new JointKernel(_cols, _distances, cut, _isophotal),
+            };
         _posterior = new LogPosteriorDensity(this);
     }
 
@@ -121,7 +139,16 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     /// binding again — the cheap inner likelihood of profile scans. With a grid, the distances stay the grid's
     /// interpolation, so the profile and the full fit see the same ln L.
     /// </summary>
-    public HypothesisLikelihood WithFixed(string name, double value) => new(this, _h.WithFixed(name, value));
+    /// <exception cref="InvalidOperationException">Survey terms are active (bind <c>Hypothesis.WithFixed</c> instead).</exception>
+    public HypothesisLikelihood WithFixed(string name, double value) =>
+        _survey is null ? new(this, _h.WithFixed(name, value))
+            : throw new InvalidOperationException("WithFixed does not carry survey terms; bind hypothesis.WithFixed(name, value) to the observables instead");
+    // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
+    // weights, luminosity window): the size kernel when any is active.
+    private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Notes on the survey terms applied (empty when none).</summary>
+    public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];
 
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
@@ -132,6 +159,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var start = _h.StartVector();
         var e = Prepare(start);
         if (e is null) return start;
+        if (_survey is not null) { _survey.SuggestStart(start, _free, _h, e); return start; }
         var p = Point(e);
         for (int j = 0; j < _free.Length; j++)
         {

@@ -40,7 +40,16 @@ public static class IntervalAssessment
     public static IntervalAssessmentResult Apply(HypothesisLikelihood likelihood, Observables observables, ModeSearchResult search, ModelFitSummary summary)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
-        ArgumentNullException.ThrowIfNull(observables);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Apply(backend, backend.Bind(likelihood.Hypothesis), search, summary);
+    }
+
+    /// <summary>As <see cref="Apply(HypothesisLikelihood, Observables, ModeSearchResult, ModelFitSummary)"/> with every
+    /// refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
+    public static IntervalAssessmentResult Apply(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, ModeSearchResult search, ModelFitSummary summary)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(search);
         ArgumentNullException.ThrowIfNull(summary);
         var h = likelihood.Hypothesis;
@@ -51,6 +60,7 @@ public static class IntervalAssessment
         var notes = new List<string>();
         var profiled = new List<string>();
         var nonQuadratic = new List<string>();
+        var disjoint = new List<string>();
         for (int i = 0; i < list.Count; i++)
         {
             var p = list[i];
@@ -64,7 +74,7 @@ public static class IntervalAssessment
             bool must = atBound is not null || !hasSe || affected;
             if (!must && QuadraticScreenPasses(likelihood, best, j, top)) continue;
 
-            var refit = new ProfileRefit(h, observables, p.Name, likelihood);
+            var refit = new ProfileRefit(backend, h, p.Name);
             var samples = new List<ProfileSample> { new(v, top, best.LogLikelihood, best.Theta, best.Converged) };
             foreach (var m in search.Modes.Skip(1)) samples.Add(new ProfileSample(m.Theta[j], ModeSearch.Objective(h, m), m.LogLikelihood, m.Theta, m.Converged));
             if (search.Scans.TryGetValue(p.Name, out var scan)) samples.AddRange(scan.Where(s => double.IsFinite(s.Objective)));
@@ -74,7 +84,10 @@ public static class IntervalAssessment
                 || Math.Abs((cr.Hi - v) / se - 1) > QuadraticTolerance && !(atBound == "upper");
             if (!(must || differs)) continue;
             double lo = atBound == "lower" ? spec.Min : cr.Lo, hi = atBound == "upper" ? spec.Max : cr.Hi;
-            list[i] = p with { Lo = lo, Hi = hi, IntervalMethod = IntervalMethods.Profile, AtBound = atBound };
+            var pieces = cr.Regions.Count > 1 ? cr.Regions.Select(r => new IntervalPiece(r.Lo, r.Hi)).ToArray() : [];
+            list[i] = p with { Lo = lo, Hi = hi, IntervalMethod = IntervalMethods.Profile, AtBound = atBound, Regions = pieces };
+            if (pieces.Length > 1)
+                disjoint.Add(p.Name + " " + string.Join(" ∪ ", pieces.Select(q => FormattableString.Invariant($"[{q.Lo:G3}, {q.Hi:G3}]"))));
             profiled.Add(p.Name);
             if (atBound is not null)
                 notes.Add(FormattableString.Invariant($"{summary.Name}: {p.Name} is at its {atBound} bound {(atBound == "lower" ? spec.Min : spec.Max):G4}; its interval is one-sided, [{lo:G4}, {hi:G4}] from the profile likelihood, not a ±σ interval"));
@@ -82,6 +95,8 @@ public static class IntervalAssessment
         }
         if (nonQuadratic.Count > 0)
             notes.Add($"{summary.Name}: the profile likelihood is not close to quadratic for {string.Join("; ", nonQuadratic)}, so the profile interval is reported");
+        if (disjoint.Count > 0)
+            notes.Add($"{summary.Name}: the 68% profile-likelihood set is not one interval: {string.Join("; ", disjoint)} (lo–hi is their hull, which spans the modes and covers more than 68%; results.json lists the pieces as regions)");
         IReadOnlyList<FitMode> modes = [];
         if (search.Multimodal)
         {
@@ -97,7 +112,7 @@ public static class IntervalAssessment
     }
 
     // ln L at θ̂ ± Σ e_j / σ_j (inside the bounds) should be ½ below the maximum for a quadratic log-likelihood.
-    private static bool QuadraticScreenPasses(HypothesisLikelihood likelihood, MaximumLikelihoodResult best, int j, double top)
+    private static bool QuadraticScreenPasses(Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult best, int j, double top)
     {
         var cov = best.Covariance;
         if (cov is null) return false;

@@ -20,13 +20,24 @@ public static class ModelFitRefinement
         int scanPoints = ModeSearch.DefaultGridPoints, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
+        var backend = Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables)));
+        return Run(backend, backend.Bind(likelihood.Hypothesis), fit, scanPoints, cancel);
+    }
+
+    /// <summary>Refines <paramref name="fit"/> of <paramref name="likelihood"/> (bound on <paramref name="backend"/>), every
+    /// refit on the backend; <paramref name="scanPoints"/> = 0 skips the mode search.</summary>
+    public static RefinedFit Run(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult fit,
+        int scanPoints = ModeSearch.DefaultGridPoints, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(fit);
         var search = scanPoints >= 2
-            ? ModeSearch.Run(likelihood, observables, fit, scanPoints, cancel)
+            ? ModeSearch.Run(backend, likelihood, fit, scanPoints, cancel)
             : new ModeSearchResult(fit, [fit], new Dictionary<string, ProfileSample[]>());
-        var summary = FitSummaries.From(likelihood, search.Best);
+        var summary = FitSummaries.From(likelihood.Hypothesis, backend.TotalObjects, search.Best);
         if (!double.IsFinite(search.Best.LogLikelihood)) return new RefinedFit(search.Best, summary, []);
-        var assessed = IntervalAssessment.Apply(likelihood, observables, search, summary);
+        var assessed = IntervalAssessment.Apply(backend, likelihood, search, summary);
         return new RefinedFit(search.Best, assessed.Summary, assessed.Notes);
     }
 
@@ -37,7 +48,7 @@ public static class ModelFitRefinement
         ArgumentNullException.ThrowIfNull(sampled);
         return sampled with
         {
-            Parameters = sampled.Parameters.Select(p => p.Fixed ? p : p with { IntervalMethod = IntervalMethods.Posterior }).ToArray(),
+            Parameters = sampled.Parameters.Select(p => p.Fixed ? p : p with { IntervalMethod = IntervalMethods.Posterior, Regions = [] }).ToArray(),
         };
     }
 }

@@ -27,9 +27,18 @@ public static class ProfileLikelihood
     /// </summary>
     public static ProfileLikelihoodResult Run(Hypothesis hypothesis, Observables observables, MaximumLikelihoodResult best, string parameter, int points = ModeSearch.DefaultGridPoints)
     {
+        ArgumentNullException.ThrowIfNull(observables);
+        return Run(Evaluation.EvaluationBackend.InProcess(observables), hypothesis, best, parameter, points);
+    }
+
+    /// <summary>As <see cref="Run(Hypothesis, Observables, MaximumLikelihoodResult, string, int)"/> with every refit on
+    /// <paramref name="backend"/> (threads, or MPI ranks).</summary>
+    public static ProfileLikelihoodResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, MaximumLikelihoodResult best, string parameter, int points = ModeSearch.DefaultGridPoints)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(best);
-        var refit = new ProfileRefit(hypothesis, observables, parameter);
+        var refit = new ProfileRefit(backend, hypothesis, parameter);
         int j = refit.Index;
         double se = best.StandardError(j);
         double range = refit.Max - refit.Min;

@@ -18,26 +18,25 @@ public sealed record ProfileSample(double Value, double Objective, double LogLik
 public sealed class ProfileRefit
 {
     private readonly Hypothesis _h;
-    private readonly Observables _obs;
+    private readonly Evaluation.EvaluationBackend _backend;
     private readonly int _j;
-    private HypothesisLikelihood? _bound;
 
-    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/>.</summary>
-    /// <param name="hypothesis">The hypothesis.</param>
-    /// <param name="observables">Its objects.</param>
-    /// <param name="parameter">The profiled parameter.</param>
-    /// <param name="bound">The hypothesis already bound to <paramref name="observables"/>, if the caller has it: each refit then
-    /// reuses its per-object data and redshift grid (<see cref="HypothesisLikelihood.WithFixed"/>) instead of binding again.</param>
-    public ProfileRefit(Hypothesis hypothesis, Observables observables, string parameter, HypothesisLikelihood? bound = null)
+    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/> in this process.</summary>
+    public ProfileRefit(Hypothesis hypothesis, Observables observables, string parameter)
+        : this(Evaluation.EvaluationBackend.InProcess(observables ?? throw new ArgumentNullException(nameof(observables))), hypothesis, parameter)
     {
+    }
+
+    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/> on <paramref name="backend"/>.</summary>
+    public ProfileRefit(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, string parameter)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
-        ArgumentNullException.ThrowIfNull(observables);
         _h = hypothesis;
-        _obs = observables;
+        _backend = backend;
         _j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
         if (_j < 0) throw new ArgumentException($"parameter '{parameter}' is not free in model '{hypothesis.Label}', so it cannot be profiled");
         Parameter = parameter;
-        _bound = bound;
     }
 
     /// <summary>The profiled parameter.</summary>
@@ -67,10 +66,11 @@ public sealed class ProfileRefit
     /// other components of <paramref name="start"/> (a full θ).</summary>
     public ProfileSample At(double value, ReadOnlySpan<double> start)
     {
-        var lik = LazyInitializer.EnsureInitialized(ref _bound, () => _h.Bind(_obs)).WithFixed(Parameter, value);
+        var fixedH = _h.WithFixed(Parameter, value);
+        var lik = _backend.Bind(fixedH);
         var s = new double[start.Length - 1];
         for (int k = 0, m = 0; k < start.Length; k++) if (k != _j) s[m++] = start[k];
-        var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1, InitialStep: 0.2), s, covariance: false);
+        var fit = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, new OptimizerSettings(Starts: 1, InitialStep: 0.2), covariance: false);
         var full = new double[start.Length];
         for (int k = 0, m = 0; k < full.Length; k++) full[k] = k == _j ? value : fit.Theta[m++];
         double ll = fit.LogLikelihood;
@@ -81,7 +81,7 @@ public sealed class ProfileRefit
     /// <summary>
     /// The profile on <paramref name="grid"/> (ascending), swept outward from the grid point nearest to
     /// <paramref name="start"/>'s value in both directions, each point warm-started from its inner neighbour.
-    /// The two directions run in parallel.
+    /// The two directions run in parallel in one process (in order under MPI).
     /// </summary>
     public ProfileSample[] Sweep(IReadOnlyList<double> grid, double[] start)
     {
@@ -92,9 +92,11 @@ public sealed class ProfileRefit
         int c = 0;
         for (int i = 1; i < grid.Count; i++) if (Math.Abs(grid[i] - start[_j]) < Math.Abs(grid[c] - start[_j])) c = i;
         result[c] = At(grid[c], start);
-        Parallel.Invoke(
-            () => { for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(result[i + 1], start)); },
-            () => { for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(result[i - 1], start)); });
+        _backend.ForEach(2, side =>
+        {
+            if (side == 0) for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(result[i + 1], start));
+            else for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(result[i - 1], start));
+        });
         return result;
     }
 

@@ -31,6 +31,11 @@ public sealed record StudyResult
 {
     /// <summary>Version of the results.json layout.</summary>
     public int SchemaVersion { get; init; } = 1;
+    /// <summary>
+    /// The study's answer (best model or null, decided, Kass–Raftery strength, reason), computed from the fields below
+    /// by <see cref="Comparison.StudyVerdict.From"/>; written to results.json, not read back.
+    /// </summary>
+    public Comparison.StudyVerdict Verdict => Comparison.StudyVerdict.From(this);
     /// <summary>Catalogue file or mock name.</summary>
     public required string Source { get; init; }
     /// <summary>Rows read from the catalogue (= accepted + rejected).</summary>
@@ -61,6 +66,8 @@ public sealed record StudyResult
     public IReadOnlyList<ProfileLikelihoodResult> Profiles { get; init; } = [];
     /// <summary>Caveats (degeneracies, conventions) for the reader.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+    /// <summary>One entry per model sampled by ensemble MCMC: chain length, burn-in and convergence numbers.</summary>
+    public IReadOnlyList<ChainSummary> Chains { get; init; } = [];
     /// <summary>Posterior samples for writing next to results.json (not serialised into it).</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public IReadOnlyList<PosteriorDraws> Samples { get; init; } = [];
