@@ -24,7 +24,8 @@ public sealed class Sample
         double[]? magErr = null,
         string[]? band = null,
         SizeDefinition? sizeDefinition = null,
-        IReadOnlyDictionary<string, double[]>? extraColumns = null)
+        IReadOnlyDictionary<string, double[]>? extraColumns = null,
+        SurveyColumns? survey = null)
     {
         Count = z.Length;
         SourceName = sourceName;
@@ -43,6 +44,9 @@ public sealed class Sample
         Band = Check(band, nameof(band));
         SizeDefinition = sizeDefinition ?? SizeDefinition.Effective;
         ExtraColumns = extraColumns ?? new Dictionary<string, double[]>();
+        Survey = survey ?? SurveyColumns.None;
+        Check(Survey.AbsMag, "abs_mag"); Check(Survey.LogMass, "log_mass"); Check(Survey.FluxDensityJy, "flux_density");
+        Check(Survey.SersicN, "sersic_n"); Check(Survey.Group, "group"); Check(Survey.Weight, "weight");
         foreach (var (name, col) in ExtraColumns)
             if (col.Length != Count) throw new ArgumentException($"extra column '{name}' has {col.Length} entries, expected {Count}");
     }
@@ -95,6 +99,19 @@ public sealed class Sample
     /// <summary>How the size was measured.</summary>
     public SizeDefinition SizeDefinition { get; }
 
+    /// <summary>The survey roles (absolute magnitude, stellar mass, flux density, Sérsic index, group, weight); absent ones null.</summary>
+    public SurveyColumns Survey { get; }
+
     /// <summary>Further numeric columns kept by name (e.g. per-object K-correction, extinction).</summary>
     public IReadOnlyDictionary<string, double[]> ExtraColumns { get; }
+
+    /// <summary>The objects at <paramref name="rows"/> (ascending indices), every role kept.</summary>
+    public Sample Take(IReadOnlyList<int> rows)
+    {
+        ArgumentNullException.ThrowIfNull(rows);
+        T[]? Pick<T>(T[]? a) => a is null ? null : rows.Select(i => a[i]).ToArray();
+        var source = RowNumbers.FromArray(rows.Select(i => SourceRows[i]).ToArray());
+        return new Sample(SourceName, source, Pick(Z)!, Pick(Id), Pick(ZErr), Pick(ThetaRad), Pick(ThetaErrRad), Pick(Mu), Pick(MuErr),
+            Pick(Mag), Pick(MagErr), Pick(Band), SizeDefinition, ExtraColumns.ToDictionary(kv => kv.Key, kv => Pick(kv.Value)!));
+    }
 }
