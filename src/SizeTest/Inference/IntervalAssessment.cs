@@ -78,6 +78,13 @@ public static class IntervalAssessment
             var samples = new List<ProfileSample> { new(v, top, best.LogLikelihood, best.Theta, best.Converged) };
             foreach (var m in search.Modes.Skip(1)) samples.Add(new ProfileSample(m.Theta[j], ModeSearch.Objective(h, m), m.LogLikelihood, m.Theta, m.Converged));
             if (search.Scans.TryGetValue(p.Name, out var scan)) samples.AddRange(scan.Where(s => double.IsFinite(s.Objective)));
+            else if (affected)
+            {
+                // No scan of this parameter: sample the span of the modes so a dip between them is seen (disjoint set).
+                double mLo = search.Modes.Min(m => m.Theta[j]), mHi = search.Modes.Max(m => m.Theta[j]);
+                var between = Enumerable.Range(1, 12).Select(q => mLo + (mHi - mLo) * q / 13.0).ToArray();
+                samples.AddRange(refit.Sweep(between, best.Theta).Where(s => double.IsFinite(s.Objective)));
+            }
             var cr = ProfileInterval.Find(refit, samples, hasSe ? se : 0.05 * (spec.Max - spec.Min), top);
             bool differs = !hasSe
                 || Math.Abs((v - cr.Lo) / se - 1) > QuadraticTolerance && !(atBound == "lower")
