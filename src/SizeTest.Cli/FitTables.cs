@@ -1,6 +1,8 @@
 using System.Globalization;
 using System.Text;
+using SizeTest.Common;
 using SizeTest.Inference;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Cli;
 
@@ -22,8 +24,20 @@ internal static class FitTables
 
     // How an interval was obtained, when it is not the Hessian's.
     private static string Marker(ParameterEstimate p) =>
-        (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
+        (p.Regions.Count > 1 ? " = " + string.Join(" ∪ ", p.Regions.Select(q => string.Create(Inv, $"[{q.Lo:0.####}, {q.Hi:0.####}]"))) : "")
+        + (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
         + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
+
+    /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>
+    public static void WriteVerdict(TextWriter o, StudyResult r)
+    {
+        var v = r.Verdict;
+        o.WriteLine($"verdict: {DecisionSummary.Headline(v)} [best: {v.Best ?? "none"}; decided: {(v.Decided ? "yes" : "no")}; strength: {v.Strength}]");
+        foreach (var line in DecisionSummary.CanTheDataDecide(r)) o.WriteLine($"can the data decide: {line}");
+        var rows = EvolutionTestTable.From(r);
+        foreach (var row in rows) o.WriteLine(EvolutionTestTable.Statement(row));
+        foreach (var c in DecisionSummary.Implausible(rows)) o.WriteLine($"plausibility: {c}");
+    }
 
     /// <summary>The ranked table and the statements under it.</summary>
     public static void WriteTable(TextWriter o, StudyResult r)
@@ -31,7 +45,10 @@ internal static class FitTables
         o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable}; seed {r.Seed}");
         o.WriteLine();
         string evo = r.Settings.Observable == "sb" ? "sb_evolution" : "size_evolution";
-        o.WriteLine($"{"rank",4}  {"model",-16} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",8} {"BIC",11} {"ΔBIC",8} {"w(AIC)",7}  {evo + " (68%)",-28} converged");
+        string sym = evo == "sb_evolution" ? "b" : "a";
+        // ln L, AIC and BIC carry no error of their own: two decimals; ΔAIC/ΔBIC one (the Kass–Raftery scale needs no more);
+        // the evolution estimate is rounded to its 68% interval by the PDG rule.
+        o.WriteLine($"{"rank",4}  {"model",-18} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",7} {"BIC",11} {"ΔBIC",7}  {"evidence against",-34} {sym + " (68% interval)",-22} converged");
         int rank = 0;
         foreach (var m in r.Models)
         {
@@ -39,22 +56,25 @@ internal static class FitTables
             // Tied models share a rank, shown as "=1" (no order among them).
             string shown = m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{e.Value.ToString("0.000", Inv)} (fixed)" : $"{e.Value.ToString("0.000", Inv)} [{e.Lo.ToString("0.000", Inv)}, {e.Hi.ToString("0.000", Inv)}]{Marker(e)}";
-            o.WriteLine(string.Create(Inv, $"{shown,4}  {m.Name,-16} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,8:0.00} {m.Bic,11:0.00} {m.DeltaBic,8:0.00} {m.AkaikeWeight,7:0.000}  {ev,-28} {(m.Converged ? "yes" : "NO")}"));
+            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : PdgRounding.ValueWithInterval(e.Value, e.Lo, e.Hi) + Marker(e);
+            string words = m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
+            o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }
         o.WriteLine();
         foreach (var m in r.Models)
         {
             var special = m.Parameters.Where(p => !p.Fixed && (p.IntervalMethod != IntervalMethods.Hessian || p.AtBound is not null)).ToArray();
             if (special.Length > 0)
-                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => string.Create(Inv, $"{p.Name} {p.Value:0.####} [{p.Lo:0.####}, {p.Hi:0.####}]{Marker(p)}"))));
+                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi) is var t ? $"{p.Name} {t}{Marker(p)}" : "")));
             if (m.Modes.Count > 1)
                 o.WriteLine($"{m.Name}: MULTIMODAL, {m.Modes.Count} maxima within Δ ln L < 2: " + string.Join("; ", m.Modes.Select(
                     md => string.Join(", ", md.Parameters.Select(kv => string.Create(Inv, $"{kv.Key} {kv.Value:0.####}"))) + string.Create(Inv, $" (ln L {md.LogLikelihood:0.00})"))));
         }
+        o.WriteLine();
+        WriteVerdict(o, r);
+        o.WriteLine();
         foreach (var b in r.BayesFactors)
-            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.00}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
-        foreach (var q in r.RequiredEvolution) o.WriteLine(q.Verdict);
+            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.0}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
         foreach (var c in r.CrossValidation)
             o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
         foreach (var d in r.CrossValidationDifferences)

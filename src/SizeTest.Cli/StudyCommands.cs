@@ -75,21 +75,19 @@ internal static class StudyCommands
 
     private static int Execute(CliContext context, StudyDefinition def, string outDir, bool force, string verb)
     {
-        var inv = CultureInfo.InvariantCulture;
         var outcome = StudyRunner.Run(def, new StudyRunOptions
         {
             OutputDirectory = outDir,
             Force = force,
             Version = Version(),
             GitCommit = GitCommit(),
+            Command = "sizetest " + string.Join(' ', Environment.GetCommandLineArgs().Skip(1).Select(a => a.Contains(' ', StringComparison.Ordinal) ? $"\"{a}\"" : a)),
             Log = line => context.Err.WriteLine($"sizetest {verb}: {line}"),
             FitProgress = new FitProgressReporter(context),
         });
         var r = outcome.Result;
-        context.Out.WriteLine($"{def.Name}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; seed {r.Seed}");
-        foreach (var (m, i) in r.Models.Select((m, i) => (m, i + 1)))
-            context.Out.WriteLine(string.Create(inv, $"{i,3}. {m.Name,-14} k={m.K,-2} BIC={m.Bic,12:0.00}  ΔBIC={m.DeltaBic,9:0.00}  ΔAIC={m.DeltaAic,9:0.00}  {(m.Converged ? "" : "NOT CONVERGED")}"));
-        foreach (var q in r.RequiredEvolution) context.Out.WriteLine(q.Verdict);
+        context.Out.Write($"{def.Name}: ");
+        FitTables.WriteTable(context.Out, r);
         context.Out.WriteLine($"report: {Path.Combine(outDir, "report.html")}");
         if (!r.AllConverged)
         {

@@ -88,17 +88,17 @@ public static class WorldModels
     /// <summary>The family names, in contract order.</summary>
     public static IReadOnlyList<string> Names { get; } = All.Select(f => f.Name).ToArray();
 
-    /// <summary>Looks up a family by its exact (lower-case) name.</summary>
+    /// <summary>Looks up a family by name, ignoring case (<c>LCDM</c> and <c>lcdm</c> are the same model).</summary>
     public static bool TryGet(string name, [NotNullWhen(true)] out IWorldModelFamily? family)
     {
-        family = All.FirstOrDefault(f => string.Equals(f.Name, name, StringComparison.Ordinal));
+        family = All.FirstOrDefault(f => string.Equals(f.Name, name, StringComparison.OrdinalIgnoreCase));
         return family is not null;
     }
 
     /// <summary>Looks up a family; unknown names throw <see cref="ArgumentException"/> listing the known ones.</summary>
     public static IWorldModelFamily Get(string name)
         => TryGet(name, out var family) ? family
-            : throw new ArgumentException($"Unknown world model '{name}'; known models are {string.Join(", ", Names)}.");
+            : throw new ArgumentException($"Unknown world model '{name}'{Common.NameSuggestions.Hint(name, Names)}; known models are {string.Join(", ", Names)}.");
 
     private static IWorldModel? CreateStatic(StaticDistanceLaw law, ReadOnlySpan<double> v, out string? error)
     {

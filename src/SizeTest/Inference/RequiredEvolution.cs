@@ -35,22 +35,15 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
         if (estimate.Fixed)
             return new RequiredEvolution(model, estimate.Name, estimate.Value, estimate.Value, estimate.Value, true, false, null, null,
                 expected?.Lo, expected?.Hi, $"{model}: {what} held fixed at {estimate.Value.ToString("0.###", inv)}");
-        bool excluded = lrt is not null && lrt.PValue < 0.05;
-        var parts = new List<string>
-        {
-            $"{model} needs {what} = {estimate.Value.ToString("0.000", inv)} (68%: {estimate.Lo.ToString("0.000", inv)} … {estimate.Hi.ToString("0.000", inv)})",
-        };
-        if (lrt is not null)
-            parts.Add(excluded ? $"zero evolution excluded at {lrt.Sigma.ToString("0.0", inv)}σ ({LikelihoodRatioTest.FormatPValue(lrt.PValue)})"
-                               : $"zero evolution not excluded (p = {lrt.PValue.ToString("0.000", inv)})");
-        if (expected is not null)
-        {
-            string rel = estimate.Hi < expected.Lo ? "below the expected range"
-                : estimate.Lo > expected.Hi ? "above the expected range"
-                : "consistent with the expected range";
-            parts.Add($"{rel} [{expected.Lo.ToString("0.###", inv)}, {expected.Hi.ToString("0.###", inv)}]");
-        }
+        bool excluded = lrt is not null && lrt.PValue < Comparison.EvolutionTestTable.Alpha;
+        // The same words as the report and the CLI (one statement per test, Comparison.EvolutionTestTable).
+        var exp = Comparison.EvolutionExpectation.InForce(expected is null ? [] : [expected]).FirstOrDefault(e => e.Parameter == estimate.Name);
+        var row = new Comparison.EvolutionTestRow(model, estimate.Name, estimate.Value, estimate.Lo, estimate.Hi, lrt?.PValue,
+            lrt is null ? Comparison.EvolutionNeed.NotTested : excluded ? Comparison.EvolutionNeed.Needed : Comparison.EvolutionNeed.NotNeeded,
+            exp?.Judge(estimate.Value, estimate.Lo, estimate.Hi) ?? Comparison.Plausibility.NotJudged, exp);
+        var parts = new List<string> { Comparison.EvolutionTestTable.Statement(row).TrimEnd('.') };
+        if (Comparison.EvolutionTestTable.CallOut(row) is { } callout) parts.Add(callout.TrimEnd('.'));
         return new RequiredEvolution(model, estimate.Name, estimate.Value, estimate.Lo, estimate.Hi, false, excluded,
-            lrt?.PValue, lrt?.Sigma, expected?.Lo, expected?.Hi, string.Join("; ", parts));
+            lrt?.PValue, lrt?.Sigma, expected?.Lo, expected?.Hi, string.Join(". ", parts) + ".");
     }
 }

@@ -31,6 +31,11 @@ public sealed record StudyResult
 {
     /// <summary>Version of the results.json layout.</summary>
     public int SchemaVersion { get; init; } = 1;
+    /// <summary>
+    /// The study's answer (best model or null, decided, Kass–Raftery strength, reason), computed from the fields below
+    /// by <see cref="Comparison.StudyVerdict.From"/>; written to results.json, not read back.
+    /// </summary>
+    public Comparison.StudyVerdict Verdict => Comparison.StudyVerdict.From(this);
     /// <summary>Catalogue file or mock name.</summary>
     public required string Source { get; init; }
     /// <summary>Rows read from the catalogue (= accepted + rejected).</summary>

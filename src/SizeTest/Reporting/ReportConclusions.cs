@@ -1,56 +1,68 @@
 using System.Globalization;
+using SizeTest.Inference.Comparison;
 using SizeTest.Reporting.Data;
-using SizeTest.Reporting.Figures;
 
 namespace SizeTest.Reporting;
 
 /// <summary>
-/// The conclusions a report states, derived in words from the criteria it was given (no
-/// refitting), always shown beside the assumptions they rest on.
+/// The sentences a report states, derived from the verdict, the "can the data decide" lines and the one table of
+/// evolution tests (no refitting). Every "needs evolution" sentence is <see cref="EvolutionTestTable.Statement"/>
+/// of one row, so the report, the CLI and results.json word each test the same way and cannot disagree.
 /// </summary>
 public static class ReportConclusions
 {
+    /// <summary>At most this many sentences open the report under the summary table.</summary>
+    public const int MaxSummarySentences = 6;
+
     /// <summary>The caution printed with every ranking.</summary>
     public const string Caution =
         "Information criteria and Bayes factors rank the models given the assumptions listed here — the world-model family and its priors, " +
         "the form of size and luminosity evolution, the selection model and the photometric corrections. They do not say which model is true, " +
         "and a model that needs a large evolution term to fit may rank high for that reason alone.";
 
-    /// <summary>Conclusions in words, best-ranked model first, then evolution, convergence and any extra conclusions.</summary>
+    /// <summary>
+    /// The handful of sentences under the summary table: the verdict, whether the data can decide, which models need
+    /// implausible evolution (by name), and a note when the catalogue is synthetic.
+    /// </summary>
     public static IReadOnlyList<string> Derive(ReportData data)
     {
+        ArgumentNullException.ThrowIfNull(data);
         var list = new List<string>();
         var ic = CultureInfo.InvariantCulture;
-        if (data.Job.Synthetic)
-            list.Add("The catalogue is synthetic: these conclusions describe a demonstration or mock, not the sky.");
-        var models = data.Models.OrderBy(m => m.Fit.Bic).ThenBy(m => m.Fit.Name, StringComparer.Ordinal).ToList();
-        if (models.Count == 0)
+        if (data.Models.Count == 0)
         {
             list.Add("No model was fitted.");
         }
+        else if (data.Verdict is { } v)
+        {
+            list.Add(DecisionSummary.Headline(v));
+            list.AddRange(data.DecisionLines.Count > 0 ? data.DecisionLines : [v.Reason]);
+        }
         else
         {
-            var best = models[0];
-            list.Add($"By BIC the preferred model is {best.Label} (lowest BIC, {best.Fit.Bic.ToString("0.0", ic)}).");
-            foreach (var m in models.Skip(1))
-                list.Add($"Against {m.Label}: ΔBIC = {m.Fit.DeltaBic.ToString("0.0", ic)}, evidence for {best.Label} that is {ReportNumbers.EvidenceWords(m.Fit.DeltaBic)} on the Kass & Raftery (1995) scale; ΔAIC = {m.Fit.DeltaAic.ToString("0.0", ic)}.");
-            var bestAic = data.Models.OrderBy(m => m.Fit.Aic).First();
-            if (!ReferenceEquals(bestAic, best))
-                list.Add($"AIC prefers {bestAic.Label} instead: the two criteria weigh the extra parameters differently, so the ranking is not robust.");
-            foreach (var m in data.Models)
-                foreach (var e in m.RequiredEvolution)
-                {
-                    bool excludesZero = e.Lo > 0 || e.Hi < 0;
-                    list.Add($"{m.Label} needs {e.Description} = {e.Value.ToString("0.00", ic)} (68%: {e.Lo.ToString("0.00", ic)} to {e.Hi.ToString("0.00", ic)})" +
-                             (excludesZero ? ", which excludes no evolution." : ", consistent with no evolution."));
-                }
+            var models = data.Models.OrderBy(m => m.Fit.Bic).ThenBy(m => m.Fit.Name, StringComparer.Ordinal).ToList();
+            list.Add(models.Count == 1
+                ? $"Only {models[0].Label} was fitted; there is nothing to compare it with."
+                : $"By BIC the preferred model is {models[0].Label}; the runner-up {models[1].Label} has ΔBIC = {models[1].Fit.DeltaBic.ToString("0.0", ic)} ({EvidenceStrength.Words(EvidenceStrength.FromTwoLnB(models[1].Fit.DeltaBic))} on the Kass & Raftery 1995 scale).");
             var failed = data.Models.Where(m => !m.Fit.Converged).ToList();
             if (failed.Count > 0)
-                list.Add($"Not converged: {string.Join(", ", failed.Select(m => $"{m.Label} ({m.Fit.ExitReason})"))}; their criteria are not reliable.");
+                list.Add($"Not converged: {string.Join(", ", failed.Select(m => m.Label))}; their criteria are not reliable.");
         }
-        if (data.Power is { } p && p.Target is { } t)
+        var callOuts = DecisionSummary.Implausible(data.EvolutionTests);
+        int room = Math.Max(0, MaxSummarySentences - list.Count - (data.Job.Synthetic ? 1 : 0));
+        list.AddRange(callOuts.Take(room));
+        if (callOuts.Count > room) list[^1] += $" ({callOuts.Count - room} more in the evolution tests.)";
+        if (data.Power is { } p && p.Target is { } t && list.Count < MaxSummarySentences)
             list.Add($"See the power curve: below power {t.ToString("0.##", ic)} the sample size cannot be relied on to separate the models.");
-        list.AddRange(data.ExtraConclusions);
+        if (data.Job.Synthetic)
+            list.Add("The catalogue is synthetic: these conclusions describe a demonstration or mock, not the sky.");
         return list;
+    }
+
+    /// <summary>The evolution statements, one per row of the evolution tests, in table order.</summary>
+    public static IReadOnlyList<string> Statements(ReportData data)
+    {
+        ArgumentNullException.ThrowIfNull(data);
+        return data.EvolutionTests.Select(EvolutionTestTable.Statement).ToList();
     }
 }

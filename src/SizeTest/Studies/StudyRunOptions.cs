@@ -15,6 +15,9 @@ public sealed record StudyRunOptions
     public string Version { get; init; } = "unknown";
     /// <summary>Git commit of the build (read by the command line), or "unknown".</summary>
     public string GitCommit { get; init; } = "unknown";
+
+    /// <summary>The command line that started the run, for the manifest (empty when not known).</summary>
+    public string Command { get; init; } = "";
     /// <summary>Receives one line per stage (e.g. "loading catalogue …"); may be null.</summary>
     public Action<string>? Log { get; init; }
     /// <summary>Receives fit progress; may be null.</summary>

@@ -34,7 +34,10 @@ public static class StudyRunner
         string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
 
         // Refuse an existing output before any work.
-        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force);
+        var knownInputs = new List<string> { study.CataloguePath };
+        if (study.StudyFilePath.Length > 0) knownInputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
+        if (study.PowerResultPath is { } powerInput) knownInputs.Add(powerInput);
+        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force, knownInputs);
         try
         {
             var inputs = new List<string>();
@@ -51,6 +54,7 @@ public static class StudyRunner
             string ReadTable(string path)
             {
                 var full = Path.GetFullPath(path, study.BaseDirectory);
+                folder.AddInput(full);
                 var text = PhotometryFiles.ReadText(full);
                 inputs.Add(full);
                 return text;
@@ -58,9 +62,12 @@ public static class StudyRunner
             var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
             Stage("photometry");
 
+            var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
+            foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
+            load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
-            var observables = photometry.Observables;
+            var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
             var result = FitStudy.Run(new FitRequest
             {
@@ -105,6 +112,7 @@ public static class StudyRunner
             {
                 SizeTestVersion = options.Version,
                 GitCommit = options.GitCommit,
+                Command = options.Command,
                 Seed = study.Seed,
                 StudyFilePath = study.StudyFilePath.Length > 0 ? Rel(study.StudyFilePath) : "",
                 StudyFileText = study.StudyFileText,

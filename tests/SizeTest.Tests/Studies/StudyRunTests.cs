@@ -64,9 +64,16 @@ public sealed class StudyRunTests
         Assert.Contains("--force", stderr);
         Assert.Equal("old", File.ReadAllText(Path.Combine(fx.Out(), "keep.txt")));
 
+        // --force replaces only a folder sizetest wrote (issue 14): keep.txt is the user's, so it is refused.
+        var (rexit, _, rerr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out(), "--force");
+        Assert.Equal(2, rexit);
+        Assert.Contains("not written by sizetest", rerr);
+        Assert.Equal("old", File.ReadAllText(Path.Combine(fx.Out(), "keep.txt")));
+        File.Delete(Path.Combine(fx.Out(), "keep.txt"));
+        var (e1, _, err1) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(e1 == 0, err1);
         var (fexit, _, ferr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out(), "--force");
         Assert.True(fexit == 0, ferr);
-        Assert.False(File.Exists(Path.Combine(fx.Out(), "keep.txt")));
         Assert.True(File.Exists(Path.Combine(fx.Out(), "results.json")));
     }
 
@@ -76,6 +83,7 @@ public sealed class StudyRunTests
         using var fx = new StudyFixture();
         Directory.CreateDirectory(fx.Out());
         File.WriteAllText(Path.Combine(fx.Out(), "report.html"), "old report");
+        File.WriteAllText(Path.Combine(fx.Out(), SizeTest.Common.OutputFolder.MarkerFileName), "report.html\n");   // an earlier sizetest output
         var study = StudyFileParser.Load(fx.StudyPath);
         Assert.Throws<IOException>(() => StudyRunner.Run(study, new StudyRunOptions
         {
@@ -88,7 +96,7 @@ public sealed class StudyRunTests
             },
         }));
         Assert.Equal("old report", File.ReadAllText(Path.Combine(fx.Out(), "report.html")));
-        Assert.Single(Directory.GetFileSystemEntries(fx.Out()));
+        Assert.Equal(2, Directory.GetFileSystemEntries(fx.Out()).Length);   // report.html and the marker
         Assert.DoesNotContain(Directory.GetDirectories(fx.Dir), d => Path.GetFileName(d).StartsWith(".out.tmp", StringComparison.Ordinal));
     }
 

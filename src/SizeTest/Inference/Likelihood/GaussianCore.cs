@@ -5,7 +5,7 @@ namespace SizeTest.Inference.Likelihood;
 
 /// <summary>
 /// The one vectorised Gaussian core of the likelihood kernels: Σ [r²/v + ln v] with r = y − (c0 + slope·x − offset) and
-/// v = s2 + extra (Gaussian log density with intrinsic scatter, common practice; science-checks §1.7), using
+/// v = s2 + extra (Gaussian log density with intrinsic scatter, common practice; docs/science.md §1.7), using
 /// System.Numerics vectors. With uniform s2 the logarithm is taken once. The size model passes y = ln θ, x = ln(1+z),
 /// offset = ln D_A; the SB model y = μ, x = log10(1+z), offset = −(K + A).
 /// </summary>

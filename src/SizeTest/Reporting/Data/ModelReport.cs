@@ -24,12 +24,15 @@ public sealed record ModelReport(ModelFitSummary Fit)
     /// <summary>The same without evolution, or null.</summary>
     public Curve? MuNoEvolution { get; init; }
 
+    /// <summary>Expected mean μ(z) of the objects that pass the selection cuts (the truncated-Gaussian mean), or null without an SB limit.</summary>
+    public Curve? MuSelected { get; init; }
+
     /// <summary>Evolution the model needs to fit (e.g. the size-evolution exponent with its interval).</summary>
     public IReadOnlyList<EvolutionRequirement> RequiredEvolution { get; init; } = [];
 
     /// <summary><see cref="DisplayName"/> or the model name.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
-    public string Label => DisplayName.Length > 0 ? DisplayName : Fit.Name;
+    public string Label => DisplayName.Length > 0 ? DisplayName : Cosmology.WorldModelDisplayNames.For(Fit.Name);
 }
 
 /// <summary>A curve y(x) sampled at increasing x.</summary>

@@ -60,6 +60,18 @@ public sealed record ReportData
         };
     }
 
+    /// <summary>The study's verdict (results.json <c>verdict</c>), or null when the data came without one.</summary>
+    public Inference.Comparison.StudyVerdict? Verdict { get; init; }
+
+    /// <summary>The one table of evolution tests every "needs evolution" statement comes from.</summary>
+    public IReadOnlyList<Inference.Comparison.EvolutionTestRow> EvolutionTests { get; init; } = [];
+
+    /// <summary>"Can the data decide?" sentences (a block that cannot discriminate, a ranking within noise, convergence).</summary>
+    public IReadOnlyList<string> DecisionLines { get; init; } = [];
+
+    /// <summary>The selection's surface-brightness limit μ_lim (mag/arcsec²), drawn on the Tolman figure, or null.</summary>
+    public double? SurfaceBrightnessLimit { get; init; }
+
     /// <summary>The run manifest shown at the end of the report (may be null before it is known).</summary>
     public Pack.RunManifest? Manifest { get; init; }
 }

@@ -5,7 +5,7 @@ using SizeTest.Reporting.Tables;
 namespace SizeTest.Reporting.Html;
 
 /// <summary>Escaping and small building blocks for the HTML report.</summary>
-public static class Html
+public static partial class Html
 {
     /// <summary>HTML-escapes text.</summary>
     public static string Text(string s) => WebUtility.HtmlEncode(s);
@@ -13,6 +13,11 @@ public static class Html
     /// <summary>Appends a table with a caption.</summary>
     public static void Table(StringBuilder sb, ReportTable t)
     {
+        if (t.Rows.Count == 0 && t.EmptyText.Length > 0)
+        {
+            sb.Append("<p id=\"table-").Append(Text(t.Id)).Append("\">").Append(Text(t.EmptyText)).Append("</p>\n");
+            return;
+        }
         sb.Append("<table id=\"table-").Append(Text(t.Id)).Append("\"><caption><strong>").Append(Text(t.Title)).Append(".</strong> ").Append(Text(t.Caption)).Append("</caption>\n<thead><tr>");
         for (int j = 0; j < t.Columns.Count; j++)
         {
@@ -37,5 +42,11 @@ public static class Html
         sb.Append("</tbody></table>\n");
     }
 
-    private static bool IsNumber(string s) => double.TryParse(s, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
+    private static bool IsNumber(string s) => IsNumeric(s);
+
+    /// <summary>True for a number as people read it: "−1.02", "1.02 ± 0.03", "1.0 +0.2 −0.1", "3.5e−4".</summary>
+    public static bool IsNumeric(string s) => NumericCell().IsMatch(s);
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"^[−+-]?(\d+\.?\d*|\.\d+)([eE][−+-]?\d+)?( ± \d+\.?\d*| \+\d+\.?\d* −\d+\.?\d*)?$")]
+    private static partial System.Text.RegularExpressions.Regex NumericCell();
 }

@@ -11,10 +11,10 @@ namespace SizeTest.Reporting.Html;
 /// </summary>
 public sealed class HtmlReportWriter
 {
-    /// <summary>The standard sections in order: job summary, data, conclusions with assumptions, tables, figures, run manifest.</summary>
+    /// <summary>The standard sections in order: verdict, job summary, data, evolution tests with assumptions, tables, figures, provenance.</summary>
     public static IReadOnlyList<IHtmlSection> DefaultSections { get; } =
     [
-        new JobSummarySection(), new DataSummarySection(), new ConclusionsSection(),
+        new VerdictSection(), new JobSummarySection(), new DataSummarySection(), new ConclusionsSection(),
         new TablesSection(), new FiguresSection(), new ManifestSection(),
     ];
 
@@ -96,7 +96,13 @@ public sealed class HtmlReportWriter
         figure svg { width: 100%; height: auto; display: block; }
         figcaption { font-size: 13px; color: var(--muted); margin-top: .4rem; }
         figcaption strong { color: var(--ink); }
-        pre.manifest { background: #f6f6f6; border: 1px solid var(--rule); padding: .8rem; font-size: 12px; overflow-x: auto; white-space: pre-wrap; word-break: break-all; }
+        pre.study { background: #f6f6f6; border: 1px solid var(--rule); padding: .8rem; font-family: 'DejaVu Sans Mono', monospace; font-size: 12px; overflow-x: auto; white-space: pre; }
+        .provenance { border: 1px solid var(--rule); border-left: 4px solid var(--accent); padding: .4rem 1rem; background: #f8fafc; }
+        th { white-space: nowrap; }
+        td.num { white-space: nowrap; }
+        ul.verdict { font-size: 1.02rem; }
+        ul.verdict li { margin-bottom: .3rem; }
+        #table-summary td:first-child { font-weight: bold; }
         footer { margin-top: 3rem; color: var(--muted); font-size: 12px; border-top: 1px solid var(--rule); }
         @media (max-width: 760px) { .pair { grid-template-columns: 1fr; } nav ol { columns: 1; } }
         @media print { body { max-width: none; } nav { display: none; } }

@@ -4,6 +4,23 @@ using SizeTest.Reporting.Rendering;
 
 namespace SizeTest.Reporting.Html;
 
+/// <summary>The verdict first: one summary table and a handful of sentences.</summary>
+public sealed class VerdictSection : IHtmlSection
+{
+    /// <inheritdoc />
+    public string Id => "verdict";
+    /// <inheritdoc />
+    public string Heading => "Verdict";
+    /// <inheritdoc />
+    public void WriteBody(StringBuilder html, ReportContent content)
+    {
+        Html.Table(html, content.Table("summary"));
+        html.Append("<ul class=\"verdict\">\n");
+        foreach (var c in content.Conclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+        html.Append("</ul>\n");
+    }
+}
+
 /// <summary>Job summary: what was run, with which build and seed.</summary>
 public sealed class JobSummarySection : IHtmlSection
 {
@@ -44,8 +61,7 @@ public sealed class DataSummarySection : IHtmlSection
             ("size definition", d.SizeDefinition.Length > 0 ? d.SizeDefinition : "(not stated)"),
             ("band", d.Band.Length > 0 ? d.Band : "(not stated)"),
         ]);
-        if (d.RejectReasons.Count > 0) Html.Table(html, content.Table("rejects"));
-        else html.Append("<p>No row was rejected.</p>\n");
+        Html.Table(html, content.Table("rejects"));
     }
 }
 
@@ -55,13 +71,21 @@ public sealed class ConclusionsSection : IHtmlSection
     /// <inheritdoc />
     public string Id => "conclusions";
     /// <inheritdoc />
-    public string Heading => "Conclusions and the assumptions they rest on";
+    public string Heading => "Evolution tests and the assumptions they rest on";
     /// <inheritdoc />
     public void WriteBody(StringBuilder html, ReportContent content)
     {
-        html.Append("<div class=\"pair\">\n<div class=\"conclusions\"><h3>Conclusions</h3><ul>\n");
-        foreach (var c in content.Conclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
-        html.Append("</ul></div>\n<div class=\"assumptions\"><h3>Assumptions</h3><dl>\n");
+        Html.Table(html, content.Table("evolution-tests"));
+        html.Append("<div class=\"pair\">\n<div class=\"conclusions\"><h3>What the tests say</h3><ul>\n");
+        foreach (var c in ReportConclusions.Statements(content.Data)) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+        html.Append("</ul>\n");
+        if (content.Data.ExtraConclusions.Count > 0)
+        {
+            html.Append("<h3>Notes</h3><ul>\n");
+            foreach (var c in content.Data.ExtraConclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+            html.Append("</ul>\n");
+        }
+        html.Append("</div>\n<div class=\"assumptions\"><h3>Assumptions</h3><dl>\n");
         foreach (var a in content.Data.Assumptions)
             html.Append("<dt>").Append(Html.Text(a.Topic)).Append("</dt><dd>").Append(Html.Text(a.Statement)).Append("</dd>\n");
         if (content.Data.Assumptions.Count == 0) html.Append("<dt>none stated</dt><dd>The study stated no assumptions; read every conclusion with that in mind.</dd>\n");
@@ -112,13 +136,13 @@ public sealed class FiguresSection : IHtmlSection
     }
 }
 
-/// <summary>The run manifest: inputs with checksums and the full manifest JSON.</summary>
+/// <summary>Provenance: version, commit, command, seed and inputs with SHA-256; the study file as a code block.</summary>
 public sealed class ManifestSection : IHtmlSection
 {
     /// <inheritdoc />
     public string Id => "manifest";
     /// <inheritdoc />
-    public string Heading => "Run manifest";
+    public string Heading => "Provenance";
     /// <inheritdoc />
     public void WriteBody(StringBuilder html, ReportContent content)
     {
@@ -127,9 +151,21 @@ public sealed class ManifestSection : IHtmlSection
             html.Append("<p>No run manifest was recorded.</p>\n");
             return;
         }
-        html.Append("<p>Every input file with its SHA-256 checksum; the complete manifest follows. Timestamps and timings are kept in its <code>volatile</code> field.</p>\n");
+        html.Append("<div class=\"provenance\">\n");
+        Html.KeyValues(html, "kv", [
+            ("SizeTest", m.SizeTestVersion),
+            ("commit", m.GitCommit.Length > 0 ? m.GitCommit : "unknown"),
+            ("command", m.Command.Length > 0 ? m.Command : "(not recorded)"),
+            ("seed", m.Seed.ToString(CultureInfo.InvariantCulture)),
+            ("machine", $"{m.Machine.OperatingSystem}, {m.Machine.Architecture}, {m.Machine.ProcessorCount} processors, {m.Machine.Runtime}"),
+        ]);
         html.Append("<table id=\"table-inputs\"><thead><tr><th>input</th><th>sha256</th></tr></thead><tbody>\n");
         foreach (var i in m.Inputs) html.Append("<tr><td>").Append(Html.Text(i.Path)).Append("</td><td class=\"hash\">").Append(Html.Text(i.Sha256)).Append("</td></tr>\n");
-        html.Append("</tbody></table>\n<pre class=\"manifest\">").Append(Html.Text(m.ToJson())).Append("</pre>\n");
+        html.Append("</tbody></table>\n<p>The full manifest, with timings, is <code>manifest.json</code> beside this report.</p>\n</div>\n");
+        if (m.StudyFileText.Length > 0)
+        {
+            html.Append("<h3>Study file").Append(m.StudyFilePath.Length > 0 ? " (" + Html.Text(m.StudyFilePath) + ")" : "").Append("</h3>\n<pre class=\"study\"><code>")
+                .Append(Html.Text(m.StudyFileText.ReplaceLineEndings("\n").TrimEnd())).Append("</code></pre>\n");
+        }
     }
 }

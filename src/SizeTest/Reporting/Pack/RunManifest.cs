@@ -26,6 +26,9 @@ public sealed record RunManifest
     /// <summary>Seed of every random process in the run.</summary>
     public required long Seed { get; init; }
 
+    /// <summary>The command line that made the run (e.g. <c>sizetest run study.toml --out reports/x</c>), or empty.</summary>
+    public string Command { get; init; } = "";
+
     /// <summary>Study file path relative to the working directory, or empty.</summary>
     public string StudyFilePath { get; init; } = "";
 
@@ -69,6 +72,7 @@ public sealed record RunManifest
             w.WriteNumber("schema_version", SchemaVersion);
             w.WriteString("sizetest_version", SizeTestVersion);
             w.WriteString("git_commit", GitCommit);
+            w.WriteString("command", Command);
             w.WriteNumber("seed", Seed);
             w.WriteStartObject("study_file");
             w.WriteString("path", StudyFilePath);

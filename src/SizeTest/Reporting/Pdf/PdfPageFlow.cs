@@ -114,8 +114,16 @@ internal sealed class PdfPageFlow : IDisposable
     /// </summary>
     public void Table(Tables.ReportTable t)
     {
+        if (t.Rows.Count == 0)
+        {
+            Paragraph(t.Title + ". " + (t.EmptyText.Length > 0 ? t.EmptyText : "The table has no rows."), 10f);
+            return;
+        }
+        // Keep the caption with the header and first rows (no orphaned caption at a page foot).
+        using (var cf = Font(false, 9f)) Ensure(Wrap(t.Title + ". " + t.Caption, cf, Width).Count * 9f * 1.35f + 9f * 1.5f * 5, "continued");
         Paragraph(t.Title + ". " + t.Caption, 9f, isMuted: true);
-        var heads = t.Columns.Select(c => c.Split(['_', ' '], StringSplitOptions.RemoveEmptyEntries)).ToArray();
+        // Headings break only between words, never inside one.
+        var heads = t.Columns.Select(c => c.Split(' ', StringSplitOptions.RemoveEmptyEntries)).ToArray();
         var numeric = t.Columns.Select((_, j) => t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]))).ToArray();
         float size = 9f;
         float[] widths;
@@ -149,8 +157,50 @@ internal sealed class PdfPageFlow : IDisposable
         Y += 10f;
     }
 
-    private static bool IsNumber(string s) =>
-        double.TryParse(s, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
+    private static bool IsNumber(string s) => Html.Html.IsNumeric(s);
+
+    /// <summary>A code block in DejaVu Sans Mono on a light box, lines kept as they are (long lines wrap by characters).</summary>
+    public void Code(string text, float size = 8f)
+    {
+        using var f = new SKFont(Rendering.FontRegistry.Mono, size) { Subpixel = true };
+        using var box = new SKPaint { Color = new SKColor(0xF4, 0xF4, 0xF4), Style = SKPaintStyle.Fill };
+        float lh = size * 1.3f;
+        foreach (var raw in text.ReplaceLineEndings("\n").TrimEnd().Split('\n'))
+            foreach (var line in Wrap(raw.Length == 0 ? " " : raw.Replace("\t", "    "), f, Width - 12f))
+            {
+                Ensure(lh, "continued");
+                Canvas.DrawRect(Left, Y, Width, lh, box);
+                Canvas.DrawText(line, Left + 6f, Y + size, SKTextAlign.Left, f, ink);
+                Y += lh;
+            }
+        Y += size;
+    }
+
+    /// <summary>A bordered box of key/value lines (the provenance box).</summary>
+    public void Box(IReadOnlyList<(string Key, string Value)> rows, float size = 9f)
+    {
+        using var fk = Font(false, size);
+        float keyW = 90f, lh = size * 1.35f;
+        var wrapped = rows.Select(r => (r.Key, Lines: Wrap(r.Value, fk, Width - keyW - 16f))).ToList();
+        float h = wrapped.Sum(w => w.Lines.Count) * lh + 12f;
+        Ensure(Math.Min(h, Bottom - MarginPt), "continued");
+        float top = Y;
+        Y += 6f;
+        foreach (var (k, lines) in wrapped)
+        {
+            Ensure(lh * lines.Count, "continued");
+            Canvas.DrawText(k, Left + 8f, Y + size, SKTextAlign.Left, fk, muted);
+            foreach (var l in lines)
+            {
+                Canvas.DrawText(l, Left + 8f + keyW, Y + size, SKTextAlign.Left, fk, ink);
+                Y += lh;
+            }
+        }
+        Y += 6f;
+        using var border = new SKPaint { Color = new SKColor(0x00, 0x72, 0xB2), Style = SKPaintStyle.Stroke, StrokeWidth = 0.8f, IsAntialias = true };
+        if (Y > top) Canvas.DrawRect(Left, top, Width, Y - top, border);
+        Y += 8f;
+    }
 
     private void DrawRow(IReadOnlyList<string> cells, float[] widths, bool[] numeric, SKFont f, float size)
     {

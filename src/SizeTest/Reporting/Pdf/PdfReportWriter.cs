@@ -34,38 +34,38 @@ public sealed class PdfReportWriter
         using (var doc = SKDocument.CreatePdf(ms, meta))
         using (var flow = new PdfPageFlow(doc, Paper, $"SizeTest report: {job.Title}"))
         {
-            // Title page.
+            // Page 1: title, the verdict table and the handful of sentences under it.
             flow.NewPage("title");
-            flow.Space(120f);
-            flow.Paragraph(job.Title, 24f, bold: true);
-            flow.Paragraph("SizeTest report — angular size and surface brightness versus redshift", 12f, isMuted: true);
-            if (job.Synthetic) flow.Paragraph("Synthetic data: this report was made from a synthetic (demo or mock) catalogue.", 11f, bold: true);
-            flow.Space(30f);
+            flow.Paragraph(job.Title, 18f, bold: true);
+            flow.Paragraph("SizeTest report — angular size and surface brightness versus redshift", 11f, isMuted: true);
+            if (job.Synthetic) flow.Paragraph("Synthetic data: this report was made from a synthetic (demo or mock) catalogue.", 10f, bold: true);
+            flow.Heading("Verdict");
+            flow.Table(content.Table("summary"));
+            foreach (var c in content.Conclusions) flow.Paragraph(c, 10f, indent: 12f, bullet: "•");
+
+            // What was run, the data, the evolution tests and the assumptions.
+            flow.Heading("Job and data");
+            var d = data.Data;
             flow.KeyValues([
                 ("study file", job.StudyFile.Length > 0 ? job.StudyFile : "(none)"),
                 ("catalogue", job.Catalogue),
                 ("models", string.Join(", ", data.Models.Select(m => m.Label))),
                 ("method", job.Method.Length > 0 ? job.Method : "(not stated)"),
-                ("SizeTest", job.SizeTestVersion + (job.GitCommit.Length > 0 ? $" (commit {job.GitCommit})" : "")),
-                ("seed", job.Seed.ToString(CultureInfo.InvariantCulture)),
-            ]);
-
-            // Summary.
-            flow.NewPage("Summary");
-            flow.Heading("Summary");
-            var d = data.Data;
-            flow.Paragraph("Data", 11f, bold: true);
-            flow.KeyValues([
-                ("rows read", d.RowsRead.ToString(CultureInfo.InvariantCulture)),
-                ("accepted", d.Accepted.ToString(CultureInfo.InvariantCulture)),
-                ("rejected", d.Rejected.ToString(CultureInfo.InvariantCulture)),
+                ("rows", $"{d.RowsRead.ToString(CultureInfo.InvariantCulture)} read, {d.Accepted.ToString(CultureInfo.InvariantCulture)} accepted, {d.Rejected.ToString(CultureInfo.InvariantCulture)} rejected"),
                 ("size definition", d.SizeDefinition.Length > 0 ? d.SizeDefinition : "(not stated)"),
                 ("band", d.Band.Length > 0 ? d.Band : "(not stated)"),
             ]);
-            flow.Paragraph("Conclusions", 11f, bold: true);
-            foreach (var c in content.Conclusions) flow.Paragraph(c, 10f, indent: 12f, bullet: "•");
+            flow.Table(content.Table("rejects"));
+            flow.Heading("Evolution tests");
+            flow.Table(content.Table("evolution-tests"));
+            foreach (var c in ReportConclusions.Statements(data)) flow.Paragraph(c, 9.5f, indent: 12f, bullet: "•");
+            if (data.ExtraConclusions.Count > 0)
+            {
+                flow.Paragraph("Notes", 11f, bold: true);
+                foreach (var c in data.ExtraConclusions) flow.Paragraph(c, 9.5f, indent: 12f, bullet: "•");
+            }
             flow.Paragraph("Assumptions these conclusions rest on", 11f, bold: true);
-            foreach (var a in data.Assumptions) flow.Paragraph($"{a.Topic}: {a.Statement}", 10f, indent: 12f, bullet: "•");
+            foreach (var a in data.Assumptions) flow.Paragraph($"{a.Topic}: {a.Statement}", 9.5f, indent: 12f, bullet: "•");
             flow.Paragraph("Caution. " + ReportConclusions.Caution, 9.5f, isMuted: true);
 
             // Figures.
@@ -74,20 +74,29 @@ public sealed class PdfReportWriter
             int n = 0;
             foreach (var f in content.Figures) flow.Figure(f, ++n);
 
-            // Tables.
-            flow.NewPage("Tables");
-            flow.Heading("Tables");
-            foreach (var t in content.Tables) flow.Table(t);
+            // Tables (the summary, evolution-test and reject tables are shown above).
+            flow.Heading("Parameters and model comparison");
+            foreach (var t in content.Tables.Where(t => t.Id is "parameters" or "comparison")) flow.Table(t);
 
-            // Manifest.
-            flow.NewPage("Run manifest");
-            flow.Heading("Run manifest");
+            // Provenance.
+            flow.Heading("Provenance");
             if (data.Manifest is { } m)
             {
-                flow.Paragraph("Inputs and their SHA-256 checksums:", 10f);
-                foreach (var i in m.Inputs) flow.Paragraph($"{i.Path}  {i.Sha256}", 8.5f, indent: 12f, bullet: "•");
-                flow.Paragraph("manifest.json (timestamps and timings are in its \"volatile\" field):", 10f);
-                foreach (var line in m.ToJson().Split('\n')) flow.Paragraph(line.Length == 0 ? " " : line, 7.5f, indent: 8f);
+                var rows = new List<(string, string)>
+                {
+                    ("SizeTest", m.SizeTestVersion),
+                    ("commit", m.GitCommit.Length > 0 ? m.GitCommit : "unknown"),
+                    ("command", m.Command.Length > 0 ? m.Command : "(not recorded)"),
+                    ("seed", m.Seed.ToString(CultureInfo.InvariantCulture)),
+                };
+                rows.AddRange(m.Inputs.Select(i => ("input", $"{i.Path} (sha256 {i.Sha256})")));
+                flow.Box(rows);
+                flow.Paragraph("The full manifest, with machine and timings, is manifest.json beside this report.", 9f, isMuted: true);
+                if (m.StudyFileText.Length > 0)
+                {
+                    flow.Paragraph("Study file" + (m.StudyFilePath.Length > 0 ? $" ({m.StudyFilePath})" : ""), 11f, bold: true);
+                    flow.Code(m.StudyFileText);
+                }
             }
             else flow.Paragraph("No run manifest was recorded.", 10f);
 

@@ -18,6 +18,10 @@ public static class FontRegistry
     private static readonly Lazy<byte[]> BoldBytes = new(() => Load("DejaVuSans-Bold.ttf"));
     private static readonly Lazy<SKTypeface> RegularFace = new(() => Create(RegularBytes.Value));
     private static readonly Lazy<SKTypeface> BoldFace = new(() => Create(BoldBytes.Value));
+    private static readonly Lazy<SKTypeface> MonoFace = new(() => Create(Load("DejaVuSansMono.ttf")));
+
+    /// <summary>DejaVu Sans Mono (code blocks: the study file in the PDF report).</summary>
+    public static SKTypeface Mono => MonoFace.Value;
 
     /// <summary>DejaVu Sans regular.</summary>
     public static SKTypeface Regular => RegularFace.Value;

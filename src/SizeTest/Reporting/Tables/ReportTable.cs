@@ -13,4 +13,13 @@ public sealed record ReportTable(string Id, string Title, IReadOnlyList<string> 
 {
     /// <summary>Caption text under the heading.</summary>
     public string Caption { get; init; } = "";
+
+    /// <summary>Machine column names for CSV (default: <see cref="Columns"/>).</summary>
+    public IReadOnlyList<string>? MachineColumns { get; init; }
+
+    /// <summary>Full-precision cells for CSV (default: <see cref="Rows"/>, which are rounded for people).</summary>
+    public IReadOnlyList<IReadOnlyList<string>>? MachineRows { get; init; }
+
+    /// <summary>Text shown instead of the table when it has no rows (e.g. "No row was rejected.").</summary>
+    public string EmptyText { get; init; } = "";
 }

@@ -1,23 +1,107 @@
 using System.Globalization;
+using SizeTest.Common;
+using SizeTest.Inference.Comparison;
 using SizeTest.Reporting.Data;
 using SizeTest.Reporting.Figures;
 
 namespace SizeTest.Reporting.Tables;
 
-/// <summary>The tables of a report, built from <see cref="ReportData"/>.</summary>
+/// <summary>
+/// The tables of a report, built from <see cref="ReportData"/>. Cells people read are rounded to their uncertainty
+/// by the PDG rule (<see cref="PdgRounding"/>) with the trade's symbols in the headers (ΔAIC, ln L, 68% interval);
+/// the CSV versions keep full precision and machine column names (<see cref="ReportTable.MachineRows"/>).
+/// </summary>
 public static class ReportTables
 {
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>
+    /// The summary table the report opens with: per model ΔBIC, the evidence against it in words, the size and SB
+    /// evolution it needs (± the 68% half-width), whether that evolution is plausible, and convergence.
+    /// </summary>
+    public static ReportTable Summary(ReportData data)
+    {
+        var rows = new List<IReadOnlyList<string>>();
+        var raw = new List<IReadOnlyList<string>>();
+        var ordered = data.Models.OrderBy(m => m.Fit.DeltaBic).ToList();
+        foreach (var m in ordered)
+        {
+            string Need(string name)
+            {
+                var row = data.EvolutionTests.FirstOrDefault(r => r.Model == m.Fit.Name && r.Parameter == name);
+                if (row is not null) return row.ValueText + (row.Need == EvolutionNeed.NotNeeded ? " (not needed)" : "");
+                var p = m.Fit.Parameters.FirstOrDefault(q => q.Name == name);
+                return p is null ? "—" : p.Fixed ? $"{PdgRounding.Plain(p.Value)} (fixed)" : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi);
+            }
+            var judged = data.EvolutionTests.Where(r => r.Model == m.Fit.Name && r.Plausibility != Plausibility.NotJudged).ToList();
+            string plaus = judged.Count == 0 ? "not judged"
+                : judged.All(r => r.Plausibility == Plausibility.Plausible) ? "plausible"
+                : string.Join("; ", judged.Where(r => r.Plausibility != Plausibility.Plausible).Select(r => $"{r.Symbol}: {EvolutionTestTable.PlausibilityWords(r.Plausibility)}"));
+            bool best = ReferenceEquals(m, ordered[0]);
+            rows.Add([m.Label, DeltaText(m.Fit.DeltaBic), best ? "best by BIC" : EvidenceStrength.AgainstBest(m.Fit.DeltaBic), Need("size_evolution"), Need("sb_evolution"), plaus, m.Fit.Converged ? "yes" : "no"]);
+            raw.Add([m.Fit.Name, R(m.Fit.DeltaBic), best ? "best" : EvidenceStrength.FromTwoLnB(m.Fit.DeltaBic), Raw(m, "size_evolution"), Raw(m, "sb_evolution"), plaus, m.Fit.Converged ? "true" : "false"]);
+        }
+        return new ReportTable("summary", "Summary", ["model", "ΔBIC", "evidence against the model", "size evolution a", "SB evolution b", "evolution plausible?", "converged"], rows)
+        {
+            Caption = "ΔBIC ≈ 2 ln B against the best model, in the words of Kass & Raftery (1995): below 2 not worth more than a bare mention, 2–6 positive, 6–10 strong, above 10 very strong. " +
+                      "a in R ∝ (1+z)^a and b in Δμ = −2.5 b log10(1+z), each with its 68% interval, rounded by the PDG rule; \"not needed\" when the likelihood-ratio test does not reject zero at the 95% level. " +
+                      "Plausibility compares the 68% interval with published expectations (see the evolution tests below).",
+            MachineColumns = ["model", "delta_bic", "strength", "size_evolution", "sb_evolution", "plausibility", "converged"],
+            MachineRows = raw,
+        };
+    }
+
+    /// <summary>The one table of evolution tests the conclusions are generated from.</summary>
+    public static ReportTable EvolutionTests(ReportData data)
+    {
+        var rows = data.EvolutionTests.Select(r => (IReadOnlyList<string>)
+        [
+            r.ModelLabel, r.Symbol, r.ValueText,
+            r.PValue is { } p ? LikelihoodRatioTestPValue(p) : "not run",
+            r.Need switch { EvolutionNeed.Needed => "needed", EvolutionNeed.NotNeeded => "not needed", _ => "not tested" },
+            r.Expectation is { } e ? $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]" : "—",
+            EvolutionTestTable.PlausibilityWords(r.Plausibility),
+        ]).ToList();
+        var raw = data.EvolutionTests.Select(r => (IReadOnlyList<string>)
+        [
+            r.Model, r.Parameter, R(r.Value), R(r.Lo), R(r.Hi), r.PValue is { } p ? R(p) : "",
+            r.Need.ToString(), r.Expectation is { } e ? R(e.Lo) : "", r.Expectation is { } e2 ? R(e2.Hi) : "", r.Plausibility.ToString(),
+        ]).ToList();
+        var sources = data.EvolutionTests.Select(r => r.Expectation).Where(e => e is not null).Select(e => $"{EvolutionTestTable.What(e!.Parameter)}: {e.ShortSource}").Distinct().ToList();
+        return new ReportTable("evolution-tests", "Evolution tests", ["model", "term", "estimate (68% interval)", "LRT p (zero)", "at 95% level", "expected", "plausibility"], rows)
+        {
+            Caption = "Every statement about needed evolution comes from this table. Zero evolution is tested by one test only: the likelihood-ratio test of the model against the same model with the term fixed at 0 (Wilks 1938), " +
+                      "rejected when p < 0.05. The 68% interval is an estimate and is not used to claim an exclusion. Expected ranges" +
+                      (sources.Count > 0 ? " — " + string.Join("; ", sources) : "") + ".",
+            MachineColumns = ["model", "parameter", "value", "lo_68", "hi_68", "lrt_p_value", "need", "expected_lo", "expected_hi", "plausibility"],
+            MachineRows = raw,
+            EmptyText = "No model had a free evolution term, so no evolution test was run.",
+        };
+    }
+
+    private static string LikelihoodRatioTestPValue(double p) => Inference.LikelihoodRatioTest.FormatPValue(p)[4..].Replace("-", PdgRounding.Minus, StringComparison.Ordinal);
+
+    private static string Raw(ModelReport m, string name) => m.Fit.Parameters.FirstOrDefault(p => p.Name == name) is { } p ? R(p.Value) : "";
+
     /// <summary>Best-fit parameters of every model with 68% intervals.</summary>
     public static ReportTable Parameters(ReportData data)
     {
         var rows = new List<IReadOnlyList<string>>();
+        var raw = new List<IReadOnlyList<string>>();
         foreach (var m in data.Models)
             foreach (var p in m.Fit.Parameters)
-                rows.Add([m.Label, p.Name, Num(p.Value), p.Fixed ? "" : Num(p.Lo), p.Fixed ? "" : Num(p.Hi), p.Fixed ? "fixed" : "free", p.Unit]);
+            {
+                rows.Add([m.Label, p.Name, p.Fixed ? PdgRounding.Plain(p.Value) : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi),
+                    p.Fixed ? "" : PdgRounding.IntervalBounds(p.Value, p.Lo, p.Hi),
+                    p.Fixed ? "fixed" : "free", p.Unit]);
+                raw.Add([m.Fit.Name, p.Name, R(p.Value), p.Fixed ? "" : R(p.Lo), p.Fixed ? "" : R(p.Hi), p.Fixed ? "fixed" : "free", p.Unit]);
+            }
         return new ReportTable("parameters", "Best-fit parameters",
-            ["model", "parameter", "value", "lo_68", "hi_68", "status", "unit"], rows)
+            ["model", "parameter", "value", "68% interval", "status", "unit"], rows)
         {
-            Caption = "Best estimate and 68% interval of each parameter (Hessian ±1σ for maximum likelihood, 16th–84th percentiles when sampled); fixed parameters have no interval.",
+            Caption = "Best estimate with its 68% interval (Hessian ±1σ for maximum likelihood, 16th–84th percentiles when sampled), rounded by the PDG rule (two significant digits of the error, one when its leading digits are 355–949); fixed parameters have no interval. The CSV keeps full precision.",
+            MachineColumns = ["model", "parameter", "value", "lo_68", "hi_68", "status", "unit"],
+            MachineRows = raw,
         };
     }
 
@@ -27,28 +111,45 @@ public static class ReportTables
         var bicW = ReportNumbers.BicWeights(data.Models);
         var rows = data.Models.Select((m, i) => (IReadOnlyList<string>)
         [
-            m.Label, m.Fit.K.ToString(CultureInfo.InvariantCulture), m.Fit.N.ToString(CultureInfo.InvariantCulture),
-            Num(m.Fit.LogLikelihood), Num(m.Fit.Aic), Num(m.Fit.Aicc), Num(m.Fit.Bic), Num(m.Fit.DeltaAic), Num(m.Fit.DeltaBic),
-            Num(m.Fit.AkaikeWeight), Num(bicW[i]), m.Fit.LogEvidence is { } e ? Num(e) : "", m.Fit.Converged ? "yes" : "no",
+            m.Label, m.Fit.K.ToString(Inv), m.Fit.N.ToString(Inv),
+            F2(m.Fit.LogLikelihood), F2(m.Fit.Aic), F2(m.Fit.Aicc), F2(m.Fit.Bic), DeltaText(m.Fit.DeltaAic), DeltaText(m.Fit.DeltaBic),
+            W(m.Fit.AkaikeWeight), W(bicW[i]), m.Fit.LogEvidence is { } e ? (m.Fit.LogEvidenceError is { } ee ? PdgRounding.ValueWithError(e, ee) : F2(e)) : "", m.Fit.Converged ? "yes" : "no",
+        ]).ToList();
+        var raw = data.Models.Select((m, i) => (IReadOnlyList<string>)
+        [
+            m.Fit.Name, m.Fit.K.ToString(Inv), m.Fit.N.ToString(Inv), R(m.Fit.LogLikelihood), R(m.Fit.Aic), R(m.Fit.Aicc), R(m.Fit.Bic),
+            R(m.Fit.DeltaAic), R(m.Fit.DeltaBic), R(m.Fit.AkaikeWeight), R(bicW[i]), m.Fit.LogEvidence is { } e ? R(e) : "", m.Fit.Converged ? "true" : "false",
         ]).ToList();
         return new ReportTable("comparison", "Model comparison",
-            ["model", "k", "n", "ln_L", "AIC", "AICc", "BIC", "delta_AIC", "delta_BIC", "akaike_weight", "bic_weight", "ln_evidence", "converged"], rows)
+            ["model", "k", "n", "ln L", "AIC", "AICc", "BIC", "ΔAIC", "ΔBIC", "w(AIC)", "w(BIC)", "ln Z", "converged"], rows)
         {
-            Caption = "k free parameters, n objects, maximum log-likelihood ln L; AIC = 2k − 2 ln L (Akaike 1974), AICc adds 2k(k+1)/(n−k−1) (Hurvich & Tsai 1989), BIC = k ln n − 2 ln L (Schwarz 1978). " +
-                      "Weights are exp(−Δ/2) normalised over the models. The ranking holds only under the stated assumptions.",
+            Caption = "k free parameters, n objects, maximum log-likelihood ln L; AIC = 2k − 2 ln L (Akaike 1974), AICc adds 2k(k+1)/(n−k−1) (Hurvich & Tsai 1989), BIC = k ln n − 2 ln L (Schwarz 1978); ln Z the log-evidence when computed. " +
+                      "Weights are exp(−Δ/2) normalised over the models. Criteria to 0.01, differences to 0.1 (the Kass & Raftery scale needs no more). The ranking holds only under the stated assumptions.",
+            MachineColumns = ["model", "k", "n", "ln_L", "AIC", "AICc", "BIC", "delta_AIC", "delta_BIC", "akaike_weight", "bic_weight", "ln_evidence", "converged"],
+            MachineRows = raw,
         };
     }
 
     /// <summary>Rows rejected per reason.</summary>
     public static ReportTable Rejects(ReportData data) => new("rejects", "Rejected rows by reason", ["reason", "rows"],
-        data.Data.RejectReasons.Select(r => (IReadOnlyList<string>)[r.Reason, r.Count.ToString(CultureInfo.InvariantCulture)]).ToList())
+        data.Data.RejectReasons.Select(r => (IReadOnlyList<string>)[r.Reason, r.Count.ToString(Inv)]).ToList())
     {
         Caption = $"{data.Data.RowsRead} rows read = {data.Data.Accepted} accepted + {data.Data.Rejected} rejected.",
+        EmptyText = "No row was rejected.",
     };
 
     /// <summary>All tables in report order.</summary>
-    public static IReadOnlyList<ReportTable> All(ReportData data) => [Parameters(data), Comparison(data), Rejects(data)];
+    public static IReadOnlyList<ReportTable> All(ReportData data) => [Summary(data), EvolutionTests(data), Parameters(data), Comparison(data), Rejects(data)];
 
-    /// <summary>Six significant digits, invariant culture, "−" never used (plain ASCII minus for CSV/LaTeX safety).</summary>
-    public static string Num(double v) => double.IsFinite(v) ? v.ToString("G6", CultureInfo.InvariantCulture) : (double.IsNaN(v) ? "NaN" : (v > 0 ? "Inf" : "-Inf"));
+    /// <summary>Full precision (round-trip), invariant culture, ASCII minus: for CSV.</summary>
+    public static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : (double.IsNaN(v) ? "NaN" : (v > 0 ? "Inf" : "-Inf"));
+
+    /// <summary>Six significant digits, invariant culture, ASCII minus (kept for callers that format plain numbers).</summary>
+    public static string Num(double v) => double.IsFinite(v) ? v.ToString("G6", Inv) : (double.IsNaN(v) ? "NaN" : (v > 0 ? "Inf" : "-Inf"));
+
+    private static string F2(double v) => double.IsFinite(v) ? v.ToString("0.00", Inv).Replace("-", PdgRounding.Minus, StringComparison.Ordinal) : "—";
+
+    private static string W(double v) => double.IsFinite(v) ? (v < 0.001 && v > 0 ? "< 0.001" : v.ToString("0.000", Inv)) : "—";
+
+    private static string DeltaText(double v) => double.IsFinite(v) ? v.ToString("0.0", Inv).Replace("-", PdgRounding.Minus, StringComparison.Ordinal) : "—";
 }

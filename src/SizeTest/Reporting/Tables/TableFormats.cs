@@ -9,8 +9,8 @@ public static class TableFormats
     public static string ToCsv(ReportTable table)
     {
         var sb = new StringBuilder();
-        sb.Append(string.Join(',', table.Columns.Select(Csv))).Append('\n');
-        foreach (var r in table.Rows) sb.Append(string.Join(',', r.Select(Csv))).Append('\n');
+        sb.Append(string.Join(',', (table.MachineColumns ?? table.Columns).Select(Csv))).Append('\n');
+        foreach (var r in table.MachineRows ?? table.Rows) sb.Append(string.Join(',', r.Select(Csv))).Append('\n');
         return sb.ToString();
     }
 
@@ -20,7 +20,7 @@ public static class TableFormats
     /// <summary>A LaTeX <c>tabular</c> (booktabs rules) with special characters escaped; numbers right-aligned.</summary>
     public static string ToLatex(ReportTable table)
     {
-        var align = string.Concat(table.Columns.Select((_, j) => table.Rows.Count > 0 && table.Rows.All(r => r[j].Length == 0 || double.TryParse(r[j], System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out double _)) ? "r" : "l"));
+        var align = string.Concat(table.Columns.Select((_, j) => table.Rows.Count > 0 && table.Rows.All(r => r[j].Length == 0 || Html.Html.IsNumeric(r[j])) ? "r" : "l"));
         var sb = new StringBuilder();
         sb.Append("% ").Append(table.Title).Append(" (SizeTest; needs \\usepackage{booktabs})\n");
         sb.Append("\\begin{tabular}{").Append(align).Append("}\n\\toprule\n");
@@ -43,6 +43,13 @@ public static class TableFormats
                 '~' => "\\textasciitilde{}",
                 '^' => "\\textasciicircum{}",
                 'Ω' => "$\\Omega$",
+                'Λ' => "$\\Lambda$",
+                'χ' => "$\\chi$",
+                '²' => "$^2$",
+                '≥' => "$\\geq$",
+                '≤' => "$\\leq$",
+                '<' => "$<$",
+                '>' => "$>$",
                 'Δ' => "$\\Delta$",
                 'θ' => "$\\theta$",
                 'μ' => "$\\mu$",

@@ -2,10 +2,10 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using SizeTest.Common;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Inference;
 using Xunit;
 
-namespace SizeTest.Tests.Inference;
+namespace SizeTest.Tests.Cli;
 
 public sealed class FitCommandTests : IDisposable
 {

@@ -1,10 +1,10 @@
 using SizeTest.Reporting;
 using SizeTest.Reporting.Data;
 using SizeTest.Reporting.Pack;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Reporting;
 using Xunit;
 
-namespace SizeTest.Tests.Reporting;
+namespace SizeTest.Tests.Cli;
 
 public sealed class ReportCommandTests
 {
@@ -54,9 +54,16 @@ public sealed class ReportCommandTests
             Assert.Equal(2, exit);
             Assert.Contains("--force", err);
             Assert.True(File.Exists(Path.Combine(other, "keep.txt")));
+            // --force replaces only a folder sizetest wrote (issue 14): a user's file is never deleted.
+            (exit, _, err) = CliRunner.Run("report", dir, "--out", other, "--paper", "letter", "--force");
+            Assert.Equal(2, exit);
+            Assert.Contains("not written by sizetest", err);
+            Assert.True(File.Exists(Path.Combine(other, "keep.txt")));
+            File.Delete(Path.Combine(other, "keep.txt"));
+            (exit, _, err) = CliRunner.Run("report", dir, "--out", other, "--paper", "letter");
+            Assert.True(exit == 0, err);
             (exit, _, err) = CliRunner.Run("report", dir, "--out", other, "--paper", "letter", "--force");
             Assert.True(exit == 0, err);
-            Assert.False(File.Exists(Path.Combine(other, "keep.txt")));
             Assert.True(File.Exists(Path.Combine(other, ReportDataJson.FileName))); // the copy can be redrawn again
         }
         finally { root.Delete(true); }

@@ -1,9 +1,9 @@
 using SizeTest.Simulation;
 using SizeTest.Tests.Catalogs;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Simulation;
 using Xunit;
 
-namespace SizeTest.Tests.Simulation;
+namespace SizeTest.Tests.Cli;
 
 /// <summary><c>sizetest power</c> through the real CLI and files.</summary>
 public sealed class PowerCommandTests

@@ -3,9 +3,9 @@ using System.Text.Json;
 using SizeTest.Catalogs;
 using SizeTest.Common;
 using SizeTest.Tests.Catalogs;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Simulation;
 
-namespace SizeTest.Tests.Simulation;
+namespace SizeTest.Tests.Cli;
 
 /// <summary><c>sizetest simulate</c> through the real CLI and files.</summary>
 public sealed class SimulateCommandTests

@@ -1,8 +1,8 @@
 using System.Text.Json;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Catalogs;
 using Xunit;
 
-namespace SizeTest.Tests.Catalogs;
+namespace SizeTest.Tests.Cli;
 
 public sealed class InspectCommandTests
 {

@@ -1,10 +1,10 @@
 using System.Text.Json;
 using SizeTest.Catalogs.Parquet;
 using SizeTest.Distributed;
-using SizeTest.Tests.Cli;
+using SizeTest.Tests.Catalogs.Parquet;
 using Xunit;
 
-namespace SizeTest.Tests.Catalogs.Parquet;
+namespace SizeTest.Tests.Cli;
 
 public sealed class ParquetInspectTests : IDisposable
 {

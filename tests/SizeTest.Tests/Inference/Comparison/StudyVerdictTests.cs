@@ -1,0 +1,152 @@
+using SizeTest.Inference;
+using SizeTest.Photometry;
+using SizeTest.Inference.Comparison;
+using SizeTest.Tests.Inference;
+using Xunit;
+
+namespace SizeTest.Tests.Inference.Comparison;
+
+/// <summary>
+/// The verdict on real fits of mocks with known truth (injection–recovery) and on hand-made results for the cases a
+/// mock cannot produce on demand (non-converged, multimodal, exact ties). Thresholds: Kass &amp; Raftery (1995, §3.2)
+/// 2 ln B ≈ ΔBIC: below 2 "not worth more than a bare mention", ≥ 10 "very strong".
+/// </summary>
+public sealed class StudyVerdictTests
+{
+    private static readonly IReadOnlyDictionary<string, double> Defaults = new Dictionary<string, double>();
+
+    private static StudyResult Fit(Observables obs, params Hypothesis[] hypotheses) =>
+        FitStudy.Run(new FitRequest { Hypotheses = hypotheses, Observables = obs, Starts = 1 });
+
+    [Fact]
+    public void SurfaceBrightnessOnlyWithFreeEvolutionIsUndecided()
+    {
+        // EdS mock, μ only: with b free every model reaches the same maximum (n − b degeneracy), so the verdict
+        // must be undecided whatever the fitted numbers say.
+        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 400, new MockCatalog.Truth(), seed: 5);
+        var nuisance = new NuisanceModel(ObservableKind.SurfaceBrightness);
+        var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, nuisance), Hypothesis.Create(TestWorldModels.StaticLinear, nuisance));
+        Assert.All(r.Models, m => Assert.False(m.Parameters.Single(p => p.Name == "sb_evolution").Fixed));
+        var v = r.Verdict;
+        Assert.False(v.Decided);
+        Assert.Null(v.Best);
+        Assert.Equal("none", v.Strength);
+        Assert.Contains("surface brightness cannot separate the models while sb_evolution is free", v.Reason, StringComparison.OrdinalIgnoreCase);
+    }
+
+    [Fact]
+    public void SizeOnlyFitWithinTwoUnitsOfBicIsUndecided()
+    {
+        // 40 objects from EdS with size evolution free: EdS and flat ΛCDM (Ωm = 0.3) are nearly degenerate with a,
+        // so ΔBIC < 2 (checked below as the precondition); the verdict must say "within noise".
+        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 40, new MockCatalog.Truth(), seed: 3, zMin: 0.2, zMax: 1.0);
+        var size = new NuisanceModel(ObservableKind.Size);
+        var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, size), Hypothesis.Create(TestWorldModels.FlatLcdm, size).WithFixed("omega_m", 0.3));
+        Assert.True(r.Models[1].DeltaBic < 2, $"precondition: ΔBIC = {r.Models[1].DeltaBic}");
+        var v = r.Verdict;
+        Assert.False(v.Decided);
+        Assert.Equal(r.Models[0].Name, v.Best);
+        Assert.Contains("within noise", v.Reason);
+        Assert.Equal(r.Models[1].DeltaBic > 1e-6 ? "weak" : "none", v.Strength);
+    }
+
+    [Fact]
+    public void FixedEvolutionAndLargeBicGapDecidesForTheTrueModel()
+    {
+        // 1000 objects from EdS with no size evolution, fitted with a = 0 fixed: the static d = cz/H0 law predicts
+        // θ ∝ 1/z, far from EdS's turn-over, so ΔBIC ≫ 10 and the verdict names EdS with "very strong" evidence.
+        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 1000, new MockCatalog.Truth(SizeEvolution: 0), seed: 11, zMin: 0.2, zMax: 3);
+        var size = new NuisanceModel(ObservableKind.Size);
+        var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, size).WithFixed("size_evolution", 0),
+            Hypothesis.Create(TestWorldModels.StaticLinear, size).WithFixed("size_evolution", 0));
+        Assert.True(r.Models[1].DeltaBic >= 10, $"precondition: ΔBIC = {r.Models[1].DeltaBic}");
+        var v = r.Verdict;
+        Assert.True(v.Decided, v.Reason);
+        Assert.StartsWith("eds", v.Best, StringComparison.Ordinal); // the label of the nested hypothesis names the fixed parameter
+        Assert.Equal("very strong", v.Strength);
+    }
+
+    private static ModelFitSummary Model(string name, double lnL, int k = 3, int n = 100, bool converged = true, bool sbFree = false) => new()
+    {
+        Name = name,
+        Parameters = [new ParameterEstimate("size_evolution", -1, -1.1, -0.9, false), new ParameterEstimate("sb_evolution", 1, 0.9, 1.1, !sbFree)],
+        LogLikelihood = lnL, K = k, N = n,
+        Aic = 2 * k - 2 * lnL, Aicc = 2 * k - 2 * lnL, Bic = k * Math.Log(n) - 2 * lnL,
+        Converged = converged, ExitReason = converged ? "" : "iteration limit",
+    };
+
+    private static StudyResult Result(string observable, bool relation, params ModelFitSummary[] models) => new()
+    {
+        Source = "hand-made", RowsRead = 100, Accepted = 100, Rejected = 0, Seed = 1,
+        Settings = new FitSettings(observable, new SelectionLimits(), relation, 5, 0, 0, 1, 0, 0, "none", 0, 0, 0, null, [], 1),
+        Models = ModelComparison.Rank(models),
+    };
+
+    [Fact]
+    public void TiesNameNoBestModel()
+    {
+        var v = Result("size", false, Model("eds", -50), Model("milne", -50)).Verdict;
+        Assert.False(v.Decided);
+        Assert.Null(v.Best);
+        Assert.Equal("none", v.Strength);
+        Assert.Contains("tie", v.Reason);
+    }
+
+    [Fact]
+    public void NonConvergedRunnerUpLeavesTheVerdictOpen()
+    {
+        // ΔBIC = 2 × 10 = 20 would be very strong, but the runner-up's fit did not converge.
+        var v = Result("size", false, Model("eds", -40), Model("milne", -50, converged: false)).Verdict;
+        Assert.False(v.Decided);
+        Assert.Equal("eds", v.Best);
+        Assert.Contains("did not converge", v.Reason);
+    }
+
+    [Fact]
+    public void AModeThatWouldChangeTheRankingLeavesTheVerdictOpen()
+    {
+        var r = Result("size", false, Model("eds", -40), Model("milne", -50));
+        Assert.True(StudyVerdict.From(r).Decided);
+        var modes = new Dictionary<string, IReadOnlyList<double>> { ["milne"] = [-50, -35] };
+        var v = StudyVerdict.From(r, modes);
+        Assert.False(v.Decided);
+        Assert.Contains("another maximum", v.Reason);
+    }
+
+    [Fact]
+    public void JointFitWithoutRelationSaysTheRankingComesFromSizesAlone()
+    {
+        var v = Result("joint", false, Model("eds", -40, sbFree: true), Model("milne", -50, sbFree: true)).Verdict;
+        Assert.True(v.Decided);
+        Assert.Contains("ranking comes from sizes alone", v.Reason);
+        var withRelation = Result("joint", true, Model("eds", -40, sbFree: true), Model("milne", -50, sbFree: true)).Verdict;
+        Assert.DoesNotContain("sizes alone", withRelation.Reason);
+    }
+
+    [Theory]
+    // Kass & Raftery (1995, §3.2) bands on 2 ln B: 0–2, 2–6, 6–10, > 10.
+    [InlineData(1.0, "weak")]
+    [InlineData(2.5, "positive")]
+    [InlineData(7.0, "strong")]
+    [InlineData(12.0, "very strong")]
+    public void StrengthFollowsTheKassRafteryBands(double deltaBic, string strength)
+    {
+        var v = Result("size", false, Model("eds", -40), Model("milne", -40 - deltaBic / 2)).Verdict;
+        Assert.Equal(strength, v.Strength);
+        Assert.Equal(deltaBic >= 2, v.Decided);
+    }
+
+    [Fact]
+    public void VerdictIsWrittenAtTheTopOfResultsJson()
+    {
+        var json = ResultsJson.Serialize(Result("size", false, Model("eds", -40), Model("milne", -50)));
+        using var doc = System.Text.Json.JsonDocument.Parse(json);
+        var v = doc.RootElement.GetProperty("verdict");
+        Assert.Equal("eds", v.GetProperty("best").GetString());
+        Assert.True(v.GetProperty("decided").GetBoolean());
+        Assert.Equal("very strong", v.GetProperty("strength").GetString());
+        Assert.False(string.IsNullOrEmpty(v.GetProperty("reason").GetString()));
+        // It is derived, not read back: a round trip keeps the same verdict.
+        Assert.Equal(ResultsJson.Deserialize(json).Verdict, StudyVerdict.From(ResultsJson.Deserialize(json)));
+    }
+}
