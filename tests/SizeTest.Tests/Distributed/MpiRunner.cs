@@ -6,7 +6,7 @@ namespace SizeTest.Tests.Distributed;
 /// <summary>Launches the built <c>sizetest.dll</c> under <c>mpirun</c> (Open MPI) with a hard timeout.</summary>
 internal static class MpiRunner
 {
-    public static readonly TimeSpan Timeout = TimeSpan.FromSeconds(120);
+    public static readonly TimeSpan Timeout = TimeSpan.FromSeconds(240);
 
     /// <summary>Full path of mpirun on PATH, or null.</summary>
     public static string? FindMpirun()
