@@ -24,6 +24,7 @@ internal static class FitCommand
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
         var catalogOptions = new CatalogOptions();
         var photometryOptions = new PhotometryCliOptions();
+        var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", "size", "sb", "joint");
@@ -58,6 +59,7 @@ internal static class FitCommand
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
+        surveyOptions.AddTo(command);
         foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, maxMemory, expect, nodes, force, output, format })
             command.Options.Add(o);
 
@@ -79,7 +81,10 @@ internal static class FitCommand
                 var families = FitOptionParsing.List([parse.GetValue(models) ?? ""]).Distinct().Select(n =>
                     WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
-                CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+                var surveyRequest = surveyOptions.Request(parse);
+                var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
+                bool surveyAsked = surveyRequest != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
@@ -92,9 +97,38 @@ internal static class FitCommand
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
                 CheckBudget(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
+                if (samplerName == "mcmc")
+                    foreach (var h in hypotheses.Where(h => h.K > 0))
+                        SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
                 var inputs = new List<string> { parse.GetValue(catalog)! };
-                var photometry = photometryOptions.ToOptions(parse, inputs);
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, catalogOptions.ToLoadOptions(parse), parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, MaxOutsideSelection = parse.GetValue(maxOutside) });
+                var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
+                var loadOptions = catalogOptions.ToLoadOptions(parse);
+                if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
+                    loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
+                if (SizeTest.Distributed.RankContext.IsDistributed && surveyAsked)
+                    throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
+                string? profileName = parse.GetValue(profile);
+                // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
+                Func<Observables, SurveyBinding> survey = obs =>
+                {
+                    var notes = new List<string>();
+                    var model = surveyRequest.Build(obs, kind, notes);
+                    var hs = hypotheses;
+                    if (model.IsActive || surveyAsked)
+                    {
+                        var nm = nuisance with { Survey = model };
+                        nm.Validate();
+                        CheckNames(overrides, expected, families, nm, profileName);
+                        hs = families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+                        foreach (var h in hs)
+                            foreach (var note in h.Bind(obs).SurveyNotes)
+                                if (!notes.Contains(note)) notes.Add(note);
+                    }
+                    string? warning = kind != ObservableKind.SurfaceBrightness ? SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(obs, model.SizeErrors) : null;
+                    if (warning is not null) notes.Add("warning: " + warning);
+                    return new SurveyBinding(hs, notes, warning);
+                };
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
             {
@@ -128,7 +162,7 @@ internal static class FitCommand
     private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
     {
         var known = families.SelectMany(f => f.Parameters.Select(p => p.Name))
-            .Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
+            .Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
         foreach (var name in o.Names.Concat(expected.Select(e => e.Parameter)).Concat(profile is null ? [] : [profile]))
             if (!known.Contains(name))
                 throw new InputException($"unknown parameter '{name}' for these models and --observable; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");

@@ -20,7 +20,12 @@ internal sealed record FitArgs(
     public IReadOnlyList<string> Inputs { get; init; } = [];
     /// <summary>Largest fraction of objects outside the stated cuts (--max-outside-selection); see <see cref="SelectionConsistency"/>.</summary>
     public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
+    /// <summary>Survey terms: rebuilds the hypotheses for the loaded sample (group labels, redshift bins, z_err), or null.</summary>
+    public Func<Observables, SurveyBinding>? Survey { get; init; }
 }
+
+/// <summary>The hypotheses with their survey terms for a loaded sample, the notes for the results and a warning to print.</summary>
+internal sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOnlyList<string> Notes, string? Warning);
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
@@ -44,6 +49,7 @@ internal static class FitRunner
         CatalogShare? share = null;
         PhotometryResult? built = null;
         SelectionSplit? split = null;
+        SurveyBinding? survey = null;
         code = Agree(context, ranks, () =>
         {
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
@@ -65,6 +71,12 @@ internal static class FitRunner
                 built = new PhotometryResult(ObservablesSubset.Take(built.Observables, keep), built.Corrections);
             }
             var local = built.Observables;
+            if (a.Survey is { } bindSurvey)
+            {
+                survey = bindSurvey(local);
+                a = a with { Hypotheses = survey.Hypotheses };
+                if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + w);
+            }
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
                 foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
@@ -126,7 +138,7 @@ internal static class FitRunner
             };
             var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
-            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. result.Notes] };
+            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c), .. result.Notes] };
 
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();

@@ -44,6 +44,24 @@ internal sealed class MockSurveyOptions
     public Option<double?> MuErr { get; } = Number("--mu-err", "Galaxies: SB measurement error in mag (default 0.1).");
     public Option<double?> PhotoZErr { get; } = Number("--photoz-err", "Photometric-redshift error σ in σ(1+z) (default 0: spectroscopic).");
 
+    public Option<string?> LuminosityFunction { get; } = new("--luminosity-function")
+    {
+        Description = "Galaxies: draw absolute magnitudes from a Schechter function, schechter:MSTAR:ALPHA[:BRIGHT:FAINT] (e.g. schechter:-21:-1.2:-24:-16); writes the apparent magnitude m = M + 5 log10(D_L/10 pc) and μ from m and θ.",
+    };
+    public Option<double?> SizeLuminositySlope { get; } = Number("--size-lum-slope", "Galaxies with --luminosity-function: β in R ∝ L^β (default 0).");
+    public Option<double?> PivotAbsMag { get; } = Number("--pivot-abs-mag", "Galaxies: pivot absolute magnitude of R ∝ (L/L_pivot)^β (default −21).");
+    public Option<string[]> Population { get; } = new("--population")
+    {
+        Description = "Galaxies: a population NAME:FRACTION:R0_KPC:A[:BETA[:SCATTER_DEX]] with its own sizes; repeat for a mixed sample (labels go to the group column).",
+    };
+    public Option<string> SizeErrors { get; } = new Option<string>("--size-errors")
+    {
+        Description = "Size-error model: lognormal (ln θ scattered) or gaussian (θ scattered, theta_err quoted in θ).",
+        DefaultValueFactory = _ => "lognormal",
+    }.AcceptOnlyFromAmong("lognormal", "gaussian");
+    public Option<double?> SizeErrFracAtZMax { get; } = Number("--size-err-frac-zmax", "Fractional size error at the N(z)'s z_max; it grows linearly in z from --size-err-frac at z_min.");
+    public Option<double?> SpectralIndex { get; } = Number("--spectral-index", "Radio: spectral index α in S_ν ∝ ν^α for the written flux densities (default 0).");
+
     public MockSurveyOptions(string countDescription)
     {
         Count = new Option<int?>("--n") { Description = countDescription };
@@ -53,7 +71,8 @@ internal sealed class MockSurveyOptions
     {
         if (includeCount) command.Options.Add(Count);
         foreach (var o in new Option[] { Kind, ZDist, R0Kpc, LinearSizePc, LuminosityExponent, LogLumMean, LogLumSd, SizeEvolution, ScatterDex,
-                     Mu0, SbEvolution, ScatterMag, KormendySlope, SbLimit, MagLimit, MinSize, SizeErrFrac, SizeErrFloor, MuErr, PhotoZErr })
+                     Mu0, SbEvolution, ScatterMag, KormendySlope, SbLimit, MagLimit, MinSize, SizeErrFrac, SizeErrFloor, MuErr, PhotoZErr,
+                     LuminosityFunction, SizeLuminositySlope, PivotAbsMag, Population, SizeErrors, SizeErrFracAtZMax, SpectralIndex })
             command.Options.Add(o);
     }
 
@@ -65,11 +84,11 @@ internal sealed class MockSurveyOptions
     {
         var kind = KindOf(parse);
         if (kind == MockObjectKind.CompactRadio)
-            foreach (var o in new[] { Mu0, SbEvolution, ScatterMag, KormendySlope, SbLimit, MagLimit, MuErr, R0Kpc })
+            foreach (var o in new Option[] { Mu0, SbEvolution, ScatterMag, KormendySlope, SbLimit, MagLimit, MuErr, R0Kpc, LuminosityFunction, SizeLuminositySlope, PivotAbsMag, Population })
                 if (parse.GetResult(o) is not null)
                     throw new ArgumentException($"{o.Name} applies to --kind galaxy only (radio sources have a linear size ℓ_m: --lm-pc, and no surface brightness).");
         if (kind == MockObjectKind.Galaxy)
-            foreach (var o in new[] { LinearSizePc, LuminosityExponent, LogLumMean, LogLumSd })
+            foreach (var o in new[] { LinearSizePc, LuminosityExponent, LogLumMean, LogLumSd, SpectralIndex })
                 if (parse.GetResult(o) is not null)
                     throw new ArgumentException($"{o.Name} applies to --kind radio only.");
         var d = new MeasurementErrors();
@@ -77,7 +96,9 @@ internal sealed class MockSurveyOptions
             parse.GetValue(SizeErrFrac) ?? d.SizeErrorFraction,
             parse.GetValue(SizeErrFloor) ?? d.SizeErrorFloorArcsec,
             kind == MockObjectKind.Galaxy ? parse.GetValue(MuErr) ?? d.MuErrorMag : 0.0,
-            parse.GetValue(PhotoZErr) ?? d.PhotoZError);
+            parse.GetValue(PhotoZErr) ?? d.PhotoZError,
+            parse.GetValue(SizeErrors) == "gaussian" ? SizeErrorModel.Gaussian : SizeErrorModel.LogNormal,
+            parse.GetValue(SizeErrFracAtZMax));
         var selection = new MockSelection(parse.GetValue(SbLimit), parse.GetValue(MagLimit), parse.GetValue(MinSize));
         return new SurveyDesign(count, Redshifts(parse.GetValue(ZDist) ?? "uniform:0.1:3"), kind, errors, selection);
     }
@@ -98,6 +119,31 @@ internal sealed class MockSurveyOptions
         return new RadioSourcePopulation(parse.GetValue(LinearSizePc) ?? d.LinearSizePc, parse.GetValue(LuminosityExponent) ?? d.LuminosityExponent,
             parse.GetValue(SizeEvolution) ?? d.SizeEvolution, parse.GetValue(ScatterDex) ?? d.ScatterDex,
             parse.GetValue(LogLumMean) ?? d.LogLuminosityMean, parse.GetValue(LogLumSd) ?? d.LogLuminositySd, d.LogLuminosityPivot);
+    }
+
+    /// <summary>The survey ingredients (luminosity function, size–luminosity slope, populations, spectral index).</summary>
+    public SurveyPopulation Survey(ParseResult parse)
+    {
+        var lf = parse.GetValue(LuminosityFunction) is { } text ? ParseLuminosityFunction(text) : null;
+        if (lf is null && parse.GetResult(SizeLuminositySlope) is not null)
+            throw new ArgumentException("--size-lum-slope needs --luminosity-function (sizes scale with the drawn luminosities)");
+        var pops = (parse.GetValue(Population) ?? []).Select(MockSubpopulation.Parse).ToArray();
+        if (pops.Any(p => p.SizeLuminositySlope != 0) && lf is null)
+            throw new ArgumentException("a --population with a non-zero BETA needs --luminosity-function");
+        return new SurveyPopulation(lf, parse.GetValue(SizeLuminositySlope) ?? 0.0, parse.GetValue(PivotAbsMag) ?? -21.0, pops, parse.GetValue(SpectralIndex) ?? 0.0);
+    }
+
+    /// <summary>Parses <c>schechter:MSTAR:ALPHA[:BRIGHT:FAINT]</c>.</summary>
+    public static SchechterLuminosityFunction ParseLuminosityFunction(string text)
+    {
+        var p = text.Split(':');
+        string hint = "write schechter:MSTAR:ALPHA[:BRIGHT:FAINT], e.g. schechter:-21:-1.2:-24:-16";
+        if (p[0] != "schechter" || (p.Length != 3 && p.Length != 5)) throw new ArgumentException($"--luminosity-function '{text}': {hint}");
+        var v = p.Skip(1).Select(x => double.TryParse(x, NumberStyles.Float, CultureInfo.InvariantCulture, out var d) && double.IsFinite(d)
+            ? d : throw new ArgumentException($"--luminosity-function '{text}': '{x}' is not a number; {hint}")).ToArray();
+        var lf = v.Length == 2 ? new SchechterLuminosityFunction(v[0], v[1]) : new SchechterLuminosityFunction(v[0], v[1], v[2], v[3]);
+        lf.Validate();
+        return lf;
     }
 
     /// <summary>Parses <c>--z-dist</c>, reading a histogram file for <c>hist:FILE</c>.</summary>

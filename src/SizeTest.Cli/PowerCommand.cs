@@ -49,7 +49,7 @@ internal static class PowerCommand
                 var grid = ParseSizes(parse.GetValue(sizes) ?? "2000");
                 var trueModel = models.Create(parse);
                 var design = survey.Design(parse, grid.Max());
-                var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse));
+                var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 string obsText = parse.GetValue(observable) ?? (design.Kind == MockObjectKind.Galaxy ? "joint" : "size");
                 if (design.Kind == MockObjectKind.CompactRadio && obsText != "size")
                     throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
@@ -73,7 +73,7 @@ internal static class PowerCommand
                         ? trueModel.ParameterValues.Where(p => family.Parameters.Any(q => q.Name == p.Key) && !userFree.Contains(p.Key)).ToDictionary(p => p.Key, p => p.Value)
                         : new Dictionary<string, double>();
                     foreach (var (key, value) in userFixed) fixedValues[key] = value;
-                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(kind, nuisance.SizeSbRelation).Select(p => p.Name)).ToHashSet();
+                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet();
                     hypotheses.Add(Hypothesis.Create(family, nuisance, new ParameterOverrides(
                         Free: userFree.Where(known.Contains).ToHashSet(),
                         Fixed: fixedValues.Where(kv => known.Contains(kv.Key)).ToDictionary())));

@@ -50,7 +50,7 @@ internal static class SimulateCommand
                         throw new InputException("already exists; pass --force to replace it or choose another --out", p);
                 var model = models.Create(parse);
                 var design = survey.Design(parse, n);
-                var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse));
+                var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 var catalog = MockSurveyGenerator.Generate(spec);
                 Write(catalog, outPath, format);
                 AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalog, Path.GetFileName(outPath), CommandText(parse)));

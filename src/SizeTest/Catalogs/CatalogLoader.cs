@@ -11,7 +11,7 @@ namespace SizeTest.Catalogs;
 /// </summary>
 /// <remarks>
 /// Validation rules (first fault in role order z, z_err, theta, theta_err, mu, mu_err, mag, mag_err,
-/// id, band, kept columns): a null cell → <see cref="RejectReason.MissingValue"/>; an undecodable
+/// id, band, abs_mag, log_mass, flux_density, sersic_n, group, weight, kept columns): a null cell → <see cref="RejectReason.MissingValue"/>; an undecodable
 /// cell or a line with the wrong number of fields → <see cref="RejectReason.Unparsable"/>; z ≤ 0 →
 /// <see cref="RejectReason.NonPositiveRedshift"/>; θ ≤ 0 → <see cref="RejectReason.NonPositiveSize"/>;
 /// an error &lt; 0 → <see cref="RejectReason.NegativeError"/>; an infinite value, z above
@@ -25,6 +25,7 @@ public static class CatalogLoader
     [
         ColumnRole.Z, ColumnRole.ZErr, ColumnRole.Theta, ColumnRole.ThetaErr, ColumnRole.Mu, ColumnRole.MuErr,
         ColumnRole.Mag, ColumnRole.MagErr, ColumnRole.Id, ColumnRole.Band,
+        ColumnRole.AbsMag, ColumnRole.LogMass, ColumnRole.FluxDensity, ColumnRole.SersicN, ColumnRole.Group, ColumnRole.Weight,
     ];
 
     /// <summary>Loads <paramref name="path"/> (see the type's remarks for the rules).</summary>
@@ -126,7 +127,9 @@ public static class CatalogLoader
         var sample = new Sample(source, rows.Build(), Num(ColumnRole.Z)!,
             id: Txt(ColumnRole.Id), zErr: Num(ColumnRole.ZErr), thetaRad: Num(ColumnRole.Theta), thetaErrRad: Num(ColumnRole.ThetaErr),
             mu: Num(ColumnRole.Mu), muErr: Num(ColumnRole.MuErr), mag: Num(ColumnRole.Mag), magErr: Num(ColumnRole.MagErr),
-            band: Txt(ColumnRole.Band), sizeDefinition: mapping.SizeDefinition, extraColumns: extra);
+            band: Txt(ColumnRole.Band), sizeDefinition: mapping.SizeDefinition, extraColumns: extra,
+            survey: new SurveyColumns(Num(ColumnRole.AbsMag), Num(ColumnRole.LogMass), Num(ColumnRole.FluxDensity),
+                Num(ColumnRole.SersicN), Txt(ColumnRole.Group), Num(ColumnRole.Weight)));
         return new SampleLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns, reader.Notes, rowsRead, nulls);
     }
 
@@ -167,6 +170,21 @@ public static class CatalogLoader
                     break;
                 case ColumnRole.Mu or ColumnRole.Mag:
                     if (Math.Abs(v) > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"|value| above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");
+                    break;
+                case ColumnRole.AbsMag:
+                    if (Math.Abs(v) > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"|value| above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");
+                    break;
+                case ColumnRole.LogMass:
+                    if (!(v > 0 && v < 16)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "log10(M/Msun) outside 0–16 (a linear mass or a sentinel?)");
+                    break;
+                case ColumnRole.FluxDensity:
+                    if (!(v > 0)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "flux density must be > 0");
+                    break;
+                case ColumnRole.SersicN:
+                    if (!(v >= 0.05 && v <= 50)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "Sérsic index outside 0.05–50");
+                    break;
+                case ColumnRole.Weight:
+                    if (!(v > 0)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "weight must be > 0");
                     break;
                 case ColumnRole.MuErr or ColumnRole.MagErr:
                     if (v < 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NegativeError, "error must be >= 0");

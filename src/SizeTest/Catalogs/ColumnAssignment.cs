@@ -91,8 +91,24 @@ public sealed record ColumnAssignment(ColumnRole Role, string ColumnName, string
                 if (CatalogUnits.IsMagnitude(unit)) return true;
                 why = "magnitudes are read in mag";
                 return false;
+            case ColumnRole.AbsMag:
+                if (CatalogUnits.IsMagnitude(unit)) return true;
+                why = "absolute magnitudes are read in mag";
+                return false;
+            case ColumnRole.LogMass:
+                if (SurveyRoleUnits.IsLogSolarMass(unit)) return true;
+                why = "stellar masses are read as log10(M/Msun): dex or log(Msun)";
+                return false;
+            case ColumnRole.FluxDensity:
+                if (SurveyRoleUnits.TryParseFluxDensity(unit, out _, out _)) return true;
+                why = "flux densities take Jy, mJy, uJy, nJy, W/m2/Hz or erg/s/cm2/Hz";
+                return false;
+            case ColumnRole.SersicN or ColumnRole.Weight:
+                if (CatalogUnits.IsDimensionless(unit)) return true;
+                why = $"{role.Name()} has no unit";
+                return false;
             default:
-                why = "identifiers and bands have no unit";
+                why = "identifiers, bands and groups have no unit";
                 return false;
         }
     }

@@ -23,6 +23,18 @@ public enum ColumnRole
     MagErr,
     /// <summary><c>band</c>: band or filter name (text).</summary>
     Band,
+    /// <summary><c>abs_mag</c>: absolute magnitude computed by the catalogue in a stated reference cosmology (mag).</summary>
+    AbsMag,
+    /// <summary><c>log_mass</c>: log10 stellar mass in solar masses, computed in a stated reference cosmology (dex).</summary>
+    LogMass,
+    /// <summary><c>flux_density</c>: radio flux density S_ν at the observing frequency (stored in Jy).</summary>
+    FluxDensity,
+    /// <summary><c>sersic_n</c>: per-object Sérsic index.</summary>
+    SersicN,
+    /// <summary><c>group</c>: population label (text), e.g. early/late type.</summary>
+    Group,
+    /// <summary><c>weight</c>: per-object weight (&gt; 0) multiplying the object's log-likelihood.</summary>
+    Weight,
 }
 
 /// <summary>The spellings of <see cref="ColumnRole"/> used on the command line, in study files and in output.</summary>
@@ -31,7 +43,8 @@ public static class ColumnRoles
     /// <summary>All roles in their canonical order.</summary>
     public static IReadOnlyList<ColumnRole> All { get; } = Enum.GetValues<ColumnRole>();
 
-    /// <summary>The role's name: <c>id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band</c>.</summary>
+    /// <summary>The role's name: <c>id, z, z_err, theta, theta_err, mu, mu_err, mag, mag_err, band, abs_mag, log_mass,
+    /// flux_density, sersic_n, group, weight</c>.</summary>
     public static string Name(this ColumnRole role) => role switch
     {
         ColumnRole.Id => "id",
@@ -44,6 +57,12 @@ public static class ColumnRoles
         ColumnRole.Mag => "mag",
         ColumnRole.MagErr => "mag_err",
         ColumnRole.Band => "band",
+        ColumnRole.AbsMag => "abs_mag",
+        ColumnRole.LogMass => "log_mass",
+        ColumnRole.FluxDensity => "flux_density",
+        ColumnRole.SersicN => "sersic_n",
+        ColumnRole.Group => "group",
+        ColumnRole.Weight => "weight",
         _ => throw new ArgumentOutOfRangeException(nameof(role)),
     };
 
@@ -58,7 +77,7 @@ public static class ColumnRoles
     }
 
     /// <summary>Whether the role holds text rather than numbers.</summary>
-    public static bool IsText(this ColumnRole role) => role is ColumnRole.Id or ColumnRole.Band;
+    public static bool IsText(this ColumnRole role) => role is ColumnRole.Id or ColumnRole.Band or ColumnRole.Group;
 
     /// <summary>For an error role, the role whose error it is; otherwise null.</summary>
     public static ColumnRole? ValueRoleOf(this ColumnRole role) => role switch

@@ -17,6 +17,12 @@ public static class MappingResolver
         [ColumnRole.Mag] = ["magnitude", "m", "magauto", "magtot", "mtot", "totalmag", "petromag", "modelmag", "cmodelmag", "magbest"],
         [ColumnRole.Id] = ["objid", "objectid", "sourceid", "name", "source", "obj", "galaxy", "seq", "number", "srcid", "galid"],
         [ColumnRole.Band] = ["filter", "passband", "bandpass", "filtername"],
+        [ColumnRole.AbsMag] = ["absmag", "mabs", "absolutemag", "absolutemagnitude", "magabs"],
+        [ColumnRole.LogMass] = ["logmass", "logmstar", "lmass", "lmstar", "logm", "logsm", "logmstellar", "logstellarmass"],
+        [ColumnRole.FluxDensity] = ["fluxdensity", "snu", "sint", "stot", "stotal", "speak", "fnu", "flux"],
+        [ColumnRole.SersicN] = ["sersicn", "nsersic", "sersic", "nser", "sersicindex"],
+        [ColumnRole.Group] = ["population", "morphtype", "galtype", "subsample"],
+        [ColumnRole.Weight] = ["wt", "wgt", "weights"],
     };
 
     private static string Norm(string s) => new string(s.ToLowerInvariant().Where(char.IsLetterOrDigit).ToArray());
@@ -32,6 +38,12 @@ public static class MappingResolver
         ColumnRole.Mag => words.Any(w => w.StartsWith("phot.mag", StringComparison.Ordinal) && !w.StartsWith("phot.mag.sb", StringComparison.Ordinal)),
         ColumnRole.Id => words.Any(w => w == "meta.id"),
         ColumnRole.Band => words.Any(w => w.StartsWith("instr.bandpass", StringComparison.Ordinal) || w.StartsWith("instr.filter", StringComparison.Ordinal)),
+        ColumnRole.AbsMag => words.Any(w => w.StartsWith("phys.magabs", StringComparison.Ordinal)),
+        ColumnRole.LogMass => words.Any(w => w.StartsWith("phys.mass", StringComparison.Ordinal)),
+        ColumnRole.FluxDensity => words.Any(w => w.StartsWith("phot.flux.density", StringComparison.Ordinal)),
+        ColumnRole.SersicN => words.Any(w => w.StartsWith("src.morph.param", StringComparison.Ordinal)) && words.Any(w => w.Contains("sersic", StringComparison.Ordinal)),
+        ColumnRole.Group => words.Any(w => w == "src.class" || w.StartsWith("src.morph.type", StringComparison.Ordinal)),
+        ColumnRole.Weight => words.Any(w => w == "stat.weight"),
         _ => false,
     };
 
@@ -65,7 +77,8 @@ public static class MappingResolver
         // 2. Detection of the remaining value roles, then of their errors.
         if (mapping.DetectOthers)
         {
-            foreach (var role in new[] { ColumnRole.Z, ColumnRole.Theta, ColumnRole.Mu, ColumnRole.Mag, ColumnRole.Id, ColumnRole.Band })
+            foreach (var role in new[] { ColumnRole.Z, ColumnRole.Theta, ColumnRole.Mu, ColumnRole.Mag, ColumnRole.Id, ColumnRole.Band,
+                         ColumnRole.AbsMag, ColumnRole.LogMass, ColumnRole.FluxDensity, ColumnRole.SersicN, ColumnRole.Group, ColumnRole.Weight })
                 if (!roles.ContainsKey(role)) DetectValue(role, columns, used, roles, notes);
             foreach (var role in new[] { ColumnRole.ZErr, ColumnRole.ThetaErr, ColumnRole.MuErr, ColumnRole.MagErr })
                 if (!roles.ContainsKey(role)) DetectError(role, columns, used, roles, notes);
@@ -161,6 +174,26 @@ public static class MappingResolver
                 if (unit is null) return new RoleBinding(role, idx, col.Name, "mag", 1.0, false, reason, "default; the column has no unit");
                 if (CatalogUnits.IsMagnitude(unit)) return new RoleBinding(role, idx, col.Name, "mag", 1.0, false, reason, unitReason);
                 problem = $"column '{col.Name}' has unit '{unit}', which is not a magnitude";
+                return null;
+            case ColumnRole.AbsMag:
+                if (unit is null) return new RoleBinding(role, idx, col.Name, "mag", 1.0, false, reason, "default; the column has no unit");
+                if (CatalogUnits.IsMagnitude(unit)) return new RoleBinding(role, idx, col.Name, "mag", 1.0, false, reason, unitReason);
+                problem = $"column '{col.Name}' has unit '{unit}', which is not a magnitude";
+                return null;
+            case ColumnRole.LogMass:
+                if (SurveyRoleUnits.IsLogSolarMass(unit)) return new RoleBinding(role, idx, col.Name, "log(Msun)", 1.0, false, reason, unit is null ? "default; the column has no unit" : unitReason);
+                problem = SurveyRoleUnits.IsLinearSolarMass(unit)
+                    ? $"column '{col.Name}' holds linear masses ('{unit}'); log_mass takes log10(M/Msun) — convert the column"
+                    : $"column '{col.Name}' has unit '{unit}', which is not log10 of a solar mass";
+                return null;
+            case ColumnRole.FluxDensity:
+                if (unit is null) return new RoleBinding(role, idx, col.Name, "Jy", 1.0, false, reason, "default; the column has no unit");
+                if (SurveyRoleUnits.TryParseFluxDensity(unit, out var jy, out var jyCanon)) return new RoleBinding(role, idx, col.Name, jyCanon, jy, false, reason, unitReason);
+                problem = $"column '{col.Name}' has unit '{unit}', which is not a flux density (Jy, mJy, uJy, W/m2/Hz, erg/s/cm2/Hz)";
+                return null;
+            case ColumnRole.SersicN or ColumnRole.Weight:
+                if (unit is null || CatalogUnits.IsDimensionless(unit)) return new RoleBinding(role, idx, col.Name, "", 1.0, false, reason, "");
+                problem = $"column '{col.Name}' has unit '{unit}', but {role.Name()} has none";
                 return null;
             default:
                 return new RoleBinding(role, idx, col.Name, "", 1.0, false, reason, "");

@@ -24,7 +24,8 @@ public sealed class Sample
         double[]? magErr = null,
         string[]? band = null,
         SizeDefinition? sizeDefinition = null,
-        IReadOnlyDictionary<string, double[]>? extraColumns = null)
+        IReadOnlyDictionary<string, double[]>? extraColumns = null,
+        SurveyColumns? survey = null)
     {
         Count = z.Length;
         SourceName = sourceName;
@@ -43,6 +44,9 @@ public sealed class Sample
         Band = Check(band, nameof(band));
         SizeDefinition = sizeDefinition ?? SizeDefinition.Effective;
         ExtraColumns = extraColumns ?? new Dictionary<string, double[]>();
+        Survey = survey ?? SurveyColumns.None;
+        Check(Survey.AbsMag, "abs_mag"); Check(Survey.LogMass, "log_mass"); Check(Survey.FluxDensityJy, "flux_density");
+        Check(Survey.SersicN, "sersic_n"); Check(Survey.Group, "group"); Check(Survey.Weight, "weight");
         foreach (var (name, col) in ExtraColumns)
             if (col.Length != Count) throw new ArgumentException($"extra column '{name}' has {col.Length} entries, expected {Count}");
     }
@@ -94,6 +98,9 @@ public sealed class Sample
 
     /// <summary>How the size was measured.</summary>
     public SizeDefinition SizeDefinition { get; }
+
+    /// <summary>The survey roles (absolute magnitude, stellar mass, flux density, Sérsic index, group, weight); absent ones null.</summary>
+    public SurveyColumns Survey { get; }
 
     /// <summary>Further numeric columns kept by name (e.g. per-object K-correction, extinction).</summary>
     public IReadOnlyDictionary<string, double[]> ExtraColumns { get; }

@@ -92,6 +92,11 @@ public sealed class SampleLoad
                 ColumnRole.MuErr => Sample.MuErr,
                 ColumnRole.Mag => Sample.Mag,
                 ColumnRole.MagErr => Sample.MagErr,
+                ColumnRole.AbsMag => Sample.Survey.AbsMag,
+                ColumnRole.LogMass => Sample.Survey.LogMass,
+                ColumnRole.FluxDensity => Sample.Survey.FluxDensityJy,
+                ColumnRole.SersicN => Sample.Survey.SersicN,
+                ColumnRole.Weight => Sample.Survey.Weight,
                 _ => null,
             };
             double scale = role is ColumnRole.Theta or ColumnRole.ThetaErr ? Units.ArcsecPerRadian : 1.0;
@@ -99,7 +104,9 @@ public sealed class SampleLoad
             {
                 ColumnRole.Theta or ColumnRole.ThetaErr => "arcsec",
                 ColumnRole.Mu or ColumnRole.MuErr => "mag/arcsec2",
-                ColumnRole.Mag or ColumnRole.MagErr => "mag",
+                ColumnRole.Mag or ColumnRole.MagErr or ColumnRole.AbsMag => "mag",
+                ColumnRole.LogMass => "log(Msun)",
+                ColumnRole.FluxDensity => "Jy",
                 _ => "",
             };
             NullCounts.TryGetValue(role, out var nulls);

@@ -105,7 +105,8 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
         var extra = x.ExtraColumns.ToDictionary(kv => kv.Key, kv => kv.Value[start..end]);
         return new Sample(x.SourceName, RowNumbers.FromArray(Enumerable.Range(start, end - start).Select(i => x.SourceRows[i]).ToArray()),
             x.Z[start..end], Part(x.Id), Part(x.ZErr), Part(x.ThetaRad), Part(x.ThetaErrRad), Part(x.Mu), Part(x.MuErr), Part(x.Mag), Part(x.MagErr),
-            Part(x.Band), x.SizeDefinition, extra);
+            Part(x.Band), x.SizeDefinition, extra,
+            new SurveyColumns(Part(x.Survey.AbsMag), Part(x.Survey.LogMass), Part(x.Survey.FluxDensityJy), Part(x.Survey.SersicN), Part(x.Survey.Group), Part(x.Survey.Weight)));
     }
 }
 

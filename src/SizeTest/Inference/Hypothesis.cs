@@ -50,7 +50,7 @@ public sealed class Hypothesis
         overrides ??= ParameterOverrides.None;
         var settings = new List<ParameterSetting>();
         foreach (var spec in family.Parameters) settings.Add(ParameterSetting.Fixed(spec));
-        foreach (var spec in NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation)) settings.Add(ParameterSetting.Free(spec));
+        foreach (var spec in NuisanceParameters.For(nuisance)) settings.Add(ParameterSetting.Free(spec));
 
         for (int i = 0; i < settings.Count; i++)
         {
@@ -101,9 +101,12 @@ public sealed class Hypothesis
     {
         bool size = nuisance.Observable != ObservableKind.SurfaceBrightness;
         bool sb = nuisance.Observable != ObservableKind.Size;
-        if (NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Any(p => p.Name == name)) return true;
+        if (NuisanceParameters.For(nuisance).Any(p => p.Name == name)) return true;
+        if (NuisanceParameters.IsSurveyName(name)) return false;
         if (NuisanceParameters.All.Any(p => p.Name == name)) return false;
         // The dimming exponent (and the flux convention it defaults from) act only on surface brightness.
+        // ... and, with a size–luminosity relation, the flux convention sets each object's luminosity (D_L = d (1+z)^q).
+        if (name == "luminosity_exponent" && size && nuisance.SurveyTerms.Relation != Survey.SizeRelationKind.None) return true;
         if (name is "dimming_exponent" or "luminosity_exponent") return sb;
         // Every other cosmological parameter acts through D_A, which only the size model sees
         // (the joint model with a size–SB relation sees it through the physical size too).

@@ -83,16 +83,41 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
+        var survey = hypothesis.Nuisance.SurveyTerms;
+        double gridMinZ = sharedGrid?.MinZ ?? observables.Z.Min(), gridMaxZ = sharedGrid?.MaxZ ?? observables.Z.Max();
+        double priorMinZ = survey.RedshiftPriorMin ?? gridMinZ, priorMaxZ = survey.RedshiftPriorMax ?? gridMaxZ;
+        if (survey.MarginaliseRedshift)
+        {
+            // Photometric redshifts: a uniform-in-ln z grid over the data and prior range, so the quadrature nodes share its nodes.
+            gridMinZ = Math.Min(gridMinZ, priorMinZ);
+            gridMaxZ = Math.Max(gridMaxZ, priorMaxZ);
+            sharedGrid = new RedshiftGridSpan(gridMinZ, gridMaxZ, sharedGrid?.ObjectCount ?? _n);
+        }
         _distances = new DistanceTerms(hypothesis, _layout, observables.Z, size, sharedGrid);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
-        _kernel = kind switch
+        if (survey.IsActive)
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
-            ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
-            _ => new JointKernel(_cols, _distances, cut, _isophotal),
-        };
+            var startModel = _distances.CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
+                             ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
+            _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+            _kernel = _survey;
+        }
+        else
+            _kernel = kind switch
+            {
+                ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+                ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
+                _ => new JointKernel(_cols, _distances, cut, _isophotal),
+            };
         _posterior = new LogPosteriorDensity(this);
     }
+
+    // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
+    // weights, luminosity window): the size kernel when any is active.
+    private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Notes on the survey terms applied (empty when none).</summary>
+    public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];
 
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
@@ -103,6 +128,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var start = _h.StartVector();
         var e = Prepare(start);
         if (e is null) return start;
+        if (_survey is not null) { _survey.SuggestStart(start, _free, _h, e); return start; }
         var p = Point(e);
         for (int j = 0; j < _free.Length; j++)
         {

@@ -14,14 +14,20 @@ namespace SizeTest.Inference;
 /// term (Tolman 1930; common practice). 0 (default) means bolometric or K-corrected to the rest band.</param>
 /// <param name="GridNodes">Redshift-grid nodes for ln D_A (16–1024), or 0 (default) for automatic: 48 nodes below
 /// 20 000 objects (cubic interpolation error in ln D_A ≲ 1e-6 over 0.01 &lt; z &lt; 10), 96 above.</param>
+/// <param name="Survey">Survey-scale terms (size–luminosity relation, groups, binned evolution, photometric redshifts, size-error
+/// model, luminosity window); null = none.</param>
 public sealed record NuisanceModel(
     ObservableKind Observable,
     SelectionLimits? Selection = null,
     bool SizeSbRelation = false,
     double PivotSizeKpc = 5.0,
     double DimmingExponentOffset = 0.0,
-    int GridNodes = 0)
+    int GridNodes = 0,
+    Survey.SurveyModel? Survey = null)
 {
+    /// <summary>The survey terms (never null).</summary>
+    public Survey.SurveyModel SurveyTerms => Survey ?? Inference.Survey.SurveyModel.None;
+
     /// <summary>The selection cuts (never null).</summary>
     public SelectionLimits Cuts => Selection ?? SelectionLimits.None;
 
@@ -41,6 +47,9 @@ public sealed record NuisanceModel(
         if (SizeSbRelation && Observable != ObservableKind.Joint)
             throw new ArgumentException("the size–surface-brightness relation needs --observable joint");
         if (!(PivotSizeKpc > 0)) throw new ArgumentException("the pivot size must be positive (kpc)");
+        SurveyTerms.Validate(Observable);
+        if (SurveyTerms.IsActive && (s.MinThetaArcsec is not null))
+            throw new ArgumentException("--min-size cannot be combined with the survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors) yet; drop the cut or the survey options");
         if (GridNodes != 0 && GridNodes is < 16 or > 1024) throw new ArgumentException("the redshift grid needs 16 to 1024 nodes (or 0 for automatic)");
     }
 

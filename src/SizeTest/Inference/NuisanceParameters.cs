@@ -36,8 +36,44 @@ public static class NuisanceParameters
     public static readonly ParameterSpec KormendySlope = new("kormendy_slope", "κ", "mag/dex", 0.0, -20.0, 20.0,
         "slope of μ against log10 physical size (Kormendy-type relation)");
 
-    /// <summary>All nuisance parameters, in reporting order.</summary>
+    /// <summary>β in R ∝ (L/L_pivot)^β (or (M/M_pivot)^β): the size–luminosity (size–mass) slope; radio ℓ ∝ L^β.</summary>
+    public static readonly ParameterSpec SizeLuminositySlope = new("size_luminosity_slope", "β", "", 0.0, -3.0, 3.0,
+        "slope β of the size–luminosity (or size–mass) relation R ∝ L^β");
+
+    /// <summary>All nuisance parameters of the basic models, in reporting order.</summary>
     public static IReadOnlyList<ParameterSpec> All { get; } = [R0Kpc, SizeEvolution, ScatterDex, Mu0, SbEvolution, ScatterMag, KormendySlope];
+
+    /// <summary>
+    /// Nuisance parameters of <paramref name="nuisance"/>, including its survey terms: per group (<c>NAME@GROUP</c>) R0 (per
+    /// redshift bin <c>r0_kpc_binK</c> with binned evolution, which drops <c>size_evolution</c>), a, scatter and β.
+    /// </summary>
+    public static IReadOnlyList<ParameterSpec> For(NuisanceModel nuisance)
+    {
+        ArgumentNullException.ThrowIfNull(nuisance);
+        var sv = nuisance.SurveyTerms;
+        if (!sv.IsActive || nuisance.Observable != ObservableKind.Size) return For(nuisance.Observable, nuisance.SizeSbRelation);
+        var list = new List<ParameterSpec>();
+        foreach (var g in sv.GroupLabels)
+        {
+            string suffix = g.Length == 0 ? "" : $" ({g})";
+            if (sv.Binned)
+                for (int k = 1; k <= sv.BinCount; k++)
+                    list.Add(R0Kpc with { Name = Survey.SurveyModel.Named($"r0_kpc_bin{k}", g), Description = $"physical size in redshift bin {k}{suffix}" });
+            else
+            {
+                list.Add(R0Kpc with { Name = Survey.SurveyModel.Named(R0Kpc.Name, g), Description = R0Kpc.Description + suffix });
+                list.Add(SizeEvolution with { Name = Survey.SurveyModel.Named(SizeEvolution.Name, g), Description = SizeEvolution.Description + suffix });
+            }
+            list.Add(ScatterDex with { Name = Survey.SurveyModel.Named(ScatterDex.Name, g), Description = ScatterDex.Description + suffix });
+            if (sv.Relation != Survey.SizeRelationKind.None)
+                list.Add(SizeLuminositySlope with { Name = Survey.SurveyModel.Named(SizeLuminositySlope.Name, g), Description = SizeLuminositySlope.Description + suffix });
+        }
+        return list;
+    }
+
+    /// <summary>Whether <paramref name="name"/> is a survey-term parameter (β, per-group or per-bin names).</summary>
+    public static bool IsSurveyName(string name) =>
+        name.StartsWith(SizeLuminositySlope.Name, StringComparison.Ordinal) || name.Contains('@', StringComparison.Ordinal) || name.StartsWith("r0_kpc_bin", StringComparison.Ordinal);
 
     /// <summary>Nuisance parameters that enter the likelihood for the given observable.</summary>
     public static IReadOnlyList<ParameterSpec> For(ObservableKind kind, bool sizeSbRelation) => kind switch

@@ -13,7 +13,7 @@ public static class ObservablesSubset
         double[]? Pick(double[]? a) => a is null ? null : Array.ConvertAll(idx, i => a[i]);
         return new Observables(Pick(o.Z)!, Pick(o.LnTheta), Pick(o.LnThetaErr), Pick(o.Mu), Pick(o.MuErr),
             Pick(o.KCorrection), Pick(o.Extinction), Pick(o.Mag), Pick(o.MagErr), o.SizeDefinition,
-            Pick(o.Isophote), o.SersicIndex);
+            Pick(o.Isophote), o.SersicIndex, o.Survey.Take(idx));
     }
 
     /// <summary>A bootstrap resample: n rows drawn with replacement by <paramref name="rng"/>.</summary>

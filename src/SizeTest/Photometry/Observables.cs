@@ -25,7 +25,8 @@ public sealed class Observables
         double[]? magErr = null,
         Catalogs.SizeDefinition? sizeDefinition = null,
         double[]? isophote = null,
-        double? sersicIndex = null)
+        double? sersicIndex = null,
+        SurveyObservables? survey = null)
     {
         Count = z.Length;
         Z = z;
@@ -40,7 +41,16 @@ public sealed class Observables
         SizeDefinition = sizeDefinition ?? Catalogs.SizeDefinition.Effective;
         Isophote = Check(isophote, nameof(isophote));
         SersicIndex = sersicIndex;
+        Survey = survey ?? SurveyObservables.None;
+        Survey.CheckLength(Count);
     }
+
+    /// <summary>Redshift errors, luminosity data, per-object Sérsic indices, groups and weights (parts null when absent).</summary>
+    public SurveyObservables Survey { get; }
+
+    /// <summary>A copy with other survey quantities.</summary>
+    public Observables WithSurvey(SurveyObservables survey) =>
+        new(Z, LnTheta, LnThetaErr, Mu, MuErr, KCorrection, Extinction, Mag, MagErr, SizeDefinition, Isophote, SersicIndex, survey);
 
     private double[]? Check(double[]? a, string name) =>
         a is null || a.Length == Count ? a : throw new ArgumentException($"{name} has {a.Length} entries, expected {Count}");
@@ -108,6 +118,7 @@ public sealed class Observables
             }
         }
         return new Observables(sample.Z, lnTheta, lnErr, sample.Mu, sample.MuErr,
-            mag: sample.Mag, magErr: sample.MagErr, sizeDefinition: sample.SizeDefinition);
+            mag: sample.Mag, magErr: sample.MagErr, sizeDefinition: sample.SizeDefinition,
+            survey: new SurveyObservables(sample.ZErr, null, sample.Survey.SersicN, sample.Survey.Group, sample.Survey.Weight));
     }
 }

@@ -81,11 +81,19 @@ public static class ObservablesBuilder
                 throw new InputException("Converting the surface-brightness definition needs the input definition (mean, effective or central).");
             if (ik != outKind)
             {
-                if (sersic is not { } nn)
+                if ((sersic ?? (sample.Survey.SersicN is not null ? 1.0 : null)) is not { } nn)
                     throw new InputException($"Converting surface brightness from '{SurfaceBrightness.Token(ik)}' to '{SurfaceBrightness.Token(outKind)}' needs a Sérsic index; set it (e.g. --sersic-n 4).");
                 double off = SurfaceBrightness.ConversionOffset(ik, outKind, nn);
-                for (int i = 0; i < n; i++) mu[i] += off;
-                notes.Add($"surface brightness converted from {SurfaceBrightness.Token(ik)} to {SurfaceBrightness.Token(outKind)} for a Sérsic profile n = {F(nn)} (b_n = {F(SersicProfile.Bn(nn))}): offset {F(off)} mag (Graham & Driver 2005, eqs. 7-9).");
+                if (sample.Survey.SersicN is { } perObject)
+                {
+                    for (int i = 0; i < n; i++) mu[i] += SurfaceBrightness.ConversionOffset(ik, outKind, perObject[i]);
+                    notes.Add($"surface brightness converted from {SurfaceBrightness.Token(ik)} to {SurfaceBrightness.Token(outKind)} with each object's Sérsic index from the sersic_n column (Graham & Driver 2005, eqs. 7-9).");
+                }
+                else
+                {
+                    for (int i = 0; i < n; i++) mu[i] += off;
+                    notes.Add($"surface brightness converted from {SurfaceBrightness.Token(ik)} to {SurfaceBrightness.Token(outKind)} for a Sérsic profile n = {F(nn)} (b_n = {F(SersicProfile.Bn(nn))}): offset {F(off)} mag (Graham & Driver 2005, eqs. 7-9).");
+                }
             }
         }
         else if (inKind is { } k0 && mu is not null)
@@ -101,12 +109,12 @@ public static class ObservablesBuilder
         {
             if (sample.SizeDefinition.IsophoteMagPerArcsec2 is not { } level)
                 throw new InputException($"{sample.SourceName}: the sizes are isophotal but no isophote level is given.");
-            if (sersic is not { } nIso)
+            if (sersic is not { } nIso && sample.Survey.SersicN is null)
                 throw new InputException($"{sample.SourceName}: the sizes are isophotal (mu_iso = {F(level)}); set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii.");
             iso = new double[n];
             Array.Fill(iso, level);
             ApplyZeroPoints(sample, options, iso);
-            notes.Add($"sizes are isophotal at {F(level)} mag/arcsec^2 (observed frame): the fit predicts r_iso/R_e for a Sérsic profile n = {F(nIso)} under each world model's dimming, K and extinction.");
+            notes.Add($"sizes are isophotal at {F(level)} mag/arcsec^2 (observed frame): the fit predicts r_iso/R_e for a Sérsic profile n = {(sample.Survey.SersicN is null ? F(sersic!.Value) : "per object")} under each world model's dimming, K and extinction.");
         }
 
         if (options.ZeroPoints is { } zpt)
@@ -114,10 +122,57 @@ public static class ObservablesBuilder
                       (match is not null ? "each matched band's surface brightness" : "surface brightness") +
                       (mag is not null ? ", magnitudes" : "") + (iso is not null ? ", the isophote" : "") +
                       "; all surface brightness is AB mag/arcsec^2.");
+        var luminosity = options.Luminosity is { } lo ? Luminosities(sample, lo, mag, kc, ext, notes) : null;
+        if (sample.Survey.SersicN is not null)
+            notes.Add("Sérsic index: per object from the sersic_n column (used in the SB conversions and isophotal radii; the sample-wide index applies only where no column is mapped).");
         if (notes.Count == 0) notes.Add("no photometric corrections applied.");
+        var survey = basic.Survey with { Luminosity = luminosity };
         var obs = new Observables(sample.Z, basic.LnTheta, basic.LnThetaErr, mu, muErr, kc, ext, mag, sample.MagErr,
-            sample.SizeDefinition, iso, sersic);
+            sample.SizeDefinition, iso, sersic, survey);
         return new PhotometryResult(obs, notes);
+    }
+
+    private static LuminosityData Luminosities(Sample sample, LuminosityOption o, double[]? mag, double[]? kc, double[]? ext, List<string> notes)
+    {
+        int n = sample.Count;
+        double[] RefLn()
+        {
+            var reference = o.ReferenceModel;
+            var r = new double[n];
+            for (int i = 0; i < n; i++) r[i] = Math.Log(reference.LuminosityDistance(sample.Z[i]));
+            return r;
+        }
+        string refText = o.Reference is null ? "flat ΛCDM (H0 = 70, Ωm = 0.3; the default — set the catalogue's own)" : $"{o.Reference.Name} {string.Join(", ", o.Reference.ParameterValues.Where(kv => double.IsFinite(kv.Value)).Select(kv => $"{kv.Key} = {F(kv.Value)}"))}";
+        if (o.Mass)
+        {
+            var lm = sample.Survey.LogMass ?? throw new InputException($"{sample.SourceName}: a size–mass relation needs a 'log_mass' column; map it with --col log_mass=NAME");
+            notes.Add($"stellar masses: log_mass taken as computed in the reference cosmology {refText}; for each world model M* is scaled by (D_L,model/D_L,ref)^2, i.e. the mass-to-light ratio is assumed not to depend on the cosmology.");
+            return new LuminosityData(LuminosityKind.StellarMass, (double[])lm.Clone(), LnReferenceDistance: RefLn(), ReferenceModel: o.ReferenceModel.Name);
+        }
+        if (sample.Survey.FluxDensityJy is { } s)
+        {
+            notes.Add($"radio luminosity: L_nu = 4 pi D_L^2 S_nu (1+z)^-(1+alpha) with each world model's own D_L, alpha = {F(o.SpectralIndex)}" +
+                      (o.FrequencyGhz is { } f ? $", S_nu observed at {F(f)} GHz." : "."));
+            return new LuminosityData(LuminosityKind.FluxDensity, (double[])s.Clone(), SpectralIndex: o.SpectralIndex, FrequencyGhz: o.FrequencyGhz);
+        }
+        if (mag is not null)
+        {
+            double[]? corr = null;
+            if (kc is not null || ext is not null)
+            {
+                corr = new double[n];
+                for (int i = 0; i < n; i++) corr[i] = (kc?[i] ?? 0) + (ext?[i] ?? 0);
+            }
+            notes.Add("luminosity: absolute magnitude M = m - 5 log10(D_L/10 pc) - K - A from the apparent magnitude, computed for each world model with its own D_L (static models: their flux convention D_L = d (1+z)^q)" +
+                      (corr is null ? " (no K-correction or extinction given)." : " with the K-correction and extinction above."));
+            return new LuminosityData(LuminosityKind.ApparentMagnitude, mag, corr);
+        }
+        if (sample.Survey.AbsMag is { } am)
+        {
+            notes.Add($"luminosity: abs_mag taken as computed in the reference cosmology {refText}; for each world model M = M_ref - 5 log10(D_L,model/D_L,ref) (the catalogue's K-correction and extinction are kept).");
+            return new LuminosityData(LuminosityKind.AbsoluteMagnitude, (double[])am.Clone(), LnReferenceDistance: RefLn(), ReferenceModel: o.ReferenceModel.Name);
+        }
+        throw new InputException($"{sample.SourceName}: a size–luminosity relation or luminosity window needs 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
     }
 
     private static double[]? KCorrections(Sample sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)

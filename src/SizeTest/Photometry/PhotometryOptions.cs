@@ -34,6 +34,9 @@ public sealed record PhotometryOptions
     /// <summary>Surface-brightness source and definition.</summary>
     public SurfaceBrightnessOption SurfaceBrightness { get; init; } = SurfaceBrightnessOption.AsGiven;
 
+    /// <summary>Per-model luminosities or masses for a size–luminosity relation or a luminosity window; null = none.</summary>
+    public LuminosityOption? Luminosity { get; init; }
+
     /// <summary>Redshift step of the K(z) table used for template K-corrections (default 10⁻³).</summary>
     public double TemplateRedshiftStep { get; init; } = 1e-3;
 }

@@ -28,6 +28,10 @@ public sealed class MockCatalog
         ThetaTrueArcsec = c.ThetaTrue;
         MuTrue = galaxy ? c.MuTrue : null;
         SizeKpc = c.SizeKpc;
+        var survey = spec.SurveyTruth;
+        TrueAbsMag = galaxy && survey.LuminosityFunction is not null ? c.AbsMag : null;
+        FluxDensityJy = galaxy ? null : c.FluxJy;
+        Group = galaxy && survey.Groups.Count > 0 ? Array.ConvertAll(c.Group[..c.Count], q => survey.Groups[q].Name) : null;
         Drawn = drawn;
         FailedSbLimit = failedSb;
         FailedMagLimit = failedMag;
@@ -63,6 +67,16 @@ public sealed class MockCatalog
 
     /// <summary>log10 of the radio luminosity in W/Hz (radio sources only).</summary>
     public double[]? LogLuminosity { get; }
+
+    /// <summary>True absolute magnitude (galaxies drawn from a luminosity function; not written to the catalogue, which carries
+    /// the apparent magnitude: each world model computes its own M from it).</summary>
+    public double[]? TrueAbsMag { get; }
+
+    /// <summary>Radio flux density S_ν in Jy (radio sources only).</summary>
+    public double[]? FluxDensityJy { get; }
+
+    /// <summary>Population label per object (mixed populations only).</summary>
+    public string[]? Group { get; }
 
     /// <summary>True redshift.</summary>
     public double[] ZTrue { get; }
@@ -111,7 +125,8 @@ public sealed class MockCatalog
         }
         return new Sample(sourceName, rows, Z, id: Enumerable.Range(0, Count).Select(Id).ToArray(), zErr: ZErr,
             thetaRad: rad, thetaErrRad: radErr, mu: Mu, muErr: MuErr, mag: Mag,
-            sizeDefinition: Spec.Design.Kind == MockObjectKind.Galaxy ? SizeDefinition.Effective : new SizeDefinition(SizeKind.GaussianFwhm));
+            sizeDefinition: Spec.Design.Kind == MockObjectKind.Galaxy ? SizeDefinition.Effective : new SizeDefinition(SizeKind.GaussianFwhm),
+            survey: new SurveyColumns(FluxDensityJy: FluxDensityJy, Group: Group));
     }
 
     /// <summary>
@@ -128,14 +143,17 @@ public sealed class MockCatalog
             lnTheta[i] = Math.Log(ThetaArcsec[i]) + lnScale;
             lnErr[i] = ThetaErrArcsec[i] / ThetaArcsec[i];
         }
+        LuminosityData? lum = FluxDensityJy is { } s ? new LuminosityData(LuminosityKind.FluxDensity, s, SpectralIndex: Spec.SurveyTruth.RadioSpectralIndex)
+            : TrueAbsMag is not null ? new LuminosityData(LuminosityKind.ApparentMagnitude, Mag!) : null;
         return new Observables(Z, lnTheta, lnErr, Mu, MuErr, mag: Mag,
-            sizeDefinition: Spec.Design.Kind == MockObjectKind.Galaxy ? SizeDefinition.Effective : new SizeDefinition(SizeKind.GaussianFwhm));
+            sizeDefinition: Spec.Design.Kind == MockObjectKind.Galaxy ? SizeDefinition.Effective : new SizeDefinition(SizeKind.GaussianFwhm),
+            survey: new SurveyObservables(ZErr, lum, Group: Group));
     }
 
     /// <summary>
     /// The catalogue as a table for the writers, columns named by role so that <c>fit</c> reads it with no mapping:
-    /// <c>id, z, [z_err], theta, theta_err, [mu, mu_err, mag]</c> (galaxies) or <c>id, z, [z_err], theta, theta_err, log_lum</c>
-    /// (radio). θ is in arcsec, or in mas when <paramref name="thetaInMas"/> (for FITS and VOTable, whose columns carry
+    /// <c>id, z, [z_err], theta, theta_err, [mu, mu_err, mag], [group]</c> (galaxies) or <c>id, z, [z_err], theta, theta_err, log_lum,
+    /// flux_density</c> (radio). θ is in arcsec, or in mas when <paramref name="thetaInMas"/> (for FITS and VOTable, whose columns carry
     /// units; CSV has no units, so θ stays in arcsec there).
     /// </summary>
     public CatalogTable ToTable(string? name = null, bool thetaInMas = false)
@@ -152,7 +170,9 @@ public sealed class MockCatalog
         if (Mu is { } mu) t.AddReal("mu", mu, "mag.arcsec-2", "phot.mag.sb", "mean surface brightness within the effective radius");
         if (MuErr is { } mue) t.AddReal("mu_err", mue, "mag.arcsec-2", "stat.error;phot.mag.sb", "surface-brightness error");
         if (Mag is { } mag) t.AddReal("mag", mag, "mag", "phot.mag", "total magnitude, mu - 2.5 log10(2 pi theta^2)");
-        if (LogLuminosity is { } ll) t.AddReal("log_lum", ll, "log(W/Hz)", "phys.luminosity;em.radio", "log10 radio luminosity");
+        if (LogLuminosity is { } ll) t.AddReal("log_lum", ll, "log(W/Hz)", "phys.luminosity;em.radio", "log10 radio luminosity (in the true world model)");
+        if (FluxDensityJy is { } fd) t.AddReal("flux_density", fd, "Jy", "phot.flux.density;em.radio", "radio flux density");
+        if (Group is { } gr) t.AddText("group", gr, "src.class", "population label");
         return t;
     }
 }

@@ -17,10 +17,14 @@ internal sealed class MockColumns
         Mag = new double[capacity];
         LogL = new double[capacity];
         SizeKpc = new double[capacity];
+        AbsMag = new double[capacity];
+        FluxJy = new double[capacity];
+        Group = new int[capacity];
     }
 
     public int Count;
-    public double[] ZObs, ZErr, ZTrue, ThetaObs, ThetaErr, ThetaTrue, MuObs, MuErr, MuTrue, Mag, LogL, SizeKpc;
+    public double[] ZObs, ZErr, ZTrue, ThetaObs, ThetaErr, ThetaTrue, MuObs, MuErr, MuTrue, Mag, LogL, SizeKpc, AbsMag, FluxJy;
+    public int[] Group;
 
     /// <summary>Copies rows [from, from + n) of <paramref name="src"/> to the end of this store.</summary>
     public void Append(MockColumns src, int from, int n)
@@ -37,6 +41,9 @@ internal sealed class MockColumns
         Array.Copy(src.Mag, from, Mag, Count, n);
         Array.Copy(src.LogL, from, LogL, Count, n);
         Array.Copy(src.SizeKpc, from, SizeKpc, Count, n);
+        Array.Copy(src.AbsMag, from, AbsMag, Count, n);
+        Array.Copy(src.FluxJy, from, FluxJy, Count, n);
+        Array.Copy(src.Group, from, Group, Count, n);
         Count += n;
     }
 }

@@ -134,6 +134,16 @@ public static class MockSurveyGenerator
         bool hasSb = cuts.SbLimit is not null, hasMag = cuts.MagLimit is not null, hasSize = cuts.MinThetaArcsec is not null;
         double sbLimit = cuts.SbLimit ?? 0, magLimit = cuts.MagLimit ?? 0, minTheta = cuts.MinThetaArcsec ?? 0;
         double magOffset = 2.5 * Math.Log10(2 * Math.PI);
+        var survey = spec.SurveyTruth;
+        var lf = galaxy ? survey.LuminosityFunction : null;
+        var groups = galaxy ? survey.Groups : [];
+        double[] cumulative = new double[groups.Count];
+        double total = groups.Sum(q => q.Fraction), run = 0;
+        for (int q = 0; q < groups.Count; q++) { run += groups[q].Fraction / total; cumulative[q] = run; }
+        double dlExponent = Photometry.ModelLuminosity.DistanceExponent(spec.Model);
+        double zLo = zDist.ZMin, zHi = zDist.ZMax;
+        bool gaussianErrors = errors.SizeErrors == SizeErrorModel.Gaussian;
+        double lnFourPiMpc2 = Math.Log(4 * Math.PI) + 2 * Math.Log(Cosmology.PhysicalConstants.MegaparsecM);
 
         var cols = new MockColumns(m);
         var drawIndex = new int[m];
@@ -145,21 +155,57 @@ public static class MockSurveyGenerator
             double l10 = Math.Log10(1.0 + z);
             double logL = galaxy ? 0.0 : r.LogLuminosityMean + r.LogLuminositySd * rng.NextGaussian();
             double e1 = rng.NextGaussian(), e2 = rng.NextGaussian(), e3 = rng.NextGaussian(), e4 = rng.NextGaussian();
-            double log10Size = log10Size0 + sizeEvolution * l10 + sizeScatter * e1;
+            // Survey ingredients draw after the four deviates, and only when used, so that older catalogues are unchanged.
+            int group = 0;
+            double s0 = log10Size0, sEvo = sizeEvolution, sSc = sizeScatter, beta = survey.SizeLuminositySlope;
+            if (groups.Count > 0)
+            {
+                double u = rng.NextDouble();
+                while (group < groups.Count - 1 && u > cumulative[group]) group++;
+                var gp = groups[group];
+                s0 = Math.Log10(gp.R0Kpc); sEvo = gp.SizeEvolution; sSc = gp.ScatterDex; beta = gp.SizeLuminositySlope;
+            }
+            double absMag = lf is null ? double.NaN : lf.Sample(ref rng);
+            double log10Size = s0 + sEvo * l10 + sSc * e1;
             if (!galaxy) log10Size += r.LuminosityExponent * (logL - r.LogLuminosityPivot);
+            if (lf is not null) log10Size += -0.4 * beta * (absMag - survey.PivotAbsMag);
             double sizeKpc = Math.Exp(Ln10 * log10Size);
             double thetaTrue = sizeKpc / da[i] * radPerKpcMpc;
-            double sigmaLn = floor > 0 ? Math.Sqrt(f2 + floor * floor / (thetaTrue * thetaTrue)) : sigmaFrac;
-            double growth = sigmaLn * e3;            // ln θ_obs − ln θ_true
-            double thetaObs = thetaTrue * Math.Exp(growth);
+            double frac = errors.SizeErrorFractionAtZMax is { } f1 ? sigmaFrac + (f1 - sigmaFrac) * (z - zLo) / (zHi - zLo) : sigmaFrac;
+            double sigmaLn = floor > 0 ? Math.Sqrt(frac * frac + floor * floor / (thetaTrue * thetaTrue)) : frac;
+            double thetaObs, growth, thetaErr;
+            if (gaussianErrors)
+            {
+                // The quoted error is a fraction of the population's median size at this z (not of the object's own size), so it
+                // carries no information about θ_true: θ_obs ~ N(θ_true, σ_θ²) with σ_θ known, as a catalogue quotes it.
+                double thetaRef = Math.Exp(Ln10 * (s0 + sEvo * l10)) / da[i] * radPerKpcMpc;
+                thetaErr = frac * thetaRef;
+                thetaObs = thetaTrue + thetaErr * e3;
+                growth = thetaObs > 0 ? Math.Log(thetaObs / thetaTrue) : double.NaN;
+            }
+            else
+            {
+                growth = sigmaLn * e3;            // ln θ_obs − ln θ_true
+                thetaObs = thetaTrue * Math.Exp(growth);
+                thetaErr = sigmaLn * thetaObs;
+            }
             double muTrue = 0, muObs = 0, mag = 0;
-            if (galaxy)
+            if (galaxy && lf is not null)
+            {
+                // m = M + 5 log10(D_L / 10 pc); μ from m and θ: μ = m + 2.5 log10(2π θ²) (θ in arcsec).
+                mag = absMag + 5.0 * (log10Da[i] + dlExponent * l10) + 25.0;
+                muTrue = mag + 5.0 * Math.Log10(thetaTrue) + magOffset;
+                muObs = thetaObs > 0 ? mag + 5.0 * Math.Log10(thetaObs) + magOffset + muErr * e4 : double.NaN;
+            }
+            else if (galaxy)
             {
                 muTrue = g.Mu0 + sbSlope * l10 + g.KormendySlope * (log10Size - log10Pivot) + g.ScatterMag * e2;
                 muObs = muTrue + muErr * e4;
                 // m = μ − 5 log10 θ_obs − 2.5 log10(2π), with log10 θ_obs = log10 θ_true + growth/ln10
                 mag = muObs - 5.0 * (log10Size - log10Da[i] + log10RadPerKpcMpc + growth / Ln10) - magOffset;
             }
+            double fluxJy = galaxy ? double.NaN
+                : Math.Exp(Ln10 * logL + (1 + survey.RadioSpectralIndex) * Math.Log(1 + z) - lnFourPiMpc2 - 2 * (Math.Log(da[i]) + dlExponent * Math.Log(1 + z))) / 1e-26;
             double zObs = z;
             if (sz > 0)
             {
@@ -167,7 +213,8 @@ public static class MockSurveyGenerator
                 while (!(zObs > 0));
             }
             byte code = 0;
-            if (hasSb && !(muObs < sbLimit)) code = 1;
+            if (!(thetaObs > 0)) code = 3;
+            else if (hasSb && !(muObs < sbLimit)) code = 1;
             else if (hasMag && !(mag < magLimit)) code = 2;
             else if (hasSize && !(thetaObs > minTheta)) code = 3;
             fail[i] = code;
@@ -176,7 +223,10 @@ public static class MockSurveyGenerator
             cols.ZErr[k] = sz * (1.0 + zObs);
             cols.ZTrue[k] = z;
             cols.ThetaObs[k] = thetaObs;
-            cols.ThetaErr[k] = sigmaLn * thetaObs;
+            cols.ThetaErr[k] = thetaErr;
+            cols.AbsMag[k] = absMag;
+            cols.FluxJy[k] = fluxJy;
+            cols.Group[k] = group;
             cols.ThetaTrue[k] = thetaTrue;
             cols.MuObs[k] = muObs;
             cols.MuErr[k] = muErr;

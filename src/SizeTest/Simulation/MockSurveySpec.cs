@@ -12,13 +12,18 @@ namespace SizeTest.Simulation;
 /// <param name="Seed">Seed of every random draw.</param>
 /// <param name="Galaxies">Galaxy population (null: defaults), used when the kind is <see cref="MockObjectKind.Galaxy"/>.</param>
 /// <param name="RadioSources">Radio-source population (null: defaults), used when the kind is <see cref="MockObjectKind.CompactRadio"/>.</param>
+/// <param name="Survey">Luminosity function, size–luminosity relation, populations, radio spectral index (null: none).</param>
 public sealed record MockSurveySpec(
     IWorldModel Model,
     SurveyDesign Design,
     long Seed,
     GalaxyPopulation? Galaxies = null,
-    RadioSourcePopulation? RadioSources = null)
+    RadioSourcePopulation? RadioSources = null,
+    SurveyPopulation? Survey = null)
 {
+    /// <summary>The survey ingredients (never null).</summary>
+    public SurveyPopulation SurveyTruth => Survey ?? new SurveyPopulation();
+
     /// <summary>The galaxy population (never null).</summary>
     public GalaxyPopulation GalaxyTruth => Galaxies ?? new GalaxyPopulation();
 
@@ -33,6 +38,9 @@ public sealed record MockSurveySpec(
         Design.Validate();
         if (Design.Kind == MockObjectKind.Galaxy) GalaxyTruth.Validate();
         else RadioTruth.Validate();
+        SurveyTruth.Validate();
+        if (Design.Kind == MockObjectKind.CompactRadio && (SurveyTruth.LuminosityFunction is not null || SurveyTruth.Groups.Count > 0))
+            throw new ArgumentException("a luminosity function and --population apply to --kind galaxy (radio sources draw log10 L from --log-lum-mean/--log-lum-sd)");
         if (!Model.IsExpanding && Design.Redshifts.ZMin <= 0)
             throw new ArgumentException($"the static world model '{Model.Name}' needs redshifts above 0");
     }

@@ -77,6 +77,35 @@ public static class MockTruthJson
                 Number(w, "r0_kpc_equivalent", r.LinearSizePc / 1000.0);
             }
             w.WriteEndObject();
+            var sv = spec.SurveyTruth;
+            w.WriteStartObject("survey");
+            if (sv.LuminosityFunction is { } lf)
+            {
+                w.WriteStartObject("luminosity_function");
+                w.WriteString("form", "Schechter in absolute magnitude; m = M + 5 log10(D_L/10 pc), no K-correction");
+                Number(w, "m_star", lf.MStar);
+                Number(w, "alpha", lf.Alpha);
+                Number(w, "bright_limit", lf.BrightLimit);
+                Number(w, "faint_limit", lf.FaintLimit);
+                w.WriteEndObject();
+            }
+            Number(w, "size_luminosity_slope", sv.SizeLuminositySlope);
+            Number(w, "pivot_abs_mag", sv.PivotAbsMag);
+            Number(w, "radio_spectral_index", sv.RadioSpectralIndex);
+            w.WriteStartArray("populations");
+            foreach (var g in sv.Groups)
+            {
+                w.WriteStartObject();
+                w.WriteString("name", g.Name);
+                Number(w, "fraction", g.Fraction);
+                Number(w, "r0_kpc", g.R0Kpc);
+                Number(w, "size_evolution", g.SizeEvolution);
+                Number(w, "size_luminosity_slope", g.SizeLuminositySlope);
+                Number(w, "scatter_dex", g.ScatterDex);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
             w.WriteStartObject("design");
             w.WriteNumber("n", design.Count);
             w.WriteString("z_dist", design.Redshifts.Text);
@@ -88,7 +117,10 @@ public static class MockTruthJson
             Number(w, "size_err_floor_arcsec", e.SizeErrorFloorArcsec);
             Number(w, "mu_err_mag", e.MuErrorMag);
             Number(w, "photoz_err", e.PhotoZError);
-            w.WriteString("size_error_model", "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/theta_true)^2); theta_err = sigma_ln theta_obs");
+            NullableNumber(w, "size_err_frac_at_zmax", e.SizeErrorFractionAtZMax);
+            w.WriteString("size_error_model", e.SizeErrors == SizeErrorModel.Gaussian
+                ? "gaussian: theta_obs = theta_true + theta_err eps, theta_err = frac * median theta at z (pivot luminosity); theta_obs <= 0 counted as failed_min_size"
+                : "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/theta_true)^2); theta_err = sigma_ln theta_obs");
             w.WriteEndObject();
             var s = design.Cuts;
             w.WriteStartObject("selection");
@@ -106,6 +138,13 @@ public static class MockTruthJson
             w.WriteNumber("failed_mag_limit", catalog.FailedMagLimit);
             w.WriteNumber("failed_min_size", catalog.FailedMinSize);
             w.WriteEndObject();
+            if (catalog.ZErr is not null)
+            {
+                // Photometric redshifts: the true redshift of every catalogue row, in row order.
+                w.WriteStartArray("z_true");
+                foreach (var z in catalog.ZTrue) w.WriteNumberValue(z);
+                w.WriteEndArray();
+            }
             w.WriteEndObject();
         }
         return Encoding.UTF8.GetString(stream.ToArray()) + "\n";

@@ -31,7 +31,7 @@ public static class StudyHypotheses
     /// <summary>Every parameter name a world model has under the nuisance model (cosmological then nuisance).</summary>
     public static HashSet<string> KnownNames(IWorldModelFamily family, NuisanceModel nuisance) =>
         family.Parameters.Select(p => p.Name)
-            .Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation).Select(p => p.Name))
+            .Concat(NuisanceParameters.For(nuisance).Select(p => p.Name))
             .ToHashSet(StringComparer.Ordinal);
 
     private static ParameterOverrides Overrides(IWorldModelFamily family, NuisanceModel nuisance, IEnumerable<StudyParameter> settings)
@@ -40,7 +40,7 @@ public static class StudyHypotheses
         var fixedValues = new Dictionary<string, double>(StringComparer.Ordinal);
         var priors = new Dictionary<string, (double, double)>(StringComparer.Ordinal);
         var bounds = new Dictionary<string, (double, double)>(StringComparer.Ordinal);
-        var specs = family.Parameters.Concat(NuisanceParameters.For(nuisance.Observable, nuisance.SizeSbRelation)).ToDictionary(p => p.Name, StringComparer.Ordinal);
+        var specs = family.Parameters.Concat(NuisanceParameters.For(nuisance)).ToDictionary(p => p.Name, StringComparer.Ordinal);
         foreach (var s in settings)
         {
             var spec = specs[s.Name];

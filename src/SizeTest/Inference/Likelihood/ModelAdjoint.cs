@@ -20,6 +20,10 @@ internal sealed class ModelAdjoint
     /// <summary>A_k = Σ_i d_t,i w_ik: ∂ln L/∂(ln D_A at node k) is −A_k (null when distances are exact per object).</summary>
     public double[]? NodeAdjoint;
 
+    /// <summary>∂ln L/∂θ_j accumulated directly by a kernel for parameters outside the model quantities above (the survey
+    /// terms' per-group and per-bin parameters); added by <see cref="ParameterLayout.Chain"/>. Null when unused.</summary>
+    public double[]? Direct;
+
     /// <summary>Adds one object's partials.</summary>
     public void AddObject(double dt, double dm, double dvt, double dvm, double dc, double x, double l10)
     {
@@ -35,5 +39,10 @@ internal sealed class ModelAdjoint
         DVt += o.DVt; DVm += o.DVm; DC += o.DC;
         if (NodeAdjoint is not null && o.NodeAdjoint is not null)
             for (int k = 0; k < NodeAdjoint.Length; k++) NodeAdjoint[k] += o.NodeAdjoint[k];
+        if (o.Direct is not null)
+        {
+            Direct ??= new double[o.Direct.Length];
+            for (int j = 0; j < Direct.Length; j++) Direct[j] += o.Direct[j];
+        }
     }
 }

@@ -28,7 +28,7 @@ internal sealed class ParameterLayout
                 case "sb_evolution": SbEvolution = i; break;
                 case "scatter_mag": ScatterMag = i; break;
                 case "kormendy_slope": KormendySlope = i; break;
-                default: cosmo.Add(i); break;
+                default: if (!NuisanceParameters.IsSurveyName(ps[i].Name)) cosmo.Add(i); break; // survey names: Survey.SurveySizeLikelihood
             }
         }
         Cosmological = cosmo.ToArray();
@@ -77,6 +77,14 @@ internal sealed class ParameterLayout
         Set(gradient, SbEvolution, -2.5 * adjoint.DmL10);
         Set(gradient, ScatterMag, 2 * p.ScatterMag * adjoint.DVm);
         Set(gradient, KormendySlope, (adjoint.Dm * (p.LnR0 - p.LnPivot) + p.A * adjoint.DmX + 2 * kap * sig2 * adjoint.DVm + sig2 * adjoint.DC) / ModelPoint.Ln10);
+        ChainCosmology(adjoint, e, gradient);
+        // Partials a kernel computed directly in θ (the survey terms' own parameters) are added last.
+        if (adjoint.Direct is { } direct)
+            for (int j = 0; j < direct.Length; j++) gradient[j] += direct[j];
+    }
+
+    private void ChainCosmology(ModelAdjoint adjoint, LikelihoodEvaluation e, Span<double> gradient)
+    {
         for (int c = 0; c < FreeCosmological.Length; c++)
         {
             int j = _freeOfFull[FreeCosmological[c]];

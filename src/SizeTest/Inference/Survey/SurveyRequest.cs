@@ -1,0 +1,62 @@
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference.Survey;
+
+/// <summary>
+/// What a user asked for on the command line or in a study file's <c>[survey]</c> table, before the sample is known.
+/// <see cref="Build"/> turns it into a <see cref="SurveyModel"/> for a loaded sample: group labels (sorted), equal-count bin
+/// edges, and photometric-redshift marginalisation by default when the sample carries z_err.
+/// </summary>
+/// <param name="Relation">Size–luminosity or size–mass relation, or none.</param>
+/// <param name="Pivot">Pivots of the relation.</param>
+/// <param name="Groups">Fit each group of the sample's group column with its own nuisance parameters.</param>
+/// <param name="EvolutionBins">K for binned evolution; null for the power law.</param>
+/// <param name="IgnoreZErr">Do not marginalise over redshift errors even when z_err is mapped.</param>
+/// <param name="SizeErrors">Size-error model.</param>
+/// <param name="AbsMagMin">Luminosity window, bright end (null: open).</param>
+/// <param name="AbsMagMax">Luminosity window, faint end (null: open).</param>
+/// <param name="RedshiftPriorMin">Flat redshift prior's lower end for photo-z marginalisation (null: the sample's range).</param>
+/// <param name="RedshiftPriorMax">Its upper end.</param>
+public sealed record SurveyRequest(
+    SizeRelationKind Relation = SizeRelationKind.None,
+    LuminosityPivot? Pivot = null,
+    bool Groups = false,
+    int? EvolutionBins = null,
+    bool IgnoreZErr = false,
+    SizeErrorKind SizeErrors = SizeErrorKind.LogNormal,
+    double? AbsMagMin = null,
+    double? AbsMagMax = null,
+    double? RedshiftPriorMin = null,
+    double? RedshiftPriorMax = null)
+{
+    /// <summary>Nothing asked.</summary>
+    public static SurveyRequest None { get; } = new();
+
+    /// <summary>Whether the photometry stage must prepare luminosities or masses.</summary>
+    public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;
+
+    /// <summary>The survey model for <paramref name="observables"/> and <paramref name="observable"/>; notes say what was decided.</summary>
+    public SurveyModel Build(Observables observables, ObservableKind observable, ICollection<string> notes)
+    {
+        ArgumentNullException.ThrowIfNull(observables);
+        ArgumentNullException.ThrowIfNull(notes);
+        IReadOnlyList<string>? groups = null;
+        if (Groups)
+        {
+            var g = observables.Survey.Group ?? throw new Common.InputException("--group needs a group column; name it with --group COLUMN");
+            groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+            if (groups.Count < 2) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
+        }
+        double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
+        bool marginalise = false;
+        if (observables.Survey.ZErr is not null && !IgnoreZErr)
+        {
+            if (observable == ObservableKind.Size) marginalise = true;
+            else notes.Add("z_err is mapped, but redshift marginalisation is built for --observable size only; redshifts are taken as exact here.");
+        }
+        else if (observables.Survey.ZErr is not null)
+            notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
+        return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
+            AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax);
+    }
+}

@@ -1,0 +1,141 @@
+using System.Text.Json;
+using SizeTest.Tests.Catalogs;
+using Xunit;
+
+namespace SizeTest.Tests.Cli;
+
+/// <summary>The survey options of <c>simulate</c> and <c>fit</c> end to end, their parsing errors, and <c>inspect</c> on the new roles.</summary>
+public sealed class SurveyOptionsCliTests : IDisposable
+{
+    private readonly TempFiles _t = new();
+
+    public void Dispose() => _t.Dispose();
+
+    private static JsonElement Model(string resultsJson, string name)
+    {
+        using var doc = JsonDocument.Parse(resultsJson);
+        return doc.RootElement.GetProperty("models").EnumerateArray().Single(m => m.GetProperty("name").GetString() == name).Clone();
+    }
+
+    private static double Param(JsonElement model, string name) =>
+        model.GetProperty("parameters").GetProperty(name).GetProperty("value").GetDouble();
+
+    private string Simulate(params string[] extra)
+    {
+        string path = _t.PathOf($"mock{Guid.NewGuid():N}.csv");
+        var (code, _, err) = CliRunner.Run(["simulate", "--n", "800", "--seed", "4", "--out", path, .. extra]);
+        Assert.True(code == 0, err);
+        return path;
+    }
+
+    private (int Code, string Out, string Err, string Dir) Fit(string catalog, params string[] extra)
+    {
+        string dir = _t.PathOf($"fit{Guid.NewGuid():N}");
+        var (code, o, e) = CliRunner.Run(["fit", catalog, "--models", "lcdm", "--cv-folds", "0", "--starts", "1", "--out", dir, .. extra]);
+        return (code, o, e, dir);
+    }
+
+    [Fact]
+    public void MagnitudeLimitedSimulationFitsWithTheSizeLuminosityRelation()
+    {
+        var mock = Simulate("--luminosity-function", "schechter:-21:-1.2:-24:-16", "--size-lum-slope", "0.3", "--mag-limit", "24", "--z-dist", "uniform:0.1:2");
+        var (code, _, err, dir) = Fit(mock, "--size-luminosity", "--pivot-abs-mag", "-21");
+        Assert.True(code == 0, err);
+        var json = File.ReadAllText(Path.Combine(dir, "results.json"));
+        var m = Model(json, "lcdm");
+        // β = 0.3 injected; 800 objects give σ_β ≈ 0.01 (measured in SizeLuminosityRecoveryTests at n = 2000: ±0.01), so ±0.1 is loose.
+        Assert.InRange(Param(m, "size_luminosity_slope"), 0.2, 0.4);
+        Assert.Contains("per model", json.Replace("each world model", "per model"), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void GroupsBinnedEvolutionAndPhotometricRedshiftsRunFromTheCommandLine()
+    {
+        var mock = Simulate("--population", "early:0.5:3:-1.5", "--population", "late:0.5:6:-0.75", "--photoz-err", "0.03");
+        var (code, _, err, dir) = Fit(mock, "--group", "group", "--evolution", "binned:3");
+        Assert.True(code == 0, err);
+        var json = File.ReadAllText(Path.Combine(dir, "results.json"));
+        var m = Model(json, "lcdm");
+        foreach (var g in new[] { "early", "late" })
+            for (int k = 1; k <= 3; k++) Assert.True(Param(m, $"r0_kpc_bin{k}@{g}") > 0);
+        Assert.Contains("Gauss", json, StringComparison.Ordinal);               // the photo-z quadrature is stated
+        var (code2, _, err2, dir2) = Fit(mock, "--group", "group", "--ignore-z-err", "--fix", "size_evolution@early=-1.5");
+        Assert.True(code2 == 0, err2);
+        var m2 = Model(File.ReadAllText(Path.Combine(dir2, "results.json")), "lcdm");
+        Assert.Equal(-1.5, Param(m2, "size_evolution@early"));
+    }
+
+    [Fact]
+    public void GaussianSizeErrorsAndTheLargeErrorWarning()
+    {
+        var mock = Simulate("--size-errors", "gaussian", "--size-err-frac", "0.05", "--size-err-frac-zmax", "0.5");
+        var (code, _, err, _) = Fit(mock);
+        Assert.True(code == 0, err);
+        Assert.Contains("sigma_theta/theta > 0.2", err, StringComparison.Ordinal);
+        var (code2, _, err2, _) = Fit(mock, "--size-errors", "gaussian");
+        Assert.True(code2 == 0, err2);
+        Assert.DoesNotContain("sigma_theta/theta > 0.2", err2, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void RadioFluxDensitiesFitTheLinearSizeRelation()
+    {
+        var mock = Simulate("--kind", "radio", "--lum-exponent", "0.1", "--z-dist", "uniform:0.4:2.8");
+        var (code, _, err, dir) = Fit(mock, "--size-luminosity", "--frequency-ghz", "2.29", "--spectral-index", "0");
+        Assert.True(code == 0, err);
+        var m = Model(File.ReadAllText(Path.Combine(dir, "results.json")), "lcdm");
+        // ℓ_m = 11.03 pc injected (Cao et al. 2017); 800 sources with 0.1 dex scatter: σ(ℓ_m) ≈ 0.3 pc, so ±1.5 pc is loose.
+        Assert.InRange(1000 * Param(m, "r0_kpc"), 9.5, 12.5);
+    }
+
+    [Theory]
+    [InlineData("--evolution", "binned:1", "--evolution must be power or binned:K")]
+    [InlineData("--evolution", "steps", "--evolution must be power or binned:K")]
+    [InlineData("--abs-mag-range", "-20:-23", "LO must be below HI")]
+    [InlineData("--abs-mag-range", "bright", "must be LO:HI")]
+    [InlineData("--z-prior", "1:x", "must be LO:HI")]
+    [InlineData("--ref-cosmology", "70", "must be H0:OMEGA_M")]
+    public void BadSurveyOptionsExitWithTwo(string option, string value, string message)
+    {
+        var mock = Simulate();
+        var extra = option == "--ref-cosmology" ? new[] { option, value, "--size-luminosity" } : [option, value];
+        var (code, _, err, _) = Fit(mock, extra);
+        Assert.Equal(2, code);
+        Assert.Contains(message, err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ConflictingOrMissingSurveyInputsExitWithTwo()
+    {
+        var mock = Simulate();
+        Assert.Equal(2, Fit(mock, "--size-luminosity", "--size-mass").Code);
+        Assert.Contains("log_mass", Fit(mock, "--size-mass").Err, StringComparison.Ordinal);
+        Assert.Contains("group", Fit(mock, "--group", "nosuch").Err, StringComparison.Ordinal);
+        Assert.Contains("--observable size", Fit(mock, "--size-luminosity", "--observable", "joint").Err, StringComparison.Ordinal);
+        Assert.Contains("--size-luminosity", Fit(mock, "--frequency-ghz", "5").Err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void SimulateRejectsInconsistentSurveyOptions()
+    {
+        string p = _t.PathOf("bad.csv");
+        Assert.Equal(2, CliRunner.Run(["simulate", "--n", "10", "--seed", "1", "--out", p, "--size-lum-slope", "0.3"]).Exit);
+        Assert.Equal(2, CliRunner.Run(["simulate", "--n", "10", "--seed", "1", "--out", p, "--luminosity-function", "gauss:1:2"]).Exit);
+        Assert.Equal(2, CliRunner.Run(["simulate", "--n", "10", "--seed", "1", "--out", p, "--population", "early:x:3:-1"]).Exit);
+        Assert.Equal(2, CliRunner.Run(["simulate", "--n", "10", "--seed", "1", "--out", p, "--kind", "radio", "--population", "a:1:3:-1"]).Exit);
+    }
+
+    [Fact]
+    public void InspectShowsTheSurveyRoles()
+    {
+        var csv = _t.Write("survey.csv", "z,theta,abs_mag,log_mass,flux_density,sersic_n,group,weight\n" +
+                                          "0.5,1.2,-21.5,10.8,0.12,2.5,early,1\n0.7,0.9,-20.1,10.2,0.05,1.1,late,2\n0.9,0.8,-22.0,11.1,0.30,4.0,early,1\n");
+        var (code, o, err) = CliRunner.Run(["inspect", csv]);
+        Assert.True(code == 0, err);
+        foreach (var role in new[] { "abs_mag", "log_mass", "flux_density", "sersic_n", "group", "weight" })
+            Assert.Contains(role, o, StringComparison.Ordinal);
+        var (code2, o2, err2) = CliRunner.Run(["inspect", csv, "--col", "flux_density=flux_density:mJy", "--format", "json"]);
+        Assert.True(code2 == 0, err2);
+        Assert.Contains("mJy", o2, StringComparison.Ordinal);
+    }
+}
