@@ -51,8 +51,15 @@ internal sealed class CatalogOptions
         Description = "Text catalogues: whether the first line is a header: auto (default), yes or no.",
     };
 
+    public Option<int> MaxLineBytes { get; } = new("--max-line-bytes")
+    {
+        Description = "Text catalogues: the longest line accepted, in bytes (a longer one is refused naming file and line).",
+        DefaultValueFactory = _ => SizeTest.Common.LineCappedStream.DefaultMaxLineBytes,
+    };
+
     public void AddTo(Command command)
     {
+        command.Options.Add(MaxLineBytes);
         command.Options.Add(Header);
         command.Options.Add(Col);
         command.Options.Add(Hdu);
@@ -90,7 +97,7 @@ internal sealed class CatalogOptions
         return new CatalogLoadOptions
         {
             Mapping = mapping,
-            Reader = new ReaderOptions { Format = format, Table = parse.GetValue(Hdu), Delimiter = delimiter, HasHeader = header },
+            Reader = new ReaderOptions { Format = format, Table = parse.GetValue(Hdu), Delimiter = delimiter, HasHeader = header, MaxLineBytes = parse.GetValue(MaxLineBytes) > 0 ? parse.GetValue(MaxLineBytes) : throw new InputException("--max-line-bytes must be positive") },
         };
     }
 }

@@ -51,6 +51,7 @@ internal static class FitCommand
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
         var maxOutside = new Option<double>("--max-outside-selection") { Description = "Largest fraction (0–1) of objects that may lie outside --sb-limit/--mag-limit/--min-size; they go to the reject log, and beyond it the fit is refused.", DefaultValueFactory = _ => SelectionConsistency.DefaultMaxOutsideFraction };
+        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse a fit whose estimated memory (chains, resamples, starts, live points) is above this size (e.g. 4G); the machine's available memory is always a limit." };
         var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
@@ -59,7 +60,7 @@ internal static class FitCommand
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
         surveyOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, maxMemory, expect, nodes, force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -94,6 +95,8 @@ internal static class FitCommand
                 if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
                 if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+                long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
+                CheckBudget(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
                 if (samplerName == "mcmc")
                     foreach (var h in hypotheses.Where(h => h.K > 0))
                         SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
@@ -133,6 +136,19 @@ internal static class FitCommand
             }
         });
         return command;
+    }
+
+    // Memory the fit's own structures need, estimated before any allocation (8-byte doubles):
+    // chains walkers × steps × (k + 1) per model (positions and ln p), kept twice (chain and thinned samples);
+    // bootstrap resamples × (k + 4) per model; starts × k × 24 (L-BFGS history of 10 pairs and work vectors);
+    // nested sampling live points × (k + 1) × 64 (live set plus the dead points of a typical run).
+    private static void CheckBudget(IReadOnlyList<Hypothesis> hypotheses, string sampler, int walkers, int steps, int live, int bootstrap, int starts, long? limit)
+    {
+        double k = hypotheses.Count == 0 ? 1 : hypotheses.Max(h => h.K), models = hypotheses.Count;
+        if (sampler == "mcmc") ResourceBudget.Check($"the MCMC chains ({walkers} walkers × {steps} steps × {k} parameters × {models} models)", 2.0 * 8 * walkers * (double)steps * (k + 1) * models, limit);
+        if (sampler == "nested") ResourceBudget.Check($"nested sampling ({live} live points)", 8.0 * 64 * live * (k + 1) * models, limit);
+        ResourceBudget.Check($"the bootstrap ({bootstrap} resamples)", 8.0 * bootstrap * (k + 4) * models, limit);
+        ResourceBudget.Check($"the optimiser starts ({starts} starts)", 8.0 * 24 * starts * (k + 1) * models, limit);
     }
 
     // A validator rather than AcceptOnlyFromAmong: its message is one line.

@@ -24,7 +24,7 @@ public static class Program
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {
-            var message = string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+            var message = PlainTypeNames(string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)));
             stderr.WriteLine($"sizetest: {message} (see 'sizetest {CommandPath(parse)} --help')");
             return ExitCodes.BadInput;
         }
@@ -36,6 +36,20 @@ public static class Program
         {
             return context.Fail(ex);
         }
+    }
+
+    // Parse messages name .NET types ("as expected type 'System.Int32'"); say what the user must type instead.
+    internal static string PlainTypeNames(string message)
+    {
+        foreach (var (type, plain) in new[]
+        {
+            ("System.Int32", "a whole number up to 2147483647 (no exponent)"), ("System.Int64", "a whole number"),
+            ("System.Double", "a number"), ("System.Boolean", "true or false"), ("System.String", "text"),
+            ("System.Nullable`1[System.Int32]", "a whole number up to 2147483647 (no exponent)"), ("System.Nullable`1[System.Int64]", "a whole number"),
+            ("System.Nullable`1[System.Double]", "a number"),
+        }.OrderByDescending(t => t.Item1.Length))
+            message = message.Replace($" as expected type '{type}'", $"; expected {plain}").Replace(type, plain);
+        return message;
     }
 
     private static string CommandPath(ParseResult parse)

@@ -22,13 +22,15 @@ internal static class SimulateCommand
         var models = new WorldModelOptions();
         var survey = new MockSurveyOptions("Objects in the catalogue (after selection; drawing continues until this many pass).");
         var seed = new Option<long?>("--seed") { Description = "Seed of every random draw (required: the same seed gives the same catalogue bit for bit)." };
-        var output = new Option<string?>("--out") { Description = "Catalogue file: .csv, .fits (.fit, .fts) or .vot (.votable, .xml). The truth goes to FILE.truth.json." };
+        var output = new Option<string?>("--out") { Description = "Catalogue file: .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet. The truth goes to FILE.truth.json." };
         var force = new Option<bool>("--force") { Description = "Replace existing output files." };
+        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse a catalogue whose estimated memory (about 240 bytes per object) is above this size (e.g. 4G); the machine's available memory is always a limit." };
         models.AddTo(command);
         survey.AddTo(command);
         command.Options.Add(seed);
         command.Options.Add(output);
         command.Options.Add(force);
+        command.Options.Add(maxMemory);
         command.SetAction(parse =>
         {
             try
@@ -37,6 +39,10 @@ internal static class SimulateCommand
                 long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the catalogue can be reproduced, e.g. --seed 1");
                 string outPath = parse.GetValue(output) ?? throw new InputException("--out is required: the catalogue file, e.g. --out mock.csv");
                 var format = FormatOf(outPath);
+                if (n < 1) throw new InputException($"--n must be at least 1; got {n}");
+                long? limit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
+                // About 240 bytes per object: the mock's columns plus the table written from them (measured in issue 14).
+                ResourceBudget.Check($"a catalogue of {n} objects (--n)", 240.0 * n, limit);
                 string truthPath = outPath + ".truth.json";
                 bool replace = parse.GetValue(force);
                 foreach (var p in new[] { outPath, truthPath })
@@ -64,14 +70,15 @@ internal static class SimulateCommand
     private static string CommandText(ParseResult parse) =>
         "sizetest simulate " + string.Join(' ', parse.Tokens.Skip(1).Select(t => t.Value.Contains(' ') ? $"\"{t.Value}\"" : t.Value));
 
-    private enum OutputFormat { Csv, Fits, VoTable }
+    private enum OutputFormat { Csv, Fits, VoTable, Parquet }
 
     private static OutputFormat FormatOf(string path) => Path.GetExtension(path).ToLowerInvariant() switch
     {
         ".csv" => OutputFormat.Csv,
         ".fits" or ".fit" or ".fts" => OutputFormat.Fits,
         ".vot" or ".votable" or ".xml" => OutputFormat.VoTable,
-        _ => throw new InputException("--out must end in .csv, .fits (.fit, .fts) or .vot (.votable, .xml) to choose the format", path),
+        ".parquet" or ".pq" => OutputFormat.Parquet,
+        _ => throw new InputException("--out must end in .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet to choose the format", path),
     };
 
     private static void Write(MockCatalog catalog, string path, OutputFormat format)
@@ -83,6 +90,11 @@ internal static class SimulateCommand
             case OutputFormat.Csv:
                 CsvTableWriter.Write(path, catalog.ToTable(name));
                 break;
+            case OutputFormat.Parquet:
+                // Uncompressed, set explicitly: the fastest to read (docs/scaling.md); angles in arcsec (the default unit).
+                SizeTest.Catalogs.Parquet.ParquetTableWriter.Write(path, ParquetColumns(catalog.ToTable(name)),
+                    compression: SizeTest.Catalogs.Parquet.ParquetCompression.None);
+                break;
             case OutputFormat.Fits:
                 FitsTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio));
                 break;
@@ -91,4 +103,9 @@ internal static class SimulateCommand
                 break;
         }
     }
+
+    private static List<SizeTest.Catalogs.Parquet.ParquetColumnValues> ParquetColumns(CatalogTable table) =>
+        table.Columns.Select(c => c.Texts is { } t
+            ? SizeTest.Catalogs.Parquet.ParquetColumnValues.Text(c.Name, t)
+            : SizeTest.Catalogs.Parquet.ParquetColumnValues.Number(c.Name, c.Reals ?? c.Integers!.Select(v => (double)v).ToArray())).ToList();
 }

@@ -20,4 +20,7 @@ public sealed record ReaderOptions
 
     /// <summary>Text only: cell texts read as null besides the empty cell.</summary>
     public IReadOnlyList<string> NullTokens { get; init; } = ["NA", "N/A", "NaN", "nan", "null", "NULL", "None", "--"];
+
+    /// <summary>Text only: the longest line accepted, bytes (default 1 MiB); a longer line is refused naming file and line.</summary>
+    public int MaxLineBytes { get; init; } = SizeTest.Common.LineCappedStream.DefaultMaxLineBytes;
 }

@@ -24,7 +24,7 @@ internal sealed class DelimitedTextReader : TextTableReader
             TrackLineNumbers = true,
             TrimWhitespace = true,
             SkipEmptyLines = true,
-            MaxRecordSize = 16 << 20,
+            MaxRecordSize = options.MaxLineBytes,
             DetectSeparatorHint = false,
         };
         try

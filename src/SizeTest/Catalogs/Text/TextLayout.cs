@@ -21,7 +21,7 @@ internal sealed class TextLayout
     public static TextLayout Detect(string path, ReaderOptions options)
     {
         var lines = new List<(long No, string Text)>();
-        using (var fs = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16))
+        using (var fs = Common.LineCappedStream.Open(path, options.MaxLineBytes))
         using (var sr = new StreamReader(fs, new UTF8Encoding(false), detectEncodingFromByteOrderMarks: true))
         {
             long no = 0;

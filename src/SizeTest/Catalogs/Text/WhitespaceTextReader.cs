@@ -16,7 +16,7 @@ internal sealed class WhitespaceTextReader : TextTableReader
 
     public WhitespaceTextReader(string path, TextLayout layout, ReaderOptions options) : base(path, layout, options)
     {
-        _reader = new StreamReader(new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan),
+        _reader = new StreamReader(Common.LineCappedStream.Open(path, options.MaxLineBytes),
             new UTF8Encoding(false), detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
         _headerSkipped = !layout.HeaderInFirstLine;
     }
