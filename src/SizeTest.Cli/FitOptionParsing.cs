@@ -82,6 +82,14 @@ internal static class FitOptionParsing
         return d;
     }
 
+    /// <summary><c>--steps</c>: <c>auto</c> (0: run to convergence) or a whole number of steps per walker.</summary>
+    public static int Steps(string? text)
+    {
+        if (text is null || text.Equals("auto", StringComparison.OrdinalIgnoreCase)) return 0;
+        if (int.TryParse(text, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n) && n > 0) return n;
+        throw new InputException($"--steps must be auto or a whole number of steps per walker; got '{text}'");
+    }
+
     /// <summary>The observable kind from <c>--observable</c>.</summary>
     public static ObservableKind Observable(string text) => text switch
     {

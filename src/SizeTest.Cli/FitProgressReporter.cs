@@ -9,6 +9,7 @@ internal sealed class FitProgressReporter(CliContext context) : IProgress<Infere
     private readonly object _gate = new();
     private string _stage = "";
     private int _lastQuarter = -1;
+    private readonly System.Diagnostics.Stopwatch _sinceLine = System.Diagnostics.Stopwatch.StartNew();
 
     public void Report(Inference.FitProgress value)
     {
@@ -17,7 +18,8 @@ internal sealed class FitProgressReporter(CliContext context) : IProgress<Infere
             if (context.IsInteractive)
             {
                 string bar = value.Total > 0 ? $" {value.Done}/{value.Total}" : "";
-                context.Err.Write($"\r{value.Stage}{bar}".PadRight(60));
+                string more = value.Detail is { } d ? $" ({d})" : "";
+                context.Err.Write($"\r{value.Stage}{bar}{more}".PadRight(60));
                 if (value.Done >= value.Total && value.Stage.StartsWith("fitted", StringComparison.Ordinal)) context.Err.Write("\r" + new string(' ', 60) + "\r");
                 return;
             }
@@ -29,10 +31,13 @@ internal sealed class FitProgressReporter(CliContext context) : IProgress<Infere
                 if (!value.Stage.StartsWith("bootstrap", StringComparison.Ordinal)) { context.Err.WriteLine($"sizetest fit: {value.Stage}"); return; }
             }
             int quarter = value.Total > 0 ? 4 * value.Done / value.Total : 4;
-            if (quarter > _lastQuarter)
+            // Plain lines: at each quarter, and for a long stage (a sampler run to convergence, whose total grows) every 10 s.
+            if (quarter > _lastQuarter || (value.Detail is not null && _sinceLine.Elapsed.TotalSeconds >= 10))
             {
-                _lastQuarter = quarter;
-                context.Err.WriteLine($"sizetest fit: {value.Stage} {value.Done}/{value.Total}");
+                _lastQuarter = Math.Max(_lastQuarter, quarter);
+                _sinceLine.Restart();
+                string more = value.Detail is { } d ? $" ({d})" : "";
+                context.Err.WriteLine($"sizetest fit: {value.Stage} {value.Done}/{value.Total}{more}");
             }
         }
     }

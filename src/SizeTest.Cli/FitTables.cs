@@ -17,20 +17,16 @@ internal static class FitTables
     public static string Csv(StudyResult r) => SizeTest.Studies.StudyResultsCsv.Write(r);
 
     /// <summary>A profile curve as CSV.</summary>
-    public static string ProfileCsv(ProfileLikelihoodResult p)
-    {
-        var sb = new StringBuilder($"{p.Parameter},log_likelihood,converged\n");
-        foreach (var pt in p.Points) sb.Append(Inv, $"{R(pt.Value)},{R(pt.LogLikelihood)},{(pt.Converged ? "true" : "false")}\n");
-        return sb.ToString();
-    }
+    public static string ProfileCsv(ProfileLikelihoodResult p) => SizeTest.Studies.StudyOutputFiles.ProfileCsv(p);
 
     /// <summary>Nested-sampling weighted samples as CSV: the free parameters, log_likelihood, log_weight.</summary>
-    public static string SamplesCsv(PosteriorDraws s)
-    {
-        var sb = new StringBuilder(string.Join(',', s.ParameterNames) + ",log_likelihood,log_weight\n");
-        foreach (var row in s.Rows) sb.Append(string.Join(',', row.Select(R))).Append('\n');
-        return sb.ToString();
-    }
+    public static string SamplesCsv(PosteriorDraws s) => SizeTest.Studies.StudyOutputFiles.SamplesCsv(s);
+
+    // How an interval was obtained, when it is not the Hessian's.
+    private static string Marker(ParameterEstimate p) =>
+        (p.Regions.Count > 1 ? " = " + string.Join(" ∪ ", p.Regions.Select(q => string.Create(Inv, $"[{q.Lo:0.####}, {q.Hi:0.####}]"))) : "")
+        + (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
+        + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
 
     /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>
     public static void WriteVerdict(TextWriter o, StudyResult r)
@@ -57,10 +53,22 @@ internal static class FitTables
         foreach (var m in r.Models)
         {
             rank++;
+            // Tied models share a rank, shown as "=1" (no order among them).
+            string shown = m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : PdgRounding.ValueWithInterval(e.Value, e.Lo, e.Hi);
-            string words = rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
-            o.WriteLine(string.Create(Inv, $"{rank,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
+            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : PdgRounding.ValueWithInterval(e.Value, e.Lo, e.Hi) + Marker(e);
+            string words = m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
+            o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
+        }
+        o.WriteLine();
+        foreach (var m in r.Models)
+        {
+            var special = m.Parameters.Where(p => !p.Fixed && (p.IntervalMethod != IntervalMethods.Hessian || p.AtBound is not null)).ToArray();
+            if (special.Length > 0)
+                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi) is var t ? $"{p.Name} {t}{Marker(p)}" : "")));
+            if (m.Modes.Count > 1)
+                o.WriteLine($"{m.Name}: MULTIMODAL, {m.Modes.Count} maxima within Δ ln L < 2: " + string.Join("; ", m.Modes.Select(
+                    md => string.Join(", ", md.Parameters.Select(kv => string.Create(Inv, $"{kv.Key} {kv.Value:0.####}"))) + string.Create(Inv, $" (ln L {md.LogLikelihood:0.00})"))));
         }
         o.WriteLine();
         WriteVerdict(o, r);
@@ -69,6 +77,10 @@ internal static class FitTables
             o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.0}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
         foreach (var c in r.CrossValidation)
             o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
+        foreach (var d in r.CrossValidationDifferences)
+            o.WriteLine(d.Tied
+                ? $"{d.Model} vs {d.Reference}: cross-validated ln p tie (paired difference {d.Difference.ToString("0.00", Inv)} over the same {d.Folds} folds)"
+                : string.Create(Inv, $"{d.Model} − {d.Reference}: paired cross-validated Δ ln p = {d.Difference:0.00} ± {d.StandardError:0.00} (same {d.Folds} folds)"));
         foreach (var b in r.Bootstrap)
             o.WriteLine($"{b.Model}: bootstrap of {b.Resamples} resamples ({b.Failed} failed): " + string.Join(", ", b.Intervals.Select(i => string.Create(Inv, $"{i.Name} {i.Median:0.###} [{i.Lo:0.###}, {i.Hi:0.###}]"))));
         foreach (var p in r.Profiles)

@@ -7,7 +7,7 @@ namespace SizeTest.Cli;
 /// <summary>
 /// The photometry options shared by verbs that turn a catalogue into observables (<c>fit</c>, <c>inspect</c>):
 /// <c>--kcorr</c>, <c>--extinction</c>, <c>--zero-points</c>, <c>--band</c>, <c>--band-match</c>, <c>--sersic-n</c>,
-/// <c>--sb</c>. The grammar is that of <see cref="PhotometryOptionText"/>; <see cref="ToOptions"/> parses them with
+/// <c>--sb</c>. The grammar is that of <see cref="PhotometryOptionText"/>; <see cref="ToOptions(ParseResult)"/> parses them with
 /// <see cref="PhotometryOptionParser"/> (files read through <see cref="PhotometryFiles.ReadText"/>).
 /// </summary>
 internal sealed class PhotometryCliOptions
@@ -72,4 +72,8 @@ internal sealed class PhotometryCliOptions
 
     /// <summary>Parses the options; throws <see cref="InputException"/> (one line, naming the option) on a bad value.</summary>
     public PhotometryOptions ToOptions(ParseResult parse) => PhotometryOptionParser.Parse(ToText(parse), PhotometryFiles.ReadText);
+
+    /// <summary>Same as <see cref="ToOptions(ParseResult)"/>, adding every file read to <paramref name="filesRead"/> (inputs of the run).</summary>
+    public PhotometryOptions ToOptions(ParseResult parse, ICollection<string> filesRead) =>
+        PhotometryOptionParser.Parse(ToText(parse), path => { filesRead.Add(path); return PhotometryFiles.ReadText(path); });
 }

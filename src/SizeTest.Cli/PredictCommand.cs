@@ -9,7 +9,7 @@ namespace SizeTest.Cli;
 
 /// <summary>
 /// <c>sizetest predict</c>: distances, lookback time, angular size of a proper size and
-/// Tolman dimming of one world model at a list of redshifts. Columns (design.md):
+/// Tolman dimming of one world model at a list of redshifts. Columns (docs/world-models.md):
 /// <c>z, comoving_mpc, transverse_comoving_mpc, angular_diameter_mpc, luminosity_mpc,
 /// lookback_gyr, theta_arcsec, dimming_mag</c>; a quantity the model does not define (and θ at
 /// z = 0, which is infinite) is empty (null in JSON).

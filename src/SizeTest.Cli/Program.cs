@@ -7,7 +7,11 @@ namespace SizeTest.Cli;
 public static class Program
 {
     /// <summary>Runs with the process's console streams.</summary>
-    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+    public static int Main(string[] args)
+    {
+        using var interrupts = InterruptCleanup.Install();
+        return Run(args, Console.Out, Console.Error);
+    }
 
     /// <summary>
     /// Runs one command line with the given writers (tests call this in-process).
@@ -54,7 +58,7 @@ public static class Program
 
     private static IEnumerable<Command> Verbs(CliContext context)
     {
-        // One line per verb; keep the order of the command-line contract in design.md.
+        // One line per verb; this order is the order of 'sizetest --help' (approved in tests/SizeTest.Tests/Cli/Approved/).
         yield return ModelsCommand.Create(context);
         yield return PredictCommand.Create(context);
         yield return InspectCommand.Create(context);

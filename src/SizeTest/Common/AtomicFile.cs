@@ -4,7 +4,9 @@ namespace SizeTest.Common;
 
 /// <summary>
 /// Writes files so that a reader never sees a half-written one: the content goes to a
-/// temporary file beside the target, is flushed, and is then renamed over the target.
+/// temporary file beside the target (<c>.NAME.tmp-PID-GUID</c>, registered with <see cref="StagingRegistry"/> so an
+/// interrupt removes it; stale ones of dead processes are removed first), is flushed, and is then renamed over
+/// the target. Path and permission problems are <see cref="InputException"/>s naming the file.
 /// </summary>
 public static class AtomicFile
 {
@@ -30,10 +32,18 @@ public static class AtomicFile
     /// </summary>
     public static void Write(string path, Action<Stream> writeContent)
     {
-        var full = Path.GetFullPath(path);
-        var dir = Path.GetDirectoryName(full)!;
-        Directory.CreateDirectory(dir);
+        StagingRegistry.ThrowIfTerminating();
+        string full;
+        try { full = Path.GetFullPath(path); }
+        catch (ArgumentException e) { throw new InputException($"'{path}' is not a valid output path ({e.Message.TrimEnd('.')})", inner: e); }
+        if (Directory.Exists(full)) throw new InputException($"output path '{path}' is a folder; name a file");
+        var dir = Path.GetDirectoryName(full) ?? throw new InputException($"output path '{path}' has no folder");
+        try { Directory.CreateDirectory(dir); }
+        catch (IOException e) { throw new InputException($"cannot create the folder of '{path}' ({e.Message.TrimEnd('.')})", inner: e); }
+        catch (UnauthorizedAccessException e) { throw new InputException($"cannot create the folder of '{path}' ({e.Message.TrimEnd('.')})", inner: e); }
+        StagingRegistry.RemoveStale(dir, Path.GetFileName(full));
         var tmp = Path.Combine(dir, $".{Path.GetFileName(full)}.tmp-{Environment.ProcessId}-{Guid.NewGuid():N}");
+        StagingRegistry.Register(tmp);
         try
         {
             using (var fs = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
@@ -41,12 +51,27 @@ public static class AtomicFile
                 writeContent(fs);
                 fs.Flush(true);
             }
+            StagingRegistry.ThrowIfTerminating();
             File.Move(tmp, full, overwrite: true);
+        }
+        catch (Exception e) when (e is UnauthorizedAccessException || (e is IOException && e is not FileNotFoundException && e is not DirectoryNotFoundException))
+        {
+            TryDelete(tmp);
+            throw new InputException($"cannot write '{path}' ({e.Message.TrimEnd('.')})", inner: e);
         }
         catch
         {
-            try { if (File.Exists(tmp)) File.Delete(tmp); } catch (IOException) { }
+            TryDelete(tmp);
             throw;
         }
+        finally
+        {
+            StagingRegistry.Unregister(tmp);
+        }
+    }
+
+    private static void TryDelete(string tmp)
+    {
+        try { if (File.Exists(tmp)) File.Delete(tmp); } catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
     }
 }

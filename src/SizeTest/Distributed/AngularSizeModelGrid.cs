@@ -5,7 +5,7 @@ namespace SizeTest.Distributed;
 /// <summary>
 /// The angular-size model on the redshift grid, computed once per parameter vector:
 /// ln θ_model(z_k) = ln R0 + a ln(1+z_k) − ln D_A(z_k), θ in radians, R0 and D_A in kpc
-/// (small-angle θ = ℓ/D_A with size evolution ℓ = R0 (1+z)^a; science-checks §1.7, common practice).
+/// (small-angle θ = ℓ/D_A with size evolution ℓ = R0 (1+z)^a; docs/science.md §1.7, common practice).
 /// </summary>
 public static class AngularSizeModelGrid
 {

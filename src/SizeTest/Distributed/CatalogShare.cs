@@ -17,6 +17,10 @@ namespace SizeTest.Distributed;
 /// <param name="Rejects">Reject log of the rows counted by this rank.</param>
 public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, long Accepted, long Rejected, RejectLog Rejects)
 {
+    /// <summary>Chunk key per local row for <see cref="Inference.Evaluation.EvaluationBackend"/>: Parquet, (row group,
+    /// position in the group / chunk rows); null for the other formats (the backend's default, index / chunk rows).</summary>
+    public IReadOnlyList<long>? ChunkKeys { get; init; }
+
     /// <summary>Loads the share of rank <paramref name="rank"/> of <paramref name="size"/>; no collective calls (may throw per rank).</summary>
     public static CatalogShare Load(string path, CatalogLoadOptions options, int rank, int size)
     {
@@ -25,14 +29,24 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
         if (CatalogReaders.DetectFormat(path) == CatalogFormat.Parquet && options.Reader.Format is null or CatalogFormat.Parquet)
         {
             int first, end;
+            IReadOnlyList<long> groups;
             using (var table = ParquetTableReader.Open(path))
-                (first, end) = RowPartition.RowGroups(table.RowGroupRowCounts, rank, size);
+            {
+                groups = table.RowGroupRowCounts.ToArray();
+                (first, end) = RowPartition.RowGroups(groups, rank, size);
+            }
             using var reader = ParquetCatalogReader.Open(path, first, end);
             var load = CatalogLoader.Load(reader, options);
-            return new CatalogShare(load.Sample, null, load.RowsRead, load.Sample.Count, load.RejectLog.Count, load.RejectLog);
+            return new CatalogShare(load.Sample, null, load.RowsRead, load.Sample.Count, load.RejectLog.Count, load.RejectLog)
+            {
+                ChunkKeys = ParquetChunkKeys(load.Sample.SourceRows, groups),
+            };
         }
         var whole = CatalogLoader.Load(path, options);
-        var (s, e) = RowPartition.RowRange(whole.Sample.Count, rank, size);
+        const int chunk = Inference.Evaluation.EvaluationBackend.ChunkRows;
+        int n = whole.Sample.Count;
+        var (cs, ce) = RowPartition.RowRange((n + chunk - 1) / chunk, rank, size);
+        long s = Math.Min(n, cs * chunk), e = Math.Min(n, ce * chunk);
         bool root = rank == 0;
         return new CatalogShare(Slice(whole.Sample, (int)s, (int)e), whole.Sample,
             root ? whole.RowsRead : 0, root ? whole.Sample.Count : 0, root ? whole.RejectLog.Count : 0,
@@ -67,6 +81,22 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
             }
         }
         return new CatalogTotals((long)totals[0], (long)totals[1], (long)totals[2], ranks.IsRoot ? text.ToString() : "");
+    }
+
+    // (row group << 32) | (position in the group / chunk rows), from 1-based file rows.
+    private static long[] ParquetChunkKeys(IReadOnlyList<long> rows, IReadOnlyList<long> groupRowCounts)
+    {
+        var starts = new long[groupRowCounts.Count + 1];
+        for (int g = 0; g < groupRowCounts.Count; g++) starts[g + 1] = starts[g] + groupRowCounts[g];
+        var keys = new long[rows.Count];
+        int group = 0;
+        for (int i = 0; i < rows.Count; i++)
+        {
+            long r = rows[i] - 1;
+            while (group + 1 < groupRowCounts.Count && r >= starts[group + 1]) group++; // rows ascend within a share
+            keys[i] = ((long)group << 32) | ((r - starts[group]) / Inference.Evaluation.EvaluationBackend.ChunkRows);
+        }
+        return keys;
     }
 
     private static Sample Slice(Sample x, int start, int end)

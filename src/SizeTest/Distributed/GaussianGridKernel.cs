@@ -10,7 +10,7 @@ namespace SizeTest.Distributed;
 /// </summary>
 /// <remarks>
 /// ln L = −½ Σ_i [ r_i² / (σ_i² + σ_int²) + ln(2π(σ_i² + σ_int²)) ], r_i = y_i − m(z_i)
-/// (Gaussian likelihood with intrinsic scatter, common practice; science-checks §1.7).
+/// (Gaussian likelihood with intrinsic scatter, common practice; docs/science.md §1.7).
 /// m(z) is given by its values at the nodes of a <see cref="LogRedshiftGrid"/>, computed once per
 /// parameter vector (e.g. <see cref="AngularSizeModelGrid.Fill"/>), and linearly interpolated at each
 /// object's grid position. For angular sizes y = ln θ and m = ln R0 + a ln(1+z) − ln D_A(z); for surface

@@ -16,7 +16,7 @@ public static class SyntheticKernelRows
 
     /// <summary>
     /// Einstein–de Sitter angular-diameter distance in Mpc: D_A = 2 D_H [1 − (1+z)^−½]/(1+z)
-    /// (closed form, science-checks §1.4; Hogg 1999 with Ωm = 1).
+    /// (closed form, docs/science.md §1.4; Hogg 1999 with Ωm = 1).
     /// </summary>
     public static double EdsAngularDiameterDistanceMpc(double z) => 2 * HubbleDistanceMpc * (1 - 1 / Math.Sqrt(1 + z)) / (1 + z);
 

@@ -18,9 +18,9 @@ public sealed record BootstrapInterval(string Name, double Median, double Lo, do
 public sealed record BootstrapResult(string Model, int Resamples, int Failed, IReadOnlyList<BootstrapInterval> Intervals);
 
 /// <summary>
-/// Nonparametric bootstrap (Efron 1979): resample the objects with replacement, refit, and take percentiles of the
-/// refitted parameters. Resample i draws from its own generator seeded by (seed, i), so results do not depend on
-/// the number of threads.
+/// Nonparametric bootstrap (Efron 1979) in its Poisson form: replicate b weights every object by a Poisson(1) count
+/// drawn from (seed, b, row identity) (<see cref="PoissonBootstrapWeights"/>), refits, and takes percentiles of the
+/// refitted parameters. The weights do not depend on the number of threads or MPI ranks.
 /// </summary>
 public static class Bootstrap
 {
@@ -36,24 +36,43 @@ public static class Bootstrap
     public static BootstrapResult Run(Hypothesis hypothesis, Observables observables, double[] best, int resamples, int seed,
         Action<int>? onDone = null, int maxDegreeOfParallelism = -1, CancellationToken cancel = default)
     {
-        ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(observables);
+        _ = maxDegreeOfParallelism; // the in-process backend uses every core
+        return Run(Evaluation.EvaluationBackend.InProcess(observables), hypothesis, best, resamples, seed, onDone, cancel);
+    }
+
+    /// <summary>Runs <paramref name="resamples"/> refits on <paramref name="backend"/> (concurrently in one process, in
+    /// order under MPI), each a one-start refit from <paramref name="best"/>.</summary>
+    /// <param name="backend">Where the sums are evaluated.</param>
+    /// <param name="hypothesis">The hypothesis.</param>
+    /// <param name="best">The full-sample best fit (free parameters).</param>
+    /// <param name="resamples">Number of resamples (≥ 1).</param>
+    /// <param name="seed">Seed.</param>
+    /// <param name="onDone">Called after each finished resample with the count done so far.</param>
+    /// <param name="cancel">Cancellation.</param>
+    public static BootstrapResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, double[] best, int resamples, int seed,
+        Action<int>? onDone = null, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(hypothesis);
+        ArgumentNullException.ThrowIfNull(best);
         if (resamples < 1) throw new ArgumentOutOfRangeException(nameof(resamples), "the bootstrap needs at least one resample");
         int d = hypothesis.K;
         var thetas = new double[resamples][];
         var ok = new bool[resamples];
         int done = 0;
         var settings = new OptimizerSettings(Starts: 1, Tolerance: 1e-9, InitialStep: 0.1);
-        Parallel.For(0, resamples, new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism, CancellationToken = cancel }, i =>
+        var ids = backend.RowIds;
+        backend.ForEach(resamples, i =>
         {
-            var rng = new Random(unchecked(seed * 1_000_003 + i * 7919 + 17));
-            var rows = ObservablesSubset.Resample(observables.Count, rng);
-            var lik = new HypothesisLikelihood(hypothesis, ObservablesSubset.Take(observables, rows)) { AllowParallel = false };
-            var fit = MaximumLikelihood.Fit(lik, settings, best, covariance: false);
+            var weights = new int[ids.Count];
+            for (int r = 0; r < weights.Length; r++) weights[r] = PoissonBootstrapWeights.Weight(seed, i, ids[r]);
+            var lik = backend.Bind(hypothesis, weights);
+            var fit = MaximumLikelihood.Fit(lik, lik.Posterior, hypothesis.FreeParameters, best, settings, covariance: false);
             thetas[i] = fit.Theta;
             ok[i] = fit.Converged;
             onDone?.Invoke(Interlocked.Increment(ref done));
-        });
+        }, cancel);
         var good = Enumerable.Range(0, resamples).Where(i => ok[i]).Select(i => thetas[i]).ToArray();
         var intervals = new List<BootstrapInterval>();
         for (int j = 0; j < d; j++)

@@ -23,6 +23,9 @@ public sealed record FitRequest
     public int Bootstrap { get; init; }
     /// <summary>Cross-validation folds (0: none).</summary>
     public int CrossValidationFolds { get; init; }
+    /// <summary>Grid points of the whole-range profile scan of each free cosmological parameter that looks for missed
+    /// maxima before the intervals are assessed (<see cref="ModeSearch"/>; 0: no scan).</summary>
+    public int ModeScanPoints { get; init; } = ModeSearch.DefaultGridPoints;
     /// <summary>Parameter to profile in every model where it is free, or null.</summary>
     public string? ProfileParameter { get; init; }
     /// <summary>Expected ranges for the evolution parameters.</summary>
@@ -31,8 +34,16 @@ public sealed record FitRequest
     public string Sampler { get; init; } = "none";
     /// <summary>MCMC walkers.</summary>
     public int Walkers { get; init; } = 32;
-    /// <summary>MCMC steps per walker.</summary>
-    public int Steps { get; init; } = 3000;
+    /// <summary>MCMC steps per walker; 0 (<c>--steps auto</c>, the default): run in blocks until the convergence rules
+    /// hold or <see cref="MaxSteps"/> is reached.</summary>
+    public int Steps { get; init; }
+    /// <summary>MCMC with <see cref="Steps"/> = 0: the most steps per walker before the run stops as not converged.</summary>
+    public int MaxSteps { get; init; } = Sampling.ChainMemory.DefaultMaxSteps;
+    /// <summary>Bytes the MCMC chain store may hold (walkers × max steps × (parameters + 1) × 8 B is checked before sampling).</summary>
+    public long ChainMemoryBudget { get; init; } = Sampling.ChainMemory.DefaultBudgetBytes;
+    /// <summary>Where the likelihood sums are evaluated (threads, or MPI ranks over row slices); null: threads in this
+    /// process over <see cref="Observables"/>. Under MPI, <see cref="Observables"/> is this rank's share.</summary>
+    public Evaluation.EvaluationBackend? Backend { get; init; }
     /// <summary>Nested-sampling live points.</summary>
     public int LivePoints { get; init; } = 400;
     /// <summary>Makes a chain store for a model's MCMC chain (e.g. a CSV file), or null to keep it in memory only.
@@ -44,4 +55,8 @@ public sealed record FitRequest
 /// <param name="Stage">What is running (e.g. "bootstrap lcdm").</param>
 /// <param name="Done">Units done.</param>
 /// <param name="Total">Units in this stage.</param>
-public sealed record FitProgress(string Stage, int Done, int Total);
+public sealed record FitProgress(string Stage, int Done, int Total)
+{
+    /// <summary>Extra words for the progress line (e.g. "τ 130, ETA 4 s"), or null.</summary>
+    public string? Detail { get; init; }
+}

@@ -13,7 +13,24 @@ public static class FitStudy
     {
         ArgumentNullException.ThrowIfNull(request);
         if (request.Hypotheses.Count == 0) throw new ArgumentException("no world models to fit");
-        var obs = request.Observables;
+        if (request.Sampler == "mcmc")
+            foreach (var h in request.Hypotheses.Where(h => h.K > 0))
+                Sampling.ChainMemory.Check(request.Walkers, request.Steps > 0 ? request.Steps : request.MaxSteps, h.K, request.ChainMemoryBudget);
+        var backend = request.Backend ?? Evaluation.EvaluationBackend.InProcess(request.Observables);
+        if (!backend.IsRoot) progress = null;
+        var obs = backend.Local;
+        int total = backend.TotalObjects;
+        SampleSizeCheck.RefuseUnidentifiable(request.Hypotheses, total);
+        var extraNotes = new List<string>();
+        if (SampleSizeCheck.Warning(request.Hypotheses, total) is { } small) extraNotes.Add(small);
+        int cvFolds = request.CrossValidationFolds;
+        if (cvFolds > total)
+        {
+            extraNotes.Add($"cross-validation asked for {cvFolds} folds but the sample has {total} objects: capped at {total} folds (leave-one-out)");
+            cvFolds = total;
+        }
+        // One fold assignment from the seed for every model (over the whole sample's positions), so CV differences are paired.
+        int[]? foldOf = cvFolds > 1 ? CrossValidation.AssignFolds(total, cvFolds, request.Seed) : null;
         var summaries = new List<ModelFitSummary>();
         var lrts = new List<LikelihoodRatioTest>();
         var boots = new List<BootstrapResult>();
@@ -21,20 +38,28 @@ public static class FitStudy
         var profiles = new List<ProfileLikelihoodResult>();
         var required = new List<RequiredEvolution>();
         var samples = new List<PosteriorDraws>();
+        var chains = new List<ChainSummary>();
         var opt = new OptimizerSettings(Starts: request.Starts, Seed: request.Seed);
         int m = 0;
         foreach (var h in request.Hypotheses)
         {
             cancel.ThrowIfCancellationRequested();
             progress?.Report(new FitProgress($"fitting {h.Label}", m, request.Hypotheses.Count));
-            var lik = h.Bind(obs);
-            var fit = MaximumLikelihood.Fit(lik, opt);
-            var summary = FitSummaries.From(lik, fit);
+            var lik = backend.Bind(h);
+            var fit = MaximumLikelihood.Fit(lik, lik.Posterior, h.FreeParameters, backend.SuggestStart(h), opt);
+            var refined = ModelFitRefinement.Run(backend, lik, fit, request.ModeScanPoints, cancel);
+            fit = refined.Best;
+            var summary = refined.Summary;
+            extraNotes.AddRange(refined.Notes);
             if (request.Sampler != "none")
             {
-                var (sampled, draws) = PosteriorSampling.Run(lik, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
-                summary = sampled;
-                if (draws is not null) samples.Add(draws);
+                var (sampled, draws) = PosteriorSampling.Run(h, lik, lik.Posterior, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
+                summary = ModelFitRefinement.MarkPosterior(sampled);
+                if (draws is not null)
+                {
+                    samples.Add(draws);
+                    if (draws.Chain is { } chain) chains.Add(chain);
+                }
             }
             summaries.Add(summary);
 
@@ -46,10 +71,10 @@ public static class FitStudy
                 if (!est.Fixed && h.FreeParameters.First(p => p.Name == name) is { } spec && spec.Min <= 0 && spec.Max >= 0)
                 {
                     var nested = h.WithFixed(name, 0);
-                    var nlik = nested.Bind(obs);
+                    var nlik = backend.Bind(nested);
                     int j = h.FreeParameters.ToList().FindIndex(p => p.Name == name);
                     var start = fit.Theta.Where((_, k) => k != j).ToArray();
-                    var nfit = MaximumLikelihood.Fit(nlik, opt, start, covariance: false);
+                    var nfit = MaximumLikelihood.Fit(nlik, nlik.Posterior, nested.FreeParameters, start, opt, covariance: false);
                     lrt = LikelihoodRatioTest.Compute(h.Label, name, 0, fit.LogLikelihood, nfit.LogLikelihood, 1);
                     lrts.Add(lrt);
                 }
@@ -59,33 +84,40 @@ public static class FitStudy
             if (request.Bootstrap > 0 && h.K > 0)
             {
                 string stage = $"bootstrap {h.Label}";
-                int total = request.Bootstrap;
-                progress?.Report(new FitProgress(stage, 0, total));
-                boots.Add(Bootstrap.Run(h, obs, fit.Theta, total, unchecked(request.Seed + 7 * m),
-                    done => progress?.Report(new FitProgress(stage, done, total)), cancel: cancel));
+                int resamples = request.Bootstrap;
+                progress?.Report(new FitProgress(stage, 0, resamples));
+                boots.Add(Bootstrap.Run(backend, h, fit.Theta, resamples, unchecked(request.Seed + 7 * m),
+                    done => progress?.Report(new FitProgress(stage, done, resamples)), cancel));
             }
-            if (request.CrossValidationFolds > 1 && h.K > 0)
-                cvs.Add(CrossValidation.Run(h, obs, request.CrossValidationFolds, unchecked(request.Seed + 13 * m), fit.Theta));
+            if (foldOf is not null && h.K > 0)
+                cvs.Add(CrossValidation.Run(backend, h, foldOf, cvFolds, fit.Theta));
             if (request.ProfileParameter is { } pp && h.FreeParameters.Any(p => p.Name == pp))
-                profiles.Add(ProfileLikelihood.Run(h, obs, fit, pp));
+                profiles.Add(ProfileLikelihood.Run(backend, h, fit, pp));
             m++;
             progress?.Report(new FitProgress($"fitted {h.Label}", m, request.Hypotheses.Count));
         }
         var ranked = ModelComparison.Rank(summaries);
         var first = request.Hypotheses[0].Nuisance;
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
+        notes.AddRange(extraNotes);
+        if (ranked.Count > 1 && ranked[0].Tied)
+            notes.Insert(0, $"models {string.Join(", ", ranked.Where(r => r.Rank == 1).Select(r => r.Name))} tie (AIC and BIC equal within {ModelComparison.TieTolerance}): none is ranked first");
+        if (!backend.Concurrent)
+            notes.Add($"fitted on {backend.Description}: each rank summed the likelihood of its own rows in fixed chunks and one Allreduce per evaluation gathered the chunk sums, added in one order, so every number is the same for any number of ranks");
+        if (request.Bootstrap > 0)
+            notes.Add("the bootstrap is a Poisson bootstrap: each replicate weights every row by a Poisson(1) count drawn from (seed, replicate, row), so it does not depend on the number of ranks");
         if (first.Observable != ObservableKind.SurfaceBrightness && obs.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
             notes.Insert(Math.Min(2, notes.Count), "sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
         return new StudyResult
         {
             Source = request.Source,
-            RowsRead = request.RowsRead ?? obs.Count + request.Rejected,
-            Accepted = obs.Count,
+            RowsRead = request.RowsRead ?? total + request.Rejected,
+            Accepted = total,
             Rejected = request.Rejected,
             Seed = request.Seed,
             Settings = new FitSettings(
                 first.Observable switch { ObservableKind.Size => "size", ObservableKind.SurfaceBrightness => "sb", _ => "joint" },
-                first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(obs.Count),
+                first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
                 request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
                 request.ProfileParameter, request.Expected, request.Seed),
             Models = ranked,
@@ -94,13 +126,15 @@ public static class FitStudy
             RequiredEvolution = required,
             Bootstrap = boots,
             CrossValidation = cvs,
+            CrossValidationDifferences = CrossValidationComparison.Compare(cvs),
             Profiles = profiles,
             Notes = notes,
             Samples = samples,
+            Chains = chains,
         };
     }
 
-    /// <summary>The caveats FitStudy adds to every study (shared with the distributed study).</summary>
+    /// <summary>The caveats FitStudy adds to every study.</summary>
     internal static List<string> StudyNotes(IReadOnlyList<Hypothesis> hypotheses, IReadOnlyList<ModelFitSummary> ranked, string sampler)
     {
         var first = hypotheses[0].Nuisance;

@@ -4,8 +4,10 @@ namespace SizeTest.Inference;
 public static class FitSummaries
 {
     /// <summary>
-    /// Every parameter with its value and 68% interval (Hessian ±1σ, clipped to the bounds; fixed parameters have
-    /// lo = hi = value), ln L̂, k, n and AIC, AICc, BIC. Comparison fields are filled by <see cref="ModelComparison.Rank"/>.
+    /// Every parameter with its value and 68% interval (Hessian ±1σ, clipped to the bounds, <c>interval_method</c>
+    /// hessian; a parameter whose maximum is on a bound is flagged <c>at_bound</c> and its interval starts at that bound;
+    /// fixed parameters have lo = hi = value and method <c>fixed</c>; <see cref="IntervalAssessment"/> replaces
+    /// intervals by profile ones where needed), ln L̂, k, n and AIC, AICc, BIC. Comparison fields are filled by <see cref="ModelComparison.Rank"/>.
     /// </summary>
     public static ModelFitSummary From(HypothesisLikelihood likelihood, MaximumLikelihoodResult fit, string? name = null)
     {
@@ -29,15 +31,20 @@ public static class FitSummaries
             {
                 // A "not given" default (NaN, e.g. omega_lambda = flat) is reported as the value the model derived.
                 double fixedValue = double.IsNaN(p.Value) ? DerivedValue(h, values, p.Name) : p.Value;
-                list.Add(new ParameterEstimate(p.Name, fixedValue, fixedValue, fixedValue, true, p.Spec.Unit));
+                list.Add(new ParameterEstimate(p.Name, fixedValue, fixedValue, fixedValue, true, p.Spec.Unit, IntervalMethods.Fixed));
                 continue;
             }
             double se = fit.StandardError(j);
             double v = values[i];
             double lo = double.IsFinite(se) ? Math.Max(p.Min, v - se) : double.NaN;
             double hi = double.IsFinite(se) ? Math.Min(p.Max, v + se) : double.NaN;
-            if (fit.AtBound[j]) { lo = v <= p.Min + 1e-6 * (p.Max - p.Min) ? p.Min : lo; hi = v >= p.Max - 1e-6 * (p.Max - p.Min) ? p.Max : hi; }
-            list.Add(new ParameterEstimate(p.Name, v, lo, hi, false, p.Spec.Unit));
+            string? atBound = null;
+            if (fit.AtBound[j])
+            {
+                atBound = v - p.Min <= p.Max - v ? "lower" : "upper";
+                if (atBound == "lower") lo = p.Min; else hi = p.Max;
+            }
+            list.Add(new ParameterEstimate(p.Name, v, lo, hi, false, p.Spec.Unit, IntervalMethods.Hessian, atBound));
             j++;
         }
         int k = h.K, n = objects;

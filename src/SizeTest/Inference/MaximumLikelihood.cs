@@ -1,15 +1,16 @@
-using MathNet.Numerics.LinearAlgebra;
-using MathNet.Numerics.Optimization;
-
 namespace SizeTest.Inference;
 
 /// <summary>
-/// Bounded multi-start maximum likelihood: Nelder–Mead simplex (MathNet.Numerics) in logistic-transformed
-/// coordinates (<see cref="BoundedTransform"/>), restarted from the best point until it stops improving,
-/// then a numerical Hessian for the covariance and a convergence verdict.
+/// Bounded multi-start maximum likelihood: projected L-BFGS-B (<see cref="ProjectedLbfgs"/>) on the analytic gradient from
+/// every start, a fresh restart from the best point, then the Hessian (<see cref="NumericalHessian"/>: differences of the
+/// gradient, Cholesky for definiteness) for the covariance, and a convergence verdict from the optimiser's exit, the
+/// size of the remaining gradient in standard deviations, the agreement of the starts and the Hessian.
 /// </summary>
 public static class MaximumLikelihood
 {
+    /// <summary>The largest remaining gradient step, in standard deviations (√(gᵀ C g) with C the covariance), for a converged fit.</summary>
+    public const double MaxGradientSigma = 0.01;
+
     /// <summary>Fits <paramref name="likelihood"/> (maximising its <see cref="HypothesisLikelihood.Posterior"/>).</summary>
     /// <param name="likelihood">The bound hypothesis.</param>
     /// <param name="settings">Starts, seed and tolerances.</param>
@@ -25,7 +26,8 @@ public static class MaximumLikelihood
     /// <summary>
     /// The same search for a likelihood given as any <see cref="ILogDensity"/> (e.g. a sum over MPI ranks): maximises
     /// <paramref name="posterior"/> over the bounds of <paramref name="free"/> from <paramref name="start"/>, and reports ln L
-    /// from <paramref name="likelihood"/>.
+    /// from <paramref name="likelihood"/>. When <paramref name="posterior"/> is an <see cref="ILogDensityWithGradient"/> its
+    /// gradient is used; otherwise central differences of its values (h = 10⁻⁶·max(|θ|, 10⁻³·range)).
     /// </summary>
     /// <param name="likelihood">ln L over the free parameters (data only).</param>
     /// <param name="posterior">ln L + ln prior, the objective.</param>
@@ -44,115 +46,135 @@ public static class MaximumLikelihood
         int d = free.Count;
         var min = free.Select(p => p.Min).ToArray();
         var max = free.Select(p => p.Max).ToArray();
-        var post = posterior;
+        var names = free.Select(p => p.Name).ToArray();
         if (d == 0)
         {
             double ll0 = likelihood.LogDensity([]);
             bool ok = double.IsFinite(ll0);
-            return new MaximumLikelihoodResult([], ll0, post.LogDensity([]), ok,
-                ok ? "nothing to fit: every parameter is fixed" : "the likelihood is not finite at the fixed parameters", 1, 1, 1, new double[0, 0], []);
+            return new MaximumLikelihoodResult([], ll0, posterior.LogDensity([]), ok,
+                ok ? "nothing to fit: every parameter is fixed" : "the likelihood is not finite at the fixed parameters", 1, 1, 1, new double[0, 0], [])
+            { Exit = OptimizerExit.Converged, ConditionNumber = 1 };
         }
-        var tr = new BoundedTransform(min, max);
+        var post = posterior as ILogDensityWithGradient ?? new CentralDifferenceGradient(posterior, min, max);
         int evals = 0;
-        var xbuf = new double[d];
-        double Objective(Vector<double> u)
+        double Objective(double[] x, double[] g)
         {
-            evals++;
-            tr.ToBounded(u.AsArray() ?? u.ToArray(), xbuf);
-            double v = -post.LogDensity(xbuf);
-            return double.IsFinite(v) ? v : 1e300;
+            Interlocked.Increment(ref evals);
+            double v = post.LogDensityAndGradient(x, g);
+            for (int j = 0; j < g.Length; j++) g[j] = -g[j];
+            return double.IsFinite(v) ? -v : double.PositiveInfinity;
         }
-        var objective = ObjectiveFunction.Value(Objective);
-        var x0 = start;
+
+        // Starts: the given one, and seeded Gaussian perturbations of it in the logistic coordinates of the box.
+        var tr = new BoundedTransform(min, max);
         var u0 = new double[d];
-        tr.ToUnbounded(x0, u0);
+        tr.ToUnbounded(start, u0);
         var rng = new Random(settings.Seed);
-        var starts = new List<double[]> { u0 };
+        var starts = new List<double[]> { start.Select((v, j) => Math.Clamp(v, min[j], max[j])).ToArray() };
         for (int s = 1; s < settings.Starts; s++)
-            starts.Add(u0.Select(v => v + Gaussian(rng)).ToArray());
-
-        var ends = new List<(double[] U, double F, string Reason)>();
-        foreach (var s in starts) ends.Add(RunOnce(objective, s, settings));
-        var best = ends.OrderBy(e => e.F).First();
-        int agreeing = ends.Count(e => e.F - best.F < settings.AgreementTolerance);
-
-        // Restart from the best point: Nelder–Mead can stall on a ridge; a fresh simplex must not improve.
-        int restarts = 0;
-        bool stable = false;
-        string reason = best.Reason;
-        while (restarts < 4)
         {
-            var r = RunOnce(objective, best.U, settings);
-            restarts++;
-            bool improved = r.F < best.F - 1e-6 * Math.Max(1, Math.Abs(best.F));
-            if (r.F < best.F) best = r;
-            reason = r.Reason;
-            if (!improved) { stable = true; break; }
+            var u = u0.Select(v => v + Gaussian(rng)).ToArray();
+            var x = new double[d];
+            tr.ToBounded(u, x);
+            starts.Add(x);
         }
+        var ends = starts.Select(s => ProjectedLbfgs.Minimize(Objective, s, min, max, settings.MaxIterations, settings.Tolerance)).ToList();
+        var best = ends.Where(e => double.IsFinite(e.Value)).OrderBy(e => e.Value).FirstOrDefault() ?? ends[0];
+        int agreeing = ends.Count(e => e.Value - best.Value < settings.AgreementTolerance);
 
-        var theta = new double[d];
-        tr.ToBounded(best.U, theta);
+        // A fresh run from the best point (new curvature memory) must not improve it.
+        var again = ProjectedLbfgs.Minimize(Objective, best.X, min, max, settings.MaxIterations, settings.Tolerance);
+        bool stable = !(again.Value < best.Value - 1e-6 * Math.Max(1, Math.Abs(best.Value)));
+        if (again.Value < best.Value) best = again;
+        var exit = again.Exit == OptimizerExit.Converged || !stable ? again.Exit : best.Exit;
+
+        var theta = best.X;
         var atBound = new bool[d];
         for (int j = 0; j < d; j++)
             atBound[j] = Math.Min(theta[j] - min[j], max[j] - theta[j]) <= 1e-6 * (max[j] - min[j]);
         var active = atBound.Select(b => !b).ToArray();
-        double[,]? cov = null;
+        HessianAnalysis? analysis = null;
+        double gradSigma = double.NaN;
         if (covariance)
         {
-            var (hess, he) = FiniteDifferenceHessian.Compute(post, theta, min, max, active);
+            var (hess, he) = NumericalHessian.Compute(post, theta, min, max, active);
             evals += he;
-            cov = FiniteDifferenceHessian.Covariance(hess, active);
+            analysis = NumericalHessian.Analyse(hess, active, names, theta);
+            if (analysis.Covariance is { } c)
+            {
+                double q = 0;
+                for (int j = 0; j < d; j++)
+                    for (int k = 0; k < d; k++)
+                        if (active[j] && active[k]) q += best.Gradient[j] * c[j, k] * best.Gradient[k];
+                gradSigma = Math.Sqrt(Math.Max(0, q));
+            }
         }
         double ll = likelihood.LogDensity(theta);
         double lp = post.LogDensity(theta);
         evals += 2;
 
-        bool optimiserOk = reason == "converged" && double.IsFinite(ll);
-        bool converged = optimiserOk && stable && (cov is not null || !covariance);
+        bool optimiserOk = exit is OptimizerExit.Converged or OptimizerExit.NoFurtherProgress && double.IsFinite(ll);
+        bool gradientOk = !covariance || (analysis?.Covariance is not null && gradSigma <= MaxGradientSigma);
+        bool converged = optimiserOk && stable && gradientOk;
         var words = new List<string>();
         if (!double.IsFinite(ll)) words.Add("the likelihood is not finite anywhere the search went (check the data against the model)");
-        else if (!optimiserOk) words.Add($"Nelder–Mead stopped without meeting its tolerance ({reason})");
-        else if (!stable) words.Add("restarts kept improving the maximum (a ridge or a very flat likelihood)");
-        if (double.IsFinite(ll) && cov is null && covariance)
-            words.Add("the Hessian is not negative definite (a parameter is unconstrained or degenerate with another, e.g. r0_kpc with h0)");
+        else if (!optimiserOk) words.Add($"L-BFGS-B stopped without meeting its tolerance ({Words(exit)})");
+        else if (!stable) words.Add("a restart from the best point kept improving the maximum (a ridge or a very flat likelihood)");
+        if (double.IsFinite(ll) && covariance && analysis?.Covariance is null)
+            words.Add(analysis?.Degeneracy ?? "the curvature matrix is not positive definite");
+        else if (double.IsFinite(ll) && covariance && gradSigma > MaxGradientSigma)
+            words.Add(FormattableString.Invariant($"the gradient at the maximum is still {gradSigma:g2} standard deviations long"));
         var bounds = Enumerable.Range(0, d).Where(j => atBound[j]).Select(j => free[j].Name).ToArray();
         string summary = converged
-            ? $"converged: Nelder–Mead met the relative tolerance {settings.Tolerance:g2}, a restart did not improve it, {agreeing} of {starts.Count} starts agree" + (covariance ? ", Hessian negative definite" : "")
+            ? FormattableString.Invariant($"converged: L-BFGS-B ({Words(exit)}), a restart did not improve it, {agreeing} of {starts.Count} starts agree")
+              + (covariance ? FormattableString.Invariant($", remaining gradient {gradSigma:g2} σ, Hessian negative definite (Cholesky; condition number {analysis!.ConditionNumber:g3})") : "")
             : "not converged: " + string.Join("; ", words);
         if (bounds.Length > 0) summary += $"; at a bound: {string.Join(", ", bounds)} (its interval is one-sided)";
-        return new MaximumLikelihoodResult(theta, ll, lp, converged, summary, evals, agreeing, starts.Count, cov, atBound);
+        return new MaximumLikelihoodResult(theta, ll, lp, converged, summary, evals, agreeing, starts.Count, analysis?.Covariance, atBound)
+        {
+            Exit = exit,
+            GradientSigma = gradSigma,
+            Correlation = analysis?.Correlation,
+            ConditionNumber = analysis?.ConditionNumber ?? double.NaN,
+            Degeneracy = analysis?.Degeneracy,
+        };
     }
 
-    private static (double[] U, double F, string Reason) RunOnce(IObjectiveFunction objective, double[] u0, OptimizerSettings s)
+    private static string Words(OptimizerExit e) => e switch
     {
-        var nm = new NelderMeadSimplex(s.Tolerance, s.MaxIterations);
-        var init = Vector<double>.Build.DenseOfArray(u0);
-        var pert = Vector<double>.Build.Dense(u0.Length, s.InitialStep);
-        try
-        {
-            var r = nm.FindMinimum(objective, init, pert);
-            string reason = r.ReasonForExit == ExitCondition.Converged ? "converged" : Words(r.ReasonForExit);
-            return (r.MinimizingPoint.ToArray(), r.FunctionInfoAtMinimum.Value, reason);
-        }
-        catch (MaximumIterationsException)
-        {
-            objective.EvaluateAt(init);
-            return (u0, objective.Value, $"hit the iteration cap of {s.MaxIterations}");
-        }
-    }
-
-    private static string Words(ExitCondition c) => c switch
-    {
-        ExitCondition.ExceedIterations => "hit the iteration cap",
-        ExitCondition.InvalidValues => "the objective returned invalid values",
-        ExitCondition.LackOfProgress => "no further progress",
-        ExitCondition.ManuallyStopped => "stopped",
-        _ => c.ToString(),
+        OptimizerExit.Converged => "projected-gradient decrement below tolerance",
+        OptimizerExit.NoFurtherProgress => "no further progress in ln L",
+        OptimizerExit.IterationLimit => "hit the iteration cap",
+        OptimizerExit.LineSearchFailed => "the line search found no decrease",
+        _ => "the objective is not finite at the start",
     };
 
     private static double Gaussian(Random rng)
     {
         double u1 = 1.0 - rng.NextDouble(), u2 = rng.NextDouble();
         return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
+    }
+
+    // Gradient by central differences for densities that have none (e.g. a plain ILogDensity summed over ranks).
+    private sealed class CentralDifferenceGradient(ILogDensity f, double[] min, double[] max) : ILogDensityWithGradient
+    {
+        public int Dimension => f.Dimension;
+        public double LogDensity(ReadOnlySpan<double> theta) => f.LogDensity(theta);
+        public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
+        {
+            var p = theta.ToArray();
+            double v = f.LogDensity(p);
+            if (!double.IsFinite(v)) { gradient.Clear(); return double.NegativeInfinity; }
+            for (int j = 0; j < p.Length; j++)
+            {
+                double pj = p[j], h = 1e-6 * Math.Max(Math.Abs(pj), 1e-3 * (max[j] - min[j]));
+                double hi = Math.Min(pj + h, max[j]), lo = Math.Max(pj - h, min[j]);
+                p[j] = hi; double fp = f.LogDensity(p);
+                p[j] = lo; double fm = f.LogDensity(p);
+                p[j] = pj;
+                gradient[j] = double.IsFinite(fp) && double.IsFinite(fm) ? (fp - fm) / (hi - lo) : 0;
+            }
+            return v;
+        }
     }
 }

@@ -2,7 +2,7 @@ namespace SizeTest.Inference;
 
 /// <summary>
 /// The reported outcome of fitting one hypothesis (world model + nuisance model) to a sample:
-/// the <c>models[]</c> entry of <c>results.json</c> (schema in design.md and the README).
+/// the <c>models[]</c> entry of <c>results.json</c> (schema in docs/results-schema.md).
 /// Comparison fields (ΔBIC, weights) are filled in by the model comparison.
 /// </summary>
 public sealed record ModelFitSummary
@@ -37,4 +37,12 @@ public sealed record ModelFitSummary
     public required bool Converged { get; init; }
     /// <summary>Why the fit stopped or failed, in words.</summary>
     public string ExitReason { get; init; } = "";
+    /// <summary>Rank by BIC (1 = best). Models whose criteria agree within <see cref="ModelComparison.TieTolerance"/>
+    /// share a rank (0 before ranking).</summary>
+    public int Rank { get; init; }
+    /// <summary>True when another model shares this model's rank (a tie: no order between them).</summary>
+    public bool Tied { get; init; }
+    /// <summary>The distinct maxima of the likelihood within Δ ln L &lt; 2 of the best, best first, when the fit is
+    /// multimodal; empty otherwise (see <see cref="ModeSearch"/>).</summary>
+    public IReadOnlyList<FitMode> Modes { get; init; } = [];
 }

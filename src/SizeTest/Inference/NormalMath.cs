@@ -29,6 +29,55 @@ public static class NormalMath
         return -0.5 * x * x - Math.Log(-x) - LnSqrt2Pi + Math.Log(1 - x2 + 3 * x2 * x2 - 15 * x2 * x2 * x2);
     }
 
+    /// <summary>
+    /// d ln Φ(x)/dx = φ(x)/Φ(x) (the inverse Mills ratio of −x), computed as exp(ln φ(x) − ln Φ(x)) with the stable
+    /// <see cref="LogPhi"/>, so it tends to −x for x → −∞ and to 0 for x → +∞.
+    /// </summary>
+    public static double LogPhiDerivative(double x)
+    {
+        if (double.IsNaN(x)) return double.NaN;
+        if (x > 38) return 0;
+        return Math.Exp(-0.5 * x * x - LnSqrt2Pi - LogPhi(x));
+    }
+
+    /// <summary>Standard bivariate normal density φ₂(h, k; ρ) = exp(−(h² − 2ρhk + k²)/(2(1−ρ²))) / (2π√(1−ρ²)).</summary>
+    public static double BivariateDensity(double h, double k, double rho)
+    {
+        double om = (1 - rho) * (1 + rho);
+        return Math.Exp(-(h * h - 2 * rho * h * k + k * k) / (2 * om)) / (2 * Math.PI * Math.Sqrt(om));
+    }
+
+    /// <summary>
+    /// ln Φ₂(h, k; ρ) as <see cref="LogBivariatePhi(double, double, double)"/>, with its partial derivatives from the closed forms
+    /// ∂Φ₂/∂h = φ(h) Φ((k − ρh)/√(1−ρ²)), ∂Φ₂/∂k = φ(k) Φ((h − ρk)/√(1−ρ²)) and ∂Φ₂/∂ρ = φ₂(h, k; ρ)
+    /// (Plackett 1954; e.g. Genz &amp; Bretz 2009 §2.1), each divided by Φ₂. In the deep tail where the probability
+    /// underflows the derivatives are those of the univariate bound used for the value.
+    /// </summary>
+    public static double LogBivariatePhi(double h, double k, double rho, out double dh, out double dk, out double drho)
+    {
+        double p = BivariatePhi(h, k, rho);
+        if (p > 1e-280 && Math.Abs(rho) < 1)
+        {
+            double sq = Math.Sqrt((1 - rho) * (1 + rho));
+            const double InvSqrt2Pi = 0.3989422804014327;
+            dh = InvSqrt2Pi * Math.Exp(-0.5 * h * h) * Phi((k - rho * h) / sq) / p;
+            dk = InvSqrt2Pi * Math.Exp(-0.5 * k * k) * Phi((h - rho * k) / sq) / p;
+            drho = BivariateDensity(h, k, rho) / p;
+            return Math.Log(p);
+        }
+        dh = dk = drho = 0;
+        double lh = LogPhi(h), lk = LogPhi(k), value;
+        if (lh <= lk) { value = lh; dh = LogPhiDerivative(h); }
+        else { value = lk; dk = LogPhiDerivative(k); }
+        if (rho < 0)
+        {
+            double mx = Math.Max(h, k);
+            value += LogPhi(mx);
+            if (h >= k) dh += LogPhiDerivative(mx); else dk += LogPhiDerivative(mx);
+        }
+        return value;
+    }
+
     // Gauss–Legendre nodes/weights on [−1, 1] (positive half), 6, 12 and 20 points (Abramowitz & Stegun 1964, Table 25.4).
     private static readonly double[] W6 = [0.1713244923791705, 0.3607615730481384, 0.4679139345726904];
     private static readonly double[] X6 = [0.9324695142031522, 0.6612093864662647, 0.2386191860831970];

@@ -6,8 +6,14 @@ namespace SizeTest.Inference;
 /// <param name="Model">Model name.</param>
 /// <param name="Sampler"><c>mcmc</c> or <c>nested</c>.</param>
 /// <param name="ParameterNames">Free-parameter names, in column order.</param>
-/// <param name="Rows">Nested sampling: the weighted samples (θ…, ln L, ln weight); MCMC: empty (the chain store has it).</param>
-public sealed record PosteriorDraws(string Model, string Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows);
+/// <param name="Rows">Nested sampling: the weighted samples (θ…, ln L, ln weight); MCMC: the kept draws after the burn-in
+/// (θ…, ln posterior), every walker at every step, thinned by a whole stride to at most <see cref="PosteriorSampling.MaxKeptDraws"/>
+/// rows — the draws the corner plot shows (the full chain goes to the chain store).</param>
+public sealed record PosteriorDraws(string Model, string Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows)
+{
+    /// <summary>MCMC: the run's length, burn-in and convergence numbers; null for nested sampling.</summary>
+    public ChainSummary? Chain { get; init; }
+}
 
 /// <summary>
 /// Runs the samplers of <c>Inference/Sampling</c> on a fitted hypothesis and folds their results into the
@@ -17,6 +23,9 @@ public sealed record PosteriorDraws(string Model, string Sampler, IReadOnlyList<
 /// </summary>
 public static class PosteriorSampling
 {
+    /// <summary>Most MCMC draws kept in <see cref="PosteriorDraws.Rows"/> (for figures).</summary>
+    public const int MaxKeptDraws = 4000;
+
     /// <summary>Samples the posterior of <paramref name="likelihood"/> starting from the fit.</summary>
     /// <param name="likelihood">The bound hypothesis.</param>
     /// <param name="fit">Its maximum-likelihood fit.</param>
@@ -73,12 +82,17 @@ public static class PosteriorSampling
                 return double.IsFinite(se) && se > 0 ? Math.Min(se, 0.1 * (p.Max - p.Min)) : 1e-3 * (p.Max - p.Min);
             }).ToArray();
             var start = EnsembleSampler.GaussianBall(posterior, fit.Theta, scale, request.Walkers, seed);
+            bool auto = request.Steps <= 0;
+            int maxSteps = auto ? Math.Max(request.MaxSteps, 10) : request.Steps;
+            ChainMemory.Check(request.Walkers, maxSteps, d, request.ChainMemoryBudget);
             var sampler = new EnsembleSampler(posterior, new EnsembleSamplerOptions
             {
                 Walkers = request.Walkers,
-                Steps = request.Steps,
+                Steps = auto ? Math.Min(ChainMemory.FirstBlockSteps, maxSteps) : request.Steps,
+                MaxSteps = auto ? maxSteps : null,
                 Seed = seed,
                 ParameterNames = names,
+                MaxDegreeOfParallelism = request.Backend is { Concurrent: false } ? 1 : -1,
             });
             var store = request.ChainStoreFactory?.Invoke(label);
             EnsembleRun run;
@@ -95,11 +109,22 @@ public static class PosteriorSampling
             p50 = j => run.Percentile(j, 50);
             p84 = j => run.Percentile(j, 84);
             converged = run.Converged;
-            verdict = $"ensemble MCMC ({request.Walkers} walkers × {request.Steps} steps, acceptance {run.AcceptanceFraction:0.00}): {run.Diagnostics.Verdict.Summary}";
+            int stepsRun = run.Chain.Steps;
+            var diag = run.Diagnostics;
+            string length = auto
+                ? (converged ? $"ran to convergence: {stepsRun} steps" : $"not converged within --max-steps {maxSteps}: {stepsRun} steps")
+                : $"{stepsRun} steps (fixed)";
+            verdict = $"ensemble MCMC ({request.Walkers} walkers, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
             if (LaplaceEvidence.TryCompute(likelihood, priors, fit.Theta, out var laplace, out var failure))
                 lnZ = laplace.LogEvidence;
             else verdict += $"; Laplace evidence not available ({failure})";
-            samples = new PosteriorDraws(label, "mcmc", names, []);
+            double maxTau = diag.MaxTau;
+            var chain = new ChainSummary(label, request.Walkers, stepsRun, run.BurnIn, auto, maxSteps, converged,
+                maxTau, double.IsFinite(maxTau) && maxTau > 0 ? diag.Steps / maxTau : double.NaN,
+                diag.Parameters.Count == 0 ? double.NaN : diag.Parameters.Max(p => p.SplitRhat),
+                diag.Parameters.Count == 0 ? double.NaN : diag.Parameters.Min(p => p.MinEss),
+                run.AcceptanceFraction);
+            samples = new PosteriorDraws(label, "mcmc", names, KeptDraws(run)) { Chain = chain };
         }
         else if (request.Sampler == "nested")
         {
@@ -138,8 +163,30 @@ public static class PosteriorSampling
         }, samples);
     }
 
+    // The kept draws (after burn-in), every walker, thinned by a whole stride to at most MaxKeptDraws rows: θ…, ln p.
+    private static double[][] KeptDraws(EnsembleRun run)
+    {
+        var flat = run.Chain.GetFlatChain(run.BurnIn, run.Thin);
+        var lnp = run.Chain.GetFlatLogProbabilities(run.BurnIn, run.Thin);
+        int stride = Math.Max(1, (flat.Length + MaxKeptDraws - 1) / MaxKeptDraws);
+        var rows = new List<double[]>(flat.Length / stride + 1);
+        for (int i = 0; i < flat.Length; i += stride) rows.Add([.. flat[i], lnp[i]]);
+        return rows.ToArray();
+    }
+
     private sealed class Progress(IProgress<FitProgress>? sink, string stage) : IProgress<SamplerProgress>
     {
-        public void Report(SamplerProgress value) => sink?.Report(new FitProgress(stage, value.Step, value.TotalSteps));
+        public void Report(SamplerProgress value)
+        {
+            if (sink is null) return;
+            var words = new List<string>();
+            if (value.Tau is { } tau && double.IsFinite(tau)) words.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture, $"τ {tau:0}"));
+            if (value.Step > 0 && value.TotalSteps > value.Step)
+            {
+                double left = value.Elapsed.TotalSeconds / value.Step * (value.TotalSteps - value.Step);
+                words.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture, $"about {(left < 90 ? $"{left:0} s" : $"{left / 60:0} min")} left"));
+            }
+            sink.Report(new FitProgress(stage, value.Step, value.TotalSteps) { Detail = words.Count > 0 ? string.Join(", ", words) : null });
+        }
     }
 }

@@ -12,52 +12,46 @@ public sealed record ProfilePoint(double Value, double LogLikelihood, bool Conve
 /// <param name="Model">Model name.</param>
 /// <param name="Parameter">Profiled parameter.</param>
 /// <param name="Points">The curve, ascending in value.</param>
-/// <param name="Lo">Lower end of the Δ ln L = ½ interval (NaN when the curve does not reach it).</param>
-/// <param name="Hi">Upper end.</param>
+/// <param name="Lo">Lower end of the Δ ln L = ½ interval (the lower bound when the profile stays above the level down to it).</param>
+/// <param name="Hi">Upper end (likewise).</param>
 public sealed record ProfileLikelihoodResult(string Model, string Parameter, IReadOnlyList<ProfilePoint> Points, double Lo, double Hi);
 
 /// <summary>Profile likelihood: fix one parameter on a grid, maximise over the others (Wilks 1938: Δ ln L = ½ ↔ 68%).</summary>
 public static class ProfileLikelihood
 {
-    /// <summary>Profiles <paramref name="parameter"/> on <paramref name="points"/> values spanning ±3σ around the best fit.</summary>
-    public static ProfileLikelihoodResult Run(Hypothesis hypothesis, Observables observables, MaximumLikelihoodResult best, string parameter, int points = 21)
+    /// <summary>
+    /// Profiles <paramref name="parameter"/> over its whole bounded range: <paramref name="points"/> values spanning the
+    /// bounds (evenly, or evenly in ln for a positive range wider than a factor 100) plus 21 values over ±3σ of the
+    /// maximum, each refit warm-started from its neighbour, then the outermost Δ ln L = ½ crossings refined by bisection
+    /// (<see cref="ProfileInterval"/>). With several maxima the interval is the hull of the Δ ln L ≤ ½ region.
+    /// </summary>
+    public static ProfileLikelihoodResult Run(Hypothesis hypothesis, Observables observables, MaximumLikelihoodResult best, string parameter, int points = ModeSearch.DefaultGridPoints)
     {
+        ArgumentNullException.ThrowIfNull(observables);
+        return Run(Evaluation.EvaluationBackend.InProcess(observables), hypothesis, best, parameter, points);
+    }
+
+    /// <summary>As <see cref="Run(Hypothesis, Observables, MaximumLikelihoodResult, string, int)"/> with every refit on
+    /// <paramref name="backend"/> (threads, or MPI ranks).</summary>
+    public static ProfileLikelihoodResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, MaximumLikelihoodResult best, string parameter, int points = ModeSearch.DefaultGridPoints)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(best);
-        int j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
-        if (j < 0) throw new ArgumentException($"parameter '{parameter}' is not free in model '{hypothesis.Label}', so it cannot be profiled");
-        var spec = hypothesis.FreeParameters[j];
+        var refit = new ProfileRefit(backend, hypothesis, parameter);
+        int j = refit.Index;
         double se = best.StandardError(j);
-        if (!double.IsFinite(se) || se <= 0) se = 0.05 * (spec.Max - spec.Min);
-        double lo = Math.Max(spec.Min, best.Theta[j] - 3 * se), hi = Math.Min(spec.Max, best.Theta[j] + 3 * se);
-        var values = Enumerable.Range(0, points).Select(i => lo + (hi - lo) * i / (points - 1)).ToArray();
-        var result = new ProfilePoint[points];
-        Parallel.For(0, points, i =>
-        {
-            var h = hypothesis.WithFixed(parameter, values[i]);
-            var lik = h.Bind(observables);
-            var start = best.Theta.Where((_, k) => k != j).ToArray();
-            var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1), start, covariance: false);
-            result[i] = new ProfilePoint(values[i], fit.LogLikelihood, fit.Converged);
-        });
-        double top = Math.Max(best.LogLikelihood, result.Max(p => p.LogLikelihood));
-        double Crossing(IEnumerable<int> order)
-        {
-            int? prev = null;
-            foreach (var i in order)
-            {
-                if (prev is { } p && result[p].LogLikelihood >= top - 0.5 && result[i].LogLikelihood < top - 0.5)
-                {
-                    double f = (result[p].LogLikelihood - (top - 0.5)) / (result[p].LogLikelihood - result[i].LogLikelihood);
-                    return values[p] + f * (values[i] - values[p]);
-                }
-                prev = i;
-            }
-            return double.NaN;
-        }
-        int peak = Array.FindIndex(values, v => v >= best.Theta[j]);
-        if (peak < 0) peak = points - 1;
-        return new ProfileLikelihoodResult(hypothesis.Label, parameter, result,
-            Crossing(Enumerable.Range(0, peak + 1).Reverse()), Crossing(Enumerable.Range(peak, points - peak)));
+        double range = refit.Max - refit.Min;
+        if (!double.IsFinite(se) || se <= 0) se = 0.05 * range;
+        double lo = Math.Max(refit.Min, best.Theta[j] - 3 * se), hi = Math.Min(refit.Max, best.Theta[j] + 3 * se);
+        var grid = ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, Math.Max(2, points))
+            .Concat(Enumerable.Range(0, 21).Select(i => lo + (hi - lo) * i / 20))
+            .Distinct().Order().ToArray();
+        var scan = refit.Sweep(grid, best.Theta);
+        double top = ProfileRefit.Penalised(hypothesis, best.Theta, best.LogLikelihood);
+        var samples = scan.Append(new ProfileSample(best.Theta[j], top, best.LogLikelihood, best.Theta, best.Converged));
+        var cr = ProfileInterval.Find(refit, samples, se, top);
+        var curve = cr.Samples.Select(p => new ProfilePoint(p.Value, p.LogLikelihood, p.Converged)).ToArray();
+        return new ProfileLikelihoodResult(hypothesis.Label, parameter, curve, cr.Lo, cr.Hi);
     }
 }

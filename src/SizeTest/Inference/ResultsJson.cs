@@ -5,7 +5,8 @@ namespace SizeTest.Inference;
 
 /// <summary>
 /// Reads and writes <c>results.json</c>: snake_case keys, indented, non-finite numbers as <c>null</c>, and each
-/// model's <c>parameters</c> as an object keyed by parameter name with <c>{value, lo, hi, fixed, unit}</c>.
+/// model's <c>parameters</c> as an object keyed by parameter name with
+/// <c>{value, lo, hi, fixed, unit, interval_method, at_bound, regions}</c>.
 /// Output is deterministic: the same <see cref="StudyResult"/> always gives the same bytes.
 /// </summary>
 public static class ResultsJson
@@ -56,9 +57,15 @@ public static class ResultsJson
             foreach (var p in doc.RootElement.EnumerateObject())
             {
                 double D(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.Number ? e.GetDouble() : double.NaN;
-                list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"),
-                    p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean(),
-                    p.Value.TryGetProperty("unit", out var u) ? u.GetString() ?? "" : ""));
+                bool isFixed = p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean();
+                string? S(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.String ? e.GetString() : null;
+                var regions = new List<IntervalPiece>();
+                if (p.Value.TryGetProperty("regions", out var rg) && rg.ValueKind == JsonValueKind.Array)
+                    foreach (var r in rg.EnumerateArray())
+                        if (r.ValueKind == JsonValueKind.Array && r.GetArrayLength() == 2)
+                            regions.Add(new IntervalPiece(r[0].ValueKind == JsonValueKind.Number ? r[0].GetDouble() : double.NaN, r[1].ValueKind == JsonValueKind.Number ? r[1].GetDouble() : double.NaN));
+                list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"), isFixed, S("unit") ?? "",
+                    S("interval_method") ?? (isFixed ? IntervalMethods.Fixed : IntervalMethods.Hessian), S("at_bound")) { Regions = regions });
             }
             return list;
         }
@@ -70,12 +77,19 @@ public static class ResultsJson
             {
                 writer.WritePropertyName(p.Name);
                 writer.WriteStartObject();
+                void Num2(double v) { if (double.IsFinite(v)) writer.WriteNumberValue(v); else writer.WriteNullValue(); }
                 void Num(string k, double v) { writer.WritePropertyName(k); if (double.IsFinite(v)) writer.WriteNumberValue(v); else writer.WriteNullValue(); }
                 Num("value", p.Value);
                 Num("lo", p.Lo);
                 Num("hi", p.Hi);
                 writer.WriteBoolean("fixed", p.Fixed);
                 writer.WriteString("unit", p.Unit);
+                writer.WriteString("interval_method", p.IntervalMethod);
+                if (p.AtBound is null) writer.WriteNull("at_bound"); else writer.WriteString("at_bound", p.AtBound);
+                writer.WritePropertyName("regions");
+                writer.WriteStartArray();
+                foreach (var r in p.Regions) { writer.WriteStartArray(); Num2(r.Lo); Num2(r.Hi); writer.WriteEndArray(); }
+                writer.WriteEndArray();
                 writer.WriteEndObject();
             }
             writer.WriteEndObject();

@@ -60,10 +60,14 @@ public sealed record StudyResult
     public IReadOnlyList<BootstrapResult> Bootstrap { get; init; } = [];
     /// <summary>Cross-validated log predictive densities, when run.</summary>
     public IReadOnlyList<CrossValidationResult> CrossValidation { get; init; } = [];
+    /// <summary>Paired differences of cross-validated ln p from the best-scoring model (same folds for every model).</summary>
+    public IReadOnlyList<CrossValidationDifference> CrossValidationDifferences { get; init; } = [];
     /// <summary>Profile likelihoods, when requested.</summary>
     public IReadOnlyList<ProfileLikelihoodResult> Profiles { get; init; } = [];
     /// <summary>Caveats (degeneracies, conventions) for the reader.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+    /// <summary>One entry per model sampled by ensemble MCMC: chain length, burn-in and convergence numbers.</summary>
+    public IReadOnlyList<ChainSummary> Chains { get; init; } = [];
     /// <summary>Posterior samples for writing next to results.json (not serialised into it).</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public IReadOnlyList<PosteriorDraws> Samples { get; init; } = [];

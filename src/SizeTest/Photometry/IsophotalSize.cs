@@ -42,6 +42,25 @@ public sealed class IsophotalSize
         TryCore(_n, _scale, muEffObserved, isophote, out lnRatio);
 
     /// <summary>
+    /// ln(r_iso/R_e) as <see cref="TryLnRadiusRatio(double, double, out double)"/>, and its derivative with respect to the
+    /// observed SB at R_e: d ln(r_iso/R_e)/dμ_e,obs = −n·s/[1 + (μ_iso − μ_e,obs)·s], s = ln 10/(2.5 b_n) (differentiating
+    /// the class formula). Both −∞/0 when the isophote is not reached.
+    /// </summary>
+    public bool TryLnRadiusRatio(double muEffObserved, double isophote, out double lnRatio, out double slope)
+    {
+        double bracket = 1.0 + (isophote - muEffObserved) * _scale;
+        if (bracket > 0 && !double.IsNaN(bracket))
+        {
+            lnRatio = _n * Math.Log(bracket);
+            slope = -_n * _scale / bracket;
+            return true;
+        }
+        lnRatio = double.NegativeInfinity;
+        slope = 0;
+        return false;
+    }
+
+    /// <summary>
     /// Vectorised form: <paramref name="lnRatio"/>[i] = ln(r_iso/R_e) for each object, −∞ where the
     /// isophote is not reached. Returns the number of objects that reach the isophote.
     /// </summary>

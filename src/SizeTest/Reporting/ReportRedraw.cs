@@ -28,10 +28,15 @@ public static class ReportRedraw
         var content = ReportContent.From(data);
         bool inPlace = outDir is null || Path.GetFullPath(outDir) == Path.GetFullPath(reportDir);
         var target = inPlace ? reportDir : outDir!;
-        var folder = OutputFolder.Begin(target, force || inPlace);
+        // In place, every file the redraw does not write is carried over (whoever wrote it); elsewhere the
+        // target is an ordinary output folder and the report folder is an input.
+        var folder = inPlace
+            ? OutputFolder.Begin(target, force: true, keepForeignFiles: true)
+            : OutputFolder.Begin(target, force, [Path.Combine(reportDir, ReportDataJson.FileName)]);
         try
         {
-            CopyKept(reportDir, folder.Staging);
+            if (inPlace) CarryOverKept(folder);
+            else CopyKept(reportDir, folder.Staging);
             var files = new ReportPackWriter(options).WriteInto(folder.Staging, content);
             folder.Commit();
             return (target, files);
@@ -43,12 +48,29 @@ public static class ReportRedraw
         }
     }
 
+    // Carries over every file outside the redrawn outputs; a file inside them that sizetest did not write is refused.
+    private static void CarryOverKept(OutputFolder folder)
+    {
+        var options = new EnumerationOptions { RecurseSubdirectories = true, AttributesToSkip = 0 };
+        bool hasMarker = OutputFolder.ReadMarker(folder.Target) is not null;
+        foreach (var full in Directory.EnumerateFiles(folder.Target, "*", options))
+        {
+            var rel = Path.GetRelativePath(folder.Target, full).Replace('\\', '/');
+            if (rel == OutputFolder.MarkerFileName) continue;
+            var top = rel.Split('/')[0];
+            if (!ReportOutputs.Contains(top)) { folder.CarryOver(rel); continue; }
+            if (!hasMarker) { folder.Adopt(rel); continue; } // a folder from before markers: its report files are ours
+            if (!folder.PreviouslyOwned.Contains(rel))
+                throw new InputException($"report folder holds '{rel}', which sizetest did not write and a redraw would replace; move it away and rerun", folder.Target);
+        }
+    }
+
     private static void CopyKept(string from, string to)
     {
         foreach (var entry in Directory.EnumerateFileSystemEntries(from))
         {
             var name = Path.GetFileName(entry);
-            if (ReportOutputs.Contains(name)) continue;
+            if (ReportOutputs.Contains(name) || name == OutputFolder.MarkerFileName) continue;
             if (Directory.Exists(entry)) CopyTree(entry, Path.Combine(to, name));
             else File.Copy(entry, Path.Combine(to, name));
         }

@@ -12,7 +12,9 @@ namespace SizeTest.Simulation;
 /// <remarks>
 /// <para>ΔBIC = BIC(best other candidate) − BIC(true); BIC = k ln n − 2 ln L̂ (Schwarz 1978). Thresholds 6 and 10 are
 /// "strong" and "very strong" on the Kass &amp; Raftery (1995) scale for 2 ln B ≈ ΔBIC.</para>
-/// <para>Verdict per N: <c>decisive</c> when P(ΔBIC &gt; 10) ≥ target; <c>strong</c> when P(ΔBIC &gt; 6) ≥ target;
+/// <para>Verdict per N, in this order: withheld as <c>not interpretable: the true model is not recovered</c> when the true
+/// model's own fit fails to recover any parameter (|bias| &gt; 2 × spread, or coverage &lt; 40%; <see cref="RecoveryFailures"/>);
+/// <c>favours a wrong model</c> when the median ΔBIC is below −2; <c>decisive</c> when P(ΔBIC &gt; 10) ≥ target; <c>strong</c> when P(ΔBIC &gt; 6) ≥ target;
 /// <c>unable to decide</c> when the median ΔBIC is below 2 (Kass &amp; Raftery: "not worth more than a bare mention");
 /// otherwise <c>weak</c>.</para>
 /// <para>Determinism: mock k has seed <see cref="SimulationRandom.DeriveSeed"/>(base seed, k) at every N (so with the
@@ -64,7 +66,12 @@ public static class PowerAnalysis
         int? required = points.FirstOrDefault(p => p.Verdict == "decisive")?.SampleSize;
         string trueName = request.Candidates[trueIndex].Label;
         var last = points[^1];
-        string conclusion = required is { } r
+        var uninterpretable = points.Where(p => p.Verdict == NotInterpretable).ToArray();
+        string conclusion = uninterpretable.Length > 0 && required is null
+            ? FormattableString.Invariant($"{NotInterpretable} (at N = {string.Join(", ", uninterpretable.Select(p => p.SampleSize))}: {string.Join("; ", uninterpretable[^1].RecoveryFailures)}); the fitted model cannot describe these mocks (e.g. a selection that is not modelled), so no power is claimed")
+            : last.Verdict == FavoursWrongModel && required is null
+            ? FormattableString.Invariant($"favours a wrong model: at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3}, so mocks drawn from {trueName} prefer another candidate (the candidates or the mocks' selection are not what the fit assumes)")
+            : required is { } r
             ? FormattableString.Invariant($"a sample of N = {r} decides: the true model {trueName} wins by ΔBIC > 10 in {points.First(p => p.SampleSize == r).ProbabilityDecisive:P0} of mocks (target {request.TargetPower:P0})")
             : last.Verdict == "unable to decide"
                 ? FormattableString.Invariant($"unable to decide: even at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3} and the true model {trueName} wins by ΔBIC > 10 in only {last.ProbabilityDecisive:P0} of mocks; this design cannot tell the models apart (widen the redshift range, add objects, or constrain the evolution the models may use)")
@@ -193,8 +200,45 @@ public static class PowerAnalysis
             var halfWidths = withInterval.Select(e => 0.5 * (e.Hi - e.Lo)).Order().ToArray();
             rec.Add(new ParameterRecovery(name, t, m - t, sd / Math.Sqrt(values.Length), sd, halfWidths.Length > 0 ? Quantile(halfWidths, 0.5) : double.NaN, coverage, withInterval.Length));
         }
-        string verdict = p10 >= target ? "decisive" : p6 >= target ? "strong" : q[2] < 2 ? "unable to decide" : "weak";
-        return new PowerPoint(n, k, pBest, p6, p10, q, mean, rec, set.Count(o => !o.Converged), verdict);
+        var failures = RecoveryFailures(rec);
+        string verdict = Verdict(failures.Count > 0, q[2], p6, p10, target);
+        return new PowerPoint(n, k, pBest, p6, p10, q, mean, rec, set.Count(o => !o.Converged), verdict) { RecoveryFailures = failures };
+    }
+
+    /// <summary>The verdict withheld when the true model's own fit does not recover the truth.</summary>
+    public const string NotInterpretable = "not interpretable: the true model is not recovered";
+
+    /// <summary>The verdict when the median ΔBIC is below −2: the mocks, drawn from the true model, prefer another one.</summary>
+    public const string FavoursWrongModel = "favours a wrong model";
+
+    /// <summary>The verdict of one sample size (order as in the class remarks).</summary>
+    /// <param name="recoveryFailed">The true model failed to recover some parameter (<see cref="RecoveryFailures"/>).</param>
+    /// <param name="medianDeltaBic">Median ΔBIC over the mocks.</param>
+    /// <param name="probabilityStrong">P(ΔBIC &gt; 6).</param>
+    /// <param name="probabilityDecisive">P(ΔBIC &gt; 10).</param>
+    /// <param name="target">Target power.</param>
+    public static string Verdict(bool recoveryFailed, double medianDeltaBic, double probabilityStrong, double probabilityDecisive, double target) =>
+        recoveryFailed ? NotInterpretable
+        : medianDeltaBic < -2 ? FavoursWrongModel
+        : probabilityDecisive >= target ? "decisive" : probabilityStrong >= target ? "strong" : medianDeltaBic < 2 ? "unable to decide" : "weak";
+
+    /// <summary>
+    /// The parameters the true model fails to recover: |bias| &gt; 2 × spread (the estimates sit away from the truth by
+    /// more than twice their scatter), or 68% intervals covering the truth in fewer than 40% of mocks (binomially
+    /// impossible for honest 68% intervals once K ≳ 10: P(≤ 40% | 68%) &lt; 3% at K = 10).
+    /// </summary>
+    public static IReadOnlyList<string> RecoveryFailures(IEnumerable<ParameterRecovery> recovery)
+    {
+        ArgumentNullException.ThrowIfNull(recovery);
+        var list = new List<string>();
+        foreach (var r in recovery)
+        {
+            if (double.IsFinite(r.Spread) && Math.Abs(r.Bias) > 2 * r.Spread)
+                list.Add(FormattableString.Invariant($"{r.Name}: bias {r.Bias:+0.###;-0.###} is more than twice the spread {r.Spread:0.###}"));
+            else if (double.IsFinite(r.Coverage) && r.Coverage < 0.4)
+                list.Add(FormattableString.Invariant($"{r.Name}: 68% intervals cover the truth in only {r.Coverage:P0} of mocks"));
+        }
+        return list;
     }
 
     /// <summary>Linear-interpolation quantile of sorted values (type 7 of Hyndman &amp; Fan 1996).</summary>

@@ -33,9 +33,14 @@ public sealed record ParameterRecovery(string Name, double Truth, double Bias, d
 /// <param name="DeltaBicMean">Mean ΔBIC.</param>
 /// <param name="Recovery">Recovery of each evolution (and scatter) parameter by the true model.</param>
 /// <param name="NotConverged">Mocks in which at least one fit did not converge.</param>
-/// <param name="Verdict"><c>decisive</c>, <c>strong</c>, <c>weak</c> or <c>unable to decide</c> (see <see cref="PowerAnalysis"/>).</param>
+/// <param name="Verdict"><c>decisive</c>, <c>strong</c>, <c>weak</c>, <c>unable to decide</c>, <c>favours a wrong model</c> (median
+/// ΔBIC &lt; −2) or, withheld, <c>not interpretable: the true model is not recovered</c> (see <see cref="PowerAnalysis"/>).</param>
 public sealed record PowerPoint(int SampleSize, int Mocks, double ProbabilityTrueBest, double ProbabilityStrong, double ProbabilityDecisive,
-    IReadOnlyList<double> DeltaBicQuantiles, double DeltaBicMean, IReadOnlyList<ParameterRecovery> Recovery, int NotConverged, string Verdict);
+    IReadOnlyList<double> DeltaBicQuantiles, double DeltaBicMean, IReadOnlyList<ParameterRecovery> Recovery, int NotConverged, string Verdict)
+{
+    /// <summary>Why the verdict was withheld: each parameter the true model failed to recover (empty when it recovered all).</summary>
+    public IReadOnlyList<string> RecoveryFailures { get; init; } = [];
+}
 
 /// <summary>The whole power analysis (serialised as <c>power.json</c>).</summary>
 public sealed record PowerResult

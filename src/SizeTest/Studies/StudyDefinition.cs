@@ -33,6 +33,9 @@ public sealed record StudyDefinition
     public required IReadOnlyList<string> Models { get; init; }
     /// <summary>The nuisance model shared by every hypothesis (observable, selection, conventions).</summary>
     public required NuisanceModel Nuisance { get; init; }
+
+    /// <summary>Largest fraction of objects that may lie outside the stated cuts (<c>selection.max_outside_fraction</c>); see <see cref="SelectionConsistency"/>.</summary>
+    public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
     /// <summary>Parameter settings for every model that has the parameter.</summary>
     public IReadOnlyList<StudyParameter> Parameters { get; init; } = [];
     /// <summary>Per-model parameter settings (by world-model name), applied after <see cref="Parameters"/>.</summary>
@@ -47,10 +50,16 @@ public sealed record StudyDefinition
     public int Bootstrap { get; init; }
     /// <summary>Cross-validation folds (0: none).</summary>
     public int CrossValidationFolds { get; init; }
-    /// <summary>Sampler after the fit: <c>none</c> or <c>mcmc</c> (affine-invariant ensemble on the best-ranked model).</summary>
+    /// <summary>Sampler after each fit: <c>none</c> or <c>mcmc</c> (affine-invariant ensemble; every model is sampled
+    /// once, and the best-ranked model's chain is the one plotted).</summary>
     public string Sampler { get; init; } = "none";
-    /// <summary>Ensemble steps per walker when <see cref="Sampler"/> is <c>mcmc</c>.</summary>
-    public int SamplerSteps { get; init; } = 2000;
+    /// <summary>Ensemble steps per walker when <see cref="Sampler"/> is <c>mcmc</c>; 0 (<c>sampler_steps = "auto"</c>, the
+    /// default): run to convergence, at most <see cref="SamplerMaxSteps"/>.</summary>
+    public int SamplerSteps { get; init; }
+    /// <summary>The most steps per walker of a run to convergence.</summary>
+    public int SamplerMaxSteps { get; init; } = Inference.Sampling.ChainMemory.DefaultMaxSteps;
+    /// <summary>Ensemble walkers.</summary>
+    public int SamplerWalkers { get; init; } = 32;
     /// <summary>A saved power analysis (power.json of <c>sizetest power</c>) to show as the power curve, or null.</summary>
     public string? PowerResultPath { get; init; }
     /// <summary>Report options.</summary>

@@ -21,8 +21,8 @@ public static class StudyFileParser
         ["columns"] = $"[columns] takes one ROLE = \"NAME[:UNIT]\" per role ({string.Join(", ", ColumnRoles.All.Select(r => r.Name()))})",
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
-        ["selection"] = "[selection] takes sb_limit, mag_limit, min_size",
-        ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps",
+        ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
+        ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, bins, bin_resamples",
     };
@@ -124,6 +124,8 @@ public static class StudyFileParser
         TomlNode? selNode = root.Table("selection");
         if (selNode is not null)
             selection = new SelectionLimits(selNode.Number("sb_limit"), selNode.Number("mag_limit"), selNode.Number("min_size"));
+        double maxOutside = selNode?.Number("max_outside_fraction") ?? SelectionConsistency.DefaultMaxOutsideFraction;
+        if (!(maxOutside is >= 0 and <= 1)) throw selNode!.Get("max_outside_fraction")!.Error("'selection.max_outside_fraction' must be between 0 and 1");
         var nuisance = new NuisanceModel(observable, selection, modelsNode.Boolean("size_sb_relation") ?? false,
             modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96);
         try
@@ -165,13 +167,19 @@ public static class StudyFileParser
 
         // [inference]
         var inf = root.Table("inference");
-        int starts = inf?.Integer("starts") ?? 4, bootstrap = inf?.Integer("bootstrap") ?? 0, folds = inf?.Integer("cv_folds") ?? 0, steps = inf?.Integer("sampler_steps") ?? 2000;
+        int starts = inf?.Integer("starts") ?? 4, bootstrap = inf?.Integer("bootstrap") ?? 0, folds = inf?.Integer("cv_folds") ?? 0;
+        int steps = inf?.Get("sampler_steps") is { Scalar: string auto } stepsNode
+            ? (auto == "auto" ? 0 : throw stepsNode.Error("'inference.sampler_steps' must be \"auto\" or a whole number of steps per walker"))
+            : inf?.Integer("sampler_steps") ?? 0;
+        int maxSteps = inf?.Integer("sampler_max_steps") ?? Inference.Sampling.ChainMemory.DefaultMaxSteps, walkers = inf?.Integer("sampler_walkers") ?? 32;
         string sampler = inf?.String("sampler") ?? "none";
         if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
         if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
         if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
         if (sampler is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
-        if (steps < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be at least 100");
+        if (steps is > 0 and < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be \"auto\" or at least 100");
+        if (maxSteps < 100) throw inf!.Get("sampler_max_steps")!.Error("'inference.sampler_max_steps' must be at least 100");
+        if (walkers is < 4 or > 100_000) throw inf!.Get("sampler_walkers")!.Error("'inference.sampler_walkers' must be between 4 and 100000");
 
         // [power]
         string? power = null;
@@ -210,6 +218,7 @@ public static class StudyFileParser
             StudyFileText = text,
             BaseDirectory = baseDirectory,
             CataloguePath = Path.GetFullPath(catPath, baseDirectory),
+            MaxOutsideSelection = maxOutside,
             Reader = reader,
             Mapping = mapping,
             Synthetic = synthetic,
@@ -225,6 +234,8 @@ public static class StudyFileParser
             CrossValidationFolds = folds,
             Sampler = sampler,
             SamplerSteps = steps,
+            SamplerMaxSteps = maxSteps,
+            SamplerWalkers = walkers,
             PowerResultPath = power,
             Report = report,
         };

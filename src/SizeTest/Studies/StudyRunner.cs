@@ -34,7 +34,10 @@ public static class StudyRunner
         string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
 
         // Refuse an existing output before any work.
-        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force);
+        var knownInputs = new List<string> { study.CataloguePath };
+        if (study.StudyFilePath.Length > 0) knownInputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
+        if (study.PowerResultPath is { } powerInput) knownInputs.Add(powerInput);
+        var folder = OutputFolder.Begin(options.OutputDirectory, options.Force, knownInputs);
         try
         {
             var inputs = new List<string>();
@@ -51,6 +54,7 @@ public static class StudyRunner
             string ReadTable(string path)
             {
                 var full = Path.GetFullPath(path, study.BaseDirectory);
+                folder.AddInput(full);
                 var text = PhotometryFiles.ReadText(full);
                 inputs.Add(full);
                 return text;
@@ -58,14 +62,18 @@ public static class StudyRunner
             var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
             Stage("photometry");
 
+            var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
+            foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
+            load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
-            var observables = photometry.Observables;
+            var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
             var result = FitStudy.Run(new FitRequest
             {
                 Hypotheses = hypotheses,
                 Observables = observables,
+                Backend = Inference.Evaluation.EvaluationBackend.InProcess(observables, load.Sample.SourceRows),
                 Source = Rel(study.CataloguePath),
                 RowsRead = load.RowsRead,
                 Rejected = load.Rejected,
@@ -75,16 +83,15 @@ public static class StudyRunner
                 CrossValidationFolds = folds,
                 Expected = study.Expected,
                 Sampler = study.Sampler,
+                Walkers = study.SamplerWalkers,
+                Steps = study.SamplerSteps,
+                MaxSteps = study.SamplerMaxSteps,
+                ChainStoreFactory = study.Sampler == "mcmc" ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
             Stage("fit");
 
-            PosteriorSamples? posterior = null;
-            if (study.Sampler == "mcmc" && result.Models.Count > 0)
-            {
-                options.Log?.Invoke($"sampling the posterior of {result.Models[0].Name}");
-                posterior = Sample(result.Models[0], hypotheses, observables, study);
-                Stage("sampling");
-            }
+            // Every model was sampled once inside the fit; the best-ranked model's chain is the one plotted.
+            var posterior = result.Models.Count > 0 ? Plotted(result, result.Models[0].Name, hypotheses) : null;
 
             PowerResult? power = null;
             if (study.PowerResultPath is { } pp)
@@ -116,11 +123,8 @@ public static class StudyRunner
             Stage("report data");
 
             options.Log?.Invoke("writing the report");
-            var files = new List<string>();
-            void Text(string rel, string text) { AtomicFile.WriteAllText(folder.PathOf(rel), text); files.Add(rel); }
-            Text("results.json", ResultsJson.Serialize(result));
-            Text("results.csv", StudyResultsCsv.Write(result));
-            Text("rejects.csv", load.RejectLog.ToCsv());
+            var files = new List<string>(StudyOutputFiles.Write(folder, result, load.RejectLog.ToCsv()));
+            files.AddRange(result.Chains.Select(c => $"chains_{c.Model}.csv"));
             var packOptions = new ReportPackOptions
             {
                 Html = study.Report.Html, PdfReport = study.Report.Pdf, Png = study.Report.FigurePng,
@@ -144,33 +148,15 @@ public static class StudyRunner
         }
     }
 
-    // Affine-invariant ensemble sampling (Goodman & Weare 2010) of the best model's posterior, started in a small
-    // Gaussian ball around the maximum-likelihood point (scale: 1e-2 of each 68% half-width; common practice).
-    private static PosteriorSamples? Sample(ModelFitSummary best, IReadOnlyList<Hypothesis> hypotheses, Observables observables, StudyDefinition study)
+    // The kept MCMC draws of one model (θ columns of PosteriorDraws.Rows), as the report's corner plot takes them.
+    internal static PosteriorSamples? Plotted(StudyResult result, string model, IReadOnlyList<Hypothesis> hypotheses)
     {
-        var h = hypotheses.FirstOrDefault(x => x.Label == best.Name);
-        if (h is null || h.K == 0) return null;
-        var lik = h.Bind(observables);
-        var byName = best.Parameters.ToDictionary(p => p.Name, StringComparer.Ordinal);
-        var centre = h.FreeParameters.Select(p => byName[p.Name].Value).ToArray();
-        var scale = h.FreeParameters.Select(p =>
-        {
-            var e = byName[p.Name];
-            double w = 0.5 * (e.Hi - e.Lo);
-            return 1e-2 * (double.IsFinite(w) && w > 0 ? w : Math.Max(1e-3, 1e-3 * Math.Abs(e.Value)));
-        }).ToArray();
-        int walkers = Math.Max(16, 2 * h.K + 2);
-        if (walkers % 2 == 1) walkers++;
-        var sampler = new EnsembleSampler(lik.Posterior, new EnsembleSamplerOptions
-        {
-            Walkers = walkers, Steps = study.SamplerSteps, Seed = study.Seed, ParameterNames = h.FreeParameters.Select(p => p.Name).ToArray(),
-        });
-        var run = sampler.Run(EnsembleSampler.GaussianBall(lik.Posterior, centre, scale, walkers, study.Seed));
-        var samples = run.Samples;
-        // Keep the corner plot light: at most 4000 rows, evenly thinned.
-        int stride = Math.Max(1, samples.Length / 4000);
-        return new PosteriorSamples(best.Name, h.FreeParameters.Select(p => p.Name).ToArray(),
+        var draws = result.Samples.FirstOrDefault(x => x.Model == model && x.Sampler == "mcmc");
+        var h = hypotheses.FirstOrDefault(x => x.Label == model);
+        if (draws is null || h is null || draws.Rows.Count == 0) return null;
+        int d = draws.ParameterNames.Count;
+        return new PosteriorSamples(model, draws.ParameterNames,
             h.FreeParameters.Select(p => p.Spec.Unit.Length == 0 ? "dimensionless" : p.Spec.Unit).ToArray(),
-            samples.Where((_, i) => i % stride == 0).ToArray());
+            draws.Rows.Select(r => r[..d]).ToArray());
     }
 }

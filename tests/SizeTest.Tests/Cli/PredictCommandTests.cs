@@ -23,7 +23,7 @@ public sealed class PredictCommandTests
         var rows = Csv(output);
         Assert.Equal(Columns, rows[0]);
         Assert.Equal(4, rows.Length);
-        // Flat ΛCDM H0 = 70, Ωm = 0.3 at z = 1 (astropy 5.2.1, science-checks §2.2): D_C 3303.8288, D_A 1651.9144, D_L 6607.6576, t_L 7.71534.
+        // Flat ΛCDM H0 = 70, Ωm = 0.3 at z = 1 (astropy 5.2.1, docs/science.md §2.2): D_C 3303.8288, D_A 1651.9144, D_L 6607.6576, t_L 7.71534.
         var z1 = rows[2];
         Assert.Equal(1.0, Num(z1[0]));
         Assert.Equal(3303.8288, Num(z1[1]), 3);
@@ -41,7 +41,7 @@ public sealed class PredictCommandTests
     {
         var (exit, output, _) = CliRunner.Run("predict", "--z", "1", "--size-kpc", "10", "--format", "csv");
         Assert.Equal(0, exit);
-        // θ(10 kpc, z = 1) = 1.24864″ for flat ΛCDM 0.3 (astropy 5.2.1, science-checks §2.6).
+        // θ(10 kpc, z = 1) = 1.24864″ for flat ΛCDM 0.3 (astropy 5.2.1, docs/science.md §2.6).
         Assert.Equal(1.24864, Num(Csv(output)[1][6]), 5);
     }
 
@@ -64,7 +64,7 @@ public sealed class PredictCommandTests
         Assert.Equal(0, exit);
         var row = Csv(output)[1];
         Assert.Equal("", row[2]);
-        // d = cz/H0 = 4282.7494 Mpc, D_L = d√2 = 6056.7223 (science-checks §2.4); dimming 2.5 log10 2 = 0.7526 mag (§2.7).
+        // d = cz/H0 = 4282.7494 Mpc, D_L = d√2 = 6056.7223 (docs/science.md §2.4); dimming 2.5 log10 2 = 0.7526 mag (§2.7).
         Assert.Equal(4282.7494, Num(row[1]), 4);
         Assert.Equal(4282.7494, Num(row[3]), 4);
         Assert.Equal(6056.7223, Num(row[4]), 4);
@@ -77,7 +77,7 @@ public sealed class PredictCommandTests
         var (exit, output, _) = CliRunner.Run("predict", "--model", "tired-light", "--z", "1", "--flux-convention", "time-dilation", "--format", "csv");
         Assert.Equal(0, exit);
         var row = Csv(output)[1];
-        // D_L = d(1+z) = 2·2968.5757 (science-checks §1.5/§2.4); n = 2 → 5 log10 2 = 1.5051 mag.
+        // D_L = d(1+z) = 2·2968.5757 (docs/science.md §1.5/§2.4); n = 2 → 5 log10 2 = 1.5051 mag.
         Assert.Equal(2 * 2968.5757, Num(row[4]), 3);
         Assert.Equal(1.5051, Num(row[7]), 4);
         var (exit2, output2, _) = CliRunner.Run("predict", "--model", "tired-light", "--z", "1", "--dimming-exponent", "4", "--format", "csv");
@@ -106,7 +106,7 @@ public sealed class PredictCommandTests
     public void JsonReportsTheAgeOfExpandingModelsOnly()
     {
         using var flrw = JsonDocument.Parse(CliRunner.Run("predict", "--z", "1", "--format", "json").Out);
-        // Flat ΛCDM 0.3, H0 = 70: age 13.46698 Gyr (astropy 5.2.1, science-checks §2.2).
+        // Flat ΛCDM 0.3, H0 = 70: age 13.46698 Gyr (astropy 5.2.1, docs/science.md §2.2).
         Assert.Equal(13.46698, flrw.RootElement.GetProperty("age_gyr").GetDouble(), 4);
         using var stat = JsonDocument.Parse(CliRunner.Run("predict", "--model", "tired-light", "--z", "1", "--format", "json").Out);
         Assert.Equal(JsonValueKind.Null, stat.RootElement.GetProperty("age_gyr").ValueKind);

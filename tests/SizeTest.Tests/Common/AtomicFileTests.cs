@@ -18,16 +18,18 @@ public sealed class AtomicFileTests
     }
 
     [Fact]
-    public void OutputFolderRefusesNonEmptyTargetWithoutForce()
+    public void OutputFolderRefusesNonEmptyTargetWithoutForceAndForeignFilesWithIt()
     {
         var dir = Directory.CreateTempSubdirectory("sizetest-out-").FullName;
         File.WriteAllText(Path.Combine(dir, "keep.txt"), "user data");
         Assert.Throws<InputException>(() => OutputFolder.Begin(dir, force: false));
-        var folder = OutputFolder.Begin(dir, force: true);
+        Assert.Throws<InputException>(() => OutputFolder.Begin(dir, force: true));   // not written by sizetest
+        Assert.Equal("user data", File.ReadAllText(Path.Combine(dir, "keep.txt")));
+        File.Delete(Path.Combine(dir, "keep.txt"));
+        var folder = OutputFolder.Begin(dir, force: false);
         File.WriteAllText(folder.PathOf("new.txt"), "x");
-        Assert.True(File.Exists(Path.Combine(dir, "keep.txt")));   // untouched until commit
         folder.Commit();
-        Assert.False(File.Exists(Path.Combine(dir, "keep.txt")));
         Assert.True(File.Exists(Path.Combine(dir, "new.txt")));
+        Assert.Contains("new.txt", OutputFolder.ReadMarker(dir)!);
     }
 }

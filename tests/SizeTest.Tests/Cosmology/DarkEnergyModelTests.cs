@@ -12,12 +12,12 @@ public sealed class WCdmTests : FlrwContractTests
     public void MatchesReferenceRow()
     {
         var m = (FlrwModel)Model;
-        // astropy 5.2.1 (science-checks §2.4): D_C(1) 3236.6978, D_A(3) 1559.0250, age 13.24719, z_max 1.6095, D_A,max 1711.1580.
+        // astropy 5.2.1 (docs/science.md §2.4): D_C(1) 3236.6978, D_A(3) 1559.0250, age 13.24719, z_max 1.6095, D_A,max 1711.1580.
         Assert.True(TestMath.Relative(m.ComovingDistance(1), 3236.6978) < 2e-8);
         Assert.True(TestMath.Relative(m.AngularDiameterDistance(3), 1559.0250) < 2e-8);
         Assert.True(TestMath.Relative(m.AgeGyr, 13.24719) < 1e-6);
         var (z, da) = TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4);
-        Assert.InRange(z, 1.6095 - 1e-4, 1.6095 + 1e-4); // tolerance 1e-4 in z_max (science-checks §2.2)
+        Assert.InRange(z, 1.6095 - 1e-4, 1.6095 + 1e-4); // tolerance 1e-4 in z_max (docs/science.md §2)
         Assert.True(TestMath.Relative(da, 1711.1580) < 1e-7);
     }
 
@@ -41,11 +41,11 @@ public sealed class W0WaCdmTests : FlrwContractTests
     public void MatchesReferenceRow()
     {
         var m = (FlrwModel)Model;
-        // science-checks §2.4 (astropy 5.2.1 / closed form): E(2) = 3.0596104; D_C(1) 3211.3443; age 13.12679; z_max 1.5966.
+        // docs/science.md §2.4 (astropy 5.2.1 / closed form): E(2) = 3.0596104; D_C(1) 3211.3443; age 13.12679; z_max 1.5965.
         Assert.Equal(3.0596104, m.HubbleFunction(2), 7);
         Assert.True(TestMath.Relative(m.ComovingDistance(1), 3211.3443) < 2e-8);
         Assert.True(TestMath.Relative(m.AgeGyr, 13.12679) < 1e-6);
-        Assert.InRange(TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4).X, 1.5966 - 1e-4, 1.5966 + 1e-4); // tolerance 1e-4 in z_max (science-checks §2.2)
+        Assert.InRange(TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4).X, 1.5965 - 1e-4, 1.5965 + 1e-4); // tolerance 1e-4 in z_max (docs/science.md §2)
     }
 
     [Fact]

@@ -40,7 +40,7 @@ public abstract class FlrwContractTests : WorldModelContractTests
     {
         var m = Flrw;
         Assert.Equal(4.0, m.BolometricDimmingExponent);
-        // 10 log10(1+z) mag for n = 4; at z = 1: 3.0103 (science-checks §2.7, exact).
+        // 10 log10(1+z) mag for n = 4; at z = 1: 3.0103 (docs/science.md §2.7, exact).
         Assert.Equal(10 * Math.Log10(2), m.TolmanDimmingMagnitudes(1), 1e-12);
         Assert.Equal(3.0103, m.TolmanDimmingMagnitudes(1), 4);
     }

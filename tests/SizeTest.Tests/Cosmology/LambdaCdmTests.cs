@@ -9,7 +9,7 @@ public sealed class FlatLambdaCdmTests : FlrwContractTests
     protected override IWorldModel Model { get; } = WorldModels.LambdaCdm.Create(new Dictionary<string, double> { ["omega_m"] = 0.3 });
 
     [Theory]
-    // Reference: astropy 5.2.1, FlatLambdaCDM(70, 0.3, Tcmb0=0) (science-checks §2.2) — z, D_C, D_A, D_L, t_L.
+    // Reference: astropy 5.2.1, FlatLambdaCDM(70, 0.3, Tcmb0=0) (docs/science.md §2.2) — z, D_C, D_A, D_L, t_L.
     [InlineData(0.1, 418.4545, 380.4132, 460.2999, 1.30130)]
     [InlineData(0.5, 1888.6254, 1259.0836, 2832.9381, 5.04064)]
     [InlineData(1.0, 3303.8288, 1651.9144, 6607.6576, 7.71534)]
@@ -30,8 +30,8 @@ public sealed class FlatLambdaCdmTests : FlrwContractTests
     {
         var m = Model;
         var (z, da) = TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4);
-        // Reference: astropy 5.2.1 (science-checks §2.2/§2.5): z_max = 1.6054, D_A,max = 1747.572 Mpc; θ_min(10 kpc) = 1.18029″ (§2.6).
-        Assert.InRange(z, 1.6054 - 1e-4, 1.6054 + 1e-4); // tolerance 1e-4 in z_max (science-checks §2.2)
+        // Reference: astropy 5.2.1 (docs/science.md §2.2/§2.5): z_max = 1.6054, D_A,max = 1747.572 Mpc; θ_min(10 kpc) = 1.18029″ (§2.6).
+        Assert.InRange(z, 1.6054 - 1e-4, 1.6054 + 1e-4); // tolerance 1e-4 in z_max (docs/science.md §2)
         Assert.True(TestMath.Relative(da, 1747.572) < 1e-6);
         Assert.True(TestMath.Relative(m.AngularSizeArcsec(z, 10), 1.18029) < 5e-6);
     }
@@ -40,14 +40,14 @@ public sealed class FlatLambdaCdmTests : FlrwContractTests
     public void HubbleFunctionAndAgeMatchReference()
     {
         var m = (FlrwModel)Model;
-        // E(1) = sqrt(0.3·8 + 0.7) = sqrt(3.1) = 1.7606817 (closed form; science-checks §2.4).
+        // E(1) = sqrt(0.3·8 + 0.7) = sqrt(3.1) = 1.7606817 (closed form; docs/science.md §2.4).
         Assert.Equal(Math.Sqrt(3.1), m.HubbleFunction(1), 14);
-        // Age 13.46698 Gyr (astropy 5.2.1, science-checks §2.2).
+        // Age 13.46698 Gyr (astropy 5.2.1, docs/science.md §2.2).
         Assert.True(TestMath.Relative(m.AgeGyr, 13.46698) < 1e-6);
     }
 
     [Theory]
-    // θ of 10 kpc in arcsec (astropy 5.2.1, science-checks §2.6).
+    // θ of 10 kpc in arcsec (astropy 5.2.1, docs/science.md §2.6).
     [InlineData(0.1, 5.42213)]
     [InlineData(1.0, 1.24864)]
     [InlineData(5.0, 1.59168)]
@@ -74,7 +74,7 @@ public sealed class RadiationLambdaCdmTests : FlrwContractTests
     public void RadiationDensityFollowsTheStatedConvention()
     {
         var m = (FlrwModel)Model;
-        // astropy 5.2.1 FlatLambdaCDM(70, 0.3, Tcmb0=2.725): Ogamma0 = 5.0432e-5, Onu0 = 3.4818e-5 (science-checks §1.1).
+        // astropy 5.2.1 FlatLambdaCDM(70, 0.3, Tcmb0=2.725): Ogamma0 = 5.0432e-5, Onu0 = 3.4818e-5 (docs/science.md §2.3).
         double photons = PhysicalConstants.PhotonDensity(2.725, 70);
         Assert.True(TestMath.Relative(photons, 5.0432e-5) < 1e-4);
         Assert.True(TestMath.Relative(m.OmegaRadiation - photons, 3.4818e-5) < 1e-4);
@@ -85,7 +85,7 @@ public sealed class RadiationLambdaCdmTests : FlrwContractTests
     public void ComovingDistanceAndAgeMatchReference()
     {
         var m = (FlrwModel)Model;
-        // astropy 5.2.1 with radiation (science-checks §2.2): D_C(1) = 3303.5264, D_L(1) = 6607.0529, age 13.4617 Gyr.
+        // astropy 5.2.1 with radiation (docs/science.md §2.3): D_C(1) = 3303.5264, D_L(1) = 6607.0529, age 13.4617 Gyr.
         Assert.True(TestMath.Relative(m.ComovingDistance(1), 3303.5264) < 2e-8);
         Assert.True(TestMath.Relative(m.LuminosityDistance(1), 6607.0529) < 2e-8);
         Assert.True(TestMath.Relative(m.AgeGyr, 13.4617) < 1e-5);
@@ -102,13 +102,13 @@ public sealed class ClosedLambdaCdmTests : FlrwContractTests
     {
         var m = (FlrwModel)Model;
         Assert.Equal(-0.1, m.OmegaCurvature, 14);
-        // astropy 5.2.1 (science-checks §2.4): D_C(1) 3408.9370, D_M(1) 3373.0544, D_A(3) 1587.8885, age 13.92250, z_max 1.5556, D_A,max 1777.2054.
+        // astropy 5.2.1 (docs/science.md §2.4): D_C(1) 3408.9370, D_M(1) 3373.0544, D_A(3) 1587.8885, age 13.92250, z_max 1.5556, D_A,max 1777.2054.
         Assert.True(TestMath.Relative(m.ComovingDistance(1), 3408.9370) < 2e-8);
         Assert.True(TestMath.Relative(m.TransverseComovingDistance(1), 3373.0544) < 2e-8);
         Assert.True(TestMath.Relative(m.AngularDiameterDistance(3), 1587.8885) < 2e-8);
         Assert.True(TestMath.Relative(m.AgeGyr, 13.92250) < 1e-6);
         var (z, da) = TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4);
-        Assert.InRange(z, 1.5556 - 1e-4, 1.5556 + 1e-4); // tolerance 1e-4 in z_max (science-checks §2.2)
+        Assert.InRange(z, 1.5556 - 1e-4, 1.5556 + 1e-4); // tolerance 1e-4 in z_max (docs/science.md §2)
         Assert.True(TestMath.Relative(da, 1777.2054) < 1e-7);
     }
 }
@@ -122,13 +122,13 @@ public sealed class OpenLambdaCdmTests : FlrwContractTests
     public void MatchesReferenceRow()
     {
         var m = (FlrwModel)Model;
-        // astropy 5.2.1 (science-checks §2.4): D_C(1) 3124.8660, D_M(1) 3180.6153, D_L(1) 6361.2306, age 12.69749, z_max 1.6982.
+        // astropy 5.2.1 (docs/science.md §2.4): D_C(1) 3124.8660, D_M(1) 3180.6153, D_L(1) 6361.2306, age 12.69749, z_max 1.6982.
         Assert.True(TestMath.Relative(m.ComovingDistance(1), 3124.8660) < 2e-8);
         Assert.True(TestMath.Relative(m.TransverseComovingDistance(1), 3180.6153) < 2e-8);
         Assert.True(TestMath.Relative(m.LuminosityDistance(1), 6361.2306) < 2e-8);
         Assert.True(TestMath.Relative(m.AgeGyr, 12.69749) < 1e-6);
-        Assert.InRange(TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4).X, 1.6982 - 1e-4, 1.6982 + 1e-4); // tolerance 1e-4 in z_max (science-checks §2.2)
-        // E(1) for Ωm = 0.3, Ωk = 0.1, ΩΛ = 0.6 is 1.8439089 (science-checks §2.4): a different model, built here.
+        Assert.InRange(TestMath.Maximum(m.AngularDiameterDistance, 0.5, 4).X, 1.6982 - 1e-4, 1.6982 + 1e-4); // tolerance 1e-4 in z_max (docs/science.md §2)
+        // E(1) for Ωm = 0.3, Ωk = 0.1, ΩΛ = 0.6 is 1.8439089 (docs/science.md §2.4): a different model, built here.
         var other = new LambdaCdmModel(70, 0.3, 0.6);
         Assert.Equal(1.8439089, other.HubbleFunction(1), 7);
     }

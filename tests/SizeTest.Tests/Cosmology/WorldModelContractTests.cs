@@ -97,7 +97,7 @@ public abstract class WorldModelContractTests
     public void DimmingIsTolmanLawWithTheModelsExponent(double z)
     {
         var m = Model;
-        // Δμ = 2.5 n log10(1+z) (Tolman 1930; science-checks §1.6).
+        // Δμ = 2.5 n log10(1+z) (Tolman 1930; docs/science.md §1.6).
         Assert.Equal(2.5 * m.BolometricDimmingExponent * Math.Log10(1 + z), m.TolmanDimmingMagnitudes(z), 1e-12);
     }
 

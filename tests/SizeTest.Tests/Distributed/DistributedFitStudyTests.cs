@@ -2,12 +2,13 @@ using SizeTest.Catalogs;
 using SizeTest.Cosmology;
 using SizeTest.Distributed;
 using SizeTest.Inference;
+using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
 using Xunit;
 
 namespace SizeTest.Tests.Distributed;
 
-/// <summary>The library side of `mpirun sizetest fit`, in one process: shares, shared grid bounds, Poisson weights, the study.</summary>
+/// <summary>The library side of `mpirun sizetest fit`, in one process: shares, shared grid bounds, Poisson weights, the study on 1, 2 and 4 (thread) ranks.</summary>
 public sealed class DistributedFitStudyTests : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sizetest-dstudy-").FullName;
@@ -105,28 +106,99 @@ public sealed class DistributedFitStudyTests : IDisposable
     }
 
     [Fact]
-    public void SingleRankStudyEqualsTheSingleProcessStudy()
+    public void OneFitStudyGivesIdenticalResultsOnOneTwoAndFourRanksIncludingCvProfilesAndBootstrap()
+    {
+        // 3 chunks of 1024 rows (the last partial): 2 ranks hold 2 + 1 chunks, 4 ranks 1 + 1 + 1 + none (a rank without rows).
+        var path = DistributedFitCatalogues.Csv(_dir, 2600);
+        var hs = new[]
+        {
+            Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "omega_m" })),
+            Hypothesis.Create(WorldModels.StaticLinear, new NuisanceModel(ObservableKind.Size)),
+        };
+        StudyResult Study(IProcessGroup group)
+        {
+            var share = CatalogShare.Load(path, new CatalogLoadOptions(), group.Rank, group.Size);
+            var local = ObservablesBuilder.Build(share.Local, PhotometryOptions.Default).Observables;
+            var backend = new EvaluationBackend(group, local, share.Local.SourceRows, share.ChunkKeys);
+            return FitStudy.Run(new FitRequest
+            {
+                Hypotheses = hs, Observables = local, Backend = backend, Source = "mock", Starts = 2,
+                CrossValidationFolds = 3, ProfileParameter = "size_evolution", Bootstrap = 2, Sampler = "mcmc", Walkers = 8, Steps = 200,
+            });
+        }
+        string Numbers(StudyResult r) => ResultsJson.Serialize(r with { Notes = [] });
+        string one = Numbers(Study(SingleProcessGroup.Instance));
+        Assert.Contains("\"cross_validation\"", one);
+        foreach (int size in new[] { 2, 4 })
+        {
+            var results = ThreadRanks.Run(size, Study);
+            // Bit-identical: every rank adds the same chunk sums in the same order (EvaluationBackend remarks).
+            foreach (var r in results) Assert.Equal(one, Numbers(r));
+        }
+        var parsed = ResultsJson.Deserialize(one);
+        Assert.Equal(2, parsed.CrossValidation.Count);
+        Assert.Equal(2, parsed.Profiles.Count);
+        Assert.Equal(2, parsed.Bootstrap.Count);
+    }
+
+    [Fact]
+    public void ChunkSumsEqualTheWholeSampleLikelihoodToRounding()
     {
         var path = DistributedFitCatalogues.Csv(_dir, 3000);
-        var load = CatalogLoader.Load(path);
-        var obs = ObservablesBuilder.Build(load.Sample, PhotometryOptions.Default).Observables;
-        var hs = new[] { WorldModels.LambdaCdm, WorldModels.EinsteinDeSitter }.Select(f => Hypothesis.Create(f, new NuisanceModel(ObservableKind.Size))).ToArray();
-        var request = new FitRequest { Hypotheses = hs, Observables = obs, Source = path, RowsRead = load.RowsRead, Rejected = load.Rejected, Starts = 2 };
-        var reference = FitStudy.Run(request);
-        var share = CatalogShare.Load(path, new CatalogLoadOptions(), 0, 1);
-        var distributed = DistributedFitStudy.Run(SingleProcessReducer.Instance, request, share.Local.SourceRows, obs)!;
-        Assert.Equal(reference.Models.Select(m => m.Name), distributed.Models.Select(m => m.Name));
-        for (int i = 0; i < reference.Models.Count; i++)
-        {
-            var a = reference.Models[i];
-            var b = distributed.Models[i];
-            // The same optimiser on the same function from the same start (1e-12: rounding only).
-            Assert.True(Math.Abs(a.LogLikelihood - b.LogLikelihood) <= 1e-12 * Math.Abs(a.LogLikelihood), a.Name);
-            Assert.Equal(a.Parameters.Select(p => p.Value), b.Parameters.Select(p => p.Value), (x, y) => x.Equals(y) || Math.Abs(x - y) <= 1e-9 * Math.Max(1, Math.Abs(x)));
-            Assert.Equal(a.N, b.N);
-        }
-        Assert.Equal(reference.LikelihoodRatioTests.Count, distributed.LikelihoodRatioTests.Count);
-        Assert.Equal(reference.RequiredEvolution.Select(r => r.Model), distributed.RequiredEvolution.Select(r => r.Model));
-        Assert.Equal((reference.RowsRead, reference.Accepted, reference.Rejected), (distributed.RowsRead, distributed.Accepted, distributed.Rejected));
+        var obs = ObservablesBuilder.Build(CatalogLoader.Load(path).Sample, PhotometryOptions.Default).Observables;
+        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
+        var theta = h.StartVector();
+        double whole = h.Bind(obs).LogDensity(theta);
+        double chunked = EvaluationBackend.InProcess(obs).Bind(h).LogDensity(theta);
+        // Same terms, summed in 3 chunks instead of one pass (rounding, ~1e-15 relative; 1e-12 allowed).
+        Assert.True(Math.Abs(chunked - whole) <= 1e-12 * Math.Abs(whole), $"{chunked:R} vs {whole:R}");
+        // A re-weighted sample equals the sample with the rows repeated.
+        var weights = Enumerable.Range(0, obs.Count).Select(i => i % 3).ToArray();
+        var rows = Enumerable.Range(0, obs.Count).SelectMany(i => Enumerable.Repeat(i, weights[i])).ToArray();
+        var span = new RedshiftGridSpan(obs.Z.Min(), obs.Z.Max(), obs.Count); // the backend's grid spans the whole sample
+        double repeated = new HypothesisLikelihood(h, ObservablesSubset.Take(obs, rows), span).LogDensity(theta);
+        double weighted = EvaluationBackend.InProcess(obs).Bind(h, weights).LogDensity(theta);
+        Assert.True(Math.Abs(weighted - repeated) <= 1e-12 * Math.Abs(repeated), $"{weighted:R} vs {repeated:R}");
+    }
+}
+
+/// <summary>Ranks simulated by threads in one process (for fast rank-invariance tests): <see cref="SumAll"/> adds the
+/// ranks' vectors in rank order behind a barrier, as an Allreduce does.</summary>
+internal sealed class ThreadRanks : IProcessGroup
+{
+    private readonly Shared _shared;
+
+    private ThreadRanks(Shared shared, int rank) { _shared = shared; Rank = rank; }
+
+    public int Rank { get; }
+    public int Size => _shared.Size;
+    public bool IsRoot => Rank == 0;
+    public string Description => $"{Size} thread ranks";
+
+    public void SumAll(ReadOnlySpan<double> local, Span<double> total)
+    {
+        _shared.Slots[Rank] = local.ToArray();
+        _shared.Barrier.SignalAndWait();
+        total.Clear();
+        for (int r = 0; r < Size; r++)
+            for (int i = 0; i < total.Length; i++) total[i] += _shared.Slots[r][i];
+        _shared.Barrier.SignalAndWait();
+    }
+
+    public static T[] Run<T>(int size, Func<IProcessGroup, T> body)
+    {
+        var shared = new Shared(size);
+        var results = new T[size];
+        var threads = Enumerable.Range(0, size).Select(r => new Thread(() => results[r] = body(new ThreadRanks(shared, r)), 16 << 20)).ToArray();
+        foreach (var t in threads) t.Start();
+        foreach (var t in threads) Assert.True(t.Join(TimeSpan.FromMinutes(3)), "a thread rank did not finish");
+        return results;
+    }
+
+    private sealed class Shared(int size)
+    {
+        public int Size { get; } = size;
+        public double[][] Slots { get; } = new double[size][];
+        public Barrier Barrier { get; } = new(size);
     }
 }

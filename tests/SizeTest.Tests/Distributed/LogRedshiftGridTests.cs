@@ -20,7 +20,7 @@ public sealed class LogRedshiftGridTests
     public void InterpolatedAngularSizeModelIsWithinOneMillionthOfTheClosedForm()
     {
         // Interpolation error of the gridded model ln θ_model = ln R0 + a ln(1+z) − ln D_A(z) against the exact
-        // per-object value, Einstein–de Sitter D_A in closed form (science-checks §1.4). Linear interpolation in
+        // per-object value, Einstein–de Sitter D_A in closed form (docs/science.md §1.4). Linear interpolation in
         // ln z bounds it by h²/8·max|f''| (common practice); for 2048 nodes on [1e-3, 10] that is ~1e-6.
         var grid = new LogRedshiftGrid(1e-3, 10, 2048);
         var distances = grid.Nodes.Select(SyntheticKernelRows.EdsAngularDiameterDistanceMpc).ToArray();

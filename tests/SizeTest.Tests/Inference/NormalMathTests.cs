@@ -18,9 +18,13 @@ public sealed class NormalMathTests
     public void LogPhiIsContinuousAcrossItsBranches()
     {
         // The three branches meet at −30 and 5; the asymptotic series (Abramowitz & Stegun 26.2.12) and erfc
-        // must agree to ~1e-10 relative there.
-        Assert.Equal(NormalMath.LogPhi(-30.0 + 1e-9), NormalMath.LogPhi(-30.0 - 1e-9), 6);
-        Assert.Equal(NormalMath.LogPhi(5.0 - 1e-9), NormalMath.LogPhi(5.0 + 1e-9), 12);
+        // must agree there. Each side is taken 1e-9 from the joint, which alone moves ln Φ by |d ln Φ/dx|·2e-9
+        // (d ln Φ/dx = φ/Φ): ≈ 30·2e-9 = 6e-8 at −30 and ≈ 1.5e-6·2e-9 = 3e-15 at 5 (closed form). Checked:
+        // |Δ| ≤ 5e-7 absolute at −30 (1.1e-9 of |ln Φ(−30)| ≈ 454) and ≤ 5e-13 absolute at 5.
+        double low = NormalMath.LogPhi(-30.0 + 1e-9) - NormalMath.LogPhi(-30.0 - 1e-9);
+        Assert.True(Math.Abs(low) <= 5e-7, $"branch step at −30: {low:R}");
+        double high = NormalMath.LogPhi(5.0 - 1e-9) - NormalMath.LogPhi(5.0 + 1e-9);
+        Assert.True(Math.Abs(high) <= 5e-13, $"branch step at 5: {high:R}");
         // ln Φ(−40) ≈ −40²/2 − ln 40 − ln√(2π) + ln(1 − 1/x² + 3/x⁴ − 15/x⁶) (asymptotic series, derived).
         Assert.Equal(-800 - Math.Log(40) - 0.5 * Math.Log(2 * Math.PI) + Math.Log(1 - 1.0 / 1600 + 3.0 / 1600 / 1600 - 15.0 / 1600 / 1600 / 1600), NormalMath.LogPhi(-40), 9);
     }

@@ -61,14 +61,14 @@ internal static class TestWorldModels
     public static readonly ParameterSpec OmegaM = new("omega_m", "Ωm", "", 0.3, 0.01, 1.5, "matter density");
     public static readonly ParameterSpec Dimming = new("dimming_exponent", "n", "", 1, 0, 6, "static dimming exponent");
 
-    /// <summary>EdS: D_A = 2 D_H [1 − (1+z)^−1/2] / (1+z) (science-checks §1.4).</summary>
+    /// <summary>EdS: D_A = 2 D_H [1 − (1+z)^−1/2] / (1+z) (docs/science.md §1.4).</summary>
     public static TestFamily Eds { get; } = new("eds", true, [H0], v =>
     {
         double dh = C / v["h0"];
         return new TestWorldModel("eds", true, v["h0"], 4, z => 2 * dh * (1 - 1 / Math.Sqrt(1 + z)) / (1 + z), v);
     });
 
-    /// <summary>Static Euclidean, d = cz/H0 (science-checks §1.5); θ = ℓ/d.</summary>
+    /// <summary>Static Euclidean, d = cz/H0 (docs/science.md §1.5); θ = ℓ/d.</summary>
     public static TestFamily StaticLinear { get; } = new("static-linear", false, [H0, Dimming], v =>
     {
         double dh = C / v["h0"];

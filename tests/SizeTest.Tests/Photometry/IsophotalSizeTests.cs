@@ -8,7 +8,7 @@ public sealed class IsophotalSizeTests
     private const double MagPerEFold = 1.0857362047581294; // 2.5 log10(e), closed form
 
     [Theory]
-    [InlineData(21.65, 25.0, 2.0)]   // Freeman (1970) central SB μ_0,B = 21.65 (from science-checks), isophote 25
+    [InlineData(21.65, 25.0, 2.0)]   // Freeman (1970) central SB μ_0,B = 21.65 (docs/science.md Â§1.8), isophote 25
     [InlineData(20.0, 26.5, 1.3)]
     [InlineData(23.0, 24.0, 5.0)]
     public void ExponentialDiskClosedForm(double mu0, double isophote, double hArcsec)
@@ -29,7 +29,7 @@ public sealed class IsophotalSizeTests
     [InlineData(0.1)] [InlineData(0.5)] [InlineData(1.0)]
     public void ExponentialDiskShrinksWithTolmanDimming(double z)
     {
-        // FLRW bolometric dimming Δμ = 10 log10(1+z) (Tolman 1930; science-checks §2.7) raises μ_0,obs, so
+        // FLRW bolometric dimming Δμ = 10 log10(1+z) (Tolman 1930; docs/science.md §2.7) raises μ_0,obs, so
         // r_iso(z) = h (μ_iso − μ_0 − 10 log10(1+z))/1.0857 at fixed physical profile (closed form).
         double mu0 = 21.65, iso = 25.0, h = 2.0, b1 = SersicProfile.Bn(1);
         double dimming = 10 * Math.Log10(1 + z);

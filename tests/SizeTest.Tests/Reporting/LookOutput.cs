@@ -1,33 +1,44 @@
 using SizeTest.Reporting;
 using SizeTest.Reporting.Pack;
+using SizeTest.Reporting.Rendering;
 using Xunit;
 
 namespace SizeTest.Tests.Reporting;
 
-/// <summary>Writes a full synthetic report folder when SIZETEST_LOOK_DIR is set (for looking at the output by eye); otherwise does nothing.</summary>
+/// <summary>
+/// Renders the synthetic report's first figure twice and requires identical PNG and figure-PDF
+/// bytes (the determinism the report pack promises). With SIZETEST_LOOK_DIR set it also writes
+/// full synthetic report folders there (sparse and dense samples) for looking at by eye, and
+/// checks that each folder holds the HTML page, the PDF and the figures.
+/// </summary>
 public sealed class LookOutput
 {
     [Fact]
-    public void WritesAReportToLookAtWhenAsked()
+    public void FiguresRenderRepeatablyAndLookFoldersAreComplete()
     {
         var dir = Environment.GetEnvironmentVariable("SIZETEST_LOOK_DIR");
-        if (string.IsNullOrEmpty(dir)) return;
+        var samples = string.IsNullOrEmpty(dir) ? new[] { ("sparse", 300) } : new[] { ("sparse", 300), ("dense", 5000) };
         var log = new System.Text.StringBuilder();
-        foreach (var (name, n) in new[] { ("sparse", 300), ("dense", 5000) })
+        foreach (var (name, n) in samples)
         {
             var content = ReportContent.From(SyntheticReport.Create(n, seed: 3));
+            Assert.NotEmpty(content.Figures);
+            var png1 = FigureRenderer.RenderPng(content.Figures[0]).Bytes;
+            var png2 = FigureRenderer.RenderPng(content.Figures[0]).Bytes;
+            Assert.True(png1.AsSpan().SequenceEqual(png2), $"{name}: PNG of {content.Figures[0].Id} differs between two renders");
+            var pdf1 = FigureRenderer.RenderPdf(content.Figures[0]);
+            var pdf2 = FigureRenderer.RenderPdf(content.Figures[0]);
+            Assert.True(pdf1.AsSpan().SequenceEqual(pdf2), $"{name}: figure PDF of {content.Figures[0].Id} differs between two renders");
+            if (string.IsNullOrEmpty(dir)) continue;
+
             var sw = System.Diagnostics.Stopwatch.StartNew();
-            foreach (var f in content.Figures) SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(f);
-            log.AppendLine($"{name}: {content.Figures.Count} figures as 300-dpi PNG in {sw.Elapsed.TotalSeconds:0.00} s");
-            sw.Restart();
-            new ReportPackWriter().Write(Path.Combine(dir, name), true, content);
-            log.AppendLine($"{name}: whole report folder in {sw.Elapsed.TotalSeconds:0.00} s");
-            var png1 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(content.Figures[0]).Bytes;
-            var png2 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPng(content.Figures[0]).Bytes;
-            var pdf1 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPdf(content.Figures[0]);
-            var pdf2 = SizeTest.Reporting.Rendering.FigureRenderer.RenderPdf(content.Figures[0]);
-            log.AppendLine($"{name}: PNG repeatable {png1.AsSpan().SequenceEqual(png2)}, figure PDF repeatable {pdf1.AsSpan().SequenceEqual(pdf2)}");
+            var folder = Path.Combine(dir, name);
+            new ReportPackWriter().Write(folder, true, content);
+            log.AppendLine($"{name}: {content.Figures.Count} figures; whole report folder in {sw.Elapsed.TotalSeconds:0.00} s");
+            Assert.True(File.Exists(Path.Combine(folder, "report.html")), $"{folder}/report.html missing");
+            Assert.True(File.Exists(Path.Combine(folder, "report.pdf")), $"{folder}/report.pdf missing");
+            Assert.Equal(content.Figures.Count, Directory.GetFiles(Path.Combine(folder, "figures"), "*.png").Length);
         }
-        File.WriteAllText(Path.Combine(dir, "timings.txt"), log.ToString());
+        if (!string.IsNullOrEmpty(dir)) File.WriteAllText(Path.Combine(dir, "timings.txt"), log.ToString());
     }
 }

@@ -29,7 +29,7 @@ public sealed class CompactSourceTests
     public void AtRedshiftOneTheRodSubtendsTheAstropyAngle()
     {
         var cat = Draw(new RadioSourcePopulation(ScatterDex: 0), RedshiftDistribution.Uniform(0.9999999, 1.0000001), 10);
-        // Flat ΛCDM H0 = 70, Ωm = 0.3: D_A(1) = 1651.9144 Mpc (reference: astropy 5.2.1, science-checks §2.2), so
+        // Flat ΛCDM H0 = 70, Ωm = 0.3: D_A(1) = 1651.9144 Mpc (reference: astropy 5.2.1, docs/science.md §2.2), so
         // θ = 11.03 pc × 206264.806 / 1651.9144 Mpc = 1.3772510 mas (closed form of the small-angle rule).
         Assert.All(cat.ThetaArcsec, t => Assert.Equal(1.3772510, t * 1000, 2e-6));
     }

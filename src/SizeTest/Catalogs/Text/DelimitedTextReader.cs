@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text;
 using CsvHelper;
 using SizeTest.Common;
 
@@ -10,21 +8,14 @@ namespace SizeTest.Catalogs.Text;
 /// <c>#</c> comment lines, header row, empty cells and null tokens as null). Positions are the
 /// file lines where records start.
 /// </summary>
-internal sealed class DelimitedTextReader : ICatalogReader
+internal sealed class DelimitedTextReader : TextTableReader
 {
     private readonly CsvReader _csv;
-    private readonly TextLayout _layout;
-    private readonly byte[][] _nullTokens;
     private readonly int _fieldCount;
-    private readonly string _path;
-    private bool _done;
 
-    public DelimitedTextReader(string path, TextLayout layout, ReaderOptions options)
+    public DelimitedTextReader(string path, TextLayout layout, ReaderOptions options) : base(path, layout, options)
     {
-        _path = path;
-        _layout = layout;
         _fieldCount = layout.Columns.Count;
-        _nullTokens = options.NullTokens.Select(t => Encoding.UTF8.GetBytes(t)).ToArray();
         var csvOptions = new CsvReaderOptions
         {
             Separator = layout.Delimiter,
@@ -44,58 +35,29 @@ internal sealed class DelimitedTextReader : ICatalogReader
         {
             throw new InputException($"cannot read the text table: {ex.Message}", path, ex.LineNumber > 0 ? ex.LineNumber : null, inner: ex);
         }
-        RowCountHint = layout.CountRecords(path);
     }
 
-    public CatalogFormat Format => CatalogFormat.Text;
-    public string SourceName => _path;
-    public string? TableName => null;
-    public IReadOnlyList<string> Notes => _layout.Notes;
-    public IReadOnlyList<CatalogColumn> Columns => _layout.Columns;
-    public long? RowCountHint { get; }
-
-    public bool ReadChunk(RowChunk chunk)
+    protected override bool NextRecord(out long line, out int fieldCount)
     {
-        chunk.Reset();
-        if (_done) return false;
-        var requests = chunk.Requests;
-        var buffers = chunk.Columns;
         try
         {
-            while (!chunk.IsFull)
+            while (_csv.Read())
             {
-                if (!_csv.Read()) { _done = true; break; }
                 int fc = _csv.FieldCount;
                 if (fc <= 1 && _fieldCount > 1 && _csv.RawRecord.Trim(" \t\r"u8).IsEmpty) continue; // a blank line (spaces only) is no row
-                int row = chunk.BeginRow(_csv.LineNumber);
-                if (fc != _fieldCount)
-                    chunk.SetRowProblem(row, $"{fc} fields, the header has {_fieldCount}");
-                for (int k = 0; k < requests.Count; k++)
-                {
-                    var req = requests[k];
-                    var buf = buffers[k];
-                    if (req.ColumnIndex >= fc) { buf.SetNull(row); continue; }
-                    var span = _csv.GetSpan(req.ColumnIndex);
-                    if (IsNull(span)) { buf.SetNull(row); continue; }
-                    if (req.AsText) { buf.SetText(row, Encoding.UTF8.GetString(span)); continue; }
-                    if (FastDecimal.TryParse(span, out var v)) buf.SetNumber(row, v);
-                    else buf.SetInvalid(row, Encoding.UTF8.GetString(span));
-                }
+                (line, fieldCount) = (_csv.LineNumber, fc);
+                return true;
             }
         }
         catch (CsvFormatException ex)
         {
-            throw new InputException($"cannot read the text table: {ex.Message}", _path, ex.LineNumber > 0 ? ex.LineNumber : null, inner: ex);
+            throw new InputException($"cannot read the text table: {ex.Message}", Path, ex.LineNumber > 0 ? ex.LineNumber : null, inner: ex);
         }
-        return chunk.Count > 0;
-    }
-
-    private bool IsNull(ReadOnlySpan<byte> span)
-    {
-        if (span.IsEmpty) return true;
-        foreach (var t in _nullTokens) if (span.SequenceEqual(t)) return true;
+        (line, fieldCount) = (0, 0);
         return false;
     }
 
-    public void Dispose() => _csv.Dispose();
+    protected override void DecodeField(int index, ColumnBuffer buffer, bool asText, int row) => Cells.Decode(_csv.GetSpan(index), buffer, asText, row);
+
+    public override void Dispose() => _csv.Dispose();
 }

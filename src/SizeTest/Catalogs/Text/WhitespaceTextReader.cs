@@ -1,4 +1,3 @@
-using System.Globalization;
 using System.Text;
 
 namespace SizeTest.Catalogs.Text;
@@ -8,64 +7,37 @@ namespace SizeTest.Catalogs.Text;
 /// as journals and archives publish them), with <c>#</c> comments and optional double quotes
 /// around a field. Positions are 1-based file lines.
 /// </summary>
-internal sealed class WhitespaceTextReader : ICatalogReader
+internal sealed class WhitespaceTextReader : TextTableReader
 {
     private readonly StreamReader _reader;
-    private readonly TextLayout _layout;
-    private readonly HashSet<string> _nullTokens;
-    private readonly string _path;
     private long _lineNo;
     private bool _headerSkipped;
-    private bool _done;
+    private string[] _fields = [];
 
-    public WhitespaceTextReader(string path, TextLayout layout, ReaderOptions options)
+    public WhitespaceTextReader(string path, TextLayout layout, ReaderOptions options) : base(path, layout, options)
     {
-        _path = path;
-        _layout = layout;
-        _nullTokens = new HashSet<string>(options.NullTokens);
         _reader = new StreamReader(new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan),
             new UTF8Encoding(false), detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
         _headerSkipped = !layout.HeaderInFirstLine;
-        RowCountHint = layout.CountRecords(path);
     }
 
-    public CatalogFormat Format => CatalogFormat.Text;
-    public string SourceName => _path;
-    public string? TableName => null;
-    public IReadOnlyList<string> Notes => _layout.Notes;
-    public IReadOnlyList<CatalogColumn> Columns => _layout.Columns;
-    public long? RowCountHint { get; }
-
-    public bool ReadChunk(RowChunk chunk)
+    protected override bool NextRecord(out long line, out int fieldCount)
     {
-        chunk.Reset();
-        if (_done) return false;
-        int nCols = _layout.Columns.Count;
-        while (!chunk.IsFull)
+        while (_reader.ReadLine() is { } text)
         {
-            var line = _reader.ReadLine();
-            if (line is null) { _done = true; break; }
             _lineNo++;
-            var t = line.AsSpan().Trim();
+            var t = text.AsSpan().Trim();
             if (t.IsEmpty || t[0] == '#') continue;
             if (!_headerSkipped) { _headerSkipped = true; continue; }
-            var fields = TextLayout.Split(line, ' ');
-            int row = chunk.BeginRow(_lineNo);
-            if (fields.Length != nCols) chunk.SetRowProblem(row, $"{fields.Length} fields, the header has {nCols}");
-            for (int k = 0; k < chunk.Requests.Count; k++)
-            {
-                var req = chunk.Requests[k];
-                var buf = chunk.Columns[k];
-                if (req.ColumnIndex >= fields.Length) { buf.SetNull(row); continue; }
-                var f = fields[req.ColumnIndex];
-                if (f.Length == 0 || _nullTokens.Contains(f)) { buf.SetNull(row); continue; }
-                if (req.AsText) { buf.SetText(row, f); continue; }
-                if (double.TryParse(f, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) buf.SetNumber(row, v);
-                else buf.SetInvalid(row, f);
-            }
+            _fields = TextLayout.Split(text, ' ');
+            (line, fieldCount) = (_lineNo, _fields.Length);
+            return true;
         }
-        return chunk.Count > 0;
+        (line, fieldCount) = (_lineNo, 0);
+        return false;
     }
 
-    public void Dispose() => _reader.Dispose();
+    protected override void DecodeField(int index, ColumnBuffer buffer, bool asText, int row) => Cells.Decode(_fields[index], buffer, asText, row);
+
+    public override void Dispose() => _reader.Dispose();
 }

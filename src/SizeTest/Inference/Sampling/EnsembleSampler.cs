@@ -107,7 +107,7 @@ public sealed class EnsembleSampler
                     nameof(start));
         }
 
-        var memory = new MemoryChainStore();
+        var memory = new MemoryChainStore { CapacityLimit = _options.MaxSteps ?? steps };
         memory.Begin(nw, d, names, steps);
         store?.Begin(nw, d, names, steps);
 
@@ -129,6 +129,7 @@ public sealed class EnsembleSampler
 
         int target = steps;
         int step = 0;
+        double? lastTau = null;
         int burnIn;
         ChainDiagnostics diagnostics;
         while (true)
@@ -167,7 +168,7 @@ public sealed class EnsembleSampler
                 memory.Append(step, positions, logProbs, acceptedStep);
                 store?.Append(step, positions, logProbs, acceptedStep);
                 if (progress is not null && ((step + 1) % reportEvery == 0 || step + 1 == target))
-                    progress.Report(new SamplerProgress(step + 1, target, (double)acceptedAll / ((long)nw * (step + 1)), clock.Elapsed));
+                    progress.Report(new SamplerProgress(step + 1, target, (double)acceptedAll / ((long)nw * (step + 1)), clock.Elapsed) { Tau = lastTau });
             }
             burnIn = _options.BurnIn ?? step / 4;
             diagnostics = ChainDiagnostics.Compute(memory, burnIn, _options.Criteria, (double)acceptedAll / ((long)nw * step));
@@ -175,10 +176,13 @@ public sealed class EnsembleSampler
                 break;
             // Extend: enough steps for MinLengthInTau·τ after the burn-in (+10%), at least half the run again.
             double tau = diagnostics.MaxTau;
+            if (double.IsFinite(tau)) lastTau = tau;
             double keptFraction = _options.BurnIn is null ? 0.75 : 1.0;
             double needed = double.IsFinite(tau) ? 1.1 * _options.Criteria.MinLengthInTau * tau / keptFraction + (_options.BurnIn ?? 0) : 0;
             target = (int)Math.Min(maxSteps, Math.Max(step + step / 2.0, needed));
             if (target <= step) break;
+            memory.Reserve(target);
+            reportEvery = Math.Max(1, target / 100);
         }
         memory.Complete();
         store?.Complete();

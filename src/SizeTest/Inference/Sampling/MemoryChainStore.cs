@@ -26,6 +26,20 @@ public sealed class MemoryChainStore : IChainStore
     /// <summary>Whether <see cref="Complete"/> was called.</summary>
     public bool IsComplete { get; private set; }
 
+    /// <summary>The most steps this store may grow to (null: unbounded). With it the store never holds more than
+    /// CapacityLimit × walkers × (dimension + 1) doubles; appending beyond it throws.</summary>
+    public int? CapacityLimit { get; init; }
+
+    /// <summary>Grows the store to hold <paramref name="steps"/> steps in one block (within <see cref="CapacityLimit"/>).</summary>
+    public void Reserve(int steps)
+    {
+        int stride = Walkers * Dimension;
+        steps = Math.Min(steps, CapacityLimit ?? int.MaxValue);
+        if (stride == 0 || steps * (long)stride <= _positions.Length) return;
+        Array.Resize(ref _positions, checked(steps * stride));
+        Array.Resize(ref _logProbabilities, checked(steps * Walkers));
+    }
+
     /// <inheritdoc/>
     public void Begin(int walkers, int dimension, IReadOnlyList<string> parameterNames, int expectedSteps)
     {
@@ -38,7 +52,7 @@ public sealed class MemoryChainStore : IChainStore
         Steps = 0;
         IsComplete = false;
         _names = [.. parameterNames];
-        int capacity = Math.Max(expectedSteps, 16);
+        int capacity = Math.Min(Math.Max(expectedSteps, 16), Math.Max(CapacityLimit ?? int.MaxValue, 1));
         _positions = new double[checked(capacity * walkers * dimension)];
         _logProbabilities = new double[capacity * walkers];
         _acceptedCounts = new int[walkers];
@@ -54,7 +68,9 @@ public sealed class MemoryChainStore : IChainStore
         int stride = Walkers * Dimension;
         if ((Steps + 1) * stride > _positions.Length)
         {
-            int capacity = Math.Max(2 * (Steps + 1), 16);
+            if (CapacityLimit is { } limit && Steps + 1 > limit)
+                throw new InvalidOperationException($"the chain store is full: it holds at most {limit} steps");
+            int capacity = Math.Min(Math.Max(2 * (Steps + 1), 16), CapacityLimit ?? int.MaxValue);
             Array.Resize(ref _positions, capacity * stride);
             Array.Resize(ref _logProbabilities, capacity * Walkers);
         }

@@ -9,4 +9,7 @@ public sealed record SamplerProgress(int Step, int TotalSteps, double Acceptance
 {
     /// <summary>Fraction done, 0 … 1.</summary>
     public double Fraction => TotalSteps == 0 ? 1.0 : (double)Step / TotalSteps;
+
+    /// <summary>Largest integrated autocorrelation time at the last convergence check (steps), or null before the first.</summary>
+    public double? Tau { get; init; }
 }

@@ -47,7 +47,7 @@ internal sealed class GaussianDataLikelihood : ILogDensity
     /// <summary>
     /// Exact ln Z under independent uniform priors U[a_k, b_k]:
     /// Z_k = (1/(b−a)) ∫_a^b L dμ = L_max,k σ_μ √(2π)/(b−a) · ½[erf((b−ȳ)/(√2σ_μ)) − erf((a−ȳ)/(√2σ_μ))]
-    /// (Sivia &amp; Skilling 2006 ch. 4; /work/shared/science-checks.md §1.7), and ln Z = ln L_max + Σ_k ln(Z_k/L_max,k).
+    /// (Sivia &amp; Skilling 2006 ch. 4; docs/science.md §1.7), and ln Z = ln L_max + Σ_k ln(Z_k/L_max,k).
     /// </summary>
     public double AnalyticLogEvidence(IReadOnlyList<UniformPrior> priors)
     {

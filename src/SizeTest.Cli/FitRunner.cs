@@ -1,0 +1,183 @@
+using SizeTest.Catalogs;
+using SizeTest.Common;
+using SizeTest.Distributed;
+using SizeTest.Inference;
+using SizeTest.Inference.Evaluation;
+using SizeTest.Photometry;
+using SizeTest.Studies;
+
+namespace SizeTest.Cli;
+
+/// <summary>What <c>sizetest fit</c> parsed.</summary>
+internal sealed record FitArgs(
+    string CatalogPath, CatalogLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
+    IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
+    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+{
+    /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
+    public bool CvFoldsExplicit { get; init; }
+    /// <summary>Every file the run reads (catalogue, photometry files): an output folder holding one is refused.</summary>
+    public IReadOnlyList<string> Inputs { get; init; } = [];
+    /// <summary>Largest fraction of objects outside the stated cuts (--max-outside-selection); see <see cref="SelectionConsistency"/>.</summary>
+    public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
+}
+
+/// <summary>
+/// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
+/// its share of the catalogue (<see cref="CatalogShare"/>; one process: all of it), the processes run
+/// <see cref="FitStudy"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
+/// rank 0 alone writes the output folder through <see cref="StudyOutputFiles"/> (the writer <c>sizetest run</c> uses)
+/// and prints. A failure before the fit (output folder, catalogue) is agreed between the ranks so all exit with the same
+/// code and one rank prints it; a failure during the fit aborts all ranks.
+/// </summary>
+internal static class FitRunner
+{
+    public static int Run(CliContext context, FitArgs a)
+    {
+        var ranks = RankContext.Start(); // throws InputException for a wrong launcher (exit 2)
+        bool root = ranks.IsRoot;
+
+        OutputFolder? folder = null;
+        int code = Agree(context, ranks, () => { if (root) folder = OutputFolder.Begin(a.OutputPath, a.Force, a.Inputs); });
+        if (code != 0) return code;
+
+        CatalogShare? share = null;
+        PhotometryResult? built = null;
+        SelectionSplit? split = null;
+        code = Agree(context, ranks, () =>
+        {
+            share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
+            built = ObservablesBuilder.Build(share.Local, a.Photometry);
+            // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
+            var nuisance = a.Hypotheses[0].Nuisance;
+            split = SelectionConsistency.Classify(built.Observables, nuisance, i => share.Local.SourceRows[i], role => role.Name());
+            if (split.Outside.Count > 0)
+            {
+                var keep = split.Keep.ToArray();
+                var log = new RejectLog(share.Rejects.SourceName);
+                foreach (var e in share.Rejects.Entries.Concat(split.Outside).OrderBy(e => e.Row)) log.Add(e);
+                share = share with
+                {
+                    Local = share.Local.Take(keep), Accepted = share.Accepted - split.Outside.Count, // sums over ranks stay right whoever counted the row
+                    Rejected = share.Rejected + split.Outside.Count, Rejects = log,
+                    ChunkKeys = share.ChunkKeys is { } ck ? keep.Select(i => ck[i]).ToArray() : null,
+                };
+                built = new PhotometryResult(ObservablesSubset.Take(built.Observables, keep), built.Corrections);
+            }
+            var local = built.Observables;
+            // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
+            if (local.Count > 0)
+                foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
+        });
+        if (code != 0)
+        {
+            folder?.Abandon();
+            return code;
+        }
+
+        // The selection decision over all ranks (every rank gets the same sums, so all decide alike).
+        var sums = new double[5];
+        ranks.SumAll([split!.Outside.Count + built!.Observables.Count, split.Outside.Count,
+            split.Outside.Count(e => e.Reason == RejectReason.OutsideSbLimit), split.Outside.Count(e => e.Reason == RejectReason.OutsideMagLimit),
+            split.Outside.Count(e => e.Reason == RejectReason.OutsideMinSize)], sums);
+        string? selectionWarning = null;
+        if (sums[1] > 0)
+        {
+            try
+            {
+                var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
+                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CatalogPath);
+                if (root) context.Err.WriteLine($"sizetest: warning: {selectionWarning}");
+            }
+            catch (InputException e)
+            {
+                folder?.Abandon();
+                return root ? context.Fail(e) : ExitCodes.BadInput;
+            }
+        }
+
+        try
+        {
+            var totals = share!.Combine(ranks);
+            var local = built!.Observables;
+            if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
+                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CatalogPath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
+            var backend = new EvaluationBackend(ranks, local, share.Local.SourceRows, share.ChunkKeys);
+            var request = new FitRequest
+            {
+                Hypotheses = a.Hypotheses,
+                Observables = local,
+                Backend = backend,
+                Source = a.CatalogPath,
+                RowsRead = totals.RowsRead,
+                Rejected = totals.Rejected,
+                Seed = a.Seed,
+                Starts = a.Starts,
+                Bootstrap = a.Bootstrap,
+                CrossValidationFolds = a.CrossValidationFolds,
+                ProfileParameter = a.ProfileParameter,
+                Expected = a.Expected,
+                Sampler = a.Sampler,
+                Walkers = a.Walkers,
+                Steps = a.Steps,
+                MaxSteps = a.MaxSteps,
+                LivePoints = a.LivePoints,
+                ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+            };
+            var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
+            if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
+            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. result.Notes] };
+
+            StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
+            folder!.Commit();
+            folder = null;
+
+            switch (a.Format)
+            {
+                case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
+                case "csv": context.Out.Write(FitTables.Csv(result)); break;
+                default: FitTables.WriteTable(context.Out, result); break;
+            }
+            if (!result.AllConverged)
+            {
+                var bad = result.Models.Where(m => !m.Converged).Select(m => $"{m.Name} ({m.ExitReason})");
+                context.Err.WriteLine($"sizetest: fit did not converge for {string.Join("; ", bad)}; results were written to {a.OutputPath} but are not reliable");
+                return ExitCodes.AnalysisFailed;
+            }
+            return ExitCodes.Success;
+        }
+        catch (Exception ex)
+        {
+            folder?.Abandon();
+            if (!root) context.Err.Write($"sizetest: rank {ranks.Rank} of {ranks.Size}: ");
+            code = context.Fail(ex);
+            if (ranks.Size > 1)
+            {
+                context.Err.Flush();
+                ranks.Abort(code); // the other ranks wait in a collective call
+            }
+            return code;
+        }
+    }
+
+    // Runs a step on every rank, then agrees on the outcome: when any rank failed, the lowest failing rank prints its
+    // error and every rank returns that rank's exit code; 0 when all succeeded.
+    private static int Agree(CliContext context, IRankReducer ranks, Action step)
+    {
+        Exception? error = null;
+        try { step(); }
+        catch (Exception ex) { error = ex; }
+        var local = new double[ranks.Size];
+        var all = new double[ranks.Size];
+        if (error is not null) local[ranks.Rank] = Math.Max(1, new CliContext(TextWriter.Null, TextWriter.Null, verbose: false).Fail(error));
+        ranks.SumAll(local, all);
+        int failed = Array.FindIndex(all, v => v != 0);
+        if (failed < 0) return ExitCodes.Success;
+        if (failed == ranks.Rank)
+        {
+            if (!ranks.IsRoot) context.Err.Write($"sizetest: rank {ranks.Rank} of {ranks.Size}: ");
+            context.Fail(error!);
+        }
+        return (int)all[failed];
+    }
+}

@@ -1,0 +1,172 @@
+namespace SizeTest.Inference.Evaluation;
+
+/// <summary>
+/// ln L of one hypothesis over the rows of an <see cref="EvaluationBackend"/> (optionally re-weighted): each process
+/// sums its chunks with <see cref="ISlicedLogLikelihood.Prepare"/>/<see cref="ISlicedLogLikelihood.SumSlice"/> (or
+/// <see cref="ISlicedLogLikelihood.SumSliceWithGradient"/>), one collective sum gathers the chunk sums (value and
+/// gradient together, 1 + d numbers per chunk), and every process adds them in the global chunk order.
+/// </summary>
+/// <remarks>Collective under MPI: every process must call <see cref="LogDensity"/> with the same θ in the same order.
+/// Thread-safe in a single process.</remarks>
+public sealed class RowSumLikelihood : ILogDensityWithGradient
+{
+    private const int ParallelRows = 65536;
+    private readonly EvaluationBackend _backend;
+    private readonly HypothesisLikelihood? _local;
+    private readonly int[] _bounds; // local chunk c = rows [_bounds[c], _bounds[c+1]) of _local
+    private readonly PosteriorDensity _posterior;
+
+    internal RowSumLikelihood(EvaluationBackend backend, Hypothesis hypothesis, int[]? multiplicity)
+    {
+        ArgumentNullException.ThrowIfNull(hypothesis);
+        _backend = backend;
+        Hypothesis = hypothesis;
+        var obs = backend.Local;
+        int chunks = backend.LocalChunks;
+        _bounds = new int[chunks + 1];
+        if (multiplicity is null)
+        {
+            for (int c = 0; c < chunks; c++) _bounds[c] = backend.ChunkRange(c).Start;
+            _bounds[chunks] = obs.Count;
+            if (obs.Count > 0) _local = new HypothesisLikelihood(hypothesis, obs, backend.GridSpan) { AllowParallel = false };
+        }
+        else
+        {
+            if (multiplicity.Length != obs.Count) throw new ArgumentException($"{multiplicity.Length} weights for {obs.Count} objects", nameof(multiplicity));
+            var rows = new List<int>();
+            for (int c = 0; c < chunks; c++)
+            {
+                _bounds[c] = rows.Count;
+                var (s, e) = backend.ChunkRange(c);
+                for (int i = s; i < e; i++)
+                    for (int w = multiplicity[i]; w > 0; w--) rows.Add(i);
+            }
+            _bounds[chunks] = rows.Count;
+            if (rows.Count > 0)
+                _local = new HypothesisLikelihood(hypothesis, ObservablesSubset.Take(obs, System.Runtime.InteropServices.CollectionsMarshal.AsSpan(rows)), backend.GridSpan) { AllowParallel = false };
+        }
+        _posterior = new PosteriorDensity(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
+    }
+
+    /// <summary>The hypothesis.</summary>
+    public Hypothesis Hypothesis { get; }
+
+    /// <inheritdoc/>
+    public int Dimension => Hypothesis.K;
+
+    /// <summary>ln L + Σ ln prior (the objective of maximum-likelihood fits; see <see cref="HypothesisLikelihood.Posterior"/>).</summary>
+    public ILogDensity Posterior => _posterior;
+
+    /// <summary>ln L(θ) over all processes' rows, with all constants; −∞ outside the bounds or where the model is undefined.</summary>
+    public double LogDensity(ReadOnlySpan<double> theta) => Evaluate(theta, default, false);
+
+    /// <summary>ln L(θ) and its analytic gradient ∂ln L/∂θ (zero where ln L = −∞), in one collective sum.</summary>
+    public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient) => Evaluate(theta, gradient, true);
+
+    private double Evaluate(ReadOnlySpan<double> theta, Span<double> gradient, bool withGradient)
+    {
+        if (theta.Length != Dimension) throw new ArgumentException($"expected {Dimension} parameters, got {theta.Length}");
+        if (withGradient) return EvaluateWithGradient(theta, gradient);
+        var slots = new double[_backend.TotalChunks];
+        int off = _backend.ChunkOffset, chunks = _bounds.Length - 1;
+        if (_local is not null)
+        {
+            var e = _local.Prepare(theta, false);
+            if (e is null)
+            {
+                for (int c = 0; c < chunks; c++) slots[off + c] = double.NegativeInfinity;
+            }
+            else if (_backend.Concurrent && _local.Count >= ParallelRows && Environment.ProcessorCount > 1)
+            {
+                int workers = Math.Min(Environment.ProcessorCount, chunks);
+                Parallel.For(0, workers, w =>
+                {
+                    for (int c = w * chunks / workers, end = (w + 1) * chunks / workers; c < end; c++)
+                        slots[off + c] = _local.SumSlice(e, _bounds[c], _bounds[c + 1]);
+                });
+            }
+            else
+            {
+                for (int c = 0; c < chunks; c++) slots[off + c] = _local.SumSlice(e, _bounds[c], _bounds[c + 1]);
+            }
+        }
+        double ll = _backend.SumChunks(slots);
+        return double.IsNaN(ll) ? double.NegativeInfinity : ll;
+    }
+
+    // Slots of 1 + d numbers per chunk: the chunk's ln L, then its gradient.
+    private double EvaluateWithGradient(ReadOnlySpan<double> theta, Span<double> gradient)
+    {
+        int d = Dimension, w = 1 + d;
+        var slots = new double[_backend.TotalChunks * w];
+        int off = _backend.ChunkOffset, chunks = _bounds.Length - 1;
+        if (_local is not null)
+        {
+            var e = _local.Prepare(theta, true);
+            if (e is null)
+            {
+                for (int c = 0; c < chunks; c++) slots[(off + c) * w] = double.NegativeInfinity;
+            }
+            else
+            {
+                void Chunk(int c) => slots[(off + c) * w] = _local.SumSliceWithGradient(e, _bounds[c], _bounds[c + 1], slots.AsSpan((off + c) * w + 1, d));
+                if (_backend.Concurrent && _local.Count >= ParallelRows && Environment.ProcessorCount > 1)
+                {
+                    int workers = Math.Min(Environment.ProcessorCount, chunks);
+                    Parallel.For(0, workers, k =>
+                    {
+                        for (int c = k * chunks / workers, end = (k + 1) * chunks / workers; c < end; c++) Chunk(c);
+                    });
+                }
+                else
+                    for (int c = 0; c < chunks; c++) Chunk(c);
+            }
+        }
+        var total = _backend.SumAll(slots);
+        double ll = 0;
+        gradient.Clear();
+        for (int c = 0; c < _backend.TotalChunks; c++)
+        {
+            ll += total[c * w];
+            for (int j = 0; j < d; j++) gradient[j] += total[c * w + 1 + j];
+        }
+        if (!double.IsFinite(ll))
+        {
+            gradient.Clear();
+            return double.NegativeInfinity;
+        }
+        return ll;
+    }
+
+    private sealed class PosteriorDensity(RowSumLikelihood owner, ParameterPrior[] priors) : ILogDensityWithGradient
+    {
+        public int Dimension => owner.Dimension;
+
+        public double LogDensity(ReadOnlySpan<double> theta)
+        {
+            // The prior is a function of θ alone, so every process skips the collective call for the same θ.
+            double lp = 0;
+            for (int j = 0; j < priors.Length; j++)
+            {
+                lp += priors[j].LogDensity(theta[j]);
+                if (double.IsNegativeInfinity(lp)) return lp;
+            }
+            return lp + owner.LogDensity(theta);
+        }
+
+        public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
+        {
+            gradient.Clear();
+            double lp = 0;
+            for (int j = 0; j < priors.Length; j++)
+            {
+                lp += priors[j].LogDensity(theta[j]);
+                if (double.IsNegativeInfinity(lp)) return lp;
+            }
+            double ll = owner.LogDensityAndGradient(theta, gradient);
+            if (double.IsNegativeInfinity(ll)) return ll;
+            for (int j = 0; j < priors.Length; j++) gradient[j] += priors[j].LogDensityDerivative(theta[j]);
+            return lp + ll;
+        }
+    }
+}

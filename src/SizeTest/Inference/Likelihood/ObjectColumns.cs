@@ -1,0 +1,66 @@
+using SizeTest.Common;
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference.Likelihood;
+
+/// <summary>
+/// The per-object inputs of the likelihood that do not depend on parameters, one array per quantity (structure of
+/// arrays): y = ln θ (radians) and its variance, μ and its variance, the additive SB corrections K + A, x = ln(1+z),
+/// ℓ = log10(1+z), ln z and, for isophotal sizes, each object's isophote. Built once per bound sample.
+/// </summary>
+internal sealed class ObjectColumns
+{
+    public ObjectColumns(Observables observables, bool size, bool sb)
+    {
+        Count = observables.Count;
+        int n = Count;
+        if (size)
+        {
+            LnTheta = observables.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
+            VarLnTheta = Square(observables.LnThetaErr, n);
+            UniformVarLnTheta = Array.TrueForAll(VarLnTheta, v => v == VarLnTheta[0]);
+        }
+        if (sb)
+        {
+            Mu = observables.Mu ?? throw new InputException("fitting surface brightness needs a 'mu' column; map it with --col mu=NAME");
+            VarMu = Square(observables.MuErr, n);
+            Correction = new double[n];
+            for (int i = 0; i < n; i++)
+                Correction[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
+            NegCorrection = Array.ConvertAll(Correction, c => -c);
+            UniformVarMu = Array.TrueForAll(VarMu, v => v == VarMu[0]);
+        }
+        Ln1pZ = new double[n];
+        Log10OnePlusZ = new double[n];
+        LnZ = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            double z = observables.Z[i];
+            if (!(z > 0) || !double.IsFinite(z)) throw new InputException($"object {i + 1} has redshift {z}; fits need z > 0");
+            Ln1pZ[i] = Math.Log(1 + z);
+            Log10OnePlusZ[i] = Ln1pZ[i] / ModelPoint.Ln10;
+            LnZ[i] = Math.Log(z);
+        }
+    }
+
+    public int Count { get; }
+    public double[] LnTheta { get; } = [];
+    public double[] VarLnTheta { get; } = [];
+    public bool UniformVarLnTheta { get; }
+    public double[] Mu { get; } = [];
+    public double[] VarMu { get; } = [];
+    public bool UniformVarMu { get; }
+    public double[] Correction { get; } = [];
+    public double[] NegCorrection { get; } = [];
+    public double[] Ln1pZ { get; }
+    public double[] Log10OnePlusZ { get; }
+    public double[] LnZ { get; }
+
+    private static double[] Square(double[]? e, int n)
+    {
+        var s = new double[n];
+        if (e is not null)
+            for (int i = 0; i < n; i++) s[i] = e[i] * e[i];
+        return s;
+    }
+}
