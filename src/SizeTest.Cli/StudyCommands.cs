@@ -1,7 +1,5 @@
 using System.CommandLine;
-using System.Diagnostics;
 using System.Globalization;
-using System.Reflection;
 using SizeTest.Common;
 using SizeTest.Studies;
 
@@ -79,8 +77,8 @@ internal static class StudyCommands
         {
             OutputDirectory = outDir,
             Force = force,
-            Version = Version(),
-            GitCommit = GitCommit(),
+            Version = BuildInfo.Version,
+            GitCommit = BuildInfo.Commit,
             Command = "sizetest " + string.Join(' ', Environment.GetCommandLineArgs().Skip(1).Select(a => a.Contains(' ', StringComparison.Ordinal) ? $"\"{a}\"" : a)),
             Log = line => context.Err.WriteLine($"sizetest {verb}: {line}"),
             FitProgress = new FitProgressReporter(context),
@@ -95,31 +93,5 @@ internal static class StudyCommands
             return ExitCodes.AnalysisFailed;
         }
         return ExitCodes.Success;
-    }
-
-    private static string Version() =>
-        typeof(StudyRunner).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0]
-        ?? typeof(StudyRunner).Assembly.GetName().Version?.ToString() ?? "unknown";
-
-    /// <summary><c>git rev-parse HEAD</c> in the working directory, or "unknown" without git or outside a repository.</summary>
-    private static string GitCommit()
-    {
-        try
-        {
-            var psi = new ProcessStartInfo("git", "rev-parse HEAD")
-            {
-                RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
-                WorkingDirectory = Directory.GetCurrentDirectory(),
-            };
-            using var p = Process.Start(psi);
-            if (p is null) return "unknown";
-            var text = p.StandardOutput.ReadToEnd().Trim();
-            p.WaitForExit(5000);
-            return p.ExitCode == 0 && text.Length >= 7 ? text : "unknown";
-        }
-        catch (Exception e) when (e is System.ComponentModel.Win32Exception or InvalidOperationException or IOException)
-        {
-            return "unknown";
-        }
     }
 }

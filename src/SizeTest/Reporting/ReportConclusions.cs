@@ -63,6 +63,18 @@ public static class ReportConclusions
     public static IReadOnlyList<string> Statements(ReportData data)
     {
         ArgumentNullException.ThrowIfNull(data);
-        return data.EvolutionTests.Select(EvolutionTestTable.Statement).ToList();
+        return Rows(data).Select(EvolutionTestTable.Statement).ToList();
+    }
+
+    /// <summary>
+    /// The evolution-test rows: those the study computed, or, for report data made without them, one untested row per
+    /// required evolution (so the report states the estimates and claims nothing about zero).
+    /// </summary>
+    public static IReadOnlyList<EvolutionTestRow> Rows(ReportData data)
+    {
+        ArgumentNullException.ThrowIfNull(data);
+        if (data.EvolutionTests.Count > 0) return data.EvolutionTests;
+        return data.Models.SelectMany(m => m.RequiredEvolution.Select(e =>
+            new EvolutionTestRow(m.Fit.Name, e.Name, e.Value, e.Lo, e.Hi, null, EvolutionNeed.NotTested, Plausibility.NotJudged, null))).ToList();
     }
 }

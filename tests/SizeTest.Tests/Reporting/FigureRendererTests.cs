@@ -93,7 +93,7 @@ public sealed class FigureRendererTests
         Assert.Equal(6, main.OfType<LineSeries>().Count());
         Assert.True(spec.Panels[0].X.Log && spec.Panels[0].Y.Log);
         Assert.Equal(2, spec.Panels.Count); // residual panel
-        Assert.Equal("residuals against lcdm", spec.Panels[1].Note);
+        Assert.Equal("residuals against ΛCDM", spec.Panels[1].Note);
     }
 
     [Fact]
@@ -138,9 +138,10 @@ public sealed class FigureRendererTests
     {
         var spec = Get("power");
         var png = FigureRenderer.RenderPng(spec);
-        // 6.4 in × 4.8 in at 300 dpi = 1920 × 1440 pixels.
+        // 6.4 in × 4.8 in of panels at 300 dpi = 1920 × 1440 pixels, plus the legend band drawn under them.
         Assert.Equal(1920, png.Width);
-        Assert.Equal(1440, png.Height);
+        Assert.Equal((int)Math.Round(FigureRenderer.LogicalSize(spec).Height * 300 / 96.0), png.Height);
+        Assert.True(png.Height > 1440 && png.Layout.LegendRect.Top >= 4.8f * 96 - 0.5f);
         using var bmp = SKBitmap.Decode(png.Bytes);
         Assert.Equal(1920, bmp.Width);
     }

@@ -16,7 +16,7 @@ public sealed class HtmlReportTests
     {
         var doc = new HtmlParser().ParseDocument(Page.Value);
         var ids = doc.QuerySelectorAll("section[data-section]").Select(s => s.Id).ToList();
-        Assert.Equal(["job-summary", "data-summary", "conclusions", "tables", "figures", "manifest"], ids);
+        Assert.Equal(["verdict", "job-summary", "data-summary", "conclusions", "tables", "figures", "manifest"], ids);
         Assert.Equal(ids, doc.QuerySelectorAll("nav a").Select(a => a.GetAttribute("href")!.TrimStart('#')));
     }
 
@@ -76,7 +76,8 @@ public sealed class HtmlReportTests
         Assert.Equal(3, cmp.QuerySelectorAll("tbody tr").Length);
         var par = doc.GetElementById("table-parameters")!;
         Assert.Equal(Content.Value.Data.Models.Sum(m => m.Fit.Parameters.Count), par.QuerySelectorAll("tbody tr").Length);
-        Assert.Contains("\"seed\": 7", doc.QuerySelector("pre.manifest")!.TextContent);
+        Assert.Contains("7", doc.QuerySelector(".provenance")!.TextContent);
+        Assert.Null(doc.QuerySelector("pre.manifest")); // the full JSON stays in manifest.json
     }
 
     /// <summary>Screenshots a page in headless Chromium; returns the exit code, stderr and the console lines it logged.</summary>

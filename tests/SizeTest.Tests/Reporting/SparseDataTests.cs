@@ -27,10 +27,10 @@ public sealed class SparseDataTests
         Assert.Empty(content.Figures);
         Assert.Contains("No model was fitted.", content.Conclusions);
         var doc = new HtmlParser().ParseDocument(new HtmlReportWriter(embedFont: false).Render(content));
-        Assert.Equal(6, doc.QuerySelectorAll("section[data-section]").Length);
+        Assert.Equal(7, doc.QuerySelectorAll("section[data-section]").Length);
         Assert.Contains("No figure could be drawn", doc.GetElementById("figures")!.TextContent);
         Assert.Contains("No row was rejected", doc.GetElementById("data-summary")!.TextContent);
-        Assert.True(new PdfReportWriter().Render(content).Pages >= 5);
+        Assert.True(new PdfReportWriter().Render(content).Pages >= 1); // no empty pages: sections flow on
     }
 
     [Fact]

@@ -233,7 +233,8 @@ public sealed class StudyRunTests
             Assert.True(File.Exists(Path.Combine(outDir, "report.html")));
             Assert.True(File.Exists(Path.Combine(outDir, "report.pdf")));
             // The demo catalogue is drawn from flat ΛCDM (demo-catalogs/qdf-optical/README.md): ΛCDM should rank first.
-            Assert.Contains("1. lcdm", stdout);
+            Assert.Matches(@"\n\s+1\s+ΛCDM\s", stdout);
+            Assert.Contains("verdict: ΛCDM", stdout);
         }
         finally
         {

@@ -33,6 +33,9 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
     {
         ArgumentNullException.ThrowIfNull(result);
         var inv = CultureInfo.InvariantCulture;
+        // The multimodality scan's maxima (ModelFitSummary.Modes) unless the caller passes its own.
+        modes ??= result.Models.Where(m => m.Modes.Count > 1)
+            .ToDictionary(m => m.Name, m => (IReadOnlyList<double>)m.Modes.Select(x => x.LogLikelihood).ToList(), StringComparer.Ordinal);
         var finite = result.Models.Where(m => double.IsFinite(m.LogLikelihood) && double.IsFinite(m.Bic)).ToList();
         bool byEvidence = finite.Count > 1 && finite.All(m => m.LogEvidence is { } z && double.IsFinite(z));
         var ranked = byEvidence ? finite.OrderByDescending(m => m.LogEvidence!.Value).ToList() : finite.OrderBy(m => m.Bic).ToList();
@@ -68,7 +71,7 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
             return new StudyVerdict(best.Name, false, strength,
                 $"The fit of {Join(failed.Select(L).ToList())} did not converge ({string.Join("; ", failed.Select(f => f.ExitReason).Where(r => r.Length > 0).DefaultIfEmpty("no reason given"))}), so the ranking of {L(best)} over {L(second)} ({gap}) cannot be trusted.");
 
-        if (modes is not null)
+        if (modes.Count > 0)
         {
             // A mode of another model whose ln L (with that model's k) would give a lower BIC than the best's changes the ranking.
             foreach (var m in ranked.Skip(1))

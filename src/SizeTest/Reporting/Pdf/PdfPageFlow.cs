@@ -63,7 +63,7 @@ internal sealed class PdfPageFlow : IDisposable
 
     public void Heading(string text, float size = 15f)
     {
-        Ensure(size * 2.6f, text);
+        Ensure(size * 2.6f + 80f, text); // keep a heading with at least a few lines of what follows (no orphaned heading)
         Y += size * 0.9f;
         using var f = Font(true, size);
         Canvas.DrawText(text, Left, Y + size * 0.8f, SKTextAlign.Left, f, ink);

@@ -51,7 +51,9 @@ public sealed class PdfReportWriter
                 ("catalogue", job.Catalogue),
                 ("models", string.Join(", ", data.Models.Select(m => m.Label))),
                 ("method", job.Method.Length > 0 ? job.Method : "(not stated)"),
-                ("rows", $"{d.RowsRead.ToString(CultureInfo.InvariantCulture)} read, {d.Accepted.ToString(CultureInfo.InvariantCulture)} accepted, {d.Rejected.ToString(CultureInfo.InvariantCulture)} rejected"),
+                ("rows read", d.RowsRead.ToString(CultureInfo.InvariantCulture)),
+                ("accepted", d.Accepted.ToString(CultureInfo.InvariantCulture)),
+                ("rejected", d.Rejected.ToString(CultureInfo.InvariantCulture)),
                 ("size definition", d.SizeDefinition.Length > 0 ? d.SizeDefinition : "(not stated)"),
                 ("band", d.Band.Length > 0 ? d.Band : "(not stated)"),
             ]);
@@ -69,10 +71,10 @@ public sealed class PdfReportWriter
             flow.Paragraph("Caution. " + ReportConclusions.Caution, 9.5f, isMuted: true);
 
             // Figures.
-            flow.NewPage("Figures");
             flow.Heading("Figures");
             int n = 0;
             foreach (var f in content.Figures) flow.Figure(f, ++n);
+            if (n == 0) flow.Paragraph("No figure could be drawn from these results.", 10f);
 
             // Tables (the summary, evolution-test and reject tables are shown above).
             flow.Heading("Parameters and model comparison");

@@ -48,13 +48,15 @@ public static class ReportTables
                       "Plausibility compares the 68% interval with published expectations (see the evolution tests below).",
             MachineColumns = ["model", "delta_bic", "strength", "size_evolution", "sb_evolution", "plausibility", "converged"],
             MachineRows = raw,
+            EmptyText = "No model was fitted.",
         };
     }
 
     /// <summary>The one table of evolution tests the conclusions are generated from.</summary>
     public static ReportTable EvolutionTests(ReportData data)
     {
-        var rows = data.EvolutionTests.Select(r => (IReadOnlyList<string>)
+        var tests = ReportConclusions.Rows(data);
+        var rows = tests.Select(r => (IReadOnlyList<string>)
         [
             r.ModelLabel, r.Symbol, r.ValueText,
             r.PValue is { } p ? LikelihoodRatioTestPValue(p) : "not run",
@@ -62,12 +64,12 @@ public static class ReportTables
             r.Expectation is { } e ? $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]" : "—",
             EvolutionTestTable.PlausibilityWords(r.Plausibility),
         ]).ToList();
-        var raw = data.EvolutionTests.Select(r => (IReadOnlyList<string>)
+        var raw = tests.Select(r => (IReadOnlyList<string>)
         [
             r.Model, r.Parameter, R(r.Value), R(r.Lo), R(r.Hi), r.PValue is { } p ? R(p) : "",
             r.Need.ToString(), r.Expectation is { } e ? R(e.Lo) : "", r.Expectation is { } e2 ? R(e2.Hi) : "", r.Plausibility.ToString(),
         ]).ToList();
-        var sources = data.EvolutionTests.Select(r => r.Expectation).Where(e => e is not null).Select(e => $"{EvolutionTestTable.What(e!.Parameter)}: {e.ShortSource}").Distinct().ToList();
+        var sources = tests.Select(r => r.Expectation).Where(e => e is not null).Select(e => $"{EvolutionTestTable.What(e!.Parameter)}: {e.ShortSource}").Distinct().ToList();
         return new ReportTable("evolution-tests", "Evolution tests", ["model", "term", "estimate (68% interval)", "LRT p (zero)", "at 95% level", "expected", "plausibility"], rows)
         {
             Caption = "Every statement about needed evolution comes from this table. Zero evolution is tested by one test only: the likelihood-ratio test of the model against the same model with the term fixed at 0 (Wilks 1938), " +
