@@ -24,7 +24,8 @@ internal static class FitTables
 
     // How an interval was obtained, when it is not the Hessian's.
     private static string Marker(ParameterEstimate p) =>
-        (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
+        (p.Regions.Count > 1 ? " = " + string.Join(" ∪ ", p.Regions.Select(q => string.Create(Inv, $"[{q.Lo:0.####}, {q.Hi:0.####}]"))) : "")
+        + (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
         + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
 
     /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>

@@ -28,7 +28,7 @@ public static class IntervalCoverageHarness
         var r = IntervalCoverageStudy.Run(template, hypothesis, truth, mocks, Seed, first: first);
         o.WriteLine($"interval coverage: {r.Mocks} mocks (index {first}..{first + mocks - 1}) of 2000 galaxies, lcdm omega_m free; {r.Multimodal} multimodal; {sw.Elapsed.TotalSeconds:0.0} s");
         foreach (var c in r.Parameters)
-            o.WriteLine(FormattableString.Invariant($"  {c.Name,-15} truth {c.Truth,6:0.###}  reported {c.Covered,4}/{c.Mocks} = {c.Coverage:P1}  plain Hessian {c.HessianCovered,4}/{c.Mocks} = {c.HessianCoverage:P1}  methods {string.Join(", ", c.ByMethod.Select(kv => $"{kv.Key} {kv.Value}"))}"));
+            o.WriteLine(FormattableString.Invariant($"  {c.Name,-15} truth {c.Truth,6:0.###}  reported {c.Covered,4}/{c.Mocks} = {c.Coverage:P1}  hull {c.HullCovered,4}/{c.Mocks} = {c.HullCoverage:P1}  plain Hessian {c.HessianCovered,4}/{c.Mocks} = {c.HessianCoverage:P1}  methods {string.Join(", ", c.ByMethod.Select(kv => $"{kv.Key} {kv.Value}"))}"));
     }
 
     /// <summary>The design, hypothesis and truth of the study.</summary>

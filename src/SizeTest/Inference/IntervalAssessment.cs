@@ -60,6 +60,7 @@ public static class IntervalAssessment
         var notes = new List<string>();
         var profiled = new List<string>();
         var nonQuadratic = new List<string>();
+        var disjoint = new List<string>();
         for (int i = 0; i < list.Count; i++)
         {
             var p = list[i];
@@ -83,7 +84,10 @@ public static class IntervalAssessment
                 || Math.Abs((cr.Hi - v) / se - 1) > QuadraticTolerance && !(atBound == "upper");
             if (!(must || differs)) continue;
             double lo = atBound == "lower" ? spec.Min : cr.Lo, hi = atBound == "upper" ? spec.Max : cr.Hi;
-            list[i] = p with { Lo = lo, Hi = hi, IntervalMethod = IntervalMethods.Profile, AtBound = atBound };
+            var pieces = cr.Regions.Count > 1 ? cr.Regions.Select(r => new IntervalPiece(r.Lo, r.Hi)).ToArray() : [];
+            list[i] = p with { Lo = lo, Hi = hi, IntervalMethod = IntervalMethods.Profile, AtBound = atBound, Regions = pieces };
+            if (pieces.Length > 1)
+                disjoint.Add(p.Name + " " + string.Join(" ∪ ", pieces.Select(q => FormattableString.Invariant($"[{q.Lo:G3}, {q.Hi:G3}]"))));
             profiled.Add(p.Name);
             if (atBound is not null)
                 notes.Add(FormattableString.Invariant($"{summary.Name}: {p.Name} is at its {atBound} bound {(atBound == "lower" ? spec.Min : spec.Max):G4}; its interval is one-sided, [{lo:G4}, {hi:G4}] from the profile likelihood, not a ±σ interval"));
@@ -91,6 +95,8 @@ public static class IntervalAssessment
         }
         if (nonQuadratic.Count > 0)
             notes.Add($"{summary.Name}: the profile likelihood is not close to quadratic for {string.Join("; ", nonQuadratic)}, so the profile interval is reported");
+        if (disjoint.Count > 0)
+            notes.Add($"{summary.Name}: the 68% profile-likelihood set is not one interval: {string.Join("; ", disjoint)} (lo–hi is their hull, which spans the modes and covers more than 68%; results.json lists the pieces as regions)");
         IReadOnlyList<FitMode> modes = [];
         if (search.Multimodal)
         {

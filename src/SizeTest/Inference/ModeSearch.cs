@@ -13,8 +13,9 @@ public sealed record ModeSearchResult(MaximumLikelihoodResult Best, IReadOnlyLis
 
 /// <summary>
 /// Guards a multi-start fit against a missed maximum: scans the profile likelihood of each free cosmological
-/// parameter over its whole bounded range on a coarse grid (the nuisance parameters refitted at every point, warm-started
-/// from the neighbour), starts a full fit from every local maximum of each scan, and keeps the distinct maxima.
+/// parameter over its whole bounded range on a coarse grid, then on a finer grid where the coarse profile is high (the
+/// nuisance parameters refitted at every point, warm-started from the neighbour), starts a full fit from every local
+/// maximum of each scan (and from its end points when they are high), and keeps the distinct maxima.
 /// </summary>
 /// <remarks>
 /// The cosmological parameters enter only through distances, and for an angular-size sample at N ~ 10³ the Ωm profile
@@ -26,8 +27,8 @@ public static class ModeSearch
     /// <summary>Maxima within this Δ ln L of the best are reported as modes.</summary>
     public const double ModeWindow = 2.0;
 
-    /// <summary>Default number of grid points per scanned parameter.</summary>
-    public const int DefaultGridPoints = 32;
+    /// <summary>Default number of grid points per level of the scan (so twice this many profile points per parameter).</summary>
+    public const int DefaultGridPoints = 24;
 
     /// <summary>Most profile peaks refitted per scanned parameter (the highest ones).</summary>
     public const int MaxPeaksPerParameter = 6;
@@ -65,16 +66,18 @@ public static class ModeSearch
         {
             cancel.ThrowIfCancellationRequested();
             var refit = new ProfileRefit(backend, h, name);
-            var scan = refit.Sweep(ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, gridPoints), fit.Theta);
+            var scan = Scan(refit, fit.Theta, gridPoints);
             scans[name] = scan;
-            foreach (var peak in Peaks(scan).Take(MaxPeaksPerParameter))
+            foreach (var start in StartPoints(scan))
             {
                 cancel.ThrowIfCancellationRequested();
-                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, peak.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
+                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, start.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }
-        var ordered = candidates.OrderByDescending(c => Objective(h, c)).ToList();
+        var genuine = candidates.Where(c => IsMaximumAtBounds(backend, h, c)).ToList();
+        if (genuine.Count == 0) genuine.Add(fit);
+        var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
         foreach (var c in ordered)
             if (!distinct.Any(d => Same(h, d, c))) distinct.Add(c);
@@ -87,6 +90,66 @@ public static class ModeSearch
         double topObjective = Objective(h, best);
         var modes = distinct.Select((d, i) => i == 0 ? best : d).Where(d => Objective(h, d) >= topObjective - ModeWindow).ToArray();
         return new ModeSearchResult(best, modes, scans);
+    }
+
+    /// <summary>
+    /// The two-level scan of one parameter: <paramref name="gridPoints"/> values over the whole bounded range, then as many
+    /// again over the part of the range where the coarse profile is within <see cref="ModeWindow"/> + 1 of its maximum
+    /// (widened by one coarse step each side), so a narrow maximum between coarse points (e.g. Ωm ≈ 0.02 with σ ≈ 0.02
+    /// when the coarse step is 0.2) still shows as a local maximum. Returned ascending in value.
+    /// </summary>
+    public static ProfileSample[] Scan(ProfileRefit refit, double[] start, int gridPoints = DefaultGridPoints)
+    {
+        ArgumentNullException.ThrowIfNull(refit);
+        ArgumentNullException.ThrowIfNull(start);
+        var coarseGrid = ProfileRefit.WholeRangeGrid(refit.Min, refit.Max, gridPoints);
+        var coarse = refit.Sweep(coarseGrid, start);
+        double top = coarse.Max(c => c.Objective);
+        if (!double.IsFinite(top)) return coarse;
+        int first = Array.FindIndex(coarse, c => c.Objective >= top - ModeWindow - 1);
+        int last = Array.FindLastIndex(coarse, c => c.Objective >= top - ModeWindow - 1);
+        double lo = coarseGrid[Math.Max(0, first - 1)], hi = coarseGrid[Math.Min(coarseGrid.Length - 1, last + 1)];
+        var fineGrid = Enumerable.Range(1, gridPoints).Select(i => lo + (hi - lo) * i / (gridPoints + 1.0))
+            .Where(v => !coarseGrid.Contains(v)).ToArray();
+        var best = coarse.OrderByDescending(c => c.Objective).First();
+        var fine = refit.Sweep(fineGrid, best.Theta);
+        return coarse.Concat(fine).OrderBy(c => c.Value).ToArray();
+    }
+
+    /// <summary>Where full fits start from a scan: its local maxima (highest first, at most
+    /// <see cref="MaxPeaksPerParameter"/>) and, when within <see cref="ModeWindow"/> + 2 of the scan's maximum, its two end
+    /// points (a maximum squeezed against a bound, e.g. Ωm → 0, need not show as a grid peak).</summary>
+    public static IEnumerable<ProfileSample> StartPoints(IReadOnlyList<ProfileSample> scan)
+    {
+        ArgumentNullException.ThrowIfNull(scan);
+        var peaks = Peaks(scan).Take(MaxPeaksPerParameter).ToList();
+        if (scan.Count == 0) return peaks;
+        double top = scan.Max(s => s.Objective);
+        foreach (var end in new[] { scan[0], scan[^1] })
+            if (end.Objective >= top - ModeWindow - 2 && !peaks.Contains(end)) peaks.Add(end);
+        return peaks;
+    }
+
+    /// <summary>
+    /// Whether a fit that ends on a bound is a maximum there: for every parameter on a bound, the profile one small step
+    /// inward (10⁻³ of the range) must not be higher. In the optimiser's logistic coordinates a bound is infinitely far,
+    /// so a search can stall against it on a slope that rises inward (e.g. Ωm → 0 beside a narrow maximum at 0.02).
+    /// </summary>
+    public static bool IsMaximumAtBounds(Evaluation.EvaluationBackend backend, Hypothesis h, MaximumLikelihoodResult f)
+    {
+        ArgumentNullException.ThrowIfNull(h);
+        ArgumentNullException.ThrowIfNull(f);
+        double here = Objective(h, f);
+        for (int j = 0; j < f.Theta.Length && j < f.AtBound.Length; j++)
+        {
+            if (!f.AtBound[j]) continue;
+            var p = h.FreeParameters[j];
+            double step = 1e-3 * (p.Max - p.Min);
+            double inward = f.Theta[j] - p.Min <= p.Max - f.Theta[j] ? p.Min + step : p.Max - step;
+            var s = new ProfileRefit(backend, h, p.Name).At(inward, f.Theta);
+            if (s.Objective > here + 1e-6) return false;
+        }
+        return true;
     }
 
     /// <summary>The penalised ln L of a fit (the quantity compared across maxima).</summary>

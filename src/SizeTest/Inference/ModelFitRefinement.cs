@@ -48,7 +48,7 @@ public static class ModelFitRefinement
         ArgumentNullException.ThrowIfNull(sampled);
         return sampled with
         {
-            Parameters = sampled.Parameters.Select(p => p.Fixed ? p : p with { IntervalMethod = IntervalMethods.Posterior }).ToArray(),
+            Parameters = sampled.Parameters.Select(p => p.Fixed ? p : p with { IntervalMethod = IntervalMethods.Posterior, Regions = [] }).ToArray(),
         };
     }
 }

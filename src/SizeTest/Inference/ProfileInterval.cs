@@ -7,13 +7,18 @@ namespace SizeTest.Inference;
 /// <param name="HiAtBound">The profile is still above the level at the upper bound.</param>
 /// <param name="Top">The profile's maximum (penalised ln L).</param>
 /// <param name="Samples">Every profile point computed, ascending in value (the input ones and the refinements).</param>
-public sealed record ProfileCrossings(double Lo, double Hi, bool LoAtBound, bool HiAtBound, double Top, IReadOnlyList<ProfileSample> Samples);
+/// <param name="Regions">The pieces of the Δ ln L ≤ ½ set, ascending (one piece, [Lo, Hi], unless the profile dips below
+/// the level between maxima).</param>
+public sealed record ProfileCrossings(double Lo, double Hi, bool LoAtBound, bool HiAtBound, double Top, IReadOnlyList<ProfileSample> Samples,
+    IReadOnlyList<(double Lo, double Hi)> Regions);
 
 /// <summary>
 /// Finds the 68% profile-likelihood interval {θ_j : max ln L − ln L_p(θ_j) ≤ ½} (Wilks 1938) from a set of profile
 /// points: it steps outward past the outermost point above the level until the profile falls below it (or the bound
 /// is reached), then brackets each outer crossing and bisects it with refits. When the profile has several maxima the
-/// region may be disjoint; the interval reported is its hull (outermost crossings), so it covers every mode.
+/// region may be disjoint; <see cref="ProfileCrossings.Lo"/>–<see cref="ProfileCrossings.Hi"/> is its hull (outermost
+/// crossings, so it spans every mode) and <see cref="ProfileCrossings.Regions"/> lists the pieces (the inner crossings
+/// bisected the same way).
 /// </summary>
 public static class ProfileInterval
 {
@@ -61,11 +66,31 @@ public static class ProfileInterval
         int first = pts.FindIndex(p => p.Objective >= level);
         int last = pts.FindLastIndex(p => p.Objective >= level);
         bool loAtBound = first == 0, hiAtBound = last == pts.Count - 1;
+        // Gaps inside [first, last] where the profile dips below the level (between maxima): bracket pairs, captured
+        // before the bisections below append to the list.
+        var gaps = new List<(ProfileSample AboveL, ProfileSample BelowL, ProfileSample BelowR, ProfileSample AboveR)>();
+        for (int i = first; i < last; i++)
+        {
+            if (pts[i].Objective < level || pts[i + 1].Objective >= level) continue;
+            int k = i + 1;
+            while (pts[k].Objective < level) k++;
+            gaps.Add((pts[i], pts[i + 1], pts[k - 1], pts[k]));
+            i = k - 1;
+        }
         var (lowBelow, lowAbove, highAbove, highBelow) = (first > 0 ? pts[first - 1] : null, pts[first], pts[last], last < pts.Count - 1 ? pts[last + 1] : null);
         double lo = lowBelow is null ? pts[0].Value : Bisect(refit, lowBelow, lowAbove, level, pts);
         double hi = highBelow is null ? highAbove.Value : Bisect(refit, highBelow, highAbove, level, pts);
+        var regions = new List<(double Lo, double Hi)>();
+        double start = lo;
+        foreach (var g in gaps)
+        {
+            double end = Bisect(refit, g.BelowL, g.AboveL, level, pts);
+            regions.Add((start, end));
+            start = Bisect(refit, g.BelowR, g.AboveR, level, pts);
+        }
+        regions.Add((start, hi));
         pts.Sort((a, b) => a.Value.CompareTo(b.Value));
-        return new ProfileCrossings(lo, hi, loAtBound, hiAtBound, top, pts);
+        return new ProfileCrossings(lo, hi, loAtBound, hiAtBound, top, pts, regions);
     }
 
     // Bisects between a point below the level and one above it, warm-starting each refit from the point above.

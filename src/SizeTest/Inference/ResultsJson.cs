@@ -6,7 +6,7 @@ namespace SizeTest.Inference;
 /// <summary>
 /// Reads and writes <c>results.json</c>: snake_case keys, indented, non-finite numbers as <c>null</c>, and each
 /// model's <c>parameters</c> as an object keyed by parameter name with
-/// <c>{value, lo, hi, fixed, unit, interval_method, at_bound}</c>.
+/// <c>{value, lo, hi, fixed, unit, interval_method, at_bound, regions}</c>.
 /// Output is deterministic: the same <see cref="StudyResult"/> always gives the same bytes.
 /// </summary>
 public static class ResultsJson
@@ -59,8 +59,13 @@ public static class ResultsJson
                 double D(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.Number ? e.GetDouble() : double.NaN;
                 bool isFixed = p.Value.TryGetProperty("fixed", out var f) && f.GetBoolean();
                 string? S(string k) => p.Value.TryGetProperty(k, out var e) && e.ValueKind == JsonValueKind.String ? e.GetString() : null;
+                var regions = new List<IntervalPiece>();
+                if (p.Value.TryGetProperty("regions", out var rg) && rg.ValueKind == JsonValueKind.Array)
+                    foreach (var r in rg.EnumerateArray())
+                        if (r.ValueKind == JsonValueKind.Array && r.GetArrayLength() == 2)
+                            regions.Add(new IntervalPiece(r[0].ValueKind == JsonValueKind.Number ? r[0].GetDouble() : double.NaN, r[1].ValueKind == JsonValueKind.Number ? r[1].GetDouble() : double.NaN));
                 list.Add(new ParameterEstimate(p.Name, D("value"), D("lo"), D("hi"), isFixed, S("unit") ?? "",
-                    S("interval_method") ?? (isFixed ? IntervalMethods.Fixed : IntervalMethods.Hessian), S("at_bound")));
+                    S("interval_method") ?? (isFixed ? IntervalMethods.Fixed : IntervalMethods.Hessian), S("at_bound")) { Regions = regions });
             }
             return list;
         }
@@ -72,6 +77,7 @@ public static class ResultsJson
             {
                 writer.WritePropertyName(p.Name);
                 writer.WriteStartObject();
+                void Num2(double v) { if (double.IsFinite(v)) writer.WriteNumberValue(v); else writer.WriteNullValue(); }
                 void Num(string k, double v) { writer.WritePropertyName(k); if (double.IsFinite(v)) writer.WriteNumberValue(v); else writer.WriteNullValue(); }
                 Num("value", p.Value);
                 Num("lo", p.Lo);
@@ -80,6 +86,10 @@ public static class ResultsJson
                 writer.WriteString("unit", p.Unit);
                 writer.WriteString("interval_method", p.IntervalMethod);
                 if (p.AtBound is null) writer.WriteNull("at_bound"); else writer.WriteString("at_bound", p.AtBound);
+                writer.WritePropertyName("regions");
+                writer.WriteStartArray();
+                foreach (var r in p.Regions) { writer.WriteStartArray(); Num2(r.Lo); Num2(r.Hi); writer.WriteEndArray(); }
+                writer.WriteEndArray();
                 writer.WriteEndObject();
             }
             writer.WriteEndObject();

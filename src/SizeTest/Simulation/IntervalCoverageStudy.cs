@@ -5,15 +5,19 @@ namespace SizeTest.Simulation;
 /// <summary>Coverage of one parameter's reported 68% intervals over the mocks of an <see cref="IntervalCoverageStudy"/>.</summary>
 /// <param name="Name">Parameter.</param>
 /// <param name="Truth">True value.</param>
-/// <param name="Covered">Mocks whose reported interval contains the truth.</param>
+/// <param name="Covered">Mocks whose reported 68% set contains the truth (<see cref="ParameterEstimate.Contains"/>: the
+/// pieces when the profile set is disjoint, else [lo, hi]).</param>
+/// <param name="HullCovered">Mocks whose [lo, hi] (the hull, when disjoint) contains the truth.</param>
 /// <param name="HessianCovered">Mocks whose plain Hessian interval (θ̂ ± σ of the multi-start fit, before any refinement)
 /// contains the truth, for comparison.</param>
 /// <param name="Mocks">Mocks fitted.</param>
 /// <param name="ByMethod">How many mocks reported each <c>interval_method</c>.</param>
-public sealed record CoverageCount(string Name, double Truth, int Covered, int HessianCovered, int Mocks, IReadOnlyDictionary<string, int> ByMethod)
+public sealed record CoverageCount(string Name, double Truth, int Covered, int HullCovered, int HessianCovered, int Mocks, IReadOnlyDictionary<string, int> ByMethod)
 {
     /// <summary>Covered / Mocks.</summary>
     public double Coverage => Mocks > 0 ? Covered / (double)Mocks : double.NaN;
+    /// <summary>HullCovered / Mocks.</summary>
+    public double HullCoverage => Mocks > 0 ? HullCovered / (double)Mocks : double.NaN;
     /// <summary>HessianCovered / Mocks.</summary>
     public double HessianCoverage => Mocks > 0 ? HessianCovered / (double)Mocks : double.NaN;
 }
@@ -63,7 +67,7 @@ public static class IntervalCoverageStudy
             var rep = reported.Select(r => r.First(p => p.Name == n)).ToArray();
             var hes = hessian.Select(r => r.First(p => p.Name == n)).ToArray();
             var byMethod = rep.GroupBy(e => e.IntervalMethod).OrderBy(g => g.Key, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.Count());
-            return new CoverageCount(n, t, rep.Count(e => Covers(e, t)), hes.Count(e => Covers(e, t)), mocks, byMethod);
+            return new CoverageCount(n, t, rep.Count(e => e.Contains(t)), rep.Count(e => Covers(e, t)), hes.Count(e => Covers(e, t)), mocks, byMethod);
         }).ToArray();
         return new IntervalCoverageResult(mocks, multimodal.Count(b => b), counts);
     }

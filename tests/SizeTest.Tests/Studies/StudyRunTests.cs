@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Text.Json;
 using SizeTest.Studies;
 using SizeTest.Tests.Cli;
@@ -134,16 +135,62 @@ public sealed class StudyRunTests
     }
 
     [Fact]
-    public void McmcStudyCarriesPosteriorSamples()
+    public void McmcStudyRunsToConvergenceAndPlotsTheChainItReports()
     {
         using var fx = new StudyFixture(n: 200);
-        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nsampler = \"mcmc\"\nsampler_steps = 200"));
+        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nsampler = \"mcmc\"\nsampler_steps = \"auto\""));
         var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
         Assert.True(exit == 0, stderr);
         var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
         Assert.NotNull(data.Posterior);
         Assert.Equal(3, data.Posterior!.Parameters.Count);               // r0_kpc, size_evolution, scatter_dex of the size model
+        var results = SizeTest.Inference.ResultsJson.Deserialize(File.ReadAllText(Path.Combine(fx.Out(), "results.json")));
+        var best = results.Models[0];
+        // Every model sampled once, to convergence (the rules of ConvergenceCriteria: ≥ 50 τ, R̂ ≤ 1.01, ESS ≥ 400).
+        Assert.Equal(results.Models.Select(m => m.Name).Order(), results.Chains.Select(c => c.Model).Order());
+        var chain = results.Chains.Single(c => c.Model == best.Name);
+        Assert.True(chain.Auto && chain.Converged, best.ExitReason);
+        Assert.True(chain.LengthInTau >= 50 && chain.MaxRhat <= 1.01 && chain.MinEss >= 400, best.ExitReason);
+        Assert.Equal(chain.Steps / 4, chain.BurnIn); // the stated burn-in rule: the first quarter
+
+        // The plotted draws are draws of the chain written to chains_MODEL.csv after its burn-in, the chain whose
+        // median results.json reports (same run, not a second one).
+        var lines = File.ReadAllLines(Path.Combine(fx.Out(), $"chains_{best.Name}.csv"));
+        var header = lines[0].Split(',');
+        var kept = lines.Skip(1).Select(l => l.Split(',')).Where(f => int.Parse(f[0], CultureInfo.InvariantCulture) >= chain.BurnIn)
+            .Select(f => f.Skip(3).Select(x => double.Parse(x, CultureInfo.InvariantCulture)).ToArray()).ToArray();
+        Assert.Equal((long)chain.Walkers * (chain.Steps - chain.BurnIn), kept.Length);
+        var keyed = kept.Select(r => string.Join(',', r.Select(x => x.ToString("R", CultureInfo.InvariantCulture)))).ToHashSet();
         Assert.True(data.Posterior.Samples.Count > 100);
+        Assert.All(data.Posterior.Samples, r => Assert.Contains(string.Join(',', r.Select(x => x.ToString("R", CultureInfo.InvariantCulture))), keyed));
+        Assert.Equal(kept[0], data.Posterior.Samples[0]);
+        for (int j = 0; j < data.Posterior.Parameters.Count; j++)
+        {
+            string name = data.Posterior.Parameters[j];
+            Assert.Equal(name, header[3 + j]);
+            var col = kept.Select(r => r[j]).Order().ToArray();
+            // Median by linear interpolation between order statistics (the rule EnsembleRun.Percentile states).
+            double h = (col.Length - 1) * 0.5;
+            double median = col[(int)h] + (h - (int)h) * (col[Math.Min((int)h + 1, col.Length - 1)] - col[(int)h]);
+            Assert.Equal(median, best.Parameters.Single(p => p.Name == name).Value, 12);
+        }
+    }
+
+    [Fact]
+    public void StudyFileSamplerSettingsAreHonoured()
+    {
+        using var fx = new StudyFixture(n: 200);
+        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nsampler = \"mcmc\"\nsampler_steps = 240\nsampler_walkers = 12"));
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit is 0 or 1, stderr); // 240 steps may well not meet the convergence rules: exit 1 then, outputs written
+        var results = SizeTest.Inference.ResultsJson.Deserialize(File.ReadAllText(Path.Combine(fx.Out(), "results.json")));
+        Assert.Equal(2, results.Chains.Count);
+        foreach (var c in results.Chains)
+        {
+            Assert.Equal((240, 12, false), (c.Steps, c.Walkers, c.Auto));
+            int rows = File.ReadAllLines(Path.Combine(fx.Out(), $"chains_{c.Model}.csv")).Length - 1;
+            Assert.Equal(240 * 12, rows);
+        }
     }
 
     [Fact]
