@@ -83,7 +83,7 @@ internal static class FitCommand
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
                 var surveyRequest = surveyOptions.Request(parse);
                 var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
-                bool surveyAsked = surveyRequest != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                bool surveyAsked = surveyRequest with { Pivot = null, IgnoreZErr = false } != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
                 if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
@@ -114,7 +114,7 @@ internal static class FitCommand
                     var notes = new List<string>();
                     var model = surveyRequest.Build(obs, kind, notes);
                     var hs = hypotheses;
-                    if (model.IsActive || surveyAsked)
+                    if ((model.IsActive || surveyAsked) && obs.Count > 0)
                     {
                         var nm = nuisance with { Survey = model };
                         nm.Validate();
@@ -128,7 +128,7 @@ internal static class FitCommand
                     if (warning is not null) notes.Add("warning: " + warning);
                     return new SurveyBinding(hs, notes, warning);
                 };
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = SizeTest.Distributed.RankContext.IsDistributed ? null : survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
             {

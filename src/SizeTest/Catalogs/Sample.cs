@@ -112,6 +112,7 @@ public sealed class Sample
         T[]? Pick<T>(T[]? a) => a is null ? null : rows.Select(i => a[i]).ToArray();
         var source = RowNumbers.FromArray(rows.Select(i => SourceRows[i]).ToArray());
         return new Sample(SourceName, source, Pick(Z)!, Pick(Id), Pick(ZErr), Pick(ThetaRad), Pick(ThetaErrRad), Pick(Mu), Pick(MuErr),
-            Pick(Mag), Pick(MagErr), Pick(Band), SizeDefinition, ExtraColumns.ToDictionary(kv => kv.Key, kv => Pick(kv.Value)!));
+            Pick(Mag), Pick(MagErr), Pick(Band), SizeDefinition, ExtraColumns.ToDictionary(kv => kv.Key, kv => Pick(kv.Value)!),
+            new SurveyColumns(Pick(Survey.AbsMag), Pick(Survey.LogMass), Pick(Survey.FluxDensityJy), Pick(Survey.SersicN), Pick(Survey.Group), Pick(Survey.Weight)));
     }
 }
