@@ -18,6 +18,8 @@ internal sealed record FitArgs(
     public bool CvFoldsExplicit { get; init; }
     /// <summary>Every file the run reads (catalogue, photometry files): an output folder holding one is refused.</summary>
     public IReadOnlyList<string> Inputs { get; init; } = [];
+    /// <summary>Largest fraction of objects outside the stated cuts (--max-outside-selection); see <see cref="SelectionConsistency"/>.</summary>
+    public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
 }
 
 /// <summary>
@@ -41,10 +43,27 @@ internal static class FitRunner
 
         CatalogShare? share = null;
         PhotometryResult? built = null;
+        SelectionSplit? split = null;
         code = Agree(context, ranks, () =>
         {
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
+            // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
+            var nuisance = a.Hypotheses[0].Nuisance;
+            split = SelectionConsistency.Classify(built.Observables, nuisance, i => share.Local.SourceRows[i], role => role.Name());
+            if (split.Outside.Count > 0)
+            {
+                var keep = split.Keep.ToArray();
+                var log = new RejectLog(share.Rejects.SourceName);
+                foreach (var e in share.Rejects.Entries.Concat(split.Outside).OrderBy(e => e.Row)) log.Add(e);
+                share = share with
+                {
+                    Local = share.Local.Take(keep), Accepted = share.Accepted - split.Outside.Count, // sums over ranks stay right whoever counted the row
+                    Rejected = share.Rejected + split.Outside.Count, Rejects = log,
+                    ChunkKeys = share.ChunkKeys is { } ck ? keep.Select(i => ck[i]).ToArray() : null,
+                };
+                built = new PhotometryResult(ObservablesSubset.Take(built.Observables, keep), built.Corrections);
+            }
             var local = built.Observables;
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
@@ -54,6 +73,27 @@ internal static class FitRunner
         {
             folder?.Abandon();
             return code;
+        }
+
+        // The selection decision over all ranks (every rank gets the same sums, so all decide alike).
+        var sums = new double[5];
+        ranks.SumAll([split!.Outside.Count + built!.Observables.Count, split.Outside.Count,
+            split.Outside.Count(e => e.Reason == RejectReason.OutsideSbLimit), split.Outside.Count(e => e.Reason == RejectReason.OutsideMagLimit),
+            split.Outside.Count(e => e.Reason == RejectReason.OutsideMinSize)], sums);
+        string? selectionWarning = null;
+        if (sums[1] > 0)
+        {
+            try
+            {
+                var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
+                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CatalogPath);
+                if (root) context.Err.WriteLine($"sizetest: warning: {selectionWarning}");
+            }
+            catch (InputException e)
+            {
+                folder?.Abandon();
+                return root ? context.Fail(e) : ExitCodes.BadInput;
+            }
         }
 
         try
@@ -86,7 +126,7 @@ internal static class FitRunner
             };
             var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
-            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. result.Notes] };
+            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. result.Notes] };
 
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();

@@ -15,12 +15,18 @@ public enum RejectReason
     NegativeError,
     /// <summary>A value outside the physically possible or plausible range (infinite, θ ≥ π rad, |mag| &gt; 50 such as 99 sentinels, z &gt; the maximum).</summary>
     OutOfRange,
+    /// <summary>Surface brightness not brighter than the stated survey limit (μ ≥ sb_limit): outside the selection the fit models.</summary>
+    OutsideSbLimit,
+    /// <summary>Total magnitude not brighter than the stated limit (m ≥ mag_limit).</summary>
+    OutsideMagLimit,
+    /// <summary>Angular size not above the stated resolution limit (θ ≤ min_size).</summary>
+    OutsideMinSize,
 }
 
 /// <summary>Text forms of <see cref="RejectReason"/> used in the reject log and reports.</summary>
 public static class RejectReasons
 {
-    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>.</summary>
+    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>, <c>outside selection: sb_limit</c> (also <c>mag_limit</c>, <c>min_size</c>).</summary>
     public static string Code(this RejectReason reason) => reason switch
     {
         RejectReason.MissingValue => "missing value",
@@ -29,6 +35,9 @@ public static class RejectReasons
         RejectReason.NonPositiveSize => "non-positive size",
         RejectReason.NegativeError => "negative error",
         RejectReason.OutOfRange => "out of range",
+        RejectReason.OutsideSbLimit => "outside selection: sb_limit",
+        RejectReason.OutsideMagLimit => "outside selection: mag_limit",
+        RejectReason.OutsideMinSize => "outside selection: min_size",
         _ => reason.ToString(),
     };
 }

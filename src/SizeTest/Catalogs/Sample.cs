@@ -97,4 +97,14 @@ public sealed class Sample
 
     /// <summary>Further numeric columns kept by name (e.g. per-object K-correction, extinction).</summary>
     public IReadOnlyDictionary<string, double[]> ExtraColumns { get; }
+
+    /// <summary>The objects at <paramref name="rows"/> (ascending indices), every role kept.</summary>
+    public Sample Take(IReadOnlyList<int> rows)
+    {
+        ArgumentNullException.ThrowIfNull(rows);
+        T[]? Pick<T>(T[]? a) => a is null ? null : rows.Select(i => a[i]).ToArray();
+        var source = RowNumbers.FromArray(rows.Select(i => SourceRows[i]).ToArray());
+        return new Sample(SourceName, source, Pick(Z)!, Pick(Id), Pick(ZErr), Pick(ThetaRad), Pick(ThetaErrRad), Pick(Mu), Pick(MuErr),
+            Pick(Mag), Pick(MagErr), Pick(Band), SizeDefinition, ExtraColumns.ToDictionary(kv => kv.Key, kv => Pick(kv.Value)!));
+    }
 }

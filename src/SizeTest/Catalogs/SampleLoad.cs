@@ -23,6 +23,22 @@ public sealed class SampleLoad
         if (rowsRead != Accepted + Rejected) throw new InvalidOperationException($"row accounting broken: {rowsRead} read, {Accepted} accepted, {Rejected} rejected");
     }
 
+    /// <summary>
+    /// The same load with the accepted objects at <paramref name="keep"/> (ascending indices) kept and the others
+    /// moved to the reject log with <paramref name="rejected"/> (one entry per object removed, any order).
+    /// <c>RowsRead = Accepted + Rejected</c> still holds.
+    /// </summary>
+    public SampleLoad WithRejected(IReadOnlyList<int> keep, IReadOnlyList<RejectEntry> rejected)
+    {
+        ArgumentNullException.ThrowIfNull(keep);
+        ArgumentNullException.ThrowIfNull(rejected);
+        if (keep.Count + rejected.Count != Sample.Count)
+            throw new ArgumentException($"{keep.Count} kept and {rejected.Count} rejected do not add up to {Sample.Count} accepted objects");
+        var log = new RejectLog(RejectLog.SourceName);
+        foreach (var e in RejectLog.Entries.Concat(rejected).OrderBy(e => e.Row)) log.Add(e);
+        return new SampleLoad(Sample.Take(keep), log, Mapping, Format, Table, Columns, LayoutNotes, RowsRead, NullCounts);
+    }
+
     /// <summary>The accepted objects in normalised units.</summary>
     public Sample Sample { get; }
 

@@ -75,7 +75,7 @@ public static class ModeSearch
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }
-        var genuine = candidates.Where(c => IsMaximumAtBounds(h, backend, c)).ToList();
+        var genuine = candidates.Where(c => IsMaximumAtBounds(backend, h, c)).ToList();
         if (genuine.Count == 0) genuine.Add(fit);
         var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
@@ -135,7 +135,7 @@ public static class ModeSearch
     /// inward (10⁻³ of the range) must not be higher. In the optimiser's logistic coordinates a bound is infinitely far,
     /// so a search can stall against it on a slope that rises inward (e.g. Ωm → 0 beside a narrow maximum at 0.02).
     /// </summary>
-    public static bool IsMaximumAtBounds(Hypothesis h, Evaluation.EvaluationBackend backend, MaximumLikelihoodResult f)
+    public static bool IsMaximumAtBounds(Evaluation.EvaluationBackend backend, Hypothesis h, MaximumLikelihoodResult f)
     {
         ArgumentNullException.ThrowIfNull(h);
         ArgumentNullException.ThrowIfNull(f);

@@ -201,9 +201,7 @@ public static class PowerAnalysis
             rec.Add(new ParameterRecovery(name, t, m - t, sd / Math.Sqrt(values.Length), sd, halfWidths.Length > 0 ? Quantile(halfWidths, 0.5) : double.NaN, coverage, withInterval.Length));
         }
         var failures = RecoveryFailures(rec);
-        string verdict = failures.Count > 0 ? NotInterpretable
-            : q[2] < -2 ? FavoursWrongModel
-            : p10 >= target ? "decisive" : p6 >= target ? "strong" : q[2] < 2 ? "unable to decide" : "weak";
+        string verdict = Verdict(failures.Count > 0, q[2], p6, p10, target);
         return new PowerPoint(n, k, pBest, p6, p10, q, mean, rec, set.Count(o => !o.Converged), verdict) { RecoveryFailures = failures };
     }
 
@@ -212,6 +210,17 @@ public static class PowerAnalysis
 
     /// <summary>The verdict when the median ΔBIC is below −2: the mocks, drawn from the true model, prefer another one.</summary>
     public const string FavoursWrongModel = "favours a wrong model";
+
+    /// <summary>The verdict of one sample size (order as in the class remarks).</summary>
+    /// <param name="recoveryFailed">The true model failed to recover some parameter (<see cref="RecoveryFailures"/>).</param>
+    /// <param name="medianDeltaBic">Median ΔBIC over the mocks.</param>
+    /// <param name="probabilityStrong">P(ΔBIC &gt; 6).</param>
+    /// <param name="probabilityDecisive">P(ΔBIC &gt; 10).</param>
+    /// <param name="target">Target power.</param>
+    public static string Verdict(bool recoveryFailed, double medianDeltaBic, double probabilityStrong, double probabilityDecisive, double target) =>
+        recoveryFailed ? NotInterpretable
+        : medianDeltaBic < -2 ? FavoursWrongModel
+        : probabilityDecisive >= target ? "decisive" : probabilityStrong >= target ? "strong" : medianDeltaBic < 2 ? "unable to decide" : "weak";
 
     /// <summary>
     /// The parameters the true model fails to recover: |bias| &gt; 2 × spread (the estimates sit away from the truth by

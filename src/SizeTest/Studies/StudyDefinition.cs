@@ -33,6 +33,9 @@ public sealed record StudyDefinition
     public required IReadOnlyList<string> Models { get; init; }
     /// <summary>The nuisance model shared by every hypothesis (observable, selection, conventions).</summary>
     public required NuisanceModel Nuisance { get; init; }
+
+    /// <summary>Largest fraction of objects that may lie outside the stated cuts (<c>selection.max_outside_fraction</c>); see <see cref="SelectionConsistency"/>.</summary>
+    public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
     /// <summary>Parameter settings for every model that has the parameter.</summary>
     public IReadOnlyList<StudyParameter> Parameters { get; init; } = [];
     /// <summary>Per-model parameter settings (by world-model name), applied after <see cref="Parameters"/>.</summary>

@@ -21,7 +21,7 @@ public static class StudyFileParser
         ["columns"] = $"[columns] takes one ROLE = \"NAME[:UNIT]\" per role ({string.Join(", ", ColumnRoles.All.Select(r => r.Name()))})",
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
-        ["selection"] = "[selection] takes sb_limit, mag_limit, min_size",
+        ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, bins, bin_resamples",
@@ -124,6 +124,8 @@ public static class StudyFileParser
         TomlNode? selNode = root.Table("selection");
         if (selNode is not null)
             selection = new SelectionLimits(selNode.Number("sb_limit"), selNode.Number("mag_limit"), selNode.Number("min_size"));
+        double maxOutside = selNode?.Number("max_outside_fraction") ?? SelectionConsistency.DefaultMaxOutsideFraction;
+        if (!(maxOutside is >= 0 and <= 1)) throw selNode!.Get("max_outside_fraction")!.Error("'selection.max_outside_fraction' must be between 0 and 1");
         var nuisance = new NuisanceModel(observable, selection, modelsNode.Boolean("size_sb_relation") ?? false,
             modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96);
         try
@@ -216,6 +218,7 @@ public static class StudyFileParser
             StudyFileText = text,
             BaseDirectory = baseDirectory,
             CataloguePath = Path.GetFullPath(catPath, baseDirectory),
+            MaxOutsideSelection = maxOutside,
             Reader = reader,
             Mapping = mapping,
             Synthetic = synthetic,

@@ -45,7 +45,7 @@ public static class StudyReportAdapter
                 RequiredEvolution = result.RequiredEvolution.Where(r => r.Model == fit.Name && !r.Fixed)
                     .Select(r => new EvolutionRequirement(r.Parameter, Describe(r.Parameter), r.Value, r.Lo, r.Hi)).ToArray(),
             };
-            if (WorldModels.TryGet(fit.Name, out var family)) report = WithCurves(report, family, fit, study.Nuisance, zMin, zMax);
+            if (WorldModels.TryGet(fit.Name, out var family)) report = WithCurves(report, family, fit, study.Nuisance, zMin, zMax, result.Settings.Selection.SbLimit, MedianMuError(points));
             models.Add(report);
         }
 
@@ -108,7 +108,31 @@ public static class StudyReportAdapter
     /// bolometric dimming exponent plus the study's offset (Tolman 1930) — the mean relations of the likelihood
     /// without the per-object K-corrections. "Without evolution" sets a = 0 and b = 0, keeping R0 and μ0.
     /// </summary>
-    private static ModelReport WithCurves(ModelReport report, IWorldModelFamily family, ModelFitSummary fit, NuisanceModel nuisance, double zMin, double zMax)
+    private static double MedianMuError(SamplePoints points)
+    {
+        var e = points.MuErr?.Where(double.IsFinite).Order().ToArray() ?? [];
+        return e.Length == 0 ? 0 : e[e.Length / 2];
+    }
+
+    /// <summary>
+    /// Expected mean surface brightness of the objects that pass μ &lt; μ_lim when μ at redshift z is Gaussian with
+    /// mean m(z) and standard deviation s (intrinsic scatter_mag and the median measurement error in quadrature, as the
+    /// cut applies to observed μ). Derivation: for X ~ N(m, s²), E[X | X &lt; L] = m + s E[Z | Z &lt; α] with
+    /// α = (L − m)/s and Z standard normal; ∫_{−∞}^{α} z φ(z) dz = −φ(α), so E[Z | Z &lt; α] = −φ(α)/Φ(α) and
+    /// E[X | X &lt; L] = m − s φ(α)/Φ(α) (the mean of a truncated normal; Johnson, Kotz &amp; Balakrishnan 1994, §10.1,
+    /// from memory). The θ &gt; θ_min cut is independent of μ without the size–SB relation and is not included.
+    /// </summary>
+    internal static double TruncatedMean(double m, double s, double limit)
+    {
+        if (!(s > 0)) return m < limit ? m : double.NaN;
+        double alpha = (limit - m) / s;
+        double cdf = MathNet.Numerics.Distributions.Normal.CDF(0, 1, alpha);
+        if (cdf < 1e-12) return double.NaN; // (almost) nothing passes: no mean to draw
+        return m - s * MathNet.Numerics.Distributions.Normal.PDF(0, 1, alpha) / cdf;
+    }
+
+    private static ModelReport WithCurves(ModelReport report, IWorldModelFamily family, ModelFitSummary fit, NuisanceModel nuisance, double zMin, double zMax,
+        double? sbLimit, double muErr)
     {
         var values = fit.Parameters.ToDictionary(p => p.Name, p => p.Value, StringComparer.Ordinal);
         var cosmo = family.Parameters.Where(p => values.ContainsKey(p.Name) && double.IsFinite(values[p.Name]))
@@ -140,6 +164,12 @@ public static class StudyReportAdapter
                 Mu = Curve.Sample(z => Mu(z, b, a), lo, zMax),
                 MuNoEvolution = b == 0 && (!relation || a == 0) ? null : Curve.Sample(z => Mu(z, 0, 0), lo, zMax),
             };
+            if (sbLimit is { } lim)
+            {
+                // With the size–SB relation μ also scatters with log size: add (κ σ_dex)² (Gaussian in log R).
+                double sd = Math.Sqrt(Math.Pow(Get("scatter_mag", 0), 2) + muErr * muErr + (relation ? Math.Pow(kappa * Get("scatter_dex", 0), 2) : 0));
+                report = report with { MuSelected = Curve.Sample(z => TruncatedMean(Mu(z, b, a), sd, lim), lo, zMax) };
+            }
         }
         return report;
     }

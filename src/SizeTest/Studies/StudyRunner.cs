@@ -62,9 +62,12 @@ public static class StudyRunner
             var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
             Stage("photometry");
 
+            var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
+            foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
+            load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
-            var observables = photometry.Observables;
+            var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
             var result = FitStudy.Run(new FitRequest
             {

@@ -55,9 +55,13 @@ public static class BinnedStatistics
         {
             double lo = edges[b], hi = edges[b + 1];
             var inBin = new List<double>();
+            var zIn = new List<double>();
             for (int i = 0; i < z.Count; i++)
                 if (z[i] >= lo && (z[i] < hi || (b == nb - 1 && z[i] <= hi)) && double.IsFinite(values[i]))
+                {
                     inBin.Add(values[i]);
+                    zIn.Add(z[i]);
+                }
             if (inBin.Count == 0) continue;
             var arr = inBin.ToArray();
             double value = Apply(arr, statistic);
@@ -69,7 +73,9 @@ public static class BinnedStatistics
                 boot[r] = Apply(tmp, statistic);
             }
             Array.Sort(boot);
-            result.Add(new BinnedValue(lo, hi, value, Percentile(boot, 0.16), Percentile(boot, 0.84), arr.Length));
+            var zs = zIn.ToArray();
+            Array.Sort(zs);
+            result.Add(new BinnedValue(lo, hi, value, Percentile(boot, 0.16), Percentile(boot, 0.84), arr.Length) { ZMedian = Percentile(zs, 0.5) });
         }
         return result;
     }

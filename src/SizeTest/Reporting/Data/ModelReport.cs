@@ -24,6 +24,9 @@ public sealed record ModelReport(ModelFitSummary Fit)
     /// <summary>The same without evolution, or null.</summary>
     public Curve? MuNoEvolution { get; init; }
 
+    /// <summary>Expected mean μ(z) of the objects that pass the selection cuts (the truncated-Gaussian mean), or null without an SB limit.</summary>
+    public Curve? MuSelected { get; init; }
+
     /// <summary>Evolution the model needs to fit (e.g. the size-evolution exponent with its interval).</summary>
     public IReadOnlyList<EvolutionRequirement> RequiredEvolution { get; init; } = [];
 

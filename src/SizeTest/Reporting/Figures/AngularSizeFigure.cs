@@ -37,24 +37,26 @@ public static class AngularSizeFigure
                 Color = Palette.Data, Alpha = 0.55, MarkerSize = 3,
             });
         if (data.ThetaBins is { Count: > 0 } bins)
-            main.Add(new BinnedSeries("binned median (bootstrap 68%)", bins.Select(b => b.ZLow).ToList(), bins.Select(b => b.ZHigh).ToList(),
-                bins.Select(b => b.Value).ToList(), bins.Select(b => b.Lo).ToList(), bins.Select(b => b.Hi).ToList()) { Color = Palette.Ink });
+            main.Add(new BinnedSeries("binned median, equal-count bins, at the bin's median z (bootstrap 68%)", bins.Select(b => b.ZLow).ToList(), bins.Select(b => b.ZHigh).ToList(),
+                bins.Select(b => b.Value).ToList(), bins.Select(b => b.Lo).ToList(), bins.Select(b => b.Hi).ToList()) { Color = Palette.Ink, XCentre = bins.Select(b => b.ZDrawn).ToList() });
+        // Curves equal to 0.2% (0.001 dex) everywhere hide each other: say so in the legend.
+        var same = FigureText.CoincidesWith(data.Models.Select(m => (m.Label, m.Theta)).ToList(), 0.001, logY: true);
         for (int i = 0; i < data.Models.Count; i++)
         {
             var m = data.Models[i];
-            if (m.Theta is { } c) main.Add(new LineSeries($"{m.Label} (fitted evolution)", c.X, c.Y) { Color = Palette.Model(i), Width = 1.6 });
-            if (m.ThetaNoEvolution is { } c0) main.Add(new LineSeries("", c0.X, c0.Y) { Color = Palette.Model(i), Dash = DashKind.Dashed, Width = 1.2 });
+            if (m.Theta is { } c) main.Add(new LineSeries($"{m.Label}{same[i]}", c.X, c.Y) { Color = ModelStyles.Color(m.Fit.Name), Dash = ModelStyles.Dash(m.Fit.Name), Width = 1.6 });
+            if (m.ThetaNoEvolution is { } c0) main.Add(new LineSeries("", c0.X, c0.Y) { Color = ModelStyles.Color(m.Fit.Name), Dash = DashKind.Dotted, Width = 1.1, Alpha = 0.8 });
         }
 
         if (data.Models.Any(m => m.ThetaNoEvolution is not null))
-            main.Add(new LegendKey("dashed: same model, no evolution") { Color = Palette.Reference });
+            main.Add(new LegendKey("dotted: same model, no evolution") { Color = Palette.Reference, Dash = DashKind.Dotted });
 
         var panels = new List<PanelSpec>
         {
             new()
             {
                 X = zAxis, Y = new AxisSpec("angular size θ", "arcsec") { Log = true }, Series = main,
-                Legend = LegendPlace.LowerLeft, XAxisLabelled = reference is null,
+                Legend = LegendPlace.Below, XAxisLabelled = reference is null,
             },
         };
         if (reference?.Theta is { } refCurve)
@@ -74,12 +76,12 @@ public static class AngularSizeFigure
             }
             if (data.ThetaBins is { Count: > 0 } b2)
             {
-                var keep = b2.Where(b => refCurve.At(Math.Sqrt(b.ZLow * b.ZHigh), true) > 0 && b.Value > 0).ToList();
-                double Ref(BinnedValue b) => refCurve.At(Math.Sqrt(b.ZLow * b.ZHigh), true);
+                var keep = b2.Where(b => refCurve.At(b.ZDrawn, true) > 0 && b.Value > 0).ToList();
+                double Ref(BinnedValue b) => refCurve.At(b.ZDrawn, true);
                 res.Add(new BinnedSeries("", keep.Select(b => b.ZLow).ToList(), keep.Select(b => b.ZHigh).ToList(),
                     keep.Select(b => Math.Log10(b.Value / Ref(b))).ToList(),
                     keep.Select(b => Math.Log10(Math.Max(b.Lo, 1e-300) / Ref(b))).ToList(),
-                    keep.Select(b => Math.Log10(Math.Max(b.Hi, 1e-300) / Ref(b))).ToList()) { Color = Palette.Ink });
+                    keep.Select(b => Math.Log10(Math.Max(b.Hi, 1e-300) / Ref(b))).ToList()) { Color = Palette.Ink, XCentre = keep.Select(b => b.ZDrawn).ToList() });
             }
             for (int i = 0; i < data.Models.Count; i++)
             {
@@ -91,9 +93,9 @@ public static class AngularSizeFigure
                     double r = refCurve.At(c.X[k], true);
                     if (r > 0 && c.Y[k] > 0) { xs.Add(c.X[k]); ys.Add(Math.Log10(c.Y[k] / r)); }
                 }
-                res.Add(new LineSeries("", xs, ys) { Color = Palette.Model(i), Width = 1.4 });
+                res.Add(new LineSeries("", xs, ys) { Color = ModelStyles.Color(m.Fit.Name), Dash = ModelStyles.Dash(m.Fit.Name), Width = 1.4 });
             }
-            res.Add(new ReferenceLine("", 0, false) { Color = Palette.Model(data.Models.ToList().IndexOf(reference)), Dash = DashKind.Solid });
+            res.Add(new ReferenceLine("", 0, false) { Color = ModelStyles.Color(reference.Fit.Name), Dash = ModelStyles.Dash(reference.Fit.Name) });
             panels.Add(new PanelSpec
             {
                 X = zAxis, Y = new AxisSpec("Δlog₁₀θ", "dex"), Series = res, Row = 1,
@@ -108,8 +110,8 @@ public static class AngularSizeFigure
             Caption = "Angular size θ against redshift z, both logarithmic. " +
                       (dense ? "Objects are shown as a density (darker = more objects per cell, square-root scale). "
                              : "Grey points are the accepted objects with their 1σ errors. ") +
-                      (data.ThetaBins is { Count: > 0 } ? "Black squares are binned medians with bootstrap 68% intervals; horizontal bars span each bin. " : "") +
-                      "Solid lines are each model's best fit including its fitted size evolution; dashed lines are the same model with evolution switched off. " +
+                      (data.ThetaBins is { Count: > 0 } ? "Black squares are medians in bins holding equal numbers of objects, drawn at each bin's median redshift, with bootstrap 68% intervals; horizontal bars span each bin. " : "") +
+                      "Each model keeps one colour and line style in every report; its line is the best fit including its fitted size evolution, and the dotted line of the same colour is that model with evolution switched off. " +
                       (reference is not null ? $"The lower panel shows log₁₀ residuals (dex) against the best-ranked model by BIC ({reference.Label}); coloured lines are the other models relative to it." : ""),
             Panels = panels,
             RowHeights = panels.Count == 2 ? [3.0, 1.2] : [1.0],

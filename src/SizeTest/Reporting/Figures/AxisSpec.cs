@@ -27,6 +27,15 @@ public sealed record AxisSpec(string Label, string Unit)
     /// <summary>When set, the axis is categorical: category i sits at coordinate i and is labelled with entry i.</summary>
     public IReadOnlyList<string>? Categories { get; init; }
 
+    /// <summary>Only whole-number ticks (counts).</summary>
+    public bool IntegerTicks { get; init; }
+
+    /// <summary>
+    /// At most three "nice" ticks, kept away from both ends of the axis (inner 80%), so labels of panels placed side
+    /// by side (a corner plot) never collide.
+    /// </summary>
+    public bool InnerTicks { get; init; }
+
     /// <summary>The axis title as drawn: "Label (Unit)", or just the label when dimensionless.</summary>
     public string Title => Unit == Dimensionless || Unit.Length == 0 ? Label : $"{Label} ({Unit})";
 }

@@ -14,6 +14,9 @@ namespace SizeTest.Reporting.Figures;
 public sealed record BinnedSeries(string Label, IReadOnlyList<double> XLow, IReadOnlyList<double> XHigh,
     IReadOnlyList<double> Y, IReadOnlyList<double> YLow, IReadOnlyList<double> YHigh) : SeriesSpec(Label)
 {
+    /// <summary>Where each point is drawn on x (e.g. the median redshift of its bin); null: the bin centre.</summary>
+    public IReadOnlyList<double>? XCentre { get; init; }
+
     /// <summary>Marker shape.</summary>
     public MarkerKind Marker { get; init; } = MarkerKind.Square;
     /// <summary>Marker size in points.</summary>

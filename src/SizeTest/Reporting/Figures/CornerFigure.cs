@@ -16,7 +16,7 @@ public static class CornerFigure
         if (post is null || post.Samples.Count < 2 || post.Parameters.Count == 0) return null;
         int n = Math.Min(post.Parameters.Count, options.MaxCornerParameters);
         var cols = Enumerable.Range(0, n).Select(j => post.Samples.Select(r => r[j]).ToArray()).ToArray();
-        AxisSpec Axis(int j) => new(post.Parameters[j], j < post.Units.Count ? post.Units[j] : AxisSpec.Dimensionless);
+        AxisSpec Axis(int j) => new(post.Parameters[j], j < post.Units.Count ? post.Units[j] : AxisSpec.Dimensionless) { InnerTicks = true };
         var panels = new List<PanelSpec>();
         for (int row = 0; row < n; row++)
         for (int col = 0; col <= row; col++)
@@ -27,7 +27,7 @@ public static class CornerFigure
                 var h = Histogram(cols[col], 30);
                 panels.Add(new PanelSpec
                 {
-                    X = Axis(col), Y = new AxisSpec("posterior density", "per unit of parameter") { Min = 0 },
+                    X = Axis(col), Y = new AxisSpec("posterior density", "per unit of parameter") { Min = 0, InnerTicks = true },
                     Series = [h with { Color = Palette.Model(0) }],
                     Row = row, Column = col, Legend = LegendPlace.None, XAxisLabelled = bottom, YAxisLabelled = false,
                 });
@@ -42,12 +42,12 @@ public static class CornerFigure
                 });
             }
         }
-        double size = Math.Clamp(2.0 * n, 4.0, 9.0);
+        double size = Math.Clamp(1.6 * n, 4.0, 10.0);
         return new FigureSpec
         {
             Id = Id,
-            Title = $"Posterior of {post.Model}",
-            Caption = $"Posterior samples of {post.Model} ({post.Samples.Count} samples after burn-in): marginal histograms on the diagonal, joint densities below (darker = more samples). " +
+            Title = $"Posterior of {Cosmology.WorldModelDisplayNames.For(post.Model)}",
+            Caption = $"Posterior samples of {Cosmology.WorldModelDisplayNames.For(post.Model)} ({post.Samples.Count} samples after burn-in): marginal histograms on the diagonal, joint densities below (darker = more samples). " +
                       (post.Parameters.Count > n ? $"Only the first {n} of {post.Parameters.Count} parameters are shown." : ""),
             Panels = panels,
             RowHeights = Enumerable.Repeat(1.0, n).ToList(),

@@ -24,9 +24,11 @@ public static class CriteriaFigure
             new BarSeries("ΔAIC", models.Select(m => m.Fit.DeltaAic).ToList()) { Horizontal = true, Offset = 0.18, Thickness = 0.34, Color = Palette.Model(1) },
         };
         double maxDelta = models.Max(m => Math.Max(m.Fit.DeltaBic, m.Fit.DeltaAic));
-        foreach (var step in new[] { 2.0, 6.0, 10.0 })
-            if (step <= Math.Max(maxDelta, 2.0) * 1.05)
-                left.Add(new ReferenceLine(step == 2.0 ? "ΔBIC = 2, 6, 10" : "", step, true) { Color = Palette.Reference, Dash = DashKind.Dotted });
+        // The axis ends just past the largest bar (at least 2); a guide is drawn and named only when it lies inside.
+        double xMax = Math.Max(double.IsFinite(maxDelta) ? maxDelta : 0, 2.0) * 1.08;
+        var steps = new[] { 2.0, 6.0, 10.0 }.Where(step => step <= xMax).ToList();
+        foreach (var step in steps)
+            left.Add(new ReferenceLine(step == steps[0] ? "ΔBIC = " + string.Join(", ", steps) + " (Kass & Raftery steps)" : "", step, true) { Color = Palette.Reference, Dash = DashKind.Dotted });
         var right = new List<SeriesSpec>
         {
             new BarSeries("Akaike weight", models.Select(m => m.Fit.AkaikeWeight).ToList()) { Horizontal = true, Offset = -0.18, Thickness = 0.34, Color = Palette.Model(2) },
@@ -38,13 +40,13 @@ public static class CriteriaFigure
         {
             Id = Id,
             Title = "Information-criterion comparison",
-            Caption = "Left: ΔBIC and ΔAIC of each model relative to the best (0 = preferred). Dotted lines mark ΔBIC = 2, 6 and 10, " +
-                      "the positive, strong and very strong steps of Kass & Raftery (1995). Right: Akaike weights exp(−ΔAIC/2)/Σ and BIC weights exp(−ΔBIC/2)/Σ. " +
+            Caption = "Left: ΔBIC and ΔAIC of each model relative to the best (0 = preferred). Dotted lines mark those of ΔBIC = 2, 6 and 10 (the positive, strong and very strong steps of Kass & Raftery 1995) that fall inside the axis. " +
+                      "Right: Akaike weights exp(−ΔAIC/2)/Σ and BIC weights exp(−ΔBIC/2)/Σ. " +
                       "These rank the models given the stated assumptions (priors, evolution form, selection model, K-corrections); they do not say which model is true.",
             Panels =
             [
-                new PanelSpec { X = new AxisSpec("Δ criterion", AxisSpec.Dimensionless) { Min = 0 }, Y = yAxis, Series = left, Legend = LegendPlace.LowerRight },
-                new PanelSpec { X = new AxisSpec("weight", AxisSpec.Dimensionless) { Min = 0, Max = 1.05 }, Y = yAxis, Series = right, Column = 1, YAxisLabelled = false, Legend = LegendPlace.LowerRight },
+                new PanelSpec { X = new AxisSpec("Δ criterion", AxisSpec.Dimensionless) { Min = 0, Max = xMax }, Y = yAxis, Series = left, Legend = LegendPlace.Below },
+                new PanelSpec { X = new AxisSpec("weight", AxisSpec.Dimensionless) { Min = 0, Max = 1.05 }, Y = yAxis, Series = right, Column = 1, YAxisLabelled = false, Legend = LegendPlace.Below },
             ],
             Columns = 2,
             WidthInches = 7.2,

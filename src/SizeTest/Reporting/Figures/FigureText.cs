@@ -50,4 +50,36 @@ internal static class FigureText
         }
         return (edges, Index);
     }
+
+    /// <summary>
+    /// For each curve, the labels of earlier curves it coincides with: equal within <paramref name="tolerance"/> (in y
+    /// units, or in dex when <paramref name="logY"/>) at every shared x. Such curves hide each other, so their legend
+    /// entries say "(coincides with …)".
+    /// </summary>
+    public static IReadOnlyList<string> CoincidesWith(IReadOnlyList<(string Label, Curve? Curve)> curves, double tolerance, bool logY)
+    {
+        var result = new string[curves.Count];
+        for (int i = 0; i < curves.Count; i++)
+        {
+            result[i] = "";
+            if (curves[i].Curve is not { } ci) continue;
+            var same = new List<string>();
+            for (int j = 0; j < i; j++)
+            {
+                if (curves[j].Curve is not { } cj) continue;
+                bool all = true; int shared = 0;
+                for (int k = 0; k < ci.X.Count && all; k++)
+                {
+                    double other = cj.At(ci.X[k], logY);
+                    if (!double.IsFinite(other)) continue;
+                    shared++;
+                    double d = logY ? Math.Abs(Math.Log10(ci.Y[k] / other)) : Math.Abs(ci.Y[k] - other);
+                    if (!(d <= tolerance)) all = false;
+                }
+                if (all && shared > 1) same.Add(curves[j].Label);
+            }
+            if (same.Count > 0) result[i] = $" (coincides with {string.Join(", ", same)})";
+        }
+        return result;
+    }
 }

@@ -22,6 +22,9 @@ public static class Palette
     /// <summary>Secondary reference (e.g. the static-universe dimming curve): dark grey #4D4D4D.</summary>
     public const string Reference = "#4D4D4D";
 
+    /// <summary>Limits and warnings (the SB limit line): Okabe–Ito vermillion-orange #E66100.</summary>
+    public const string Warn = "#B35900";
+
     /// <summary>Lightest end of the density ramp (white).</summary>
     public const string DensityLow = "#FFFFFF";
 

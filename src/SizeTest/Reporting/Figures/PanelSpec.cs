@@ -44,4 +44,6 @@ public enum LegendPlace
     LowerLeft,
     /// <summary>Lower right corner.</summary>
     LowerRight,
+    /// <summary>Outside the axes: in a band under the figure, shared by every panel that asks for it.</summary>
+    Below,
 }

@@ -32,7 +32,7 @@ public static class PowerFigure
             {
                 X = new AxisSpec(p.XLabel, p.XUnit) { Log = p.XLog },
                 Y = new AxisSpec("power", AxisSpec.Dimensionless) { Min = 0, Max = 1.02 },
-                Series = series, Legend = LegendPlace.LowerRight,
+                Series = series, Legend = LegendPlace.Below,
             }],
         };
     }

@@ -21,7 +21,7 @@ public static class RejectsFigure
                       $"{data.Data.Accepted} accepted). Every rejected row is listed with its reason in the reject log.",
             Panels = [new PanelSpec
             {
-                X = new AxisSpec("rejected", "rows") { Min = 0 },
+                X = new AxisSpec("rejected", "rows") { Min = 0, Max = Math.Max(1, reasons.Max(r => r.Count)) * 1.05, IntegerTicks = true },
                 Y = new AxisSpec("reason", AxisSpec.Dimensionless) { Categories = reasons.Select(r => r.Reason).ToList(), Inverted = true },
                 Series = [new BarSeries("", reasons.Select(r => (double)r.Count).ToList()) { Horizontal = true, Color = Palette.Model(1) }],
                 Legend = LegendPlace.None,

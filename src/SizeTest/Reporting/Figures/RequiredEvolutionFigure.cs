@@ -30,12 +30,12 @@ public static class RequiredEvolutionFigure
             }
             series.Add(new PointSeries(description.Length > 0 ? description : terms[t], xs, ys)
             {
-                XErrLow = lo, XErrHigh = hi, Color = Palette.Model(t), Marker = shapes[t % shapes.Length], MarkerSize = 6,
+                XErrLow = lo, XErrHigh = hi, Color = t == 0 ? Palette.Ink : Palette.Reference, Marker = shapes[t % shapes.Length], MarkerSize = 6,
             });
         }
         series.Add(new ReferenceLine("no evolution", 0, true) { Color = Palette.Ink, Dash = DashKind.Dashed });
         // Spare category rows below the last model hold the legend (about 0.45 row per entry at 48 px per row).
-        double spare = 0.45 * (terms.Count + 1) + 0.4;
+        const double spare = 0.0; // the legend sits under the axes
         return new FigureSpec
         {
             Id = Id,
@@ -47,7 +47,7 @@ public static class RequiredEvolutionFigure
             {
                 X = new AxisSpec("evolution exponent", AxisSpec.Dimensionless),
                 Y = new AxisSpec("model", AxisSpec.Dimensionless) { Categories = models.Select(m => m.Label).ToList(), Inverted = true, Max = models.Count - 0.4 + spare },
-                Series = series, Legend = LegendPlace.LowerRight,
+                Series = series, Legend = LegendPlace.Below,
             }],
             HeightInches = (96 + 48 * (models.Count + spare)) / 96.0,
         };

@@ -32,8 +32,8 @@ public static class SurfaceBrightnessFigure
             });
         var bins = data.MuBins;
         if (bins is { Count: > 0 })
-            series.Add(new BinnedSeries("binned mean (bootstrap 68%)", bins.Select(b => 1 + b.ZLow).ToList(), bins.Select(b => 1 + b.ZHigh).ToList(),
-                bins.Select(b => b.Value).ToList(), bins.Select(b => b.Lo).ToList(), bins.Select(b => b.Hi).ToList()) { Color = Palette.Ink });
+            series.Add(new BinnedSeries("binned mean, equal-count bins, at the bin's median z (bootstrap 68%)", bins.Select(b => 1 + b.ZLow).ToList(), bins.Select(b => 1 + b.ZHigh).ToList(),
+                bins.Select(b => b.Value).ToList(), bins.Select(b => b.Lo).ToList(), bins.Select(b => b.Hi).ToList()) { Color = Palette.Ink, XCentre = bins.Select(b => 1 + b.ZDrawn).ToList() });
 
         // Zero point of the pure dimming curves: given, or through the lowest-redshift bin.
         double? mu0 = data.SurfaceBrightnessZeroPoint;
@@ -41,7 +41,7 @@ public static class SurfaceBrightnessFigure
         if (mu0 is null && bins is { Count: > 0 })
         {
             var b0 = bins.OrderBy(b => b.ZLow).First();
-            double zc = 0.5 * (b0.ZLow + b0.ZHigh);
+            double zc = b0.ZDrawn;
             mu0 = b0.Value - 2.5 * 4 * Math.Log10(1 + zc);
             anchor = "through the lowest-redshift bin";
         }
@@ -54,19 +54,28 @@ public static class SurfaceBrightnessFigure
             if (data.SurfaceBrightnessZeroPoint is null && bins is { Count: > 0 })
             {
                 var b0 = bins.OrderBy(b => b.ZLow).First();
-                m1 = b0.Value - 2.5 * Math.Log10(1 + 0.5 * (b0.ZLow + b0.ZHigh));
+                m1 = b0.Value - 2.5 * Math.Log10(1 + b0.ZDrawn);
             }
             series.Add(new LineSeries("(1+z)⁴ dimming (expanding)", grid, grid.Select(g => m0 + 10 * Math.Log10(g)).ToList()) { Color = Palette.Ink, Dash = DashKind.Dashed, Width = 1.3 });
             series.Add(new LineSeries("(1+z)¹ dimming (static)", grid, grid.Select(g => m1 + 2.5 * Math.Log10(g)).ToList()) { Color = Palette.Reference, Dash = DashKind.Dotted, Width = 1.6 });
         }
+        // Each model: the expected mean of the objects passing the cuts (what the binned means estimate) in its own
+        // colour and style; the untruncated relation thin and faint for reference. Identical curves are marked.
+        bool selected = data.Models.Any(m => m.MuSelected is not null);
+        var main = data.Models.Select(m => (m.Label, selected ? m.MuSelected : m.Mu)).ToList();
+        var same = FigureText.CoincidesWith(main, 0.01, logY: false);
         for (int i = 0; i < data.Models.Count; i++)
         {
             var m = data.Models[i];
-            if (m.Mu is { } c) series.Add(new LineSeries($"{m.Label} (fitted evolution)", c.X.Select(z => 1 + z).ToList(), c.Y) { Color = Palette.Model(i), Width = 1.6 });
-            if (m.MuNoEvolution is { } c0) series.Add(new LineSeries("", c0.X.Select(z => 1 + z).ToList(), c0.Y) { Color = Palette.Model(i), Dash = DashKind.DashDot, Width = 1.2 });
+            string color = ModelStyles.Color(m.Fit.Name);
+            if (main[i].Item2 is { } c)
+                series.Add(new LineSeries($"{m.Label}{same[i]}", c.X.Select(z => 1 + z).ToList(), c.Y) { Color = color, Dash = ModelStyles.Dash(m.Fit.Name), Width = 1.6 });
+            if (selected && m.Mu is { } u)
+                series.Add(new LineSeries("", u.X.Select(z => 1 + z).ToList(), u.Y) { Color = color, Dash = DashKind.Dotted, Width = 1.0, Alpha = 0.7 });
         }
-        if (data.Models.Any(m => m.MuNoEvolution is not null))
-            series.Add(new LegendKey("dash-dot: same model, no evolution") { Color = Palette.Reference, Dash = DashKind.DashDot });
+        if (selected) series.Add(new LegendKey("dotted: same model, untruncated relation") { Color = Palette.Reference, Dash = DashKind.Dotted });
+        if (data.SurfaceBrightnessLimit is { } lim)
+            series.Add(new ReferenceLine($"SB limit μ = {lim.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)}", lim, false) { Color = Palette.Warn, Dash = DashKind.Dashed });
         return new FigureSpec
         {
             Id = Id,
@@ -75,8 +84,11 @@ public static class SurfaceBrightnessFigure
                       (dense ? "Objects are shown as a density. " : "Grey points are the objects with 1σ errors. ") +
                       (bins is { Count: > 0 } ? "Black squares are binned means with bootstrap 68% intervals. " : "") +
                       (mu0 is not null ? $"The black dashed line is bolometric (1+z)⁴ dimming expected in an expanding universe and the grey dotted line (1+z)¹ dimming of a static universe, both drawn {anchor}; neither includes evolution or K-corrections beyond those applied to the data. " : "") +
-                      "Coloured solid lines are each model's best fit with its fitted luminosity evolution, dash-dotted the same without evolution.",
-            Panels = [new PanelSpec { X = new AxisSpec("1 + z", AxisSpec.Dimensionless) { Log = true }, Y = new AxisSpec("surface brightness μ", "mag/arcsec²"), Series = series, Legend = LegendPlace.UpperLeft }],
+                      (selected
+                          ? "Each model's line is the expected mean μ of the objects that pass the selection cuts (a Gaussian truncated at the SB limit), which is what the binned means estimate; the dotted line of the same colour is the untruncated relation μ0 + 2.5 (n − b) log10(1+z). The dashed orange line is the SB limit. "
+                          : "Each model's line is its best fit with its fitted luminosity evolution. ") +
+                      "A model listed as coinciding with another lies under it (with sb_evolution free every model fits μ equally well).",
+            Panels = [new PanelSpec { X = new AxisSpec("1 + z", AxisSpec.Dimensionless) { Log = true }, Y = new AxisSpec("surface brightness μ", "mag/arcsec²"), Series = series, Legend = LegendPlace.Below }],
         };
     }
 }

@@ -34,9 +34,97 @@ public static class FigureRenderer
     private static readonly object FontLock = new();
     private static bool fontsRegistered;
 
-    /// <summary>Logical size (96-dpi pixels) of a figure.</summary>
-    public static (float Width, float Height) LogicalSize(FigureSpec spec) =>
-        ((float)(spec.WidthInches * LogicalDpi), (float)(spec.HeightInches * LogicalDpi));
+    /// <summary>Logical size (96-dpi pixels) of a figure, including the legend band under the panels.</summary>
+    public static (float Width, float Height) LogicalSize(FigureSpec spec)
+    {
+        float w = (float)(spec.WidthInches * LogicalDpi);
+        return (w, (float)(spec.HeightInches * LogicalDpi) + LegendBand(spec, w).Height);
+    }
+
+    /// <summary>The legend entries of the panels that put their legend below the axes (one per label).</summary>
+    private static List<SeriesSpec> BelowEntries(FigureSpec spec) =>
+        spec.Panels.Where(p => p.Legend == LegendPlace.Below).SelectMany(p => p.Series)
+            .Where(s => s.Label.Length > 0).DistinctBy(s => s.Label).ToList();
+
+    private const float LegendSymbolPx = 28f, LegendGapPx = 14f, LegendPadPx = 8f;
+
+    /// <summary>Height of the legend band and its column layout: as many equal columns as the widest entry allows.</summary>
+    private static (float Height, int Columns, float ColumnWidth, List<SeriesSpec> Entries) LegendBand(FigureSpec spec, float width)
+    {
+        var entries = BelowEntries(spec);
+        if (entries.Count == 0) return (0f, 0, 0f, entries);
+        EnsureFonts();
+        using var font = new SKFont(FontRegistry.Regular, LegendFontPx);
+        float widest = entries.Max(e => font.MeasureText(e.Label)) + LegendSymbolPx + LegendGapPx;
+        int cols = Math.Max(1, Math.Min(entries.Count, (int)((width - 2 * LegendPadPx) / widest)));
+        int rows = (entries.Count + cols - 1) / cols;
+        float line = LegendFontPx * 1.55f;
+        return (rows * line + 2 * LegendPadPx, cols, (width - 2 * LegendPadPx) / cols, entries);
+    }
+
+    private static SKPathEffect? Dash(DashKind d, float scale) => d switch
+    {
+        DashKind.Dashed => SKPathEffect.CreateDash([6f * scale, 3f * scale], 0),
+        DashKind.Dotted => SKPathEffect.CreateDash([1.5f * scale, 2.5f * scale], 0),
+        DashKind.DashDot => SKPathEffect.CreateDash([8f * scale, 3f * scale, 2f * scale, 3f * scale], 0),
+        _ => null,
+    };
+
+    /// <summary>Draws the legend band under the panels (outside every axis, so it covers no data); returns its box.</summary>
+    private static SKRect DrawLegendBand(SKCanvas canvas, FigureSpec spec, float top, float width)
+    {
+        var (height, cols, colW, entries) = LegendBand(spec, width);
+        if (entries.Count == 0) return SKRect.Empty;
+        const float k = 1f;
+        using var font = new SKFont(FontRegistry.Regular, LegendFontPx * k) { Subpixel = true };
+        using var text = new SKPaint { Color = SKColors.Black, IsAntialias = true };
+        float line = LegendFontPx * k * 1.55f;
+        for (int i = 0; i < entries.Count; i++)
+        {
+            var e = entries[i];
+            int r = i / cols, c = i % cols;
+            float x = LegendPadPx + c * colW, yMid = top + LegendPadPx + r * line + line / 2;
+            var color = SKColor.Parse(e.Color).WithAlpha((byte)Math.Round(255 * Math.Clamp(e.Alpha, 0.35, 1)));
+            using var paint = new SKPaint { Color = color, IsAntialias = true, StrokeWidth = 1.6f * k, Style = SKPaintStyle.Stroke };
+            float sw = LegendSymbolPx * k;
+            switch (e)
+            {
+                case LineSeries l:
+                    paint.StrokeWidth = Px(l.Width);
+                    paint.PathEffect = Dash(l.Dash, k);
+                    canvas.DrawLine(x, yMid, x + sw, yMid, paint);
+                    break;
+                case LegendKey lk:
+                    paint.PathEffect = Dash(lk.Dash, k);
+                    canvas.DrawLine(x, yMid, x + sw, yMid, paint);
+                    break;
+                case ReferenceLine rl:
+                    paint.PathEffect = Dash(rl.Dash, k);
+                    canvas.DrawLine(x, yMid, x + sw, yMid, paint);
+                    break;
+                case BinnedSeries:
+                    canvas.DrawLine(x + 2, yMid, x + sw - 2, yMid, paint);
+                    paint.Style = SKPaintStyle.Fill;
+                    canvas.DrawRect(x + sw / 2 - 3.5f * k, yMid - 3.5f * k, 7f * k, 7f * k, paint);
+                    break;
+                case PointSeries:
+                    paint.Style = SKPaintStyle.Fill;
+                    canvas.DrawCircle(x + sw / 2, yMid, 3f * k, paint);
+                    break;
+                case DensitySeries:
+                    paint.Style = SKPaintStyle.Fill;
+                    paint.Color = SKColor.Parse(Palette.DensityHigh).WithAlpha(170);
+                    canvas.DrawRect(x + 4, yMid - 5 * k, sw - 8, 10 * k, paint);
+                    break;
+                default:
+                    paint.Style = SKPaintStyle.Fill;
+                    canvas.DrawRect(x + 4, yMid - 5 * k, sw - 8, 10 * k, paint);
+                    break;
+            }
+            canvas.DrawText(e.Label, x + sw + 6f * k, yMid + LegendFontPx * k * 0.36f, SKTextAlign.Left, font, text);
+        }
+        return new SKRect(0, top, width, top + height);
+    }
 
     /// <summary>Renders a PNG at <paramref name="dpi"/> (default 300) on a white background.</summary>
     public static RenderedPng RenderPng(FigureSpec spec, double dpi = DefaultPngDpi)
@@ -98,7 +186,8 @@ public static class FigureRenderer
         ArgumentNullException.ThrowIfNull(canvas);
         ArgumentNullException.ThrowIfNull(spec);
         EnsureFonts();
-        var (w, h) = LogicalSize(spec);
+        var (w, _) = LogicalSize(spec);
+        float h = (float)(spec.HeightInches * LogicalDpi); // panels; the legend band goes underneath
         int rows = spec.RowHeights.Count;
         double total = spec.RowHeights.Sum();
         var rowTop = new float[rows + 1];
@@ -136,7 +225,8 @@ public static class FigureRenderer
             using var paint = new SKPaint { Color = SKColors.Black, IsAntialias = true };
             canvas.DrawText(spec.Title, w / 2f, TitleFontPx + 6f, SKTextAlign.Center, font, paint);
         }
-        return new RenderedFigure(w, h, panels);
+        var legend = DrawLegendBand(canvas, spec, h, w);
+        return new RenderedFigure(w, h + (legend.IsEmpty ? 0 : legend.Height), panels) { LegendRect = legend };
     }
 
     private sealed record PreparedPanel(PanelSpec Spec, double XMin, double XMax, double YMin, double YMax,
@@ -182,7 +272,24 @@ public static class FigureRenderer
     {
         if (axis.Categories is { } cats)
             return cats.Select((c, i) => new AxisTick(i, c, true)).ToList();
+        if (axis.InnerTicks && !axis.Log) return InnerTicks(lo, hi);
         return axis.Log ? LogAxisTicks.Generate(lo, hi) : null;
+    }
+
+    /// <summary>Up to three ticks at multiples of a 1–2–5 step within the inner 80% of [lo, hi].</summary>
+    internal static IReadOnlyList<AxisTick> InnerTicks(double lo, double hi)
+    {
+        if (hi < lo) (lo, hi) = (hi, lo);
+        double span = hi - lo;
+        if (!(span > 0)) return [new AxisTick(lo, FormatLinear(lo), true)];
+        double raw = span / 3, mag = Math.Pow(10, Math.Floor(Math.Log10(raw)));
+        double step = new[] { 1.0, 2.0, 5.0, 10.0 }.Select(f => f * mag).First(v => v >= raw * 0.75);
+        double a = lo + 0.1 * span, b = hi - 0.1 * span;
+        var ticks = new List<AxisTick>();
+        for (double t = Math.Ceiling(a / step) * step; t <= b + 1e-12 * span; t += step)
+            ticks.Add(new AxisTick(Math.Abs(t) < 1e-12 * span ? 0 : t, FormatLinear(Math.Round(t / step) * step), true));
+        if (ticks.Count == 0) ticks.Add(new AxisTick(0.5 * (lo + hi), FormatLinear(Math.Round(0.5 * (lo + hi) / step) * step), true));
+        return ticks;
     }
 
     private static float MeasureWidest(IReadOnlyList<AxisTick>? ticks, AxisSpec axis)
@@ -236,7 +343,7 @@ public static class FigureRenderer
             note.LabelShadowColor = Colors.Transparent;
         }
 
-        if (ps.Legend != LegendPlace.None && ps.Series.Any(s => s.Label.Length > 0))
+        if (ps.Legend is not (LegendPlace.None or LegendPlace.Below) && ps.Series.Any(s => s.Label.Length > 0))
         {
             plot.ShowLegend(ps.Legend switch
             {
@@ -299,11 +406,12 @@ public static class FigureRenderer
             {
                 LabelFormatter = v => labelled ? FormatLinear(v) : "",
                 TargetTickCount = 6,
+                IntegerTicksOnly = spec.IntegerTicks,
             };
         }
     }
 
-    private static string FormatLinear(double v)
+    internal static string FormatLinear(double v)
     {
         if (Math.Abs(v) < 1e-12) return "0";
         double a = Math.Abs(v);
@@ -359,7 +467,7 @@ public static class FigureRenderer
                 {
                     // Few points (intervals, summaries): bold bars with caps; many points: light thin bars.
                     bool few = xs.Count <= 50;
-                    var eb = new ScottPlot.Plottables.ErrorBar(xs, ys, xn, xp, yn, yp)
+                    var eb = new ScottPlot.Plottables.ErrorBar(xs, ys, xp, xn, yp, yn) // ScottPlot 5.1 takes the positive side first (checked on a rendered asymmetric bin)
                     {
                         LineColor = few ? C(p) : C(p, 0.6), LineWidth = few ? 1.6f : 0.8f, CapSize = few ? 5 : 0, LegendText = "",
                     };
@@ -414,13 +522,13 @@ public static class FigureRenderer
                     double a = T(ax, bs.XLow[i]), c = T(ax, bs.XHigh[i]), y = T(ay, bs.Y[i]);
                     double ylo = T(ay, bs.YLow[i]), yhi = T(ay, bs.YHigh[i]);
                     if (!double.IsFinite(a) || !double.IsFinite(c) || !double.IsFinite(y)) { lost++; continue; }
-                    double xm = 0.5 * (a + c);
+                    double xm = bs.XCentre is { } xc && i < xc.Count && double.IsFinite(T(ax, xc[i])) ? T(ax, xc[i]) : 0.5 * (a + c);
                     xs.Add(xm); ys.Add(y); xn.Add(xm - a); xp.Add(c - xm);
                     yn.Add(double.IsFinite(ylo) ? Math.Max(0, y - ylo) : 0);
                     yp.Add(double.IsFinite(yhi) ? Math.Max(0, yhi - y) : 0);
                 }
                 if (xs.Count == 0) return (false, lost);
-                var eb = new ScottPlot.Plottables.ErrorBar(xs, ys, xn, xp, yn, yp)
+                var eb = new ScottPlot.Plottables.ErrorBar(xs, ys, xp, xn, yp, yn) // ScottPlot 5.1 takes the positive side first (checked on a rendered asymmetric bin)
                 {
                     LineColor = C(bs), LineWidth = 1.4f, CapSize = 4, LegendText = "",
                 };

@@ -6,7 +6,11 @@ namespace SizeTest.Reporting.Rendering;
 /// <param name="Width">Logical width (96-dpi pixels).</param>
 /// <param name="Height">Logical height.</param>
 /// <param name="Panels">One entry per panel, in the order of <see cref="Figures.FigureSpec.Panels"/>.</param>
-public sealed record RenderedFigure(float Width, float Height, IReadOnlyList<RenderedPanel> Panels);
+public sealed record RenderedFigure(float Width, float Height, IReadOnlyList<RenderedPanel> Panels)
+{
+    /// <summary>The legend band under the panels in logical pixels (empty when the figure has none there).</summary>
+    public SKRect LegendRect { get; init; } = SKRect.Empty;
+}
 
 /// <summary>One drawn panel.</summary>
 /// <param name="DataRect">Data area in logical pixels (y down).</param>
