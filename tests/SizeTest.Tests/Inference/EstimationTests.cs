@@ -84,7 +84,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         var req = r.RequiredEvolution.Single();
         // With seed 99 the LRT p is well above 0.05 (a is 0 in truth; a false alarm has 5% probability).
         Assert.False(req.ZeroExcluded, req.Verdict);
-        Assert.Contains("outside the expected range", req.Verdict);
+        Assert.Contains("lies outside the expected", req.Verdict);
     }
 
     [Fact]
