@@ -35,10 +35,10 @@ public static class ResourceBudget
     public static void Check(string what, double estimatedBytes, long? maxMemoryBytes)
     {
         if (maxMemoryBytes is { } max && estimatedBytes > max)
-            throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than --max-memory {Format(max)}; ask for less or raise --max-memory");
+            throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than --max-memory {Format(max)}; ask for less or raise --max-memory (memory budget checked before any allocation)");
         long avail = AvailableBytes();
         if (avail > 0 && estimatedBytes > avail)
-            throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than the {Format(avail)} of memory available on this machine; ask for less");
+            throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than the {Format(avail)} of memory available on this machine; ask for less (memory budget checked before any allocation)");
     }
 
     /// <summary>Parses a size: a number of bytes with an optional suffix K, M, G, T (powers of 1024; e.g. <c>4G</c>, <c>512M</c>, <c>1e9</c>).</summary>
