@@ -36,25 +36,25 @@ internal sealed class CliContext
         switch (ex)
         {
             case InputException ie:
-                Err.WriteLine($"sizetest: {ie.Message}");
+                Err.WriteLine($"sizetest: {TerminalText.Escape(ie.Message)}");
                 if (Verbose && ie.InnerException is not null) Err.WriteLine(ie.InnerException);
                 return ExitCodes.BadInput;
             case ArgumentException ae:
-                Err.WriteLine($"sizetest: {ae.Message}");
+                Err.WriteLine($"sizetest: {TerminalText.Escape(ae.Message)}");
                 if (Verbose) Err.WriteLine(ae);
                 return ExitCodes.BadInput;
             case AnalysisException an:
-                Err.WriteLine($"sizetest: {an.Message}");
+                Err.WriteLine($"sizetest: {TerminalText.Escape(an.Message)}");
                 if (Verbose) Err.WriteLine(an);
                 return ExitCodes.AnalysisFailed;
             case FileNotFoundException fnf:
-                Err.WriteLine($"sizetest: file not found: {fnf.FileName ?? fnf.Message}");
+                Err.WriteLine($"sizetest: file not found: {TerminalText.Escape(fnf.FileName ?? fnf.Message)}");
                 return ExitCodes.BadInput;
             case DirectoryNotFoundException dnf:
-                Err.WriteLine($"sizetest: folder not found: {dnf.Message}");
+                Err.WriteLine($"sizetest: folder not found: {TerminalText.Escape(dnf.Message)}");
                 return ExitCodes.BadInput;
             default:
-                Err.WriteLine($"sizetest: internal error: {ex.Message} (run with --verbose for details and please report it)");
+                Err.WriteLine($"sizetest: internal error: {TerminalText.Escape(ex.Message)} (run with --verbose for details and please report it)");
                 if (Verbose) Err.WriteLine(ex);
                 return ExitCodes.AnalysisFailed;
         }

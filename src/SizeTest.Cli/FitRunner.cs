@@ -75,7 +75,7 @@ internal static class FitRunner
             {
                 survey = bindSurvey(local);
                 a = a with { Hypotheses = survey.Hypotheses };
-                if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + w);
+                if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(w));
             }
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
@@ -99,7 +99,7 @@ internal static class FitRunner
             {
                 var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
                 selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CatalogPath);
-                if (root) context.Err.WriteLine($"sizetest: warning: {selectionWarning}");
+                if (root) context.Err.WriteLine($"sizetest: warning: {TerminalText.Escape(selectionWarning)}");
             }
             catch (InputException e)
             {

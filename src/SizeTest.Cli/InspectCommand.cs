@@ -95,8 +95,9 @@ internal static class InspectCommand
         _ => "delimited text",
     };
 
-    private static void WriteTable(TextWriter o, string path, SampleLoad load, string? logPath, IReadOnlyList<string> corrections)
+    private static void WriteTable(TextWriter raw, string path, SampleLoad load, string? logPath, IReadOnlyList<string> corrections)
     {
+        var o = new EscapingWriter(raw); // names, units and cells come from the user's file
         o.WriteLine($"catalogue: {path}");
         o.WriteLine($"format:    {FormatName(load)}{(load.Table is null ? "" : $", {load.Table}")}");
         foreach (var n in load.LayoutNotes) o.WriteLine($"           {n}");
