@@ -89,7 +89,7 @@ public static class CatalogLoader
                         var name = mapping.Kept[k].Name;
                         if (buf.States[r] == CellState.Null) { reject = new RejectEntry(pos, name, "", RejectReason.MissingValue, "kept column has no value"); break; }
                         if (buf.States[r] == CellState.Invalid) { reject = new RejectEntry(pos, name, buf.InvalidText(r), RejectReason.Unparsable, "not a number"); break; }
-                        if (!double.IsFinite(buf.Numbers![r])) { reject = new RejectEntry(pos, name, Fmt(buf.Numbers[r]), RejectReason.OutOfRange, "not finite"); break; }
+                        if (!double.IsFinite(buf.Numbers![r])) { reject = new RejectEntry(pos, name, Fmt(buf.Numbers[r]), RejectReason.NonFinite, "not a finite number"); break; }
                     }
                 }
                 if (reject is not null) { rejects.Add(reject with { Row = pos }); continue; }
@@ -151,7 +151,7 @@ public static class CatalogLoader
                 return new RejectEntry(pos, b.ColumnName, buf.InvalidText(r), RejectReason.Unparsable, b.Role.IsText() ? "cannot be read as text" : "not a number");
             if (b.Role.IsText()) continue;
             double raw = buf.Numbers![r];
-            if (!double.IsFinite(raw)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "not finite");
+            if (!double.IsFinite(raw)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonFinite, "not a finite number");
             double v = raw * b.Scale;
             switch (b.Role)
             {
@@ -166,7 +166,7 @@ public static class CatalogLoader
                 case ColumnRole.ZErr or ColumnRole.ThetaErr:
                     if (v < 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NegativeError, "error must be >= 0");
                     if (b.IsRelative) v *= values[b.Role == ColumnRole.ZErr ? zSlot : thetaSlot];
-                    if (!double.IsFinite(v)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "not finite after conversion");
+                    if (!double.IsFinite(v)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonFinite, "not finite after conversion");
                     break;
                 case ColumnRole.Mu or ColumnRole.Mag:
                     if (Math.Abs(v) > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"|value| above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");

@@ -18,8 +18,9 @@ public sealed record ReaderOptions
     /// <summary>Text only: whether the first non-comment line is a header. Null = detect (a line with non-numeric fields, or a last comment line with one name per column).</summary>
     public bool? HasHeader { get; init; }
 
-    /// <summary>Text only: cell texts read as null besides the empty cell.</summary>
-    public IReadOnlyList<string> NullTokens { get; init; } = ["NA", "N/A", "NaN", "nan", "null", "NULL", "None", "--"];
+    /// <summary>Text only: cell texts read as null besides the empty cell. <c>NaN</c>/<c>nan</c> are not among them: a
+    /// written-out NaN is a non-finite number and is rejected as such, like <c>inf</c>, in every reader.</summary>
+    public IReadOnlyList<string> NullTokens { get; init; } = ["NA", "N/A", "null", "NULL", "None", "--"];
 
     /// <summary>Text only: the longest line accepted, bytes (default 1 MiB); a longer line is refused naming file and line.</summary>
     public int MaxLineBytes { get; init; } = SizeTest.Common.LineCappedStream.DefaultMaxLineBytes;

@@ -13,7 +13,7 @@ public enum RejectReason
     NonPositiveSize,
     /// <summary>An error (1σ) below zero.</summary>
     NegativeError,
-    /// <summary>A value outside the physically possible or plausible range (infinite, θ ≥ π rad, |mag| &gt; 50 such as 99 sentinels, z &gt; the maximum).</summary>
+    /// <summary>A value outside the physically possible or plausible range (θ ≥ π rad, |mag| &gt; 50 such as 99 sentinels, z &gt; the maximum).</summary>
     OutOfRange,
     /// <summary>Surface brightness not brighter than the stated survey limit (μ ≥ sb_limit): outside the selection the fit models.</summary>
     OutsideSbLimit,
@@ -21,12 +21,14 @@ public enum RejectReason
     OutsideMagLimit,
     /// <summary>Angular size not above the stated resolution limit (θ ≤ min_size).</summary>
     OutsideMinSize,
+    /// <summary>A numeric cell holds an infinity or NaN written out (<c>inf</c>, <c>Infinity</c>, <c>-inf</c>, <c>nan</c>, <c>NaN</c>), whatever the reader.</summary>
+    NonFinite,
 }
 
 /// <summary>Text forms of <see cref="RejectReason"/> used in the reject log and reports.</summary>
 public static class RejectReasons
 {
-    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>, <c>outside selection: sb_limit</c> (also <c>mag_limit</c>, <c>min_size</c>).</summary>
+    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>, <c>outside selection: sb_limit</c> (also <c>mag_limit</c>, <c>min_size</c>), <c>non-finite value</c>.</summary>
     public static string Code(this RejectReason reason) => reason switch
     {
         RejectReason.MissingValue => "missing value",
@@ -38,6 +40,7 @@ public static class RejectReasons
         RejectReason.OutsideSbLimit => "outside selection: sb_limit",
         RejectReason.OutsideMagLimit => "outside selection: mag_limit",
         RejectReason.OutsideMinSize => "outside selection: min_size",
+        RejectReason.NonFinite => "non-finite value",
         _ => reason.ToString(),
     };
 }

@@ -132,7 +132,7 @@ public sealed class CsvLoadTests
         Assert.Equal(4, load.RowsRead);
         Assert.Equal(new[] { "NGC 1", "G4" }, load.Sample.Id);
         Assert.Equal(new long[] { 3, 6 }, load.Sample.SourceRows.ToArray());
-        Assert.Equal(new[] { (4L, RejectReason.MissingValue), (5L, RejectReason.Unparsable) }, load.RejectLog.Entries.Select(e => (e.Row, e.Reason)));
+        Assert.Equal(new[] { (4L, RejectReason.NonFinite), (5L, RejectReason.Unparsable) }, load.RejectLog.Entries.Select(e => (e.Row, e.Reason))); // NaN is non-finite, not null (issue 14 point 10)
         Rel.Equal(12.5 * Math.PI / 648000, load.Sample.ThetaRad![0]); // unit from the header "Re[arcsec]"
     }
 

@@ -77,7 +77,8 @@ public sealed class VoTableReaderTests
         Assert.Equal("TABLE 2 'sizes'", load.Table);
         Assert.Equal(5, load.RowsRead);
         Assert.Equal(1, load.Accepted);
-        Assert.Equal(new[] { RejectReason.MissingValue, RejectReason.MissingValue, RejectReason.Unparsable, RejectReason.MissingValue },
+        // A written-out NaN is rejected as non-finite, as in every other reader (issue 14 point 10).
+        Assert.Equal(new[] { RejectReason.NonFinite, RejectReason.MissingValue, RejectReason.Unparsable, RejectReason.MissingValue },
             load.RejectLog.Entries.Select(e => e.Reason));
         Rel.Equal(120 * Math.PI / 648000e3, load.Sample.ThetaRad![0]); // mas from the FIELD unit
         Rel.Equal(5 * Math.PI / 648000e3, load.Sample.ThetaErrRad![0]); // error companion by UCD stat.error next to Re; unit same as theta

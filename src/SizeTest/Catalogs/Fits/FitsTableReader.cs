@@ -230,7 +230,7 @@ internal sealed class FitsTableReader : ICatalogReader
                     var s = Encoding.Latin1.GetString(bytes).Trim();
                     if (s.Length == 0) buf.SetNull(r);
                     else if (asText) buf.SetText(r, s);
-                    else if (double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) buf.SetNumber(r, v);
+                    else if (NumberText.TryParse(s, out var v)) buf.SetNumber(r, v);
                     else buf.SetInvalid(r, s);
                     break;
                 }

@@ -120,7 +120,7 @@ public sealed class ParquetCatalogReader : ICatalogReader
                 if (s is null) buffer.SetNull(r);
                 else if (asText) buffer.SetText(r, s);
                 else if (s.Trim().Length == 0) buffer.SetNull(r);
-                else if (double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) { if (double.IsNaN(v)) buffer.SetNull(r); else buffer.SetNumber(r, v); }
+                else if (NumberText.TryParse(s, out var v)) buffer.SetNumber(r, v);
                 else buffer.SetInvalid(r, s);
             }
             return;

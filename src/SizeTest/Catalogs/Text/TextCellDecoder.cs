@@ -21,7 +21,11 @@ internal sealed class TextCellDecoder(IReadOnlyList<string> nullTokens)
         if (IsNull(cell)) buffer.SetNull(row);
         else if (asText) buffer.SetText(row, Encoding.UTF8.GetString(cell));
         else if (FastDecimal.TryParse(cell, out var v)) buffer.SetNumber(row, v);
-        else buffer.SetInvalid(row, Encoding.UTF8.GetString(cell));
+        else
+        {
+            var s = Encoding.UTF8.GetString(cell);
+            if (NumberText.TryParseNonFinite(s, out var nf)) buffer.SetNumber(row, nf); else buffer.SetInvalid(row, s);
+        }
     }
 
     /// <summary>Decodes one UTF-16 cell into <paramref name="buffer"/> at <paramref name="row"/>.</summary>
@@ -29,7 +33,7 @@ internal sealed class TextCellDecoder(IReadOnlyList<string> nullTokens)
     {
         if (IsNull(cell)) buffer.SetNull(row);
         else if (asText) buffer.SetText(row, cell);
-        else if (double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) buffer.SetNumber(row, v);
+        else if (NumberText.TryParse(cell, out var v)) buffer.SetNumber(row, v);
         else buffer.SetInvalid(row, cell);
     }
 

@@ -289,13 +289,11 @@ internal sealed class VoTableReader : ICatalogReader
         if (f.Kind == ColumnKind.Unsupported) { buf.SetInvalid(row, t); return; }
         if (f.Datatype == "float" && float.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var single))
         {
-            // A float FIELD holds single-precision values: "0.1" means the float nearest 0.1.
-            if (float.IsNaN(single)) buf.SetNull(row); else buf.SetNumber(row, single);
+            // A float FIELD holds single-precision values: "0.1" means the float nearest 0.1. A written-out
+            // NaN/Infinity is kept as a number so the loader rejects it as non-finite, like every other reader.
+            buf.SetNumber(row, single);
         }
-        else if (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var v))
-        {
-            if (double.IsNaN(v)) buf.SetNull(row); else buf.SetNumber(row, v);
-        }
+        else if (NumberText.TryParse(t, out var v)) buf.SetNumber(row, v);
         else buf.SetInvalid(row, t);
     }
 
@@ -382,7 +380,7 @@ internal sealed class VoTableReader : ICatalogReader
             s = s.TrimEnd();
             if (s.Length == 0 || (f.NullText is not null && s == f.NullText)) { buf.SetNull(row); return; }
             if (asText) buf.SetText(row, s);
-            else if (double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out var pv)) buf.SetNumber(row, pv);
+            else if (NumberText.TryParse(s, out var pv)) buf.SetNumber(row, pv);
             else buf.SetInvalid(row, s);
             return;
         }
