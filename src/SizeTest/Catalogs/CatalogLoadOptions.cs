@@ -20,4 +20,7 @@ public sealed record CatalogLoadOptions
 
     /// <summary>Called now and then with the number of rows read so far (for progress lines); may be null.</summary>
     public Action<long>? Progress { get; init; }
+
+    /// <summary>Rows between two <see cref="Progress"/> calls (default 1 000 000); the final count is reported once.</summary>
+    public long ProgressInterval { get; init; } = 1_000_000;
 }

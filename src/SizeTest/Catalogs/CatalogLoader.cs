@@ -69,7 +69,8 @@ public static class CatalogLoader
         var values = new double[bindings.Length];
         int thetaSlot = Array.FindIndex(bindings, b => b.Role == ColumnRole.Theta);
         int zSlot = Array.FindIndex(bindings, b => b.Role == ColumnRole.Z);
-        long rowsRead = 0, nextProgress = 1_000_000;
+        long interval = Math.Max(1, options.ProgressInterval);
+        long rowsRead = 0, nextProgress = interval, lastReported = -1;
 
         using var pipeline = new ChunkPipeline(reader, requests, Math.Max(1, options.ChunkRows));
         foreach (var chunk in pipeline.Chunks())
@@ -105,10 +106,13 @@ public static class CatalogLoader
             if (options.Progress is { } progress && rowsRead >= nextProgress)
             {
                 progress(rowsRead);
-                nextProgress = rowsRead + 1_000_000;
+                lastReported = rowsRead;
+                nextProgress = rowsRead + interval;
             }
         }
-        if (rows.Count > 0 || rowsRead > 0) options.Progress?.Invoke(rowsRead);
+        // The final count, unless the last chunk's report already said it (a catalogue of exactly N × interval rows
+        // printed "read N rows" twice).
+        if ((rows.Count > 0 || rowsRead > 0) && rowsRead != lastReported) options.Progress?.Invoke(rowsRead);
 
         double[]? Num(ColumnRole role)
         {
