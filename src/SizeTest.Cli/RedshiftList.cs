@@ -31,8 +31,15 @@ internal static class RedshiftList
             else if (parts.Length == 3)
             {
                 decimal start = Number(parts[0], option, item), stop = Number(parts[1], option, item), step = Number(parts[2], option, item);
-                if (step <= 0) throw new InputException($"{option} range '{item}' needs a positive step.");
+                if (!double.TryParse(parts[2].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out double stepValue)) stepValue = (double)step;
+                if (!(stepValue > 0)) throw new InputException($"{option} range '{item}' needs a positive step.");
                 if (stop < start) throw new InputException($"{option} range '{item}' ends before it starts; write start:stop:step with stop ≥ start.");
+                // Estimate the count in double first: a tiny step (1e-300 rounds to a decimal 0) or a huge ratio would
+                // otherwise read as "not positive" or overflow decimal arithmetic.
+                double estimate = ((double)stop - (double)start) / stepValue + 1;
+                if (step == 0 && stop == start) step = 1; // one redshift, whatever the step
+                if (step == 0 || !(estimate <= MaxCount))
+                    throw new InputException($"{option} range '{item}': the step {parts[2].Trim()} gives too many redshifts (about {estimate.ToString("G3", CultureInfo.InvariantCulture)}); at most {MaxCount} are allowed, so use a step of at least {((double)(stop - start) / (MaxCount - 1)).ToString("G3", CultureInfo.InvariantCulture)}.");
                 decimal count = Math.Floor((stop - start) / step + 1e-9m) + 1;
                 if (count + values.Count > MaxCount) throw new InputException($"{option} range '{item}' gives {count} redshifts; at most {MaxCount} are allowed.");
                 for (long k = 0; k < (long)count; k++) values.Add((double)(start + k * step));
