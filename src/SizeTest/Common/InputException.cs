@@ -13,8 +13,9 @@ public sealed class InputException : Exception
     /// <param name="line">1-based line (text formats) or row (tables), if known.</param>
     /// <param name="column">Column name or 1-based index, if known.</param>
     /// <param name="inner">Underlying exception, kept for <c>--verbose</c>.</param>
-    public InputException(string message, string? file = null, long? line = null, string? column = null, Exception? inner = null)
-        : base(Compose(message, file, line, column), inner)
+    /// <param name="lineLabel">The word before <paramref name="line"/>: <c>line</c> (default, text formats) or <c>row</c> (binary tables such as Parquet, which have no lines).</param>
+    public InputException(string message, string? file = null, long? line = null, string? column = null, Exception? inner = null, string lineLabel = "line")
+        : base(Compose(message, file, line, column, lineLabel), inner)
     {
         File = file;
         Line = line;
@@ -34,11 +35,11 @@ public sealed class InputException : Exception
     /// <summary>The message without the location prefix.</summary>
     public string Reason { get; }
 
-    private static string Compose(string message, string? file, long? line, string? column)
+    private static string Compose(string message, string? file, long? line, string? column, string lineLabel)
     {
         var where = new List<string>();
         if (file is not null) where.Add(file);
-        if (line is not null) where.Add($"line {line}");
+        if (line is not null) where.Add($"{lineLabel} {line}");
         if (column is not null) where.Add($"column '{column}'");
         return where.Count == 0 ? message : $"{string.Join(", ", where)}: {message}";
     }

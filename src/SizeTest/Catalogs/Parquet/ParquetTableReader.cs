@@ -71,7 +71,7 @@ public sealed class ParquetTableReader : IDisposable
             stream?.Dispose();
             throw;
         }
-        catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException)
+        catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException or global::Parquet.Meta.Proto.ThriftProtocolException)
         {
             stream?.Dispose();
             throw new InputException($"cannot read the Parquet footer or schema ({ex.Message}); the file may be truncated or damaged", path, inner: ex);
@@ -142,9 +142,10 @@ public sealed class ParquetTableReader : IDisposable
             {
                 result[name] = ReadColumn(rg, field, n);
             }
-            catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException)
+            catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException or global::Parquet.Meta.Proto.ThriftProtocolException)
             {
-                throw new InputException($"cannot decode row group {group} ({ex.Message})", SourceName, _firstRows[group] + 1, name, ex);
+                throw new InputException($"cannot decode row group {group} (rows {_firstRows[group] + 1}–{_firstRows[group] + n}): {ex.Message.TrimEnd('.')}; the file may be damaged",
+                    SourceName, _firstRows[group] + 1, name, ex, lineLabel: "row");
             }
         }
         return new ParquetRowGroupData(group, _firstRows[group], n, result);
