@@ -25,6 +25,7 @@ public static class Program
         if (parse.Errors.Count > 0)
         {
             var message = PlainTypeNames(string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)));
+            message += UnknownWordHint(parse);
             stderr.WriteLine($"sizetest: {message} (see 'sizetest {CommandPath(parse)} --help')");
             return ExitCodes.BadInput;
         }
@@ -36,6 +37,21 @@ public static class Program
         {
             return context.Fail(ex);
         }
+    }
+
+    // An unrecognised first word is most often a mistyped verb, a later one a mistyped option: suggest the closest.
+    private static string UnknownWordHint(ParseResult parse)
+    {
+        var command = parse.CommandResult.Command;
+        foreach (var word in parse.UnmatchedTokens)
+        {
+            var known = word.StartsWith('-')
+                ? command.Options.SelectMany(o => o.Aliases.Prepend(o.Name))
+                : command.Subcommands.Where(c => !c.Hidden).Select(c => c.Name);
+            string hint = SizeTest.Common.NameSuggestions.Hint(word, known);
+            if (hint.Length > 0) return hint;
+        }
+        return "";
     }
 
     // Parse messages name .NET types ("as expected type 'System.Int32'"); say what the user must type instead.

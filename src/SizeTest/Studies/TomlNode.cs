@@ -220,7 +220,13 @@ internal sealed class TomlNode
         foreach (var key in _order)
         {
             var c = _children[key];
-            if (!_used.Contains(key)) throw c.Error($"unknown key '{c.Path}' in the study file; {hint(Path)}");
+            if (!_used.Contains(key))
+            {
+                // Candidates: the keys this table's hint lists, and the keys of it the file did use.
+                string words = hint(Path);
+                var known = System.Text.RegularExpressions.Regex.Matches(words, "[a-z][a-z0-9_]*").Select(m => m.Value).Concat(_used);
+                throw c.Error($"unknown key '{c.Path}' in the study file{NameSuggestions.Hint(key, known)}; {words}");
+            }
             if (c.IsTable) c.RejectUnknown(hint);
         }
     }

@@ -13,6 +13,18 @@ public sealed class RootCommandTests
     }
 
     [Fact]
+    public void MistypedVerbAndOptionGetADidYouMean()
+    {
+        // 'fitt' is one Levenshtein edit from 'fit'; '--modle' two from '--model' (limit: a third of the length, at most 3).
+        var (exit, _, err) = CliRunner.Run("fitt");
+        Assert.Equal(2, exit);
+        Assert.Contains("did you mean 'fit'?", err);
+        var (exit2, _, err2) = CliRunner.Run("predict", "--z", "1", "--modle", "lcdm");
+        Assert.Equal(2, exit2);
+        Assert.Contains("did you mean '--model'?", err2);
+    }
+
+    [Fact]
     public void HelpSucceeds()
     {
         var (exit, output, _) = CliRunner.Run("--help");

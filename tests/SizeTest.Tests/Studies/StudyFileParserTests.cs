@@ -97,6 +97,16 @@ public sealed class StudyFileParserTests
         Assert.Contains("s.toml", e.Message);
     }
 
+    [Fact]
+    public void UnknownKeyCloseToAKnownOneGetsADidYouMean()
+    {
+        // Levenshtein distance 1 from 'bootstrap' (a key [inference] takes); a far-off key gets no guess.
+        var e = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nbootstrapp = 3\n"));
+        Assert.Contains("did you mean 'bootstrap'?", e.Message);
+        var far = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nzzzzzz = 3\n"));
+        Assert.DoesNotContain("did you mean", far.Message);
+    }
+
     [Theory]
     [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[selection]\nsb_limit = 24\n")] // SB cut without an SB model
     [InlineData("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[columns]\nthetta = \"Re\"\n")]                          // unknown role

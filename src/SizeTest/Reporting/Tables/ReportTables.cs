@@ -81,7 +81,13 @@ public static class ReportTables
         };
     }
 
-    private static string LikelihoodRatioTestPValue(double p) => Inference.LikelihoodRatioTest.FormatPValue(p)[4..].Replace("-", PdgRounding.Minus, StringComparison.Ordinal);
+    // "p = 0.057" → "0.057"; "p < 1e-300" keeps its "<" (a p-value that underflows is a bound, not a value).
+    private static string LikelihoodRatioTestPValue(double p)
+    {
+        string text = Inference.LikelihoodRatioTest.FormatPValue(p);
+        text = text.StartsWith("p = ", StringComparison.Ordinal) ? text[4..] : text[2..];
+        return text.Replace("-", PdgRounding.Minus, StringComparison.Ordinal);
+    }
 
     private static string Raw(ModelReport m, string name) => m.Fit.Parameters.FirstOrDefault(p => p.Name == name) is { } p ? R(p.Value) : "";
 
