@@ -7,7 +7,8 @@ namespace SizeTest.Tests.Catalogs;
 /// <summary>
 /// Unit strings read by the grammar of the FITS Standard 4.0 (2018), §4.3, Tables 6–9 (multiplication by "." "*" or
 /// a space, division by "/", powers written as "arcsec2", "arcsec-2", "arcsec**2", "arcsec^2", "arcsec**(-2)"), and
-/// IVOA VOUnit 1.0 (2014) §2.
+/// IVOA VOUnit 1.0 (2014) §2. Cross-checked with astropy.units 5.2.1 (FITS, VOUnit and generic parsers):
+/// Reference/Catalogs/unit_grammar.py and its output unit_grammar.txt (all spellings equal mag/arcsec**2).
 /// </summary>
 public sealed class UnitGrammarTests
 {
