@@ -137,4 +137,21 @@ public sealed class UnitGrammarTests
         Assert.Equal("arcmin", r.Roles[ColumnRole.ThetaErr].Unit);
         Assert.Equal(Math.PI / 10800, r.Roles[ColumnRole.ThetaErr].Scale); // 1′ = π/10800 rad exactly
     }
+
+    [Fact]
+    public void LoadedShareCarriesTheUnitWarningForTheCli()
+    {
+        // A CSV header "Re [arcsec]" declares arcsec; --col theta=Re:mas differs, so the share (what the fit command prints) has one warning.
+        using var tmp = new TempFiles();
+        var path = tmp.Write("u.csv", "z,Re [arcsec],e_Re\n0.5,1.2,0.1\n0.7,0.9,0.1\n");
+        var options = new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["theta=Re:mas"]) };
+        var share = SizeTest.Distributed.CatalogShare.Load(path, options, 0, 1);
+        var w = Assert.Single(share.UnitWarnings);
+        Assert.Contains("'Re'", w);
+        Assert.Contains("'mas'", w);
+        Assert.False(w.StartsWith("warning:", StringComparison.Ordinal));
+        // e_Re has no unit of its own, so it is read in mas like Re: 0.1 mas = 0.1 × π/648000e3 rad.
+        var load = CatalogLoader.Load(path, options);
+        Assert.Equal("mas", load.Mapping.Roles[ColumnRole.ThetaErr].Unit);
+    }
 }
