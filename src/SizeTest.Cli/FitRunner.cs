@@ -53,6 +53,7 @@ internal static class FitRunner
         code = Agree(context, ranks, () =>
         {
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
+            if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + w);
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
             // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
             var nuisance = a.Hypotheses[0].Nuisance;

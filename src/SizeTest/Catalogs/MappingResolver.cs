@@ -70,6 +70,8 @@ public static class MappingResolver
                 throw new InputException($"column '{col.Name}' ({col.NativeType}) cannot hold {a.Role.Name()} values", sourceName, column: col.Name);
             var b = Bind(a.Role, idx, col, a.Unit, "given with --col", roles, out var problem);
             if (b is null) throw new InputException($"{problem}; give the unit with --col {a.Role.Name()}={col.Name}:UNIT", sourceName, column: col.Name);
+            if (!string.IsNullOrWhiteSpace(a.Unit) && !string.IsNullOrWhiteSpace(col.Unit) && !CatalogUnits.SameUnit(a.Unit, col.Unit))
+                notes.Add($"warning: column '{col.Name}' declares unit '{col.Unit.Trim()}' in the file, but --col {a.Role.Name()}={col.Name}:{a.Unit} gives '{a.Unit}'; the given unit is used");
             roles[a.Role] = b;
             used.Add(idx);
         }
@@ -82,6 +84,20 @@ public static class MappingResolver
                 if (!roles.ContainsKey(role)) DetectValue(role, columns, used, roles, notes);
             foreach (var role in new[] { ColumnRole.ZErr, ColumnRole.ThetaErr, ColumnRole.MuErr, ColumnRole.MagErr })
                 if (!roles.ContainsKey(role)) DetectError(role, columns, used, roles, notes);
+        }
+
+        // A value and its error end up in the same unit: an error whose unit was not given follows a value whose unit was
+        // given with --col, when the file declared the same unit for both (the user corrected the file's declaration).
+        foreach (var err in roles.Values.Where(b => b.Role.ValueRoleOf() is not null && !b.IsRelative && b.UnitReason != "given").ToArray())
+        {
+            if (!roles.TryGetValue(err.Role.ValueRoleOf()!.Value, out var val) || val.IsRelative || val.UnitReason != "given") continue;
+            if (err.Unit == val.Unit && err.Scale == val.Scale) continue;
+            string? valFileUnit = columns[val.ColumnIndex].Unit, errFileUnit = columns[err.ColumnIndex].Unit;
+            bool follows = string.IsNullOrWhiteSpace(errFileUnit) || (!string.IsNullOrWhiteSpace(valFileUnit) && CatalogUnits.SameUnit(valFileUnit, errFileUnit));
+            if (!follows) continue;
+            roles[err.Role] = err with { Unit = val.Unit, Scale = val.Scale, UnitReason = $"same as {val.Role.Name()}" };
+            notes.Add($"warning: {err.Role.Name()} column '{err.ColumnName}' is read in {val.Unit}, the unit given for {val.Role.Name()} column '{val.ColumnName}'"
+                      + (string.IsNullOrWhiteSpace(errFileUnit) ? "" : $", not its declared '{errFileUnit.Trim()}'"));
         }
 
         // A relative error needs its value.

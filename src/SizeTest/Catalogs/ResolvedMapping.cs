@@ -28,6 +28,11 @@ public sealed class ResolvedMapping
     /// <summary>Further remarks: candidates passed over and why, roles left unmapped.</summary>
     public IReadOnlyList<string> Notes { get; }
 
+    /// <summary>The warnings among <see cref="Notes"/> (a <c>--col</c> unit that differs from the file's declared unit, an
+    /// error read in its value's given unit), without the <c>warning: </c> prefix; the CLI prints them on stderr.</summary>
+    public IReadOnlyList<string> Warnings =>
+        Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal)).Select(n => n["warning: ".Length..]).ToArray();
+
     /// <summary>The detection report as text lines: one <c>role ← column (because …)</c> line per role, the size definition, kept columns and notes.</summary>
     public IReadOnlyList<string> ReportLines()
     {

@@ -21,6 +21,9 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
     /// position in the group / chunk rows); null for the other formats (the backend's default, index / chunk rows).</summary>
     public IReadOnlyList<long>? ChunkKeys { get; init; }
 
+    /// <summary>Unit warnings of the column mapping (<see cref="ResolvedMapping.Warnings"/>), for the CLI to print once.</summary>
+    public IReadOnlyList<string> UnitWarnings { get; init; } = [];
+
     /// <summary>Loads the share of rank <paramref name="rank"/> of <paramref name="size"/>; no collective calls (may throw per rank).</summary>
     public static CatalogShare Load(string path, CatalogLoadOptions options, int rank, int size)
     {
@@ -40,6 +43,7 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
             return new CatalogShare(load.Sample, null, load.RowsRead, load.Sample.Count, load.RejectLog.Count, load.RejectLog)
             {
                 ChunkKeys = ParquetChunkKeys(load.Sample.SourceRows, groups),
+                UnitWarnings = load.Mapping.Warnings,
             };
         }
         var whole = CatalogLoader.Load(path, options);
@@ -50,7 +54,7 @@ public sealed record CatalogShare(Sample Local, Sample? Whole, long RowsRead, lo
         bool root = rank == 0;
         return new CatalogShare(Slice(whole.Sample, (int)s, (int)e), whole.Sample,
             root ? whole.RowsRead : 0, root ? whole.Sample.Count : 0, root ? whole.RejectLog.Count : 0,
-            root ? whole.RejectLog : new RejectLog(whole.RejectLog.SourceName));
+            root ? whole.RejectLog : new RejectLog(whole.RejectLog.SourceName)) { UnitWarnings = whole.Mapping.Warnings };
     }
 
     /// <summary>

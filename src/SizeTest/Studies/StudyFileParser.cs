@@ -24,7 +24,7 @@ public static class StudyFileParser
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
-        ["report"] = "[report] takes title, paper, formats, bins, bin_resamples",
+        ["report"] = "[report] takes title, paper, formats, figure_width, bins, bin_resamples",
     };
 
     /// <summary>Reads and parses <paramref name="path"/>; the path is kept as given for the manifest.</summary>
@@ -192,6 +192,12 @@ public static class StudyFileParser
             var paper = PaperSize.A4;
             if (rep.Get("paper") is { } pn && !PaperSize.TryParse(pn.Scalar as string, out paper)) throw pn.Error("'report.paper' must be \"a4\" or \"letter\"");
             report = report with { Title = rep.String("title"), Paper = paper, Bins = rep.Integer("bins") ?? 8, BinResamples = rep.Integer("bin_resamples") ?? 200 };
+            if (rep.Get("figure_width") is { } fw)
+            {
+                if (!Reporting.Figures.FigureWidth.TryParse(fw.Scalar, out var width))
+                    throw fw.Error($"'report.figure_width' must be \"single-column\", \"double-column\" or a width in inches between {Reporting.Figures.FigureWidth.MinInches} and {Reporting.Figures.FigureWidth.MaxInches}");
+                report = report with { FigureWidth = width };
+            }
             if (report.Bins < 1) throw rep.Get("bins")!.Error("'report.bins' must be at least 1");
             if (report.BinResamples < 1) throw rep.Get("bin_resamples")!.Error("'report.bin_resamples' must be at least 1");
             var fnode = rep.Get("formats");

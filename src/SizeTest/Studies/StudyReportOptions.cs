@@ -19,6 +19,8 @@ public sealed record StudyReportOptions
     public bool FigureSvg { get; init; } = true;
     /// <summary>Write each figure as a vector PDF.</summary>
     public bool FigurePdf { get; init; } = true;
+    /// <summary>Printed width of the figure pack (<c>figure_width</c>); null keeps each figure's own size.</summary>
+    public SizeTest.Reporting.Figures.FigureWidth? FigureWidth { get; init; }
     /// <summary>Redshift bins of the binned medians and means.</summary>
     public int Bins { get; init; } = 8;
     /// <summary>Bootstrap resamples of each bin's statistic.</summary>

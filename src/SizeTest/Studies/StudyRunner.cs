@@ -129,6 +129,7 @@ public static class StudyRunner
             {
                 Html = study.Report.Html, PdfReport = study.Report.Pdf, Png = study.Report.FigurePng,
                 Svg = study.Report.FigureSvg, Pdf = study.Report.FigurePdf, Paper = study.Report.Paper,
+                FigureWidth = study.Report.FigureWidth,
             };
             // The manifest is written last with the timings of every stage, so write the report with them filled in.
             Stage("write results");

@@ -36,6 +36,16 @@ public sealed record FigureSpec
     /// <summary>Figure height in inches (default 4.8 in).</summary>
     public double HeightInches { get; init; } = 4.8;
 
+    /// <summary>Font sizes at the printed size (default <see cref="FigureFonts.Screen"/>).</summary>
+    public FigureFonts Fonts { get; init; } = FigureFonts.Screen;
+
+    /// <summary>
+    /// The same figure for the journal pack: <paramref name="width"/> wide, the height scaled to keep the aspect ratio,
+    /// and <see cref="FigureFonts.Journal"/> lettering at that printed size (the layout is redone, not shrunk).
+    /// </summary>
+    public FigureSpec AtWidth(FigureWidth width) =>
+        this with { WidthInches = width.Inches, HeightInches = HeightInches * width.Inches / WidthInches, Fonts = FigureFonts.Journal };
+
     /// <summary>Total number of series over all panels.</summary>
     public int SeriesCount => Panels.Sum(p => p.Series.Count);
 }

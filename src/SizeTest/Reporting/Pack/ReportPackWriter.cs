@@ -9,7 +9,7 @@ namespace SizeTest.Reporting.Pack;
 /// <summary>
 /// Writes a report folder: <c>report.html</c>, <c>report.pdf</c>, <c>figures/</c> (every figure
 /// as 300-dpi PNG, SVG and PDF), <c>tables/</c> (CSV and LaTeX tabular of each table),
-/// <c>manifest.json</c> and <c>report-data.json</c> (what everything is drawn from, so
+/// <c>figures.zip</c> (the figures and tables, ready to upload to a journal), <c>manifest.json</c> and <c>report-data.json</c> (what everything is drawn from, so
 /// <see cref="ReportRedraw"/> can redraw the folder later). <see cref="Write"/> builds the folder in a staging copy and swaps it in
 /// only when complete, so a failure leaves the previous report untouched.
 /// </summary>
@@ -53,8 +53,9 @@ public sealed class ReportPackWriter
         void Text(string rel, string text) { AtomicFile.WriteAllText(Path.Combine(folder, rel), text); written.Add(rel); }
         void Bytes(string rel, byte[] bytes) { AtomicFile.WriteAllBytes(Path.Combine(folder, rel), bytes); written.Add(rel); }
 
-        foreach (var f in content.Figures)
+        foreach (var figure in content.Figures)
         {
+            var f = Options.FigureWidth is { } width ? figure.AtWidth(width) : figure;
             if (Options.Png) Bytes($"figures/{f.Id}.png", FigureRenderer.RenderPng(f, Options.PngDpi).Bytes);
             if (Options.Svg) Text($"figures/{f.Id}.svg", FigureRenderer.RenderSvg(f));
             if (Options.Pdf) Bytes($"figures/{f.Id}.pdf", FigureRenderer.RenderPdf(f));
@@ -64,6 +65,8 @@ public sealed class ReportPackWriter
             Text($"tables/{t.Id}.csv", TableFormats.ToCsv(t));
             Text($"tables/{t.Id}.tex", TableFormats.ToLatex(t));
         }
+        var packed = written.Where(r => r.StartsWith("figures/", StringComparison.Ordinal) || r.StartsWith("tables/", StringComparison.Ordinal)).Order(StringComparer.Ordinal).ToList();
+        Bytes(FigurePackZip.FileName, FigurePackZip.Build(folder, packed));
         if (content.Data.Manifest is { } m) Text("manifest.json", m.ToJson());
         Text(Data.ReportDataJson.FileName, Data.ReportDataJson.ToJson(content.Data));
         if (Options.Html) Text("report.html", new HtmlReportWriter().Render(content));
@@ -90,4 +93,6 @@ public sealed record ReportPackOptions
     public bool PdfReport { get; init; } = true;
     /// <summary>Paper size of <c>report.pdf</c>.</summary>
     public PaperSize Paper { get; init; } = PaperSize.A4;
+    /// <summary>Printed width of the files in <c>figures/</c> and <c>figures.zip</c> (null: each figure's own size).</summary>
+    public Figures.FigureWidth? FigureWidth { get; init; }
 }

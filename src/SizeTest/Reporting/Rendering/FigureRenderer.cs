@@ -29,7 +29,13 @@ public static class FigureRenderer
     /// <summary>Default PNG resolution, dots per inch.</summary>
     public const double DefaultPngDpi = 300.0;
 
-    private const float TickFontPx = 11f, AxisFontPx = 13f, TitleFontPx = 14f, LegendFontPx = 11f;
+    // Font sizes of the figure being laid out (set from FigureSpec.Fonts by LogicalSize and Draw; one figure per thread at a time).
+    [ThreadStatic] private static FigureFonts? currentFonts;
+    private static FigureFonts CurrentFonts => currentFonts ?? FigureFonts.Screen;
+    private static float TickFontPx => Px(CurrentFonts.TickPoints);
+    private static float AxisFontPx => Px(CurrentFonts.AxisPoints);
+    private static float TitleFontPx => Px(CurrentFonts.TitlePoints);
+    private static float LegendFontPx => Px(CurrentFonts.LegendPoints);
     private const double Margin = 0.04;
     private static readonly object FontLock = new();
     private static bool fontsRegistered;
@@ -37,6 +43,8 @@ public static class FigureRenderer
     /// <summary>Logical size (96-dpi pixels) of a figure, including the legend band under the panels.</summary>
     public static (float Width, float Height) LogicalSize(FigureSpec spec)
     {
+        ArgumentNullException.ThrowIfNull(spec);
+        currentFonts = spec.Fonts;
         float w = (float)(spec.WidthInches * LogicalDpi);
         return (w, (float)(spec.HeightInches * LogicalDpi) + LegendBand(spec, w).Height);
     }
@@ -186,7 +194,7 @@ public static class FigureRenderer
         ArgumentNullException.ThrowIfNull(canvas);
         ArgumentNullException.ThrowIfNull(spec);
         EnsureFonts();
-        var (w, _) = LogicalSize(spec);
+        var (w, _) = LogicalSize(spec); // also selects spec.Fonts
         float h = (float)(spec.HeightInches * LogicalDpi); // panels; the legend band goes underneath
         int rows = spec.RowHeights.Count;
         double total = spec.RowHeights.Sum();
