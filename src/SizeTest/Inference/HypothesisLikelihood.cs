@@ -48,7 +48,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     private readonly IObservableKernel _kernel;
     private readonly IsophotalCorrection? _isophotal;
     private readonly double _lnPivot;
-    private readonly LogPosteriorDensity _posterior;
+    private readonly PriorTimesLikelihood _posterior;
 
     /// <summary>Objects per chunk when a single evaluation is split over threads.</summary>
     public const int ChunkSize = 32768;
@@ -109,7 +109,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
                 ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
                 _ => new JointKernel(_cols, _distances, cut, _isophotal),
             };
-        _posterior = new LogPosteriorDensity(this);
+        _posterior = new PriorTimesLikelihood(this, _free.Select(f => f.Prior).ToArray());
     }
 
     private HypothesisLikelihood(HypothesisLikelihood parent, Hypothesis hypothesis)
@@ -130,7 +130,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
             _ => new JointKernel(_cols, _distances, cut, _isophotal),
         };
         AllowParallel = parent.AllowParallel;
-        _posterior = new LogPosteriorDensity(this);
+        _posterior = new PriorTimesLikelihood(this, _free.Select(f => f.Prior).ToArray());
     }
 
     /// <summary>
@@ -292,36 +292,5 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         double v = _kernel.SumWithAdjoint(evaluation, p, start, end, adj);
         _layout.Chain(adj, p, evaluation, gradient);
         return v;
-    }
-
-    private sealed class LogPosteriorDensity(HypothesisLikelihood owner) : ILogDensityWithGradient
-    {
-        private readonly ParameterPrior[] _priors = owner._free.Select(f => f.Prior).ToArray();
-        public int Dimension => owner.Dimension;
-        public double LogDensity(ReadOnlySpan<double> theta)
-        {
-            double lp = 0;
-            for (int j = 0; j < _priors.Length; j++)
-            {
-                lp += _priors[j].LogDensity(theta[j]);
-                if (double.IsNegativeInfinity(lp)) return lp;
-            }
-            return lp + owner.LogDensity(theta);
-        }
-
-        public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
-        {
-            gradient.Clear();
-            double lp = 0;
-            for (int j = 0; j < _priors.Length; j++)
-            {
-                lp += _priors[j].LogDensity(theta[j]);
-                if (double.IsNegativeInfinity(lp)) return lp;
-            }
-            double ll = owner.LogDensityAndGradient(theta, gradient);
-            if (double.IsNegativeInfinity(ll)) return ll;
-            for (int j = 0; j < _priors.Length; j++) gradient[j] += _priors[j].LogDensityDerivative(theta[j]);
-            return lp + ll;
-        }
     }
 }

@@ -14,7 +14,7 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
     private readonly EvaluationBackend _backend;
     private readonly HypothesisLikelihood? _local;
     private readonly int[] _bounds; // local chunk c = rows [_bounds[c], _bounds[c+1]) of _local
-    private readonly PosteriorDensity _posterior;
+    private readonly PriorTimesLikelihood _posterior;
 
     internal RowSumLikelihood(EvaluationBackend backend, Hypothesis hypothesis, int[]? multiplicity)
     {
@@ -45,7 +45,7 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
             if (rows.Count > 0)
                 _local = new HypothesisLikelihood(hypothesis, ObservablesSubset.Take(obs, System.Runtime.InteropServices.CollectionsMarshal.AsSpan(rows)), backend.GridSpan) { AllowParallel = false };
         }
-        _posterior = new PosteriorDensity(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
+        _posterior = new PriorTimesLikelihood(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
     }
 
     /// <summary>The hypothesis.</summary>
@@ -136,37 +136,5 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
             return double.NegativeInfinity;
         }
         return ll;
-    }
-
-    private sealed class PosteriorDensity(RowSumLikelihood owner, ParameterPrior[] priors) : ILogDensityWithGradient
-    {
-        public int Dimension => owner.Dimension;
-
-        public double LogDensity(ReadOnlySpan<double> theta)
-        {
-            // The prior is a function of θ alone, so every process skips the collective call for the same θ.
-            double lp = 0;
-            for (int j = 0; j < priors.Length; j++)
-            {
-                lp += priors[j].LogDensity(theta[j]);
-                if (double.IsNegativeInfinity(lp)) return lp;
-            }
-            return lp + owner.LogDensity(theta);
-        }
-
-        public double LogDensityAndGradient(ReadOnlySpan<double> theta, Span<double> gradient)
-        {
-            gradient.Clear();
-            double lp = 0;
-            for (int j = 0; j < priors.Length; j++)
-            {
-                lp += priors[j].LogDensity(theta[j]);
-                if (double.IsNegativeInfinity(lp)) return lp;
-            }
-            double ll = owner.LogDensityAndGradient(theta, gradient);
-            if (double.IsNegativeInfinity(ll)) return ll;
-            for (int j = 0; j < priors.Length; j++) gradient[j] += priors[j].LogDensityDerivative(theta[j]);
-            return lp + ll;
-        }
     }
 }
