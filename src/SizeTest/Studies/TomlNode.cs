@@ -50,7 +50,14 @@ internal sealed class TomlNode
     /// <summary>Parses TOML text; a syntax error becomes an <see cref="InputException"/> with its line and column.</summary>
     public static TomlNode Parse(string text, string file)
     {
-        DocumentSyntax doc = SyntaxParser.Parse(text, file, false);
+        CheckNestingDepth(text, file);
+        DocumentSyntax doc;
+        try { doc = SyntaxParser.Parse(text, file, false); }
+        catch (InvalidOperationException e)
+        {
+            // The parser's own limits (e.g. its nesting depth) are input problems, not internal errors.
+            throw new InputException($"not valid TOML: {e.Message.Split(". ")[0]}", file, 1, "1");
+        }
         foreach (var d in doc.Diagnostics)
             if (d.Kind == DiagnosticMessageKind.Error)
                 throw new InputException($"not valid TOML: {d.Message}", file, d.Span.Start.Line + 1, (d.Span.Start.Column + 1).ToString(CultureInfo.InvariantCulture));
@@ -65,6 +72,47 @@ internal sealed class TomlNode
             foreach (var kv in table.Items) target.AddKeyValue(kv);
         }
         return root;
+    }
+
+    /// <summary>Deepest nesting of arrays and inline tables a study file may use; study files need 3.</summary>
+    public const int MaxNestingDepth = 32;
+
+    /// <summary>
+    /// Refuses arrays or inline tables nested deeper than <see cref="MaxNestingDepth"/>, naming the line and column
+    /// of the first bracket past the limit, before the parser recurses into them. Quoted strings (basic, literal and
+    /// their multi-line forms) and comments are skipped; table headers count like arrays but never nest.
+    /// </summary>
+    private static void CheckNestingDepth(string text, string file)
+    {
+        int depth = 0, line = 1, column = 0;
+        for (int i = 0; i < text.Length; i++)
+        {
+            char c = text[i];
+            column++;
+            if (c == '\n') { line++; column = 0; continue; }
+            if (c == '#') { while (i + 1 < text.Length && text[i + 1] != '\n') i++; continue; }
+            if (c == '"' || c == '\'')
+            {
+                bool multi = i + 2 < text.Length && text[i + 1] == c && text[i + 2] == c;
+                string close = multi ? new string(c, 3) : c.ToString();
+                i += multi ? 3 : 1;
+                while (i < text.Length)
+                {
+                    if (c == '"' && text[i] == '\\') { i += 2; continue; }
+                    if (text[i] == '\n') { if (!multi) break; line++; column = 0; }
+                    if (string.CompareOrdinal(text, i, close, 0, close.Length) == 0) { i += close.Length - 1; break; }
+                    i++; column++;
+                }
+                continue;
+            }
+            if (c is '[' or '{')
+            {
+                if (++depth > MaxNestingDepth)
+                    throw new InputException($"arrays or inline tables are nested more than {MaxNestingDepth} deep; a study file needs at most a few levels",
+                        file, line, column.ToString(CultureInfo.InvariantCulture));
+            }
+            else if (c is ']' or '}') depth = Math.Max(0, depth - 1);
+        }
     }
 
     private static List<string> KeyParts(KeySyntax key)

@@ -71,12 +71,23 @@ public sealed class ParquetTableReader : IDisposable
             stream?.Dispose();
             throw;
         }
-        catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException or global::Parquet.Meta.Proto.ThriftProtocolException)
+        catch (Exception ex) when (IsDamage(ex))
         {
             stream?.Dispose();
             throw new InputException($"cannot read the Parquet footer or schema ({ex.Message}); the file may be truncated or damaged", path, inner: ex);
         }
     }
+
+    /// <summary>
+    /// Exceptions the Parquet library throws on a damaged or truncated file (found by the fuzz suite,
+    /// tests/…/Hardening/FuzzedInputTests): its own <c>ParquetException</c> and Thrift errors, and the
+    /// null-reference, overflow, index and argument errors it raises when a damaged length or offset leads it astray.
+    /// These are input problems (exit 2), never internal errors.
+    /// </summary>
+    private static bool IsDamage(Exception ex) =>
+        ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException
+            or IndexOutOfRangeException or NullReferenceException or OverflowException or FormatException
+            or global::Parquet.ParquetException or global::Parquet.Meta.Proto.ThriftProtocolException;
 
     private static bool HasMagic(FileStream stream)
     {
@@ -142,7 +153,7 @@ public sealed class ParquetTableReader : IDisposable
             {
                 result[name] = ReadColumn(rg, field, n);
             }
-            catch (Exception ex) when (ex is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException or global::Parquet.Meta.Proto.ThriftProtocolException)
+            catch (Exception ex) when (IsDamage(ex))
             {
                 throw new InputException($"cannot decode row group {group} (rows {_firstRows[group] + 1}–{_firstRows[group] + n}): {ex.Message.TrimEnd('.')}; the file may be damaged",
                     SourceName, _firstRows[group] + 1, name, ex, lineLabel: "row");
