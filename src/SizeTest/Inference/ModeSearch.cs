@@ -86,7 +86,10 @@ public static class ModeSearch
         }
         var genuine = candidates.Where(c => IsMaximumAtBounds(backend, likelihood, c)).ToList();
         if (genuine.Count == 0) genuine.Add(fit);
-        var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
+        // The multi-start fit keeps first place unless another maximum is higher by more than the optimiser's own noise
+        // (on a plateau, e.g. h0 for sizes alone, every end point ties with it up to rounding).
+        double fitObjective = Objective(h, fit), tie = Math.Max(1e-6, 1e-11 * Math.Abs(fitObjective));
+        var ordered = genuine.OrderByDescending(c => ReferenceEquals(c, fit) ? fitObjective + tie : Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
         foreach (var c in ordered)
             if (!distinct.Any(d => Same(h, d, c))) distinct.Add(c);
