@@ -121,7 +121,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = parent._lnPivot;
-        _distances = new DistanceTerms(hypothesis, _layout, parent._distances);
+        _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
         _kernel = hypothesis.Nuisance.Observable switch
         {
@@ -146,6 +146,9 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
     // weights, luminosity window): the size kernel when any is active.
     private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Whether survey terms are active (then <see cref="WithFixed"/> is not available).</summary>
+    public bool HasSurveyTerms => _survey is not null;
 
     /// <summary>Notes on the survey terms applied (empty when none).</summary>
     public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];
