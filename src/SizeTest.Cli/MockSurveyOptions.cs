@@ -56,9 +56,9 @@ internal sealed class MockSurveyOptions
     };
     public Option<string> SizeErrors { get; } = new Option<string>("--size-errors")
     {
-        Description = "Size-error model: lognormal (ln θ scattered) or gaussian (θ scattered, theta_err quoted in θ).",
+        Description = "Size-error model: lognormal (ln θ scattered), gaussian (θ scattered, theta_err a fraction of the median θ at z) or gaussian-own (theta_err a fraction of each object's own θ).",
         DefaultValueFactory = _ => "lognormal",
-    }.AcceptOnlyFromAmong("lognormal", "gaussian");
+    }.AcceptOnlyFromAmong("lognormal", "gaussian", "gaussian-own");
     public Option<double?> SizeErrFracAtZMax { get; } = Number("--size-err-frac-zmax", "Fractional size error at the N(z)'s z_max; it grows linearly in z from --size-err-frac at z_min.");
     public Option<double?> SpectralIndex { get; } = Number("--spectral-index", "Radio: spectral index α in S_ν ∝ ν^α for the written flux densities (default 0).");
 
@@ -97,7 +97,7 @@ internal sealed class MockSurveyOptions
             parse.GetValue(SizeErrFloor) ?? d.SizeErrorFloorArcsec,
             kind == MockObjectKind.Galaxy ? parse.GetValue(MuErr) ?? d.MuErrorMag : 0.0,
             parse.GetValue(PhotoZErr) ?? d.PhotoZError,
-            parse.GetValue(SizeErrors) == "gaussian" ? SizeErrorModel.Gaussian : SizeErrorModel.LogNormal,
+            parse.GetValue(SizeErrors) switch { "gaussian" => SizeErrorModel.Gaussian, "gaussian-own" => SizeErrorModel.GaussianOwnSize, _ => SizeErrorModel.LogNormal },
             parse.GetValue(SizeErrFracAtZMax));
         var selection = new MockSelection(parse.GetValue(SbLimit), parse.GetValue(MagLimit), parse.GetValue(MinSize));
         return new SurveyDesign(count, Redshifts(parse.GetValue(ZDist) ?? "uniform:0.1:3"), kind, errors, selection);

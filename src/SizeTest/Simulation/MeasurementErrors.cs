@@ -17,7 +17,7 @@ namespace SizeTest.Simulation;
 /// <param name="PhotoZError">σ_z in σ_z (1+z) (default 0: spectroscopic redshifts, no z_err column).</param>
 /// <param name="SizeErrors">Log-normal (default) or Gaussian-in-θ size errors. Gaussian: θ_obs = θ_true + σ_θ ε with σ_θ = f · θ_med(z),
 /// θ_med the population's median angular size at z (at the pivot luminosity), quoted as theta_err; objects with θ_obs ≤ 0 fail
-/// selection as unmeasured.</param>
+/// selection as unmeasured. GaussianOwnSize: the same with σ_θ = f · θ_true of each object.</param>
 /// <param name="SizeErrorFractionAtZMax">When set, the fractional size error grows linearly in z from f at the N(z)'s z_min to this value at its z_max.</param>
 public sealed record MeasurementErrors(
     double SizeErrorFraction = 0.05,
@@ -35,6 +35,6 @@ public sealed record MeasurementErrors(
         if (!(MuErrorMag >= 0) || !double.IsFinite(MuErrorMag)) throw new ArgumentException($"--mu-err must be ≥ 0 mag; got {MuErrorMag}");
         if (!(PhotoZError >= 0) || !(PhotoZError < 1)) throw new ArgumentException($"--photoz-err must be in [0, 1); got {PhotoZError}");
         if (SizeErrorFractionAtZMax is { } f1 && !(f1 >= 0 && double.IsFinite(f1))) throw new ArgumentException($"--size-err-frac-zmax must be ≥ 0; got {f1}");
-        if (SizeErrors == SizeErrorModel.Gaussian && SizeErrorFloorArcsec > 0) throw new ArgumentException("--size-err-floor applies to log-normal size errors only");
+        if (SizeErrors != SizeErrorModel.LogNormal && SizeErrorFloorArcsec > 0) throw new ArgumentException("--size-err-floor applies to log-normal size errors only");
     }
 }

@@ -142,7 +142,8 @@ public static class MockSurveyGenerator
         for (int q = 0; q < groups.Count; q++) { run += groups[q].Fraction / total; cumulative[q] = run; }
         double dlExponent = Photometry.ModelLuminosity.DistanceExponent(spec.Model);
         double zLo = zDist.ZMin, zHi = zDist.ZMax;
-        bool gaussianErrors = errors.SizeErrors == SizeErrorModel.Gaussian;
+        bool gaussianErrors = errors.SizeErrors is SizeErrorModel.Gaussian or SizeErrorModel.GaussianOwnSize;
+        bool ownSizeErrors = errors.SizeErrors == SizeErrorModel.GaussianOwnSize;
         double lnFourPiMpc2 = Math.Log(4 * Math.PI) + 2 * Math.Log(Cosmology.PhysicalConstants.MegaparsecM);
 
         var cols = new MockColumns(m);
@@ -178,7 +179,8 @@ public static class MockSurveyGenerator
             {
                 // The quoted error is a fraction of the population's median size at this z (not of the object's own size), so it
                 // carries no information about θ_true: θ_obs ~ N(θ_true, σ_θ²) with σ_θ known, as a catalogue quotes it.
-                double thetaRef = Math.Exp(Ln10 * (s0 + sEvo * l10)) / da[i] * radPerKpcMpc;
+                // GaussianOwnSize: the error is a fraction of the object's own true θ instead.
+                double thetaRef = ownSizeErrors ? thetaTrue : Math.Exp(Ln10 * (s0 + sEvo * l10)) / da[i] * radPerKpcMpc;
                 thetaErr = frac * thetaRef;
                 thetaObs = thetaTrue + thetaErr * e3;
                 growth = thetaObs > 0 ? Math.Log(thetaObs / thetaTrue) : double.NaN;

@@ -120,6 +120,8 @@ public static class MockTruthJson
             NullableNumber(w, "size_err_frac_at_zmax", e.SizeErrorFractionAtZMax);
             w.WriteString("size_error_model", e.SizeErrors == SizeErrorModel.Gaussian
                 ? "gaussian: theta_obs = theta_true + theta_err eps, theta_err = frac * median theta at z (pivot luminosity); theta_obs <= 0 counted as failed_min_size"
+                : e.SizeErrors == SizeErrorModel.GaussianOwnSize
+                ? "gaussian-own: theta_obs = theta_true + theta_err eps, theta_err = frac * theta_true of the object; theta_obs <= 0 counted as failed_min_size"
                 : "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/theta_true)^2); theta_err = sigma_ln theta_obs");
             w.WriteEndObject();
             var s = design.Cuts;
