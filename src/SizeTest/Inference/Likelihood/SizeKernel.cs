@@ -37,7 +37,7 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
         var nodeA = adj.NodeAdjoint;
         if (cut is null)
         {
-            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridG!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
+            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridLnDaOverZ!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
             var lnDa = distances.LnDaSlice(e, start, end, cols.LnZ, out var rented);
             var d = ArrayPool<double>.Shared.Rent(len);
             double q = GaussianCore.SumWithPartials(cols.LnTheta.AsSpan(start, len), cols.Ln1pZ.AsSpan(start, len), lnDa, cols.VarLnTheta.AsSpan(start, len),
