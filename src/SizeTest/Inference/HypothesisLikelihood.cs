@@ -121,11 +121,12 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = parent._lnPivot;
-        _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
+        bool size = hypothesis.Nuisance.Observable == ObservableKind.Size;
+        _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ, perObject: !(size && SizeKernel.UsesGrams(_cols, cut)));
         _kernel = hypothesis.Nuisance.Observable switch
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+            ObservableKind.Size => new SizeKernel(_cols, _distances, cut, (parent._kernel as SizeKernel)?.Grams),
             ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
             _ => new JointKernel(_cols, _distances, cut, _isophotal),
         };

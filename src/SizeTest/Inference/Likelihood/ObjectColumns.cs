@@ -18,7 +18,7 @@ internal sealed class ObjectColumns
         {
             LnTheta = observables.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
             VarLnTheta = Square(observables.LnThetaErr, n);
-            UniformVarLnTheta = Array.TrueForAll(VarLnTheta, v => v == VarLnTheta[0]);
+            UniformVarLnTheta = Uniform(VarLnTheta);
         }
         if (sb)
         {
@@ -28,7 +28,7 @@ internal sealed class ObjectColumns
             for (int i = 0; i < n; i++)
                 Correction[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
             NegCorrection = Array.ConvertAll(Correction, c => -c);
-            UniformVarMu = Array.TrueForAll(VarMu, v => v == VarMu[0]);
+            UniformVarMu = Uniform(VarMu);
         }
         Ln1pZ = new double[n];
         Log10OnePlusZ = new double[n];
@@ -55,6 +55,10 @@ internal sealed class ObjectColumns
     public double[] Ln1pZ { get; }
     public double[] Log10OnePlusZ { get; }
     public double[] LnZ { get; }
+
+    // Equal variances up to rounding (10⁻¹² relative): errors given as a fixed fraction, err = f·θ, give ln θ errors
+    // err/θ that differ from f in the last bit; the uniform paths use the first row's value for all.
+    private static bool Uniform(double[] v) => Array.TrueForAll(v, s => Math.Abs(s - v[0]) <= 1e-12 * Math.Abs(v[0]));
 
     private static double[] Square(double[]? e, int n)
     {
