@@ -96,7 +96,7 @@ internal static class FitCommand
                 if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
-                CheckBudget(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
+                FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
                 if (samplerName == "mcmc")
                     foreach (var h in hypotheses.Where(h => h.K > 0))
                         SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
@@ -136,19 +136,6 @@ internal static class FitCommand
             }
         });
         return command;
-    }
-
-    // Memory the fit's own structures need, estimated before any allocation (8-byte doubles):
-    // chains walkers × steps × (k + 1) per model (positions and ln p), kept twice (chain and thinned samples);
-    // bootstrap resamples × (k + 4) per model; starts × k × 24 (L-BFGS history of 10 pairs and work vectors);
-    // nested sampling live points × (k + 1) × 64 (live set plus the dead points of a typical run).
-    private static void CheckBudget(IReadOnlyList<Hypothesis> hypotheses, string sampler, int walkers, int steps, int live, int bootstrap, int starts, long? limit)
-    {
-        double k = hypotheses.Count == 0 ? 1 : hypotheses.Max(h => h.K), models = hypotheses.Count;
-        if (sampler == "mcmc") ResourceBudget.Check($"the MCMC chains ({walkers} walkers × {steps} steps × {k} parameters × {models} models)", 2.0 * 8 * walkers * (double)steps * (k + 1) * models, limit);
-        if (sampler == "nested") ResourceBudget.Check($"nested sampling ({live} live points)", 8.0 * 64 * live * (k + 1) * models, limit);
-        ResourceBudget.Check($"the bootstrap ({bootstrap} resamples)", 8.0 * bootstrap * (k + 4) * models, limit);
-        ResourceBudget.Check($"the optimiser starts ({starts} starts)", 8.0 * 24 * starts * (k + 1) * models, limit);
     }
 
     // A validator rather than AcceptOnlyFromAmong: its message is one line.

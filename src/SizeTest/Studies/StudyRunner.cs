@@ -33,6 +33,10 @@ public static class StudyRunner
         void Stage(string name) { timings.Add(new StageTiming(name, clock.Elapsed.TotalSeconds)); clock.Restart(); }
         string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
 
+        // Refuse settings whose memory the machine does not have, before anything is allocated.
+        FitMemoryBudget.Check(StudyHypotheses.Build(study), study.Sampler, study.SamplerWalkers,
+            study.SamplerSteps > 0 ? study.SamplerSteps : study.SamplerMaxSteps, 0, study.Bootstrap, study.Starts, null);
+
         // Refuse an existing output before any work.
         var knownInputs = new List<string> { study.CataloguePath };
         if (study.StudyFilePath.Length > 0) knownInputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
