@@ -2,6 +2,7 @@ using SizeTest.Catalogs;
 using SizeTest.Common;
 using SizeTest.Distributed;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
 using SizeTest.Studies;
@@ -24,8 +25,6 @@ internal sealed record FitArgs(
     public Func<Observables, SurveyBinding>? Survey { get; init; }
 }
 
-/// <summary>The hypotheses with their survey terms for a loaded sample, the notes for the results and a warning to print.</summary>
-internal sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOnlyList<string> Notes, string? Warning);
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
