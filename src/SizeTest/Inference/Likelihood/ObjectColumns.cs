@@ -6,7 +6,7 @@ namespace SizeTest.Inference.Likelihood;
 /// <summary>
 /// The per-object inputs of the likelihood that do not depend on parameters, one array per quantity (structure of
 /// arrays): y = ln θ (radians) and its variance, μ and its variance, the additive SB corrections K + A, x = ln(1+z),
-/// ℓ = log10(1+z), ln z and, for isophotal sizes, each object's isophote. Built once per bound sample.
+/// ℓ = log10(1+z) (with SB only), ln z and, for isophotal sizes, each object's isophote. Built once per bound sample.
 /// </summary>
 internal sealed class ObjectColumns
 {
@@ -31,14 +31,14 @@ internal sealed class ObjectColumns
             UniformVarMu = Uniform(VarMu);
         }
         Ln1pZ = new double[n];
-        Log10OnePlusZ = new double[n];
+        Log10OnePlusZ = sb ? new double[n] : []; // the SB model's x only
         LnZ = new double[n];
         for (int i = 0; i < n; i++)
         {
             double z = observables.Z[i];
             if (!(z > 0) || !double.IsFinite(z)) throw new InputException($"object {i + 1} has redshift {z}; fits need z > 0");
             Ln1pZ[i] = Math.Log(1 + z);
-            Log10OnePlusZ[i] = Ln1pZ[i] / ModelPoint.Ln10;
+            if (sb) Log10OnePlusZ[i] = Ln1pZ[i] / ModelPoint.Ln10;
             LnZ[i] = Math.Log(z);
         }
     }

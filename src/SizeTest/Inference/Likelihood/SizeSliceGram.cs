@@ -10,7 +10,7 @@ namespace SizeTest.Inference.Likelihood;
 /// reference model, u_i = y_i + ln z_i + Σ_k w_ik g_ref,k (or y_i + ln D_A,i) and centre u and x on their slice means ū, x̄.
 /// Then r_i = bᵢ·β with bᵢ = (u_i − ū, 1, x_i − x̄, w_i1 … w_iK) and β = (1, κ, −a, δg), κ = ū − c0 − a x̄, so
 /// Σ r_i² = βᵀ G β with the Gram matrix G = Σ_i bᵢ bᵢᵀ (exact algebra; the weights of an object sit on 4 consecutive
-/// nodes, so the node block of G is banded, |k − l| ≤ 3). G β also gives Σ r_i (row 1), Σ r_i (x_i − x̄) (row 2) and
+/// nodes, so the node block of G is banded, |k − l| ≤ 3, and kept as its 7 diagonals). G β also gives Σ r_i (row 1), Σ r_i (x_i − x̄) (row 2) and
 /// Σ r_i w_ik (rows 3 + k), the sums the gradient needs (<see cref="ModelAdjoint"/>). With one variance v for all rows
 /// the Gaussian term is Σ [r_i²/v + ln v] = βᵀGβ / v + n ln v (common practice; docs/likelihood.md).</para>
 /// <para>Centring and the reference model keep the entries of G of the size of the residuals' spread, so βᵀGβ loses
@@ -23,7 +23,10 @@ internal sealed class SizeSliceGram
     private readonly double _uMean, _xMean;
     private readonly double _suu, _su1, _sux, _sx1, _sxx;
     private readonly double[] _bu = [], _b1 = [], _bx = [];
-    private readonly double[] _band = []; // _band[4k + d] = Σ w_ik w_i(k+d), d = 0..3
+    // The node block by diagonals: _diag[(d + 3)·K + k] = Σ_i w_ik w_i(k+d) for d = −3 … 3 (0 where k + d is off the grid),
+    // so row k of the band product is Σ_d _diag[d][k]·δg[k + d], vectorised over k.
+    private readonly double[] _diag = [];
+    private const int Half = 3, Width = 2 * Half + 1;
 
     /// <summary>Builds the Gram matrix of rows [start, end).</summary>
     /// <param name="y">ln θ per object.</param>
@@ -58,7 +61,7 @@ internal sealed class SizeSliceGram
         if (_k > 0)
         {
             _bu = new double[_k]; _b1 = new double[_k]; _bx = new double[_k];
-            _band = new double[4 * _k];
+            _diag = new double[Width * _k];
         }
         for (int i = start; i < end; i++)
         {
@@ -70,7 +73,7 @@ internal sealed class SizeSliceGram
             {
                 double wa = w![q + a];
                 _bu[j + a] += uc * wa; _b1[j + a] += wa; _bx[j + a] += xc * wa;
-                for (int b = a; b < 4; b++) _band[4 * (j + a) + (b - a)] += wa * w[q + b];
+                for (int b = 0; b < 4; b++) _diag[(b - a + Half) * _k + j + a] += wa * w[q + b];
             }
         }
     }
@@ -91,25 +94,52 @@ internal sealed class SizeSliceGram
         double q = 0;
         if (_k > 0)
         {
-            Span<double> dg = _k <= 512 ? stackalloc double[_k] : new double[_k];
+            // δg padded by Half zeros on each side, so every diagonal reads in range.
+            int len = _k + 2 * Half;
+            Span<double> pad = len <= 1024 ? stackalloc double[len] : new double[len];
+            pad.Clear();
+            var dg = pad.Slice(Half, _k);
             for (int k = 0; k < _k; k++) dg[k] = g![k] - gRef![k];
-            double tail = 0;
-            for (int k = 0; k < _k; k++)
-            {
-                double d = dg[k];
-                r0 += d * _bu[k]; r1 += d * _b1[k]; r2 += d * _bx[k];
-                // Row 3 + k of G β: the dense columns, then the band (symmetric: l = k − 3 … k + 3).
-                double rk = _bu[k] + kappa * _b1[k] + ma * _bx[k];
-                for (int l = Math.Max(0, k - 3); l < k; l++) rk += _band[4 * l + (k - l)] * dg[l];
-                for (int l = k; l < Math.Min(_k, k + 4); l++) rk += _band[4 * k + (l - k)] * dg[l];
-                tail += d * rk;
-                if (!nodeSums.IsEmpty) nodeSums[k] += scale * rk;
-            }
-            q = tail;
+            r0 += Dot(dg, _bu); r1 += Dot(dg, _b1); r2 += Dot(dg, _bx);
+            // Rows 3 + k of G β: the dense columns, then the band (the diagonals).
+            Span<double> rows = _k <= 1024 ? stackalloc double[_k] : new double[_k];
+            for (int k = 0; k < _k; k++) rows[k] = _bu[k] + kappa * _b1[k] + ma * _bx[k];
+            for (int d = 0; d < Width; d++) AddProduct(rows, _diag.AsSpan(d * _k, _k), pad.Slice(d, _k));
+            q = Dot(dg, rows);
+            if (!nodeSums.IsEmpty)
+                for (int k = 0; k < _k; k++) nodeSums[k] += scale * rows[k];
         }
         q += r0 + kappa * r1 + ma * r2;
         sumR = r1;
         sumRx = r2 + _xMean * r1;
         return Math.Max(0, q);
+    }
+
+    private static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    {
+        int i = 0;
+        double sum = 0;
+        if (System.Numerics.Vector.IsHardwareAccelerated && a.Length >= System.Numerics.Vector<double>.Count)
+        {
+            var acc = System.Numerics.Vector<double>.Zero;
+            int w = System.Numerics.Vector<double>.Count;
+            for (; i <= a.Length - w; i += w) acc += new System.Numerics.Vector<double>(a.Slice(i, w)) * new System.Numerics.Vector<double>(b.Slice(i, w));
+            sum = System.Numerics.Vector.Sum(acc);
+        }
+        for (; i < a.Length; i++) sum += a[i] * b[i];
+        return sum;
+    }
+
+    // target[k] += a[k]·b[k].
+    private static void AddProduct(Span<double> target, ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    {
+        int i = 0;
+        if (System.Numerics.Vector.IsHardwareAccelerated && target.Length >= System.Numerics.Vector<double>.Count)
+        {
+            int w = System.Numerics.Vector<double>.Count;
+            for (; i <= target.Length - w; i += w)
+                (new System.Numerics.Vector<double>(target.Slice(i, w)) + new System.Numerics.Vector<double>(a.Slice(i, w)) * new System.Numerics.Vector<double>(b.Slice(i, w))).CopyTo(target.Slice(i, w));
+        }
+        for (; i < target.Length; i++) target[i] += a[i] * b[i];
     }
 }
