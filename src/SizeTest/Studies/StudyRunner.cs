@@ -64,13 +64,24 @@ public static class StudyRunner
                 inputs.Add(full);
                 return text;
             }
-            var photometry = ObservablesBuilder.Build(load.Rows, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
+            var photometryOptions = PhotometryOptionParser.Parse(study.Corrections, ReadTable);
+            if (study.Luminosity is not null) photometryOptions = photometryOptions with { Luminosity = study.Luminosity };
+            var photometry = ObservablesBuilder.Build(load.Rows, photometryOptions);
             Stage("photometry");
 
             var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
             foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
             load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
+            Inference.Survey.SurveyBinding? survey = null;
+            if (study.Survey is { } surveyRequest)
+            {
+                // The survey terms need the loaded sample (group labels, bin edges, z_err): rebuild the hypotheses with them.
+                survey = Inference.Survey.SurveyBinding.Bind(surveyRequest, true, selected.Observables, study.Nuisance, hypotheses,
+                    nm => StudyHypotheses.BuildChecked(study with { Nuisance = nm }));
+                hypotheses = survey.Hypotheses;
+                foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + note);
+            }
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
             var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
@@ -93,6 +104,7 @@ public static class StudyRunner
                 MaxSteps = study.SamplerMaxSteps,
                 ChainStoreFactory = study.Sampler == "mcmc" ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
+            if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
             Stage("fit");
 
             // Every model was sampled once inside the fit; the best-ranked model's chain is the one plotted.
