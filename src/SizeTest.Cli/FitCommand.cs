@@ -5,6 +5,7 @@ using SizeTest.Catalogs;
 using SizeTest.Common;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Photometry;
 
 namespace SizeTest.Cli;
@@ -83,7 +84,7 @@ internal static class FitCommand
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
                 var surveyRequest = surveyOptions.Request(parse);
                 var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
-                bool surveyAsked = surveyRequest with { Pivot = null, IgnoreZErr = false } != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
                 if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
@@ -96,7 +97,7 @@ internal static class FitCommand
                 if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
-                CheckBudget(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
+                FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
                 if (samplerName == "mcmc")
                     foreach (var h in hypotheses.Where(h => h.K > 0))
                         SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
@@ -109,25 +110,11 @@ internal static class FitCommand
                     throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
                 string? profileName = parse.GetValue(profile);
                 // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
-                Func<Observables, SurveyBinding> survey = obs =>
+                Func<Observables, SurveyBinding> survey = obs => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
                 {
-                    var notes = new List<string>();
-                    var model = surveyRequest.Build(obs, kind, notes);
-                    var hs = hypotheses;
-                    if ((model.IsActive || surveyAsked) && obs.Count > 0)
-                    {
-                        var nm = nuisance with { Survey = model };
-                        nm.Validate();
-                        CheckNames(overrides, expected, families, nm, profileName);
-                        hs = families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
-                        foreach (var h in hs)
-                            foreach (var note in h.Bind(obs).SurveyNotes)
-                                if (!notes.Contains(note)) notes.Add(note);
-                    }
-                    string? warning = kind != ObservableKind.SurfaceBrightness ? SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(obs, model.SizeErrors) : null;
-                    if (warning is not null) notes.Add("warning: " + warning);
-                    return new SurveyBinding(hs, notes, warning);
-                };
+                    CheckNames(overrides, expected, families, nm, profileName);
+                    return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+                });
                 return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = SizeTest.Distributed.RankContext.IsDistributed ? null : survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
@@ -136,19 +123,6 @@ internal static class FitCommand
             }
         });
         return command;
-    }
-
-    // Memory the fit's own structures need, estimated before any allocation (8-byte doubles):
-    // chains walkers × steps × (k + 1) per model (positions and ln p), kept twice (chain and thinned samples);
-    // bootstrap resamples × (k + 4) per model; starts × k × 24 (L-BFGS history of 10 pairs and work vectors);
-    // nested sampling live points × (k + 1) × 64 (live set plus the dead points of a typical run).
-    private static void CheckBudget(IReadOnlyList<Hypothesis> hypotheses, string sampler, int walkers, int steps, int live, int bootstrap, int starts, long? limit)
-    {
-        double k = hypotheses.Count == 0 ? 1 : hypotheses.Max(h => h.K), models = hypotheses.Count;
-        if (sampler == "mcmc") ResourceBudget.Check($"the MCMC chains ({walkers} walkers × {steps} steps × {k} parameters × {models} models)", 2.0 * 8 * walkers * (double)steps * (k + 1) * models, limit);
-        if (sampler == "nested") ResourceBudget.Check($"nested sampling ({live} live points)", 8.0 * 64 * live * (k + 1) * models, limit);
-        ResourceBudget.Check($"the bootstrap ({bootstrap} resamples)", 8.0 * bootstrap * (k + 4) * models, limit);
-        ResourceBudget.Check($"the optimiser starts ({starts} starts)", 8.0 * 24 * starts * (k + 1) * models, limit);
     }
 
     // A validator rather than AcceptOnlyFromAmong: its message is one line.

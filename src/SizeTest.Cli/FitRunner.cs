@@ -2,6 +2,7 @@ using SizeTest.Catalogs;
 using SizeTest.Common;
 using SizeTest.Distributed;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
 using SizeTest.Studies;
@@ -24,8 +25,6 @@ internal sealed record FitArgs(
     public Func<Observables, SurveyBinding>? Survey { get; init; }
 }
 
-/// <summary>The hypotheses with their survey terms for a loaded sample, the notes for the results and a warning to print.</summary>
-internal sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOnlyList<string> Notes, string? Warning);
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
@@ -39,6 +38,7 @@ internal static class FitRunner
 {
     public static int Run(CliContext context, FitArgs a)
     {
+        var timings = StageTimings.Requested ? new StageTimings() : null;
         var ranks = RankContext.Start(); // throws InputException for a wrong launcher (exit 2)
         bool root = ranks.IsRoot;
 
@@ -54,6 +54,7 @@ internal static class FitRunner
         {
             share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
             if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + w);
+            timings?.Mark("read catalogue");
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
             // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
             var nuisance = a.Hypotheses[0].Nuisance;
@@ -81,6 +82,7 @@ internal static class FitRunner
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
                 foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
+            timings?.Mark("observables and selection");
         });
         if (code != 0)
         {
@@ -136,6 +138,7 @@ internal static class FitRunner
                 MaxSteps = a.MaxSteps,
                 LivePoints = a.LivePoints,
                 ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+                Timings = timings,
             };
             var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
@@ -144,12 +147,20 @@ internal static class FitRunner
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();
             folder = null;
+            timings?.Mark("write outputs");
 
             switch (a.Format)
             {
                 case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
                 case "csv": context.Out.Write(FitTables.Csv(result)); break;
                 default: FitTables.WriteTable(context.Out, result); break;
+            }
+            if (timings is not null)
+            {
+                timings.Mark("print");
+                foreach (var (stage, wall, cpu) in timings.Entries)
+                    context.Err.WriteLine(FormattableString.Invariant($"sizetest timing: {stage,-40} wall {wall,7:F3} s  cpu {cpu,7:F3} s"));
+                context.Err.WriteLine(FormattableString.Invariant($"sizetest timing: since process start                    wall {(DateTime.Now - System.Diagnostics.Process.GetCurrentProcess().StartTime).TotalSeconds,7:F3} s  cpu {System.Diagnostics.Process.GetCurrentProcess().TotalProcessorTime.TotalSeconds,7:F3} s"));
             }
             if (!result.AllConverged)
             {

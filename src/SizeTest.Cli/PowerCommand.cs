@@ -32,13 +32,14 @@ internal static class PowerCommand
         var seed = new Option<long?>("--seed") { Description = "Base seed of the mocks (required)." };
         var output = new Option<string?>("--out") { Description = "Output folder for power.json, power.csv and mocks.csv." };
         var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
+        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse an analysis whose estimated memory (mock outcomes, and one mock catalogue per thread at the largest N) is above this size (e.g. 4G); the machine's available memory is always a limit." };
         var fix = new Option<string[]>("--fix") { Description = "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable." };
         var free = new Option<string[]>("--free") { Description = "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated." };
         var format = CliOptions.Format();
         models.AddTo(command);
         command.Options.Add(sizes);
         survey.AddTo(command, includeCount: false);
-        foreach (var o in new Option[] { mocks, candidates, observable, fix, free, target, starts, threads, seed, output, force, format }) command.Options.Add(o);
+        foreach (var o in new Option[] { mocks, candidates, observable, fix, free, target, starts, threads, seed, output, force, maxMemory, format }) command.Options.Add(o);
         command.SetAction(parse =>
         {
             OutputFolder? folder = null;
@@ -84,6 +85,7 @@ internal static class PowerCommand
                         throw new InputException($"unknown parameter '{name}' for these models and --observable {obsText}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
                 request.Validate();
+                ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null);
                 folder = OutputFolder.Begin(outDir, parse.GetValue(force));
                 var result = PowerAnalysis.Run(request, new PowerProgressReporter(context));
                 AtomicFile.WriteAllText(folder.PathOf("power.json"), PowerResultFiles.Json(result));

@@ -51,6 +51,8 @@ public sealed record FitRequest
     /// <summary>Makes a chain store for a model's MCMC chain (e.g. a CSV file), or null to keep it in memory only.
     /// Stores that are <see cref="IDisposable"/> are disposed after the run.</summary>
     public Func<string, Sampling.IChainStore?>? ChainStoreFactory { get; init; }
+    /// <summary>When set, each model's stages (fit, mode search and intervals, evolution tests, bootstrap, CV) are marked on it.</summary>
+    public Common.StageTimings? Timings { get; init; }
 }
 
 /// <summary>Progress of a study: a stage name and how far it is.</summary>

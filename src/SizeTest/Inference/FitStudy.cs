@@ -47,7 +47,9 @@ public static class FitStudy
             progress?.Report(new FitProgress($"fitting {h.Label}", m, request.Hypotheses.Count));
             var lik = backend.Bind(h);
             var fit = MaximumLikelihood.Fit(lik, lik.Posterior, h.FreeParameters, backend.SuggestStart(h), opt);
+            request.Timings?.Mark($"bind + multi-start fit {h.Label}");
             var refined = ModelFitRefinement.Run(backend, lik, fit, request.ModeScanPoints, cancel);
+            request.Timings?.Mark($"mode search + intervals {h.Label}");
             fit = refined.Best;
             var summary = refined.Summary;
             extraNotes.AddRange(refined.Notes);
@@ -70,8 +72,8 @@ public static class FitStudy
                 LikelihoodRatioTest? lrt = null;
                 if (!est.Fixed && h.FreeParameters.First(p => p.Name == name) is { } spec && spec.Min <= 0 && spec.Max >= 0)
                 {
-                    var nested = h.WithFixed(name, 0);
-                    var nlik = backend.Bind(nested);
+                    var nlik = lik.WithFixed(name, 0); // shares the bound rows and the redshift grid
+                    var nested = nlik.Hypothesis;
                     int j = h.FreeParameters.ToList().FindIndex(p => p.Name == name);
                     var start = fit.Theta.Where((_, k) => k != j).ToArray();
                     var nfit = MaximumLikelihood.Fit(nlik, nlik.Posterior, nested.FreeParameters, start, opt, covariance: false);
@@ -81,6 +83,7 @@ public static class FitStudy
                 required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name)));
             }
 
+            request.Timings?.Mark($"evolution tests {h.Label}");
             if (request.Bootstrap > 0 && h.K > 0)
             {
                 string stage = $"bootstrap {h.Label}";
@@ -88,11 +91,18 @@ public static class FitStudy
                 progress?.Report(new FitProgress(stage, 0, resamples));
                 boots.Add(Bootstrap.Run(backend, h, fit.Theta, resamples, unchecked(request.Seed + 7 * m),
                     done => progress?.Report(new FitProgress(stage, done, resamples)), cancel));
+                request.Timings?.Mark($"bootstrap {h.Label}");
             }
             if (foldOf is not null && h.K > 0)
+            {
                 cvs.Add(CrossValidation.Run(backend, h, foldOf, cvFolds, fit.Theta));
+                request.Timings?.Mark($"cross-validation {h.Label}");
+            }
             if (request.ProfileParameter is { } pp && h.FreeParameters.Any(p => p.Name == pp))
+            {
                 profiles.Add(ProfileLikelihood.Run(backend, h, fit, pp));
+                request.Timings?.Mark($"profile {h.Label}");
+            }
             m++;
             progress?.Report(new FitProgress($"fitted {h.Label}", m, request.Hypotheses.Count));
         }

@@ -121,11 +121,12 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = parent._lnPivot;
-        _distances = new DistanceTerms(hypothesis, _layout, parent._distances);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
+        bool size = hypothesis.Nuisance.Observable == ObservableKind.Size;
+        _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ, perObject: !(size && SizeKernel.UsesGrams(_cols, cut)));
         _kernel = hypothesis.Nuisance.Observable switch
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+            ObservableKind.Size => new SizeKernel(_cols, _distances, cut, (parent._kernel as SizeKernel)?.Grams),
             ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
             _ => new JointKernel(_cols, _distances, cut, _isophotal),
         };
@@ -146,6 +147,9 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
     // weights, luminosity window): the size kernel when any is active.
     private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Whether survey terms are active (then <see cref="WithFixed"/> is not available).</summary>
+    public bool HasSurveyTerms => _survey is not null;
 
     /// <summary>Notes on the survey terms applied (empty when none).</summary>
     public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];

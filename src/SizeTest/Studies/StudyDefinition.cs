@@ -64,4 +64,9 @@ public sealed record StudyDefinition
     public string? PowerResultPath { get; init; }
     /// <summary>Report options.</summary>
     public StudyReportOptions Report { get; init; } = new();
+    /// <summary>Survey terms of the <c>[survey]</c> table (size–luminosity/mass relation, groups, binned evolution,
+    /// photometric redshifts, size-error model, luminosity window), or null when the table is absent.</summary>
+    public Inference.Survey.SurveyRequest? Survey { get; init; }
+    /// <summary>How the photometry stage derives luminosities or masses for the survey terms, or null.</summary>
+    public Photometry.LuminosityOption? Luminosity { get; init; }
 }

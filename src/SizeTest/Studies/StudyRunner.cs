@@ -33,6 +33,10 @@ public static class StudyRunner
         void Stage(string name) { timings.Add(new StageTiming(name, clock.Elapsed.TotalSeconds)); clock.Restart(); }
         string Rel(string p) => Path.GetRelativePath(wd, Path.GetFullPath(p, wd)).Replace('\\', '/');
 
+        // Refuse settings whose memory the machine does not have, before anything is allocated.
+        FitMemoryBudget.Check(StudyHypotheses.Build(study), study.Sampler, study.SamplerWalkers,
+            study.SamplerSteps > 0 ? study.SamplerSteps : study.SamplerMaxSteps, 0, study.Bootstrap, study.Starts, null);
+
         // Refuse an existing output before any work.
         var knownInputs = new List<string> { study.CataloguePath };
         if (study.StudyFilePath.Length > 0) knownInputs.Add(Path.GetFullPath(study.StudyFilePath, wd));
@@ -59,13 +63,24 @@ public static class StudyRunner
                 inputs.Add(full);
                 return text;
             }
-            var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
+            var photometryOptions = PhotometryOptionParser.Parse(study.Corrections, ReadTable);
+            if (study.Luminosity is not null) photometryOptions = photometryOptions with { Luminosity = study.Luminosity };
+            var photometry = ObservablesBuilder.Build(load.Sample, photometryOptions);
             Stage("photometry");
 
             var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
             foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
             load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
+            Inference.Survey.SurveyBinding? survey = null;
+            if (study.Survey is { } surveyRequest)
+            {
+                // The survey terms need the loaded sample (group labels, bin edges, z_err): rebuild the hypotheses with them.
+                survey = Inference.Survey.SurveyBinding.Bind(surveyRequest, true, selected.Observables, study.Nuisance, hypotheses,
+                    nm => StudyHypotheses.BuildChecked(study with { Nuisance = nm }));
+                hypotheses = survey.Hypotheses;
+                foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + note);
+            }
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
             var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
@@ -88,6 +103,7 @@ public static class StudyRunner
                 MaxSteps = study.SamplerMaxSteps,
                 ChainStoreFactory = study.Sampler == "mcmc" ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
+            if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
             Stage("fit");
 
             // Every model was sampled once inside the fit; the best-ranked model's chain is the one plotted.

@@ -162,4 +162,18 @@ public sealed class OutputFolderTests : IDisposable
             Assert.DoesNotContain("internal error", sys.Err);
         }
     }
+
+    [Fact]
+    public void InspectRejectLogOntoAFolderIsExit2AndTheFolderIsKept()
+    {
+        // Issue 14 point 6: `inspect --reject-log DIR` was an internal error.
+        var cat = Path.Combine(_dir, "c.csv");
+        File.WriteAllText(cat, HardeningData.CatalogText(20));
+        var folder = Directory.CreateDirectory(Path.Combine(_dir, "rl")).FullName;
+        File.WriteAllText(Path.Combine(folder, "keep.txt"), "mine");
+        var (exit, _, err) = CliRunner.Run(["inspect", cat, "--reject-log", folder]);
+        Assert.Equal(2, exit);
+        Assert.Contains("is a folder; name a file", err);
+        Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "keep.txt")));
+    }
 }
