@@ -1,8 +1,9 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Inference.Survey;
@@ -23,7 +24,7 @@ internal static class FitCommand
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
-        var catalogOptions = new CatalogOptions();
+        var catalogOptions = new CatalogueOptions();
         var photometryOptions = new PhotometryCliOptions();
         var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };

@@ -1,4 +1,5 @@
 using SizeTest.Photometry;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Inference;
 

@@ -52,7 +52,7 @@ public sealed record FitRequest
     /// Stores that are <see cref="IDisposable"/> are disposed after the run.</summary>
     public Func<string, Sampling.IChainStore?>? ChainStoreFactory { get; init; }
     /// <summary>When set, each model's stages (fit, mode search and intervals, evolution tests, bootstrap, CV) are marked on it.</summary>
-    public Common.StageTimings? Timings { get; init; }
+    public SizeTest.Foundation.Profiling.StageTimings? Timings { get; init; }
 }
 
 /// <summary>Progress of a study: a stage name and how far it is.</summary>

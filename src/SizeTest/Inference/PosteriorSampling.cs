@@ -149,7 +149,7 @@ public static class PosteriorSampling
             lnZ = ev.LogEvidence;
             lnZErr = ev.LogEvidenceError;
             samples = new PosteriorDraws(label, "nested", names,
-                ev.WeightedSamples.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
+                ev.WeightedDraws.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
         }
         else throw new ArgumentException($"unknown sampler '{request.Sampler}'; use none, mcmc or nested");
 

@@ -1,4 +1,4 @@
-using SizeTest.Catalogs;
+using SizeTest.Catalogues;
 using SizeTest.Inference;
 using SizeTest.Photometry;
 

@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Inference.Survey;
@@ -344,15 +344,15 @@ public static class StudyFileParser
         new(r.Relation, r.Pivot, null, r.EvolutionBins is { } k ? Enumerable.Range(0, k + 1).Select(i => (double)i).ToArray() : null,
             false, 7, r.SizeErrors, r.AbsMagMin, r.AbsMagMax, r.RedshiftPriorMin, r.RedshiftPriorMax);
 
-    private static CatalogFormat? Format(TomlNode cat)
+    private static CatalogueFormat? Format(TomlNode cat)
     {
         var node = cat.Get("format");
         return node?.Scalar switch
         {
             null => null,
-            "csv" or "text" or "tsv" or "txt" => CatalogFormat.Text,
-            "fits" => CatalogFormat.Fits,
-            "votable" or "vot" => CatalogFormat.VoTable,
+            "csv" or "text" or "tsv" or "txt" => CatalogueFormat.Text,
+            "fits" => CatalogueFormat.Fits,
+            "votable" or "vot" => CatalogueFormat.VoTable,
             _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\" or \"votable\" (or left out to detect)"),
         };
     }

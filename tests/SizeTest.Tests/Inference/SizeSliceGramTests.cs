@@ -16,7 +16,7 @@ public sealed class SizeSliceGramTests
 
     private static (Observables Uniform, Observables PerRow) Samples(int n)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.FlatLcdm.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed: 11, zMin: 0.05, zMax: 4);
+        var obs = MockCatalogue.Draw(TestWorldModels.FlatLcdm.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed: 11, zMin: 0.05, zMax: 4);
         var err = obs.LnThetaErr!.ToArray();
         err[n / 2] *= 1 + 1e-9;
         return (obs, new Observables(obs.Z, obs.LnTheta, err));

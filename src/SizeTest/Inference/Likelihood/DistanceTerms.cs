@@ -161,7 +161,7 @@ internal sealed class DistanceTerms
             if (dg is not null) dg[c] = row;
             dn[c] = nDer;
         }
-        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridGDerivatives = dg, DimmingDerivatives = dn };
+        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridLnDaOverZDerivatives = dg, DimmingDerivatives = dn };
     }
 
     private double[]? GridValues(IWorldModel model)
@@ -188,7 +188,7 @@ internal sealed class DistanceTerms
 
     /// <summary>ln D_A of object <paramref name="i"/>.</summary>
     public double LnDa(LikelihoodEvaluation e, int i, double[] lnZ) =>
-        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridG, i);
+        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridLnDaOverZ, i);
 
     /// <summary>
     /// ln D_A for rows [start, end): the fixed array itself, or the grid interpolation into a pooled buffer
@@ -200,7 +200,7 @@ internal sealed class DistanceTerms
         if (_lnDaFixed is not null) { rented = null; return _lnDaFixed.AsSpan(start, len); }
         rented = ArrayPool<double>.Shared.Rent(len);
         var span = rented.AsSpan(0, len);
-        Interpolate(e.GridG!, lnZ, start, end, span);
+        Interpolate(e.GridLnDaOverZ!, lnZ, start, end, span);
         return span;
     }
 

@@ -35,7 +35,7 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
         if (Gram(start, end) is { } gram)
         {
             double v = cols.VarLnTheta[start] + p.Sigma2;
-            double q = gram.SumSquares(p.C0, p.A, e.GridG, distances.ReferenceG, default, 0, out _, out _);
+            double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, default, 0, out _, out _);
             return -0.5 * (q / v + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
         }
         if (cut is null)
@@ -64,13 +64,13 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
         if (Gram(start, end) is { } gram)
         {
             double v = cols.VarLnTheta[start] + p.Sigma2, inv = 1 / v;
-            double q = gram.SumSquares(p.C0, p.A, e.GridG, distances.ReferenceG, distances.FixedLnDa is null ? nodeA : default, inv, out double sr, out double srx);
+            double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, distances.FixedLnDa is null ? nodeA : default, inv, out double sr, out double srx);
             adj.Dt += sr * inv; adj.DtX += srx * inv; adj.DVt += 0.5 * (q * inv * inv - len * inv);
             return -0.5 * (q * inv + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
         }
         if (cut is null)
         {
-            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridG!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
+            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridLnDaOverZ!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
             var lnDa = distances.LnDaSlice(e, start, end, cols.LnZ, out var rented);
             var d = ArrayPool<double>.Shared.Rent(len);
             double q = GaussianCore.SumWithPartials(cols.LnTheta.AsSpan(start, len), cols.Ln1pZ.AsSpan(start, len), lnDa, cols.VarLnTheta.AsSpan(start, len),

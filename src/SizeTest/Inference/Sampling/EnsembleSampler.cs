@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Inference.Sampling;
 
