@@ -44,6 +44,8 @@ public sealed record FitRequest
     /// <summary>Where the likelihood sums are evaluated (threads, or MPI ranks over row slices); null: threads in this
     /// process over <see cref="Observables"/>. Under MPI, <see cref="Observables"/> is this rank's share.</summary>
     public Evaluation.EvaluationBackend? Backend { get; init; }
+    /// <summary>MCMC proposal; null for <see cref="Sampling.MixtureMove.Default"/> (kernel-density + differential evolution + stretch).</summary>
+    public Sampling.IEnsembleMove? SamplerMove { get; init; }
     /// <summary>Nested-sampling live points.</summary>
     public int LivePoints { get; init; } = 400;
     /// <summary>Makes a chain store for a model's MCMC chain (e.g. a CSV file), or null to keep it in memory only.

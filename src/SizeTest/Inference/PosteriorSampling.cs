@@ -81,7 +81,11 @@ public static class PosteriorSampling
                 var p = h.FreeParameters[j];
                 return double.IsFinite(se) && se > 0 ? Math.Min(se, 0.1 * (p.Max - p.Min)) : 1e-3 * (p.Max - p.Min);
             }).ToArray();
-            var start = EnsembleSampler.GaussianBall(posterior, fit.Theta, scale, request.Walkers, seed);
+            // Start from the Laplace approximation N(θ̂, Σ) (inside the support) so the burn-in is short; a small
+            // per-parameter ball when the Hessian gave no covariance.
+            var start = fit.Covariance is { } cov
+                ? EnsembleSampler.GaussianStart(posterior, fit.Theta, cov, request.Walkers, seed)
+                : EnsembleSampler.GaussianBall(posterior, fit.Theta, scale.Select(s => 1e-2 * s).ToArray(), request.Walkers, seed);
             bool auto = request.Steps <= 0;
             int maxSteps = auto ? Math.Max(request.MaxSteps, 10) : request.Steps;
             ChainMemory.Check(request.Walkers, maxSteps, d, request.ChainMemoryBudget);
@@ -92,6 +96,7 @@ public static class PosteriorSampling
                 MaxSteps = auto ? maxSteps : null,
                 Seed = seed,
                 ParameterNames = names,
+                Move = request.SamplerMove ?? MixtureMove.Default(),
                 MaxDegreeOfParallelism = request.Backend is { Concurrent: false } ? 1 : -1,
             });
             var store = request.ChainStoreFactory?.Invoke(label);
@@ -114,7 +119,7 @@ public static class PosteriorSampling
             string length = auto
                 ? (converged ? $"ran to convergence: {stepsRun} steps" : $"not converged within --max-steps {maxSteps}: {stepsRun} steps")
                 : $"{stepsRun} steps (fixed)";
-            verdict = $"ensemble MCMC ({request.Walkers} walkers, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
+            verdict = $"ensemble MCMC ({request.Walkers} walkers, moves {run.MoveName}, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
             if (LaplaceEvidence.TryCompute(likelihood, priors, fit.Theta, out var laplace, out var failure))
                 lnZ = laplace.LogEvidence;
             else verdict += $"; Laplace evidence not available ({failure})";
