@@ -1,19 +1,22 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
+using SizeTest.Foundation.Text;
 using SizeTest.Distributed;
 using SizeTest.Inference;
 using SizeTest.Inference.Survey;
 using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
 using SizeTest.Studies;
+using SizeTest.Foundation.Profiling;
 
 namespace SizeTest.Cli;
 
 /// <summary>What <c>sizetest fit</c> parsed.</summary>
 internal sealed record FitArgs(
-    string CatalogPath, CatalogLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
+    string CataloguePath, CatalogueLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
     IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+    IReadOnlyList<ExpectedRange> Expected, SamplerKind Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
 {
     /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
     public bool CvFoldsExplicit { get; init; }
@@ -28,8 +31,8 @@ internal sealed record FitArgs(
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
-/// its share of the catalogue (<see cref="CatalogShare"/>; one process: all of it), the processes run
-/// <see cref="FitStudy"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
+/// its share of the catalogue (<see cref="CatalogueShare"/>; one process: all of it), the processes run
+/// <see cref="FitRun"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
 /// rank 0 alone writes the output folder through <see cref="StudyOutputFiles"/> (the writer <c>sizetest run</c> uses)
 /// and prints. A failure before the fit (output folder, catalogue) is agreed between the ranks so all exit with the same
 /// code and one rank prints it; a failure during the fit aborts all ranks.
@@ -46,13 +49,13 @@ internal static class FitRunner
         int code = Agree(context, ranks, () => { if (root) folder = OutputFolder.Begin(a.OutputPath, a.Force, a.Inputs); });
         if (code != 0) return code;
 
-        CatalogShare? share = null;
+        CatalogueShare? share = null;
         PhotometryResult? built = null;
         SelectionSplit? split = null;
         SurveyBinding? survey = null;
         code = Agree(context, ranks, () =>
         {
-            share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
+            share = CatalogueShare.Load(a.CataloguePath, a.LoadOptions, ranks.Rank, ranks.Size);
             if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + w);
             timings?.Mark("read catalogue");
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
@@ -101,7 +104,7 @@ internal static class FitRunner
             try
             {
                 var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
-                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CatalogPath);
+                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CataloguePath);
                 if (root) context.Err.WriteLine($"sizetest: warning: {TerminalText.Escape(selectionWarning)}");
             }
             catch (InputException e)
@@ -116,14 +119,14 @@ internal static class FitRunner
             var totals = share!.Combine(ranks);
             var local = built!.Observables;
             if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
-                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CatalogPath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
+                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CataloguePath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
             var backend = new EvaluationBackend(ranks, local, share.Local.SourceRows, share.ChunkKeys);
             var request = new FitRequest
             {
                 Hypotheses = a.Hypotheses,
                 Observables = local,
                 Backend = backend,
-                Source = a.CatalogPath,
+                Source = a.CataloguePath,
                 RowsRead = totals.RowsRead,
                 Rejected = totals.Rejected,
                 Seed = a.Seed,
@@ -137,10 +140,10 @@ internal static class FitRunner
                 Steps = a.Steps,
                 MaxSteps = a.MaxSteps,
                 LivePoints = a.LivePoints,
-                ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+                ChainStoreFactory = root && a.Sampler == SamplerKind.Mcmc ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
                 Timings = timings,
             };
-            var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
+            var result = FitRun.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
             result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c), .. result.Notes] };
 

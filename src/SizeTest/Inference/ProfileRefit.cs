@@ -153,8 +153,10 @@ public sealed class ProfileRefit
         result[c] = At(grid[c], start);
         _backend.ForEach(2, side =>
         {
-            if (side == 0) for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(grid[i], result[i + 1], i + 2 < grid.Count ? result[i + 2] : null, start));
-            else for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(grid[i], result[i - 1], i >= 2 ? result[i - 2] : null, start));
+            // Each side extrapolates only from its own points (the centre included), never from the other side's, which
+            // is being computed at the same time.
+            if (side == 0) for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(grid[i], result[i + 1], i + 2 <= c ? result[i + 2] : null, start));
+            else for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(grid[i], result[i - 1], i - 2 >= c ? result[i - 2] : null, start));
         });
         return result;
     }

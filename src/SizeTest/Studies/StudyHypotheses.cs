@@ -18,7 +18,7 @@ public static class StudyHypotheses
     /// As <see cref="Build"/>, but first refuses a parameter setting that no listed model knows — needed once survey
     /// terms are bound to a sample, because per-group names (<c>NAME@GROUP</c>) can be checked only then.
     /// </summary>
-    /// <exception cref="Common.InputException">A setting names a parameter none of the models has.</exception>
+    /// <exception cref="SizeTest.Foundation.Errors.InputException">A setting names a parameter none of the models has.</exception>
     public static IReadOnlyList<Hypothesis> BuildChecked(StudyDefinition study)
     {
         ArgumentNullException.ThrowIfNull(study);
@@ -26,7 +26,7 @@ public static class StudyHypotheses
         var known = families.SelectMany(f => KnownNames(f, study.Nuisance)).ToHashSet(StringComparer.Ordinal);
         foreach (var p in study.Parameters.Concat(study.ModelParameters.Values.SelectMany(v => v)))
             if (!known.Contains(p.Name))
-                throw new Common.InputException($"the study file sets parameter '{p.Name}', which no model has for this sample; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}",
+                throw new SizeTest.Foundation.Errors.InputException($"the study file sets parameter '{p.Name}', which no model has for this sample; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}",
                     study.StudyFilePath.Length > 0 ? study.StudyFilePath : null);
         return families.Select(f => For(f, study)).ToArray();
     }

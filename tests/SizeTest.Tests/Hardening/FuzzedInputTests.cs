@@ -1,6 +1,6 @@
 using System.Text;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Studies;
 using SizeTest.Tests.Cli;
 using Xunit;
@@ -81,7 +81,7 @@ public sealed class FuzzedInputTests(ITestOutputHelper output)
                 long before = GC.GetAllocatedBytesForCurrentThread();
                 try
                 {
-                    var load = CatalogLoader.Load(path, new CatalogLoadOptions());
+                    var load = CatalogueLoader.Load(path, new CatalogueLoadOptions());
                     read++;
                     if (load.RowsRead != load.Accepted + load.Rejected)
                         failures.Add($"{extension} #{k} ({damage}): read {load.RowsRead} ≠ accepted {load.Accepted} + rejected {load.Rejected}");

@@ -1,5 +1,5 @@
 using System.Text.Json;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Studies;
 using SizeTest.Tests.Cli;
 using Xunit;

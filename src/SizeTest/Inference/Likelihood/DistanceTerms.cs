@@ -34,6 +34,7 @@ internal sealed class DistanceTerms
             Grid = sharedGrid is { } span
                 ? new RedshiftGrid(z, hypothesis.Nuisance.NodesFor(span.ObjectCount), span.MinZ, span.MaxZ)
                 : new RedshiftGrid(z, hypothesis.Nuisance.NodesFor(n));
+        _referenceG = ReferenceFor(hypothesis);
         if (CosmologyFree) return;
         var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                     ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its fixed parameters");
@@ -58,15 +59,17 @@ internal sealed class DistanceTerms
     /// cosmological parameter now fixed, g is computed once on that grid, so profile and full fit share the same
     /// interpolated ln D_A), or its exact per-object ln D_A when the cosmology was already fixed.
     /// </summary>
-    /// <remarks>With a grid and the cosmology now fixed, ln D_A is interpolated to every object once here (the same stencil
-    /// sum as <see cref="LnDaSlice"/>), so the refits' evaluations take the vectorised exact-distance path with no node
-    /// adjoint.</remarks>
-    public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, DistanceTerms parent, double[] lnZ)
+    /// <remarks>With a grid and the cosmology now fixed, and <paramref name="perObject"/>, ln D_A is interpolated to every
+    /// object once here (the same stencil sum as <see cref="LnDaSlice"/>), so the refits' evaluations take the vectorised
+    /// exact-distance path with no node adjoint; without it (a kernel that works on the grid values, such as
+    /// <see cref="SizeSliceGram"/>) the fixed grid values alone are kept.</remarks>
+    public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, DistanceTerms parent, double[] lnZ, bool perObject)
     {
         _h = hypothesis;
         _layout = layout;
         CosmologyFree = layout.FreeCosmological.Length > 0;
         Grid = parent.Grid;
+        _referenceG = parent._referenceG;
         if (CosmologyFree) return;
         var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                     ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its fixed parameters");
@@ -74,11 +77,23 @@ internal sealed class DistanceTerms
         if (Grid is not null)
         {
             _gridFixed = GridValues(model) ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' gives a non-positive angular-diameter distance on the redshift grid");
-            _lnDaFixed = new double[lnZ.Length];
-            Interpolate(_gridFixed, lnZ, 0, lnZ.Length, _lnDaFixed);
+            if (perObject)
+            {
+                _lnDaFixed = new double[lnZ.Length];
+                Interpolate(_gridFixed, lnZ, 0, lnZ.Length, _lnDaFixed);
+            }
         }
         else _lnDaFixed = parent._lnDaFixed;
     }
+
+    /// <summary>The grid values g of the hypothesis's start model (the reference of <see cref="SizeSliceGram"/>), computed once;
+    /// zeros where that model is undefined; null without a grid.</summary>
+    public double[]? ReferenceG => Grid is null ? null : _referenceG!.Value;
+
+    private readonly Lazy<double[]>? _referenceG;
+
+    private Lazy<double[]> ReferenceFor(Hypothesis hypothesis) => new(() =>
+        (CreateModel(hypothesis.FullValues(hypothesis.StartVector())) is { } m ? GridValues(m) : null) ?? new double[Grid!.Nodes.Length]);
 
     /// <summary>Whether any world-model parameter is free.</summary>
     public bool CosmologyFree { get; }
@@ -146,7 +161,7 @@ internal sealed class DistanceTerms
             if (dg is not null) dg[c] = row;
             dn[c] = nDer;
         }
-        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridGDerivatives = dg, DimmingDerivatives = dn };
+        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridLnDaOverZDerivatives = dg, DimmingDerivatives = dn };
     }
 
     private double[]? GridValues(IWorldModel model)
@@ -173,7 +188,7 @@ internal sealed class DistanceTerms
 
     /// <summary>ln D_A of object <paramref name="i"/>.</summary>
     public double LnDa(LikelihoodEvaluation e, int i, double[] lnZ) =>
-        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridG, i);
+        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridLnDaOverZ, i);
 
     /// <summary>
     /// ln D_A for rows [start, end): the fixed array itself, or the grid interpolation into a pooled buffer
@@ -185,7 +200,7 @@ internal sealed class DistanceTerms
         if (_lnDaFixed is not null) { rented = null; return _lnDaFixed.AsSpan(start, len); }
         rented = ArrayPool<double>.Shared.Rent(len);
         var span = rented.AsSpan(0, len);
-        Interpolate(e.GridG!, lnZ, start, end, span);
+        Interpolate(e.GridLnDaOverZ!, lnZ, start, end, span);
         return span;
     }
 
