@@ -91,7 +91,7 @@ internal static class FitCommand
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
-                string samplerName = parse.GetValue(sampler) ?? "none";
+                var samplerName = SamplerKinds.Parse(parse.GetValue(sampler) ?? "none");
                 int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
                 int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
                 if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
@@ -99,7 +99,7 @@ internal static class FitCommand
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
                 FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
-                if (samplerName == "mcmc")
+                if (samplerName == SamplerKind.Mcmc)
                     foreach (var h in hypotheses.Where(h => h.K > 0))
                         SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
                 var inputs = new List<string> { parse.GetValue(catalog)! };

@@ -16,7 +16,7 @@ namespace SizeTest.Cli;
 internal sealed record FitArgs(
     string CataloguePath, CatalogueLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
     IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+    IReadOnlyList<ExpectedRange> Expected, SamplerKind Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
 {
     /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
     public bool CvFoldsExplicit { get; init; }
@@ -140,7 +140,7 @@ internal static class FitRunner
                 Steps = a.Steps,
                 MaxSteps = a.MaxSteps,
                 LivePoints = a.LivePoints,
-                ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+                ChainStoreFactory = root && a.Sampler == SamplerKind.Mcmc ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
                 Timings = timings,
             };
             var result = FitRun.Run(request, root ? new FitProgressReporter(context) : null);

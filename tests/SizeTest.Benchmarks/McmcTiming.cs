@@ -41,7 +41,7 @@ public static class McmcTiming
         var summary = FitSummaries.From(lik, fit);
         var request = new FitRequest
         {
-            Hypotheses = [h], Observables = obs, Sampler = "mcmc", Steps = 0,
+            Hypotheses = [h], Observables = obs, Sampler = SamplerKind.Mcmc, Steps = 0,
             SamplerMove = ParseMove(move),
         };
         var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;

@@ -31,7 +31,7 @@ public sealed record FitRequest
     /// <summary>Expected ranges for the evolution parameters.</summary>
     public IReadOnlyList<ExpectedRange> Expected { get; init; } = [];
     /// <summary>Posterior sampling after each fit: <c>none</c>, <c>mcmc</c> (Goodman–Weare ensemble) or <c>nested</c> (Skilling).</summary>
-    public string Sampler { get; init; } = "none";
+    public SamplerKind Sampler { get; init; } = SamplerKind.None;
     /// <summary>MCMC walkers.</summary>
     public int Walkers { get; init; } = 32;
     /// <summary>MCMC steps per walker; 0 (<c>--steps auto</c>, the default): run in blocks until the convergence rules

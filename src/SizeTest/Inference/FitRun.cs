@@ -15,7 +15,7 @@ public static class FitRun
     {
         ArgumentNullException.ThrowIfNull(request);
         if (request.Hypotheses.Count == 0) throw new ArgumentException("no world models to fit");
-        if (request.Sampler == "mcmc")
+        if (request.Sampler == SamplerKind.Mcmc)
             foreach (var h in request.Hypotheses.Where(h => h.K > 0))
                 Sampling.ChainMemory.Check(request.Walkers, request.Steps > 0 ? request.Steps : request.MaxSteps, h.K, request.ChainMemoryBudget);
         var backend = request.Backend ?? Evaluation.EvaluationBackend.InProcess(request.Observables);
@@ -55,7 +55,7 @@ public static class FitRun
             fit = refined.Best;
             var summary = refined.Summary;
             extraNotes.AddRange(refined.Notes);
-            if (request.Sampler != "none")
+            if (request.Sampler != SamplerKind.None)
             {
                 var (sampled, draws) = PosteriorSampling.Run(h, lik, lik.Posterior, fit, summary, request, unchecked(request.Seed + 31 * m), progress, cancel);
                 summary = ModelFitRefinement.MarkPosterior(sampled);
@@ -130,7 +130,7 @@ public static class FitRun
             Settings = new FitSettings(
                 first.Observable switch { ObservableKind.Size => "size", ObservableKind.SurfaceBrightness => "sb", _ => "joint" },
                 first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
-                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
+                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler.Name(), request.Walkers, request.Steps, request.LivePoints,
                 request.ProfileParameter, request.Expected, request.Seed),
             Models = ranked,
             BayesFactors = ModelComparison.BayesFactors(ranked),
@@ -147,7 +147,7 @@ public static class FitRun
     }
 
     /// <summary>The caveats FitRun adds to every study.</summary>
-    internal static List<string> StudyNotes(IReadOnlyList<Hypothesis> hypotheses, IReadOnlyList<ModelFitSummary> ranked, string sampler)
+    internal static List<string> StudyNotes(IReadOnlyList<Hypothesis> hypotheses, IReadOnlyList<ModelFitSummary> ranked, SamplerKind sampler)
     {
         var first = hypotheses[0].Nuisance;
         var notes = new List<string>();
@@ -161,8 +161,8 @@ public static class FitRun
         if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
         if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
         if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");
-        if (sampler == "mcmc") notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");
-        if (sampler == "nested") notes.Add("parameters are posterior medians with 16th–84th percentiles from nested sampling; Bayes factors use its evidences and depend on the prior bounds");
+        if (sampler == SamplerKind.Mcmc) notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");
+        if (sampler == SamplerKind.Nested) notes.Add("parameters are posterior medians with 16th–84th percentiles from nested sampling; Bayes factors use its evidences and depend on the prior bounds");
         return notes;
     }
 }

@@ -66,14 +66,14 @@ public static class PosteriorSampling
         var priors = h.FreeParameters.Select(p => p.Prior).ToArray();
         var names = h.FreeParameters.Select(p => p.Name).ToArray();
         int d = names.Length;
-        if (d == 0 || request.Sampler == "none") return (summary, null);
+        if (d == 0 || request.Sampler == SamplerKind.None) return (summary, null);
         string label = h.Label;
         Func<int, double> p16, p50, p84;
         bool converged;
         string verdict;
         double? lnZ = null, lnZErr = null;
         PosteriorDraws? samples = null;
-        if (request.Sampler == "mcmc")
+        if (request.Sampler == SamplerKind.Mcmc)
         {
             var scale = Enumerable.Range(0, d).Select(j =>
             {
@@ -131,7 +131,7 @@ public static class PosteriorSampling
                 run.AcceptanceFraction);
             samples = new PosteriorDraws(label, "mcmc", names, KeptDraws(run)) { Chain = chain };
         }
-        else if (request.Sampler == "nested")
+        else if (request.Sampler == SamplerKind.Nested)
         {
             var ns = new NestedSampler(likelihood, priors, new NestedSamplerOptions
             {
@@ -151,7 +151,7 @@ public static class PosteriorSampling
             samples = new PosteriorDraws(label, "nested", names,
                 ev.WeightedDraws.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
         }
-        else throw new ArgumentException($"unknown sampler '{request.Sampler}'; use none, mcmc or nested");
+        else throw new ArgumentException($"sampler {request.Sampler} is not run here");
 
         var parameters = summary.Parameters.Select(p =>
         {

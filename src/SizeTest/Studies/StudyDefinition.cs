@@ -52,7 +52,7 @@ public sealed record StudyDefinition
     public int CrossValidationFolds { get; init; }
     /// <summary>Sampler after each fit: <c>none</c> or <c>mcmc</c> (affine-invariant ensemble; every model is sampled
     /// once, and the best-ranked model's chain is the one plotted).</summary>
-    public string Sampler { get; init; } = "none";
+    public SamplerKind Sampler { get; init; } = SamplerKind.None;
     /// <summary>Ensemble steps per walker when <see cref="Sampler"/> is <c>mcmc</c>; 0 (<c>sampler_steps = "auto"</c>, the
     /// default): run to convergence, at most <see cref="SamplerMaxSteps"/>.</summary>
     public int SamplerSteps { get; init; }

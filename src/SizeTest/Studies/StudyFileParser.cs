@@ -182,11 +182,11 @@ public static class StudyFileParser
             ? (auto == "auto" ? 0 : throw stepsNode.Error("'inference.sampler_steps' must be \"auto\" or a whole number of steps per walker"))
             : inf?.Integer("sampler_steps") ?? 0;
         int maxSteps = inf?.Integer("sampler_max_steps") ?? Inference.Sampling.ChainMemory.DefaultMaxSteps, walkers = inf?.Integer("sampler_walkers") ?? 32;
-        string sampler = inf?.String("sampler") ?? "none";
+        string samplerName = inf?.String("sampler") ?? "none";
         if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
         if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
         if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
-        if (sampler is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
+        if (samplerName is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
         if (steps is > 0 and < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be \"auto\" or at least 100");
         if (maxSteps < 100) throw inf!.Get("sampler_max_steps")!.Error("'inference.sampler_max_steps' must be at least 100");
         if (walkers is < 4 or > 100_000) throw inf!.Get("sampler_walkers")!.Error("'inference.sampler_walkers' must be between 4 and 100000");
@@ -248,7 +248,7 @@ public static class StudyFileParser
             Starts = starts,
             Bootstrap = bootstrap,
             CrossValidationFolds = folds,
-            Sampler = sampler,
+            Sampler = SamplerKinds.Parse(samplerName),
             SamplerSteps = steps,
             SamplerMaxSteps = maxSteps,
             SamplerWalkers = walkers,

@@ -97,7 +97,7 @@ public static class StudyReportAdapter
         var parts = new List<string> { $"maximum likelihood ({s.Starts} optimiser start{(s.Starts == 1 ? "" : "s")} per model, Hessian 68% intervals)" };
         if (s.Bootstrap > 0) parts.Add($"{s.Bootstrap} bootstrap resamples per model");
         if (s.CrossValidationFolds > 0) parts.Add($"{s.CrossValidationFolds}-fold cross-validation");
-        if (s.Sampler == "mcmc") parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");
+        if (s.Sampler == SamplerKind.Mcmc) parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");
         parts.Add("models ranked by BIC");
         return string.Join("; ", parts);
     }

@@ -102,7 +102,7 @@ public static class StudyRunner
                 Walkers = study.SamplerWalkers,
                 Steps = study.SamplerSteps,
                 MaxSteps = study.SamplerMaxSteps,
-                ChainStoreFactory = study.Sampler == "mcmc" ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
+                ChainStoreFactory = study.Sampler == SamplerKind.Mcmc ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
             if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
             Stage("fit");

@@ -123,7 +123,7 @@ public sealed class DistributedFitStudyTests : IDisposable
             return FitRun.Run(new FitRequest
             {
                 Hypotheses = hs, Observables = local, Backend = backend, Source = "mock", Starts = 2,
-                CrossValidationFolds = 3, ProfileParameter = "size_evolution", Bootstrap = 2, Sampler = "mcmc", Walkers = 8, Steps = 200,
+                CrossValidationFolds = 3, ProfileParameter = "size_evolution", Bootstrap = 2, Sampler = SamplerKind.Mcmc, Walkers = 8, Steps = 200,
             });
         }
         string Numbers(FitResult r) => ResultsJson.Serialize(r with { Notes = [] });
