@@ -1,4 +1,5 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 

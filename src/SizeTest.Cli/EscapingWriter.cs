@@ -1,5 +1,5 @@
 using System.Text;
-using SizeTest.Common;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 

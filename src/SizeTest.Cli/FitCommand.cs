@@ -1,10 +1,12 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Photometry;
 
 namespace SizeTest.Cli;
@@ -22,7 +24,7 @@ internal static class FitCommand
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
         var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
-        var catalogOptions = new CatalogOptions();
+        var catalogOptions = new CatalogueOptions();
         var photometryOptions = new PhotometryCliOptions();
         var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
@@ -83,13 +85,13 @@ internal static class FitCommand
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
                 var surveyRequest = surveyOptions.Request(parse);
                 var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
-                bool surveyAsked = surveyRequest with { Pivot = null, IgnoreZErr = false } != SizeTest.Inference.Survey.SurveyRequest.None || parse.GetValue(surveyOptions.Group) is not null;
+                bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
                 if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
                 if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
                 if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
                 if (nStarts < 1) throw new InputException("--starts must be at least 1");
-                string samplerName = parse.GetValue(sampler) ?? "none";
+                var samplerName = SamplerKinds.Parse(parse.GetValue(sampler) ?? "none");
                 int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
                 int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
                 if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
@@ -97,7 +99,7 @@ internal static class FitCommand
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
                 FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
-                if (samplerName == "mcmc")
+                if (samplerName == SamplerKind.Mcmc)
                     foreach (var h in hypotheses.Where(h => h.K > 0))
                         SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
                 var inputs = new List<string> { parse.GetValue(catalog)! };
@@ -109,25 +111,11 @@ internal static class FitCommand
                     throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
                 string? profileName = parse.GetValue(profile);
                 // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
-                Func<Observables, SurveyBinding> survey = obs =>
+                Func<Observables, SurveyBinding> survey = obs => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
                 {
-                    var notes = new List<string>();
-                    var model = surveyRequest.Build(obs, kind, notes);
-                    var hs = hypotheses;
-                    if ((model.IsActive || surveyAsked) && obs.Count > 0)
-                    {
-                        var nm = nuisance with { Survey = model };
-                        nm.Validate();
-                        CheckNames(overrides, expected, families, nm, profileName);
-                        hs = families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
-                        foreach (var h in hs)
-                            foreach (var note in h.Bind(obs).SurveyNotes)
-                                if (!notes.Contains(note)) notes.Add(note);
-                    }
-                    string? warning = kind != ObservableKind.SurfaceBrightness ? SizeTest.Inference.Survey.SizeErrorCheck.LargeErrorWarning(obs, model.SizeErrors) : null;
-                    if (warning is not null) notes.Add("warning: " + warning);
-                    return new SurveyBinding(hs, notes, warning);
-                };
+                    CheckNames(overrides, expected, families, nm, profileName);
+                    return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+                });
                 return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = SizeTest.Distributed.RankContext.IsDistributed ? null : survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)

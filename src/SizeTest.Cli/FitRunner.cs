@@ -1,18 +1,22 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
+using SizeTest.Foundation.Text;
 using SizeTest.Distributed;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
 using SizeTest.Studies;
+using SizeTest.Foundation.Profiling;
 
 namespace SizeTest.Cli;
 
 /// <summary>What <c>sizetest fit</c> parsed.</summary>
 internal sealed record FitArgs(
-    string CatalogPath, CatalogLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
+    string CataloguePath, CatalogueLoadOptions LoadOptions, string OutputPath, bool Force, string? Format,
     IReadOnlyList<Hypothesis> Hypotheses, int Seed, int Starts, int Bootstrap, int CrossValidationFolds, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, string Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
+    IReadOnlyList<ExpectedRange> Expected, SamplerKind Sampler, int Walkers, int Steps, int MaxSteps, int LivePoints, PhotometryOptions Photometry)
 {
     /// <summary>--cv-folds was given on the command line (then above the sample size it is refused, not capped).</summary>
     public bool CvFoldsExplicit { get; init; }
@@ -24,13 +28,11 @@ internal sealed record FitArgs(
     public Func<Observables, SurveyBinding>? Survey { get; init; }
 }
 
-/// <summary>The hypotheses with their survey terms for a loaded sample, the notes for the results and a warning to print.</summary>
-internal sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOnlyList<string> Notes, string? Warning);
 
 /// <summary>
 /// <c>sizetest fit …</c> as one process or as <c>mpirun -np N sizetest fit …</c>, on one code path: every process loads
-/// its share of the catalogue (<see cref="CatalogShare"/>; one process: all of it), the processes run
-/// <see cref="FitStudy"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
+/// its share of the catalogue (<see cref="CatalogueShare"/>; one process: all of it), the processes run
+/// <see cref="FitRun"/> together on one <see cref="EvaluationBackend"/> (threads over chunks of rows, or ranks), and
 /// rank 0 alone writes the output folder through <see cref="StudyOutputFiles"/> (the writer <c>sizetest run</c> uses)
 /// and prints. A failure before the fit (output folder, catalogue) is agreed between the ranks so all exit with the same
 /// code and one rank prints it; a failure during the fit aborts all ranks.
@@ -39,6 +41,7 @@ internal static class FitRunner
 {
     public static int Run(CliContext context, FitArgs a)
     {
+        var timings = StageTimings.Requested ? new StageTimings() : null;
         var ranks = RankContext.Start(); // throws InputException for a wrong launcher (exit 2)
         bool root = ranks.IsRoot;
 
@@ -46,14 +49,15 @@ internal static class FitRunner
         int code = Agree(context, ranks, () => { if (root) folder = OutputFolder.Begin(a.OutputPath, a.Force, a.Inputs); });
         if (code != 0) return code;
 
-        CatalogShare? share = null;
+        CatalogueShare? share = null;
         PhotometryResult? built = null;
         SelectionSplit? split = null;
         SurveyBinding? survey = null;
         code = Agree(context, ranks, () =>
         {
-            share = CatalogShare.Load(a.CatalogPath, a.LoadOptions, ranks.Rank, ranks.Size);
+            share = CatalogueShare.Load(a.CataloguePath, a.LoadOptions, ranks.Rank, ranks.Size);
             if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + w);
+            timings?.Mark("read catalogue");
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
             // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
             var nuisance = a.Hypotheses[0].Nuisance;
@@ -81,6 +85,7 @@ internal static class FitRunner
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
                 foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
+            timings?.Mark("observables and selection");
         });
         if (code != 0)
         {
@@ -99,7 +104,7 @@ internal static class FitRunner
             try
             {
                 var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
-                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CatalogPath);
+                selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CataloguePath);
                 if (root) context.Err.WriteLine($"sizetest: warning: {TerminalText.Escape(selectionWarning)}");
             }
             catch (InputException e)
@@ -114,14 +119,14 @@ internal static class FitRunner
             var totals = share!.Combine(ranks);
             var local = built!.Observables;
             if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
-                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CatalogPath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
+                throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CataloguePath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");
             var backend = new EvaluationBackend(ranks, local, share.Local.SourceRows, share.ChunkKeys);
             var request = new FitRequest
             {
                 Hypotheses = a.Hypotheses,
                 Observables = local,
                 Backend = backend,
-                Source = a.CatalogPath,
+                Source = a.CataloguePath,
                 RowsRead = totals.RowsRead,
                 Rejected = totals.Rejected,
                 Seed = a.Seed,
@@ -135,21 +140,30 @@ internal static class FitRunner
                 Steps = a.Steps,
                 MaxSteps = a.MaxSteps,
                 LivePoints = a.LivePoints,
-                ChainStoreFactory = root && a.Sampler == "mcmc" ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+                ChainStoreFactory = root && a.Sampler == SamplerKind.Mcmc ? label => new SizeTest.Inference.Sampling.CsvChainStore(folder!.PathOf($"chains_{label}.csv")) : null,
+                Timings = timings,
             };
-            var result = FitStudy.Run(request, root ? new FitProgressReporter(context) : null);
+            var result = FitRun.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
             result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c), .. result.Notes] };
 
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();
             folder = null;
+            timings?.Mark("write outputs");
 
             switch (a.Format)
             {
                 case "json": context.Out.Write(ResultsJson.Serialize(result)); break;
                 case "csv": context.Out.Write(FitTables.Csv(result)); break;
                 default: FitTables.WriteTable(context.Out, result); break;
+            }
+            if (timings is not null)
+            {
+                timings.Mark("print");
+                foreach (var (stage, wall, cpu) in timings.Entries)
+                    context.Err.WriteLine(FormattableString.Invariant($"sizetest timing: {stage,-40} wall {wall,7:F3} s  cpu {cpu,7:F3} s"));
+                context.Err.WriteLine(FormattableString.Invariant($"sizetest timing: since process start                    wall {(DateTime.Now - System.Diagnostics.Process.GetCurrentProcess().StartTime).TotalSeconds,7:F3} s  cpu {System.Diagnostics.Process.GetCurrentProcess().TotalProcessorTime.TotalSeconds,7:F3} s"));
             }
             if (!result.AllConverged)
             {

@@ -1,12 +1,12 @@
 using System.Globalization;
 using System.Text;
-using SizeTest.Common;
+using SizeTest.Foundation.Text;
 using SizeTest.Inference;
 using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Cli;
 
-/// <summary>Text renderings of a <see cref="StudyResult"/>: the ranked table for people and results.csv.</summary>
+/// <summary>Text renderings of a <see cref="FitResult"/>: the ranked table for people and results.csv.</summary>
 internal static class FitTables
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
@@ -14,7 +14,7 @@ internal static class FitTables
     private static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : "";
 
     /// <summary>results.csv: one row per (model, parameter), models in rank order (the one writer, shared with <c>run</c>).</summary>
-    public static string Csv(StudyResult r) => SizeTest.Studies.StudyResultsCsv.Write(r);
+    public static string Csv(FitResult r) => SizeTest.Studies.StudyResultsCsv.Write(r);
 
     /// <summary>A profile curve as CSV.</summary>
     public static string ProfileCsv(ProfileLikelihoodResult p) => SizeTest.Studies.StudyOutputFiles.ProfileCsv(p);
@@ -29,7 +29,7 @@ internal static class FitTables
         + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
 
     /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>
-    public static void WriteVerdict(TextWriter o, StudyResult r)
+    public static void WriteVerdict(TextWriter o, FitResult r)
     {
         var v = r.Verdict;
         o.WriteLine($"verdict: {DecisionSummary.Headline(v)} [best: {v.Best ?? "none"}; decided: {(v.Decided ? "yes" : "no")}; strength: {v.Strength}]");
@@ -40,7 +40,7 @@ internal static class FitTables
     }
 
     /// <summary>The ranked table and the statements under it.</summary>
-    public static void WriteTable(TextWriter o, StudyResult r)
+    public static void WriteTable(TextWriter o, FitResult r)
     {
         o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable}; seed {r.Seed}");
         o.WriteLine();

@@ -2,8 +2,8 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Cli;
@@ -18,7 +18,7 @@ internal static class InspectCommand
     public static Command Create(CliContext context)
     {
         var catalog = new Argument<string>("catalog") { Description = "The catalogue file (CSV/TSV/text, FITS binary table or VOTable)." };
-        var cat = new CatalogOptions();
+        var cat = new CatalogueOptions();
         var phot = new PhotometryCliOptions();
         var format = CliOptions.Format();
         var rejectLog = new Option<string?>("--reject-log") { Description = "Write the rejected rows (row,column,value,reason,detail) to this CSV file." };
@@ -42,7 +42,7 @@ internal static class InspectCommand
                 var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
                 var photText = phot.ToText(parse);
                 var photometry = phot.ToOptions(parse);
-                var load = CatalogLoader.Load(path, options);
+                var load = CatalogueLoader.Load(path, options);
                 var corrections = Corrections(load, photometry, photText);
                 if (context.IsInteractive && load.RowsRead >= 1_000_000) context.Err.WriteLine();
                 if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
@@ -65,12 +65,12 @@ internal static class InspectCommand
     // The corrections the photometry stage will apply (what fit uses). Without photometry options a catalogue the
     // stage cannot handle (e.g. isophotal sizes without --sersic-n) is still inspected, and the problem is listed;
     // with options given, the problem is an input error.
-    private static IReadOnlyList<string> Corrections(SampleLoad load, PhotometryOptions photometry, PhotometryOptionText given)
+    private static IReadOnlyList<string> Corrections(CatalogueLoad load, PhotometryOptions photometry, PhotometryOptionText given)
     {
         if (load.Accepted == 0) return ["none: no accepted rows"];
         try
         {
-            return ObservablesBuilder.Build(load.Sample, photometry).Corrections;
+            return ObservablesBuilder.Build(load.Rows, photometry).Corrections;
         }
         catch (InputException ex) when (given == new PhotometryOptionText())
         {
@@ -87,15 +87,15 @@ internal static class InspectCommand
 
     private static string F(double v) => double.IsNaN(v) ? "" : v.ToString("G6", CultureInfo.InvariantCulture);
 
-    private static string FormatName(SampleLoad load) => load.Format switch
+    private static string FormatName(CatalogueLoad load) => load.Format switch
     {
-        CatalogFormat.Fits => "FITS binary table",
-        CatalogFormat.VoTable => "VOTable",
-        CatalogFormat.Parquet => "Parquet",
+        CatalogueFormat.Fits => "FITS binary table",
+        CatalogueFormat.VoTable => "VOTable",
+        CatalogueFormat.Parquet => "Parquet",
         _ => "delimited text",
     };
 
-    private static void WriteTable(TextWriter raw, string path, SampleLoad load, string? logPath, IReadOnlyList<string> corrections)
+    private static void WriteTable(TextWriter raw, string path, CatalogueLoad load, string? logPath, IReadOnlyList<string> corrections)
     {
         var o = new EscapingWriter(raw); // names, units and cells come from the user's file
         o.WriteLine($"catalogue: {path}");
@@ -138,7 +138,7 @@ internal static class InspectCommand
         foreach (var r in rows) o.WriteLine(Line(r));
     }
 
-    private static void WriteCsv(TextWriter o, SampleLoad load)
+    private static void WriteCsv(TextWriter o, CatalogueLoad load)
     {
         o.WriteLine("role,column,unit,count,null_count,min,median,max");
         foreach (var s in load.Statistics())
@@ -149,7 +149,7 @@ internal static class InspectCommand
 
     private static string R(double v) => double.IsNaN(v) ? "" : v.ToString("R", CultureInfo.InvariantCulture);
 
-    private static void WriteJson(TextWriter o, string path, SampleLoad load, IReadOnlyList<string> corrections)
+    private static void WriteJson(TextWriter o, string path, CatalogueLoad load, IReadOnlyList<string> corrections)
     {
         using var ms = new MemoryStream();
         using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
@@ -157,7 +157,7 @@ internal static class InspectCommand
             void Num(string name, double v) { if (double.IsFinite(v)) w.WriteNumber(name, v); else w.WriteNull(name); }
             w.WriteStartObject();
             w.WriteString("file", path);
-            w.WriteString("format", load.Format switch { CatalogFormat.Fits => "fits", CatalogFormat.VoTable => "votable", CatalogFormat.Parquet => "parquet", _ => "text" });
+            w.WriteString("format", load.Format switch { CatalogueFormat.Fits => "fits", CatalogueFormat.VoTable => "votable", CatalogueFormat.Parquet => "parquet", _ => "text" });
             if (load.Table is null) w.WriteNull("table"); else w.WriteString("table", load.Table);
             w.WriteStartArray("layout");
             foreach (var n in load.LayoutNotes) w.WriteStringValue(n);

@@ -1,5 +1,5 @@
 using System.Runtime.InteropServices;
-using SizeTest.Common;
+using SizeTest.Foundation.Files;
 
 namespace SizeTest.Cli;
 

@@ -1,5 +1,5 @@
 using System.CommandLine;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Cli;

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Simulation;

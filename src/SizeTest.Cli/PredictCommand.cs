@@ -2,7 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 
 namespace SizeTest.Cli;

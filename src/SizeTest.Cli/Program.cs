@@ -1,5 +1,5 @@
 using System.CommandLine;
-using SizeTest.Common;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -48,7 +48,7 @@ public static class Program
             var known = word.StartsWith('-')
                 ? command.Options.SelectMany(o => o.Aliases.Prepend(o.Name))
                 : command.Subcommands.Where(c => !c.Hidden).Select(c => c.Name);
-            string hint = SizeTest.Common.NameSuggestions.Hint(word, known);
+            string hint = SizeTest.Foundation.Text.NameSuggestions.Hint(word, known);
             if (hint.Length > 0) return hint;
         }
         return "";

@@ -1,7 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text.Json;
-using SizeTest.Catalogs;
+using SizeTest.Catalogues;
 using SizeTest.Cosmology;
 using SizeTest.Distributed;
 using SizeTest.Inference;

@@ -1,5 +1,5 @@
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Simulation;
 
 namespace SizeTest.Cli;

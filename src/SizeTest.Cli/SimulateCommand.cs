@@ -1,9 +1,10 @@
 using System.CommandLine;
-using SizeTest.Catalogs;
-using SizeTest.Catalogs.Fits;
-using SizeTest.Catalogs.Text;
-using SizeTest.Catalogs.VoTable;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Catalogues.Fits;
+using SizeTest.Catalogues.Text;
+using SizeTest.Catalogues.VoTable;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Simulation;
 
 namespace SizeTest.Cli;
@@ -81,7 +82,7 @@ internal static class SimulateCommand
         _ => throw new InputException("--out must end in .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet to choose the format", path),
     };
 
-    private static void Write(MockCatalog catalog, string path, OutputFormat format)
+    private static void Write(MockCatalogue catalog, string path, OutputFormat format)
     {
         bool radio = catalog.Spec.Design.Kind == MockObjectKind.CompactRadio;
         string name = radio ? "MOCK_RADIO" : "MOCK_GALAXIES";
@@ -92,8 +93,8 @@ internal static class SimulateCommand
                 break;
             case OutputFormat.Parquet:
                 // Uncompressed, set explicitly: the fastest to read (docs/scaling.md); angles in arcsec (the default unit).
-                SizeTest.Catalogs.Parquet.ParquetTableWriter.Write(path, ParquetColumns(catalog.ToTable(name)),
-                    compression: SizeTest.Catalogs.Parquet.ParquetCompression.None);
+                SizeTest.Catalogues.Parquet.ParquetTableWriter.Write(path, ParquetColumns(catalog.ToTable(name)),
+                    compression: SizeTest.Catalogues.Parquet.ParquetCompression.None);
                 break;
             case OutputFormat.Fits:
                 FitsTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio));
@@ -104,8 +105,8 @@ internal static class SimulateCommand
         }
     }
 
-    private static List<SizeTest.Catalogs.Parquet.ParquetColumnValues> ParquetColumns(CatalogTable table) =>
+    private static List<SizeTest.Catalogues.Parquet.ParquetColumnValues> ParquetColumns(CatalogueTable table) =>
         table.Columns.Select(c => c.Texts is { } t
-            ? SizeTest.Catalogs.Parquet.ParquetColumnValues.Text(c.Name, t)
-            : SizeTest.Catalogs.Parquet.ParquetColumnValues.Number(c.Name, c.Reals ?? c.Integers!.Select(v => (double)v).ToArray())).ToList();
+            ? SizeTest.Catalogues.Parquet.ParquetColumnValues.Text(c.Name, t)
+            : SizeTest.Catalogues.Parquet.ParquetColumnValues.Number(c.Name, c.Reals ?? c.Integers!.Select(v => (double)v).ToArray())).ToList();
 }

@@ -1,6 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Studies;
 
 namespace SizeTest.Cli;

@@ -28,7 +28,7 @@ public class FitBenchmarks
     {
         var nm = new NuisanceModel(ObservableKind.Size);
         var hs = new[] { "lcdm", "eds", "static-linear", "tired-light" }.Select(n => Hypothesis.Create(BenchData.Get(n), nm)).ToArray();
-        var r = FitStudy.Run(new FitRequest { Hypotheses = hs, Observables = _obs, Bootstrap = bootstrap, Seed = 3 });
+        var r = FitRun.Run(new FitRequest { Hypotheses = hs, Observables = _obs, Bootstrap = bootstrap, Seed = 3 });
         return r.Models.Count;
     }
 }

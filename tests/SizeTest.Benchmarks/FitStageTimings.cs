@@ -7,7 +7,7 @@ namespace SizeTest.Benchmarks;
 
 /// <summary>
 /// Quick CPU-time harness for the fit's stages (<c>-- --fit-stages N</c>): one ln L and one ln L + gradient, the multi-start
-/// L-BFGS-B fit with its Hessian, the mode search/interval refinement and the whole <see cref="FitStudy"/> for flat ΛCDM with
+/// L-BFGS-B fit with its Hessian, the mode search/interval refinement and the whole <see cref="FitRun"/> for flat ΛCDM with
 /// Ωm free + static-linear, sizes, no cross-validation. Process CPU time (the shared machine's wall time is not meaningful).
 /// </summary>
 public static class FitStageTimings
@@ -59,7 +59,7 @@ public static class FitStageTimings
         output.WriteLine($"  {fit.Evaluations} evaluations");
         var fl = MaximumLikelihood.Fit(lik);
         Time("refinement lcdm (mode scan, intervals)", 1, () => ModelFitRefinement.Run(lik, obs, fl));
-        Time("FitStudy lcdm + static-linear, no CV", 1, () => FitStudy.Run(new FitRequest { Hypotheses = [lcdm, stat], Observables = obs }));
+        Time("FitRun lcdm + static-linear, no CV", 1, () => FitRun.Run(new FitRequest { Hypotheses = [lcdm, stat], Observables = obs }));
     }
 }
 

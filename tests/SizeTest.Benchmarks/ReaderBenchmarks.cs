@@ -1,7 +1,7 @@
 using BenchmarkDotNet.Attributes;
-using SizeTest.Catalogs;
-using SizeTest.Catalogs.Fits;
-using SizeTest.Catalogs.Text;
+using SizeTest.Catalogues;
+using SizeTest.Catalogues.Fits;
+using SizeTest.Catalogues.Text;
 
 namespace SizeTest.Benchmarks;
 
@@ -23,7 +23,7 @@ public class ReaderBenchmarks
         _dir = Directory.CreateTempSubdirectory("sizetest-bench-").FullName;
         var rng = new Random(20261201);
         double[] Col(double lo, double hi) => Enumerable.Range(0, Rows).Select(_ => Math.Round(lo + (hi - lo) * rng.NextDouble(), 5)).ToArray();
-        var t = new CatalogTable("BENCH").AddReal("z", Col(0.01, 3)).AddReal("z_err", Col(0.001, 0.05)).AddReal("theta", Col(0.05, 2))
+        var t = new CatalogueTable("BENCH").AddReal("z", Col(0.01, 3)).AddReal("z_err", Col(0.001, 0.05)).AddReal("theta", Col(0.05, 2))
             .AddReal("theta_err", Col(0.001, 0.02)).AddReal("mu", Col(18, 26)).AddReal("mu_err", Col(0.02, 0.2));
         CsvTableWriter.Write(Path.Combine(_dir, "b.csv"), t);
         FitsTableWriter.Write(Path.Combine(_dir, "b.fits"), t);
@@ -33,8 +33,8 @@ public class ReaderBenchmarks
     public void Cleanup() => Directory.Delete(_dir, true);
 
     [Benchmark]
-    public int LoadCsv() => CatalogLoader.Load(Path.Combine(_dir, "b.csv")).Accepted;
+    public int LoadCsv() => CatalogueLoader.Load(Path.Combine(_dir, "b.csv")).Accepted;
 
     [Benchmark]
-    public int LoadFits() => CatalogLoader.Load(Path.Combine(_dir, "b.fits")).Accepted;
+    public int LoadFits() => CatalogueLoader.Load(Path.Combine(_dir, "b.fits")).Accepted;
 }

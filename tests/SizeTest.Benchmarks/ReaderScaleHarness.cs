@@ -1,8 +1,8 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Text;
-using SizeTest.Catalogs;
-using SizeTest.Catalogs.Fits;
+using SizeTest.Catalogues;
+using SizeTest.Catalogues.Fits;
 
 namespace SizeTest.Benchmarks;
 
@@ -58,7 +58,7 @@ public static class ReaderScaleHarness
         }
         Console.WriteLine($"wrote scale.csv in {sw.Elapsed.TotalSeconds:F1} s");
         sw.Restart();
-        var table = new CatalogTable("SCALE").AddReal("z", z).AddReal("z_err", ze).AddReal("theta", th, "arcsec")
+        var table = new CatalogueTable("SCALE").AddReal("z", z).AddReal("z_err", ze).AddReal("theta", th, "arcsec")
             .AddReal("theta_err", te, "arcsec").AddReal("mu", mu, "mag.arcsec-2").AddReal("mu_err", me, "mag.arcsec-2");
         FitsTableWriter.Write(Path.Combine(dir, "scale.fits"), table);
         Console.WriteLine($"wrote scale.fits in {sw.Elapsed.TotalSeconds:F1} s");
@@ -73,7 +73,7 @@ public static class ReaderScaleHarness
         long allocBefore = GC.GetTotalAllocatedBytes(true);
         var cpuBefore = proc.TotalProcessorTime;
         var sw = Stopwatch.StartNew();
-        var load = CatalogLoader.Load(path);
+        var load = CatalogueLoader.Load(path);
         sw.Stop();
         long allocated = GC.GetTotalAllocatedBytes(true) - allocBefore;
         proc.Refresh();

@@ -167,7 +167,7 @@ public abstract class FlrwModel : IWorldModel
     public double TolmanDimmingMagnitudes(double z) => TolmanDimming.Magnitudes(BolometricDimmingExponent, z);
 
     /// <inheritdoc/>
-    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
+    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian;
 
     /// <inheritdoc/>
     public double LookbackTime(double z)

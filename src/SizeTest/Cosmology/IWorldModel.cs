@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Angles;
+
 namespace SizeTest.Cosmology;
 
 /// <summary>
@@ -65,7 +67,7 @@ public interface IWorldModel
     /// at redshift z, small-angle θ = ℓ/D_A (static models: D_A = d). +∞ where D_A = 0 (z = 0 in FLRW).
     /// </summary>
     double AngularSizeArcsec(double z, double sizeKpc)
-        => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
+        => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian;
 }
 
 /// <summary>The distance-like quantities a world model may define.</summary>

@@ -102,7 +102,7 @@ public sealed class StaticEuclideanModel : IWorldModel
     public double TolmanDimmingMagnitudes(double z) => TolmanDimming.Magnitudes(BolometricDimmingExponent, z);
 
     /// <inheritdoc/>
-    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Common.Units.ArcsecPerRadian;
+    public double AngularSizeArcsec(double z, double sizeKpc) => sizeKpc / 1000.0 / AngularDiameterDistance(z) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian;
 
     /// <summary>Not defined in a static model: NaN (after checking z).</summary>
     public double TransverseComovingDistance(double z)

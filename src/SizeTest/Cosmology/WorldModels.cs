@@ -98,7 +98,7 @@ public static class WorldModels
     /// <summary>Looks up a family; unknown names throw <see cref="ArgumentException"/> listing the known ones.</summary>
     public static IWorldModelFamily Get(string name)
         => TryGet(name, out var family) ? family
-            : throw new ArgumentException($"Unknown world model '{name}'{Common.NameSuggestions.Hint(name, Names)}; known models are {string.Join(", ", Names)}.");
+            : throw new ArgumentException($"Unknown world model '{name}'{SizeTest.Foundation.Text.NameSuggestions.Hint(name, Names)}; known models are {string.Join(", ", Names)}.");
 
     private static IWorldModel? CreateStatic(StaticDistanceLaw law, ReadOnlySpan<double> v, out string? error)
     {

@@ -1,4 +1,5 @@
 using SizeTest.Photometry;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Inference;
 
@@ -37,6 +38,9 @@ public static class CrossValidation
     public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int folds, int seed, double[]? start = null) =>
         Run(hypothesis, observables, AssignFolds(observables?.Count ?? 0, folds, seed), folds, start);
 
+    /// <summary>From this many objects the folds of one process run one after another (memory: one fold's training copy at a time).</summary>
+    public const int SequentialFoldsFrom = 100_000;
+
     /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on a given fold assignment, in this process.</summary>
     public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int[] foldOf, int folds, double[]? start = null)
     {
@@ -60,7 +64,14 @@ public static class CrossValidation
         start ??= backend.SuggestStart(hypothesis);
         var sums = new double[folds];
         var failed = new bool[folds];
-        backend.ForEach(folds, f =>
+        // Folds run concurrently in one process, except for large samples: each fold binds its own copy of the training rows,
+        // so there they run one after another (each evaluation is still split over threads by chunks), which bounds memory.
+        void Each(Action<int> body)
+        {
+            if (backend.Concurrent && n >= SequentialFoldsFrom) for (int f = 0; f < folds; f++) body(f);
+            else backend.ForEach(folds, body);
+        }
+        Each(f =>
         {
             var train = Array.ConvertAll(local, k => k != f ? 1 : 0);
             var test = Array.ConvertAll(local, k => k == f ? 1 : 0);

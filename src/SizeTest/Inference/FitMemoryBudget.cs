@@ -1,4 +1,5 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 
 namespace SizeTest.Inference;
 
@@ -17,19 +18,19 @@ public static class FitMemoryBudget
 {
     /// <summary>Refuses (an <see cref="InputException"/>, exit 2, with the estimate) settings whose structures would not fit.</summary>
     /// <param name="hypotheses">The models to fit (k is the largest number of free parameters).</param>
-    /// <param name="sampler">"mcmc", "nested" or "none".</param>
+    /// <param name="sampler">The sampler that will run.</param>
     /// <param name="walkers">Ensemble walkers.</param>
     /// <param name="steps">Steps per walker (the most that will be run).</param>
     /// <param name="livePoints">Nested-sampling live points.</param>
     /// <param name="bootstrap">Bootstrap resamples.</param>
     /// <param name="starts">Optimiser starts.</param>
     /// <param name="limitBytes">The user's memory limit, or null.</param>
-    public static void Check(IReadOnlyList<Hypothesis> hypotheses, string sampler, int walkers, int steps, int livePoints, int bootstrap, int starts, long? limitBytes)
+    public static void Check(IReadOnlyList<Hypothesis> hypotheses, SamplerKind sampler, int walkers, int steps, int livePoints, int bootstrap, int starts, long? limitBytes)
     {
         ArgumentNullException.ThrowIfNull(hypotheses);
         double k = hypotheses.Count == 0 ? 1 : hypotheses.Max(h => h.K), models = hypotheses.Count;
-        if (sampler == "mcmc") ResourceBudget.Check($"the MCMC chains ({walkers} walkers × {steps} steps × {k} parameters × {models} models)", 2.0 * 8 * walkers * (double)steps * (k + 1) * models, limitBytes);
-        if (sampler == "nested") ResourceBudget.Check($"nested sampling ({livePoints} live points)", 8.0 * 64 * livePoints * (k + 1) * models, limitBytes);
+        if (sampler == SamplerKind.Mcmc) ResourceBudget.Check($"the MCMC chains ({walkers} walkers × {steps} steps × {k} parameters × {models} models)", 2.0 * 8 * walkers * (double)steps * (k + 1) * models, limitBytes);
+        if (sampler == SamplerKind.Nested) ResourceBudget.Check($"nested sampling ({livePoints} live points)", 8.0 * 64 * livePoints * (k + 1) * models, limitBytes);
         ResourceBudget.Check($"the bootstrap ({bootstrap} resamples)", 8.0 * bootstrap * (k + 4) * models, limitBytes);
         ResourceBudget.Check($"the optimiser starts ({starts} starts)", 8.0 * 24 * starts * (k + 1) * models, limitBytes);
     }

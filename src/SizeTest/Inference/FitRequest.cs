@@ -31,7 +31,7 @@ public sealed record FitRequest
     /// <summary>Expected ranges for the evolution parameters.</summary>
     public IReadOnlyList<ExpectedRange> Expected { get; init; } = [];
     /// <summary>Posterior sampling after each fit: <c>none</c>, <c>mcmc</c> (Goodman–Weare ensemble) or <c>nested</c> (Skilling).</summary>
-    public string Sampler { get; init; } = "none";
+    public SamplerKind Sampler { get; init; } = SamplerKind.None;
     /// <summary>MCMC walkers.</summary>
     public int Walkers { get; init; } = 32;
     /// <summary>MCMC steps per walker; 0 (<c>--steps auto</c>, the default): run in blocks until the convergence rules
@@ -44,11 +44,15 @@ public sealed record FitRequest
     /// <summary>Where the likelihood sums are evaluated (threads, or MPI ranks over row slices); null: threads in this
     /// process over <see cref="Observables"/>. Under MPI, <see cref="Observables"/> is this rank's share.</summary>
     public Evaluation.EvaluationBackend? Backend { get; init; }
+    /// <summary>MCMC proposal; null for <see cref="Sampling.MixtureMove.Default"/> (kernel-density + differential evolution + stretch).</summary>
+    public Sampling.IEnsembleMove? SamplerMove { get; init; }
     /// <summary>Nested-sampling live points.</summary>
     public int LivePoints { get; init; } = 400;
     /// <summary>Makes a chain store for a model's MCMC chain (e.g. a CSV file), or null to keep it in memory only.
     /// Stores that are <see cref="IDisposable"/> are disposed after the run.</summary>
     public Func<string, Sampling.IChainStore?>? ChainStoreFactory { get; init; }
+    /// <summary>When set, each model's stages (fit, mode search and intervals, evolution tests, bootstrap, CV) are marked on it.</summary>
+    public SizeTest.Foundation.Profiling.StageTimings? Timings { get; init; }
 }
 
 /// <summary>Progress of a study: a stage name and how far it is.</summary>

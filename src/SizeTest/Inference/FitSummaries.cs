@@ -1,3 +1,5 @@
+using SizeTest.Inference.Comparison;
+
 namespace SizeTest.Inference;
 
 /// <summary>Turns a maximum-likelihood fit into the reported <see cref="ModelFitSummary"/>.</summary>

@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference.Likelihood;
 using SizeTest.Photometry;
@@ -29,7 +29,7 @@ namespace SizeTest.Inference;
 /// <para>Selection: each density is divided by the probability of passing the cuts at the object's redshift,
 /// Φ of the standardised limit (one cut) or the bivariate Φ₂ (two cuts; Genz 2004) [truncated Gaussian,
 /// common practice]. The magnitude is m = μ − 5 log10(θ/″) − 2.5 log10(2π).</para>
-/// <para>Isophotal sizes (<see cref="Observables.SizeDefinition"/> of kind <see cref="Catalogs.SizeKind.Isophotal"/>; joint
+/// <para>Isophotal sizes (<see cref="Observables.SizeDefinition"/> of kind <see cref="Catalogues.SizeKind.Isophotal"/>; joint
 /// only): the mean ln θ becomes ln θ_iso = ln[R0 (1+z)^a / D_A] + ln(r_iso/R_e) with r_iso/R_e from
 /// <see cref="IsophotalSize"/> for the Sérsic index <see cref="Observables.SersicIndex"/>, the isophote
 /// <see cref="Observables.Isophote"/> and the model's mean observed SB at R_e, μ_e,obs = μ0 + 2.5 (n − b) log10(1+z)
@@ -70,7 +70,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         if (_n == 0) throw new InputException("the sample has no accepted objects to fit");
         bool size = kind != ObservableKind.SurfaceBrightness, sb = kind != ObservableKind.Size;
         _cols = new ObjectColumns(observables, size, sb);
-        if (size && observables.SizeDefinition.Kind == Catalogs.SizeKind.Isophotal)
+        if (size && observables.SizeDefinition.Kind == Catalogues.SizeKind.Isophotal)
         {
             if (kind != ObservableKind.Joint)
                 throw new InputException("the sizes are isophotal: fit them with --observable joint, which predicts each object's isophotal radius from the surface-brightness model (mu0, sb_evolution; hold them with --fix if they are known)");
@@ -121,11 +121,12 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);
         _lnPivot = parent._lnPivot;
-        _distances = new DistanceTerms(hypothesis, _layout, parent._distances);
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
+        bool size = hypothesis.Nuisance.Observable == ObservableKind.Size;
+        _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ, perObject: !(size && SizeKernel.UsesGrams(_cols, cut)));
         _kernel = hypothesis.Nuisance.Observable switch
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut),
+            ObservableKind.Size => new SizeKernel(_cols, _distances, cut, (parent._kernel as SizeKernel)?.Grams),
             ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
             _ => new JointKernel(_cols, _distances, cut, _isophotal),
         };
@@ -146,6 +147,9 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
     // weights, luminosity window): the size kernel when any is active.
     private readonly Survey.SurveySizeLikelihood? _survey;
+
+    /// <summary>Whether survey terms are active (then <see cref="WithFixed"/> is not available).</summary>
+    public bool HasSurveyTerms => _survey is not null;
 
     /// <summary>Notes on the survey terms applied (empty when none).</summary>
     public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];

@@ -74,7 +74,7 @@ public static class IntervalAssessment
             bool must = atBound is not null || !hasSe || affected;
             if (!must && QuadraticScreenPasses(likelihood, best, j, top)) continue;
 
-            var refit = new ProfileRefit(backend, h, p.Name);
+            var refit = new ProfileRefit(backend, likelihood, p.Name) { Covariance = best.Covariance };
             var samples = new List<ProfileSample> { new(v, top, best.LogLikelihood, best.Theta, best.Converged) };
             foreach (var m in search.Modes.Skip(1)) samples.Add(new ProfileSample(m.Theta[j], ModeSearch.Objective(h, m), m.LogLikelihood, m.Theta, m.Converged));
             if (search.Scans.TryGetValue(p.Name, out var scan)) samples.AddRange(scan.Where(s => double.IsFinite(s.Objective)));

@@ -8,11 +8,11 @@ namespace SizeTest.Inference;
 /// </summary>
 public sealed class LikelihoodEvaluation
 {
-    internal LikelihoodEvaluation(double[] theta, double[] values, double[]? gridG, double dimming)
+    internal LikelihoodEvaluation(double[] theta, double[] values, double[]? gridLnDaOverZ, double dimming)
     {
         Theta = theta;
         Values = values;
-        GridG = gridG;
+        GridLnDaOverZ = gridLnDaOverZ;
         Dimming = dimming;
     }
 
@@ -26,10 +26,10 @@ public sealed class LikelihoodEvaluation
     public bool HasGradient { get; internal init; }
 
     // g_k = ln D_A(z_k) − ln z_k at the grid nodes (null when cosmology is fixed: exact per-object ln D_A is used).
-    internal double[]? GridG { get; }
+    internal double[]? GridLnDaOverZ { get; }
 
     // ∂g_k/∂θ_c for each free cosmological parameter c (row c, node k), or null.
-    internal double[][]? GridGDerivatives { get; init; }
+    internal double[][]? GridLnDaOverZDerivatives { get; init; }
 
     // The bolometric dimming exponent n (plus the flux-convention offset) and ∂n/∂θ_c.
     internal double Dimming { get; }

@@ -35,8 +35,10 @@ public static class MaximumLikelihood
     /// <param name="start">Starting vector.</param>
     /// <param name="settings">Starts, seed and tolerances.</param>
     /// <param name="covariance">Whether to compute the Hessian covariance.</param>
+    /// <param name="initialInverseHessian">Optional covariance estimate near the maximum (e.g. the conditional covariance from an
+    /// earlier fit, for profile refits): every L-BFGS-B run starts from it instead of the scaled identity.</param>
     public static MaximumLikelihoodResult Fit(ILogDensity likelihood, ILogDensity posterior, IReadOnlyList<ParameterSetting> free, double[] start,
-        OptimizerSettings? settings = null, bool covariance = true)
+        OptimizerSettings? settings = null, bool covariance = true, double[,]? initialInverseHessian = null)
     {
         ArgumentNullException.ThrowIfNull(likelihood);
         ArgumentNullException.ThrowIfNull(posterior);
@@ -80,7 +82,7 @@ public static class MaximumLikelihood
         }
         // (ProjectedLbfgs can take a dense starting inverse Hessian; it is not used here: an estimate from a far start made
         // the decrement test stop runs early in the power-analysis recovery test, so each run starts from the scaled identity.)
-        ProjectedLbfgs.Result Run(double[] x) => ProjectedLbfgs.Minimize(Objective, x, min, max, settings.MaxIterations, settings.Tolerance);
+        ProjectedLbfgs.Result Run(double[] x) => ProjectedLbfgs.Minimize(Objective, x, min, max, settings.MaxIterations, settings.Tolerance, initialInverseHessian: initialInverseHessian);
         var ends = starts.Select(Run).ToList();
         var best = ends.Where(e => double.IsFinite(e.Value)).OrderBy(e => e.Value).FirstOrDefault() ?? ends[0];
         int agreeing = ends.Count(e => e.Value - best.Value < settings.AgreementTolerance);
@@ -119,8 +121,9 @@ public static class MaximumLikelihood
             }
         }
         double ll = likelihood.LogDensity(theta);
-        double lp = post.LogDensity(theta);
-        evals += 2;
+        // Without a Hessian (refits) the run's own value at θ is the objective; with one, it is evaluated afresh.
+        double lp = covariance || !double.IsFinite(best.Value) ? post.LogDensity(theta) : -best.Value;
+        evals += covariance ? 2 : 1;
 
         bool optimiserOk = exit is OptimizerExit.Converged or OptimizerExit.NoFurtherProgress && double.IsFinite(ll);
         bool gradientOk = !covariance || (analysis?.Covariance is not null && gradSigma <= MaxGradientSigma);

@@ -65,19 +65,31 @@ public static class ModeSearch
         foreach (var name in scanned)
         {
             cancel.ThrowIfCancellationRequested();
-            var refit = new ProfileRefit(backend, h, name);
+            var refit = new ProfileRefit(backend, likelihood, name) { Covariance = fit.Covariance };
             var scan = Scan(refit, fit.Theta, gridPoints);
             scans[name] = scan;
             foreach (var start in StartPoints(scan))
             {
+                // A peak within the fit's σ in every parameter and not above it is the fit itself: a full fit from it
+                // would climb back to the same maximum (and count as the same mode), so it is not run.
+                if (Coincides(h, fit, start)) continue;
                 cancel.ThrowIfCancellationRequested();
-                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, start.Theta, new OptimizerSettings(Starts: 1, InitialStep: 0.2));
+                // Without the Hessian first: only a maximum that can be a mode (within the window of the fit, with a margin)
+                // gets the confirming restart and the covariance, from where it ended.
+                var settings = new OptimizerSettings(Starts: 1, InitialStep: 0.2);
+                var f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, start.Theta, settings, covariance: false);
+                if (!double.IsFinite(f.LogLikelihood)) continue;
+                if (Objective(h, f) >= Objective(h, fit) - ModeWindow - 1)
+                    f = MaximumLikelihood.Fit(likelihood, likelihood.Posterior, h.FreeParameters, f.Theta, settings);
                 if (double.IsFinite(f.LogLikelihood)) candidates.Add(f);
             }
         }
-        var genuine = candidates.Where(c => IsMaximumAtBounds(backend, h, c)).ToList();
+        var genuine = candidates.Where(c => IsMaximumAtBounds(backend, likelihood, c)).ToList();
         if (genuine.Count == 0) genuine.Add(fit);
-        var ordered = genuine.OrderByDescending(c => Objective(h, c)).ToList();
+        // The multi-start fit keeps first place unless another maximum is higher by more than the optimiser's own noise
+        // (on a plateau, e.g. h0 for sizes alone, every end point ties with it up to rounding).
+        double fitObjective = Objective(h, fit), tie = Math.Max(1e-6, 1e-11 * Math.Abs(fitObjective));
+        var ordered = genuine.OrderByDescending(c => ReferenceEquals(c, fit) ? fitObjective + tie : Objective(h, c)).ToList();
         var distinct = new List<MaximumLikelihoodResult>();
         foreach (var c in ordered)
             if (!distinct.Any(d => Same(h, d, c))) distinct.Add(c);
@@ -135,9 +147,10 @@ public static class ModeSearch
     /// inward (10⁻³ of the range) must not be higher. In the optimiser's logistic coordinates a bound is infinitely far,
     /// so a search can stall against it on a slope that rises inward (e.g. Ωm → 0 beside a narrow maximum at 0.02).
     /// </summary>
-    public static bool IsMaximumAtBounds(Evaluation.EvaluationBackend backend, Hypothesis h, MaximumLikelihoodResult f)
+    public static bool IsMaximumAtBounds(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult f)
     {
-        ArgumentNullException.ThrowIfNull(h);
+        ArgumentNullException.ThrowIfNull(likelihood);
+        var h = likelihood.Hypothesis;
         ArgumentNullException.ThrowIfNull(f);
         double here = Objective(h, f);
         for (int j = 0; j < f.Theta.Length && j < f.AtBound.Length; j++)
@@ -146,7 +159,7 @@ public static class ModeSearch
             var p = h.FreeParameters[j];
             double step = 1e-3 * (p.Max - p.Min);
             double inward = f.Theta[j] - p.Min <= p.Max - f.Theta[j] ? p.Min + step : p.Max - step;
-            var s = new ProfileRefit(backend, h, p.Name).At(inward, f.Theta);
+            var s = new ProfileRefit(backend, likelihood, p.Name) { Covariance = f.Covariance }.At(inward, f.Theta);
             if (s.Objective > here + 1e-6) return false;
         }
         return true;
@@ -171,6 +184,9 @@ public static class ModeSearch
         }
         return peaks.OrderByDescending(p => p.Objective);
     }
+
+    private static bool Coincides(Hypothesis h, MaximumLikelihoodResult fit, ProfileSample peak) =>
+        fit.Covariance is not null && peak.Objective <= Objective(h, fit) + 1e-6 && Same(h, fit, fit with { Theta = peak.Theta });
 
     // Two maxima are the same when every free parameter agrees within the Hessian σ of the better one
     // (or, without a covariance, within 1% of its magnitude).

@@ -1,3 +1,5 @@
+using SizeTest.Inference.Comparison;
+
 namespace SizeTest.Inference;
 
 /// <summary>

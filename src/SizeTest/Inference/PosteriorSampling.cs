@@ -66,14 +66,14 @@ public static class PosteriorSampling
         var priors = h.FreeParameters.Select(p => p.Prior).ToArray();
         var names = h.FreeParameters.Select(p => p.Name).ToArray();
         int d = names.Length;
-        if (d == 0 || request.Sampler == "none") return (summary, null);
+        if (d == 0 || request.Sampler == SamplerKind.None) return (summary, null);
         string label = h.Label;
         Func<int, double> p16, p50, p84;
         bool converged;
         string verdict;
         double? lnZ = null, lnZErr = null;
         PosteriorDraws? samples = null;
-        if (request.Sampler == "mcmc")
+        if (request.Sampler == SamplerKind.Mcmc)
         {
             var scale = Enumerable.Range(0, d).Select(j =>
             {
@@ -81,7 +81,11 @@ public static class PosteriorSampling
                 var p = h.FreeParameters[j];
                 return double.IsFinite(se) && se > 0 ? Math.Min(se, 0.1 * (p.Max - p.Min)) : 1e-3 * (p.Max - p.Min);
             }).ToArray();
-            var start = EnsembleSampler.GaussianBall(posterior, fit.Theta, scale, request.Walkers, seed);
+            // Start from the Laplace approximation N(θ̂, Σ) (inside the support) so the burn-in is short; a small
+            // per-parameter ball when the Hessian gave no covariance.
+            var start = fit.Covariance is { } cov
+                ? EnsembleSampler.GaussianStart(posterior, fit.Theta, cov, request.Walkers, seed)
+                : EnsembleSampler.GaussianBall(posterior, fit.Theta, scale.Select(s => 1e-2 * s).ToArray(), request.Walkers, seed);
             bool auto = request.Steps <= 0;
             int maxSteps = auto ? Math.Max(request.MaxSteps, 10) : request.Steps;
             ChainMemory.Check(request.Walkers, maxSteps, d, request.ChainMemoryBudget);
@@ -92,6 +96,7 @@ public static class PosteriorSampling
                 MaxSteps = auto ? maxSteps : null,
                 Seed = seed,
                 ParameterNames = names,
+                Move = request.SamplerMove ?? MixtureMove.Default(),
                 MaxDegreeOfParallelism = request.Backend is { Concurrent: false } ? 1 : -1,
             });
             var store = request.ChainStoreFactory?.Invoke(label);
@@ -114,7 +119,7 @@ public static class PosteriorSampling
             string length = auto
                 ? (converged ? $"ran to convergence: {stepsRun} steps" : $"not converged within --max-steps {maxSteps}: {stepsRun} steps")
                 : $"{stepsRun} steps (fixed)";
-            verdict = $"ensemble MCMC ({request.Walkers} walkers, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
+            verdict = $"ensemble MCMC ({request.Walkers} walkers, moves {run.MoveName}, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
             if (LaplaceEvidence.TryCompute(likelihood, priors, fit.Theta, out var laplace, out var failure))
                 lnZ = laplace.LogEvidence;
             else verdict += $"; Laplace evidence not available ({failure})";
@@ -126,7 +131,7 @@ public static class PosteriorSampling
                 run.AcceptanceFraction);
             samples = new PosteriorDraws(label, "mcmc", names, KeptDraws(run)) { Chain = chain };
         }
-        else if (request.Sampler == "nested")
+        else if (request.Sampler == SamplerKind.Nested)
         {
             var ns = new NestedSampler(likelihood, priors, new NestedSamplerOptions
             {
@@ -144,9 +149,9 @@ public static class PosteriorSampling
             lnZ = ev.LogEvidence;
             lnZErr = ev.LogEvidenceError;
             samples = new PosteriorDraws(label, "nested", names,
-                ev.WeightedSamples.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
+                ev.WeightedDraws.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
         }
-        else throw new ArgumentException($"unknown sampler '{request.Sampler}'; use none, mcmc or nested");
+        else throw new ArgumentException($"sampler {request.Sampler} is not run here");
 
         var parameters = summary.Parameters.Select(p =>
         {

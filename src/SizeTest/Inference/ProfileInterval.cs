@@ -15,7 +15,7 @@ public sealed record ProfileCrossings(double Lo, double Hi, bool LoAtBound, bool
 /// <summary>
 /// Finds the 68% profile-likelihood interval {θ_j : max ln L − ln L_p(θ_j) ≤ ½} (Wilks 1938) from a set of profile
 /// points: it steps outward past the outermost point above the level until the profile falls below it (or the bound
-/// is reached), then brackets each outer crossing and bisects it with refits. When the profile has several maxima the
+/// is reached), then brackets each outer crossing and closes in on it with refits (regula falsi). When the profile has several maxima the
 /// region may be disjoint; <see cref="ProfileCrossings.Lo"/>–<see cref="ProfileCrossings.Hi"/> is its hull (outermost
 /// crossings, so it spans every mode) and <see cref="ProfileCrossings.Regions"/> lists the pieces (the inner crossings
 /// bisected the same way).
@@ -25,7 +25,7 @@ public static class ProfileInterval
     /// <summary>Drop of the profile from its maximum at the 68% interval ends (χ²₁ 68.27% point / 2 = ½).</summary>
     public const double Level = 0.5;
 
-    /// <summary>Bisection steps per crossing (the final bracket is 1/32 of the first, then interpolated linearly).</summary>
+    /// <summary>Most refits per crossing (regula falsi steps, each inside the current bracket).</summary>
     public const int BisectionSteps = 5;
 
     /// <summary>Computes the interval.</summary>
@@ -93,17 +93,47 @@ public static class ProfileInterval
         return new ProfileCrossings(lo, hi, loAtBound, hiAtBound, top, pts, regions);
     }
 
-    // Bisects between a point below the level and one above it, warm-starting each refit from the point above.
+    /// <summary>A crossing is accepted when the profile there is within this of the level in the signed-root scale
+    /// r = √(2 Δ ln L) (r = 1 at the level; 10⁻³ in r is 10⁻³ of ½ in Δ ln L, and about 10⁻³ σ in the value).</summary>
+    public const double RootTolerance = 1e-3;
+
+    // Finds the crossing between a point below the level and one above it by regula falsi with the Illinois modification
+    // (Dowell & Jarratt 1971) on g(v) = √(2·max(0, top − ln L_p(v))) − √(2·Level): g is linear in v for a quadratic profile,
+    // so the first step lands on the crossing there; the bracket is kept, so it converges anyway. At most BisectionSteps
+    // refits, each warm-started from the bracket end above the level; the end is interpolated linearly in g.
     private static double Bisect(ProfileRefit refit, ProfileSample below, ProfileSample above, double level, List<ProfileSample> log)
     {
+        double top = level + Level, r0 = Math.Sqrt(2 * Level);
+        double G(ProfileSample p) => double.IsFinite(p.Objective) ? Math.Sqrt(2 * Math.Max(0, top - p.Objective)) - r0 : double.PositiveInfinity;
+        double gb = G(below), ga = G(above);
+        int side = 0;
         for (int i = 0; i < BisectionSteps; i++)
         {
-            var mid = refit.At(0.5 * (below.Value + above.Value), above.Theta);
+            double v = double.IsFinite(gb) && gb - ga > 0
+                ? above.Value + ga / (ga - gb) * (below.Value - above.Value)
+                : 0.5 * (below.Value + above.Value);
+            // Stay strictly inside the bracket (1% of it from either end).
+            double lo = Math.Min(below.Value, above.Value), hi = Math.Max(below.Value, above.Value), pad = 0.01 * (hi - lo);
+            v = Math.Clamp(v, lo + pad, hi - pad);
+            var mid = refit.At(v, above.Theta);
             log.Add(mid);
-            if (mid.Objective >= level) above = mid; else below = mid;
+            double gm = G(mid);
+            if (mid.Objective >= level)
+            {
+                above = mid; ga = gm;
+                if (side == -1) gb *= 0.5; // Illinois: the end kept twice has its value halved
+                side = -1;
+            }
+            else
+            {
+                below = mid; gb = gm;
+                if (side == 1) ga *= 0.5;
+                side = 1;
+            }
+            if (Math.Abs(gm) <= RootTolerance) return mid.Value;
         }
-        double fa = above.Objective - level, fb = below.Objective - level;
-        if (!double.IsFinite(fb) || fa - fb <= 0) return 0.5 * (above.Value + below.Value);
+        double fa = G(above), fb = G(below);
+        if (!double.IsFinite(fb) || fb - fa <= 0) return 0.5 * (above.Value + below.Value);
         return above.Value + fa / (fa - fb) * (below.Value - above.Value);
     }
 }

@@ -38,7 +38,7 @@ public static class ProfileLikelihood
         ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(best);
-        var refit = new ProfileRefit(backend, hypothesis, parameter);
+        var refit = new ProfileRefit(backend, hypothesis, parameter) { Covariance = best.Covariance };
         int j = refit.Index;
         double se = best.StandardError(j);
         double range = refit.Max - refit.Min;

@@ -20,6 +20,7 @@ public sealed class ProfileRefit
     private readonly Hypothesis _h;
     private readonly Evaluation.EvaluationBackend _backend;
     private readonly int _j;
+    private readonly Lazy<Evaluation.RowSumLikelihood> _parent;
 
     /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/> in this process.</summary>
     public ProfileRefit(Hypothesis hypothesis, Observables observables, string parameter)
@@ -27,16 +28,73 @@ public sealed class ProfileRefit
     {
     }
 
-    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/> on <paramref name="backend"/>.</summary>
+    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of <paramref name="hypothesis"/> on <paramref name="backend"/>
+    /// (the hypothesis is bound there once, at the first refit).</summary>
     public ProfileRefit(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, string parameter)
     {
         ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
         _h = hypothesis;
+        _parent = new Lazy<Evaluation.RowSumLikelihood>(() => backend.Bind(hypothesis));
         _backend = backend;
-        _j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
-        if (_j < 0) throw new ArgumentException($"parameter '{parameter}' is not free in model '{hypothesis.Label}', so it cannot be profiled");
+        _j = IndexOf(hypothesis, parameter);
         Parameter = parameter;
+    }
+
+    /// <summary>Prepares refits of free parameter <paramref name="parameter"/> of the bound likelihood <paramref name="likelihood"/>
+    /// on <paramref name="backend"/>: every refit shares its bound rows and redshift grid (<see cref="Evaluation.RowSumLikelihood.WithFixed"/>).</summary>
+    public ProfileRefit(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, string parameter)
+    {
+        ArgumentNullException.ThrowIfNull(backend);
+        ArgumentNullException.ThrowIfNull(likelihood);
+        _h = likelihood.Hypothesis;
+        _parent = new Lazy<Evaluation.RowSumLikelihood>(likelihood);
+        _backend = backend;
+        _j = IndexOf(_h, parameter);
+        Parameter = parameter;
+    }
+
+    private static int IndexOf(Hypothesis hypothesis, string parameter)
+    {
+        int j = hypothesis.FreeParameters.ToList().FindIndex(p => p.Name == parameter);
+        if (j < 0) throw new ArgumentException($"parameter '{parameter}' is not free in model '{hypothesis.Label}', so it cannot be profiled");
+        return j;
+    }
+
+    /// <summary>The covariance of a fit of the hypothesis (e.g. the maximum's Hessian covariance), or null. When given with
+    /// positive variances, each refit's L-BFGS-B starts from the conditional covariance of the other parameters given this
+    /// one, Σ₋ⱼ₋ⱼ − Σ₋ⱼⱼ Σⱼ₋ⱼ / Σⱼⱼ (the inverse Hessian of the inner problem for a quadratic ln L), so warm-started refits take
+    /// Newton-like steps at once.</summary>
+    public double[,]? Covariance
+    {
+        get => _covariance;
+        init
+        {
+            _covariance = value;
+            _innerInverseHessian = value is null ? null : Conditional(value, _j);
+        }
+    }
+
+    private readonly double[,]? _covariance;
+    private readonly double[,]? _innerInverseHessian;
+
+    private static double[,]? Conditional(double[,] c, int j)
+    {
+        int d = c.GetLength(0);
+        if (d < 2 || c.GetLength(1) != d || !(c[j, j] > 0)) return null;
+        var r = new double[d - 1, d - 1];
+        for (int a = 0, ra = 0; a < d; a++)
+        {
+            if (a == j) continue;
+            for (int b = 0, rb = 0; b < d; b++)
+            {
+                if (b == j) continue;
+                r[ra, rb++] = c[a, b] - c[a, j] * c[j, b] / c[j, j];
+            }
+            if (!(r[ra, ra] > 0) || !double.IsFinite(r[ra, ra])) return null; // a parameter at a bound has no curvature here
+            ra++;
+        }
+        return r;
     }
 
     /// <summary>The profiled parameter.</summary>
@@ -66,11 +124,12 @@ public sealed class ProfileRefit
     /// other components of <paramref name="start"/> (a full θ).</summary>
     public ProfileSample At(double value, ReadOnlySpan<double> start)
     {
-        var fixedH = _h.WithFixed(Parameter, value);
-        var lik = _backend.Bind(fixedH);
+        var lik = _parent.Value.WithFixed(Parameter, value);
+        var fixedH = lik.Hypothesis;
         var s = new double[start.Length - 1];
         for (int k = 0, m = 0; k < start.Length; k++) if (k != _j) s[m++] = start[k];
-        var fit = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, new OptimizerSettings(Starts: 1, InitialStep: 0.2), covariance: false);
+        var fit = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, new OptimizerSettings(Starts: 1, InitialStep: 0.2), covariance: false,
+            initialInverseHessian: _innerInverseHessian);
         var full = new double[start.Length];
         for (int k = 0, m = 0; k < full.Length; k++) full[k] = k == _j ? value : fit.Theta[m++];
         double ll = fit.LogLikelihood;
@@ -94,14 +153,33 @@ public sealed class ProfileRefit
         result[c] = At(grid[c], start);
         _backend.ForEach(2, side =>
         {
-            if (side == 0) for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(result[i + 1], start));
-            else for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(result[i - 1], start));
+            // Each side extrapolates only from its own points (the centre included), never from the other side's, which
+            // is being computed at the same time.
+            if (side == 0) for (int i = c - 1; i >= 0; i--) result[i] = At(grid[i], Warm(grid[i], result[i + 1], i + 2 <= c ? result[i + 2] : null, start));
+            else for (int i = c + 1; i < grid.Count; i++) result[i] = At(grid[i], Warm(grid[i], result[i - 1], i - 2 >= c ? result[i - 2] : null, start));
         });
         return result;
     }
 
-    // A failed neighbour (ln L = −∞) is a poor start; fall back to the original one.
-    private static double[] Warm(ProfileSample neighbour, double[] start) => double.IsFinite(neighbour.Objective) ? neighbour.Theta : start;
+    // The start for the refit at value v: the neighbour's solution, extrapolated linearly along the path of the two previous
+    // solutions when both are finite (the other parameters then start O(step²) rather than O(step) from their maximum),
+    // kept inside the bounds; a failed neighbour (ln L = −∞) is a poor start, so then the original one.
+    private double[] Warm(double v, ProfileSample neighbour, ProfileSample? before, double[] start)
+    {
+        if (!double.IsFinite(neighbour.Objective)) return start;
+        if (before is null || !double.IsFinite(before.Objective) || before.Value == neighbour.Value) return neighbour.Theta;
+        double t = (v - neighbour.Value) / (neighbour.Value - before.Value);
+        var x = new double[neighbour.Theta.Length];
+        for (int k = 0; k < x.Length; k++)
+        {
+            var p = _h.FreeParameters[k];
+            double e = neighbour.Theta[k] + t * (neighbour.Theta[k] - before.Theta[k]), room = 1e-9 * (p.Max - p.Min);
+            x[k] = neighbour.Theta[k] > p.Min + room && neighbour.Theta[k] < p.Max - room
+                ? Math.Clamp(e, p.Min + room, p.Max - room) // interior: stay interior
+                : neighbour.Theta[k]; // on a bound: stay there
+        }
+        return x;
+    }
 
     /// <summary>A grid over the whole bounded range: <paramref name="points"/> values evenly spaced, or evenly spaced in
     /// ln for a positive range spanning more than a factor 100 (scale parameters such as r0_kpc).</summary>

@@ -1,3 +1,5 @@
+using SizeTest.Inference.Comparison;
+
 namespace SizeTest.Inference;
 
 /// <summary>An expected range for a parameter given by the user (e.g. passive-evolution expectations for size_evolution).</summary>

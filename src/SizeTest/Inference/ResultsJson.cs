@@ -7,7 +7,7 @@ namespace SizeTest.Inference;
 /// Reads and writes <c>results.json</c>: snake_case keys, indented, non-finite numbers as <c>null</c>, and each
 /// model's <c>parameters</c> as an object keyed by parameter name with
 /// <c>{value, lo, hi, fixed, unit, interval_method, at_bound, regions}</c>.
-/// Output is deterministic: the same <see cref="StudyResult"/> always gives the same bytes.
+/// Output is deterministic: the same <see cref="FitResult"/> always gives the same bytes.
 /// </summary>
 public static class ResultsJson
 {
@@ -30,11 +30,11 @@ public static class ResultsJson
     }
 
     /// <summary>Serialises a study (with a trailing newline).</summary>
-    public static string Serialize(StudyResult result) => JsonSerializer.Serialize(result, Options) + "\n";
+    public static string Serialize(FitResult result) => JsonSerializer.Serialize(result, Options) + "\n";
 
     /// <summary>Reads a results.json written by <see cref="Serialize"/>.</summary>
-    public static StudyResult Deserialize(string json) =>
-        JsonSerializer.Deserialize<StudyResult>(json, Options) ?? throw new JsonException("results.json is empty");
+    public static FitResult Deserialize(string json) =>
+        JsonSerializer.Deserialize<FitResult>(json, Options) ?? throw new JsonException("results.json is empty");
 
     private sealed class FiniteDoubleConverter : JsonConverter<double>
     {

@@ -1,7 +1,8 @@
 using System.Globalization;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Inference;
 
@@ -33,7 +34,7 @@ public static class SelectionConsistency
     /// <param name="nuisance">The nuisance model with the stated cuts.</param>
     /// <param name="maxOutsideFraction">Refuse when more than this fraction of the objects lies outside (0–1).</param>
     /// <exception cref="InputException">Too many objects outside, or none left.</exception>
-    public static SelectionConsistencyResult Apply(SampleLoad load, Observables observables, NuisanceModel nuisance, double maxOutsideFraction = DefaultMaxOutsideFraction)
+    public static SelectionConsistencyResult Apply(CatalogueLoad load, Observables observables, NuisanceModel nuisance, double maxOutsideFraction = DefaultMaxOutsideFraction)
     {
         ArgumentNullException.ThrowIfNull(load);
         ArgumentNullException.ThrowIfNull(observables);
@@ -41,10 +42,10 @@ public static class SelectionConsistency
         if (!(maxOutsideFraction >= 0 && maxOutsideFraction <= 1))
             throw new InputException($"the largest fraction outside the selection must be between 0 and 1; got {maxOutsideFraction.ToString(CultureInfo.InvariantCulture)}");
         int n = observables.Count;
-        if (n != load.Sample.Count) throw new ArgumentException("the observables do not match the sample row for row");
-        var split = Classify(observables, nuisance, i => load.Sample.SourceRows[i], role => load.Mapping.Roles.TryGetValue(role, out var b) ? b.ColumnName : role.Name());
+        if (n != load.Rows.Count) throw new ArgumentException("the observables do not match the sample row for row");
+        var split = Classify(observables, nuisance, i => load.Rows.SourceRows[i], role => load.Mapping.Roles.TryGetValue(role, out var b) ? b.ColumnName : role.Name());
         if (split.Outside.Count == 0) return new SelectionConsistencyResult(load, observables, 0, []);
-        var warning = Decide(split.Outside.Count, n, split.Describe(), maxOutsideFraction, load.Sample.SourceName);
+        var warning = Decide(split.Outside.Count, n, split.Describe(), maxOutsideFraction, load.Rows.SourceName);
         return new SelectionConsistencyResult(load.WithRejected(split.Keep, split.Outside), ObservablesSubset.Take(observables, split.Keep.ToArray()), split.Outside.Count, [warning]);
     }
 
@@ -72,17 +73,17 @@ public static class SelectionConsistency
         bool size = nuisance.Observable != ObservableKind.SurfaceBrightness, sb = nuisance.Observable != ObservableKind.Size;
         double[]? lnTheta = size ? observables.LnTheta : null;
         double[]? mu = sb ? observables.Mu : null;
-        double lnMin = cuts.MinThetaArcsec is { } t ? Math.Log(t * Units.RadiansPerArcsec) : double.NaN;
+        double lnMin = cuts.MinThetaArcsec is { } t ? Math.Log(t * AngleUnits.RadiansPerArcsec) : double.NaN;
         for (int i = 0; i < n; i++)
         {
             RejectEntry? entry = null;
             if (cuts.MinThetaArcsec is { } minT && lnTheta is not null && !(lnTheta[i] > lnMin))
-                entry = new(sourceRow(i), columnName(ColumnRole.Theta), F(Math.Exp(lnTheta[i]) * Units.ArcsecPerRadian), RejectReason.OutsideMinSize, $"θ must be > {F(minT)} arcsec (--min-size)");
+                entry = new(sourceRow(i), columnName(ColumnRole.Theta), F(Math.Exp(lnTheta[i]) * AngleUnits.ArcsecPerRadian), RejectReason.OutsideMinSize, $"θ must be > {F(minT)} arcsec (--min-size)");
             else if (cuts.SbLimit is { } s && mu is not null && !(mu[i] < s))
                 entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mu[i]), RejectReason.OutsideSbLimit, $"μ must be < {F(s)} mag/arcsec2 (--sb-limit)");
             else if (cuts.MagLimit is { } m && mu is not null && observables.LnTheta is { } lt)
             {
-                double mag = mu[i] - 5.0 * Math.Log10(Math.Exp(lt[i]) * Units.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
+                double mag = mu[i] - 5.0 * Math.Log10(Math.Exp(lt[i]) * AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
                 if (!(mag < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(m)} (--mag-limit)");
             }
             if (entry is null) keep.Add(i); else rejected.Add(entry);
@@ -127,4 +128,4 @@ public sealed record SelectionSplit(IReadOnlyList<int> Keep, IReadOnlyList<Rejec
 /// <param name="Observables">The observables of the kept objects.</param>
 /// <param name="Outside">Objects removed.</param>
 /// <param name="Warnings">One warning line when objects were removed, else empty.</param>
-public sealed record SelectionConsistencyResult(SampleLoad Load, Observables Observables, int Outside, IReadOnlyList<string> Warnings);
+public sealed record SelectionConsistencyResult(CatalogueLoad Load, Observables Observables, int Outside, IReadOnlyList<string> Warnings);

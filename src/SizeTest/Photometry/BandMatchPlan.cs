@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Photometry;
 
@@ -35,7 +35,7 @@ internal sealed class BandMatchPlan
     /// <summary>Weight of band A for object i.</summary>
     public double WeightA(int i) => _w[i];
 
-    public static BandMatchPlan Create(Sample sample, BandMatchOption option)
+    public static BandMatchPlan Create(CatalogueRows sample, BandMatchOption option)
     {
         if (option.Bands.Count == 0) throw new InputException("Band matching needs at least one observed band.");
         if (!(option.TargetLambdaAngstrom > 0)) throw new InputException($"Band matching target wavelength must be > 0 Å, got {option.TargetLambdaAngstrom}.");
@@ -81,7 +81,7 @@ internal sealed class BandMatchPlan
     }
 
     /// <summary>μ per object (zero-pointed to AB) and its error (null if no band has an error column).</summary>
-    public (double[] Mu, double[]? MuErr) SurfaceBrightness(Sample sample, BandTable? zeroPoints)
+    public (double[] Mu, double[]? MuErr) SurfaceBrightness(CatalogueRows sample, BandTable? zeroPoints)
     {
         int n = sample.Count;
         bool anyErr = _bands.Any(b => b.MuErrColumn is not null);
@@ -105,7 +105,7 @@ internal sealed class BandMatchPlan
         return (mu, err);
     }
 
-    private static double Value(Sample sample, string column, int i)
+    private static double Value(CatalogueRows sample, string column, int i)
     {
         double v = sample.ExtraColumns[column][i];
         return double.IsFinite(v) ? v
@@ -113,7 +113,7 @@ internal sealed class BandMatchPlan
                 sample.SourceName, sample.SourceRows[i], column);
     }
 
-    private static double ZeroPoint(Sample sample, BandTable? zp, ObservedBand band, int i)
+    private static double ZeroPoint(CatalogueRows sample, BandTable? zp, ObservedBand band, int i)
     {
         if (zp is null) return 0.0;
         if (!zp.TryGet(band.Name, out double off))
@@ -123,7 +123,7 @@ internal sealed class BandMatchPlan
     }
 
     /// <summary>A_i = (w R_A + (1−w) R_B) E(B−V)_i.</summary>
-    public void Extinction(Sample sample, double[] ebv, BandTable coefficients, double[] a)
+    public void Extinction(CatalogueRows sample, double[] ebv, BandTable coefficients, double[] a)
     {
         for (int i = 0; i < sample.Count; i++)
         {
@@ -133,7 +133,7 @@ internal sealed class BandMatchPlan
         }
     }
 
-    private static double Coefficient(Sample sample, BandTable t, ObservedBand band, int i) =>
+    private static double Coefficient(CatalogueRows sample, BandTable t, ObservedBand band, int i) =>
         t.TryGet(band.Name, out double r) ? r
         : throw new InputException($"band '{band.Name}' is not in the {t.Quantity} table {t.Source}; add it.",
             sample.SourceName, sample.SourceRows[i], band.MuColumn);
@@ -144,7 +144,7 @@ internal sealed class BandMatchPlan
     /// the effective wavelengths: K = −2.5 log10[(1+z) L_ν(λ_R/(1+z)) g^Q(λ_Q) / (g^R(λ_R) L_ν(λ_Q))]
     /// (Hogg et al. 2002 eq. 8 with delta-function filters).
     /// </summary>
-    public void ResidualK(Sample sample, KCorrectionOption.Template t, double step, double[] k)
+    public void ResidualK(CatalogueRows sample, KCorrectionOption.Template t, double step, double[] k)
     {
         int n = sample.Count;
         Array.Clear(k);

@@ -9,7 +9,7 @@ public abstract record ExtinctionOption
     public sealed record None : ExtinctionOption;
 
     /// <summary>A_band per object from a catalogue column (mag).</summary>
-    /// <param name="ColumnName">Name in <see cref="Catalogs.Sample.ExtraColumns"/>.</param>
+    /// <param name="ColumnName">Name in <see cref="Catalogues.CatalogueRows.ExtraColumns"/>.</param>
     public sealed record Column(string ColumnName) : ExtinctionOption;
 
     /// <summary>

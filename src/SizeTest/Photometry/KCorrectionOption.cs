@@ -12,7 +12,7 @@ public abstract record KCorrectionOption
     public sealed record None : KCorrectionOption;
 
     /// <summary>K per object from a catalogue column (mag, Hogg et al. 2002 sign convention).</summary>
-    /// <param name="ColumnName">Name in <see cref="Catalogs.Sample.ExtraColumns"/>.</param>
+    /// <param name="ColumnName">Name in <see cref="Catalogues.CatalogueRows.ExtraColumns"/>.</param>
     public sealed record Column(string ColumnName) : KCorrectionOption;
 
     /// <summary>Power law f_ν ∝ ν^α; same band: K = −2.5(1+α) log10(1+z) (<see cref="PowerLawKCorrection"/>).</summary>

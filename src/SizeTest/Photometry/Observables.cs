@@ -23,7 +23,7 @@ public sealed class Observables
         double[]? extinction = null,
         double[]? mag = null,
         double[]? magErr = null,
-        Catalogs.SizeDefinition? sizeDefinition = null,
+        Catalogues.SizeDefinition? sizeDefinition = null,
         double[]? isophote = null,
         double? sersicIndex = null,
         SurveyObservables? survey = null)
@@ -38,7 +38,7 @@ public sealed class Observables
         Extinction = Check(extinction, nameof(extinction));
         Mag = Check(mag, nameof(mag));
         MagErr = Check(magErr, nameof(magErr));
-        SizeDefinition = sizeDefinition ?? Catalogs.SizeDefinition.Effective;
+        SizeDefinition = sizeDefinition ?? Catalogues.SizeDefinition.Effective;
         Isophote = Check(isophote, nameof(isophote));
         SersicIndex = sersicIndex;
         Survey = survey ?? SurveyObservables.None;
@@ -86,7 +86,7 @@ public sealed class Observables
     public double[]? MagErr { get; }
 
     /// <summary>How the size was measured.</summary>
-    public Catalogs.SizeDefinition SizeDefinition { get; }
+    public Catalogues.SizeDefinition SizeDefinition { get; }
 
     /// <summary>
     /// For isophotal sizes: the isophote level per object in AB mag/arcsec² (the sample's
@@ -103,7 +103,7 @@ public sealed class Observables
     /// (error σ_θ/θ; objects without a size error get 0 and rely on intrinsic scatter).
     /// The photometry stage builds richer observables from the same sample.
     /// </summary>
-    public static Observables FromSample(Catalogs.Sample sample)
+    public static Observables FromRows(Catalogues.CatalogueRows sample)
     {
         ArgumentNullException.ThrowIfNull(sample);
         double[]? lnTheta = null, lnErr = null;

@@ -1,11 +1,12 @@
 using System.Globalization;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Photometry;
 
 /// <summary>
-/// Applies <see cref="PhotometryOptions"/> to a <see cref="Sample"/>: zero points (to AB),
+/// Applies <see cref="PhotometryOptions"/> to a <see cref="CatalogueRows"/>: zero points (to AB),
 /// band matching, surface-brightness definition, and the per-object K-correction and
 /// extinction that the model adds: μ_model,i = μ_rest + 2.5 n_bol log10(1+z_i) + evolution + K_i + A_i.
 /// </summary>
@@ -21,13 +22,13 @@ public static class ObservablesBuilder
 
     /// <summary>Builds the observables and the list of corrections applied.</summary>
     /// <exception cref="InputException">The options do not fit the sample (see remarks).</exception>
-    public static PhotometryResult Build(Sample sample, PhotometryOptions options)
+    public static PhotometryResult Build(CatalogueRows sample, PhotometryOptions options)
     {
         ArgumentNullException.ThrowIfNull(sample);
         ArgumentNullException.ThrowIfNull(options);
         var notes = new List<string>();
         int n = sample.Count;
-        var basic = Observables.FromSample(sample);
+        var basic = Observables.FromRows(sample);
 
         double? sersic = options.SersicIndex;
         if (sersic is { } sn && !SersicProfile.IsValidIndex(sn))
@@ -54,7 +55,7 @@ public static class ObservablesBuilder
             muErr = sample.MagErr is null ? null : new double[n];
             for (int i = 0; i < n; i++)
             {
-                double reArcsec = sample.ThetaRad[i] * Units.ArcsecPerRadian;
+                double reArcsec = sample.ThetaRad[i] * AngleUnits.ArcsecPerRadian;
                 mu[i] = SurfaceBrightness.MeanWithinEffective(mag[i], reArcsec);
                 if (muErr is not null)
                 {
@@ -132,7 +133,7 @@ public static class ObservablesBuilder
         return new PhotometryResult(obs, notes);
     }
 
-    private static LuminosityData Luminosities(Sample sample, LuminosityOption o, double[]? mag, double[]? kc, double[]? ext, List<string> notes)
+    private static LuminosityData Luminosities(CatalogueRows sample, LuminosityOption o, double[]? mag, double[]? kc, double[]? ext, List<string> notes)
     {
         int n = sample.Count;
         double[] RefLn()
@@ -175,7 +176,7 @@ public static class ObservablesBuilder
         throw new InputException($"{sample.SourceName}: a size–luminosity relation or luminosity window needs 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
     }
 
-    private static double[]? KCorrections(Sample sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)
+    private static double[]? KCorrections(CatalogueRows sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)
     {
         int n = sample.Count;
         switch (options.KCorrection)
@@ -234,7 +235,7 @@ public static class ObservablesBuilder
     /// Fills k[i] for objects selected by <paramref name="rows"/> (null = all) with a tabulated
     /// template K-correction between <paramref name="observed"/> and <paramref name="rest"/>.
     /// </summary>
-    internal static void TemplateK(Sample sample, KCorrectionOption.Template t, FilterResponse observed, FilterResponse rest,
+    internal static void TemplateK(CatalogueRows sample, KCorrectionOption.Template t, FilterResponse observed, FilterResponse rest,
         double step, double[] k, IReadOnlyList<int>? rows, double[]? weight = null)
     {
         TemplateKCorrection kc;
@@ -275,7 +276,7 @@ public static class ObservablesBuilder
         }
     }
 
-    private static double[]? Extinctions(Sample sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)
+    private static double[]? Extinctions(CatalogueRows sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)
     {
         int n = sample.Count;
         switch (options.Extinction)
@@ -305,7 +306,7 @@ public static class ObservablesBuilder
         }
     }
 
-    private static double Coefficient(Sample sample, PhotometryOptions options, BandTable table, int i)
+    private static double Coefficient(CatalogueRows sample, PhotometryOptions options, BandTable table, int i)
     {
         string band = BandOf(sample, options, i, table.Quantity);
         if (!table.TryGet(band, out double r))
@@ -314,14 +315,14 @@ public static class ObservablesBuilder
         return r;
     }
 
-    private static string BandOf(Sample sample, PhotometryOptions options, int i, string forWhat)
+    private static string BandOf(CatalogueRows sample, PhotometryOptions options, int i, string forWhat)
     {
         if (sample.Band is { } b && !string.IsNullOrEmpty(b[i])) return b[i];
         return options.DefaultBand
                ?? throw new InputException($"{sample.SourceName}: the {forWhat} table needs each object's band; map a 'band' column or set a default band.");
     }
 
-    private static void ApplyZeroPoints(Sample sample, PhotometryOptions options, double[] values)
+    private static void ApplyZeroPoints(CatalogueRows sample, PhotometryOptions options, double[] values)
     {
         if (options.ZeroPoints is not { } zp) return;
         for (int i = 0; i < values.Length; i++)
@@ -334,7 +335,7 @@ public static class ObservablesBuilder
         }
     }
 
-    internal static double[] RequireColumn(Sample sample, string name, string forWhat, bool checkValues = true)
+    internal static double[] RequireColumn(CatalogueRows sample, string name, string forWhat, bool checkValues = true)
     {
         if (!sample.ExtraColumns.TryGetValue(name, out var col))
             throw new InputException($"the {forWhat} column '{name}' is not in the sample; keep it as an extra column when loading the catalogue.",

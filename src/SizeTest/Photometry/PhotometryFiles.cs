@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Photometry;
 

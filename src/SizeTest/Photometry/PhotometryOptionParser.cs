@@ -1,5 +1,5 @@
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Photometry;
 

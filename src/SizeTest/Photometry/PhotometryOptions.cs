@@ -7,7 +7,7 @@ namespace SizeTest.Photometry;
 /// </summary>
 public sealed record PhotometryOptions
 {
-    /// <summary>No corrections at all: equivalent to <see cref="Observables.FromSample"/>.</summary>
+    /// <summary>No corrections at all: equivalent to <see cref="Observables.FromRows"/>.</summary>
     public static PhotometryOptions Default { get; } = new();
 
     /// <summary>K-correction; default none.</summary>

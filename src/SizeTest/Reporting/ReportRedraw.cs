@@ -1,4 +1,5 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Reporting.Data;
 using SizeTest.Reporting.Pack;
 

@@ -26,7 +26,11 @@ public sealed record CoverageCount(string Name, double Truth, int Covered, int H
 /// <param name="Mocks">Mocks fitted.</param>
 /// <param name="Multimodal">Mocks whose fit reported more than one mode.</param>
 /// <param name="Parameters">Coverage per free parameter with a known truth.</param>
-public sealed record IntervalCoverageResult(int Mocks, int Multimodal, IReadOnlyList<CoverageCount> Parameters);
+public sealed record IntervalCoverageResult(int Mocks, int Multimodal, IReadOnlyList<CoverageCount> Parameters)
+{
+    /// <summary>Per mock (in index order): the reported estimates, the plain Hessian estimates, and whether the fit was multimodal.</summary>
+    public IReadOnlyList<(ParameterEstimate[] Reported, ParameterEstimate[] Hessian, bool Multimodal)> PerMock { get; init; } = [];
+}
 
 /// <summary>
 /// Injection–recovery check of the reported intervals: draws seeded mocks of a design under a known truth, fits one
@@ -69,6 +73,9 @@ public static class IntervalCoverageStudy
             var byMethod = rep.GroupBy(e => e.IntervalMethod).OrderBy(g => g.Key, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.Count());
             return new CoverageCount(n, t, rep.Count(e => e.Contains(t)), rep.Count(e => Covers(e, t)), hes.Count(e => Covers(e, t)), mocks, byMethod);
         }).ToArray();
-        return new IntervalCoverageResult(mocks, multimodal.Count(b => b), counts);
+        return new IntervalCoverageResult(mocks, multimodal.Count(b => b), counts)
+        {
+            PerMock = Enumerable.Range(0, mocks).Select(k => (reported[k], hessian[k], multimodal[k])).ToArray(),
+        };
     }
 }

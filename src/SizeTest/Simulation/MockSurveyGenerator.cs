@@ -1,9 +1,10 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Simulation;
 
 /// <summary>
-/// Draws mock catalogues (<see cref="MockCatalog"/>) from a <see cref="MockSurveySpec"/>. Physics only, no I/O.
+/// Draws mock catalogues (<see cref="MockCatalogue"/>) from a <see cref="MockSurveySpec"/>. Physics only, no I/O.
 /// </summary>
 /// <remarks>
 /// <para>Objects are drawn in chunks of <see cref="ChunkSize"/>; chunk c uses its own
@@ -32,7 +33,7 @@ public static class MockSurveyGenerator
     /// <param name="cancel">Cancellation.</param>
     /// <exception cref="ArgumentException">The spec is invalid.</exception>
     /// <exception cref="AnalysisException">The selection passes too few objects (more than the draw cap needed).</exception>
-    public static MockCatalog Generate(MockSurveySpec spec, bool parallel = true, CancellationToken cancel = default)
+    public static MockCatalogue Generate(MockSurveySpec spec, bool parallel = true, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(spec);
         spec.Validate();
@@ -86,7 +87,7 @@ public static class MockSurveyGenerator
                 throw new AnalysisException(FormattableString.Invariant(
                     $"the selection passes too few objects: only {result.Count} of {drawn} drawn objects passed (pass fraction {(double)result.Count / drawn:G3}); loosen --sb-limit/--mag-limit/--min-size or lower --n"));
         }
-        return new MockCatalog(spec, result, drawn, failSb, failMag, failSize);
+        return new MockCatalogue(spec, result, drawn, failSb, failMag, failSize);
     }
 
     private static void Tally(byte code, ref long sb, ref long mag, ref long size)
@@ -127,7 +128,7 @@ public static class MockSurveyGenerator
         double sizeScatter = galaxy ? g.ScatterDex : r.ScatterDex;
         double sbSlope = 2.5 * (spec.Model.BolometricDimmingExponent - g.SbEvolution);
         double log10Pivot = Math.Log10(g.PivotSizeKpc);
-        double radPerKpcMpc = 1e-3 * Units.ArcsecPerRadian; // θ[arcsec] = 1e-3 R[kpc] / D_A[Mpc] rad
+        double radPerKpcMpc = 1e-3 * AngleUnits.ArcsecPerRadian; // θ[arcsec] = 1e-3 R[kpc] / D_A[Mpc] rad
         double log10RadPerKpcMpc = Math.Log10(radPerKpcMpc);
         double f2 = errors.SizeErrorFraction * errors.SizeErrorFraction, floor = errors.SizeErrorFloorArcsec, sigmaFrac = errors.SizeErrorFraction;
         double muErr = errors.MuErrorMag, sz = errors.PhotoZError;
@@ -152,7 +153,7 @@ public static class MockSurveyGenerator
         for (int i = 0; i < m; i++)
         {
             double z = zTrue[i];
-            double l10 = Math.Log10(1.0 + z);
+            double log10OnePlusZ = Math.Log10(1.0 + z);
             double logL = galaxy ? 0.0 : r.LogLuminosityMean + r.LogLuminositySd * rng.NextGaussian();
             double e1 = rng.NextGaussian(), e2 = rng.NextGaussian(), e3 = rng.NextGaussian(), e4 = rng.NextGaussian();
             // Survey ingredients draw after the four deviates, and only when used, so that older catalogues are unchanged.
@@ -166,7 +167,7 @@ public static class MockSurveyGenerator
                 s0 = Math.Log10(gp.R0Kpc); sEvo = gp.SizeEvolution; sSc = gp.ScatterDex; beta = gp.SizeLuminositySlope;
             }
             double absMag = lf is null ? double.NaN : lf.Sample(ref rng);
-            double log10Size = s0 + sEvo * l10 + sSc * e1;
+            double log10Size = s0 + sEvo * log10OnePlusZ + sSc * e1;
             if (!galaxy) log10Size += r.LuminosityExponent * (logL - r.LogLuminosityPivot);
             if (lf is not null) log10Size += -0.4 * beta * (absMag - survey.PivotAbsMag);
             double sizeKpc = Math.Exp(Ln10 * log10Size);
@@ -178,7 +179,7 @@ public static class MockSurveyGenerator
             {
                 // The quoted error is a fraction of the population's median size at this z (not of the object's own size), so it
                 // carries no information about θ_true: θ_obs ~ N(θ_true, σ_θ²) with σ_θ known, as a catalogue quotes it.
-                double thetaRef = Math.Exp(Ln10 * (s0 + sEvo * l10)) / da[i] * radPerKpcMpc;
+                double thetaRef = Math.Exp(Ln10 * (s0 + sEvo * log10OnePlusZ)) / da[i] * radPerKpcMpc;
                 thetaErr = frac * thetaRef;
                 thetaObs = thetaTrue + thetaErr * e3;
                 growth = thetaObs > 0 ? Math.Log(thetaObs / thetaTrue) : double.NaN;
@@ -193,13 +194,13 @@ public static class MockSurveyGenerator
             if (galaxy && lf is not null)
             {
                 // m = M + 5 log10(D_L / 10 pc); μ from m and θ: μ = m + 2.5 log10(2π θ²) (θ in arcsec).
-                mag = absMag + 5.0 * (log10Da[i] + dlExponent * l10) + 25.0;
+                mag = absMag + 5.0 * (log10Da[i] + dlExponent * log10OnePlusZ) + 25.0;
                 muTrue = mag + 5.0 * Math.Log10(thetaTrue) + magOffset;
                 muObs = thetaObs > 0 ? mag + 5.0 * Math.Log10(thetaObs) + magOffset + muErr * e4 : double.NaN;
             }
             else if (galaxy)
             {
-                muTrue = g.Mu0 + sbSlope * l10 + g.KormendySlope * (log10Size - log10Pivot) + g.ScatterMag * e2;
+                muTrue = g.Mu0 + sbSlope * log10OnePlusZ + g.KormendySlope * (log10Size - log10Pivot) + g.ScatterMag * e2;
                 muObs = muTrue + muErr * e4;
                 // m = μ − 5 log10 θ_obs − 2.5 log10(2π), with log10 θ_obs = log10 θ_true + growth/ln10
                 mag = muObs - 5.0 * (log10Size - log10Da[i] + log10RadPerKpcMpc + growth / Ln10) - magOffset;

@@ -22,7 +22,7 @@ public static class MockTruthJson
     /// <param name="catalog">The drawn catalogue.</param>
     /// <param name="catalogFile">File name of the catalogue it describes (for the record), or null.</param>
     /// <param name="command">The command line that made it, or null.</param>
-    public static string Serialize(MockCatalog catalog, string? catalogFile = null, string? command = null)
+    public static string Serialize(MockCatalogue catalog, string? catalogFile = null, string? command = null)
     {
         ArgumentNullException.ThrowIfNull(catalog);
         var spec = catalog.Spec;

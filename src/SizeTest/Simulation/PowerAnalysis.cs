@@ -1,4 +1,5 @@
 using SizeTest.Inference;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Simulation;
 

@@ -1,4 +1,4 @@
-using SizeTest.Catalogs;
+using SizeTest.Catalogues;
 using SizeTest.Inference;
 using SizeTest.Photometry;
 
@@ -52,7 +52,7 @@ public sealed record StudyDefinition
     public int CrossValidationFolds { get; init; }
     /// <summary>Sampler after each fit: <c>none</c> or <c>mcmc</c> (affine-invariant ensemble; every model is sampled
     /// once, and the best-ranked model's chain is the one plotted).</summary>
-    public string Sampler { get; init; } = "none";
+    public SamplerKind Sampler { get; init; } = SamplerKind.None;
     /// <summary>Ensemble steps per walker when <see cref="Sampler"/> is <c>mcmc</c>; 0 (<c>sampler_steps = "auto"</c>, the
     /// default): run to convergence, at most <see cref="SamplerMaxSteps"/>.</summary>
     public int SamplerSteps { get; init; }
@@ -64,4 +64,9 @@ public sealed record StudyDefinition
     public string? PowerResultPath { get; init; }
     /// <summary>Report options.</summary>
     public StudyReportOptions Report { get; init; } = new();
+    /// <summary>Survey terms of the <c>[survey]</c> table (size–luminosity/mass relation, groups, binned evolution,
+    /// photometric redshifts, size-error model, luminosity window), or null when the table is absent.</summary>
+    public Inference.Survey.SurveyRequest? Survey { get; init; }
+    /// <summary>How the photometry stage derives luminosities or masses for the survey terms, or null.</summary>
+    public Photometry.LuminosityOption? Luminosity { get; init; }
 }

@@ -1,7 +1,8 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
+using SizeTest.Inference.Survey;
 using SizeTest.Photometry;
 using SizeTest.Reporting.Pdf;
 
@@ -16,12 +17,13 @@ public static class StudyFileParser
 {
     private static readonly Dictionary<string, string> TableKeys = new(StringComparer.Ordinal)
     {
-        [""] = "top-level keys are name, seed and the tables [catalogue], [columns], [corrections], [models], [parameters], [selection], [inference], [expected], [power], [report]",
+        [""] = "top-level keys are name, seed and the tables [catalogue], [columns], [corrections], [models], [parameters], [selection], [survey], [inference], [expected], [power], [report]",
         ["catalogue"] = "[catalogue] takes path, format, table, size_definition, synthetic, keep",
         ["columns"] = $"[columns] takes one ROLE = \"NAME[:UNIT]\" per role ({string.Join(", ", ColumnRoles.All.Select(r => r.Name()))})",
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
+        ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, frequency_ghz, spectral_index, ref_cosmology",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, figure_width, bins, bin_resamples",
@@ -126,11 +128,15 @@ public static class StudyFileParser
             selection = new SelectionLimits(selNode.Number("sb_limit"), selNode.Number("mag_limit"), selNode.Number("min_size"));
         double maxOutside = selNode?.Number("max_outside_fraction") ?? SelectionConsistency.DefaultMaxOutsideFraction;
         if (!(maxOutside is >= 0 and <= 1)) throw selNode!.Get("max_outside_fraction")!.Error("'selection.max_outside_fraction' must be between 0 and 1");
+        var (survey, luminosity, groupColumn) = root.Table("survey") is { } sv ? Survey(sv) : (null, null, null);
+        if (groupColumn is not null)
+            mapping = mapping with { Assignments = [.. mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] };
         var nuisance = new NuisanceModel(observable, selection, modelsNode.Boolean("size_sb_relation") ?? false,
             modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96);
         try
         {
             nuisance.Validate();
+            if (survey is not null) (nuisance with { Survey = ProvisionalSurvey(survey) }).Validate();
         }
         catch (ArgumentException e)
         {
@@ -139,8 +145,12 @@ public static class StudyFileParser
 
         // [parameters] (every model) and [models.NAME] (one model).
         var families = names.Select(WorldModels.Get).ToArray();
-        var allKnown = families.SelectMany(f => StudyHypotheses.KnownNames(f, nuisance)).ToHashSet(StringComparer.Ordinal);
-        var shared = root.Table("parameters") is { } pt ? Parameters(pt, allKnown, "any listed model with this observable") : [];
+        // With survey terms the parameter names depend on the sample (group labels): names are checked against a
+        // provisional survey model here (β, r0_kpc_binK; NAME@GROUP by its NAME) and again once the sample is loaded.
+        var named = survey is null ? nuisance : nuisance with { Survey = ProvisionalSurvey(survey) };
+        var allKnown = families.SelectMany(f => StudyHypotheses.KnownNames(f, named)).ToHashSet(StringComparer.Ordinal);
+        bool grouped = survey?.Groups == true;
+        var shared = root.Table("parameters") is { } pt ? Parameters(pt, allKnown, "any listed model with this observable", grouped) : [];
         var perModel = new Dictionary<string, IReadOnlyList<StudyParameter>>(StringComparer.Ordinal);
         var perModelNodes = new Dictionary<string, TomlNode>(StringComparer.Ordinal);
         foreach (var key in modelsNode.Keys)
@@ -149,7 +159,7 @@ public static class StudyFileParser
             var node = modelsNode.Get(key)!;
             if (!node.IsTable || !names.Contains(key))
                 throw node.Error($"unknown key 'models.{key}'; {TableKeys["models"]} (listed: {string.Join(", ", names)})");
-            perModel[key] = Parameters(node, StudyHypotheses.KnownNames(WorldModels.Get(key), nuisance), $"world model '{key}' with this observable");
+            perModel[key] = Parameters(node, StudyHypotheses.KnownNames(WorldModels.Get(key), named), $"world model '{key}' with this observable", grouped);
             perModelNodes[key] = node;
         }
 
@@ -172,11 +182,11 @@ public static class StudyFileParser
             ? (auto == "auto" ? 0 : throw stepsNode.Error("'inference.sampler_steps' must be \"auto\" or a whole number of steps per walker"))
             : inf?.Integer("sampler_steps") ?? 0;
         int maxSteps = inf?.Integer("sampler_max_steps") ?? Inference.Sampling.ChainMemory.DefaultMaxSteps, walkers = inf?.Integer("sampler_walkers") ?? 32;
-        string sampler = inf?.String("sampler") ?? "none";
+        string samplerName = inf?.String("sampler") ?? "none";
         if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
         if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
         if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
-        if (sampler is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
+        if (samplerName is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
         if (steps is > 0 and < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be \"auto\" or at least 100");
         if (maxSteps < 100) throw inf!.Get("sampler_max_steps")!.Error("'inference.sampler_max_steps' must be at least 100");
         if (walkers is < 4 or > 100_000) throw inf!.Get("sampler_walkers")!.Error("'inference.sampler_walkers' must be between 4 and 100000");
@@ -238,11 +248,13 @@ public static class StudyFileParser
             Starts = starts,
             Bootstrap = bootstrap,
             CrossValidationFolds = folds,
-            Sampler = sampler,
+            Sampler = SamplerKinds.Parse(samplerName),
             SamplerSteps = steps,
             SamplerMaxSteps = maxSteps,
             SamplerWalkers = walkers,
             PowerResultPath = power,
+            Survey = survey,
+            Luminosity = luminosity,
             Report = report,
         };
         // Build every hypothesis now, so a setting a model cannot take is reported at parse time with its place.
@@ -261,28 +273,100 @@ public static class StudyFileParser
         return study;
     }
 
-    private static CatalogFormat? Format(TomlNode cat)
+    // [survey]: the study-file form of fit's survey options (docs/study-file.md).
+    private static (SurveyRequest, LuminosityOption?, string?) Survey(TomlNode sv)
+    {
+        var relNode = sv.Get("size_relation");
+        var relation = relNode?.Scalar switch
+        {
+            null or "none" => SizeRelationKind.None,
+            "luminosity" => SizeRelationKind.Luminosity,
+            "mass" => SizeRelationKind.Mass,
+            _ => throw relNode!.Error("'survey.size_relation' must be \"none\", \"luminosity\" or \"mass\""),
+        };
+        var d = LuminosityPivot.Default;
+        var pivot = new LuminosityPivot(sv.Number("pivot_abs_mag") ?? d.AbsMag, sv.Number("pivot_log_mass") ?? d.LogMass, sv.Number("pivot_log_lum") ?? d.LogRadioLuminosity);
+        double[]? Pair(string key, string example)
+        {
+            if (sv.Get(key) is not { } node) return null;
+            var r = node.AsNumbers(2, example);
+            if (!(r[0] < r[1])) throw node.Error($"'survey.{key}': the first value must be below the second (e.g. {example})");
+            return r;
+        }
+        var window = Pair("abs_mag_range", "[-23, -20]");
+        var zPrior = Pair("z_prior", "[0.1, 3]");
+        string? group = sv.String("group");
+        if (group is { Length: 0 }) throw sv.Get("group")!.Error("'survey.group' names the column of population labels; it is empty");
+        int? bins = null;
+        if (sv.Get("evolution") is { } evNode)
+        {
+            string ev = evNode.Scalar as string ?? throw evNode.Error("'survey.evolution' must be \"power\" or \"binned:K\"");
+            if (ev != "power")
+            {
+                if (!(ev.StartsWith("binned:", StringComparison.Ordinal) && int.TryParse(ev["binned:".Length..], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int k) && k is >= 2 and <= 50))
+                    throw evNode.Error($"'survey.evolution' must be \"power\" or \"binned:K\" with 2 ≤ K ≤ 50; got '{ev}'");
+                bins = k;
+            }
+        }
+        var errNode = sv.Get("size_errors");
+        var errors = errNode?.Scalar switch
+        {
+            null or "lognormal" => SizeErrorKind.LogNormal,
+            "gaussian" => SizeErrorKind.Gaussian,
+            _ => throw errNode!.Error("'survey.size_errors' must be \"lognormal\" or \"gaussian\""),
+        };
+        var request = new SurveyRequest(relation, pivot, group is not null, bins, sv.Boolean("ignore_z_err") ?? false, errors,
+            window?[0], window?[1], zPrior?[0], zPrior?[1]);
+        if (relation == SizeRelationKind.Mass && window is not null)
+            throw sv.Get("abs_mag_range")!.Error("'survey.abs_mag_range' selects on luminosity; it cannot be combined with size_relation = \"mass\"");
+        double? freq = sv.Number("frequency_ghz"), alpha = sv.Number("spectral_index");
+        var refNode = sv.Get("ref_cosmology");
+        if (freq is { } f && !(f > 0)) throw sv.Get("frequency_ghz")!.Error("'survey.frequency_ghz' must be positive");
+        if (!request.NeedsLuminosity)
+        {
+            foreach (var key in new[] { "frequency_ghz", "spectral_index", "ref_cosmology", "pivot_abs_mag", "pivot_log_mass", "pivot_log_lum" })
+                if (sv.Get(key) is { } unusedNode)
+                    throw unusedNode.Error($"'survey.{key}' needs size_relation = \"luminosity\" or \"mass\", or abs_mag_range");
+            return (request, null, group);
+        }
+        IWorldModel? reference = null;
+        if (refNode is not null)
+        {
+            var hr = refNode.AsNumbers(2, "[70, 0.3]");
+            if (!(hr[0] > 0) || !(hr[1] >= 0)) throw refNode.Error("'survey.ref_cosmology' must be [H0, OMEGA_M] with H0 > 0 and Ωm ≥ 0, e.g. [70, 0.3]");
+            reference = new LambdaCdmModel(hr[0], hr[1]);
+        }
+        return (request, new LuminosityOption(relation == SizeRelationKind.Mass, reference, alpha ?? 0.0, freq), group);
+    }
+
+    // A survey model with the sample-independent terms (relation, K bins on placeholder edges) for checking names at parse time.
+    private static SurveyModel ProvisionalSurvey(SurveyRequest r) =>
+        new(r.Relation, r.Pivot, null, r.EvolutionBins is { } k ? Enumerable.Range(0, k + 1).Select(i => (double)i).ToArray() : null,
+            false, 7, r.SizeErrors, r.AbsMagMin, r.AbsMagMax, r.RedshiftPriorMin, r.RedshiftPriorMax);
+
+    private static CatalogueFormat? Format(TomlNode cat)
     {
         var node = cat.Get("format");
         return node?.Scalar switch
         {
             null => null,
-            "csv" or "text" or "tsv" or "txt" => CatalogFormat.Text,
-            "fits" => CatalogFormat.Fits,
-            "votable" or "vot" => CatalogFormat.VoTable,
+            "csv" or "text" or "tsv" or "txt" => CatalogueFormat.Text,
+            "fits" => CatalogueFormat.Fits,
+            "votable" or "vot" => CatalogueFormat.VoTable,
             _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\" or \"votable\" (or left out to detect)"),
         };
     }
 
     // A parameter setting: "free", "fixed", a number (fixed there), or a table
     // { fixed = V } | { free = true, min = LO, max = HI } | { prior = [MEAN, SD], min, max }.
-    private static IReadOnlyList<StudyParameter> Parameters(TomlNode table, HashSet<string> known, string what)
+    private static IReadOnlyList<StudyParameter> Parameters(TomlNode table, HashSet<string> known, string what, bool grouped = false)
     {
         var list = new List<StudyParameter>();
         foreach (var key in table.Keys)
         {
             var node = table.Get(key)!;
-            if (!known.Contains(key))
+            bool groupName = grouped && key.IndexOf('@', StringComparison.Ordinal) is > 0 and var at && at < key.Length - 1 && known.Contains(key[..at]);
+            if (!known.Contains(key) && !groupName)
                 throw node.Error($"unknown parameter '{key}' for {what}; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
             list.Add(Setting(key, node));
         }

@@ -14,6 +14,23 @@ public static class StudyHypotheses
         return study.Models.Select(name => For(WorldModels.Get(name), study)).ToArray();
     }
 
+    /// <summary>
+    /// As <see cref="Build"/>, but first refuses a parameter setting that no listed model knows — needed once survey
+    /// terms are bound to a sample, because per-group names (<c>NAME@GROUP</c>) can be checked only then.
+    /// </summary>
+    /// <exception cref="SizeTest.Foundation.Errors.InputException">A setting names a parameter none of the models has.</exception>
+    public static IReadOnlyList<Hypothesis> BuildChecked(StudyDefinition study)
+    {
+        ArgumentNullException.ThrowIfNull(study);
+        var families = study.Models.Select(WorldModels.Get).ToArray();
+        var known = families.SelectMany(f => KnownNames(f, study.Nuisance)).ToHashSet(StringComparer.Ordinal);
+        foreach (var p in study.Parameters.Concat(study.ModelParameters.Values.SelectMany(v => v)))
+            if (!known.Contains(p.Name))
+                throw new SizeTest.Foundation.Errors.InputException($"the study file sets parameter '{p.Name}', which no model has for this sample; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}",
+                    study.StudyFilePath.Length > 0 ? study.StudyFilePath : null);
+        return families.Select(f => For(f, study)).ToArray();
+    }
+
     /// <summary>The hypothesis of one world model: the study-wide settings, then that model's own settings on top.</summary>
     public static Hypothesis For(IWorldModelFamily family, StudyDefinition study)
     {

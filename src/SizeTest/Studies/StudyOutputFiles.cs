@@ -1,6 +1,6 @@
 using System.Globalization;
 using System.Text;
-using SizeTest.Common;
+using SizeTest.Foundation.Files;
 using SizeTest.Inference;
 
 namespace SizeTest.Studies;
@@ -21,7 +21,7 @@ public static class StudyOutputFiles
     /// <param name="folder">The output folder (not yet committed).</param>
     /// <param name="result">The study result.</param>
     /// <param name="rejectCsv">The reject log as CSV (all ranks' rejects).</param>
-    public static IReadOnlyList<string> Write(OutputFolder folder, StudyResult result, string rejectCsv)
+    public static IReadOnlyList<string> Write(OutputFolder folder, FitResult result, string rejectCsv)
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(result);

@@ -1,5 +1,5 @@
 using System.Globalization;
-using SizeTest.Catalogs;
+using SizeTest.Catalogues;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Reporting.Data;
@@ -23,17 +23,17 @@ public static class StudyReportAdapter
     /// <param name="Load">The catalogue load (sample, reject log, mapping).</param>
     /// <param name="CorrectionLines">The photometry corrections applied, in words (<c>PhotometryResult.Corrections</c>).</param>
     /// <param name="Hypotheses">The hypotheses fitted (for parameter statuses and priors).</param>
-    public sealed record Inputs(StudyDefinition Study, SampleLoad Load, IReadOnlyList<string> CorrectionLines, IReadOnlyList<Hypothesis> Hypotheses);
+    public sealed record Inputs(StudyDefinition Study, CatalogueLoad Load, IReadOnlyList<string> CorrectionLines, IReadOnlyList<Hypothesis> Hypotheses);
 
     /// <summary>Builds the report data; <paramref name="posterior"/>, <paramref name="power"/> and <paramref name="manifest"/> may be null.</summary>
-    public static ReportData Build(StudyResult result, Inputs inputs, string version, string gitCommit, string catalogueLabel,
-        PosteriorSamples? posterior = null, PowerResult? power = null, RunManifest? manifest = null)
+    public static ReportData Build(FitResult result, Inputs inputs, string version, string gitCommit, string catalogueLabel,
+        CornerDraws? posterior = null, PowerResult? power = null, RunManifest? manifest = null)
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(inputs);
         var study = inputs.Study;
-        var sample = inputs.Load.Sample;
-        var points = SamplePoints.FromSample(sample);
+        var sample = inputs.Load.Rows;
+        var points = ObjectPoints.FromRows(sample);
         double zMin = sample.Count > 0 ? sample.Z.Min() : 0.01, zMax = sample.Count > 0 ? sample.Z.Max() : 3;
         if (!(zMax > zMin)) { zMin = Math.Max(1e-3, 0.5 * zMin); zMax = Math.Max(2 * zMax, zMin * 2); }
 
@@ -67,7 +67,7 @@ public static class StudyReportAdapter
                 },
                 Band = sample.Band is { Length: > 0 } b ? string.Join(", ", b.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Take(6)) : "",
             },
-            Sample = points,
+            Objects = points,
             Models = models,
             Assumptions = Assumptions(result, inputs),
             SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == "mu0")?.Value).FirstOrDefault(v => v is not null),
@@ -97,7 +97,7 @@ public static class StudyReportAdapter
         var parts = new List<string> { $"maximum likelihood ({s.Starts} optimiser start{(s.Starts == 1 ? "" : "s")} per model, Hessian 68% intervals)" };
         if (s.Bootstrap > 0) parts.Add($"{s.Bootstrap} bootstrap resamples per model");
         if (s.CrossValidationFolds > 0) parts.Add($"{s.CrossValidationFolds}-fold cross-validation");
-        if (s.Sampler == "mcmc") parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");
+        if (s.Sampler == SamplerKind.Mcmc) parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");
         parts.Add("models ranked by BIC");
         return string.Join("; ", parts);
     }
@@ -108,7 +108,7 @@ public static class StudyReportAdapter
     /// bolometric dimming exponent plus the study's offset (Tolman 1930) — the mean relations of the likelihood
     /// without the per-object K-corrections. "Without evolution" sets a = 0 and b = 0, keeping R0 and μ0.
     /// </summary>
-    private static double MedianMuError(SamplePoints points)
+    private static double MedianMuError(ObjectPoints points)
     {
         var e = points.MuErr?.Where(double.IsFinite).Order().ToArray() ?? [];
         return e.Length == 0 ? 0 : e[e.Length / 2];
@@ -174,7 +174,7 @@ public static class StudyReportAdapter
         return report;
     }
 
-    private static IReadOnlyList<Assumption> Assumptions(StudyResult result, Inputs inputs)
+    private static IReadOnlyList<Assumption> Assumptions(FitResult result, Inputs inputs)
     {
         var study = inputs.Study;
         var list = new List<Assumption>();
@@ -215,7 +215,7 @@ public static class StudyReportAdapter
             : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));
         if (inputs.Load.Mapping.Warnings.Count > 0)
             list.Add(new Assumption("units", string.Join(" ", inputs.Load.Mapping.Warnings.Select(w => w.TrimEnd('.') + "."))));
-        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Sample.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6))}."));
+        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6))}."));
         return list;
     }
 

@@ -12,7 +12,7 @@ public static class StudyResultsCsv
     private static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : "";
 
     /// <summary>The CSV text (LF line ends, header first).</summary>
-    public static string Write(StudyResult result)
+    public static string Write(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
         var sb = new StringBuilder();

@@ -8,4 +8,4 @@ namespace SizeTest.Studies;
 /// <param name="Report">The report data (report-data.json).</param>
 /// <param name="OutputDirectory">The folder written.</param>
 /// <param name="Files">Relative paths of every file written, sorted.</param>
-public sealed record StudyRunOutcome(StudyResult Result, ReportData Report, string OutputDirectory, IReadOnlyList<string> Files);
+public sealed record StudyRunOutcome(FitResult Result, ReportData Report, string OutputDirectory, IReadOnlyList<string> Files);

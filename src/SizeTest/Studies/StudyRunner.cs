@@ -1,6 +1,7 @@
 using System.Diagnostics;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Inference;
 using SizeTest.Inference.Sampling;
 using SizeTest.Photometry;
@@ -50,7 +51,7 @@ public static class StudyRunner
             options.Log?.Invoke($"loading catalogue {Rel(study.CataloguePath)}");
             if (!File.Exists(study.CataloguePath))
                 throw new InputException("catalogue file not found; check catalogue.path (it is relative to the study file)", Rel(study.CataloguePath));
-            var load = CatalogLoader.Load(study.CataloguePath, new CatalogLoadOptions { Reader = study.Reader, Mapping = study.Mapping });
+            var load = CatalogueLoader.Load(study.CataloguePath, new CatalogueLoadOptions { Reader = study.Reader, Mapping = study.Mapping });
             inputs.Add(study.CataloguePath);
             options.Log?.Invoke($"{load.RowsRead} rows read, {load.Accepted} accepted, {load.Rejected} rejected");
             Stage("load");
@@ -63,21 +64,32 @@ public static class StudyRunner
                 inputs.Add(full);
                 return text;
             }
-            var photometry = ObservablesBuilder.Build(load.Sample, PhotometryOptionParser.Parse(study.Corrections, ReadTable));
+            var photometryOptions = PhotometryOptionParser.Parse(study.Corrections, ReadTable);
+            if (study.Luminosity is not null) photometryOptions = photometryOptions with { Luminosity = study.Luminosity };
+            var photometry = ObservablesBuilder.Build(load.Rows, photometryOptions);
             Stage("photometry");
 
             var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
             foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
             load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);
+            Inference.Survey.SurveyBinding? survey = null;
+            if (study.Survey is { } surveyRequest)
+            {
+                // The survey terms need the loaded sample (group labels, bin edges, z_err): rebuild the hypotheses with them.
+                survey = Inference.Survey.SurveyBinding.Bind(surveyRequest, true, selected.Observables, study.Nuisance, hypotheses,
+                    nm => StudyHypotheses.BuildChecked(study with { Nuisance = nm }));
+                hypotheses = survey.Hypotheses;
+                foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + note);
+            }
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
             var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
-            var result = FitStudy.Run(new FitRequest
+            var result = FitRun.Run(new FitRequest
             {
                 Hypotheses = hypotheses,
                 Observables = observables,
-                Backend = Inference.Evaluation.EvaluationBackend.InProcess(observables, load.Sample.SourceRows),
+                Backend = Inference.Evaluation.EvaluationBackend.InProcess(observables, load.Rows.SourceRows),
                 Source = Rel(study.CataloguePath),
                 RowsRead = load.RowsRead,
                 Rejected = load.Rejected,
@@ -90,8 +102,9 @@ public static class StudyRunner
                 Walkers = study.SamplerWalkers,
                 Steps = study.SamplerSteps,
                 MaxSteps = study.SamplerMaxSteps,
-                ChainStoreFactory = study.Sampler == "mcmc" ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
+                ChainStoreFactory = study.Sampler == SamplerKind.Mcmc ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
+            if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
             Stage("fit");
 
             // Every model was sampled once inside the fit; the best-ranked model's chain is the one plotted.
@@ -154,13 +167,13 @@ public static class StudyRunner
     }
 
     // The kept MCMC draws of one model (θ columns of PosteriorDraws.Rows), as the report's corner plot takes them.
-    internal static PosteriorSamples? Plotted(StudyResult result, string model, IReadOnlyList<Hypothesis> hypotheses)
+    internal static CornerDraws? Plotted(FitResult result, string model, IReadOnlyList<Hypothesis> hypotheses)
     {
         var draws = result.Samples.FirstOrDefault(x => x.Model == model && x.Sampler == "mcmc");
         var h = hypotheses.FirstOrDefault(x => x.Label == model);
         if (draws is null || h is null || draws.Rows.Count == 0) return null;
         int d = draws.ParameterNames.Count;
-        return new PosteriorSamples(model, draws.ParameterNames,
+        return new CornerDraws(model, draws.ParameterNames,
             h.FreeParameters.Select(p => p.Spec.Unit.Length == 0 ? "dimensionless" : p.Spec.Unit).ToArray(),
             draws.Rows.Select(r => r[..d]).ToArray());
     }

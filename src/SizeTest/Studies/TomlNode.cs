@@ -1,5 +1,6 @@
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 using Tomlyn.Parsing;
 using Tomlyn.Syntax;
 

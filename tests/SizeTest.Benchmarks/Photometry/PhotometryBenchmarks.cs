@@ -1,5 +1,5 @@
 using BenchmarkDotNet.Attributes;
-using SizeTest.Catalogs;
+using SizeTest.Catalogues;
 using SizeTest.Photometry;
 
 namespace SizeTest.Benchmarks.Photometry;
@@ -17,7 +17,7 @@ public class PhotometryBenchmarks
     private double[] _out = [];
     private IsophotalSize _sersic = null!;
     private TemplateKCorrection _k = null!;
-    private Sample _sample = null!;
+    private CatalogueRows _sample = null!;
     private PhotometryOptions _options = null!;
 
     /// <summary>Synthetic inputs.</summary>
@@ -44,7 +44,7 @@ public class PhotometryBenchmarks
         int nObj = 100_000;
         var z = new double[nObj];
         for (int i = 0; i < nObj; i++) z[i] = 0.01 + 2.0 * rng.NextDouble();
-        _sample = new Sample("synthetic", Enumerable.Range(1, nObj).Select(i => (long)i).ToArray(), z, mu: z.Select(_ => 22.0).ToArray());
+        _sample = new CatalogueRows("synthetic", Enumerable.Range(1, nObj).Select(i => (long)i).ToArray(), z, mu: z.Select(_ => 22.0).ToArray());
         _options = new PhotometryOptions { KCorrection = new KCorrectionOption.Template(t, r, b) };
     }
 

@@ -7,14 +7,14 @@ namespace SizeTest.Tests.Architecture;
 /// Enforces the data flow of DEVELOPERS.md ("The layering rule"): a stage may use only stages to
 /// its left, and physics stages do no file or console I/O. Stage references are read from the
 /// compiled library (<see cref="TypeReferenceScanner"/>), so every spelling of a name counts —
-/// fully qualified, namespace-relative (<c>Catalogs.SizeKind</c> inside <c>SizeTest.Inference</c>)
+/// fully qualified, namespace-relative (<c>Catalogues.SizeKind</c> inside <c>SizeTest.Inference</c>)
 /// or through a <c>using</c> alias. <see cref="LayeringCheckerTests"/> shows that it catches them.
 /// </summary>
 public sealed partial class LayeringTests
 {
     /// <summary>The order of the data flow; Distributed sits right of Inference and may use it.</summary>
     internal static readonly string[] Stages =
-        ["Common", "Cosmology", "Catalogs", "Photometry", "Inference", "Distributed", "Simulation", "Reporting", "Studies"];
+        ["Foundation", "Cosmology", "Catalogues", "Photometry", "Inference", "Distributed", "Simulation", "Reporting", "Studies"];
 
     // Files in physics stages that are allowed to touch the file system, with the reason.
     private static readonly Dictionary<string, string> IoAllowed = new()
@@ -23,7 +23,7 @@ public sealed partial class LayeringTests
         ["Inference/Sampling/CsvChainStore.cs"] = "the file-backed chain store (storage behind an interface)",
     };
 
-    /// <summary>The stage of a namespace (<c>SizeTest.Catalogs.Text</c> → Catalogs), or null outside the stages.</summary>
+    /// <summary>The stage of a namespace (<c>SizeTest.Catalogues.Text</c> → Catalogues), or null outside the stages.</summary>
     internal static string? StageOf(string ns)
     {
         var parts = ns.Split('.');
@@ -51,7 +51,7 @@ public sealed partial class LayeringTests
     [Fact]
     public void StagesUseOnlyStagesToTheirLeft()
     {
-        var library = typeof(SizeTest.Common.InputException).Assembly.Location;
+        var library = typeof(SizeTest.Foundation.Errors.InputException).Assembly.Location;
         var uses = TypeReferenceScanner.Scan(library, ns => StageOf(ns) is not null);
         // The scan sees the library's own cross-stage uses (a sanity check that it reads anything):
         // Inference binds Photometry's Observables, so at least that use must be found.

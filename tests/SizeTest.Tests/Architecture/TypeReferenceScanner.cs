@@ -13,7 +13,7 @@ internal readonly record struct TypeUse(string FromNamespace, string FromType, s
 /// System.Reflection.Metadata: base types, interfaces, generic constraints, field, method,
 /// property and local-variable signatures, custom attributes and every type, method and field
 /// token in the method bodies' IL. Because this is what the compiler resolved, the spelling in
-/// the source (fully qualified, namespace-relative such as <c>Catalogs.SizeKind</c> inside
+/// the source (fully qualified, namespace-relative such as <c>Catalogues.SizeKind</c> inside
 /// <c>SizeTest.Inference</c>, or a <c>using</c> alias) does not matter. Nested and
 /// compiler-generated types (lambdas, iterators, async state machines) count as their
 /// outermost declaring type.

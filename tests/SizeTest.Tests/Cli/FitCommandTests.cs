@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Common;
 using SizeTest.Tests.Inference;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Cli;
 
@@ -19,13 +19,13 @@ public sealed class FitCommandTests : IDisposable
     }
 
     /// <summary>A synthetic (mock) catalogue: EdS, R0 = 4 kpc, a = −1, 0.2 dex; θ in arcsec; one bad row (z = −1).</summary>
-    private string WriteCatalog(int n = 400, int seed = 3)
+    private string WriteCatalogue(int n = 400, int seed = 3)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed);
         var sb = new StringBuilder("# synthetic mock catalogue for tests\nid,z,theta_arcsec,theta_err_arcsec,mu,mu_err\n");
         for (int i = 0; i < obs.Count; i++)
         {
-            double th = Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(CultureInfo.InvariantCulture, $"g{i},{obs.Z[i]:R},{th:R},{0.05 * th:R},{obs.Mu![i]:R},0.1\n");
         }
         sb.Append("bad,-1,0.5,0.01,22,0.1\n");
@@ -42,7 +42,7 @@ public sealed class FitCommandTests : IDisposable
     [Fact]
     public void FitWritesResultsJsonWithTheDesignKeys()
     {
-        var cat = WriteCatalog();
+        var cat = WriteCatalogue();
         var outDir = Path.Combine(_dir, "out");
         var (exit, stdout, err) = Fit(cat, outDir, "--models", "eds,static-linear", "--cv-folds", "0");
         Assert.True(exit == 0, err);
@@ -74,7 +74,7 @@ public sealed class FitCommandTests : IDisposable
     [Fact]
     public void ExistingOutputIsRefusedWithoutForce()
     {
-        var cat = WriteCatalog(150);
+        var cat = WriteCatalogue(150);
         var outDir = Path.Combine(_dir, "out");
         Assert.Equal(0, Fit(cat, outDir, "--models", "eds", "--cv-folds", "0").Exit);
         var (exit, _, err) = Fit(cat, outDir, "--models", "eds", "--cv-folds", "0");
@@ -86,7 +86,7 @@ public sealed class FitCommandTests : IDisposable
     [Fact]
     public void SameInputsAndSeedGiveByteIdenticalResults()
     {
-        var cat = WriteCatalog(300);
+        var cat = WriteCatalogue(300);
         string[] args = ["--models", "lcdm,tired-light", "--bootstrap", "20", "--cv-folds", "3", "--seed", "7", "--free", "omega_m", "--fix", "size_evolution=-1"];
         Assert.Equal(0, Fit(cat, Path.Combine(_dir, "a"), args).Exit);
         Assert.Equal(0, Fit(cat, Path.Combine(_dir, "b"), args).Exit);
@@ -102,7 +102,7 @@ public sealed class FitCommandTests : IDisposable
     [InlineData("--observable", "colour")]
     public void BadOptionsAreExitCodeTwoWithOneLine(string option, string value)
     {
-        var cat = WriteCatalog(50);
+        var cat = WriteCatalogue(50);
         var (exit, _, err) = Fit(cat, Path.Combine(_dir, "x"), option, value);
         Assert.Equal(2, exit);
         Assert.Single(err.Trim().Split('\n'));
@@ -110,7 +110,7 @@ public sealed class FitCommandTests : IDisposable
     }
 
     [Fact]
-    public void MissingCatalogIsExitCodeTwo()
+    public void MissingCatalogueIsExitCodeTwo()
     {
         var (exit, _, err) = Fit(Path.Combine(_dir, "none.csv"), Path.Combine(_dir, "x"));
         Assert.Equal(2, exit);
@@ -120,7 +120,7 @@ public sealed class FitCommandTests : IDisposable
     [Fact]
     public void SamplersWriteChainsAndEvidence()
     {
-        var cat = WriteCatalog(200);
+        var cat = WriteCatalogue(200);
         var mc = Path.Combine(_dir, "mc");
         var (exitMc, _, errMc) = Fit(cat, mc, "--models", "eds", "--cv-folds", "0", "--sampler", "mcmc", "--walkers", "16", "--steps", "300");
         // 300 steps may be too short for the strict diagnostics: either verdict is acceptable, but it must be stated.
@@ -148,7 +148,7 @@ public sealed class FitCommandTests : IDisposable
     public void DegenerateFitIsFlaggedAndExitsOne()
     {
         // Freeing h0 for sizes leaves only R0·H0 constrained: the Hessian is singular, so the fit is not converged.
-        var cat = WriteCatalog(200);
+        var cat = WriteCatalogue(200);
         var outDir = Path.Combine(_dir, "deg");
         var (exit, stdout, err) = Fit(cat, outDir, "--models", "eds", "--free", "h0", "--cv-folds", "0");
         Assert.Equal(1, exit);

@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Common;
 using SizeTest.Tests.Inference;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Cli;
 
@@ -21,13 +21,13 @@ public sealed class FitIdentifiabilityCliTests : IDisposable
 
     private static readonly string[] ColArgs = ["--col", "z=z", "--col", "theta=theta_arcsec:arcsec", "--col", "theta_err=theta_err_arcsec:arcsec"];
 
-    private string Catalog(int n, int seed = 3)
+    private string Catalogue(int n, int seed = 3)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed);
         var sb = new StringBuilder("# synthetic mock catalogue for tests\nid,z,theta_arcsec,theta_err_arcsec\n");
         for (int i = 0; i < obs.Count; i++)
         {
-            double th = Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(CultureInfo.InvariantCulture, $"g{i},{obs.Z[i]:R},{th:R},{0.05 * th:R}\n");
         }
         var path = Path.Combine(_dir, $"mock{n}.csv");
@@ -39,7 +39,7 @@ public sealed class FitIdentifiabilityCliTests : IDisposable
     public void MoreFreeParametersThanObjectsExitsTwoNamingTheCounts()
     {
         // Size fit: r0_kpc, size_evolution, scatter_dex free (k = 3) on 2 objects.
-        var (exit, _, err) = CliRunner.Run(["fit", Catalog(2), .. ColArgs, "--models", "eds", "--observable", "size", "--out", Path.Combine(_dir, "o1")]);
+        var (exit, _, err) = CliRunner.Run(["fit", Catalogue(2), .. ColArgs, "--models", "eds", "--observable", "size", "--out", Path.Combine(_dir, "o1")]);
         Assert.Equal(2, exit);
         Assert.Contains("k = 3", err, StringComparison.Ordinal);
         Assert.Contains("n = 2", err, StringComparison.Ordinal);
@@ -49,7 +49,7 @@ public sealed class FitIdentifiabilityCliTests : IDisposable
     [Fact]
     public void MoreFoldsThanRowsExitsTwo()
     {
-        var (exit, _, err) = CliRunner.Run(["fit", Catalog(200), .. ColArgs, "--models", "eds", "--observable", "size", "--cv-folds", "201", "--out", Path.Combine(_dir, "o2")]);
+        var (exit, _, err) = CliRunner.Run(["fit", Catalogue(200), .. ColArgs, "--models", "eds", "--observable", "size", "--cv-folds", "201", "--out", Path.Combine(_dir, "o2")]);
         Assert.Equal(2, exit);
         Assert.Contains("--cv-folds 201", err, StringComparison.Ordinal);
         Assert.Contains("200", err, StringComparison.Ordinal);
@@ -59,7 +59,7 @@ public sealed class FitIdentifiabilityCliTests : IDisposable
     public void ResultsJsonStatesHowEveryIntervalWasObtained()
     {
         var outDir = Path.Combine(_dir, "o3");
-        var (exit, stdout, err) = CliRunner.Run(["fit", Catalog(300), .. ColArgs, "--models", "eds,static-linear", "--observable", "size", "--cv-folds", "3", "--out", outDir]);
+        var (exit, stdout, err) = CliRunner.Run(["fit", Catalogue(300), .. ColArgs, "--models", "eds,static-linear", "--observable", "size", "--cv-folds", "3", "--out", outDir]);
         Assert.True(exit == 0, err + stdout);
         using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "results.json")));
         foreach (var m in doc.RootElement.GetProperty("models").EnumerateArray())

@@ -1,5 +1,5 @@
 using System.Text.Json;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Tests.Catalogues;
 using Xunit;
 
 namespace SizeTest.Tests.Cli;

@@ -1,7 +1,7 @@
 using System.Text.Json;
-using SizeTest.Catalogs.Parquet;
+using SizeTest.Catalogues.Parquet;
 using SizeTest.Distributed;
-using SizeTest.Tests.Catalogs.Parquet;
+using SizeTest.Tests.Catalogues.Parquet;
 using Xunit;
 
 namespace SizeTest.Tests.Cli;
@@ -37,7 +37,7 @@ public sealed class ParquetInspectTests : IDisposable
         const int n = 3000;
         var z = new double[n]; var y = new double[n]; var e = new double[n];
         SyntheticKernelRows.Fill(8, 0, z, y, e);
-        var th = y.Select(v => Math.Exp(v) * SizeTest.Common.Units.ArcsecPerRadian).ToArray();
+        var th = y.Select(v => Math.Exp(v) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian).ToArray();
         z[3] = -0.5;
         var path = Path.Combine(_dir, "fit.parquet");
         ParquetTableWriter.Write(path, [ParquetColumnValues.Number("z", z), ParquetColumnValues.Number("theta", th),

@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Common;
 using SizeTest.Tests.Inference;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Cli;
 
@@ -20,13 +20,13 @@ public sealed class PhotometryOptionsCliTests : IDisposable
         try { Directory.Delete(_dir, true); } catch (IOException) { }
     }
 
-    /// <summary>A synthetic (mock) SB catalogue: EdS, μ0 = 21, b = 1, 0.3 mag scatter (MockCatalog).</summary>
-    private string WriteSbCatalog(int n = 400)
+    /// <summary>A synthetic (mock) SB catalogue: EdS, μ0 = 21, b = 1, 0.3 mag scatter (MockCatalogue).</summary>
+    private string WriteSbCatalogue(int n = 400)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed: 5);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed: 5);
         var sb = new StringBuilder("# synthetic mock catalogue for tests\nid,z,theta_arcsec,mu,mu_err\n");
         for (int i = 0; i < obs.Count; i++)
-            sb.Append(Inv, $"g{i},{obs.Z[i]:R},{Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian:R},{obs.Mu![i]:R},0.1\n");
+            sb.Append(Inv, $"g{i},{obs.Z[i]:R},{Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian:R},{obs.Mu![i]:R},0.1\n");
         var path = Path.Combine(_dir, "sb.csv");
         File.WriteAllText(path, sb.ToString());
         return path;
@@ -43,7 +43,7 @@ public sealed class PhotometryOptionsCliTests : IDisposable
     [Fact]
     public void FitKCorrectionPowerLawShiftsSbEvolutionByOnePlusAlpha()
     {
-        var cat = WriteSbCatalog();
+        var cat = WriteSbCatalogue();
         string none = Path.Combine(_dir, "none"), pl = Path.Combine(_dir, "pl");
         string[] common = ["fit", cat, .. SbCols, "--models", "eds", "--observable", "sb", "--cv-folds", "0"];
         var r0 = CliRunner.Run([.. common, "--out", none]);
@@ -67,7 +67,7 @@ public sealed class PhotometryOptionsCliTests : IDisposable
     [Fact]
     public void InspectListsTheCorrectionsThatWillBeApplied()
     {
-        var cat = WriteSbCatalog(50);
+        var cat = WriteSbCatalogue(50);
         var (exit, stdout, err) = CliRunner.Run(["inspect", cat, .. SbCols, "--kcorr", "powerlaw:0"]);
         Assert.True(exit == 0, err);
         int at = stdout.IndexOf("corrections that will be applied:", StringComparison.Ordinal);
@@ -93,7 +93,7 @@ public sealed class PhotometryOptionsCliTests : IDisposable
     [InlineData("--zero-points", "no-such-file.txt")]
     public void BadPhotometryOptionExitsTwoWithOneLine(string option, string value)
     {
-        var cat = WriteSbCatalog(30);
+        var cat = WriteSbCatalogue(30);
         var outDir = Path.Combine(_dir, "bad");
         var fit = CliRunner.Run(["fit", cat, .. SbCols, "--models", "eds", "--observable", "sb", option, value, "--out", outDir]);
         Assert.Equal(2, fit.Exit);
@@ -106,13 +106,13 @@ public sealed class PhotometryOptionsCliTests : IDisposable
     }
 
     /// <summary>The isophotal mock of <see cref="IsophotalLikelihoodTests"/> as a CSV catalogue.</summary>
-    private string WriteIsophotalCatalog(int n)
+    private string WriteIsophotalCatalogue(int n)
     {
         var mock = IsophotalLikelihoodTests.Draw(n, seed: 21).Isophotal;
         var sb = new StringBuilder("# synthetic isophotal mock catalogue for tests (isophote 26 mag/arcsec2, Sersic n = 1)\nid,z,theta_iso_arcsec,theta_err_arcsec,mu_e,mu_err\n");
         for (int i = 0; i < mock.Count; i++)
         {
-            double th = Math.Exp(mock.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(mock.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(Inv, $"g{i},{mock.Z[i]:R},{th:R},{0.05 * th:R},{mock.Mu![i]:R},0.05\n");
         }
         var path = Path.Combine(_dir, "iso.csv");
@@ -123,7 +123,7 @@ public sealed class PhotometryOptionsCliTests : IDisposable
     [Fact]
     public void FitIsophotalCatalogueThroughTheCommandLine()
     {
-        var cat = WriteIsophotalCatalog(1500);
+        var cat = WriteIsophotalCatalogue(1500);
         string[] cols = ["--col", "z=z", "--col", "theta=theta_iso_arcsec:arcsec", "--col", "theta_err=theta_err_arcsec:arcsec", "--col", "mu=mu_e", "--col", "mu_err=mu_err",
             "--size-def", "isophotal:26", "--models", "eds", "--cv-folds", "0"];
         // Size alone cannot predict isophotal radii: a clear input error.

@@ -1,5 +1,5 @@
 using SizeTest.Simulation;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Tests.Catalogues;
 using SizeTest.Tests.Simulation;
 using Xunit;
 

@@ -1,5 +1,5 @@
 using SizeTest.Cli;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using Xunit;
 
 namespace SizeTest.Tests.Cli;

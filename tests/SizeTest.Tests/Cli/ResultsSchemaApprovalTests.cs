@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Common;
 using SizeTest.Tests.Inference;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Cli;
 
@@ -60,13 +60,13 @@ public sealed class ResultsSchemaApprovalTests : IDisposable
     }
 
     /// <summary>A synthetic (mock) catalogue: EdS, R0 = 4 kpc, a = −1, 0.2 dex, SB evolution; one bad row.</summary>
-    private string WriteCatalog(int n = 200, int seed = 5)
+    private string WriteCatalogue(int n = 200, int seed = 5)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed);
         var sb = new StringBuilder("# synthetic mock catalogue for the schema approval test\nid,z,theta,theta_err,mu,mu_err\n");
         for (int i = 0; i < obs.Count; i++)
         {
-            double th = Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(CultureInfo.InvariantCulture, $"g{i},{obs.Z[i]:R},{th:R},{0.05 * th:R},{obs.Mu![i]:R},0.1\n");
         }
         sb.Append("bad,-1,0.5,0.01,22,0.1\n");
@@ -80,7 +80,7 @@ public sealed class ResultsSchemaApprovalTests : IDisposable
     {
         var outDir = Path.Combine(_dir, "out");
         // Small but touching every section: two models, bootstrap, cross-validation, a profile, an expected range.
-        var (exit, _, err) = CliRunner.Run("fit", WriteCatalog(), "--models", "eds,static-linear", "--starts", "1",
+        var (exit, _, err) = CliRunner.Run("fit", WriteCatalogue(), "--models", "eds,static-linear", "--starts", "1",
             "--bootstrap", "3", "--cv-folds", "2", "--profile", "size_evolution", "--expect", "size_evolution=-1.5:-0.5",
             "--seed", "2", "--out", outDir);
         Assert.True(exit is 0 or 1, err); // 1 = a model did not converge; the file is written and its schema is the same

@@ -1,9 +1,9 @@
 using Xunit;
 using System.Text.Json;
-using SizeTest.Catalogs;
-using SizeTest.Common;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Catalogues;
+using SizeTest.Tests.Catalogues;
 using SizeTest.Tests.Simulation;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Cli;
 
@@ -19,12 +19,12 @@ public sealed class SimulateCommandTests
             "--sb-limit", "24", "--size-evolution", "-0.8", "--photoz-err", "0.02", "--out", path);
         Assert.True(code == 0, err);
         Assert.Contains("1500 synthetic galaxies", stdout);
-        var load = CatalogLoader.Load(path);
+        var load = CatalogueLoader.Load(path);
         Assert.Equal(1500, load.Accepted);
         Assert.Equal(0, load.Rejected);
         foreach (var role in new[] { ColumnRole.Id, ColumnRole.Z, ColumnRole.ZErr, ColumnRole.Theta, ColumnRole.ThetaErr, ColumnRole.Mu, ColumnRole.MuErr, ColumnRole.Mag })
             Assert.True(load.Mapping.Roles.ContainsKey(role), $"role {role} not detected");
-        Assert.All(load.Sample.Mu!, mu => Assert.True(mu < 24));
+        Assert.All(load.Rows.Mu!, mu => Assert.True(mu < 24));
 
         using var truth = JsonDocument.Parse(File.ReadAllText(path + ".truth.json"));
         var root = truth.RootElement;
@@ -64,14 +64,14 @@ public sealed class SimulateCommandTests
         string[] args = ["simulate", "--kind", "radio", "--n", "300", "--seed", "4", "--z-dist", "uniform:0.5:3"];
         Assert.Equal(0, CliRunner.Run([.. args, "--out", fits]).Exit);
         Assert.Equal(0, CliRunner.Run([.. args, "--out", csv]).Exit);
-        var f = CatalogLoader.Load(fits);
-        var c = CatalogLoader.Load(csv);
+        var f = CatalogueLoader.Load(fits);
+        var c = CatalogueLoader.Load(csv);
         Assert.Equal("mas", f.Mapping.Roles[ColumnRole.Theta].Unit);
         Assert.Equal(300, f.Accepted);
         for (int i = 0; i < 300; i++)
-            Assert.Equal(c.Sample.ThetaRad![i], f.Sample.ThetaRad![i], c.Sample.ThetaRad[i] * 1e-14); // mas×1000 vs arcsec: equal to rounding
+            Assert.Equal(c.Rows.ThetaRad![i], f.Rows.ThetaRad![i], c.Rows.ThetaRad[i] * 1e-14); // mas×1000 vs arcsec: equal to rounding
         // Compact sources of ℓ_m = 11.03 pc at 0.5 < z < 3 in flat ΛCDM span about 1.2–2 mas (θ = ℓ/D_A; D_A ≈ 1259–1748 Mpc, docs/science.md §2.2).
-        double medianMas = f.Sample.ThetaRad!.Order().ElementAt(150) / Units.RadiansPerMilliarcsec;
+        double medianMas = f.Rows.ThetaRad!.Order().ElementAt(150) / AngleUnits.RadiansPerMilliarcsec;
         Assert.InRange(medianMas, 0.9, 2.2);
     }
 
@@ -81,7 +81,7 @@ public sealed class SimulateCommandTests
         using var tmp = new TempFiles();
         string vot = tmp.PathOf("m.vot");
         Assert.Equal(0, CliRunner.Run("simulate", "--n", "200", "--seed", "3", "--out", vot).Exit);
-        Assert.Equal(200, CatalogLoader.Load(vot).Accepted);
+        Assert.Equal(200, CatalogueLoader.Load(vot).Accepted);
     }
 
     [Theory]
@@ -117,7 +117,7 @@ public sealed class SimulateCommandTests
         string bad = tmp.Write("bad.txt", "0.2 0.6 1\n0.7 1.0 3\n");
         string out1 = tmp.PathOf("h.csv");
         Assert.Equal(0, CliRunner.Run("simulate", "--n", "400", "--seed", "2", "--z-dist", "hist:" + good, "--out", out1).Exit);
-        var z = CatalogLoader.Load(out1).Sample.Z;
+        var z = CatalogueLoader.Load(out1).Rows.Z;
         Assert.All(z, v => Assert.InRange(v, 0.2, 1.0));
         var (code, _, err) = CliRunner.Run("simulate", "--n", "40", "--seed", "2", "--z-dist", "hist:" + bad, "--out", tmp.PathOf("h2.csv"));
         Assert.Equal(2, code);

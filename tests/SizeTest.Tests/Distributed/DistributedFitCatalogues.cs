@@ -1,6 +1,6 @@
 using System.Globalization;
 using System.Text;
-using SizeTest.Catalogs.Parquet;
+using SizeTest.Catalogues.Parquet;
 using SizeTest.Distributed;
 
 namespace SizeTest.Tests.Distributed;
@@ -12,7 +12,7 @@ internal static class DistributedFitCatalogues
     {
         var z = new double[n]; var y = new double[n]; var e = new double[n];
         SyntheticKernelRows.Fill(seed, 0, z, y, e);
-        var th = y.Select(v => Math.Exp(v) * SizeTest.Common.Units.ArcsecPerRadian).ToArray();
+        var th = y.Select(v => Math.Exp(v) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian).ToArray();
         var te = th.Select((t, i) => t * e[i]).ToArray();
         z[5] = -1; // one bad row: rejected by the loader
         return (z, th, te);

@@ -57,7 +57,7 @@ public sealed class ConcurrentOutputTests : IDisposable
     [Fact]
     public void TwoRunsOnOneNewFolderOneWinsTheOtherIsRefused()
     {
-        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogText(300));
+        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogueText(300));
         var catalogue = File.ReadAllBytes(Path.Combine(_dir, "c.csv"));
         var runs = RunTwoAtOnce(force: false);
         Assert.Equal([0, 2], runs.Select(r => r.Exit).OrderBy(e => e));
@@ -71,7 +71,7 @@ public sealed class ConcurrentOutputTests : IDisposable
     [Fact]
     public void TwoForcedRunsOnAnEarlierResultLeaveOneCompleteResult()
     {
-        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogText(300));
+        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogueText(300));
         var catalogue = File.ReadAllBytes(Path.Combine(_dir, "c.csv"));
         var first = CliProcess.Run(_dir, FitArgs(force: false));
         Assert.True(first.Exit == 0, first.Err);
@@ -89,7 +89,7 @@ public sealed class ConcurrentOutputTests : IDisposable
     [Fact]
     public void AnUnwritableOutputFolderIsExit2WithOneLine()
     {
-        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogText(40));
+        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogueText(40));
         var frozen = Directory.CreateDirectory(Path.Combine(_dir, "frozen")).FullName;
         // An immutable folder (chattr +i: not even root may create entries in it). Where the file system has no
         // such attribute, /proc/1 stands in: no process, root included, may create a folder there.

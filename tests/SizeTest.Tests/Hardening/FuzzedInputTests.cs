@@ -1,6 +1,6 @@
 using System.Text;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Studies;
 using SizeTest.Tests.Cli;
 using Xunit;
@@ -178,7 +178,7 @@ public sealed class FuzzedInputTests(ITestOutputHelper output)
         long before = GC.GetAllocatedBytesForCurrentThread();
         try
         {
-            var load = CatalogLoader.Load(path, new CatalogLoadOptions());
+            var load = CatalogueLoader.Load(path, new CatalogueLoadOptions());
             if (load.RowsRead != load.Accepted + load.Rejected)
                 failures.Add($"{label}: read {load.RowsRead} ≠ accepted {load.Accepted} + rejected {load.Rejected}");
         }

@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Text;
-using SizeTest.Common;
 using SizeTest.Tests.Inference;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Hardening;
 
@@ -14,13 +14,13 @@ internal static class HardeningData
     public static readonly string[] Quick = ["--models", "eds", "--starts", "1", "--cv-folds", "0"];
 
     /// <summary>CSV text of <paramref name="n"/> objects drawn from EdS (R0 = 4 kpc, a = −1, 0.2 dex scatter).</summary>
-    public static string CatalogText(int n = 120, int seed = 3)
+    public static string CatalogueText(int n = 120, int seed = 3)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed);
         var sb = new StringBuilder("# synthetic mock catalogue for tests\nid,z,theta_arcsec,theta_err_arcsec,mu,mu_err\n");
         for (int i = 0; i < obs.Count; i++)
         {
-            double th = Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(CultureInfo.InvariantCulture, $"g{i},{obs.Z[i]:R},{th:R},{0.05 * th:R},{obs.Mu![i]:R},0.1\n");
         }
         return sb.ToString();

@@ -20,7 +20,7 @@ public sealed class InterruptTests : IDisposable
     public async Task SignalInTheMiddleOfALongMcmcRemovesTheStagingFolderAndKeepsThePreviousOutput(int signal, int expectedExit)
     {
         var cat = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(cat, HardeningData.CatalogText(200));
+        File.WriteAllText(cat, HardeningData.CatalogueText(200));
         var outDir = Path.Combine(_dir, "out");
         var first = CliRunner.Run(["fit", cat, .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", outDir]);
         Assert.True(first.Exit == 0, first.Err);

@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Catalogues;
+using SizeTest.Tests.Catalogues;
 using Xunit;
 
 namespace SizeTest.Tests.Hardening;
@@ -21,7 +21,7 @@ public sealed class NonFiniteCellTests
         var lines = new List<string> { string.Join(delimiter, "z", "theta"), string.Join(delimiter, "0.5", "1.0") };
         lines.AddRange(Spellings.Select(s => string.Join(delimiter, "0.6", s)));
         var p = t.Write(delimiter == "," ? "c.csv" : "c.txt", string.Join("\n", lines) + "\n");
-        AssertAllNonFinite(CatalogLoader.Load(p));
+        AssertAllNonFinite(CatalogueLoader.Load(p));
     }
 
     [Fact]
@@ -36,7 +36,7 @@ public sealed class NonFiniteCellTests
              <DATA><TABLEDATA><TR><TD>0.5</TD><TD>1.0</TD></TR>{rows}</TABLEDATA></DATA>
             </TABLE></RESOURCE></VOTABLE>
             """);
-        AssertAllNonFinite(CatalogLoader.Load(p));
+        AssertAllNonFinite(CatalogueLoader.Load(p));
     }
 
     [Fact]
@@ -49,7 +49,7 @@ public sealed class NonFiniteCellTests
         Assert.False(NumberText.TryParse("abc", out _));
     }
 
-    private static void AssertAllNonFinite(SampleLoad load)
+    private static void AssertAllNonFinite(CatalogueLoad load)
     {
         Assert.Equal(1 + Spellings.Length, load.RowsRead);
         Assert.Equal(1, load.Accepted);

@@ -1,4 +1,5 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Tests.Cli;
 using Xunit;
 
@@ -22,7 +23,7 @@ public sealed class OutputFolderTests : IDisposable
     {
         // Reproduction 1a: sizetest fit data/c.csv --out data --force deleted c.csv and every other file.
         var data = Directory.CreateDirectory(Path.Combine(_dir, "data")).FullName;
-        File.WriteAllText(Path.Combine(data, "c.csv"), HardeningData.CatalogText());
+        File.WriteAllText(Path.Combine(data, "c.csv"), HardeningData.CatalogueText());
         File.WriteAllText(Path.Combine(data, "notes.txt"), "my notes");
         var before = HardeningData.Snapshot(data);
         var (exit, _, err, _) = CliProcess.Run(_dir, ["fit", "data/c.csv", .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", "data", "--force"]);
@@ -38,7 +39,7 @@ public sealed class OutputFolderTests : IDisposable
     {
         // Reproduction 1b: run s1.toml --out . --force removed the study file, the catalogue folder and a paper draft.
         Directory.CreateDirectory(Path.Combine(_dir, "cat"));
-        File.WriteAllText(Path.Combine(_dir, "cat", "mock.csv"), HardeningData.CatalogText());
+        File.WriteAllText(Path.Combine(_dir, "cat", "mock.csv"), HardeningData.CatalogueText());
         File.WriteAllText(Path.Combine(_dir, "paper.tex"), "\\documentclass{article} draft");
         File.WriteAllText(Path.Combine(_dir, "s1.toml"), """
             name = "owned-folder"
@@ -63,7 +64,7 @@ public sealed class OutputFolderTests : IDisposable
     public void ForceReplacesOnlyAFolderSizeTestWroteAndOnlyItsFiles()
     {
         var cat = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(cat, HardeningData.CatalogText());
+        File.WriteAllText(cat, HardeningData.CatalogueText());
         var outDir = Path.Combine(_dir, "out");
         var first = CliRunner.Run(["fit", cat, .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", outDir]);
         Assert.True(first.Exit == 0, first.Err);
@@ -140,7 +141,7 @@ public sealed class OutputFolderTests : IDisposable
     public void EmptyOutIsAClearExit2(string value)
     {
         var cat = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(cat, HardeningData.CatalogText(20));
+        File.WriteAllText(cat, HardeningData.CatalogueText(20));
         var (exit, _, err) = CliRunner.Run(["fit", cat, .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", value]);
         Assert.Equal(2, exit);
         Assert.Contains("output folder is empty", err);
@@ -150,7 +151,7 @@ public sealed class OutputFolderTests : IDisposable
     public void OutUnderAFileOrOnSysIsExit2NamingThePath()
     {
         var cat = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(cat, HardeningData.CatalogText(20));
+        File.WriteAllText(cat, HardeningData.CatalogueText(20));
         var under = CliRunner.Run(["fit", cat, .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", Path.Combine(cat, "x")]);
         Assert.Equal(2, under.Exit);
         Assert.Contains("which is a file", under.Err);
@@ -168,7 +169,7 @@ public sealed class OutputFolderTests : IDisposable
     {
         // Issue 14 point 6: `inspect --reject-log DIR` was an internal error.
         var cat = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(cat, HardeningData.CatalogText(20));
+        File.WriteAllText(cat, HardeningData.CatalogueText(20));
         var folder = Directory.CreateDirectory(Path.Combine(_dir, "rl")).FullName;
         File.WriteAllText(Path.Combine(folder, "keep.txt"), "mine");
         var (exit, _, err) = CliRunner.Run(["inspect", cat, "--reject-log", folder]);

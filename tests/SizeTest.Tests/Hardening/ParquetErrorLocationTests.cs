@@ -1,7 +1,7 @@
-using SizeTest.Catalogs;
-using SizeTest.Catalogs.Parquet;
-using SizeTest.Common;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Catalogues;
+using SizeTest.Catalogues.Parquet;
+using SizeTest.Foundation.Errors;
+using SizeTest.Tests.Catalogues;
 using Xunit;
 
 namespace SizeTest.Tests.Hardening;
@@ -28,7 +28,7 @@ public sealed class ParquetErrorLocationTests
         // Damage the first data page (just after the 4-byte 'PAR1' magic); the footer at the end stays intact.
         for (int i = 4; i < 40; i++) bytes[i] = 0xFF;
         File.WriteAllBytes(path, bytes);
-        var ex = Assert.Throws<InputException>(() => CatalogLoader.Load(path));
+        var ex = Assert.Throws<InputException>(() => CatalogueLoader.Load(path));
         Assert.DoesNotContain("line ", ex.Message);
         Assert.Contains("row group 0 (rows 1–20)", ex.Message);
         Assert.Contains("c.parquet, row 1, column 'z'", ex.Message);

@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Catalogues;
+using SizeTest.Tests.Catalogues;
 using Xunit;
 
 namespace SizeTest.Tests.Hardening;
@@ -15,7 +15,7 @@ public sealed class ProgressOnceTests
         using var t = new TempFiles();
         var p = t.Write("c.csv", "z,theta\n" + string.Concat(Enumerable.Range(0, rows).Select(_ => "0.5,1\n")));
         var seen = new List<long>();
-        var load = CatalogLoader.Load(p, new CatalogLoadOptions { ChunkRows = 5, ProgressInterval = 10, Progress = seen.Add });
+        var load = CatalogueLoader.Load(p, new CatalogueLoadOptions { ChunkRows = 5, ProgressInterval = 10, Progress = seen.Add });
         Assert.Equal(rows, load.RowsRead);
         Assert.Equal(expected, seen);
     }

@@ -1,5 +1,5 @@
 using SizeTest.Cli;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Tests.Cli;
 using Xunit;
 

@@ -1,5 +1,6 @@
 using System.Text;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Tests.Cli;
 using Xunit;
 
@@ -18,7 +19,7 @@ public sealed class ResourceLimitTests : IDisposable
     private string Cat()
     {
         var p = Path.Combine(_dir, "c.csv");
-        File.WriteAllText(p, HardeningData.CatalogText(40));
+        File.WriteAllText(p, HardeningData.CatalogueText(40));
         return p;
     }
 
@@ -97,7 +98,7 @@ public sealed class ResourceLimitTests : IDisposable
         var w = CliRunner.Run(["simulate", "--n", "150", "--seed", "4", "--out", pq]);
         Assert.True(w.Exit == 0, w.Err);
         Assert.Equal("PAR1", Encoding.ASCII.GetString(File.ReadAllBytes(pq).AsSpan(0, 4)));
-        var load = SizeTest.Catalogs.CatalogLoader.Load(pq, new SizeTest.Catalogs.CatalogLoadOptions());
+        var load = SizeTest.Catalogues.CatalogueLoader.Load(pq, new SizeTest.Catalogues.CatalogueLoadOptions());
         Assert.Equal(150, load.Accepted);
         Assert.Equal(150, load.RowsRead);
     }

@@ -1,8 +1,8 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Photometry;
 using SizeTest.Tests.Cli;
@@ -21,9 +21,9 @@ public sealed class SelectionConsistencyTests : IDisposable
     }
 
     // n objects from EdS; the first `faint` of them get μ = 26 (fainter than a 27 limit; the mock's μ stays below 26).
-    private string Catalog(int n, int faint)
+    private string Catalogue(int n, int faint)
     {
-        var lines = HardeningData.CatalogText(n).Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        var lines = HardeningData.CatalogueText(n).Split('\n', StringSplitOptions.RemoveEmptyEntries);
         var sb = new StringBuilder();
         sb.Append(lines[0]).Append('\n').Append(lines[1]).Append('\n');
         for (int i = 2; i < lines.Length; i++)
@@ -42,7 +42,7 @@ public sealed class SelectionConsistencyTests : IDisposable
     [Fact]
     public void AFewObjectsOutsideTheSbLimitGoToTheRejectLogWithAWarning()
     {
-        var cat = Catalog(200, 6);
+        var cat = Catalogue(200, 6);
         var outDir = Path.Combine(_dir, "out");
         var (exit, _, err) = CliRunner.Run(["fit", cat, .. SbFit, "--sb-limit", "27", "--out", outDir]);
         Assert.True(exit == 0, err);
@@ -60,7 +60,7 @@ public sealed class SelectionConsistencyTests : IDisposable
     public void MoreThanTheAllowedFractionOutsideRefusesTheFit()
     {
         // The reproduction had 1422 of 4000 objects fainter than --sb-limit 24.5 (35.6%); same fraction here.
-        var cat = Catalog(200, 71);
+        var cat = Catalogue(200, 71);
         var outDir = Path.Combine(_dir, "out");
         var (exit, _, err) = CliRunner.Run(["fit", cat, .. SbFit, "--sb-limit", "27", "--out", outDir]);
         Assert.Equal(2, exit);
@@ -74,7 +74,7 @@ public sealed class SelectionConsistencyTests : IDisposable
     [Fact]
     public void MinSizeAboveEveryObjectIsAClearExit2AndNoLikelihoodIsEvaluated()
     {
-        var cat = Catalog(50, 0);
+        var cat = Catalogue(50, 0);
         var (exit, _, err) = CliRunner.Run(["fit", cat, .. HardeningData.ColArgs, .. HardeningData.Quick, "--min-size", "1e308", "--out", Path.Combine(_dir, "o")]);
         Assert.Equal(2, exit);
         Assert.DoesNotContain("internal error", err);   // "every one of the 50 objects lies outside …" or the empty-sample refusal
@@ -87,7 +87,7 @@ public sealed class SelectionConsistencyTests : IDisposable
         // Closed form: μ = 22, θ = 1″ → m = 22 − 5 log10(1) − 2.5 log10(2π) = 22 − 1.995450 = 20.004550
         // (python3: 22 - 2.5*math.log10(2*math.pi) = 20.004550329104713); the cut is strict (m < limit).
         var load = FakeLoad();
-        var obs = Observables.FromSample(load.Sample);
+        var obs = Observables.FromRows(load.Rows);
         var joint = new NuisanceModel(ObservableKind.Joint, new SelectionLimits(MagLimit: 20.0));
         var e = Assert.Throws<InputException>(() => SelectionConsistency.Apply(load, obs, joint));
         Assert.Contains("2 mag_limit", e.Message);
@@ -97,15 +97,15 @@ public sealed class SelectionConsistencyTests : IDisposable
         Assert.Contains("every one of the 2 objects", none.Message);   // both out → none left, even when any fraction is allowed
     }
 
-    private static SampleLoad FakeLoad()
+    private static CatalogueLoad FakeLoad()
     {
         // Load a two-row CSV whose values match `sample` exactly (θ = 1″, μ = 22, z = 0.5).
         var dir = Directory.CreateTempSubdirectory("sizetest-sel-").FullName;
         var p = Path.Combine(dir, "t.csv");
         File.WriteAllText(p, "z,theta,mu\n0.5,1,22\n0.5,1,22\n");
-        var load = CatalogLoader.Load(p, new CatalogLoadOptions { Mapping = ColumnMapping.FromOptions(["z=z", "theta=theta:arcsec", "mu=mu"]) });
+        var load = CatalogueLoader.Load(p, new CatalogueLoadOptions { Mapping = ColumnMapping.FromOptions(["z=z", "theta=theta:arcsec", "mu=mu"]) });
         Directory.Delete(dir, true);
-        Assert.Equal(2, load.Sample.Count);
+        Assert.Equal(2, load.Rows.Count);
         return load;
     }
 }

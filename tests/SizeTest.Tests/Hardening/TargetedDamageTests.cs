@@ -61,7 +61,7 @@ public sealed class TargetedDamageTests(ITestOutputHelper output)
         string csvHeader = string.Join(",", Enumerable.Repeat("q", 10_000));
         Check("vot", [("5000 FIELDs named q", Encoding.UTF8.GetBytes(vot.Replace("<DATA>", fields + "<DATA>")))]);
         Check("csv", [("10000 columns named q", Encoding.UTF8.GetBytes(csvHeader + "\n" + string.Join(",", Enumerable.Repeat("1", 10_000)) + "\n"))]);
-        var names = new SizeTest.Catalogs.UniqueColumnNames();
+        var names = new SizeTest.Catalogues.UniqueColumnNames();
         Assert.Equal(["q", "q_2", "q_3", "q_2_2", "q_4"], new[] { "q", "q", "q", "q_2", "q" }.Select(names.Take));
     }
 

@@ -1,5 +1,5 @@
-using SizeTest.Common;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Foundation.Text;
+using SizeTest.Tests.Catalogues;
 using SizeTest.Tests.Cli;
 using Xunit;
 

@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
-using SizeTest.Common;
 using SizeTest.Inference;
 using SizeTest.Tests.Cli;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Inference;
 
@@ -18,14 +18,14 @@ public sealed class AutoStepsTests : IDisposable
         try { Directory.Delete(_dir, true); } catch (IOException) { }
     }
 
-    // A synthetic (mock) catalogue: EdS, R0 = 4 kpc, a = −1, 0.2 dex (MockCatalog defaults), seeded.
+    // A synthetic (mock) catalogue: EdS, R0 = 4 kpc, a = −1, 0.2 dex (MockCatalogue defaults), seeded.
     private string Catalogue(int n = 300, int seed = 5)
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalog.Truth(), seed);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(new Dictionary<string, double>()), n, new MockCatalogue.Truth(), seed);
         var sb = new StringBuilder("z,theta,theta_err\n");
         for (int i = 0; i < obs.Count; i++)
         {
-            double th = Math.Exp(obs.LnTheta![i]) * Units.ArcsecPerRadian;
+            double th = Math.Exp(obs.LnTheta![i]) * AngleUnits.ArcsecPerRadian;
             sb.Append(CultureInfo.InvariantCulture, $"{obs.Z[i]:R},{th:R},{0.05 * th:R}\n");
         }
         var path = Path.Combine(_dir, "mock.csv");
@@ -33,7 +33,7 @@ public sealed class AutoStepsTests : IDisposable
         return path;
     }
 
-    private static StudyResult Results(string folder) => ResultsJson.Deserialize(File.ReadAllText(Path.Combine(folder, "results.json")));
+    private static FitResult Results(string folder) => ResultsJson.Deserialize(File.ReadAllText(Path.Combine(folder, "results.json")));
 
     [Fact]
     public void AutoStepsRunsUntilTheRulesHoldAndStops()

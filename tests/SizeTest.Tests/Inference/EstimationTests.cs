@@ -13,10 +13,10 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void SizeFitRecoversInjectedParameters()
     {
-        // Truth: R0 = 4 kpc, a = −1, σ = 0.2 dex in EdS (synthetic mock, MockCatalog). Within 3σ of the Hessian
+        // Truth: R0 = 4 kpc, a = −1, σ = 0.2 dex in EdS (synthetic mock, MockCatalogue). Within 3σ of the Hessian
         // errors (a 3σ miss has probability 0.3%; the seed is fixed) and the Hessian errors are sane.
-        var truth = new MockCatalog.Truth();
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 2000, truth, seed: 21);
+        var truth = new MockCatalogue.Truth();
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 2000, truth, seed: 21);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size)).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
         Assert.True(fit.Converged, fit.ExitReason);
@@ -35,8 +35,8 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void JointFitWithKormendyRelationRecoversSbEvolutionAtFixedSize()
     {
-        var truth = new MockCatalog.Truth(Kormendy: 3.0, SbEvolution: 1.2);
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 3000, truth, seed: 8);
+        var truth = new MockCatalogue.Truth(Kormendy: 3.0, SbEvolution: 1.2);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, truth, seed: 8);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint, SizeSbRelation: true)).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
         Assert.True(fit.Converged, fit.ExitReason);
@@ -54,9 +54,9 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         // Mock from EdS with a = −1; a static d = cz/H0 model mimics much of it with size evolution (at n = 2000 and
         // 0.1 < z < 3 with 0.2 dex scatter the two differ by only ΔBIC ≈ 1), but not the curvature of ln θ(z) over
         // 0.05 < z < 5 at n = 10⁴ with 0.08 dex scatter (Δχ² grows as n/σ²; measured here ΔBIC ≫ 10).
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 10000, new MockCatalog.Truth(ScatterDex: 0.08), seed: 4, zMin: 0.05, zMax: 5, lnThetaErr: 0.02);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 10000, new MockCatalogue.Truth(ScatterDex: 0.08), seed: 4, zMin: 0.05, zMax: 5, lnThetaErr: 0.02);
         var nm = new NuisanceModel(ObservableKind.Size);
-        var result = FitStudy.Run(new FitRequest
+        var result = FitRun.Run(new FitRequest
         {
             Hypotheses = [Hypothesis.Create(TestWorldModels.StaticLinear, nm), Hypothesis.Create(TestWorldModels.Eds, nm)],
             Observables = obs,
@@ -74,8 +74,8 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void NoEvolutionMockIsNotFlaggedAsNeedingEvolution()
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 500, new MockCatalog.Truth(SizeEvolution: 0), seed: 99);
-        var r = FitStudy.Run(new FitRequest
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 500, new MockCatalogue.Truth(SizeEvolution: 0), seed: 99);
+        var r = FitRun.Run(new FitRequest
         {
             Hypotheses = [Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size))],
             Observables = obs,
@@ -92,8 +92,8 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     {
         // Truth a = −1 in EdS; keep only θ > 0.35″ (resolution limit), which removes small high-z objects.
         double thetaMin = 0.35;
-        double lnMin = Math.Log(thetaMin * SizeTest.Common.Units.RadiansPerArcsec);
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalog.Truth(), seed: 17,
+        double lnMin = Math.Log(thetaMin * SizeTest.Foundation.Angles.AngleUnits.RadiansPerArcsec);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalogue.Truth(), seed: 17,
             keep: (z, lnTheta, mu) => lnTheta > lnMin);
         double Fit(NuisanceModel nm)
         {
@@ -113,7 +113,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     public void IgnoringASurfaceBrightnessLimitBiasesTheTolmanFitAndModellingItRemovesTheBias()
     {
         // Truth b = 1 (EdS, n = 4); keep μ < 23.5, which removes faint high-z objects.
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalog.Truth(), seed: 23,
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalogue.Truth(), seed: 23,
             keep: (z, lnTheta, mu) => mu < 23.5);
         double Fit(NuisanceModel nm)
         {
@@ -132,9 +132,9 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     public void JointTruncationWithTwoCutsRecoversTruth()
     {
         double thetaMin = 0.3, sbLim = 24.0;
-        double lnMin = Math.Log(thetaMin * SizeTest.Common.Units.RadiansPerArcsec);
-        var truth = new MockCatalog.Truth(Kormendy: 2.5);
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 3000, truth, seed: 31,
+        double lnMin = Math.Log(thetaMin * SizeTest.Foundation.Angles.AngleUnits.RadiansPerArcsec);
+        var truth = new MockCatalogue.Truth(Kormendy: 2.5);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, truth, seed: 31,
             keep: (z, lnTheta, mu) => lnTheta > lnMin && mu < sbLim);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint, new SelectionLimits(SbLimit: sbLim, MinThetaArcsec: thetaMin), SizeSbRelation: true)).Bind(obs);
         var f = MaximumLikelihood.Fit(lik);
@@ -152,8 +152,8 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     {
         // m = μ − 5 log10(θ/″) − 2.5 log10(2π) (mean SB inside the half-light radius; SelectionLimits docs).
         double mLim = 22.0;
-        double Mag(double lnTheta, double mu) => mu - 5 * Math.Log10(Math.Exp(lnTheta) * SizeTest.Common.Units.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalog.Truth(Kormendy: 2.0), seed: 45,
+        double Mag(double lnTheta, double mu) => mu - 5 * Math.Log10(Math.Exp(lnTheta) * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, new MockCatalogue.Truth(Kormendy: 2.0), seed: 45,
             keep: (z, lnTheta, mu) => Mag(lnTheta, mu) < mLim);
         (double A, double Se) Fit(SelectionLimits cuts)
         {
@@ -173,7 +173,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     public void OmegaMatterCanBeFreeWithinBounds()
     {
         var model = TestWorldModels.FlatLcdm.Create(new Dictionary<string, double> { ["omega_m"] = 0.3 });
-        var obs = MockCatalog.Draw(model, 4000, new MockCatalog.Truth(SizeEvolution: 0, ScatterDex: 0.1), seed: 2, zMin: 0.05, zMax: 4);
+        var obs = MockCatalogue.Draw(model, 4000, new MockCatalogue.Truth(SizeEvolution: 0, ScatterDex: 0.1), seed: 2, zMin: 0.05, zMax: 4);
         var h = Hypothesis.Create(TestWorldModels.FlatLcdm, new NuisanceModel(ObservableKind.Size),
             new ParameterOverrides(Free: new HashSet<string> { "omega_m" }, Fixed: new Dictionary<string, double> { ["size_evolution"] = 0 }));
         var lik = h.Bind(obs);
@@ -187,7 +187,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     public void GaussianPriorPullsAnUnconstrainedParameter()
     {
         // h0 and r0 are degenerate for sizes; a Gaussian prior on h0 makes the fit well posed and h0 ≈ prior mean.
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 500, new MockCatalog.Truth(), seed: 6);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 500, new MockCatalogue.Truth(), seed: 6);
         var h = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size),
             new ParameterOverrides(Priors: new Dictionary<string, (double, double)> { ["h0"] = (68, 2) }));
         var lik = h.Bind(obs);
@@ -201,7 +201,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void BootstrapIntervalsAgreeWithHessianAndAreDeterministic()
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 800, new MockCatalog.Truth(), seed: 12);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 800, new MockCatalogue.Truth(), seed: 12);
         var h = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
@@ -225,7 +225,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void ProfileLikelihoodIntervalMatchesHessian()
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 1000, new MockCatalog.Truth(), seed: 14);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 1000, new MockCatalogue.Truth(), seed: 14);
         var h = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
@@ -239,7 +239,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
     [Fact]
     public void CrossValidationPrefersTheTrueModel()
     {
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 10000, new MockCatalog.Truth(ScatterDex: 0.08), seed: 40, zMin: 0.05, zMax: 5, lnThetaErr: 0.02);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 10000, new MockCatalogue.Truth(ScatterDex: 0.08), seed: 40, zMin: 0.05, zMax: 5, lnThetaErr: 0.02);
         var nm = new NuisanceModel(ObservableKind.Size);
         var eds = CrossValidation.Run(Hypothesis.Create(TestWorldModels.Eds, nm), obs, 5, seed: 3);
         var stat = CrossValidation.Run(Hypothesis.Create(TestWorldModels.StaticLinear, nm), obs, 5, seed: 3);
@@ -262,7 +262,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         var hits = new int[trials];
         Parallel.For(0, trials, t =>
         {
-            var obs = MockCatalog.Draw(model, 150, new MockCatalog.Truth(), seed: 1000 + t);
+            var obs = MockCatalogue.Draw(model, 150, new MockCatalogue.Truth(), seed: 1000 + t);
             var lik = h.Bind(obs);
             var fit = MaximumLikelihood.Fit(lik, new OptimizerSettings(Starts: 1));
             var a = FitSummaries.From(lik, fit).Parameters.Single(p => p.Name == "size_evolution");

@@ -58,7 +58,7 @@ public sealed class GradientTests
     private static Observables Sample(int n = 400, int seed = 7)
     {
         var model = WorldModels.LambdaCdm.Create(new Dictionary<string, double>());
-        return MockCatalog.Draw(model, n, new MockCatalog.Truth(Kormendy: 2.0), seed, zMin: 0.05, zMax: 2.5);
+        return MockCatalogue.Draw(model, n, new MockCatalogue.Truth(Kormendy: 2.0), seed, zMin: 0.05, zMax: 2.5);
     }
 
     public static TheoryData<string, string, double?, double?, double?, bool> Cases() => new()

@@ -1,5 +1,6 @@
 using SizeTest.Inference;
 using Xunit;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Tests.Inference;
 
@@ -69,5 +70,5 @@ public sealed class PValueWordingTests
     [InlineData(3.5e-7, "p = 3.5e-7")]
     [InlineData(0.0, "p < 1e-300")]
     public void PValuesAreNeverPrintedAsZero(double p, string expected) =>
-        Xunit.Assert.Equal(expected, SizeTest.Inference.LikelihoodRatioTest.FormatPValue(p));
+        Xunit.Assert.Equal(expected, SizeTest.Inference.Comparison.LikelihoodRatioTest.FormatPValue(p));
 }

@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Photometry;
@@ -32,14 +32,14 @@ public sealed class IsophotalLikelihoodTests
         for (int i = 0; i < n; i++)
         {
             double zi = 0.1 + 1.4 * rng.NextDouble();
-            double lnRe = Math.Log(R0) + A * Math.Log(1 + zi) + Math.Log(10) * ScatterDex * MockCatalog.Gauss(rng);
+            double lnRe = Math.Log(R0) + A * Math.Log(1 + zi) + Math.Log(10) * ScatterDex * MockCatalogue.Gauss(rng);
             double muRest = Mu0 - 2.5 * B * Math.Log10(1 + zi);
-            double muEffObs = SurfaceBrightness.Observed(muRest + ScatterMag * MockCatalog.Gauss(rng), zi, model.BolometricDimmingExponent);
+            double muEffObs = SurfaceBrightness.Observed(muRest + ScatterMag * MockCatalogue.Gauss(rng), zi, model.BolometricDimmingExponent);
             Assert.True(iso.TryLnRadiusRatio(muEffObs, Iso, out double lnRatio)); // every object reaches the isophote
             Assert.True(iso.TryLnRadiusRatio(SurfaceBrightness.Observed(muRest, zi, model.BolometricDimmingExponent), Iso, out meanRatio[i]));
             z[i] = zi;
-            y[i] = lnRe + lnRatio + Math.Log(1e-3) - Math.Log(model.AngularDiameterDistance(zi)) + ThetaErr * MockCatalog.Gauss(rng);
-            mu[i] = muEffObs + MuErr * MockCatalog.Gauss(rng);
+            y[i] = lnRe + lnRatio + Math.Log(1e-3) - Math.Log(model.AngularDiameterDistance(zi)) + ThetaErr * MockCatalogue.Gauss(rng);
+            mu[i] = muEffObs + MuErr * MockCatalogue.Gauss(rng);
         }
         var e = Enumerable.Repeat(ThetaErr, n).ToArray();
         var me = Enumerable.Repeat(MuErr, n).ToArray();
@@ -104,8 +104,8 @@ public sealed class IsophotalLikelihoodTests
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint), new ParameterOverrides(Fixed: fixedValues)).Bind(obs);
         Assert.Equal(1, lik.Dimension);
         var model = TestWorldModels.Eds.Create(Defaults);
-        double mu0 = 20.0, l10 = Math.Log10(1.5);
-        double muModel = mu0 + 2.5 * (4 - 1) * l10;
+        double mu0 = 20.0, log10OnePlusZ = Math.Log10(1.5);
+        double muModel = mu0 + 2.5 * (4 - 1) * log10OnePlusZ;
         // ln θ_iso = ln(R0 (1+z)^a 1e-3 / D_A) + n ln[1 + (μ_iso − μ_e,obs) ln10 / (2.5 b_n)] (Graham & Driver 2005 eq. 5).
         double lnThetaIso = Math.Log(4 * Math.Pow(1.5, -1) * 1e-3 / model.AngularDiameterDistance(0.5))
                             + N * Math.Log(1 + (Iso - muModel) * Math.Log(10) / (2.5 * SersicProfile.Bn(N)));
@@ -114,7 +114,7 @@ public sealed class IsophotalLikelihoodTests
         double expected = -0.5 * (rt * rt / vt + rm * rm / vm + Math.Log(vt * vm)) - Math.Log(2 * Math.PI); // bivariate normal, ρ = 0
         Assert.Equal(expected, lik.LogDensity([mu0]), 10);
         // Observed central SB μ_e,obs − 2.5 b_n/ln10 ≥ μ_iso: the isophote is not reached → −∞ (documented treatment).
-        double mu0Unreached = Iso + 2.5 * SersicProfile.Bn(N) / Math.Log(10) - 2.5 * 3 * l10 + 0.01;
+        double mu0Unreached = Iso + 2.5 * SersicProfile.Bn(N) / Math.Log(10) - 2.5 * 3 * log10OnePlusZ + 0.01;
         Assert.Equal(double.NegativeInfinity, lik.LogDensity([mu0Unreached]));
         Assert.True(double.IsFinite(lik.LogDensity([mu0Unreached - 0.02])));
     }

@@ -43,7 +43,7 @@ public sealed class LikelihoodTests
     {
         // 5000 objects > 96 nodes → interpolated ln D_A; compare with exact D_A per object (fixed cosmology path).
         var model = TestWorldModels.FlatLcdm.Create(new Dictionary<string, double>());
-        var obs = MockCatalog.Draw(model, 5000, new MockCatalog.Truth(), seed: 3, zMin: 0.02, zMax: 6);
+        var obs = MockCatalogue.Draw(model, 5000, new MockCatalogue.Truth(), seed: 3, zMin: 0.02, zMax: 6);
         var free = Hypothesis.Create(TestWorldModels.FlatLcdm, SizeOnly, new ParameterOverrides(Free: new HashSet<string> { "omega_m" })).Bind(obs);
         var fixedCosmo = Hypothesis.Create(TestWorldModels.FlatLcdm, SizeOnly).Bind(obs);
         double[] th = [0.3, 4.0, -1.0, 0.2];
@@ -55,7 +55,7 @@ public sealed class LikelihoodTests
     public void SlicedPartialSumsEqualTheFullSum()
     {
         var model = TestWorldModels.Eds.Create(new Dictionary<string, double>());
-        var obs = MockCatalog.Draw(model, 1000, new MockCatalog.Truth(), seed: 5);
+        var obs = MockCatalogue.Draw(model, 1000, new MockCatalogue.Truth(), seed: 5);
         foreach (var kind in new[] { ObservableKind.Size, ObservableKind.SurfaceBrightness, ObservableKind.Joint })
         {
             var nm = new NuisanceModel(kind, kind == ObservableKind.Joint ? new SelectionLimits(SbLimit: 25, MinThetaArcsec: 0.1) : null, SizeSbRelation: kind == ObservableKind.Joint);
@@ -73,7 +73,7 @@ public sealed class LikelihoodTests
     public void LikelihoodIsInvariantUnderRowOrder()
     {
         var model = TestWorldModels.Eds.Create(new Dictionary<string, double>());
-        var obs = MockCatalog.Draw(model, 300, new MockCatalog.Truth(), seed: 11);
+        var obs = MockCatalogue.Draw(model, 300, new MockCatalogue.Truth(), seed: 11);
         var nm = new NuisanceModel(ObservableKind.Joint, SizeSbRelation: true);
         var h = Hypothesis.Create(TestWorldModels.Eds, nm);
         var lik = h.Bind(obs);

@@ -81,7 +81,7 @@ public sealed class OptimiserAndHessianTests(ITestOutputHelper output)
     {
         // For angular sizes θ = R0 H0 (1+z)^a / (c·f(z)): only R0·H0 is constrained (D_A ∝ 1/H0 exactly).
         var model = WorldModels.LambdaCdm.Create(new Dictionary<string, double>());
-        var obs = MockCatalog.Draw(model, 2000, new MockCatalog.Truth(), seed: 4);
+        var obs = MockCatalogue.Draw(model, 2000, new MockCatalogue.Truth(), seed: 4);
         var lik = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "h0" })).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
         output.WriteLine(fit.ExitReason);
@@ -122,7 +122,7 @@ public sealed class OptimiserAndHessianTests(ITestOutputHelper output)
         // profile is already markedly skewed — e.g. 0.063–0.149 around 0.085 — so the Hessian cannot match it there: that is
         // the regime where the profile interval must be reported instead.)
         var truth = WorldModels.LambdaCdm.Create(new Dictionary<string, double>());
-        var obs = MockCatalog.Draw(truth, 200_000, new MockCatalog.Truth(), seed: 21);
+        var obs = MockCatalogue.Draw(truth, 200_000, new MockCatalogue.Truth(), seed: 21);
         var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);

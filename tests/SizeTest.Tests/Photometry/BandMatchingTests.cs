@@ -1,5 +1,5 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 using Xunit;
 
@@ -16,7 +16,7 @@ public sealed class BandMatchingTests
         new("z", "mu_z", "e_z", 9100),
     ];
 
-    private static Sample MakeSample(double[] z)
+    private static CatalogueRows MakeSample(double[] z)
     {
         int n = z.Length;
         double[] Col(double v) => Enumerable.Range(0, n).Select(i => v + 0.01 * i).ToArray();
@@ -26,7 +26,7 @@ public sealed class BandMatchingTests
             ["e_g"] = Col(0.3), ["e_r"] = Col(0.2), ["e_i"] = Col(0.1), ["e_z"] = Col(0.4),
             ["ebv"] = Col(0.05),
         };
-        return new Sample("synthetic-bands.csv", Enumerable.Range(2, n).Select(i => (long)i).ToArray(), z, extraColumns: extra);
+        return new CatalogueRows("synthetic-bands.csv", Enumerable.Range(2, n).Select(i => (long)i).ToArray(), z, extraColumns: extra);
     }
 
     [Fact]

@@ -101,8 +101,8 @@ public sealed class IsophotalRecipeTests
             Assert.True(IsophotalSize.TryLnRadiusRatio(1, muObs, isoNative + zp, out double ln));
             theta[i] = thetaE * Math.Exp(ln);
         }
-        var sample = new SizeTest.Catalogs.Sample("synthetic-isophotal", [1, 2, 3, 4], z, thetaRad: theta,
-            sizeDefinition: new SizeTest.Catalogs.SizeDefinition(SizeTest.Catalogs.SizeKind.Isophotal, isoNative),
+        var sample = new SizeTest.Catalogues.CatalogueRows("synthetic-isophotal", [1, 2, 3, 4], z, thetaRad: theta,
+            sizeDefinition: new SizeTest.Catalogues.SizeDefinition(SizeTest.Catalogues.SizeKind.Isophotal, isoNative),
             extraColumns: new Dictionary<string, double[]> { ["A"] = [0.1, 0.1, 0.1, 0.1] });
         var zpTable = new BandTable(new Dictionary<string, double> { ["V"] = zp }, "synthetic", "AB zero-point offset");
         var o = ObservablesBuilder.Build(sample, new PhotometryOptions

@@ -1,19 +1,20 @@
-using SizeTest.Catalogs;
-using SizeTest.Common;
+using SizeTest.Catalogues;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 using Xunit;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Photometry;
 
 public sealed class ObservablesBuilderTests
 {
-    private static Sample MakeSample(
+    private static CatalogueRows MakeSample(
         double[]? mu = null, string[]? band = null, Dictionary<string, double[]>? extra = null,
         double[]? mag = null, double[]? thetaArcsec = null, SizeDefinition? size = null)
     {
         double[] z = [0.1, 0.5, 1.0];
-        var theta = (thetaArcsec ?? [2.0, 1.0, 0.8]).Select(t => t * Units.RadiansPerArcsec).ToArray();
-        return new Sample("synthetic.csv", [2, 3, 4], z, thetaRad: theta, thetaErrRad: theta.Select(t => 0.1 * t).ToArray(),
+        var theta = (thetaArcsec ?? [2.0, 1.0, 0.8]).Select(t => t * AngleUnits.RadiansPerArcsec).ToArray();
+        return new CatalogueRows("synthetic.csv", [2, 3, 4], z, thetaRad: theta, thetaErrRad: theta.Select(t => 0.1 * t).ToArray(),
             mu: mu ?? [21.0, 22.0, 23.0], muErr: [0.1, 0.1, 0.2], mag: mag, magErr: mag is null ? null : [0.05, 0.05, 0.05],
             band: band, sizeDefinition: size, extraColumns: extra);
     }
@@ -23,7 +24,7 @@ public sealed class ObservablesBuilderTests
     {
         var s = MakeSample();
         var r = ObservablesBuilder.Build(s, PhotometryOptions.Default);
-        var t = Observables.FromSample(s);
+        var t = Observables.FromRows(s);
         Assert.Equal(t.LnTheta, r.Observables.LnTheta);
         Assert.Equal(t.Mu, r.Observables.Mu);
         Assert.Null(r.Observables.KCorrection);

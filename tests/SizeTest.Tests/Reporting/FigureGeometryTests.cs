@@ -39,9 +39,9 @@ public sealed class FigureGeometryTests
         // And point by point on the angular-size panel: no object's pixel falls inside the legend box.
         var a = FigureRenderer.RenderPng(Figure(data, AngularSizeFigure.Id), 96).Layout;
         var main = a.Panels[0];
-        for (int i = 0; i < data.Sample.Count; i++)
+        for (int i = 0; i < data.Objects.Count; i++)
         {
-            float x = PixelX(main, data.Sample.Z[i], true), y = PixelY(main, data.Sample.ThetaArcsec![i], true);
+            float x = PixelX(main, data.Objects.Z[i], true), y = PixelY(main, data.Objects.ThetaArcsec![i], true);
             Assert.False(a.LegendRect.Contains(x, y), $"object {i} at ({x}, {y}) lies under the legend");
         }
     }
@@ -58,7 +58,7 @@ public sealed class FigureGeometryTests
         var data = new ReportData
         {
             Job = SyntheticReport.Create(n: 10).Job, Data = SyntheticReport.Create(n: 10).Data,
-            Sample = new SamplePoints(z) { ThetaArcsec = theta }, Models = [], Assumptions = [],
+            Objects = new ObjectPoints(z) { ThetaArcsec = theta }, Models = [], Assumptions = [],
         }.WithBins(4, 20, 1);
         var bins = data.ThetaBins!;
         var spec = Figure(data, AngularSizeFigure.Id);
@@ -118,7 +118,7 @@ public sealed class FigureGeometryTests
         var rng = new Random(3);
         var rows = Enumerable.Range(0, 2000).Select(_ => new[] { 70 + rng.NextDouble(), 0.3 + 0.01 * rng.NextDouble(), -1 + 0.1 * rng.NextDouble(),
             1234 + 50 * rng.NextDouble(), 1e-3 * rng.NextDouble(), 21 + rng.NextDouble() }).ToList();
-        var post = new PosteriorSamples("lcdm", ["h0", "omega_m", "size_evolution", "big", "tiny", "mu0"], Enumerable.Repeat(AxisSpec.Dimensionless, 6).ToList(), rows);
+        var post = new CornerDraws("lcdm", ["h0", "omega_m", "size_evolution", "big", "tiny", "mu0"], Enumerable.Repeat(AxisSpec.Dimensionless, 6).ToList(), rows);
         var data = SyntheticReport.Create(n: 50) with { Posterior = post };
         var spec = Figure(data, CornerFigure.Id);
         Assert.Equal(6 * 7 / 2, spec.Panels.Count); // every parameter is shown

@@ -69,9 +69,9 @@ public sealed class PdfReportTests
             foreach (var m in data.Models)
                 foreach (var p in m.Fit.Parameters.Where(p => !p.Fixed && p.Hi > p.Lo))
                 {
-                    Assert.Contains(SizeTest.Common.PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi), all);
+                    Assert.Contains(SizeTest.Foundation.Text.PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi), all);
                     string six = p.Value.ToString("G6", System.Globalization.CultureInfo.InvariantCulture).Replace("-", "−");
-                    if (six.Length > SizeTest.Common.PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi).Split(' ')[0].Length + 1)
+                    if (six.Length > SizeTest.Foundation.Text.PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi).Split(' ')[0].Length + 1)
                         Assert.DoesNotContain(six, all);
                 }
         }

@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Reporting;
 using SizeTest.Reporting.Pack;
 using Xunit;

@@ -15,7 +15,7 @@ public sealed class SparseDataTests
     {
         Job = new JobSummary("Minimal", "", "tiny.csv", "0.1.0", "", 1),
         Data = new DataSummary(3, 3, 0, []),
-        Sample = new SamplePoints([0.1, 0.5, 1.2]) { ThetaArcsec = withTheta ? [3.0, 1.0, -1.0] : null },
+        Objects = new ObjectPoints([0.1, 0.5, 1.2]) { ThetaArcsec = withTheta ? [3.0, 1.0, -1.0] : null },
         Models = [],
         Assumptions = [],
     };

@@ -70,7 +70,7 @@ internal static class SyntheticReport
             { Method = "maximum likelihood; 68% intervals from the Hessian" },
             Data = new DataSummary(n + 17, n, 17, [new("redshift missing or not positive", 9), new("angular size not positive", 5), new("surface brightness not a number", 3)])
             { SizeDefinition = "effective (half-light) radius", Band = "r" },
-            Sample = new SamplePoints(z) { ZErr = ze, ThetaArcsec = th, ThetaErrArcsec = the, Mu = mu, MuErr = mue },
+            Objects = new ObjectPoints(z) { ZErr = ze, ThetaArcsec = th, ThetaErrArcsec = the, Mu = mu, MuErr = mue },
             Models = models,
             ThetaBins = BinnedStatistics.Compute(z, th, edges, BinnedStatistics.Statistic.Median, 200, seed),
             MuBins = BinnedStatistics.Compute(z, mu, edges, BinnedStatistics.Statistic.Mean, 200, seed + 1),
@@ -97,7 +97,7 @@ internal static class SyntheticReport
         return data;
     }
 
-    private static PosteriorSamples Posterior(Random rng)
+    private static CornerDraws Posterior(Random rng)
     {
         var rows = new List<double[]>();
         for (int i = 0; i < 4000; i++)
@@ -105,7 +105,7 @@ internal static class SyntheticReport
             double g1 = Gauss(rng), g2 = Gauss(rng), g3 = Gauss(rng);
             rows.Add([0.31 + 0.04 * g1, -0.98 + 0.1 * (0.7 * g1 + 0.71 * g2), 0.11 + 0.01 * g3]);
         }
-        return new PosteriorSamples("lcdm", ["Ωm", "size evolution a", "scatter"], [Figures.AxisSpecDimensionless, Figures.AxisSpecDimensionless, "dex"], rows);
+        return new CornerDraws("lcdm", ["Ωm", "size evolution a", "scatter"], [Figures.AxisSpecDimensionless, Figures.AxisSpecDimensionless, "dex"], rows);
     }
 
     private static class Figures { public const string AxisSpecDimensionless = SizeTest.Reporting.Figures.AxisSpec.Dimensionless; }

@@ -83,7 +83,7 @@ public sealed class ReportDataJsonTests
         var json = SizeTest.Reporting.Data.ReportDataJson.ToJson(data);
         var back = SizeTest.Reporting.Data.ReportDataJson.FromJson(json, "report-data.json");
         Assert.Equal(json, SizeTest.Reporting.Data.ReportDataJson.ToJson(back));
-        Assert.Equal(data.Sample.ThetaArcsec, back.Sample.ThetaArcsec); // doubles survive exactly (round-trip format)
+        Assert.Equal(data.Objects.ThetaArcsec, back.Objects.ThetaArcsec); // doubles survive exactly (round-trip format)
         var a = SizeTest.Reporting.ReportContent.From(data);
         var b = SizeTest.Reporting.ReportContent.From(back);
         Assert.Equal(a.Tables.Select(SizeTest.Reporting.Tables.TableFormats.ToCsv), b.Tables.Select(SizeTest.Reporting.Tables.TableFormats.ToCsv));
@@ -93,10 +93,10 @@ public sealed class ReportDataJsonTests
     [Fact]
     public void BadFilesAreInputErrorsWithALine()
     {
-        var ex = Assert.Throws<SizeTest.Common.InputException>(() => SizeTest.Reporting.Data.ReportDataJson.FromJson("{\n \"format_version\": 1,\n \"report\": {\"nonsense\": 3}\n}", "x/report-data.json"));
+        var ex = Assert.Throws<SizeTest.Foundation.Errors.InputException>(() => SizeTest.Reporting.Data.ReportDataJson.FromJson("{\n \"format_version\": 1,\n \"report\": {\"nonsense\": 3}\n}", "x/report-data.json"));
         Assert.Equal("x/report-data.json", ex.File);
         Assert.NotNull(ex.Line);
-        var v = Assert.Throws<SizeTest.Common.InputException>(() => SizeTest.Reporting.Data.ReportDataJson.FromJson("{\"format_version\": 99, \"report\": null}", "r.json"));
+        var v = Assert.Throws<SizeTest.Foundation.Errors.InputException>(() => SizeTest.Reporting.Data.ReportDataJson.FromJson("{\"format_version\": 99, \"report\": null}", "r.json"));
         Assert.Contains("report data", v.Message);
     }
 }
@@ -116,8 +116,8 @@ public sealed class AdapterHelperTests
     [Fact]
     public void SamplePointsConvertRadiansToArcsec()
     {
-        var s = new SizeTest.Catalogs.Sample("t", [2, 3], [0.5, 1.0], thetaRad: [SizeTest.Common.Units.RadiansPerArcsec * 2, SizeTest.Common.Units.RadiansPerArcsec]);
-        var p = SizeTest.Reporting.Data.SamplePoints.FromSample(s);
+        var s = new SizeTest.Catalogues.CatalogueRows("t", [2, 3], [0.5, 1.0], thetaRad: [SizeTest.Foundation.Angles.AngleUnits.RadiansPerArcsec * 2, SizeTest.Foundation.Angles.AngleUnits.RadiansPerArcsec]);
+        var p = SizeTest.Reporting.Data.ObjectPoints.FromRows(s);
         Assert.Equal(2.0, p.ThetaArcsec![0], 12); // 2″ in radians back to arcsec
         Assert.Equal(1.0, p.ThetaArcsec[1], 12);
         Assert.Null(p.Mu);

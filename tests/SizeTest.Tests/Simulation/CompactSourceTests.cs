@@ -1,7 +1,7 @@
 using Xunit;
-using SizeTest.Common;
 using SizeTest.Cosmology;
 using SizeTest.Simulation;
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Tests.Simulation;
 
@@ -10,7 +10,7 @@ public sealed class CompactSourceTests
 {
     private static readonly IWorldModel Lcdm = WorldModels.Get("lcdm").Create(new Dictionary<string, double>());
 
-    private static MockCatalog Draw(RadioSourcePopulation pop, RedshiftDistribution z, int n = 500, MeasurementErrors? e = null) =>
+    private static MockCatalogue Draw(RadioSourcePopulation pop, RedshiftDistribution z, int n = 500, MeasurementErrors? e = null) =>
         MockSurveyGenerator.Generate(new MockSurveySpec(Lcdm, new SurveyDesign(n, z, MockObjectKind.CompactRadio, e ?? new MeasurementErrors(0, 0, 0, 0)), 31, RadioSources: pop));
 
     [Fact]
@@ -20,7 +20,7 @@ public sealed class CompactSourceTests
         var cat = Draw(new RadioSourcePopulation(LinearSizePc: 11.03, ScatterDex: 0), RedshiftDistribution.Uniform(0.46, 2.76));
         for (int i = 0; i < cat.Count; i++)
         {
-            double thetaMas = 11.03 * Units.ArcsecPerRadian / 1e3 / Lcdm.AngularDiameterDistance(cat.ZTrue[i]); // θ[mas] = ℓ[pc]·206.265/D_A[Mpc]
+            double thetaMas = 11.03 * AngleUnits.ArcsecPerRadian / 1e3 / Lcdm.AngularDiameterDistance(cat.ZTrue[i]); // θ[mas] = ℓ[pc]·206.265/D_A[Mpc]
             Assert.Equal(thetaMas, cat.ThetaArcsec[i] * 1000, thetaMas * 1e-12);
         }
     }

@@ -9,7 +9,7 @@ public sealed class MockDistributionTests
 {
     private const double Ln10 = 2.302585092994046;
 
-    private static MockCatalog Draw(IWorldModel model, int n, long seed, GalaxyPopulation? g = null, MeasurementErrors? e = null, RedshiftDistribution? z = null) =>
+    private static MockCatalogue Draw(IWorldModel model, int n, long seed, GalaxyPopulation? g = null, MeasurementErrors? e = null, RedshiftDistribution? z = null) =>
         MockSurveyGenerator.Generate(new MockSurveySpec(model, new SurveyDesign(n, z ?? RedshiftDistribution.Uniform(0.1, 3), Errors: e), seed, g));
 
     [Theory]

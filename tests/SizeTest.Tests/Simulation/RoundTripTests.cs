@@ -1,5 +1,5 @@
 using SizeTest.Inference;
-using SizeTest.Tests.Catalogs;
+using SizeTest.Tests.Catalogues;
 using SizeTest.Tests.Cli;
 using Xunit;
 

@@ -1,5 +1,5 @@
 using Xunit;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Simulation;
 
@@ -10,7 +10,7 @@ public sealed class SelectionTests
 {
     private static readonly IWorldModel Lcdm = WorldModels.Get("lcdm").Create(new Dictionary<string, double>());
 
-    private static MockCatalog Draw(int n, MockSelection? cut, long seed = 21) =>
+    private static MockCatalogue Draw(int n, MockSelection? cut, long seed = 21) =>
         MockSurveyGenerator.Generate(new MockSurveySpec(Lcdm, new SurveyDesign(n, RedshiftDistribution.Uniform(0.1, 3), Selection: cut), seed));
 
     [Fact]

@@ -1,5 +1,5 @@
 using Xunit;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Studies;
 
@@ -51,7 +51,7 @@ public sealed class StudyFileParserTests
         Assert.Equal("full", s.Name);
         Assert.Equal(42, s.Seed);
         Assert.Equal(Path.GetFullPath("/data/cat/x.fits"), s.CataloguePath);
-        Assert.Equal(SizeTest.Catalogs.CatalogFormat.Fits, s.Reader.Format);
+        Assert.Equal(SizeTest.Catalogues.CatalogueFormat.Fits, s.Reader.Format);
         Assert.Equal("1", s.Reader.Table);
         Assert.Equal(25.0, s.Mapping.SizeDefinition!.IsophoteMagPerArcsec2);
         Assert.Equal("mas", s.Mapping.Assignments.Single(a => a.ColumnName == "Re").Unit);

@@ -1,4 +1,4 @@
-using SizeTest.Catalogs.Text;
+using SizeTest.Catalogues.Text;
 using SizeTest.Cosmology;
 using SizeTest.Simulation;
 

@@ -35,7 +35,7 @@ public sealed class StudyRunTests
         var lcdm = data.Models.Single(m => m.Fit.Name == "lcdm");
         double r0 = lcdm.Fit.Parameters.Single(p => p.Name == "r0_kpc").Value, a = lcdm.Fit.Parameters.Single(p => p.Name == "size_evolution").Value;
         double dA = SizeTest.Cosmology.WorldModels.Get("lcdm").Create(new Dictionary<string, double>()).AngularDiameterDistance(1.0);
-        double expected = r0 * Math.Pow(2, a) / 1000.0 / dA * SizeTest.Common.Units.ArcsecPerRadian;
+        double expected = r0 * Math.Pow(2, a) / 1000.0 / dA * SizeTest.Foundation.Angles.AngleUnits.ArcsecPerRadian;
         Assert.Equal(expected, lcdm.Theta!.At(1.0, logLog: true), expected * 2e-3);   // log-log interpolation between 100 samples
 
         using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "manifest.json")));
@@ -83,7 +83,7 @@ public sealed class StudyRunTests
         using var fx = new StudyFixture();
         Directory.CreateDirectory(fx.Out());
         File.WriteAllText(Path.Combine(fx.Out(), "report.html"), "old report");
-        File.WriteAllText(Path.Combine(fx.Out(), SizeTest.Common.OutputFolder.MarkerFileName), "report.html\n");   // an earlier sizetest output
+        File.WriteAllText(Path.Combine(fx.Out(), SizeTest.Foundation.Files.OutputFolder.MarkerFileName), "report.html\n");   // an earlier sizetest output
         var study = StudyFileParser.Load(fx.StudyPath);
         Assert.Throws<IOException>(() => StudyRunner.Run(study, new StudyRunOptions
         {

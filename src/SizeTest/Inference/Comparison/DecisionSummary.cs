@@ -1,4 +1,5 @@
 using SizeTest.Cosmology;
+using SizeTest.Inference;
 
 namespace SizeTest.Inference.Comparison;
 
@@ -20,7 +21,7 @@ public static class DecisionSummary
     }
 
     /// <summary>The "can the data decide?" lines: the verdict's reason, the block note and convergence.</summary>
-    public static IReadOnlyList<string> CanTheDataDecide(StudyResult result)
+    public static IReadOnlyList<string> CanTheDataDecide(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
         var v = result.Verdict;

@@ -1,3 +1,5 @@
+using SizeTest.Inference;
+
 namespace SizeTest.Inference.Comparison;
 
 /// <summary>

@@ -1,4 +1,5 @@
 using System.Globalization;
+using SizeTest.Inference;
 
 namespace SizeTest.Inference.Comparison;
 

@@ -1,5 +1,6 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Text;
 using SizeTest.Cosmology;
+using SizeTest.Inference;
 
 namespace SizeTest.Inference.Comparison;
 
@@ -69,7 +70,7 @@ public static class EvolutionTestTable
     };
 
     /// <summary>Rows for every free evolution parameter of every model, in the models' ranked order.</summary>
-    public static IReadOnlyList<EvolutionTestRow> From(StudyResult result)
+    public static IReadOnlyList<EvolutionTestRow> From(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
         var expectations = EvolutionExpectation.InForce(result.Settings.Expected);

@@ -1,3 +1,5 @@
+using SizeTest.Inference;
+
 namespace SizeTest.Inference.Comparison;
 
 /// <summary>
@@ -10,7 +12,7 @@ namespace SizeTest.Inference.Comparison;
 public static class LikelihoodBlocks
 {
     /// <summary>True when the study fitted surface brightness and that block cannot separate the models.</summary>
-    public static bool SurfaceBrightnessIsBlind(StudyResult result)
+    public static bool SurfaceBrightnessIsBlind(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Settings;
@@ -20,11 +22,11 @@ public static class LikelihoodBlocks
     }
 
     /// <summary>True when nothing in the likelihood can separate the models (surface brightness alone, blind).</summary>
-    public static bool NothingDiscriminates(StudyResult result) =>
+    public static bool NothingDiscriminates(FitResult result) =>
         result.Settings.Observable == "sb" && SurfaceBrightnessIsBlind(result);
 
     /// <summary>The sentence that says which block decides, or null when every fitted block can discriminate.</summary>
-    public static string? Note(StudyResult result)
+    public static string? Note(FitResult result)
     {
         if (!SurfaceBrightnessIsBlind(result)) return null;
         return result.Settings.Observable == "sb"

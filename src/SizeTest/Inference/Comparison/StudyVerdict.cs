@@ -1,5 +1,6 @@
 using System.Globalization;
 using SizeTest.Cosmology;
+using SizeTest.Inference;
 
 namespace SizeTest.Inference.Comparison;
 
@@ -29,7 +30,7 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
     /// </summary>
     /// <param name="result">The study.</param>
     /// <param name="modes">Per model, the ln L of every distinct maximum found (when a multimodality scan ran); optional.</param>
-    public static StudyVerdict From(StudyResult result, IReadOnlyDictionary<string, IReadOnlyList<double>>? modes = null)
+    public static StudyVerdict From(FitResult result, IReadOnlyDictionary<string, IReadOnlyList<double>>? modes = null)
     {
         ArgumentNullException.ThrowIfNull(result);
         var inv = CultureInfo.InvariantCulture;

@@ -68,8 +68,8 @@ public sealed class EvaluationBackend
             lo = Math.Min(lo, all[3 * r + 1]);
             hi = Math.Max(hi, all[3 * r + 2]);
         }
-        if (total == 0) throw new Common.InputException("the sample has no accepted objects to fit");
-        if (total > int.MaxValue) throw new Common.InputException($"the sample has {total} objects; at most {int.MaxValue} can be fitted");
+        if (total == 0) throw new SizeTest.Foundation.Errors.InputException("the sample has no accepted objects to fit");
+        if (total > int.MaxValue) throw new SizeTest.Foundation.Errors.InputException($"the sample has {total} objects; at most {int.MaxValue} can be fitted");
         FirstIndex = before;
         TotalObjects = (int)total;
         GridSpan = new RedshiftGridSpan(lo, hi, TotalObjects);

@@ -13,6 +13,7 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
     private const int ParallelRows = 65536;
     private readonly EvaluationBackend _backend;
     private readonly HypothesisLikelihood? _local;
+    private readonly Photometry.Observables? _localObs; // the rows _local was bound to (re-binding with survey terms)
     private readonly int[] _bounds; // local chunk c = rows [_bounds[c], _bounds[c+1]) of _local
     private readonly PriorTimesLikelihood _posterior;
 
@@ -28,6 +29,7 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
         {
             for (int c = 0; c < chunks; c++) _bounds[c] = backend.ChunkRange(c).Start;
             _bounds[chunks] = obs.Count;
+            _localObs = obs.Count > 0 ? obs : null;
             if (obs.Count > 0) _local = new HypothesisLikelihood(hypothesis, obs, backend.GridSpan) { AllowParallel = false };
         }
         else
@@ -43,9 +45,38 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
             }
             _bounds[chunks] = rows.Count;
             if (rows.Count > 0)
-                _local = new HypothesisLikelihood(hypothesis, ObservablesSubset.Take(obs, System.Runtime.InteropServices.CollectionsMarshal.AsSpan(rows)), backend.GridSpan) { AllowParallel = false };
+            {
+                _localObs = ObservablesSubset.Take(obs, System.Runtime.InteropServices.CollectionsMarshal.AsSpan(rows));
+                _local = new HypothesisLikelihood(hypothesis, _localObs, backend.GridSpan) { AllowParallel = false };
+            }
         }
         _posterior = new PriorTimesLikelihood(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
+    }
+
+    private RowSumLikelihood(RowSumLikelihood parent, Hypothesis hypothesis, HypothesisLikelihood? local, Photometry.Observables? localObs)
+    {
+        _localObs = localObs;
+        _backend = parent._backend;
+        Hypothesis = hypothesis;
+        _bounds = parent._bounds;
+        _local = local;
+        _posterior = new PriorTimesLikelihood(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
+    }
+
+    /// <summary>
+    /// This likelihood with free parameter <paramref name="name"/> held at <paramref name="value"/> (the likelihood of
+    /// <c>Hypothesis.WithFixed(name, value)</c> on the same rows and weights), sharing the bound per-object data, the chunks
+    /// and the redshift grid (<see cref="HypothesisLikelihood.WithFixed"/>) instead of binding again: the cheap inner
+    /// likelihood of profile refits, which then see the same interpolated ln D_A as the full fit. With survey terms the
+    /// fixed hypothesis is bound afresh on the same rows.
+    /// </summary>
+    public RowSumLikelihood WithFixed(string name, double value)
+    {
+        var fixedH = Hypothesis.WithFixed(name, value);
+        if (_local is null) return new RowSumLikelihood(this, fixedH, null, null);
+        if (_local.HasSurveyTerms)
+            return new RowSumLikelihood(this, fixedH, new HypothesisLikelihood(fixedH, _localObs!, _backend.GridSpan) { AllowParallel = false }, _localObs);
+        return new RowSumLikelihood(this, fixedH, _local.WithFixed(name, value), _localObs);
     }
 
     /// <summary>The hypothesis.</summary>

@@ -34,6 +34,7 @@ internal sealed class DistanceTerms
             Grid = sharedGrid is { } span
                 ? new RedshiftGrid(z, hypothesis.Nuisance.NodesFor(span.ObjectCount), span.MinZ, span.MaxZ)
                 : new RedshiftGrid(z, hypothesis.Nuisance.NodesFor(n));
+        _referenceG = ReferenceFor(hypothesis);
         if (CosmologyFree) return;
         var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                     ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its fixed parameters");
@@ -58,20 +59,41 @@ internal sealed class DistanceTerms
     /// cosmological parameter now fixed, g is computed once on that grid, so profile and full fit share the same
     /// interpolated ln D_A), or its exact per-object ln D_A when the cosmology was already fixed.
     /// </summary>
-    public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, DistanceTerms parent)
+    /// <remarks>With a grid and the cosmology now fixed, and <paramref name="perObject"/>, ln D_A is interpolated to every
+    /// object once here (the same stencil sum as <see cref="LnDaSlice"/>), so the refits' evaluations take the vectorised
+    /// exact-distance path with no node adjoint; without it (a kernel that works on the grid values, such as
+    /// <see cref="SizeSliceGram"/>) the fixed grid values alone are kept.</remarks>
+    public DistanceTerms(Hypothesis hypothesis, ParameterLayout layout, DistanceTerms parent, double[] lnZ, bool perObject)
     {
         _h = hypothesis;
         _layout = layout;
         CosmologyFree = layout.FreeCosmological.Length > 0;
         Grid = parent.Grid;
+        _referenceG = parent._referenceG;
         if (CosmologyFree) return;
         var model = CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                     ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its fixed parameters");
         _nFixed = model.BolometricDimmingExponent + hypothesis.Nuisance.DimmingExponentOffset;
         if (Grid is not null)
+        {
             _gridFixed = GridValues(model) ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' gives a non-positive angular-diameter distance on the redshift grid");
+            if (perObject)
+            {
+                _lnDaFixed = new double[lnZ.Length];
+                Interpolate(_gridFixed, lnZ, 0, lnZ.Length, _lnDaFixed);
+            }
+        }
         else _lnDaFixed = parent._lnDaFixed;
     }
+
+    /// <summary>The grid values g of the hypothesis's start model (the reference of <see cref="SizeSliceGram"/>), computed once;
+    /// zeros where that model is undefined; null without a grid.</summary>
+    public double[]? ReferenceG => Grid is null ? null : _referenceG!.Value;
+
+    private readonly Lazy<double[]>? _referenceG;
+
+    private Lazy<double[]> ReferenceFor(Hypothesis hypothesis) => new(() =>
+        (CreateModel(hypothesis.FullValues(hypothesis.StartVector())) is { } m ? GridValues(m) : null) ?? new double[Grid!.Nodes.Length]);
 
     /// <summary>Whether any world-model parameter is free.</summary>
     public bool CosmologyFree { get; }
@@ -83,7 +105,7 @@ internal sealed class DistanceTerms
     public double[]? FixedLnDa => _lnDaFixed;
 
     /// <summary>Number of grid nodes (0 without a grid).</summary>
-    public int Nodes => Grid?.Nodes.Length ?? 0;
+    public int Nodes => Grid is null || _lnDaFixed is not null ? 0 : Grid.Nodes.Length;
 
     /// <summary>Builds the evaluation state for θ (null: outside the bounds' model domain).</summary>
     public LikelihoodEvaluation? Prepare(double[] theta, double[] values, bool withGradient)
@@ -139,7 +161,7 @@ internal sealed class DistanceTerms
             if (dg is not null) dg[c] = row;
             dn[c] = nDer;
         }
-        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridGDerivatives = dg, DimmingDerivatives = dn };
+        return new LikelihoodEvaluation(theta, values, g, dim) { HasGradient = true, GridLnDaOverZDerivatives = dg, DimmingDerivatives = dn };
     }
 
     private double[]? GridValues(IWorldModel model)
@@ -166,7 +188,7 @@ internal sealed class DistanceTerms
 
     /// <summary>ln D_A of object <paramref name="i"/>.</summary>
     public double LnDa(LikelihoodEvaluation e, int i, double[] lnZ) =>
-        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridG, i);
+        _lnDaFixed is not null ? _lnDaFixed[i] : lnZ[i] + Grid!.Interpolate(e.GridLnDaOverZ, i);
 
     /// <summary>
     /// ln D_A for rows [start, end): the fixed array itself, or the grid interpolation into a pooled buffer
@@ -178,7 +200,13 @@ internal sealed class DistanceTerms
         if (_lnDaFixed is not null) { rented = null; return _lnDaFixed.AsSpan(start, len); }
         rented = ArrayPool<double>.Shared.Rent(len);
         var span = rented.AsSpan(0, len);
-        var g = e.GridG!;
+        Interpolate(e.GridLnDaOverZ!, lnZ, start, end, span);
+        return span;
+    }
+
+    // ln D_A of rows [start, end) into span[0 .. end − start): ln z + the object's cubic stencil over g.
+    private void Interpolate(double[] g, double[] lnZ, int start, int end, Span<double> span)
+    {
         var idx = Grid!.Index;
         var w = Grid.Weights;
         for (int i = start; i < end; i++)
@@ -186,7 +214,6 @@ internal sealed class DistanceTerms
             int j = idx[i], k = 4 * i;
             span[i - start] = lnZ[i] + w[k] * g[j] + w[k + 1] * g[j + 1] + w[k + 2] * g[j + 2] + w[k + 3] * g[j + 3];
         }
-        return span;
     }
 
     /// <summary>Adds d_t·w_ik to the node adjoint of object <paramref name="i"/>'s stencil (no-op for exact distances).</summary>

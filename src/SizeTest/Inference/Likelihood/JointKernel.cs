@@ -23,10 +23,10 @@ internal sealed class JointKernel(ObjectColumns cols, DistanceTerms distances, S
         var nodeA = adj?.NodeAdjoint;
         for (int i = start; i < end; i++)
         {
-            double x = cols.Ln1pZ[i], l10 = cols.Log10OnePlusZ[i];
+            double x = cols.Ln1pZ[i], log10OnePlusZ = cols.Log10OnePlusZ[i];
             double lnSizeMean = p.LnR0 + p.A * x;
             double mt = p.C0 + p.A * x - distances.LnDa(e, i, cols.LnZ);
-            double mm = p.Mu0 + p.TolmanSlope * l10 + cols.Correction[i] + kap * (lnSizeMean - p.LnPivot);
+            double mm = p.Mu0 + p.TolmanSlope * log10OnePlusZ + cols.Correction[i] + kap * (lnSizeMean - p.LnPivot);
             double isoSlope = 0;
             if (isophotal is not null)
             {
@@ -51,7 +51,7 @@ internal sealed class JointKernel(ObjectColumns cols, DistanceTerms distances, S
                 dt -= smt; dm -= smm; dvt -= svt; dvm -= svm; dc -= sc;
             }
             dm += dt * isoSlope; // m_t depends on m_μ through ln(r_iso/R_e)
-            adj.AddObject(dt, dm, dvt, dvm, dc, x, l10);
+            adj.AddObject(dt, dm, dvt, dvm, dc, x, log10OnePlusZ);
             distances.Scatter(nodeA, i, dt);
         }
         return -0.5 * acc - sel - 2 * GaussianCore.HalfLn2Pi * (end - start);

@@ -25,10 +25,10 @@ internal sealed class ModelAdjoint
     public double[]? Direct;
 
     /// <summary>Adds one object's partials.</summary>
-    public void AddObject(double dt, double dm, double dvt, double dvm, double dc, double x, double l10)
+    public void AddObject(double dt, double dm, double dvt, double dvm, double dc, double x, double log10OnePlusZ)
     {
         Dt += dt; DtX += dt * x;
-        Dm += dm; DmX += dm * x; DmL10 += dm * l10;
+        Dm += dm; DmX += dm * x; DmL10 += dm * log10OnePlusZ;
         DVt += dvt; DVm += dvm; DC += dc;
     }
 

@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference.Likelihood;
@@ -6,7 +6,7 @@ namespace SizeTest.Inference.Likelihood;
 /// <summary>
 /// The per-object inputs of the likelihood that do not depend on parameters, one array per quantity (structure of
 /// arrays): y = ln θ (radians) and its variance, μ and its variance, the additive SB corrections K + A, x = ln(1+z),
-/// ℓ = log10(1+z), ln z and, for isophotal sizes, each object's isophote. Built once per bound sample.
+/// ℓ = log10(1+z) (with SB only), ln z and, for isophotal sizes, each object's isophote. Built once per bound sample.
 /// </summary>
 internal sealed class ObjectColumns
 {
@@ -18,7 +18,7 @@ internal sealed class ObjectColumns
         {
             LnTheta = observables.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
             VarLnTheta = Square(observables.LnThetaErr, n);
-            UniformVarLnTheta = Array.TrueForAll(VarLnTheta, v => v == VarLnTheta[0]);
+            UniformVarLnTheta = Uniform(VarLnTheta);
         }
         if (sb)
         {
@@ -28,17 +28,17 @@ internal sealed class ObjectColumns
             for (int i = 0; i < n; i++)
                 Correction[i] = (observables.KCorrection?[i] ?? 0) + (observables.Extinction?[i] ?? 0);
             NegCorrection = Array.ConvertAll(Correction, c => -c);
-            UniformVarMu = Array.TrueForAll(VarMu, v => v == VarMu[0]);
+            UniformVarMu = Uniform(VarMu);
         }
         Ln1pZ = new double[n];
-        Log10OnePlusZ = new double[n];
+        Log10OnePlusZ = sb ? new double[n] : []; // the SB model's x only
         LnZ = new double[n];
         for (int i = 0; i < n; i++)
         {
             double z = observables.Z[i];
             if (!(z > 0) || !double.IsFinite(z)) throw new InputException($"object {i + 1} has redshift {z}; fits need z > 0");
             Ln1pZ[i] = Math.Log(1 + z);
-            Log10OnePlusZ[i] = Ln1pZ[i] / ModelPoint.Ln10;
+            if (sb) Log10OnePlusZ[i] = Ln1pZ[i] / ModelPoint.Ln10;
             LnZ[i] = Math.Log(z);
         }
     }
@@ -55,6 +55,10 @@ internal sealed class ObjectColumns
     public double[] Ln1pZ { get; }
     public double[] Log10OnePlusZ { get; }
     public double[] LnZ { get; }
+
+    // Equal variances up to rounding (10⁻¹² relative): errors given as a fixed fraction, err = f·θ, give ln θ errors
+    // err/θ that differ from f in the last bit; the uniform paths use the first row's value for all.
+    private static bool Uniform(double[] v) => Array.TrueForAll(v, s => Math.Abs(s - v[0]) <= 1e-12 * Math.Abs(v[0]));
 
     private static double[] Square(double[]? e, int n)
     {

@@ -89,7 +89,7 @@ internal sealed class ParameterLayout
         {
             int j = _freeOfFull[FreeCosmological[c]];
             double v = 0;
-            if (e.GridGDerivatives is { } dg && adjoint.NodeAdjoint is { } nodeA)
+            if (e.GridLnDaOverZDerivatives is { } dg && adjoint.NodeAdjoint is { } nodeA)
             {
                 var row = dg[c];
                 for (int k = 0; k < row.Length; k++) v -= nodeA[k] * row[k];

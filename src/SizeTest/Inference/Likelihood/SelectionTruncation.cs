@@ -1,4 +1,5 @@
-using SizeTest.Common;
+
+using SizeTest.Foundation.Angles;
 
 namespace SizeTest.Inference.Likelihood;
 
@@ -18,7 +19,7 @@ namespace SizeTest.Inference.Likelihood;
 internal sealed class SelectionTruncation
 {
     private static readonly double MagFromLnTheta = -5.0 / ModelPoint.Ln10;
-    private static readonly double MagOffset = -5.0 / ModelPoint.Ln10 * Math.Log(Units.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
+    private static readonly double MagOffset = -5.0 / ModelPoint.Ln10 * Math.Log(AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
 
     private readonly double[] _cx, _cy, _k;
 
@@ -28,7 +29,7 @@ internal sealed class SelectionTruncation
     public static SelectionTruncation? For(SelectionLimits cuts)
     {
         var cx = new List<double>(); var cy = new List<double>(); var k = new List<double>();
-        if (cuts.MinThetaArcsec is { } t) { cx.Add(-1); cy.Add(0); k.Add(-Math.Log(t * Units.RadiansPerArcsec)); }
+        if (cuts.MinThetaArcsec is { } t) { cx.Add(-1); cy.Add(0); k.Add(-Math.Log(t * AngleUnits.RadiansPerArcsec)); }
         if (cuts.SbLimit is { } sb) { cx.Add(0); cy.Add(1); k.Add(sb); }
         if (cuts.MagLimit is { } m) { cx.Add(MagFromLnTheta); cy.Add(1); k.Add(m - MagOffset); }
         return cx.Count == 0 ? null : new SelectionTruncation(cx.ToArray(), cy.ToArray(), k.ToArray());

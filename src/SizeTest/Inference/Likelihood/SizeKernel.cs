@@ -5,13 +5,39 @@ namespace SizeTest.Inference.Likelihood;
 /// <summary>
 /// Angular sizes (radians): ln θ_i ~ N(m_t,i, V_t,i), m_t = ln[R0 (1+z_i)^a / D_A(z_i)] (R0 in kpc, D_A in Mpc, θ = 10⁻³R/D_A),
 /// V_t = σ_i² + σ², σ = ln10·scatter_dex, optionally truncated by a minimum size (<see cref="SelectionTruncation"/>).
-/// Without a cut both paths run on the vectorised <see cref="GaussianCore"/>.
+/// Without a cut both paths run on the vectorised <see cref="GaussianCore"/>, or, when every ln θ variance is the same, on
+/// one <see cref="SizeSliceGram"/> per row slice (cost independent of the rows).
 /// </summary>
-internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut) : IObservableKernel
+internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut,
+    System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? sharedGrams = null) : IObservableKernel
 {
+    // Equal ln θ variances and no cut: each slice's χ² is a quadratic form (SizeSliceGram), built at its first use; a
+    // likelihood with parameters held fixed on the same rows and grid (profile refits) shares its parent's.
+    private readonly System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? _grams =
+        !UsesGrams(cols, cut) || (distances.FixedLnDa is null && distances.Grid is null) ? null
+            : sharedGrams is not null && distances.FixedLnDa is null ? sharedGrams : new();
+
+    /// <summary>Whether a size kernel on these rows with this cut evaluates through <see cref="SizeSliceGram"/>s.</summary>
+    public static bool UsesGrams(ObjectColumns cols, SelectionTruncation? cut) => cut is null && cols.UniformVarLnTheta;
+
+    /// <summary>The slice Gram matrices (null when not used), for a likelihood that shares these rows and grid.</summary>
+    public System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? Grams => _grams;
+
+    private SizeSliceGram? Gram(int start, int end) =>
+        _grams is null || end <= start ? null
+            : _grams.GetOrAdd(((long)start << 32) | (uint)end, _ => distances.FixedLnDa is { } fixedLnDa
+                ? new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, fixedLnDa, null, null, start, end)
+                : new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, cols.LnZ, distances.Grid, distances.ReferenceG, start, end));
+
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end)
     {
         int len = end - start;
+        if (Gram(start, end) is { } gram)
+        {
+            double v = cols.VarLnTheta[start] + p.Sigma2;
+            double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, default, 0, out _, out _);
+            return -0.5 * (q / v + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
+        }
         if (cut is null)
         {
             var lnDa = distances.LnDaSlice(e, start, end, cols.LnZ, out var rented);
@@ -35,9 +61,16 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
     {
         int len = end - start;
         var nodeA = adj.NodeAdjoint;
+        if (Gram(start, end) is { } gram)
+        {
+            double v = cols.VarLnTheta[start] + p.Sigma2, inv = 1 / v;
+            double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, distances.FixedLnDa is null ? nodeA : default, inv, out double sr, out double srx);
+            adj.Dt += sr * inv; adj.DtX += srx * inv; adj.DVt += 0.5 * (q * inv * inv - len * inv);
+            return -0.5 * (q * inv + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
+        }
         if (cut is null)
         {
-            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridG!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
+            if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridLnDaOverZ!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
             var lnDa = distances.LnDaSlice(e, start, end, cols.LnZ, out var rented);
             var d = ArrayPool<double>.Shared.Rent(len);
             double q = GaussianCore.SumWithPartials(cols.LnTheta.AsSpan(start, len), cols.Ln1pZ.AsSpan(start, len), lnDa, cols.VarLnTheta.AsSpan(start, len),

@@ -39,12 +39,12 @@ internal sealed class SurfaceBrightnessKernel(ObjectColumns cols, SelectionTrunc
         double acc = 0, sel = 0;
         for (int i = start; i < end; i++)
         {
-            double l10 = cols.Log10OnePlusZ[i];
-            double m = p.Mu0 + p.TolmanSlope * l10 + cols.Correction[i];
+            double log10OnePlusZ = cols.Log10OnePlusZ[i];
+            double m = p.Mu0 + p.TolmanSlope * log10OnePlusZ + cols.Correction[i];
             double r = cols.Mu[i] - m, v = cols.VarMu[i] + sm2, inv = 1 / v;
             acc += r * r * inv + Math.Log(v);
             sel += cut.LogPass(0, m, 0, v, 0, out _, out double smm, out _, out double svm, out _);
-            adj.AddObject(0, r * inv - smm, 0, 0.5 * (r * r * inv * inv - inv) - svm, 0, cols.Ln1pZ[i], l10);
+            adj.AddObject(0, r * inv - smm, 0, 0.5 * (r * r * inv * inv - inv) - svm, 0, cols.Ln1pZ[i], log10OnePlusZ);
         }
         return -0.5 * acc - sel - GaussianCore.HalfLn2Pi * len;
     }

@@ -20,12 +20,12 @@ public static class ChainMemory
     /// <summary>Bytes a chain of <paramref name="walkers"/> × <paramref name="steps"/> × <paramref name="dimension"/> can hold.</summary>
     public static long Bytes(int walkers, int steps, int dimension) => (long)walkers * steps * (dimension + 1) * sizeof(double);
 
-    /// <summary>Throws <see cref="Common.InputException"/> (exit 2) when the largest chain would exceed <paramref name="budgetBytes"/>.</summary>
+    /// <summary>Throws <see cref="SizeTest.Foundation.Errors.InputException"/> (exit 2) when the largest chain would exceed <paramref name="budgetBytes"/>.</summary>
     public static void Check(int walkers, int maxSteps, int dimension, long budgetBytes)
     {
         long bytes = Bytes(walkers, maxSteps, dimension);
         if (bytes > budgetBytes)
-            throw new Common.InputException(string.Create(CultureInfo.InvariantCulture,
+            throw new SizeTest.Foundation.Errors.InputException(string.Create(CultureInfo.InvariantCulture,
                 $"the MCMC chain could need {walkers} walkers × {maxSteps} steps × ({dimension} parameters + ln p) × 8 B = {bytes / 1048576.0:0} MiB, more than the budget of {budgetBytes / 1048576.0:0} MiB; lower --max-steps or --walkers"));
     }
 }

@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Inference.Sampling;
 
@@ -259,6 +259,56 @@ public sealed class EnsembleSampler
             }
             if (!ok)
                 throw new ArgumentException($"No starting point with a finite log density was found near the centre for walker {w}; check the centre and the scale.");
+            result[w] = x;
+        }
+        return result;
+    }
+
+    /// <summary>
+    /// Makes a starting ensemble drawn from the Gaussian N(<paramref name="centre"/>, <paramref name="covariance"/>)
+    /// (e.g. the Laplace approximation at the maximum: the inverse negative Hessian), redrawing any point whose log
+    /// density under <paramref name="density"/> is not finite (up to 1000 times per walker, then shrinking the spread
+    /// by 2 each further 100 tries), seeded. Starting from the approximate posterior rather than a tiny ball shortens the burn-in.
+    /// </summary>
+    /// <exception cref="ArgumentException">When the covariance is not positive definite or no valid point is found.</exception>
+    public static double[][] GaussianStart(ILogDensity density, ReadOnlySpan<double> centre, double[,] covariance, int walkers, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(density);
+        ArgumentNullException.ThrowIfNull(covariance);
+        int d = centre.Length;
+        if (d != density.Dimension || covariance.GetLength(0) != d || covariance.GetLength(1) != d)
+            throw new ArgumentException("The centre and the covariance must match the density's dimension.");
+        var chol = Matrix<double>.Build.DenseOfArray(covariance);
+        MathNet.Numerics.LinearAlgebra.Factorization.Cholesky<double> factor;
+        try { factor = chol.Cholesky(); }
+        catch (ArgumentException) { throw new ArgumentException("The starting covariance is not positive definite."); }
+        var l = factor.Factor;
+        var rng = new Random(seed);
+        var result = new double[walkers][];
+        var z = new double[d];
+        for (int w = 0; w < walkers; w++)
+        {
+            var x = new double[d];
+            bool ok = false;
+            double shrink = 1;
+            for (int attempt = 0; attempt < 3000 && !ok; attempt++)
+            {
+                if (attempt >= 1000 && attempt % 100 == 0) shrink *= 0.5;
+                for (int p = 0; p < d; p++)
+                {
+                    double u1 = 1.0 - rng.NextDouble(), u2 = rng.NextDouble();
+                    z[p] = Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
+                }
+                for (int p = 0; p < d; p++)
+                {
+                    double s = 0;
+                    for (int q = 0; q <= p; q++) s += l[p, q] * z[q];
+                    x[p] = centre[p] + shrink * s;
+                }
+                ok = double.IsFinite(density.LogDensity(x));
+            }
+            if (!ok)
+                throw new ArgumentException($"No starting point with a finite log density was found near the centre for walker {w}; check the centre and the covariance.");
             result[w] = x;
         }
         return result;

@@ -13,7 +13,7 @@ public sealed record EvidenceResult
     public required double Information { get; init; }
 
     /// <summary>Dead points followed by the final live points, each with its normalised posterior weight.</summary>
-    public required IReadOnlyList<WeightedSample> WeightedSamples { get; init; }
+    public required IReadOnlyList<WeightedDraw> WeightedDraws { get; init; }
 
     /// <summary>Iterations (dead points).</summary>
     public required int Iterations { get; init; }
@@ -45,7 +45,7 @@ public sealed record EvidenceResult
         get
         {
             double s = 0;
-            foreach (var w in WeightedSamples) s += Math.Exp(2 * w.LogWeight);
+            foreach (var w in WeightedDraws) s += Math.Exp(2 * w.LogWeight);
             return s > 0 ? 1.0 / s : 0.0;
         }
     }
@@ -53,9 +53,9 @@ public sealed record EvidenceResult
     /// <summary>Weighted posterior mean of every parameter.</summary>
     public double[] PosteriorMean()
     {
-        int d = WeightedSamples.Count > 0 ? WeightedSamples[0].Theta.Length : 0;
+        int d = WeightedDraws.Count > 0 ? WeightedDraws[0].Theta.Length : 0;
         var mean = new double[d];
-        foreach (var w in WeightedSamples)
+        foreach (var w in WeightedDraws)
         {
             double p = Math.Exp(w.LogWeight);
             for (int i = 0; i < d; i++) mean[i] += p * w.Theta[i];
@@ -67,7 +67,7 @@ public sealed record EvidenceResult
     public double Percentile(int parameter, double percent)
     {
         if (!(percent >= 0 && percent <= 100)) throw new ArgumentOutOfRangeException(nameof(percent));
-        var pairs = WeightedSamples.Select(w => (x: w.Theta[parameter], p: Math.Exp(w.LogWeight))).OrderBy(t => t.x).ToArray();
+        var pairs = WeightedDraws.Select(w => (x: w.Theta[parameter], p: Math.Exp(w.LogWeight))).OrderBy(t => t.x).ToArray();
         if (pairs.Length == 0) return double.NaN;
         double target = percent / 100.0, cum = 0;
         foreach (var (x, p) in pairs)
@@ -89,7 +89,7 @@ public sealed record EvidenceResult
         var result = new double[count][];
         double u = rng.NextDouble() / count, cum = 0;
         int k = 0;
-        foreach (var w in WeightedSamples)
+        foreach (var w in WeightedDraws)
         {
             cum += Math.Exp(w.LogWeight);
             while (k < count && u <= cum)
@@ -98,7 +98,7 @@ public sealed record EvidenceResult
                 u += 1.0 / count;
             }
         }
-        while (k < count) result[k++] = (double[])WeightedSamples[^1].Theta.Clone();
+        while (k < count) result[k++] = (double[])WeightedDraws[^1].Theta.Clone();
         return result;
     }
 }

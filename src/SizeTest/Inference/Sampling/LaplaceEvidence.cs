@@ -1,6 +1,6 @@
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Inference.Sampling;
 
@@ -50,7 +50,7 @@ public static class LaplaceEvidence
 
     /// <summary>
     /// ln Z with the covariance from the numerical Hessian of ln L + Σ ln π_i at <paramref name="mode"/>
-    /// (<see cref="UnboundedHessian"/>).
+    /// (<see cref="LogDensityHessian"/>).
     /// </summary>
     /// <param name="logLikelihood">ln L(θ).</param>
     /// <param name="priors">One prior per parameter.</param>
@@ -71,7 +71,7 @@ public static class LaplaceEvidence
         CheckShapes(logLikelihood, priors, mode);
         result = null!;
         var posterior = new LogPosterior(logLikelihood, priors);
-        if (!UnboundedHessian.TryCompute(posterior, mode, out var hessian, out failure, initialSteps))
+        if (!LogDensityHessian.TryCompute(posterior, mode, out var hessian, out failure, initialSteps))
             return false;
         int d = mode.Length;
         var negH = Matrix<double>.Build.DenseOfArray(hessian).Negate();

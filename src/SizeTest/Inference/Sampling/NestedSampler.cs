@@ -1,6 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Inference.Sampling;
 
@@ -85,7 +85,7 @@ public sealed class NestedSampler
             liveLogL[k] = Evaluate(liveU[k], liveTheta[k], ref evaluations);
         }
 
-        var dead = new List<WeightedSample>();   // LogWeight holds ln(w_i L_i) until normalised
+        var dead = new List<WeightedDraw>();   // LogWeight holds ln(w_i L_i) until normalised
         double logZ = double.NegativeInfinity, h = 0.0;
         int iteration = 0;
         bool converged = false;
@@ -130,7 +130,7 @@ public sealed class NestedSampler
                 double logWidth = logX + Math.Log(-double.ExpM1(-1.0 / liveCount));   // ln(X − X e^{−1/n})
                 double logWt = logWidth + threshold;
                 Accumulate(logWt, threshold, ref logZ, ref h);
-                dead.Add(new WeightedSample((double[])liveTheta[tied[t]].Clone(), threshold, logWt));
+                dead.Add(new WeightedDraw((double[])liveTheta[tied[t]].Clone(), threshold, logWt));
                 logX -= 1.0 / liveCount;
                 iteration++;
             }
@@ -177,11 +177,11 @@ public sealed class NestedSampler
         {
             double logWt = liveLogWidth + liveLogL[k];
             Accumulate(logWt, liveLogL[k], ref logZ, ref h);
-            dead.Add(new WeightedSample((double[])liveTheta[k].Clone(), liveLogL[k], logWt));
+            dead.Add(new WeightedDraw((double[])liveTheta[k].Clone(), liveLogL[k], logWt));
         }
         clock.Stop();
 
-        var samples = new WeightedSample[dead.Count];
+        var samples = new WeightedDraw[dead.Count];
         double maxL = double.NegativeInfinity;
         for (int i = 0; i < dead.Count; i++)
         {
@@ -194,7 +194,7 @@ public sealed class NestedSampler
             LogEvidence = logZ,
             LogEvidenceError = Math.Sqrt(h / n),
             Information = h,
-            WeightedSamples = samples,
+            WeightedDraws = samples,
             Iterations = iteration,
             LivePoints = n,
             Evaluations = evaluations,

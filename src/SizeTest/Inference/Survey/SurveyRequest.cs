@@ -43,7 +43,7 @@ public sealed record SurveyRequest(
         IReadOnlyList<string>? groups = null;
         if (Groups)
         {
-            var g = observables.Survey.Group ?? throw new Common.InputException("--group needs a group column; name it with --group COLUMN");
+            var g = observables.Survey.Group ?? throw new SizeTest.Foundation.Errors.InputException("--group needs a group column; name it with --group COLUMN");
             groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
             if (groups.Count < 2) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
         }

@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference.Likelihood;
 using SizeTest.Photometry;
@@ -46,7 +46,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     private readonly double[]? _weight, _lumBase;
     private readonly double _lumZSlope;
     private readonly int[] _group, _bin;
-    private readonly int[] _iR0, _iA, _iSd, _iBeta;
+    private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _luminositySlopeIndex;
     private readonly bool _gaussian, _photoZ, _hasLum;
     private readonly double[]? _lnDaFixed;
     private readonly RedshiftGrid? _grid;
@@ -130,10 +130,10 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         }
 
         // --- parameter indices
-        _iR0 = Enumerable.Repeat(-1, _groups * _bins).ToArray();
-        _iA = Enumerable.Repeat(-1, _groups).ToArray();
-        _iSd = Enumerable.Repeat(-1, _groups).ToArray();
-        _iBeta = Enumerable.Repeat(-1, _groups).ToArray();
+        _radiusIndex = Enumerable.Repeat(-1, _groups * _bins).ToArray();
+        _evolutionIndex = Enumerable.Repeat(-1, _groups).ToArray();
+        _scatterIndex = Enumerable.Repeat(-1, _groups).ToArray();
+        _luminositySlopeIndex = Enumerable.Repeat(-1, _groups).ToArray();
         var byName = new Dictionary<string, int>(StringComparer.Ordinal);
         for (int i = 0; i < h.Parameters.Count; i++) byName[h.Parameters[i].Name] = i;
         int Need(string name) => byName.TryGetValue(name, out var i) ? i : throw new ArgumentException($"hypothesis has no parameter '{name}'");
@@ -141,10 +141,10 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         {
             string l = labels[g];
             for (int k = 0; k < _bins; k++)
-                _iR0[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"r0_kpc_bin{k + 1}" : "r0_kpc", l));
-            if (!sv.Binned) _iA[g] = Need(SurveyModel.Named("size_evolution", l));
-            _iSd[g] = Need(SurveyModel.Named("scatter_dex", l));
-            if (sv.Relation != SizeRelationKind.None) _iBeta[g] = Need(SurveyModel.Named("size_luminosity_slope", l));
+                _radiusIndex[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"r0_kpc_bin{k + 1}" : "r0_kpc", l));
+            if (!sv.Binned) _evolutionIndex[g] = Need(SurveyModel.Named("size_evolution", l));
+            _scatterIndex[g] = Need(SurveyModel.Named("scatter_dex", l));
+            if (sv.Relation != SizeRelationKind.None) _luminositySlopeIndex[g] = Need(SurveyModel.Named("size_luminosity_slope", l));
         }
 
         // --- luminosities
@@ -243,12 +243,12 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         int gb = _groups * _bins;
         Span<double> lnR0 = stackalloc double[gb];
         Span<double> a = stackalloc double[_groups], sig = stackalloc double[_groups], beta = stackalloc double[_groups];
-        for (int q = 0; q < gb; q++) lnR0[q] = Math.Log(v[_iR0[q]]) + LnKpcPerMpc;
+        for (int q = 0; q < gb; q++) lnR0[q] = Math.Log(v[_radiusIndex[q]]) + LnKpcPerMpc;
         for (int g = 0; g < _groups; g++)
         {
-            a[g] = _iA[g] >= 0 ? v[_iA[g]] : 0;
-            sig[g] = Ln10 * v[_iSd[g]];
-            beta[g] = _iBeta[g] >= 0 ? v[_iBeta[g]] : 0;
+            a[g] = _evolutionIndex[g] >= 0 ? v[_evolutionIndex[g]] : 0;
+            sig[g] = Ln10 * v[_scatterIndex[g]];
+            beta[g] = _luminositySlopeIndex[g] >= 0 ? v[_luminositySlopeIndex[g]] : 0;
         }
         double eExp = _expanding ? 2.0 : _iLumExp >= 0 && double.IsFinite(v[_iLumExp]) ? v[_iLumExp] : _eFixed;
         double[]? direct = null;
@@ -268,7 +268,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             double r0 = lnR0[q0], ag = a[g], bg = beta[g], sg = sig[g];
             if (!_photoZ)
             {
-                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridG, i);
+                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridLnDaOverZ, i);
                 double c = _lumBase?[i] ?? 0;
                 double li = PointLogDensity(i, r0, ag, bg, sg, eExp, _ln1pz[i], lnDa, c, out double dm, out double ds);
                 acc += w * li;
@@ -285,7 +285,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
                 {
                     int q = i * J + j;
                     if (double.IsNegativeInfinity(_nodeLogW[q])) { lp[j] = double.NegativeInfinity; continue; }
-                    lnDaj[j] = _nodeLnDaFixed is not null ? _nodeLnDaFixed[q] : _nodeLnz[q] + _nodeGrid!.Interpolate(e.GridG, q);
+                    lnDaj[j] = _nodeLnDaFixed is not null ? _nodeLnDaFixed[q] : _nodeLnz[q] + _nodeGrid!.Interpolate(e.GridLnDaOverZ, q);
                     lp[j] = _nodeLogW[q] + PointLogDensity(i, r0, ag, bg, sg, eExp, _nodeLn1pz[q], lnDaj[j], _lumBase is null ? 0 : _nodeLumBase[q], out dmj[j], out dsj[j]);
                     if (lp[j] > max) max = lp[j];
                 }
@@ -308,12 +308,12 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
 
     private void AddPartials(double[] direct, double[] v, int g, int q0, double dm, double ds, double ln1pz, double lnDa, double c, double beta, double eExp)
     {
-        Add(direct, _iR0[q0], dm / v[_iR0[q0]]);
-        Add(direct, _iA[g], dm * ln1pz);
-        Add(direct, _iSd[g], ds * Ln10);
+        Add(direct, _radiusIndex[q0], dm / v[_radiusIndex[q0]]);
+        Add(direct, _evolutionIndex[g], dm * ln1pz);
+        Add(direct, _scatterIndex[g], ds * Ln10);
         if (_hasLum)
         {
-            Add(direct, _iBeta[g], dm * (c + 2 * (lnDa + eExp * ln1pz)));
+            Add(direct, _luminositySlopeIndex[g], dm * (c + 2 * (lnDa + eExp * ln1pz)));
             Add(direct, _iLumExp, dm * 2 * beta * ln1pz);
         }
     }
@@ -421,15 +421,15 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             {
                 if (_group[i] * _bins + _bin[i] != gb || (_weight?[i] ?? 1) == 0) continue;
                 int g = _group[i];
-                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridG, i);
-                double x = _y[i] + lnDa - LnKpcPerMpc - (_iA[g] >= 0 ? v[_iA[g]] : 0) * _ln1pz[i];
-                if (_hasLum) x -= v[_iBeta[g]] * (_lumBase![i] + 2 * (lnDa + eExp * _ln1pz[i]));
+                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridLnDaOverZ, i);
+                double x = _y[i] + lnDa - LnKpcPerMpc - (_evolutionIndex[g] >= 0 ? v[_evolutionIndex[g]] : 0) * _ln1pz[i];
+                if (_hasLum) x -= v[_luminositySlopeIndex[g]] * (_lumBase![i] + 2 * (lnDa + eExp * _ln1pz[i]));
                 t.Add(x);
             }
             if (t.Count == 0) continue;
             t.Sort();
             double med = t[t.Count / 2];
-            string name = h.Parameters[_iR0[gb]].Name;
+            string name = h.Parameters[_radiusIndex[gb]].Name;
             for (int j = 0; j < free.Count; j++)
                 if (free[j].Name == name && double.IsFinite(med)) start[j] = Math.Clamp(Math.Exp(med), free[j].Min, free[j].Max);
         }

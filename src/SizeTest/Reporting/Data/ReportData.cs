@@ -14,7 +14,9 @@ public sealed record ReportData
     public required DataSummary Data { get; init; }
 
     /// <summary>The accepted objects (redshift, angular size, surface brightness).</summary>
-    public required SamplePoints Sample { get; init; }
+    // The report-data.json key stays "sample" (format version 1).
+    [System.Text.Json.Serialization.JsonPropertyName("sample")]
+    public required ObjectPoints Objects { get; init; }
 
     /// <summary>Per fitted model: its fit summary, curves and required evolution. Order is display order.</summary>
     public required IReadOnlyList<ModelReport> Models { get; init; }
@@ -35,7 +37,7 @@ public sealed record ReportData
     public double? SurfaceBrightnessZeroPoint { get; init; }
 
     /// <summary>Posterior samples for a corner plot, when the study sampled.</summary>
-    public PosteriorSamples? Posterior { get; init; }
+    public CornerDraws? Posterior { get; init; }
 
     /// <summary>Power curve from mock catalogues, when the study ran a power analysis.</summary>
     public PowerCurve? Power { get; init; }
@@ -45,18 +47,18 @@ public sealed record ReportData
 
     /// <summary>
     /// A copy with <see cref="ThetaBins"/> (medians) and <see cref="MuBins"/> (means) computed
-    /// from <see cref="Sample"/> in <paramref name="bins"/> equal-count redshift bins with
+    /// from <see cref="Objects"/> in <paramref name="bins"/> equal-count redshift bins with
     /// <paramref name="resamples"/> bootstrap resamples seeded by <paramref name="seed"/>
     /// (see <see cref="BinnedStatistics"/>).
     /// </summary>
     public ReportData WithBins(int bins = 8, int resamples = 200, int seed = 0)
     {
-        var edges = BinnedStatistics.EqualCountEdges(Sample.Z, bins);
+        var edges = BinnedStatistics.EqualCountEdges(Objects.Z, bins);
         if (edges.Length < 2) return this;
         return this with
         {
-            ThetaBins = Sample.ThetaArcsec is { } th ? BinnedStatistics.Compute(Sample.Z, th, edges, BinnedStatistics.Statistic.Median, resamples, seed) : null,
-            MuBins = Sample.Mu is { } mu ? BinnedStatistics.Compute(Sample.Z, mu, edges, BinnedStatistics.Statistic.Mean, resamples, seed + 1) : null,
+            ThetaBins = Objects.ThetaArcsec is { } th ? BinnedStatistics.Compute(Objects.Z, th, edges, BinnedStatistics.Statistic.Median, resamples, seed) : null,
+            MuBins = Objects.Mu is { } mu ? BinnedStatistics.Compute(Objects.Z, mu, edges, BinnedStatistics.Statistic.Mean, resamples, seed + 1) : null,
         };
     }
 

@@ -17,7 +17,7 @@ public static class AngularSizeFigure
     public static FigureSpec? Build(ReportData data, FigureOptions? options = null)
     {
         options ??= FigureOptions.Default;
-        var s = data.Sample;
+        var s = data.Objects;
         if (s.ThetaArcsec is not { } theta || s.Count == 0) return null;
         var reference = FigureText.BestByBic(data.Models, m => m.Theta is not null);
 

@@ -17,7 +17,7 @@ public static class SurfaceBrightnessFigure
     public static FigureSpec? Build(ReportData data, FigureOptions? options = null)
     {
         options ??= FigureOptions.Default;
-        var s = data.Sample;
+        var s = data.Objects;
         if (s.Mu is not { } mu || s.Count == 0) return null;
         var onePlusZ = s.Z.Select(z => 1 + z).ToList();
         var series = new List<SeriesSpec>();

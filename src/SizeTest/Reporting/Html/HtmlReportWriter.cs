@@ -63,7 +63,7 @@ public sealed class HtmlReportWriter
     }
 
     /// <summary>Renders and writes the page atomically to <paramref name="path"/>.</summary>
-    public void Write(ReportContent content, string path) => Common.AtomicFile.WriteAllText(path, Render(content));
+    public void Write(ReportContent content, string path) => SizeTest.Foundation.Files.AtomicFile.WriteAllText(path, Render(content));
 
     private const string Css = """
         :root { --ink: #1a1a1a; --muted: #555; --rule: #d0d0d0; --accent: #0072B2; --warn: #D55E00; }

@@ -114,7 +114,7 @@ public sealed class PdfReportWriter
     public PdfReport Write(ReportContent content, string path)
     {
         var r = Render(content);
-        Common.AtomicFile.WriteAllBytes(path, r.Bytes);
+        SizeTest.Foundation.Files.AtomicFile.WriteAllBytes(path, r.Bytes);
         return r;
     }
 }

@@ -1,5 +1,5 @@
 using System.Globalization;
-using SizeTest.Common;
+using SizeTest.Foundation.Text;
 using SizeTest.Inference.Comparison;
 using SizeTest.Reporting.Data;
 using SizeTest.Reporting.Figures;
@@ -84,7 +84,7 @@ public static class ReportTables
     // "p = 0.057" → "0.057"; "p < 1e-300" keeps its "<" (a p-value that underflows is a bound, not a value).
     private static string LikelihoodRatioTestPValue(double p)
     {
-        string text = Inference.LikelihoodRatioTest.FormatPValue(p);
+        string text = Inference.Comparison.LikelihoodRatioTest.FormatPValue(p);
         text = text.StartsWith("p = ", StringComparison.Ordinal) ? text[4..] : text[2..];
         return text.Replace("-", PdgRounding.Minus, StringComparison.Ordinal);
     }

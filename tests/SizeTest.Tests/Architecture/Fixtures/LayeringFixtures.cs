@@ -1,15 +1,15 @@
-using CatalogSizeKind = SizeTest.Catalogs.SizeKind;
+using CatalogueSizeKind = SizeTest.Catalogues.SizeKind;
 
 // Deliberate layering violations for LayeringCheckerTests, compiled into the test assembly only.
-// The namespace sits inside the Cosmology stage so that the relative name "Catalogs.SizeKind"
-// resolves to SizeTest.Catalogs.SizeKind, a stage to the right of Cosmology.
+// The namespace sits inside the Cosmology stage so that the relative name "Catalogues.SizeKind"
+// resolves to SizeTest.Catalogues.SizeKind, a stage to the right of Cosmology.
 namespace SizeTest.Cosmology.LayeringFixtures;
 
 /// <summary>Names a right-hand stage by a namespace-relative name only (no "SizeTest." in the text).</summary>
 internal static class RelativeNameUse
 {
-    /// <summary>A field of a Catalogs type, spelled relative to the enclosing namespace.</summary>
-    internal static Catalogs.SizeKind Kind = Catalogs.SizeKind.Petrosian;
+    /// <summary>A field of a Catalogues type, spelled relative to the enclosing namespace.</summary>
+    internal static Catalogues.SizeKind Kind = Catalogues.SizeKind.Petrosian;
 }
 
 /// <summary>Names a right-hand stage through a <c>using</c> alias, inside a method body only.</summary>
@@ -18,14 +18,14 @@ internal static class AliasUse
     /// <summary>Uses the alias in a local only.</summary>
     internal static int Count()
     {
-        var kinds = Enum.GetValues<CatalogSizeKind>();
+        var kinds = Enum.GetValues<CatalogueSizeKind>();
         return kinds.Length;
     }
 }
 
-/// <summary>Uses only a stage to the left of Cosmology (Common): allowed.</summary>
+/// <summary>Uses only a stage to the left of Cosmology (Foundation): allowed.</summary>
 internal static class LeftwardUse
 {
-    /// <summary>Builds a Common exception.</summary>
-    internal static Exception Make() => new Common.InputException("fixture");
+    /// <summary>Builds a Foundation exception.</summary>
+    internal static Exception Make() => new SizeTest.Foundation.Errors.InputException("fixture");
 }

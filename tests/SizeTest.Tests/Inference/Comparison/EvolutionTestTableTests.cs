@@ -22,7 +22,7 @@ public sealed partial class EvolutionTestTableTests
     /// The contradictory case: tired light's 68% interval for a (−0.098 … −0.030) does not contain 0, yet the
     /// LRT gives p = 0.057. The table must say "does not need" (LRT) and nothing may say "excludes".
     /// </summary>
-    private static StudyResult DemoLike() => new()
+    private static FitResult DemoLike() => new()
     {
         Source = "hand-made", RowsRead = 1000, Accepted = 1000, Rejected = 0, Seed = 1,
         Settings = new FitSettings("joint", new SelectionLimits(), false, 5, 0, 0, 1, 0, 0, "none", 0, 0, 0, null, [new ExpectedRange("size_evolution", -1.5, -0.7)], 1),

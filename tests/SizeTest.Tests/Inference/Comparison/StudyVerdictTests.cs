@@ -15,15 +15,15 @@ public sealed class StudyVerdictTests
 {
     private static readonly IReadOnlyDictionary<string, double> Defaults = new Dictionary<string, double>();
 
-    private static StudyResult Fit(Observables obs, params Hypothesis[] hypotheses) =>
-        FitStudy.Run(new FitRequest { Hypotheses = hypotheses, Observables = obs, Starts = 1 });
+    private static FitResult Fit(Observables obs, params Hypothesis[] hypotheses) =>
+        FitRun.Run(new FitRequest { Hypotheses = hypotheses, Observables = obs, Starts = 1 });
 
     [Fact]
     public void SurfaceBrightnessOnlyWithFreeEvolutionIsUndecided()
     {
         // EdS mock, μ only: with b free every model reaches the same maximum (n − b degeneracy), so the verdict
         // must be undecided whatever the fitted numbers say.
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 400, new MockCatalog.Truth(), seed: 5);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 400, new MockCatalogue.Truth(), seed: 5);
         var nuisance = new NuisanceModel(ObservableKind.SurfaceBrightness);
         var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, nuisance), Hypothesis.Create(TestWorldModels.StaticLinear, nuisance));
         Assert.All(r.Models, m => Assert.False(m.Parameters.Single(p => p.Name == "sb_evolution").Fixed));
@@ -39,7 +39,7 @@ public sealed class StudyVerdictTests
     {
         // 40 objects from EdS with size evolution free: EdS and flat ΛCDM (Ωm = 0.3) are nearly degenerate with a,
         // so ΔBIC < 2 (checked below as the precondition); the verdict must say "within noise".
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 40, new MockCatalog.Truth(), seed: 3, zMin: 0.2, zMax: 1.0);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 40, new MockCatalogue.Truth(), seed: 3, zMin: 0.2, zMax: 1.0);
         var size = new NuisanceModel(ObservableKind.Size);
         var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, size), Hypothesis.Create(TestWorldModels.FlatLcdm, size).WithFixed("omega_m", 0.3));
         Assert.True(r.Models[1].DeltaBic < 2, $"precondition: ΔBIC = {r.Models[1].DeltaBic}");
@@ -55,7 +55,7 @@ public sealed class StudyVerdictTests
     {
         // 1000 objects from EdS with no size evolution, fitted with a = 0 fixed: the static d = cz/H0 law predicts
         // θ ∝ 1/z, far from EdS's turn-over, so ΔBIC ≫ 10 and the verdict names EdS with "very strong" evidence.
-        var obs = MockCatalog.Draw(TestWorldModels.Eds.Create(Defaults), 1000, new MockCatalog.Truth(SizeEvolution: 0), seed: 11, zMin: 0.2, zMax: 3);
+        var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 1000, new MockCatalogue.Truth(SizeEvolution: 0), seed: 11, zMin: 0.2, zMax: 3);
         var size = new NuisanceModel(ObservableKind.Size);
         var r = Fit(obs, Hypothesis.Create(TestWorldModels.Eds, size).WithFixed("size_evolution", 0),
             Hypothesis.Create(TestWorldModels.StaticLinear, size).WithFixed("size_evolution", 0));
@@ -75,7 +75,7 @@ public sealed class StudyVerdictTests
         Converged = converged, ExitReason = converged ? "" : "iteration limit",
     };
 
-    private static StudyResult Result(string observable, bool relation, params ModelFitSummary[] models) => new()
+    private static FitResult Result(string observable, bool relation, params ModelFitSummary[] models) => new()
     {
         Source = "hand-made", RowsRead = 100, Accepted = 100, Rejected = 0, Seed = 1,
         Settings = new FitSettings(observable, new SelectionLimits(), relation, 5, 0, 0, 1, 0, 0, "none", 0, 0, 0, null, [], 1),

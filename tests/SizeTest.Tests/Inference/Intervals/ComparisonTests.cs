@@ -1,7 +1,8 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using Xunit;
+using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Tests.Inference.Intervals;
 
@@ -13,7 +14,7 @@ public sealed class ComparisonTests
     [Fact]
     public void IdenticalModelsGiveIdenticalCvScoresAndAZeroPairedDifference()
     {
-        var obs = MockCatalog.Draw(Eds, 300, new MockCatalog.Truth(), seed: 21);
+        var obs = MockCatalogue.Draw(Eds, 300, new MockCatalogue.Truth(), seed: 21);
         var h1 = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size));
         var h2 = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size));
         var folds = CrossValidation.AssignFolds(obs.Count, 5, seed: 1);
@@ -41,13 +42,13 @@ public sealed class ComparisonTests
     {
         // Flat ΛCDM with Ωm = 1 is Einstein–de Sitter (closed form vs tables agree to ~1e-13, docs/science.md), so the
         // two fits agree to numerical noise: they must share rank 1, and their paired CV difference is a tie.
-        var obs = MockCatalog.Draw(Eds, 400, new MockCatalog.Truth(), seed: 4);
+        var obs = MockCatalogue.Draw(Eds, 400, new MockCatalogue.Truth(), seed: 4);
         var hs = new[]
         {
             Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size)),
             Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Fixed: new Dictionary<string, double> { ["omega_m"] = 1.0 })),
         };
-        var r = FitStudy.Run(new FitRequest { Hypotheses = hs, Observables = obs, CrossValidationFolds = 5 });
+        var r = FitRun.Run(new FitRequest { Hypotheses = hs, Observables = obs, CrossValidationFolds = 5 });
         Assert.All(r.Models, m => { Assert.Equal(1, m.Rank); Assert.True(m.Tied); });
         Assert.Contains(r.Notes, n => n.Contains("none is ranked first", StringComparison.Ordinal));
         var cv = r.CrossValidation.ToDictionary(c => c.Model);
@@ -61,10 +62,10 @@ public sealed class ComparisonTests
     public void SurfaceBrightnessOnlyWithFreeEvolutionTiesEveryModel()
     {
         // With sb_evolution free, μ constrains only n − b, so every world model reaches the same maximum (issue 11).
-        var obs = MockCatalog.Draw(Eds, 300, new MockCatalog.Truth(), seed: 9);
+        var obs = MockCatalogue.Draw(Eds, 300, new MockCatalogue.Truth(), seed: 9);
         var hs = new[] { WorldModels.EinsteinDeSitter, WorldModels.StaticLinear, WorldModels.LambdaCdm }
             .Select(f => Hypothesis.Create(f, new NuisanceModel(ObservableKind.SurfaceBrightness))).ToArray();
-        var r = FitStudy.Run(new FitRequest { Hypotheses = hs, Observables = obs });
+        var r = FitRun.Run(new FitRequest { Hypotheses = hs, Observables = obs });
         Assert.All(r.Models, m => { Assert.Equal(1, m.Rank); Assert.True(m.Tied, $"{m.Name} BIC {m.Bic:R}"); });
     }
 
@@ -86,9 +87,9 @@ public sealed class ComparisonTests
     [Fact]
     public void MoreFreeParametersThanObjectsIsRefused()
     {
-        var obs = MockCatalog.Draw(Eds, 3, new MockCatalog.Truth(), seed: 2);
+        var obs = MockCatalogue.Draw(Eds, 3, new MockCatalogue.Truth(), seed: 2);
         var h = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size)); // k = 3
-        var ex = Assert.Throws<InputException>(() => FitStudy.Run(new FitRequest { Hypotheses = [h], Observables = obs }));
+        var ex = Assert.Throws<InputException>(() => FitRun.Run(new FitRequest { Hypotheses = [h], Observables = obs }));
         Assert.Contains("k = 3", ex.Message, StringComparison.Ordinal);
         Assert.Contains("n = 3", ex.Message, StringComparison.Ordinal);
     }
@@ -96,9 +97,9 @@ public sealed class ComparisonTests
     [Fact]
     public void FewerThanTenObjectsPerParameterIsWarned()
     {
-        var obs = MockCatalog.Draw(Eds, 25, new MockCatalog.Truth(), seed: 2);
+        var obs = MockCatalogue.Draw(Eds, 25, new MockCatalogue.Truth(), seed: 2);
         var h = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size));
-        var r = FitStudy.Run(new FitRequest { Hypotheses = [h], Observables = obs, CrossValidationFolds = 30 });
+        var r = FitRun.Run(new FitRequest { Hypotheses = [h], Observables = obs, CrossValidationFolds = 30 });
         Assert.Contains(r.Notes, n => n.StartsWith("warning: n = 25 objects for up to k = 3", StringComparison.Ordinal));
         // Folds above n are capped at leave-one-out with a stated note, never turned off silently.
         Assert.Contains(r.Notes, n => n.Contains("capped at 25 folds", StringComparison.Ordinal));

@@ -16,7 +16,7 @@ public sealed class HonestIntervalTests
         // Sizes with cosmology fixed: ln θ is linear in ln R0 and a, so the profiles of r0_kpc and size_evolution are
         // close to quadratic at N = 2000 and the two-point screen keeps the Hessian (a closed-form argument: a Gaussian
         // linear model's profile is exactly quadratic in the linear parameters).
-        var obs = MockCatalog.Draw(Eds, 2000, new MockCatalog.Truth(), seed: 8);
+        var obs = MockCatalogue.Draw(Eds, 2000, new MockCatalogue.Truth(), seed: 8);
         var h = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size));
         var lik = h.Bind(obs);
         var refined = ModelFitRefinement.Run(lik, obs, MaximumLikelihood.Fit(lik));
@@ -29,7 +29,7 @@ public sealed class HonestIntervalTests
     public void AParameterPinnedAtABoundGetsAOneSidedProfileInterval()
     {
         // Truth a = −1, but a is bounded to [0, 2]: the maximum sits on the lower bound.
-        var obs = MockCatalog.Draw(Eds, 500, new MockCatalog.Truth(), seed: 5);
+        var obs = MockCatalogue.Draw(Eds, 500, new MockCatalogue.Truth(), seed: 5);
         var h = Hypothesis.Create(WorldModels.EinsteinDeSitter, new NuisanceModel(ObservableKind.Size),
             new ParameterOverrides(Bounds: new Dictionary<string, (double, double)> { ["size_evolution"] = (0, 2) }));
         var lik = h.Bind(obs);

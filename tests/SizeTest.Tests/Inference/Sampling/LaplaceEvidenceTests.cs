@@ -1,4 +1,4 @@
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Inference.Sampling;
 using Xunit;
@@ -84,7 +84,7 @@ public sealed class LaplaceEvidenceTests
         // ∂²f/∂x∂y = −cos x sin y (calculus). Central differences err by O(h²) ~ 1e-5 relative at the chosen steps.
         var f = new DelegateDensity(2, v => Math.Sin(v[0]) * Math.Cos(v[1]) + v[0] * v[0] * v[0] / 3);
         double x = 0.4, y = 1.1;
-        Assert.True(UnboundedHessian.TryCompute(f, [x, y], out var h, out _));
+        Assert.True(LogDensityHessian.TryCompute(f, [x, y], out var h, out _));
         Assert.Equal(-Math.Sin(x) * Math.Cos(y) + 2 * x, h[0, 0], 4);
         Assert.Equal(-Math.Sin(x) * Math.Cos(y), h[1, 1], 4);
         Assert.Equal(-Math.Cos(x) * Math.Sin(y), h[0, 1], 4);
@@ -96,10 +96,10 @@ public sealed class LaplaceEvidenceTests
     {
         // ln density −x²/2 on x > 0 only, evaluated at x = 1e-4: the default step 1e-3 crosses the edge and must shrink.
         var f = new DelegateDensity(1, v => v[0] > 0 ? -0.5 * v[0] * v[0] : double.NegativeInfinity);
-        Assert.True(UnboundedHessian.TryCompute(f, [1e-4], out var h, out var failure), failure);
+        Assert.True(LogDensityHessian.TryCompute(f, [1e-4], out var h, out var failure), failure);
         Assert.Equal(-1.0, h[0, 0], 6);
         var nowhere = new DelegateDensity(1, _ => double.NegativeInfinity);
-        Assert.False(UnboundedHessian.TryCompute(nowhere, [0.0], out _, out failure));
+        Assert.False(LogDensityHessian.TryCompute(nowhere, [0.0], out _, out failure));
         Assert.Contains("not finite", failure);
     }
 }

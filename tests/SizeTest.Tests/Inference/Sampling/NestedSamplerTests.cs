@@ -1,5 +1,5 @@
 using MathNet.Numerics;
-using SizeTest.Common;
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Inference.Sampling;
 using Xunit;
@@ -78,7 +78,7 @@ public sealed class NestedSamplerTests
         // the estimate scatters by O(σ_lnZ), so ±0.3.
         Assert.InRange(result.Information, 1.58 - 0.3, 1.58 + 0.3);
         Assert.True(result.Converged, result.ExitReason);
-        Assert.Equal(1.0, result.WeightedSamples.Sum(w => Math.Exp(w.LogWeight)), 9);
+        Assert.Equal(1.0, result.WeightedDraws.Sum(w => Math.Exp(w.LogWeight)), 9);
         // Posterior mean ≈ ȳ: standard error σ_μ/√ESS (Kish ESS of the weights), bound 5 SE.
         double se = like.SigmaMu(0) / Math.Sqrt(result.EffectiveSampleSize);
         Assert.InRange(result.PosteriorMean()[0] - like.Mean(0), -5 * se, 5 * se);
@@ -163,7 +163,7 @@ public sealed class NestedSamplerTests
         Assert.Equal(a.Iterations, b.Iterations);
         Assert.NotEmpty(progress.Reports);
         Assert.Equal(a.Iterations, progress.Reports[^1].Iteration);
-        Assert.Equal(a.Iterations + 50, a.WeightedSamples.Count);
+        Assert.Equal(a.Iterations + 50, a.WeightedDraws.Count);
         var c = new NestedSampler(like, priors, options with { Seed = 12 }).Run();
         Assert.NotEqual(a.LogEvidence, c.LogEvidence);
         Assert.Equal(1000, a.Resample(1000, seed: 1).Length);
@@ -181,7 +181,7 @@ public sealed class NestedSamplerTests
         var result = new NestedSampler(like, [new UniformPrior(-5, 5)], new NestedSamplerOptions { LivePoints = 400, Seed = 13 }).Run();
         Assert.True(Math.Abs(result.LogEvidence - exact) < 3 * result.LogEvidenceError,
             $"lnZ {result.LogEvidence} ± {result.LogEvidenceError}, exact {exact}");
-        Assert.All(result.WeightedSamples.Where(w => w.Theta[0] <= 0), w => Assert.Equal(double.NegativeInfinity, w.LogWeight));
+        Assert.All(result.WeightedDraws.Where(w => w.Theta[0] <= 0), w => Assert.Equal(double.NegativeInfinity, w.LogWeight));
     }
 
     [Fact]

@@ -15,7 +15,7 @@ public sealed class PhotometricRedshiftTests(Xunit.Abstractions.ITestOutputHelpe
     /// <summary>Mocks in the coverage study (CI size; the full 200-mock run is SIZETEST_FULL_COVERAGE=1).</summary>
     private static int Mocks => Environment.GetEnvironmentVariable("SIZETEST_FULL_COVERAGE") == "1" ? 200 : 100;
 
-    private static global::SizeTest.Simulation.MockCatalog Mock(int n, long seed) =>
+    private static global::SizeTest.Simulation.MockCatalogue Mock(int n, long seed) =>
         // z_true uniform on [0.3, 2] (the prior the fit states: flat in z), σ_z = 0.08 (1+z), 5% log-normal size errors.
         Draw(Lcdm, n, seed, zDist: "uniform:0.3:2", errors: new MeasurementErrors(0.05, MuErrorMag: 0, PhotoZError: 0.08));
 

@@ -10,7 +10,7 @@ namespace SizeTest.Tests.Inference.Survey;
 /// <summary>Shared helpers of the survey-term tests: draw a mock, fit one hypothesis, read an estimate.</summary>
 internal static class SurveyFitting
 {
-    public static global::SizeTest.Simulation.MockCatalog Draw(IWorldModel model, int n, long seed, string zDist = "uniform:0.1:2", GalaxyPopulation? galaxy = null,
+    public static global::SizeTest.Simulation.MockCatalogue Draw(IWorldModel model, int n, long seed, string zDist = "uniform:0.1:2", GalaxyPopulation? galaxy = null,
         MeasurementErrors? errors = null, MockSelection? selection = null, SurveyPopulation? survey = null,
         MockObjectKind kind = MockObjectKind.Galaxy, RadioSourcePopulation? radio = null)
     {

@@ -1,0 +1,202 @@
+using System.Globalization;
+using SizeTest.Foundation.Errors;
+
+namespace SizeTest.Catalogues;
+
+/// <summary>
+/// The one call that turns a catalogue file into a validated <see cref="CatalogueRows"/>:
+/// open the reader, resolve the column mapping, stream the mapped columns chunk by chunk,
+/// accept or reject every row with a reason, and build the sample. Memory is proportional to
+/// the accepted values of the mapped columns only; the raw table is never held.
+/// </summary>
+/// <remarks>
+/// Validation rules (first fault in role order z, z_err, theta, theta_err, mu, mu_err, mag, mag_err,
+/// id, band, abs_mag, log_mass, flux_density, sersic_n, group, weight, kept columns): a null cell → <see cref="RejectReason.MissingValue"/>; an undecodable
+/// cell or a line with the wrong number of fields → <see cref="RejectReason.Unparsable"/>; z ≤ 0 →
+/// <see cref="RejectReason.NonPositiveRedshift"/>; θ ≤ 0 → <see cref="RejectReason.NonPositiveSize"/>;
+/// an error &lt; 0 → <see cref="RejectReason.NegativeError"/>; an infinite value, z above
+/// <see cref="CatalogueLoadOptions.MaxRedshift"/>, θ ≥ π rad, |mag| or |μ| or their errors above
+/// <see cref="CatalogueLoadOptions.MaxAbsMagnitude"/> → <see cref="RejectReason.OutOfRange"/>.
+/// A file that cannot be read at all throws one <see cref="InputException"/>.
+/// </remarks>
+public static class CatalogueLoader
+{
+    private static readonly ColumnRole[] Order =
+    [
+        ColumnRole.Z, ColumnRole.ZErr, ColumnRole.Theta, ColumnRole.ThetaErr, ColumnRole.Mu, ColumnRole.MuErr,
+        ColumnRole.Mag, ColumnRole.MagErr, ColumnRole.Id, ColumnRole.Band,
+        ColumnRole.AbsMag, ColumnRole.LogMass, ColumnRole.FluxDensity, ColumnRole.SersicN, ColumnRole.Group, ColumnRole.Weight,
+    ];
+
+    /// <summary>Loads <paramref name="path"/> (see the type's remarks for the rules).</summary>
+    public static CatalogueLoad Load(string path, CatalogueLoadOptions? options = null)
+    {
+        options ??= new CatalogueLoadOptions();
+        using var reader = CatalogueReaders.Open(path, options.Reader);
+        return Load(reader, options);
+    }
+
+    /// <summary>Loads from an open reader (for formats or sources opened elsewhere).</summary>
+    public static CatalogueLoad Load(ICatalogueReader reader, CatalogueLoadOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(reader);
+        options ??= new CatalogueLoadOptions();
+        var source = reader.SourceName;
+        var mapping = MappingResolver.Resolve(reader.Columns, options.Mapping, source);
+        if (!mapping.Roles.ContainsKey(ColumnRole.Z))
+            throw new InputException(
+                $"no redshift column found (none is named z/redshift/zspec… or has UCD src.redshift); map one with --col z=NAME — the columns are {string.Join(", ", reader.Columns.Take(30).Select(c => $"'{c.Name}'"))}",
+                source);
+
+        var bindings = Order.Where(mapping.Roles.ContainsKey).Select(r => mapping.Roles[r]).ToArray();
+        var requests = bindings.Select(b => new ColumnRequest(b.ColumnIndex, b.Role.IsText()))
+            .Concat(mapping.Kept.Select(k => new ColumnRequest(k.ColumnIndex, false))).ToList();
+
+        long? hint = reader.RowCountHint;
+        if (hint is > int.MaxValue) hint = int.MaxValue;
+        var numeric = new ColumnBuilder<double>?[bindings.Length];
+        var text = new ColumnBuilder<string>?[bindings.Length];
+        for (int k = 0; k < bindings.Length; k++)
+        {
+            if (bindings[k].Role.IsText()) text[k] = new ColumnBuilder<string>(hint);
+            else numeric[k] = new ColumnBuilder<double>(hint);
+        }
+        var kept = mapping.Kept.Select(_ => new ColumnBuilder<double>(hint)).ToArray();
+        var rows = new RowNumbers.Builder();
+        var rejects = new RejectLog(source);
+        var nulls = bindings.ToDictionary(b => b.Role, _ => 0L);
+        var nullCounts = new long[bindings.Length];
+        var values = new double[bindings.Length];
+        int thetaSlot = Array.FindIndex(bindings, b => b.Role == ColumnRole.Theta);
+        int zSlot = Array.FindIndex(bindings, b => b.Role == ColumnRole.Z);
+        long interval = Math.Max(1, options.ProgressInterval);
+        long rowsRead = 0, nextProgress = interval, lastReported = -1;
+
+        using var pipeline = new ChunkPipeline(reader, requests, Math.Max(1, options.ChunkRows));
+        foreach (var chunk in pipeline.Chunks())
+        {
+            for (int r = 0; r < chunk.Count; r++)
+            {
+                rowsRead++;
+                long pos = chunk.Positions[r];
+                for (int k = 0; k < bindings.Length; k++)
+                    if (chunk.Columns[k].States[r] == CellState.Null) nullCounts[k]++;
+                var reject = Check(chunk, r, bindings, mapping, values, thetaSlot, zSlot, options);
+                if (reject is null)
+                {
+                    for (int k = 0; k < kept.Length; k++)
+                    {
+                        var buf = chunk.Columns[bindings.Length + k];
+                        var name = mapping.Kept[k].Name;
+                        if (buf.States[r] == CellState.Null) { reject = new RejectEntry(pos, name, "", RejectReason.MissingValue, "kept column has no value"); break; }
+                        if (buf.States[r] == CellState.Invalid) { reject = new RejectEntry(pos, name, buf.InvalidText(r), RejectReason.Unparsable, "not a number"); break; }
+                        if (!double.IsFinite(buf.Numbers![r])) { reject = new RejectEntry(pos, name, Fmt(buf.Numbers[r]), RejectReason.NonFinite, "not a finite number"); break; }
+                    }
+                }
+                if (reject is not null) { rejects.Add(reject with { Row = pos }); continue; }
+                rows.Add(pos);
+                for (int k = 0; k < bindings.Length; k++)
+                {
+                    if (text[k] is { } tb) tb.Add(chunk.Columns[k].Texts![r]!);
+                    else numeric[k]!.Add(values[k]);
+                }
+                for (int k = 0; k < kept.Length; k++) kept[k].Add(chunk.Columns[bindings.Length + k].Numbers![r]);
+            }
+            pipeline.Return(chunk);
+            if (options.Progress is { } progress && rowsRead >= nextProgress)
+            {
+                progress(rowsRead);
+                lastReported = rowsRead;
+                nextProgress = rowsRead + interval;
+            }
+        }
+        // The final count, unless the last chunk's report already said it (a catalogue of exactly N × interval rows
+        // printed "read N rows" twice).
+        if ((rows.Count > 0 || rowsRead > 0) && rowsRead != lastReported) options.Progress?.Invoke(rowsRead);
+
+        double[]? Num(ColumnRole role)
+        {
+            int k = Array.FindIndex(bindings, b => b.Role == role);
+            return k < 0 ? null : numeric[k]!.Build();
+        }
+        string[]? Txt(ColumnRole role)
+        {
+            int k = Array.FindIndex(bindings, b => b.Role == role);
+            return k < 0 ? null : text[k]!.Build();
+        }
+        var extra = new Dictionary<string, double[]>();
+        for (int k = 0; k < kept.Length; k++) extra[mapping.Kept[k].Name] = kept[k].Build();
+        for (int k = 0; k < bindings.Length; k++) nulls[bindings[k].Role] = nullCounts[k];
+
+        var sample = new CatalogueRows(source, rows.Build(), Num(ColumnRole.Z)!,
+            id: Txt(ColumnRole.Id), zErr: Num(ColumnRole.ZErr), thetaRad: Num(ColumnRole.Theta), thetaErrRad: Num(ColumnRole.ThetaErr),
+            mu: Num(ColumnRole.Mu), muErr: Num(ColumnRole.MuErr), mag: Num(ColumnRole.Mag), magErr: Num(ColumnRole.MagErr),
+            band: Txt(ColumnRole.Band), sizeDefinition: mapping.SizeDefinition, extraColumns: extra,
+            survey: new SurveyColumns(Num(ColumnRole.AbsMag), Num(ColumnRole.LogMass), Num(ColumnRole.FluxDensity),
+                Num(ColumnRole.SersicN), Txt(ColumnRole.Group), Num(ColumnRole.Weight)));
+        return new CatalogueLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns, reader.Notes, rowsRead, nulls);
+    }
+
+    private static string Fmt(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+
+    /// <summary>Validates row <paramref name="r"/>; fills <paramref name="values"/> with normalised values; returns the reject entry or null.</summary>
+    private static RejectEntry? Check(RowChunk chunk, int r, RoleBinding[] bindings, ResolvedMapping mapping, double[] values,
+        int thetaSlot, int zSlot, CatalogueLoadOptions options)
+    {
+        long pos = chunk.Positions[r];
+        if (chunk.RowProblem(r) is { } problem) return new RejectEntry(pos, "", "", RejectReason.Unparsable, problem);
+        for (int k = 0; k < bindings.Length; k++)
+        {
+            var b = bindings[k];
+            var buf = chunk.Columns[k];
+            var state = buf.States[r];
+            if (state == CellState.Null) return new RejectEntry(pos, b.ColumnName, "", RejectReason.MissingValue, $"{b.Role.Name()} has no value");
+            if (state == CellState.Invalid)
+                return new RejectEntry(pos, b.ColumnName, buf.InvalidText(r), RejectReason.Unparsable, b.Role.IsText() ? "cannot be read as text" : "not a number");
+            if (b.Role.IsText()) continue;
+            double raw = buf.Numbers![r];
+            if (!double.IsFinite(raw)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonFinite, "not a finite number");
+            double v = raw * b.Scale;
+            switch (b.Role)
+            {
+                case ColumnRole.Z:
+                    if (v <= 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonPositiveRedshift, "z must be > 0");
+                    if (v > options.MaxRedshift) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"z above {Fmt(options.MaxRedshift)}");
+                    break;
+                case ColumnRole.Theta:
+                    if (v <= 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonPositiveSize, "size must be > 0");
+                    if (!(v < Math.PI)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "size of π rad or more");
+                    break;
+                case ColumnRole.ZErr or ColumnRole.ThetaErr:
+                    if (v < 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NegativeError, "error must be >= 0");
+                    if (b.IsRelative) v *= values[b.Role == ColumnRole.ZErr ? zSlot : thetaSlot];
+                    if (!double.IsFinite(v)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonFinite, "not finite after conversion");
+                    break;
+                case ColumnRole.Mu or ColumnRole.Mag:
+                    if (Math.Abs(v) > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"|value| above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");
+                    break;
+                case ColumnRole.AbsMag:
+                    if (Math.Abs(v) > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"|value| above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");
+                    break;
+                case ColumnRole.LogMass:
+                    if (!(v > 0 && v < 16)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "log10(M/Msun) outside 0–16 (a linear mass or a sentinel?)");
+                    break;
+                case ColumnRole.FluxDensity:
+                    if (!(v > 0)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "flux density must be > 0");
+                    break;
+                case ColumnRole.SersicN:
+                    if (!(v >= 0.05 && v <= 50)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "Sérsic index outside 0.05–50");
+                    break;
+                case ColumnRole.Weight:
+                    if (!(v > 0)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, "weight must be > 0");
+                    break;
+                case ColumnRole.MuErr or ColumnRole.MagErr:
+                    if (v < 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NegativeError, "error must be >= 0");
+                    if (v > options.MaxAbsMagnitude) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"error above {Fmt(options.MaxAbsMagnitude)} mag (a sentinel?)");
+                    break;
+            }
+            values[k] = v;
+        }
+        return null;
+    }
+}

@@ -1,0 +1,252 @@
+using System.Globalization;
+using System.Text;
+using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
+
+namespace SizeTest.Catalogues.Text;
+
+/// <summary>
+/// The layout of a delimited text catalogue found by looking at its first lines: the
+/// delimiter, where the header is (first line, a last comment line, or none) and the column
+/// kinds and units (<c>name [unit]</c> in the header).
+/// </summary>
+internal sealed class TextLayout
+{
+    public required char Delimiter { get; init; }          // ' ' = runs of whitespace
+    public required bool HeaderInFirstLine { get; init; }
+    public required long? HeaderLine { get; init; }        // 1-based line of the header (first line or comment), null = none
+    public required bool HeaderFromComment { get; init; }
+    public required IReadOnlyList<CatalogueColumn> Columns { get; init; }
+    public required IReadOnlyList<string> Notes { get; init; }
+
+    public static TextLayout Detect(string path, ReaderOptions options)
+    {
+        var lines = new List<(long No, string Text)>();
+        using (var fs = SizeTest.Foundation.Files.LineCappedStream.Open(path, options.MaxLineBytes))
+        using (var sr = new StreamReader(fs, new UTF8Encoding(false), detectEncodingFromByteOrderMarks: true))
+        {
+            long no = 0;
+            int chars = 0;
+            string? line;
+            while ((line = sr.ReadLine()) is not null && lines.Count < 400 && chars < (1 << 20))
+            {
+                no++;
+                chars += line.Length;
+                lines.Add((no, line));
+            }
+        }
+        string? lastComment = null;
+        long lastCommentNo = 0;
+        var data = new List<(long No, string Text)>();
+        foreach (var (no, text) in lines)
+        {
+            var t = text.TrimStart();
+            if (t.Length == 0) continue;
+            if (t[0] == '#')
+            {
+                if (data.Count == 0) { lastComment = t[1..]; lastCommentNo = no; }
+                continue;
+            }
+            data.Add((no, text));
+        }
+        if (data.Count == 0)
+            throw new InputException("the file has no data lines (only comments or nothing); is it a catalogue?", path);
+
+        var notes = new List<string>();
+        char delim = options.Delimiter ?? DetectDelimiter(path, data[0].Text);
+        notes.Add(delim switch
+        {
+            ' ' => "delimiter: runs of spaces/tabs",
+            '\t' => "delimiter: tab",
+            _ => $"delimiter: '{delim}'",
+        } + (options.Delimiter is null ? " (detected)" : " (given)"));
+
+        var first = Split(data[0].Text, delim);
+        bool headerFirst, fromComment = false;
+        string[] names;
+        long? headerLine = null;
+        if (options.HasHeader is bool h)
+        {
+            headerFirst = h;
+        }
+        else
+        {
+            // A header names every column: no field of it is a number (a data line with a text id has numbers beside it).
+            headerFirst = first.Any(f => f.Length > 0) && first.All(f => f.Length == 0 || !IsNumber(f));
+        }
+        if (headerFirst)
+        {
+            names = first;
+            headerLine = data[0].No;
+            data.RemoveAt(0);
+            notes.Add($"header: line {headerLine}" + (options.HasHeader is null ? " (detected: no field is a number)" : " (given)"));
+        }
+        else if (options.HasHeader is null && lastComment is not null
+                 && Split(lastComment.Trim(), delim) is { } cnames && cnames.Length == first.Length && cnames.All(f => f.Length > 0 && !IsNumber(f)))
+        {
+            names = cnames;
+            headerLine = lastCommentNo;
+            fromComment = true;
+            notes.Add($"header: comment line {lastCommentNo} (the first data line is all numbers and this comment names one column per field)");
+        }
+        else
+        {
+            names = Enumerable.Range(1, first.Length).Select(i => $"col{i}").ToArray();
+            notes.Add("header: none; columns are named col1, col2, …");
+        }
+
+        var nulls = new HashSet<string>(options.NullTokens) { "" };
+        var columns = new List<CatalogueColumn>();
+        var seen = new UniqueColumnNames();
+        var sampleCells = data.Take(200).Select(d => Split(d.Text, delim)).ToList();
+        for (int i = 0; i < names.Length; i++)
+        {
+            var (name, unit) = SplitUnit(names[i].Trim());
+            if (name.Length == 0) name = $"col{i + 1}";
+            var unique = seen.Take(name);
+            bool numeric = true;
+            foreach (var f in sampleCells)
+            {
+                if (i < f.Length && !nulls.Contains(f[i]) && !IsNumber(f[i])) { numeric = false; break; }
+            }
+            columns.Add(new CatalogueColumn(unique, numeric ? ColumnKind.Real : ColumnKind.Text, unit, null, null, numeric ? "number" : "text"));
+        }
+        return new TextLayout
+        {
+            Delimiter = delim,
+            HeaderInFirstLine = headerFirst,
+            HeaderLine = headerLine,
+            HeaderFromComment = fromComment,
+            Columns = columns,
+            Notes = notes,
+        };
+    }
+
+    private static char DetectDelimiter(string path, string line)
+    {
+        var ext = Path.GetExtension(path).ToLowerInvariant();
+        if (ext is ".tsv" or ".tab") return '\t';
+        char best = ' ';
+        int bestCount = 0;
+        foreach (var c in ",\t;|")
+        {
+            int n = Split(line, c).Length - 1;
+            if (n > bestCount) { best = c; bestCount = n; }
+        }
+        if (bestCount > 0) return best;
+        return ext == ".csv" ? ',' : ' ';
+    }
+
+    /// <summary>Splits one line (double quotes protect delimiters; <c>""</c> is a quote).</summary>
+    public static string[] Split(string line, char delim)
+    {
+        var fields = new List<string>();
+        var sb = new StringBuilder();
+        int i = 0, n = line.Length;
+        if (delim == ' ')
+        {
+            while (true)
+            {
+                while (i < n && (line[i] == ' ' || line[i] == '\t')) i++;
+                if (i >= n) break;
+                sb.Clear();
+                if (line[i] == '"')
+                {
+                    i++;
+                    while (i < n)
+                    {
+                        if (line[i] == '"') { if (i + 1 < n && line[i + 1] == '"') { sb.Append('"'); i += 2; continue; } i++; break; }
+                        sb.Append(line[i++]);
+                    }
+                    while (i < n && line[i] != ' ' && line[i] != '\t') sb.Append(line[i++]);
+                }
+                else
+                {
+                    while (i < n && line[i] != ' ' && line[i] != '\t') sb.Append(line[i++]);
+                }
+                fields.Add(sb.ToString());
+            }
+            return fields.ToArray();
+        }
+        while (true)
+        {
+            sb.Clear();
+            while (i < n && (line[i] == ' ' || line[i] == '\t') && line[i] != delim) i++;
+            if (i < n && line[i] == '"')
+            {
+                i++;
+                while (i < n)
+                {
+                    if (line[i] == '"') { if (i + 1 < n && line[i + 1] == '"') { sb.Append('"'); i += 2; continue; } i++; break; }
+                    sb.Append(line[i++]);
+                }
+                while (i < n && line[i] != delim) sb.Append(line[i++]);
+            }
+            else
+            {
+                while (i < n && line[i] != delim) sb.Append(line[i++]);
+            }
+            fields.Add(sb.ToString().Trim());
+            if (i >= n) break;
+            i++; // delimiter
+        }
+        return fields.ToArray();
+    }
+
+    public static bool IsNumber(string s) => double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out _);
+
+    /// <summary>Splits <c>name [unit]</c> into name and unit.</summary>
+    public static (string Name, string? Unit) SplitUnit(string header)
+    {
+        if (header.EndsWith(']'))
+        {
+            int open = header.LastIndexOf('[');
+            if (open > 0)
+            {
+                var unit = header[(open + 1)..^1].Trim();
+                return (header[..open].Trim(), unit.Length == 0 ? null : unit);
+            }
+        }
+        return (header, null);
+    }
+
+    /// <summary>
+    /// Counts lines that are neither empty nor comments: an upper bound on the data records
+    /// (quoted line breaks make it an overestimate), minus the header line.
+    /// </summary>
+    public long CountRecords(string path)
+    {
+        long count = 0;
+        var buf = new byte[1 << 20];
+        using var fs = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1, FileOptions.SequentialScan);
+        bool atLineStart = true, lineHasContent = false, lineIsComment = false;
+        int read;
+        while ((read = fs.Read(buf, 0, buf.Length)) > 0)
+        {
+            var span = buf.AsSpan(0, read);
+            while (span.Length > 0)
+            {
+                if (atLineStart)
+                {
+                    // Decide the line's kind from its first non-blank byte.
+                    int k = 0;
+                    while (k < span.Length && (span[k] == (byte)' ' || span[k] == (byte)'\t' || span[k] == (byte)'\r')) k++;
+                    if (k == span.Length) { span = default; break; }
+                    atLineStart = false;
+                    lineIsComment = span[k] == (byte)'#';
+                    lineHasContent = span[k] != (byte)'\n';
+                    if (span[k] == (byte)'\n') { atLineStart = true; span = span[(k + 1)..]; continue; }
+                }
+                int nl = span.IndexOf((byte)'\n');
+                if (nl < 0) { span = default; break; }
+                if (lineHasContent && !lineIsComment) count++;
+                atLineStart = true;
+                lineHasContent = false;
+                span = span[(nl + 1)..];
+            }
+        }
+        if (!atLineStart && lineHasContent && !lineIsComment) count++;
+        if (HeaderInFirstLine) count--;
+        return Math.Max(0, count);
+    }
+}

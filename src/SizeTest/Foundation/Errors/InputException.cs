@@ -1,0 +1,46 @@
+namespace SizeTest.Foundation.Errors;
+
+/// <summary>
+/// Bad input from the user: an unreadable file, a malformed value, an unknown option value.
+/// The command line maps it to exit code 2. The message is one sentence that names the
+/// file, the line or row, and the column where one applies, and says what to do.
+/// </summary>
+public sealed class InputException : Exception
+{
+    /// <summary>Creates the error.</summary>
+    /// <param name="message">One clear sentence (without the location prefix).</param>
+    /// <param name="file">File that was being read, if any.</param>
+    /// <param name="line">1-based line (text formats) or row (tables), if known.</param>
+    /// <param name="column">Column name or 1-based index, if known.</param>
+    /// <param name="inner">Underlying exception, kept for <c>--verbose</c>.</param>
+    /// <param name="lineLabel">The word before <paramref name="line"/>: <c>line</c> (default, text formats) or <c>row</c> (binary tables such as Parquet, which have no lines).</param>
+    public InputException(string message, string? file = null, long? line = null, string? column = null, Exception? inner = null, string lineLabel = "line")
+        : base(Compose(message, file, line, column, lineLabel), inner)
+    {
+        File = file;
+        Line = line;
+        Column = column;
+        Reason = message;
+    }
+
+    /// <summary>File being read, if any.</summary>
+    public string? File { get; }
+
+    /// <summary>1-based line or row number, if known.</summary>
+    public long? Line { get; }
+
+    /// <summary>Column name or index, if known.</summary>
+    public string? Column { get; }
+
+    /// <summary>The message without the location prefix.</summary>
+    public string Reason { get; }
+
+    private static string Compose(string message, string? file, long? line, string? column, string lineLabel)
+    {
+        var where = new List<string>();
+        if (file is not null) where.Add(file);
+        if (line is not null) where.Add($"{lineLabel} {line}");
+        if (column is not null) where.Add($"column '{column}'");
+        return where.Count == 0 ? message : $"{string.Join(", ", where)}: {message}";
+    }
+}

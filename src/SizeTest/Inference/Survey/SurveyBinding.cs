@@ -1,0 +1,53 @@
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference.Survey;
+
+/// <summary>
+/// The hypotheses with their survey terms for a loaded sample (group labels, redshift-bin edges and z_err are known
+/// only then), the notes that say what was decided, and a warning to print (large fractional size errors).
+/// One code path for <c>fit</c> and for study files.
+/// </summary>
+/// <param name="Hypotheses">One hypothesis per world model, with the survey terms.</param>
+/// <param name="Notes">What was decided (photo-z marginalisation, groups, luminosities), for the results' notes.</param>
+/// <param name="Warning">A warning for the terminal, or null.</param>
+public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOnlyList<string> Notes, string? Warning)
+{
+    /// <summary>
+    /// Builds the survey model of <paramref name="request"/> for <paramref name="observables"/> and, when it is active
+    /// (or <paramref name="asked"/>), rebuilds every hypothesis with it.
+    /// </summary>
+    /// <param name="request">What was asked.</param>
+    /// <param name="asked">Whether any survey setting was given (then the hypotheses are rebuilt even when the model turns out inactive).</param>
+    /// <param name="observables">The loaded, selected sample.</param>
+    /// <param name="nuisance">The nuisance model without survey terms.</param>
+    /// <param name="plain">The hypotheses without survey terms (returned when nothing is active).</param>
+    /// <param name="rebuild">Builds one hypothesis per world model for a nuisance model with survey terms (the caller
+    /// applies its own parameter settings and checks their names).</param>
+    public static SurveyBinding Bind(SurveyRequest request, bool asked, Observables observables, NuisanceModel nuisance,
+        IReadOnlyList<Hypothesis> plain, Func<NuisanceModel, IReadOnlyList<Hypothesis>> rebuild)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        ArgumentNullException.ThrowIfNull(observables);
+        ArgumentNullException.ThrowIfNull(nuisance);
+        ArgumentNullException.ThrowIfNull(rebuild);
+        var notes = new List<string>();
+        var model = request.Build(observables, nuisance.Observable, notes);
+        var hypotheses = plain;
+        if ((model.IsActive || asked) && observables.Count > 0)
+        {
+            var withSurvey = nuisance with { Survey = model };
+            withSurvey.Validate();
+            hypotheses = rebuild(withSurvey);
+            foreach (var h in hypotheses)
+                foreach (var note in h.Bind(observables).SurveyNotes)
+                    if (!notes.Contains(note)) notes.Add(note);
+        }
+        string? warning = nuisance.Observable != ObservableKind.SurfaceBrightness ? SizeErrorCheck.LargeErrorWarning(observables, model.SizeErrors) : null;
+        if (warning is not null) notes.Add("warning: " + warning);
+        return new SurveyBinding(hypotheses, notes, warning);
+    }
+
+    /// <summary>Whether <paramref name="request"/> asks for anything beyond the basic model (a group column counts).</summary>
+    public static bool IsAsked(SurveyRequest request, string? groupColumn) =>
+        request with { Pivot = null, IgnoreZErr = false } != SurveyRequest.None || groupColumn is not null;
+}

@@ -1,0 +1,123 @@
+using System.Text.Json;
+using SizeTest.Foundation.Errors;
+using SizeTest.Studies;
+using SizeTest.Tests.Cli;
+using Xunit;
+
+namespace SizeTest.Tests.Studies;
+
+/// <summary>
+/// The study file's <c>[survey]</c> table is the same request as fit's survey options: a study and the equivalent
+/// command line give identical results.json numbers (same likelihood, same optimiser path), and the table's keys
+/// are checked like every other (bad values and settings that need another one name their line).
+/// </summary>
+public sealed class StudySurveyTableTests : IDisposable
+{
+    private readonly string _dir = Directory.CreateTempSubdirectory("sizetest-survey-study-").FullName;
+
+    public void Dispose()
+    {
+        try { Directory.Delete(_dir, true); } catch (IOException) { }
+    }
+
+    private string Mock()
+    {
+        // Synthetic: a magnitude-limited Schechter sample with R ∝ L^0.3 and two populations (labels in 'group').
+        var cat = Path.Combine(_dir, "sv.csv");
+        var r = CliRunner.Run("simulate", "--n", "300", "--seed", "8", "--luminosity-function", "schechter:-21:-1.2:-24:-16",
+            "--size-lum-slope", "0.3", "--mag-limit", "24", "--population", "early:0.5:4:-1.3:0.3", "--population", "late:0.5:6:-0.8:0.3", "--out", cat);
+        Assert.True(r.Exit == 0, r.Err);
+        return cat;
+    }
+
+    private static Dictionary<string, double> Numbers(string resultsJson)
+    {
+        using var doc = JsonDocument.Parse(File.ReadAllText(resultsJson));
+        var d = new Dictionary<string, double>(StringComparer.Ordinal);
+        foreach (var m in doc.RootElement.GetProperty("models").EnumerateArray())
+        {
+            string name = m.GetProperty("name").GetString()!;
+            d[$"{name}.log_likelihood"] = m.GetProperty("log_likelihood").GetDouble();
+            foreach (var p in m.GetProperty("parameters").EnumerateObject())
+                if (!p.Value.GetProperty("fixed").GetBoolean())
+                {
+                    d[$"{name}.{p.Name}"] = p.Value.GetProperty("value").GetDouble();
+                    d[$"{name}.{p.Name}.lo"] = p.Value.GetProperty("lo").GetDouble();
+                }
+        }
+        return d;
+    }
+
+    [Fact]
+    public void ASurveyTableGivesTheSameNumbersAsTheCommandLine()
+    {
+        var cat = Mock();
+        var fitOut = Path.Combine(_dir, "fit");
+        var fit = CliRunner.Run("fit", cat, "--models", "lcdm,static-linear", "--observable", "size", "--size-luminosity", "--group", "group",
+            "--pivot-abs-mag", "-20.5", "--starts", "1", "--cv-folds", "0", "--seed", "1", "--out", fitOut);
+        Assert.True(fit.Exit == 0, fit.Err);
+        File.WriteAllText(Path.Combine(_dir, "sv.toml"), """
+            name = "sv"
+            seed = 1
+            [catalogue]
+            path = "sv.csv"
+            synthetic = true
+            [models]
+            names = ["lcdm", "static-linear"]
+            observable = "size"
+            [survey]
+            size_relation = "luminosity"
+            pivot_abs_mag = -20.5
+            group = "group"
+            [inference]
+            starts = 1
+            [report]
+            formats = ["html"]
+            """);
+        var runOut = Path.Combine(_dir, "run");
+        var run = CliRunner.Run("run", Path.Combine(_dir, "sv.toml"), "--out", runOut);
+        Assert.True(run.Exit == 0, run.Err);
+        var a = Numbers(Path.Combine(fitOut, "results.json"));
+        var b = Numbers(Path.Combine(runOut, "results.json"));
+        // Both must carry the per-group survey parameters (names NAME@GROUP) and β.
+        Assert.Contains("lcdm.size_evolution@early", a.Keys);
+        Assert.Contains("lcdm.size_luminosity_slope@late", a.Keys);
+        Assert.Equal(a.Keys.Order(StringComparer.Ordinal), b.Keys.Order(StringComparer.Ordinal));
+        foreach (var (k, v) in a) Assert.True(v == b[k], $"{k}: fit {v:R}, run {b[k]:R}");
+    }
+
+    [Theory]
+    [InlineData("size_relation = \"height\"", "'survey.size_relation' must be")]
+    [InlineData("evolution = \"binned:1\"", "'survey.evolution' must be")]
+    [InlineData("ref_cosmology = [70, 0.3]", "'survey.ref_cosmology' needs size_relation")]
+    [InlineData("size_relation = \"mass\"\nabs_mag_range = [-23, -20]", "cannot be combined with size_relation = \"mass\"")]
+    [InlineData("sise_errors = \"gaussian\"", "did you mean 'size_errors'")]
+    public void BadSurveyKeysNameTheirPlace(string lines, string expected)
+    {
+        string text = $"[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[survey]\n{lines}\n";
+        var e = Assert.Throws<InputException>(() => StudyFileParser.Parse(text, "s.toml", _dir));
+        Assert.Contains(expected, e.Message);
+        Assert.True(e.Line >= 7, $"line {e.Line}");
+    }
+
+    [Fact]
+    public void AGroupParameterForALabelTheSampleDoesNotHaveIsRefusedOnceLoaded()
+    {
+        Mock();
+        File.WriteAllText(Path.Combine(_dir, "bad.toml"), """
+            [catalogue]
+            path = "sv.csv"
+            [models]
+            names = ["lcdm"]
+            observable = "size"
+            [parameters]
+            "size_evolution@middle" = 0
+            [survey]
+            group = "group"
+            """);
+        var (exit, _, err) = CliRunner.Run("run", Path.Combine(_dir, "bad.toml"), "--out", Path.Combine(_dir, "o"));
+        Assert.Equal(2, exit);
+        Assert.Contains("'size_evolution@middle', which no model has for this sample", err);
+        Assert.Contains("size_evolution@early", err);
+    }
+}
