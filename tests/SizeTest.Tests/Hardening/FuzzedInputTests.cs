@@ -39,7 +39,7 @@ public sealed class FuzzedInputTests(ITestOutputHelper output)
     private static string? _seedDir;
 
     /// <summary>Valid small catalogues written by <c>sizetest simulate</c> (40 synthetic objects, seed 5).</summary>
-    private static string SeedFile(string extension)
+    internal static string SeedFile(string extension)
     {
         lock (SeedLock)
         {
@@ -78,27 +78,9 @@ public sealed class FuzzedInputTests(ITestOutputHelper output)
                 var (bytes, damage) = Damage(valid, random, extension == "csv" || extension == "vot");
                 var path = Path.Combine(dir, $"f{k:D3}.{extension}");
                 File.WriteAllBytes(path, bytes);
-                long before = GC.GetAllocatedBytesForCurrentThread();
-                try
-                {
-                    var load = CatalogueLoader.Load(path, new CatalogueLoadOptions());
-                    read++;
-                    if (load.RowsRead != load.Accepted + load.Rejected)
-                        failures.Add($"{extension} #{k} ({damage}): read {load.RowsRead} ≠ accepted {load.Accepted} + rejected {load.Rejected}");
-                }
-                catch (InputException e)
-                {
-                    refused++;
-                    if (e.Message.Contains('\n')) failures.Add($"{extension} #{k} ({damage}): message is not one line: {e.Message}");
-                }
-                catch (Exception e) when (e is not OutOfMemoryException)
-                {
-                    failures.Add($"{extension} #{k} ({damage}): {e.GetType().Name}: {e.Message}");
-                }
-                long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+                bool wasRefused = ReadOrRefuse(path, $"{extension} #{k} ({damage})", failures, out long allocated);
+                if (wasRefused) refused++; else read++;
                 worstAllocation = Math.Max(worstAllocation, allocated);
-                if (allocated > AllocationCeilingBytes)
-                    failures.Add($"{extension} #{k} ({damage}): allocated {allocated / (1 << 20)} MiB");
             }
         }
         finally { Directory.Delete(dir, true); }
@@ -182,6 +164,40 @@ public sealed class FuzzedInputTests(ITestOutputHelper output)
         finally { Directory.Delete(dir, true); }
         output.WriteLine($"{extension}: CLI peak RSS over 6 damaged files {worst >> 20} MiB (ceiling {ProcessRssCeilingBytes >> 20} MiB)");
         Assert.True(failures.Count == 0, string.Join("\n", failures));
+    }
+
+    /// <summary>
+    /// Loads <paramref name="path"/> in-process as the CLI does: true when it is refused with one
+    /// <see cref="InputException"/> (exit 2), false when it is read with every row accounted for. Anything else — another
+    /// exception (the CLI's "internal error"), a multi-line message, rows unaccounted for, allocation above
+    /// <see cref="AllocationCeilingBytes"/> — is added to <paramref name="failures"/> under <paramref name="label"/>.
+    /// </summary>
+    internal static bool ReadOrRefuse(string path, string label, List<string> failures, out long allocated)
+    {
+        bool refused = false;
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        try
+        {
+            var load = CatalogueLoader.Load(path, new CatalogueLoadOptions());
+            if (load.RowsRead != load.Accepted + load.Rejected)
+                failures.Add($"{label}: read {load.RowsRead} ≠ accepted {load.Accepted} + rejected {load.Rejected}");
+        }
+        catch (InputException e)
+        {
+            refused = true;
+            if (e.Message.Contains('\n')) failures.Add($"{label}: message is not one line: {e.Message}");
+        }
+        catch (Exception e) when (e is not OutOfMemoryException)
+        {
+            failures.Add($"{label}: {e.GetType().Name}: {e.Message}");
+        }
+        catch (OutOfMemoryException e)
+        {
+            failures.Add($"{label}: out of memory (a damaged size was trusted): {e.Message}");
+        }
+        allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+        if (allocated > AllocationCeilingBytes) failures.Add($"{label}: allocated {allocated / (1 << 20)} MiB");
+        return refused;
     }
 
     /// <summary>One damaged copy of <paramref name="valid"/> and a short description of the damage.</summary>

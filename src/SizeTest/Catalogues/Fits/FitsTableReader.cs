@@ -117,7 +117,7 @@ internal sealed class FitsTableReader : ICatalogueReader
         long tfields = h.GetInteger("TFIELDS", null, path, i);
         if (tfields is < 0 or > 999) throw new InputException($"HDU {i} has TFIELDS = {tfields}; FITS allows 0 to 999", path);
         var fields = new List<FitsField>();
-        var names = new HashSet<string>(StringComparer.Ordinal);
+        var names = new UniqueColumnNames();
         long offset = 0;
         for (int n = 1; n <= tfields; n++)
         {
@@ -125,8 +125,7 @@ internal sealed class FitsTableReader : ICatalogueReader
             var (repeat, code, width) = FitsField.ParseForm(form, n, path, i);
             var ttype = h[$"TTYPE{n}"];
             var name = string.IsNullOrWhiteSpace(ttype?.Value) ? $"col{n}" : ttype.Value.Trim();
-            var unique = name;
-            for (int k = 2; !names.Add(unique); k++) unique = $"{name}_{k}";
+            var unique = names.Take(name);
             long? tnull = null;
             if (h[$"TNULL{n}"] is { Value: { } tn } && long.TryParse(tn, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var tnv)) tnull = tnv;
             if (offset + width > int.MaxValue) throw new InputException($"HDU {i} rows are too wide", path);

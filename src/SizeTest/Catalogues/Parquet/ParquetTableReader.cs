@@ -62,6 +62,7 @@ public sealed class ParquetTableReader : IDisposable
             stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
             if (stream.Length < 12 || !HasMagic(stream))
                 throw new InputException("is not a Parquet file (no 'PAR1' marker at its start and end); check the file or its format option", path);
+            ParquetFooterCheck.Check(stream, path);
             stream.Position = 0;
             var reader = ParquetReader.CreateAsync(stream, leaveStreamOpen: true).GetAwaiter().GetResult();
             return new ParquetTableReader(path, stream, reader);

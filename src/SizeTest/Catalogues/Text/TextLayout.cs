@@ -97,17 +97,16 @@ internal sealed class TextLayout
 
         var nulls = new HashSet<string>(options.NullTokens) { "" };
         var columns = new List<CatalogueColumn>();
-        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var seen = new UniqueColumnNames();
+        var sampleCells = data.Take(200).Select(d => Split(d.Text, delim)).ToList();
         for (int i = 0; i < names.Length; i++)
         {
             var (name, unit) = SplitUnit(names[i].Trim());
             if (name.Length == 0) name = $"col{i + 1}";
-            var unique = name;
-            for (int k = 2; !seen.Add(unique); k++) unique = $"{name}_{k}";
+            var unique = seen.Take(name);
             bool numeric = true;
-            foreach (var (_, text) in data.Take(200))
+            foreach (var f in sampleCells)
             {
-                var f = Split(text, delim);
                 if (i < f.Length && !nulls.Contains(f[i]) && !IsNumber(f[i])) { numeric = false; break; }
             }
             columns.Add(new CatalogueColumn(unique, numeric ? ColumnKind.Real : ColumnKind.Text, unit, null, null, numeric ? "number" : "text"));

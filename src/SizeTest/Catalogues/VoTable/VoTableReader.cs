@@ -121,6 +121,7 @@ internal sealed class VoTableReader : ICatalogueReader
             string label = $"TABLE {tableIndex}" + ((name ?? id) is { } shown ? $" '{shown}'" : "");
             if (xml.IsEmptyElement) throw new InputException($"{label} is empty (no FIELD, no DATA)", path);
             var fields = new List<VoTableField>();
+            var names = new UniqueColumnNames();
             int depth = xml.Depth;
             while (xml.Read() && xml.Depth > depth)
             {
@@ -128,8 +129,7 @@ internal sealed class VoTableReader : ICatalogueReader
                 if (xml.LocalName == "FIELD" && xml.Depth == depth + 1)
                 {
                     var field = ReadField(xml, path, fields.Count + 1);
-                    var unique = field.Name;
-                    for (int k = 2; fields.Any(f => f.Name == unique); k++) unique = $"{field.Name}_{k}";
+                    var unique = names.Take(field.Name);
                     fields.Add(unique == field.Name ? field : new VoTableField
                     {
                         Name = unique, Datatype = field.Datatype, ArraySize = field.ArraySize, Unit = field.Unit, Ucd = field.Ucd,

@@ -1,0 +1,33 @@
+#!/usr/bin/env bash
+# Injection–recovery of the demo's joint truncated fit (issue 11): K mocks drawn exactly like
+# demo-catalogs/qdf-optical (a = -1.1, b = 1.0, SB limit 24.5, min size 0.08", size-error floor 0.02")
+# with seeds 5000+k, each fitted like demo-study.toml (lcdm, Ωm = 0.3 fixed, joint, both cuts as truncations,
+# size_evolution and sb_evolution free). Prints a, its interval and the pull per mock, then the mean pull.
+# Measured 2026-12-02 (30 mocks): mean a = −1.041 (truth −1.1), mean pull of a +1.71 (rms 1.97), of b −0.37: a is biased
+# by about +0.05 (1.5–1.7σ). Three mocks each with one ingredient at a time: no floor and no cuts −1.104, the SB cut
+# alone −1.099, the min-size cut alone −1.110, the 0.02" floor alone −1.058. The bias comes from the size-error floor:
+# the generator makes σ_ln = √(f² + (floor/θ_true)²) from the TRUE size, so an object's quoted error tells the fit its
+# true size (the error is not ancillary) while the likelihood treats σ_i as independent of θ_true; at fixed z the
+# small (downward-scattered in the population) objects get large σ_i and are down-weighted, pulling ln θ up most at
+# high z, so a comes out less negative. The truncations and the fitter's algebra are not the cause.
+# Usage (repository root, after building): tests/SizeTest.Benchmarks/demo_injection.sh [K] [WORKDIR]
+set -euo pipefail
+K=${1:-30}; W=${2:-/tmp/demo_injection}; S=src/SizeTest.Cli/bin/Release/net10.0/sizetest
+mkdir -p "$W"
+for k in $(seq 1 "$K"); do
+  $S simulate --model lcdm --n 4000 --z-dist survey:0.9:0.05:3.5 --r0-kpc 4.5 --size-evolution -1.1 --scatter-dex 0.2 \
+    --mu0 20.8 --sb-evolution 1.0 --scatter-mag 0.3 --sb-limit 24.5 --min-size 0.08 --size-err-frac 0.05 --size-err-floor 0.02 \
+    --mu-err 0.1 --seed $((5000 + k)) --out "$W/m$k.csv" --force > /dev/null
+  $S fit "$W/m$k.csv" --models lcdm --observable joint --free size_evolution,sb_evolution --sb-limit 24.5 --min-size 0.08 \
+    --starts 2 --cv-folds 0 --out "$W/f$k" --force > /dev/null 2>&1 || true
+  python3 - "$W/f$k/results.json" "$k" <<'PY'
+import json, sys
+r = json.load(open(sys.argv[1]))
+m = r["models"][0]
+ps = m["parameters"]
+a, b = ps["size_evolution"], ps["sb_evolution"]
+sa = (a["hi"] - a["lo"]) / 2; sb = (b["hi"] - b["lo"]) / 2
+print(f'{sys.argv[2]} a {a["value"]:.4f} [{a["lo"]:.4f}, {a["hi"]:.4f}] pull {(a["value"] + 1.1) / sa:+.2f}  b {b["value"]:.4f} pull {(b["value"] - 1.0) / sb:+.2f}')
+PY
+done | tee "$W/summary.txt"
+awk '{pa += $7; pb += $11; n++; sa += $7*$7} END {printf "mean pull a %+.3f (rms %.2f), mean pull b %+.3f over %d mocks\n", pa/n, sqrt(sa/n), pb/n, n}' "$W/summary.txt"
