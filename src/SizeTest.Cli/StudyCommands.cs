@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Files;
 using SizeTest.Studies;
 
 namespace SizeTest.Cli;
@@ -20,16 +21,19 @@ internal static class StudyCommands
         var study = new Argument<string>("STUDY") { Description = "Study file (TOML): catalogue, columns, corrections, models, priors, selection, inference and report settings." };
         var output = new Option<string?>("--out") { Description = "Output folder (default: reports/<study name>/)." };
         var force = new Option<bool>("--force") { Description = "Replace the output folder if it exists." };
+        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse a study whose estimated memory (chains, resamples, starts) is above this size (e.g. 4G); the machine's available memory is always a limit." };
         var cmd = new Command("run", "Run a whole study from a study file: load, correct, fit, compare, and write the report folder.");
         cmd.Arguments.Add(study);
         cmd.Options.Add(output);
         cmd.Options.Add(force);
+        cmd.Options.Add(maxMemory);
         cmd.SetAction(parse =>
         {
             try
             {
                 var def = StudyFileParser.Load(parse.GetValue(study)!);
-                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), parse.GetValue(force), "run");
+                long? limit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
+                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), parse.GetValue(force), "run", limit);
             }
             catch (Exception ex)
             {
@@ -71,12 +75,13 @@ internal static class StudyCommands
         return null;
     }
 
-    private static int Execute(CliContext context, StudyDefinition def, string outDir, bool force, string verb)
+    private static int Execute(CliContext context, StudyDefinition def, string outDir, bool force, string verb, long? maxMemoryBytes = null)
     {
         var outcome = StudyRunner.Run(def, new StudyRunOptions
         {
             OutputDirectory = outDir,
             Force = force,
+            MaxMemoryBytes = maxMemoryBytes,
             Version = BuildInfo.Version,
             GitCommit = BuildInfo.Commit,
             Command = "sizetest " + string.Join(' ', Environment.GetCommandLineArgs().Skip(1).Select(a => a.Contains(' ', StringComparison.Ordinal) ? $"\"{a}\"" : a)),

@@ -9,6 +9,8 @@ public sealed record StudyRunOptions
     public required string OutputDirectory { get; init; }
     /// <summary>Replace an existing non-empty output folder.</summary>
     public bool Force { get; init; }
+    /// <summary>The user's memory limit in bytes (<c>run --max-memory</c>), or null: the machine's available memory is always a limit.</summary>
+    public long? MaxMemoryBytes { get; init; }
     /// <summary>Working directory that manifest paths are relative to (default: the current directory).</summary>
     public string? WorkingDirectory { get; init; }
     /// <summary>SizeTest version for the manifest.</summary>

@@ -36,7 +36,7 @@ public static class StudyRunner
 
         // Refuse settings whose memory the machine does not have, before anything is allocated.
         FitMemoryBudget.Check(StudyHypotheses.Build(study), study.Sampler, study.SamplerWalkers,
-            study.SamplerSteps > 0 ? study.SamplerSteps : study.SamplerMaxSteps, 0, study.Bootstrap, study.Starts, null);
+            study.SamplerSteps > 0 ? study.SamplerSteps : study.SamplerMaxSteps, 0, study.Bootstrap, study.Starts, options.MaxMemoryBytes);
 
         // Refuse an existing output before any work.
         var knownInputs = new List<string> { study.CataloguePath };

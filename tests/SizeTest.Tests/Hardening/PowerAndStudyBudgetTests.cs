@@ -61,4 +61,17 @@ public sealed class PowerAndStudyBudgetTests : IDisposable
         Assert.False(Directory.Exists(outDir));
         Assert.True(peak < 400L << 20, $"peak RSS {peak >> 20} MB");
     }
+
+    [Fact]
+    public void RunMaxMemoryIsALimit()
+    {
+        // The demo study's own estimate: 2 starts × 24 × 8 B × (k + 1 = 7) × 4 models ≈ 10.5 KB (FitMemoryBudget) — above a 1 KB limit.
+        var demo = Path.Combine(StudyFileParserTests.RepoRoot(), "demo-catalogs", "demo-study.toml");
+        var outDir = Path.Combine(_dir, "out");
+        var (exit, _, err) = CliRunner.Run(["run", demo, "--out", outDir, "--max-memory", "1K"]);
+        Assert.Equal(2, exit);
+        Assert.Contains("the optimiser starts (2 starts)", err);
+        Assert.Contains("more than --max-memory 1 KB", err);
+        Assert.False(Directory.Exists(outDir));
+    }
 }
