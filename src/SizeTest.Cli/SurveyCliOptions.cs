@@ -76,13 +76,9 @@ internal sealed class SurveyCliOptions
     }
 
     /// <summary>Parses <c>--evolution power|binned:K</c>: null for the power law, else K.</summary>
-    public static int? EvolutionBins(string text)
-    {
-        if (text == "power") return null;
-        if (text.StartsWith("binned:", StringComparison.Ordinal) && int.TryParse(text["binned:".Length..], NumberStyles.None, CultureInfo.InvariantCulture, out int k) && k is >= 2 and <= 50)
-            return k;
-        throw new InputException($"--evolution must be power or binned:K with 2 ≤ K ≤ 50 (e.g. binned:5); got '{text}'");
-    }
+    public static int? EvolutionBins(string text) =>
+        SurveyRequest.TryParseEvolution(text, out var bins) ? bins
+            : throw new InputException($"--evolution must be power or binned:K with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins} (e.g. binned:5); got '{text}'");
 
     /// <summary>Parses <c>LO:HI</c> (either end may be negative).</summary>
     public static (double? Lo, double? Hi) Range(string text, string option, string example)

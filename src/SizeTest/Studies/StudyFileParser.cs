@@ -298,16 +298,8 @@ public static class StudyFileParser
         string? group = sv.String("group");
         if (group is { Length: 0 }) throw sv.Get("group")!.Error("'survey.group' names the column of population labels; it is empty");
         int? bins = null;
-        if (sv.Get("evolution") is { } evNode)
-        {
-            string ev = evNode.Scalar as string ?? throw evNode.Error("'survey.evolution' must be \"power\" or \"binned:K\"");
-            if (ev != "power")
-            {
-                if (!(ev.StartsWith("binned:", StringComparison.Ordinal) && int.TryParse(ev["binned:".Length..], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int k) && k is >= 2 and <= 50))
-                    throw evNode.Error($"'survey.evolution' must be \"power\" or \"binned:K\" with 2 ≤ K ≤ 50; got '{ev}'");
-                bins = k;
-            }
-        }
+        if (sv.Get("evolution") is { } evNode && !SurveyRequest.TryParseEvolution(evNode.Scalar as string ?? "", out bins))
+            throw evNode.Error($"'survey.evolution' must be \"power\" or \"binned:K\" with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins}; got '{evNode.Scalar}'");
         var errNode = sv.Get("size_errors");
         var errors = errNode?.Scalar switch
         {

@@ -29,6 +29,29 @@ public sealed record SurveyRequest(
     double? RedshiftPriorMin = null,
     double? RedshiftPriorMax = null)
 {
+    /// <summary>Most redshift bins of binned evolution.</summary>
+    public const int MaxEvolutionBins = 50;
+
+    /// <summary>
+    /// Reads an evolution form, <c>power</c> or <c>binned:K</c> with 2 ≤ K ≤ <see cref="MaxEvolutionBins"/>, as written in
+    /// <c>fit --evolution</c> and the study file's <c>survey.evolution</c>: false when the text is neither.
+    /// </summary>
+    /// <param name="text">The form as written.</param>
+    /// <param name="bins">K, or null for the power law.</param>
+    public static bool TryParseEvolution(string text, out int? bins)
+    {
+        bins = null;
+        if (text == "power") return true;
+        if (text is not null && text.StartsWith("binned:", StringComparison.Ordinal)
+            && int.TryParse(text["binned:".Length..], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int k)
+            && k >= 2 && k <= MaxEvolutionBins)
+        {
+            bins = k;
+            return true;
+        }
+        return false;
+    }
+
     /// <summary>Nothing asked.</summary>
     public static SurveyRequest None { get; } = new();
 
