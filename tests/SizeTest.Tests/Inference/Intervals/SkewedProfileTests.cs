@@ -1,4 +1,3 @@
-using System.Globalization;
 using System.Text.Json;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
@@ -23,18 +22,7 @@ public sealed class SkewedProfileTests
 {
     private static readonly string Dir = Path.Combine(AppContext.BaseDirectory, "Reference", "Inference");
 
-    private static Observables LoadMock()
-    {
-        var z = new List<double>(); var y = new List<double>(); var e = new List<double>();
-        foreach (var line in File.ReadLines(Path.Combine(Dir, "skewed_profile_mock.csv")).Skip(2))
-        {
-            var c = line.Split(',');
-            z.Add(double.Parse(c[0], CultureInfo.InvariantCulture));
-            y.Add(double.Parse(c[1], CultureInfo.InvariantCulture));
-            e.Add(double.Parse(c[2], CultureInfo.InvariantCulture));
-        }
-        return new Observables(z.ToArray(), y.ToArray(), e.ToArray(), null, null);
-    }
+    private static Observables LoadMock() => MultimodalProfileTests.LoadMock("skewed_profile_mock.csv");
 
     private static JsonElement Reference() => JsonDocument.Parse(File.ReadAllText(Path.Combine(Dir, "skewed_profile.json"))).RootElement;
 
