@@ -145,7 +145,8 @@ internal static class FitRunner
             };
             var result = FitRun.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
-            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c), .. result.Notes] };
+            result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c),
+                .. share.UnitWarnings.Select(w => "catalogue: warning: " + w), .. result.Notes] };
 
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();

@@ -73,7 +73,7 @@ public sealed class CatalogueLoad
     /// <summary>Rows rejected (each is in <see cref="RejectLog"/>).</summary>
     public int Rejected => RejectLog.Count;
 
-    /// <summary>Null cells per mapped role among all rows read.</summary>
+    /// <summary>Null cells per mapped role among the accepted rows.</summary>
     public IReadOnlyDictionary<ColumnRole, long> NullCounts { get; }
 
     /// <summary>Per-role statistics over the accepted rows (angles in arcsec).</summary>

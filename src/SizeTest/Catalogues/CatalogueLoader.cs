@@ -79,8 +79,6 @@ public static class CatalogueLoader
             {
                 rowsRead++;
                 long pos = chunk.Positions[r];
-                for (int k = 0; k < bindings.Length; k++)
-                    if (chunk.Columns[k].States[r] == CellState.Null) nullCounts[k]++;
                 var reject = Check(chunk, r, bindings, mapping, values, thetaSlot, zSlot, options);
                 if (reject is null)
                 {
@@ -94,6 +92,10 @@ public static class CatalogueLoader
                     }
                 }
                 if (reject is not null) { rejects.Add(reject with { Row = pos }); continue; }
+                // Null cells are counted among the accepted rows only: a rejected row's null is in the reject log
+                // (issue 14 point 9: inspect counted the null z of a rejected row in the accepted rows' statistics).
+                for (int k = 0; k < bindings.Length; k++)
+                    if (chunk.Columns[k].States[r] == CellState.Null) nullCounts[k]++;
                 rows.Add(pos);
                 for (int k = 0; k < bindings.Length; k++)
                 {
@@ -134,7 +136,13 @@ public static class CatalogueLoader
             band: Txt(ColumnRole.Band), sizeDefinition: mapping.SizeDefinition, extraColumns: extra,
             survey: new SurveyColumns(Num(ColumnRole.AbsMag), Num(ColumnRole.LogMass), Num(ColumnRole.FluxDensity),
                 Num(ColumnRole.SersicN), Txt(ColumnRole.Group), Num(ColumnRole.Weight)));
-        return new CatalogueLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns, reader.Notes, rowsRead, nulls);
+        // Warnings of the reader (repeated column names) and of the data (sizes implausible in the stated unit) travel with
+        // the mapping's, so fit, run and inspect show them on stderr and in the results' notes.
+        var readerWarnings = reader.Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray();
+        var dataWarnings = AngularSizePlausibility.Check(sample.ThetaRad, mapping);
+        if (readerWarnings.Length + dataWarnings.Count > 0) mapping = mapping.WithNotes([.. readerWarnings, .. dataWarnings]);
+        return new CatalogueLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns,
+            reader.Notes.Where(n => !n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray(), rowsRead, nulls);
     }
 
     private static string Fmt(double v) => v.ToString("R", CultureInfo.InvariantCulture);

@@ -33,6 +33,9 @@ public sealed class ResolvedMapping
     public IReadOnlyList<string> Warnings =>
         Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal)).Select(n => n["warning: ".Length..]).ToArray();
 
+    /// <summary>The same mapping with <paramref name="more"/> added to <see cref="Notes"/> (warnings found by the reader or in the data).</summary>
+    internal ResolvedMapping WithNotes(IEnumerable<string> more) => new(Roles, Kept, SizeDefinition, SizeDefinitionReason, [.. Notes, .. more]);
+
     /// <summary>The detection report as text lines: one <c>role ← column (because …)</c> line per role, the size definition, kept columns and notes.</summary>
     public IReadOnlyList<string> ReportLines()
     {

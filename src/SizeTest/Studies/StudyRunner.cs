@@ -54,6 +54,7 @@ public static class StudyRunner
             var load = CatalogueLoader.Load(study.CataloguePath, new CatalogueLoadOptions { Reader = study.Reader, Mapping = study.Mapping });
             inputs.Add(study.CataloguePath);
             options.Log?.Invoke($"{load.RowsRead} rows read, {load.Accepted} accepted, {load.Rejected} rejected");
+            foreach (var w in load.Mapping.Warnings) options.Log?.Invoke("warning: " + w);
             Stage("load");
 
             string ReadTable(string path)

@@ -79,8 +79,8 @@ internal sealed class FitsTableReader : ICatalogueReader
         {
             var hdus = FitsFile.Scan(stream, path);
             var chosen = Choose(hdus, hduSelector, path);
-            var fields = ParseFields(chosen, path);
             var notes = new List<string> { "HDUs: " + string.Join("; ", hdus.Select(h => h.Describe() + (h.Type == "BINTABLE" ? $" ({h.Header.GetInteger("NAXIS2", 0, path, h.Index)} rows)" : ""))) };
+            var fields = ParseFields(chosen, path, notes);
             return new FitsTableReader(stream, path, chosen, fields, notes);
         }
         catch
@@ -107,7 +107,7 @@ internal sealed class FitsTableReader : ICatalogueReader
         return hit;
     }
 
-    private static List<FitsField> ParseFields(FitsHdu hdu, string path)
+    private static List<FitsField> ParseFields(FitsHdu hdu, string path, List<string> notes)
     {
         var h = hdu.Header;
         int i = hdu.Index;
@@ -125,7 +125,7 @@ internal sealed class FitsTableReader : ICatalogueReader
             var (repeat, code, width) = FitsField.ParseForm(form, n, path, i);
             var ttype = h[$"TTYPE{n}"];
             var name = string.IsNullOrWhiteSpace(ttype?.Value) ? $"col{n}" : ttype.Value.Trim();
-            var unique = names.Take(name);
+            var unique = names.Take(name, n);
             long? tnull = null;
             if (h[$"TNULL{n}"] is { Value: { } tn } && long.TryParse(tn, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var tnv)) tnull = tnv;
             if (offset + width > int.MaxValue) throw new InputException($"HDU {i} rows are too wide", path);
@@ -147,6 +147,7 @@ internal sealed class FitsTableReader : ICatalogueReader
             });
             offset += width;
         }
+        if (names.Warning() is { } renamed) notes.Add(renamed);
         if (offset != rowBytes)
             throw new InputException($"HDU {i}: the TFORMn widths add up to {offset} bytes per row but NAXIS1 = {rowBytes}", path);
         long rows = h.GetInteger("NAXIS2", null, path, i);

@@ -108,7 +108,7 @@ internal sealed class TextLayout
         {
             var (name, unit) = SplitUnit(names[i].Trim());
             if (name.Length == 0) name = $"col{i + 1}";
-            var unique = seen.Take(name);
+            var unique = seen.Take(name, i + 1);
             bool numeric = true;
             foreach (var f in sampleCells)
             {
@@ -116,6 +116,7 @@ internal sealed class TextLayout
             }
             columns.Add(new CatalogueColumn(unique, numeric ? ColumnKind.Real : ColumnKind.Text, unit, null, null, numeric ? "number" : "text"));
         }
+        if (seen.Warning() is { } renamed) notes.Add(renamed);
         return new TextLayout
         {
             Delimiter = delim,

@@ -44,7 +44,7 @@ internal sealed class VoTableReader : ICatalogueReader
         _fields = fields;
         _serialisation = serialisation;
         TableName = tableName;
-        Notes = [$"serialisation: {serialisation}"];
+        _notes = [$"serialisation: {serialisation}"];
         _columns = fields.Select(f => new CatalogueColumn(f.Name, f.Kind, f.Unit, f.Ucd, f.Description,
             f.Datatype + (string.IsNullOrEmpty(f.ArraySize) ? "" : $"[{f.ArraySize}]"))).ToList();
         _nullInts = fields.Select(f => f.IsInteger && long.TryParse(f.NullText, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var v) ? v : (long?)null).ToArray();
@@ -55,7 +55,8 @@ internal sealed class VoTableReader : ICatalogueReader
     public CatalogueFormat Format => CatalogueFormat.VoTable;
     public string SourceName => _path;
     public string? TableName { get; }
-    public IReadOnlyList<string> Notes { get; }
+    public IReadOnlyList<string> Notes => _notes;
+    private readonly List<string> _notes;
     public IReadOnlyList<CatalogueColumn> Columns => _columns;
     public long? RowCountHint => null;
 
@@ -87,8 +88,13 @@ internal sealed class VoTableReader : ICatalogueReader
         try
         {
             xml = XmlReader.Create(file, Settings);
-            var reader = OpenTable(file, xml, path, selector, options.MaxColumns);
-            if (reader is VoTableReader v) v._maxCellChars = Math.Max(1, options.MaxCellChars);
+            var warnings = new List<string>();
+            var reader = OpenTable(file, xml, path, selector, options.MaxColumns, warnings);
+            if (reader is VoTableReader v)
+            {
+                v._maxCellChars = Math.Max(1, options.MaxCellChars);
+                v._notes.AddRange(warnings);
+            }
             return reader;
         }
         catch (XmlException ex)
@@ -105,7 +111,7 @@ internal sealed class VoTableReader : ICatalogueReader
         }
     }
 
-    private static ICatalogueReader OpenTable(Stream file, XmlReader xml, string path, string? selector, int maxColumns)
+    private static ICatalogueReader OpenTable(Stream file, XmlReader xml, string path, string? selector, int maxColumns, List<string> warnings)
     {
         if (!xml.Read() || xml.MoveToContent() != XmlNodeType.Element || xml.LocalName != "VOTABLE")
             throw new InputException("not a VOTable: the root element is not VOTABLE", path);
@@ -141,7 +147,7 @@ internal sealed class VoTableReader : ICatalogueReader
                     if (fields.Count >= maxColumns)
                         throw new InputException($"{label} has more than {maxColumns} FIELDs; a catalogue has at most {maxColumns} columns", path, (xml as IXmlLineInfo)?.LineNumber);
                     var field = ReadField(xml, path, fields.Count + 1);
-                    var unique = names.Take(field.Name);
+                    var unique = names.Take(field.Name, fields.Count + 1);
                     fields.Add(unique == field.Name ? field : new VoTableField
                     {
                         Name = unique, Datatype = field.Datatype, ArraySize = field.ArraySize, Unit = field.Unit, Ucd = field.Ucd,
@@ -151,6 +157,7 @@ internal sealed class VoTableReader : ICatalogueReader
                 }
                 if (xml.LocalName == "DATA" && xml.Depth == depth + 1)
                 {
+                    if (names.Warning() is { } renamed) warnings.Add(renamed);
                     if (xml.IsEmptyElement) return Empty(file, xml, path, label, fields);
                     while (xml.Read() && xml.NodeType != XmlNodeType.Element && xml.NodeType != XmlNodeType.EndElement) { }
                     if (xml.NodeType != XmlNodeType.Element) return Empty(file, xml, path, label, fields);
@@ -180,6 +187,7 @@ internal sealed class VoTableReader : ICatalogueReader
                     }
                 }
             }
+            if (names.Warning() is { } unnamed) warnings.Add(unnamed);
             return Empty(file, xml, path, label, fields);
         }
         throw new InputException(selector is null ? "the VOTable has no TABLE" : $"the VOTable has no TABLE '{selector}' (it has {tableIndex} table(s); give a 1-based index or a name)", path);
