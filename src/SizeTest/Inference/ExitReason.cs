@@ -29,6 +29,7 @@ public enum ExitCause
 /// </summary>
 /// <param name="Cause">The cause that decided the outcome.</param>
 /// <param name="Clauses">The explanation, in the order the checks ran.</param>
+[System.Text.Json.Serialization.JsonConverter(typeof(ExitReasonJsonConverter))]
 public sealed record ExitReason(ExitCause Cause, IReadOnlyList<string> Clauses)
 {
     /// <summary>No reason recorded (a summary built by hand).</summary>

@@ -3,6 +3,7 @@ using SizeTest.Foundation.Text;
 namespace SizeTest.Inference;
 
 /// <summary>Which observable a hypothesis is fitted to.</summary>
+[System.Text.Json.Serialization.JsonConverter(typeof(ObservableKinds.JsonConverter))]
 public enum ObservableKind
 {
     /// <summary>Angular size: ln θ against redshift.</summary>
@@ -33,4 +34,7 @@ public static class ObservableKinds
 
     /// <summary>The value spelt <paramref name="name"/>; an <see cref="ArgumentException"/> naming the choices otherwise.</summary>
     public static ObservableKind Parse(string name) => Spellings.Parse(name);
+
+    /// <summary>Writes and reads the spelling in JSON files.</summary>
+    public sealed class JsonConverter() : SpelledEnumJsonConverter<ObservableKind>(Spellings);
 }

@@ -24,9 +24,10 @@ public static class ResultsJson
         };
         o.Converters.Add(new FiniteDoubleConverter());
         o.Converters.Add(new ParameterListConverter());
-        o.Converters.Add(new ExitReasonConverter());
-        o.Converters.Add(new SpelledEnumJsonConverter<ObservableKind>(ObservableKinds.Spellings));
-        o.Converters.Add(new SpelledEnumJsonConverter<SamplerKind>(SamplerKinds.Spellings));
+        // ObservableKind, SamplerKind and ExitReason name their own converters (one spelling in every JSON file);
+        // these go first so that the generic enum converter below does not take them.
+        o.Converters.Add(new ObservableKinds.JsonConverter());
+        o.Converters.Add(new SamplerKinds.JsonConverter());
         o.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower));
         o.MakeReadOnly(populateMissingResolver: true);
         return o;
@@ -49,14 +50,6 @@ public static class ResultsJson
             if (double.IsFinite(value)) writer.WriteNumberValue(value);
             else writer.WriteNullValue();
         }
-    }
-
-    /// <summary>An exit reason is written as its sentence and read back with <see cref="ExitCause.Recorded"/>.</summary>
-    private sealed class ExitReasonConverter : JsonConverter<ExitReason>
-    {
-        public override ExitReason Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options) =>
-            ExitReason.FromText(reader.GetString() ?? "");
-        public override void Write(Utf8JsonWriter writer, ExitReason value, JsonSerializerOptions options) => writer.WriteStringValue(value.Text);
     }
 
     private sealed class ParameterListConverter : JsonConverter<IReadOnlyList<ParameterEstimate>>

@@ -3,6 +3,7 @@ using SizeTest.Foundation.Text;
 namespace SizeTest.Inference;
 
 /// <summary>The posterior sampler run after the maximum-likelihood fit.</summary>
+[System.Text.Json.Serialization.JsonConverter(typeof(SamplerKinds.JsonConverter))]
 public enum SamplerKind
 {
     /// <summary>No posterior sampling (intervals from the Hessian, bootstrap or profile only).</summary>
@@ -35,4 +36,7 @@ public static class SamplerKinds
 
     /// <summary>The value spelt <paramref name="name"/>; an <see cref="ArgumentException"/> naming the choices otherwise.</summary>
     public static SamplerKind Parse(string name) => Spellings.Parse(name);
+
+    /// <summary>Writes and reads the spelling in JSON files.</summary>
+    public sealed class JsonConverter() : SpelledEnumJsonConverter<SamplerKind>(Spellings);
 }

@@ -7,11 +7,12 @@ namespace SizeTest.Inference;
 /// <summary>
 /// Writes an enum of the fit vocabulary (<see cref="ObservableKind"/>, <see cref="SamplerKind"/>) as its one spelling
 /// (the same word as on the command line and in study files) and reads it back; an unknown word is a
-/// <see cref="JsonException"/>. Registered in <see cref="ResultsJson.Options"/> ahead of the generic enum converter.
+/// <see cref="JsonException"/>. Each enum names its converter in a <see cref="JsonConverterAttribute"/>, so results.json,
+/// power.json and report-data.json all write the same word.
 /// </summary>
 /// <typeparam name="T">The enum.</typeparam>
 /// <param name="spellings">The one spelling of each value.</param>
-public sealed class SpelledEnumJsonConverter<T>(Spellings<T> spellings) : JsonConverter<T>
+public abstract class SpelledEnumJsonConverter<T>(Spellings<T> spellings) : JsonConverter<T>
     where T : struct, Enum
 {
     /// <inheritdoc/>
