@@ -37,6 +37,11 @@ TARGETS: dict[tuple[str, str], str] = {
     ("SimulationBenchmarks", "*"): "10^6 galaxies ≤ 1 s",
     ("SimulationPowerBenchmarks", "*"): "200 mocks × 2000 galaxies × 4 models ≤ 60 s",
     ("PhotometryBenchmarks", "*"): "—",
+    # fit_timing.sh (whole process, /usr/bin/time -v); issue 11.
+    ("WholeProcessFitTiming", "Fit200kNoCv"): "≥ 40× faster than the Python baseline of the same run",
+    ("WholeProcessFitTiming", "PythonBaseline200k"): "the reference (astropy + scipy)",
+    ("WholeProcessFitTiming", "Fit1mNoCv"): "≤ 3 s, ≤ 300 MB peak",
+    ("WholeProcessFitTiming", "Fit1mCv5"): "≤ 6 s",
 }
 
 # Columns of BenchmarkDotNet's table that describe the job rather than the benchmark.

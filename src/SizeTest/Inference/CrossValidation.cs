@@ -38,7 +38,7 @@ public static class CrossValidation
     public static CrossValidationResult Run(Hypothesis hypothesis, Observables observables, int folds, int seed, double[]? start = null) =>
         Run(hypothesis, observables, AssignFolds(observables?.Count ?? 0, folds, seed), folds, start);
 
-    /// <summary>From this many objects the folds of one process run one after another (memory: one fold's training copy at a time).</summary>
+    /// <summary>From this many objects the folds of one process run one after another (memory: at most one fold's training copy at a time).</summary>
     public const int SequentialFoldsFrom = 100_000;
 
     /// <summary>Runs k-fold cross-validation of <paramref name="hypothesis"/> on a given fold assignment, in this process.</summary>
@@ -53,7 +53,16 @@ public static class CrossValidation
     /// one process, in order under MPI). <paramref name="foldOf"/> gives the fold of every object of the whole sample, by
     /// its position; each process reads its own rows' folds, so the folds do not depend on the number of ranks.
     /// </summary>
-    public static CrossValidationResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, int[] foldOf, int folds, double[]? start = null)
+    /// <param name="backend">Where the rows are.</param>
+    /// <param name="hypothesis">The hypothesis.</param>
+    /// <param name="foldOf">The fold of every object of the whole sample.</param>
+    /// <param name="folds">k.</param>
+    /// <param name="start">Start of each training fit (default: the backend's data-driven start).</param>
+    /// <param name="whole">The hypothesis already bound to the whole sample (<see cref="Evaluation.EvaluationBackend.Bind"/>
+    /// without weights), if the caller has it: the folds are then masks over its rows (<see cref="Evaluation.RowSumLikelihood.Reweighted"/>).
+    /// Null: it is bound here once.</param>
+    public static CrossValidationResult Run(Evaluation.EvaluationBackend backend, Hypothesis hypothesis, int[] foldOf, int folds, double[]? start = null,
+        Evaluation.RowSumLikelihood? whole = null)
     {
         ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(hypothesis);
@@ -64,8 +73,11 @@ public static class CrossValidation
         start ??= backend.SuggestStart(hypothesis);
         var sums = new double[folds];
         var failed = new bool[folds];
-        // Folds run concurrently in one process, except for large samples: each fold binds its own copy of the training rows,
-        // so there they run one after another (each evaluation is still split over threads by chunks), which bounds memory.
+        if (whole is not null && !ReferenceEquals(whole.Hypothesis, hypothesis)) throw new ArgumentException("the bound likelihood is of another hypothesis", nameof(whole));
+        whole ??= backend.Bind(hypothesis);
+        // Folds run concurrently in one process, except for large samples, where they run one after another (each
+        // evaluation is still split over threads by chunks): a fold whose kernel cannot mask rows binds its own copy of
+        // the training rows, and one at a time bounds memory.
         void Each(Action<int> body)
         {
             if (backend.Concurrent && n >= SequentialFoldsFrom) for (int f = 0; f < folds; f++) body(f);
@@ -75,10 +87,10 @@ public static class CrossValidation
         {
             var train = Array.ConvertAll(local, k => k != f ? 1 : 0);
             var test = Array.ConvertAll(local, k => k == f ? 1 : 0);
-            var lik = backend.Bind(hypothesis, train);
+            var lik = whole.Reweighted(train);
             var fit = MaximumLikelihood.Fit(lik, lik.Posterior, hypothesis.FreeParameters, start, new OptimizerSettings(Starts: 1), covariance: false);
             failed[f] = !fit.Converged;
-            sums[f] = backend.Bind(hypothesis, test).LogDensity(fit.Theta);
+            sums[f] = whole.Reweighted(test).LogDensity(fit.Theta);
         });
         double total = sums.Sum(), mean = total / folds;
         double sd = Math.Sqrt(sums.Sum(s => (s - mean) * (s - mean)) / (folds - 1));

@@ -97,7 +97,7 @@ public static class FitRun
             }
             if (foldOf is not null && h.K > 0)
             {
-                cvs.Add(CrossValidation.Run(backend, h, foldOf, cvFolds, fit.Theta));
+                cvs.Add(CrossValidation.Run(backend, h, foldOf, cvFolds, fit.Theta, lik));
                 request.Timings?.Mark($"cross-validation {h.Label}");
             }
             if (request.ProfileParameter is { } pp && h.FreeParameters.Any(p => p.Name == pp))

@@ -124,14 +124,61 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts);
         bool size = hypothesis.Nuisance.Observable == ObservableKind.Size;
         _distances = new DistanceTerms(hypothesis, _layout, parent._distances, parent._cols.LnZ, perObject: !(size && SizeKernel.UsesGrams(_cols, cut)));
+        _mask = parent._mask;
+        _selected = parent._selected;
+        if (_mask is not null && !(size && SizeKernel.SupportsMask(_cols, _distances, cut)))
+            throw new InvalidOperationException("the held-fixed likelihood of a row-masked likelihood cannot take the mask");
         _kernel = hypothesis.Nuisance.Observable switch
         {
-            ObservableKind.Size => new SizeKernel(_cols, _distances, cut, (parent._kernel as SizeKernel)?.Grams),
+            ObservableKind.Size => new SizeKernel(_cols, _distances, cut, (parent._kernel as SizeKernel)?.Grams, _mask),
             ObservableKind.SurfaceBrightness => new SurfaceBrightnessKernel(_cols, cut),
             _ => new JointKernel(_cols, _distances, cut, _isophotal),
         };
         AllowParallel = parent.AllowParallel;
         _posterior = new PriorTimesLikelihood(this, _free.Select(f => f.Prior).ToArray());
+    }
+
+    // A row-masked view of a parent's rows (cross-validation folds): shares every bound array; only the kernel differs.
+    private HypothesisLikelihood(HypothesisLikelihood parent, byte[] mask, int selected, SizeKernel kernel)
+    {
+        _h = parent._h;
+        _n = parent._n;
+        _cols = parent._cols;
+        _isophotal = parent._isophotal;
+        _free = parent._free;
+        _layout = parent._layout;
+        _lnPivot = parent._lnPivot;
+        _distances = parent._distances;
+        _mask = mask;
+        _selected = selected;
+        _kernel = kernel;
+        AllowParallel = parent.AllowParallel;
+        _posterior = new PriorTimesLikelihood(this, _free.Select(f => f.Prior).ToArray());
+    }
+
+    private readonly byte[]? _mask;
+    private readonly int _selected = -1;
+
+    /// <summary>Whether this likelihood counts only a row mask's rows of its parent (<see cref="Masked"/>).</summary>
+    internal bool IsMasked => _mask is not null;
+
+    /// <summary>
+    /// The likelihood of the rows with <paramref name="mask"/>[i] ≠ 0 only, over this likelihood's bound rows, grid and
+    /// per-object arrays (no copy of the rows and no second bind) — the same value and gradient, summed in the same
+    /// order, as binding a copy of those rows; slices keep this likelihood's row numbering. Null where the kernel cannot
+    /// mask rows (<see cref="SizeKernel.SupportsMask"/>: angular sizes with equal ln θ variances, no cut, no survey terms),
+    /// or when this likelihood is itself masked: then bind a copy of the rows.
+    /// </summary>
+    public HypothesisLikelihood? Masked(byte[] mask)
+    {
+        ArgumentNullException.ThrowIfNull(mask);
+        if (mask.Length != _n) throw new ArgumentException($"a mask of {mask.Length} rows for {_n} objects", nameof(mask));
+        var cut = SelectionTruncation.For(_h.Nuisance.Cuts);
+        if (_mask is not null || _survey is not null || _h.Nuisance.Observable != ObservableKind.Size || !SizeKernel.SupportsMask(_cols, _distances, cut))
+            return null;
+        int selected = 0;
+        foreach (var b in mask) if (b != 0) selected++;
+        return new HypothesisLikelihood(this, mask, selected, new SizeKernel(_cols, _distances, cut, null, mask));
     }
 
     /// <summary>
@@ -200,8 +247,8 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     /// <summary>The hypothesis.</summary>
     public Hypothesis Hypothesis => _h;
 
-    /// <summary>Number of objects n.</summary>
-    public int Count => _n;
+    /// <summary>Number of objects n (with a row mask, the rows included).</summary>
+    public int Count => _mask is null ? _n : _selected;
 
     /// <inheritdoc/>
     public int Dimension => _free.Length;

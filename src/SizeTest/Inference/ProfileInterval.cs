@@ -25,8 +25,10 @@ public static class ProfileInterval
     /// <summary>Drop of the profile from its maximum at the 68% interval ends (χ²₁ 68.27% point / 2 = ½).</summary>
     public const double Level = 0.5;
 
-    /// <summary>Most refits per crossing (regula falsi steps, each inside the current bracket).</summary>
-    public const int BisectionSteps = 5;
+    /// <summary>Most refits per crossing (safeguarded regula falsi steps, each inside the current bracket). A quadratic
+    /// profile needs one or two; a step that fails to halve the bracket is followed by a midpoint step, so the bracket
+    /// shrinks at least 2× every second step and 24 steps reach 2⁻¹² of it even for a badly skewed profile.</summary>
+    public const int BisectionSteps = 24;
 
     /// <summary>Computes the interval.</summary>
     /// <param name="refit">The inner maximisation.</param>
@@ -107,9 +109,11 @@ public static class ProfileInterval
         double G(ProfileSample p) => double.IsFinite(p.Objective) ? Math.Sqrt(2 * Math.Max(0, top - p.Objective)) - r0 : double.PositiveInfinity;
         double gb = G(below), ga = G(above);
         int side = 0;
+        bool midpoint = false;
         for (int i = 0; i < BisectionSteps; i++)
         {
-            double v = double.IsFinite(gb) && gb - ga > 0
+            double width = Math.Abs(below.Value - above.Value);
+            double v = !midpoint && double.IsFinite(gb) && gb - ga > 0
                 ? above.Value + ga / (ga - gb) * (below.Value - above.Value)
                 : 0.5 * (below.Value + above.Value);
             // Stay strictly inside the bracket (1% of it from either end).
@@ -131,6 +135,9 @@ public static class ProfileInterval
                 side = 1;
             }
             if (Math.Abs(gm) <= RootTolerance) return mid.Value;
+            // Safeguard: a skewed profile (e.g. a refit far out, where ln L falls steeply) makes regula falsi creep from
+            // one end; when a step did not halve the bracket, the next one bisects it.
+            midpoint = !midpoint && Math.Abs(below.Value - above.Value) > 0.5 * width;
         }
         double fa = G(above), fb = G(below);
         if (!double.IsFinite(fb) || fb - fa <= 0) return 0.5 * (above.Value + below.Value);

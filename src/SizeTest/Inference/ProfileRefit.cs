@@ -128,8 +128,16 @@ public sealed class ProfileRefit
         var fixedH = lik.Hypothesis;
         var s = new double[start.Length - 1];
         for (int k = 0, m = 0; k < start.Length; k++) if (k != _j) s[m++] = start[k];
-        var fit = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, new OptimizerSettings(Starts: 1, InitialStep: 0.2), covariance: false,
+        var settings = new OptimizerSettings(Starts: 1, InitialStep: 0.2);
+        var fit = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, settings, covariance: false,
             initialInverseHessian: _innerInverseHessian);
+        if (!fit.Converged && _innerInverseHessian is not null)
+        {
+            // The covariance of the fit is a poor model far from the maximum: a refit that fails with it is run again
+            // from the scaled identity, and the better of the two is kept (a profile point is a maximum, never a failed run).
+            var again = MaximumLikelihood.Fit(lik, lik.Posterior, fixedH.FreeParameters, s, settings, covariance: false);
+            if (!(again.LogPosterior < fit.LogPosterior)) fit = again;
+        }
         var full = new double[start.Length];
         for (int k = 0, m = 0; k < full.Length; k++) full[k] = k == _j ? value : fit.Theta[m++];
         double ll = fit.LogLikelihood;

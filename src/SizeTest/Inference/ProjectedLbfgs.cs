@@ -111,6 +111,13 @@ public static class ProjectedLbfgs
             if (!accepted)
             {
                 if (sList.Count > 0) { sList.Clear(); yList.Clear(); rhoList.Clear(); continue; }
+                if (initialInverseHessian is not null)
+                {
+                    // The dense estimate (made at another point, e.g. a profile refit's neighbour) proposed a step no
+                    // backtracking could make acceptable: continue from the scaled identity with its first-step limit.
+                    initialInverseHessian = null;
+                    continue;
+                }
                 return new Result(x, fx, g, OptimizerExit.LineSearchFailed, iter, evals);
             }
             var s = new double[d]; var y = new double[d];

@@ -30,6 +30,7 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
             for (int c = 0; c < chunks; c++) _bounds[c] = backend.ChunkRange(c).Start;
             _bounds[chunks] = obs.Count;
             _localObs = obs.Count > 0 ? obs : null;
+            _isWholeSample = true;
             if (obs.Count > 0) _local = new HypothesisLikelihood(hypothesis, obs, backend.GridSpan) { AllowParallel = false };
         }
         else
@@ -62,6 +63,31 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
         _local = local;
         _posterior = new PriorTimesLikelihood(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
     }
+
+    /// <summary>
+    /// This likelihood's rows re-weighted: local object i counts <paramref name="multiplicity"/>[i] times (0: left out),
+    /// the likelihood <see cref="EvaluationBackend.Bind"/> gives for those weights. When every weight is 0 or 1 (a
+    /// cross-validation fold) and the kernel can mask rows (<see cref="HypothesisLikelihood.Masked"/>), it reuses these bound
+    /// rows, grid and chunks — no copy of the rows, no second bind — and sums the included rows in the same order as a
+    /// copy would; otherwise it binds a copy of the rows.
+    /// </summary>
+    public RowSumLikelihood Reweighted(int[] multiplicity)
+    {
+        ArgumentNullException.ThrowIfNull(multiplicity);
+        if (_local is not null && _isWholeSample && Array.TrueForAll(multiplicity, w => w is 0 or 1))
+        {
+            if (multiplicity.Length != _local.Count) throw new ArgumentException($"{multiplicity.Length} weights for {_local.Count} objects", nameof(multiplicity));
+            if (_local.Masked(Array.ConvertAll(multiplicity, w => (byte)w)) is { } masked)
+                return new RowSumLikelihood(this, Hypothesis, masked, _localObs) { _isWholeSample = false };
+        }
+        return new RowSumLikelihood(_backend, Hypothesis, multiplicity);
+    }
+
+    /// <summary>Whether this likelihood masks the rows of a whole-sample one instead of holding a copy (<see cref="Reweighted"/>).</summary>
+    internal bool SharesRows => _local?.IsMasked == true;
+
+    // Whether this likelihood is the backend's whole sample, unweighted (the rows Reweighted can mask).
+    private bool _isWholeSample;
 
     /// <summary>
     /// This likelihood with free parameter <paramref name="name"/> held at <paramref name="value"/> (the likelihood of

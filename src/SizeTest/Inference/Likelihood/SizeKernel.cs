@@ -8,9 +8,19 @@ namespace SizeTest.Inference.Likelihood;
 /// Without a cut both paths run on the vectorised <see cref="GaussianCore"/>, or, when every ln θ variance is the same, on
 /// one <see cref="SizeSliceGram"/> per row slice (cost independent of the rows).
 /// </summary>
+/// <remarks>With a row mask (cross-validation folds over the one bound row set) only rows with <c>mask[i] != 0</c> count;
+/// the kernel then runs on masked Gram matrices only (<see cref="SupportsMask"/>), which hold exactly the sums a copy of
+/// the included rows would.</remarks>
 internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut,
-    System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? sharedGrams = null) : IObservableKernel
+    System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? sharedGrams = null, byte[]? mask = null) : IObservableKernel
 {
+    /// <summary>Whether a size kernel on these rows, cut and distances can evaluate a row mask (the Gram path).</summary>
+    public static bool SupportsMask(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut) =>
+        UsesGrams(cols, cut) && (distances.FixedLnDa is not null || distances.Grid is not null);
+
+    /// <summary>The row mask (null: every row).</summary>
+    public byte[]? Mask => mask;
+
     // Equal ln θ variances and no cut: each slice's χ² is a quadratic form (SizeSliceGram), built at its first use; a
     // likelihood with parameters held fixed on the same rows and grid (profile refits) shares its parent's.
     private readonly System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? _grams =
@@ -26,18 +36,20 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
     private SizeSliceGram? Gram(int start, int end) =>
         _grams is null || end <= start ? null
             : _grams.GetOrAdd(((long)start << 32) | (uint)end, _ => distances.FixedLnDa is { } fixedLnDa
-                ? new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, fixedLnDa, null, null, start, end)
-                : new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, cols.LnZ, distances.Grid, distances.ReferenceG, start, end));
+                ? new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, fixedLnDa, null, null, start, end, mask)
+                : new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, cols.LnZ, distances.Grid, distances.ReferenceG, start, end, mask));
 
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end)
     {
         int len = end - start;
         if (Gram(start, end) is { } gram)
         {
-            double v = cols.VarLnTheta[start] + p.Sigma2;
+            len = gram.Count;
+            double v = cols.VarLnTheta[gram.FirstRow] + p.Sigma2;
             double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, default, 0, out _, out _);
             return -0.5 * (q / v + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
         }
+        if (mask is not null) return MaskWithoutGram(len);
         if (cut is null)
         {
             var lnDa = distances.LnDaSlice(e, start, end, cols.LnZ, out var rented);
@@ -63,11 +75,13 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
         var nodeA = adj.NodeAdjoint;
         if (Gram(start, end) is { } gram)
         {
-            double v = cols.VarLnTheta[start] + p.Sigma2, inv = 1 / v;
+            len = gram.Count;
+            double v = cols.VarLnTheta[gram.FirstRow] + p.Sigma2, inv = 1 / v;
             double q = gram.SumSquares(p.C0, p.A, e.GridLnDaOverZ, distances.ReferenceG, distances.FixedLnDa is null ? nodeA : default, inv, out double sr, out double srx);
             adj.Dt += sr * inv; adj.DtX += srx * inv; adj.DVt += 0.5 * (q * inv * inv - len * inv);
             return -0.5 * (q * inv + len * Math.Log(v)) - GaussianCore.HalfLn2Pi * len;
         }
+        if (mask is not null) return MaskWithoutGram(len);
         if (cut is null)
         {
             if (distances.Grid is { } grid && nodeA is not null) return -0.5 * FusedGridSum(e.GridLnDaOverZ!, grid, p, start, end, adj, nodeA) - GaussianCore.HalfLn2Pi * len;
@@ -94,6 +108,10 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
         }
         return -0.5 * acc - sel - GaussianCore.HalfLn2Pi * len;
     }
+
+    // An empty slice has no rows to mask; any other slice of a masked kernel has a Gram matrix (SupportsMask).
+    private static double MaskWithoutGram(int len) =>
+        len == 0 ? 0 : throw new InvalidOperationException("a row mask needs the Gram path (equal ln θ variances, no cut, grid or fixed distances)");
 
     // Grid distances, no cut: one fused pass per object — interpolate ln D_A, residual, partials, and scatter d_t into the
     // four stencil nodes' adjoint — without temporary arrays. Returns Σ[r²/v + ln v].

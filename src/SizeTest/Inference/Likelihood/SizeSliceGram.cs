@@ -36,23 +36,35 @@ internal sealed class SizeSliceGram
     /// <param name="gRef">The reference grid values g_ref (with a grid).</param>
     /// <param name="start">First row.</param>
     /// <param name="end">One past the last row.</param>
-    public SizeSliceGram(double[] y, double[] x, double[] offset, RedshiftGrid? grid, double[]? gRef, int start, int end)
+    /// <param name="mask">Null for every row of the slice, or the rows to include (<c>mask[i] != 0</c>, indexed like
+    /// <paramref name="y"/>): the same sums, in the same order, as a slice of a copy holding only those rows.</param>
+    public SizeSliceGram(double[] y, double[] x, double[] offset, RedshiftGrid? grid, double[]? gRef, int start, int end, byte[]? mask = null)
     {
         _n = end - start;
+        FirstRow = start;
+        if (mask is not null)
+        {
+            _n = 0;
+            FirstRow = -1;
+            for (int i = start; i < end; i++)
+                if (mask[i] != 0) { _n++; if (FirstRow < 0) FirstRow = i; }
+            if (FirstRow < 0) FirstRow = start;
+        }
         _k = grid?.Nodes.Length ?? 0;
         var u = new double[_n];
         double su = 0, sx = 0;
         var idx = grid?.Index;
         var w = grid?.Weights;
-        for (int i = start; i < end; i++)
+        for (int i = start, r = 0; i < end; i++)
         {
+            if (mask is not null && mask[i] == 0) continue;
             double ui = y[i] + offset[i];
             if (grid is not null)
             {
                 int j = idx![i], q = 4 * i;
                 ui += w![q] * gRef![j] + w[q + 1] * gRef[j + 1] + w[q + 2] * gRef[j + 2] + w[q + 3] * gRef[j + 3];
             }
-            u[i - start] = ui;
+            u[r++] = ui;
             su += ui;
             sx += x[i];
         }
@@ -63,9 +75,10 @@ internal sealed class SizeSliceGram
             _bu = new double[_k]; _b1 = new double[_k]; _bx = new double[_k];
             _diag = new double[Width * _k];
         }
-        for (int i = start; i < end; i++)
+        for (int i = start, r = 0; i < end; i++)
         {
-            double uc = u[i - start] - _uMean, xc = x[i] - _xMean;
+            if (mask is not null && mask[i] == 0) continue;
+            double uc = u[r++] - _uMean, xc = x[i] - _xMean;
             _suu += uc * uc; _su1 += uc; _sux += uc * xc; _sx1 += xc; _sxx += xc * xc;
             if (_k == 0) continue;
             int j = idx![i], q = 4 * i;
@@ -78,8 +91,11 @@ internal sealed class SizeSliceGram
         }
     }
 
-    /// <summary>Rows in the slice.</summary>
+    /// <summary>Rows in the slice (the included rows only, with a mask).</summary>
     public int Count => _n;
+
+    /// <summary>The first row included (the slice's start when none is).</summary>
+    public int FirstRow { get; }
 
     /// <summary>
     /// Σ r_i² for the model constants c0, a and grid values g (null for fixed distances); with <paramref name="nodeSums"/>

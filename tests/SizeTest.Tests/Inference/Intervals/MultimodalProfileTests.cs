@@ -16,10 +16,13 @@ public sealed class MultimodalProfileTests
 {
     private static readonly string Dir = Path.Combine(AppContext.BaseDirectory, "Reference", "Inference");
 
-    internal static Observables LoadMock()
+    internal static Observables LoadMock() => LoadMock("bimodal_omega_m_mock.csv");
+
+    /// <summary>Reads a committed size mock of Reference/Inference (a comment line, then z, ln θ [rad], σ of ln θ).</summary>
+    internal static Observables LoadMock(string file)
     {
         var z = new List<double>(); var y = new List<double>(); var e = new List<double>();
-        foreach (var line in File.ReadLines(Path.Combine(Dir, "bimodal_omega_m_mock.csv")).Skip(2))
+        foreach (var line in File.ReadLines(Path.Combine(Dir, file)).Skip(2))
         {
             var c = line.Split(',');
             z.Add(double.Parse(c[0], CultureInfo.InvariantCulture));
