@@ -51,7 +51,7 @@ public static class CatalogueReaders
                 case CatalogueFormat.Fits:
                     return FitsTableReader.Open(path, options.Table);
                 case CatalogueFormat.VoTable:
-                    return VoTableReader.Open(path, options.Table);
+                    return VoTableReader.Open(path, options);
                 case CatalogueFormat.Parquet:
                     if (options.Table is not null)
                         throw new InputException($"a Parquet file has only one table; drop --hdu '{options.Table}'", path);

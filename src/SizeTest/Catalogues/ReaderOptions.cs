@@ -24,4 +24,17 @@ public sealed record ReaderOptions
 
     /// <summary>Text only: the longest line accepted, bytes (default 1 MiB); a longer line is refused naming file and line.</summary>
     public int MaxLineBytes { get; init; } = SizeTest.Foundation.Files.LineCappedStream.DefaultMaxLineBytes;
+
+    /// <summary>The most columns a table may have (default <see cref="DefaultMaxColumns"/>): a text header, a VOTable's
+    /// FIELDs or a FITS TFIELDS beyond it is refused naming file and line before any per-column work, so a damaged or
+    /// hostile header cannot make the reader allocate without limit.</summary>
+    public int MaxColumns { get; init; } = DefaultMaxColumns;
+
+    /// <summary>The default of <see cref="MaxColumns"/>: 10 000, ten times the 999 columns FITS allows (FITS 4.0 §7.3.1) and
+    /// well above the widest survey tables in use (a few thousand columns).</summary>
+    public const int DefaultMaxColumns = 10_000;
+
+    /// <summary>VOTable TABLEDATA only: the most characters one TD cell may hold (default 1 Mi); a longer cell is refused
+    /// naming file, row and column, having read at most this much of it.</summary>
+    public int MaxCellChars { get; init; } = 1 << 20;
 }

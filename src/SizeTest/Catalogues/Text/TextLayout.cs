@@ -53,7 +53,8 @@ internal sealed class TextLayout
             throw new InputException("the file has no data lines (only comments or nothing); is it a catalogue?", path);
 
         var notes = new List<string>();
-        char delim = options.Delimiter ?? DetectDelimiter(path, data[0].Text);
+        int maxColumns = options.MaxColumns;
+        char delim = options.Delimiter ?? DetectDelimiter(path, data[0].Text, maxColumns);
         notes.Add(delim switch
         {
             ' ' => "delimiter: runs of spaces/tabs",
@@ -61,7 +62,10 @@ internal sealed class TextLayout
             _ => $"delimiter: '{delim}'",
         } + (options.Delimiter is null ? " (detected)" : " (given)"));
 
-        var first = Split(data[0].Text, delim);
+        // Splitting stops one field past the cap, so a header of 500 000 one-letter names costs 10 001 strings, not 500 000.
+        var first = Split(data[0].Text, delim, maxColumns);
+        if (first.Length > maxColumns)
+            throw new InputException($"the line has more than {maxColumns} fields; a catalogue has at most {maxColumns} columns (is this a catalogue? check the delimiter, or drop unused columns)", path, data[0].No);
         bool headerFirst, fromComment = false;
         string[] names;
         long? headerLine = null;
@@ -82,7 +86,7 @@ internal sealed class TextLayout
             notes.Add($"header: line {headerLine}" + (options.HasHeader is null ? " (detected: no field is a number)" : " (given)"));
         }
         else if (options.HasHeader is null && lastComment is not null
-                 && Split(lastComment.Trim(), delim) is { } cnames && cnames.Length == first.Length && cnames.All(f => f.Length > 0 && !IsNumber(f)))
+                 && Split(lastComment.Trim(), delim, maxColumns) is { } cnames && cnames.Length == first.Length && cnames.All(f => f.Length > 0 && !IsNumber(f)))
         {
             names = cnames;
             headerLine = lastCommentNo;
@@ -98,7 +102,8 @@ internal sealed class TextLayout
         var nulls = new HashSet<string>(options.NullTokens) { "" };
         var columns = new List<CatalogueColumn>();
         var seen = new UniqueColumnNames();
-        var sampleCells = data.Take(200).Select(d => Split(d.Text, delim)).ToList();
+        // Kinds are judged on the first lines: 200 of them, fewer for wide tables (at most ~200 000 cells are split).
+        var sampleCells = data.Take(Math.Clamp(200_000 / Math.Max(1, names.Length), 2, 200)).Select(d => Split(d.Text, delim, maxColumns)).ToList();
         for (int i = 0; i < names.Length; i++)
         {
             var (name, unit) = SplitUnit(names[i].Trim());
@@ -122,7 +127,7 @@ internal sealed class TextLayout
         };
     }
 
-    private static char DetectDelimiter(string path, string line)
+    private static char DetectDelimiter(string path, string line, int maxColumns)
     {
         var ext = Path.GetExtension(path).ToLowerInvariant();
         if (ext is ".tsv" or ".tab") return '\t';
@@ -130,15 +135,16 @@ internal sealed class TextLayout
         int bestCount = 0;
         foreach (var c in ",\t;|")
         {
-            int n = Split(line, c).Length - 1;
+            int n = Split(line, c, maxColumns).Length - 1;
             if (n > bestCount) { best = c; bestCount = n; }
         }
         if (bestCount > 0) return best;
         return ext == ".csv" ? ',' : ' ';
     }
 
-    /// <summary>Splits one line (double quotes protect delimiters; <c>""</c> is a quote).</summary>
-    public static string[] Split(string line, char delim)
+    /// <summary>Splits one line (double quotes protect delimiters; <c>""</c> is a quote), stopping after
+    /// <paramref name="maxFields"/> + 1 fields: a longer result means the line has more than <paramref name="maxFields"/>.</summary>
+    public static string[] Split(string line, char delim, int maxFields = int.MaxValue)
     {
         var fields = new List<string>();
         var sb = new StringBuilder();
@@ -165,6 +171,7 @@ internal sealed class TextLayout
                     while (i < n && line[i] != ' ' && line[i] != '\t') sb.Append(line[i++]);
                 }
                 fields.Add(sb.ToString());
+                if (fields.Count > maxFields) break;
             }
             return fields.ToArray();
         }
@@ -187,7 +194,7 @@ internal sealed class TextLayout
                 while (i < n && line[i] != delim) sb.Append(line[i++]);
             }
             fields.Add(sb.ToString().Trim());
-            if (i >= n) break;
+            if (i >= n || fields.Count > maxFields) break;
             i++; // delimiter
         }
         return fields.ToArray();

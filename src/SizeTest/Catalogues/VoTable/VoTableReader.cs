@@ -32,6 +32,10 @@ internal sealed class VoTableReader : ICatalogueReader
     private bool _b64End;
     private byte[] _cell = new byte[64];
 
+    private const int MaxDescriptionChars = 1 << 16;
+    private int _maxCellChars = new ReaderOptions().MaxCellChars;
+    private char[]? _cellChars;
+
     private VoTableReader(Stream file, XmlReader xml, string path, string tableName, List<VoTableField> fields, string serialisation)
     {
         _file = file;
@@ -71,15 +75,21 @@ internal sealed class VoTableReader : ICatalogueReader
         MaxCharactersFromEntities = 1024,
     };
 
-    /// <summary>Opens the TABLE chosen by <paramref name="selector"/> (1-based index, or name/ID; null = the first).</summary>
-    public static ICatalogueReader Open(string path, string? selector)
+    /// <summary>Opens the TABLE chosen by <paramref name="options"/>' <see cref="ReaderOptions.Table"/> (1-based index, or
+    /// name/ID; null = the first), with its limits on columns and cell size.</summary>
+    public static ICatalogueReader Open(string path, ReaderOptions options)
     {
-        var file = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan);
+        ArgumentNullException.ThrowIfNull(options);
+        string? selector = options.Table;
+        Stream file = new TagLengthCappedStream(new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan),
+            path, TagLengthCappedStream.DefaultMaxTagBytes);
         XmlReader? xml = null;
         try
         {
             xml = XmlReader.Create(file, Settings);
-            return OpenTable(file, xml, path, selector);
+            var reader = OpenTable(file, xml, path, selector, options.MaxColumns);
+            if (reader is VoTableReader v) v._maxCellChars = Math.Max(1, options.MaxCellChars);
+            return reader;
         }
         catch (XmlException ex)
         {
@@ -95,7 +105,7 @@ internal sealed class VoTableReader : ICatalogueReader
         }
     }
 
-    private static ICatalogueReader OpenTable(Stream file, XmlReader xml, string path, string? selector)
+    private static ICatalogueReader OpenTable(Stream file, XmlReader xml, string path, string? selector, int maxColumns)
     {
         if (!xml.Read() || xml.MoveToContent() != XmlNodeType.Element || xml.LocalName != "VOTABLE")
             throw new InputException("not a VOTable: the root element is not VOTABLE", path);
@@ -128,6 +138,8 @@ internal sealed class VoTableReader : ICatalogueReader
                 if (xml.NodeType != XmlNodeType.Element) continue;
                 if (xml.LocalName == "FIELD" && xml.Depth == depth + 1)
                 {
+                    if (fields.Count >= maxColumns)
+                        throw new InputException($"{label} has more than {maxColumns} FIELDs; a catalogue has at most {maxColumns} columns", path, (xml as IXmlLineInfo)?.LineNumber);
                     var field = ReadField(xml, path, fields.Count + 1);
                     var unique = names.Take(field.Name);
                     fields.Add(unique == field.Name ? field : new VoTableField
@@ -191,10 +203,18 @@ internal sealed class VoTableReader : ICatalogueReader
         if (!xml.IsEmptyElement)
         {
             int depth = xml.Depth;
-            while (xml.Read() && xml.Depth > depth)
+            bool onNext = false; // the reader already stands on the node after a DESCRIPTION
+            while ((onNext || xml.Read()) && xml.Depth > depth)
             {
+                onNext = false;
                 if (xml.NodeType != XmlNodeType.Element) continue;
-                if (xml.LocalName == "DESCRIPTION") description = xml.ReadElementContentAsString().Trim();
+                if (xml.LocalName == "DESCRIPTION")
+                {
+                    description = ReadBoundedText(xml, MaxDescriptionChars, new char[4096], () => new InputException(
+                        $"FIELD '{name}' has a DESCRIPTION longer than {MaxDescriptionChars} characters (is the file damaged?)", path, (xml as IXmlLineInfo)?.LineNumber), path).Trim();
+                    onNext = true;
+                    continue;
+                }
                 else if (xml.LocalName == "VALUES") nullText = xml.GetAttribute("null");
                 if (xml.NodeType == XmlNodeType.EndElement && xml.Depth == depth) break;
             }
@@ -251,7 +271,7 @@ internal sealed class VoTableReader : ICatalogueReader
                 {
                     if (_xml.NodeType == XmlNodeType.Element && _xml.LocalName == "TD")
                     {
-                        var text = _xml.ReadElementContentAsString();
+                        var text = ReadCell(count);
                         if (count < cells.Length) cells[count] = text;
                         count++;
                         continue;
@@ -268,6 +288,58 @@ internal sealed class VoTableReader : ICatalogueReader
             }
         }
     }
+
+    /// <summary>
+    /// The text of the TD element the reader is on (column <paramref name="column"/>, 0-based), read in pieces with
+    /// <see cref="XmlReader.ReadValueChunk"/> so a cell longer than the cap is refused having held at most the cap in
+    /// memory (a 300 MB TD took 1.2 GB through <c>ReadElementContentAsString</c>). Leaves the reader after the TD.
+    /// </summary>
+    private string ReadCell(int column)
+    {
+        _cellChars ??= new char[4096];
+        return ReadBoundedText(_xml, _maxCellChars, _cellChars, () => CellTooLong(column), _path);
+    }
+
+    /// <summary>The text content of the element <paramref name="xml"/> is on, read in pieces; more than
+    /// <paramref name="maxChars"/> characters throws <paramref name="tooLong"/>. Leaves the reader after the element.</summary>
+    private static string ReadBoundedText(XmlReader xml, int maxChars, char[] buffer, Func<InputException> tooLong, string path)
+    {
+        if (xml.IsEmptyElement) { xml.Read(); return ""; }
+        if (!xml.CanReadValueChunk)
+        {
+            var all = xml.ReadElementContentAsString();
+            return all.Length > maxChars ? throw tooLong() : all;
+        }
+        int depth = xml.Depth;
+        string element = xml.LocalName;
+        var text = new StringBuilder();
+        xml.Read();
+        while (!(xml.NodeType == XmlNodeType.EndElement && xml.Depth == depth))
+        {
+            switch (xml.NodeType)
+            {
+                case XmlNodeType.Text or XmlNodeType.CDATA or XmlNodeType.Whitespace or XmlNodeType.SignificantWhitespace:
+                    int n;
+                    while ((n = xml.ReadValueChunk(buffer, 0, buffer.Length)) > 0)
+                    {
+                        if (text.Length + n > maxChars) throw tooLong();
+                        text.Append(buffer, 0, n);
+                    }
+                    break;
+                case XmlNodeType.Element:
+                    throw new InputException($"an element <{xml.LocalName}> lies inside <{element}>, which holds text only", path, (xml as IXmlLineInfo)?.LineNumber);
+            }
+            if (!xml.Read()) throw new InputException($"the VOTable ends inside <{element}>", path);
+        }
+        xml.Read(); // past the end tag
+        return text.ToString();
+    }
+
+    private string Capped(string text, int column) => text.Length > _maxCellChars ? throw CellTooLong(column) : text;
+
+    private InputException CellTooLong(int column) => new(
+        $"the TD cell is longer than {_maxCellChars} characters; no catalogue value is that long (is the file damaged?)",
+        _path, _row, column < _fields.Count ? _fields[column].Name : (column + 1).ToString(CultureInfo.InvariantCulture), lineLabel: "row");
 
     private void SetFromText(ColumnBuffer buf, int row, int col, bool asText, string? text)
     {
