@@ -56,7 +56,7 @@ public static class StudyReportAdapter
         {
             Job = new JobSummary(study.Report.Title ?? study.Name, study.StudyFilePath.Replace('\\', '/'), catalogueLabel, version, gitCommit, study.Seed, study.Synthetic)
             {
-                Method = Method(study),
+                Method = Method(study, result),
             },
             Data = new DataSummary(result.RowsRead, result.Accepted, result.Rejected, reasons)
             {
@@ -92,9 +92,16 @@ public static class StudyReportAdapter
         _ => parameter,
     }) + (Inference.Comparison.EvolutionTestTable.GroupOf(parameter) is { } g ? $", group {g}" : "");
 
-    private static string Method(StudyDefinition s)
+    private static string Method(StudyDefinition s, FitResult result)
     {
-        var parts = new List<string> { $"maximum likelihood ({s.Starts} optimiser start{(s.Starts == 1 ? "" : "s")} per model, Hessian 68% intervals)" };
+        // The interval methods actually used (interval_method of every free parameter), e.g. "Hessian and profile-likelihood".
+        var used = result.Models.SelectMany(m => m.Parameters).Where(p => !p.Fixed).Select(p => p.IntervalMethod).Distinct().ToList();
+        var words = new[] { (IntervalMethods.Hessian, "Hessian"), (IntervalMethods.Profile, "profile-likelihood"), (IntervalMethods.Posterior, "posterior"), (IntervalMethods.Bootstrap, "bootstrap") }
+            .Where(t => used.Contains(t.Item1)).Select(t => t.Item2).ToList();
+        string intervals = words.Count == 0 ? "no free parameters"
+            : (words.Count == 1 ? words[0] : string.Join(", ", words.Take(words.Count - 1)) + " or " + words[^1]) + " 68% intervals"
+              + (words.Count > 1 ? " (each parameter's method in the parameter table and results.json)" : "");
+        var parts = new List<string> { $"maximum likelihood ({s.Starts} optimiser start{(s.Starts == 1 ? "" : "s")} per model, {intervals})" };
         if (s.Bootstrap > 0) parts.Add($"{s.Bootstrap} bootstrap resamples per model");
         if (s.CrossValidationFolds > 0) parts.Add($"{s.CrossValidationFolds}-fold cross-validation");
         if (s.Sampler == SamplerKind.Mcmc) parts.Add($"affine-invariant ensemble sampling of the best model ({s.SamplerSteps} steps)");

@@ -45,7 +45,9 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
         if (ranked.Count == 0)
             return new StudyVerdict(null, false, "none", "No model has a finite likelihood, so there is nothing to rank.");
         if (ranked.Count == 1)
-            return new StudyVerdict(ranked[0].Name, false, "none", $"Only {L(ranked[0])} was fitted with a finite likelihood; a verdict needs at least two models to compare.");
+            return new StudyVerdict(ranked[0].Name, false, "none", result.Models.Count == 1
+                ? $"Only {L(ranked[0])} was fitted; a verdict needs at least two models to compare."
+                : $"Only {L(ranked[0])} has a finite likelihood ({result.Models.Count - 1} of {result.Models.Count} models have none); a verdict needs at least two models to compare.");
 
         var best = ranked[0];
         var second = ranked[1];

@@ -95,6 +95,15 @@ public static class ReportTables
 
     private static string Raw(ModelReport m, string name) => m.Fit.Parameters.FirstOrDefault(p => p.Name == name) is { } p ? R(p.Value) : "";
 
+    private static string IntervalMethodWords(string method) => method switch
+    {
+        Inference.IntervalMethods.Hessian => "Hessian",
+        Inference.IntervalMethods.Profile => "profile likelihood",
+        Inference.IntervalMethods.Posterior => "posterior",
+        Inference.IntervalMethods.Bootstrap => "bootstrap",
+        _ => method,
+    };
+
     /// <summary>Best-fit parameters of every model with 68% intervals.</summary>
     public static ReportTable Parameters(ReportData data)
     {
@@ -103,16 +112,21 @@ public static class ReportTables
         foreach (var m in data.Models)
             foreach (var p in m.Fit.Parameters)
             {
+                string status = p.Fixed ? "fixed" : p.AtBound is { } b ? $"free, at its {b} bound" : "free";
                 rows.Add([m.Label, p.Name, p.Fixed ? PdgRounding.Plain(p.Value) : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi),
                     p.Fixed ? "" : PdgRounding.IntervalBounds(p.Value, p.Lo, p.Hi),
-                    p.Fixed ? "fixed" : "free", p.Unit]);
-                raw.Add([m.Fit.Name, p.Name, R(p.Value), p.Fixed ? "" : R(p.Lo), p.Fixed ? "" : R(p.Hi), p.Fixed ? "fixed" : "free", p.Unit]);
+                    p.Fixed ? "" : IntervalMethodWords(p.IntervalMethod), status, p.Unit]);
+                raw.Add([m.Fit.Name, p.Name, R(p.Value), p.Fixed ? "" : R(p.Lo), p.Fixed ? "" : R(p.Hi), p.Fixed ? "" : p.IntervalMethod,
+                    p.Fixed ? "fixed" : "free", p.AtBound ?? "", p.Unit]);
             }
         return new ReportTable("parameters", "Best-fit parameters",
-            ["model", "parameter", "value", "68% interval", "status", "unit"], rows)
+            ["model", "parameter", "value", "68% interval", "interval from", "status", "unit"], rows)
         {
-            Caption = "Best estimate with its 68% interval (Hessian ±1σ for maximum likelihood, 16th–84th percentiles when sampled), rounded by the PDG rule (two significant digits of the error, one when its leading digits are 355–949); fixed parameters have no interval. The CSV keeps full precision.",
-            MachineColumns = ["model", "parameter", "value", "lo_68", "hi_68", "status", "unit"],
+            Caption = "Best estimate with its 68% interval, rounded by the PDG rule (two significant digits of the error, one when its leading digits are 355–949). "
+                + "\"interval from\" says how each interval was obtained: the Hessian (±1σ) where the profile likelihood is close to quadratic; "
+                + "the profile likelihood (Δ ln L = ½, asymmetric) where it is not, where the likelihood has several maxima or where the parameter sits at a bound "
+                + "(the interval is then one-sided); posterior percentiles (16th–84th) when sampled; bootstrap percentiles. Fixed parameters have no interval. The CSV keeps full precision.",
+            MachineColumns = ["model", "parameter", "value", "lo_68", "hi_68", "interval_method", "status", "at_bound", "unit"],
             MachineRows = raw,
         };
     }
