@@ -6,6 +6,10 @@ Usage (from the repository root, after a benchmark run):
     dotnet run -c Release --project tests/SizeTest.Benchmarks -- --filter '*Distance*' --job short
     python3 tests/SizeTest.Benchmarks/write-benchmarks-page.py BenchmarkDotNet.Artifacts/results
 
+`tests/SizeTest.Benchmarks/fit_timing.sh DIR [--large]` writes its whole-process timings (wall, CPU, peak RSS and the
+speed-up over the Python baseline of the same run) as `DIR/results/WholeProcessFitTiming-report-github.md` in the same
+layout; pass `DIR/results` to put them on the page.
+
 For every `*-report-github.md` in the given folder, the page gets one section per benchmark
 class: the environment block BenchmarkDotNet printed (version, OS, CPU, SDK, job), the date of
 the report file, the load average of the machine when this script ran, and the measured table
@@ -52,7 +56,7 @@ STAT_COLUMNS = ["Mean", "Error", "StdDev", "Median", "Allocated"]
 HEADER = """# Benchmark figures
 
 Written by `tests/SizeTest.Benchmarks/write-benchmarks-page.py` from BenchmarkDotNet's
-`*-report-github.md` files; do not edit by hand (DEVELOPERS.md, "Benchmarks", says how to
+`*-report-github.md` files and the whole-process report of `fit_timing.sh`; do not edit by hand (DEVELOPERS.md, "Benchmarks", says how to
 refresh a section). Each section is one run of one benchmark class, with the environment and
 job BenchmarkDotNet recorded. The machine is shared: the load average shown is the one when the
 page was written, and wall times measured under load are upper bounds. A `ShortRun` job has few
