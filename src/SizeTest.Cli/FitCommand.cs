@@ -29,7 +29,7 @@ internal static class FitCommand
         var surveyOptions = new SurveyCliOptions();
         var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
-        OneOf(observable, "--observable", "size", "sb", "joint");
+        OneOf(observable, "--observable", [.. ObservableKinds.Names]);
         var relation = new Option<bool>("--size-sb-relation") { Description = "Joint only: link μ to log10 physical size with a free Kormendy-type slope (kormendy_slope), so the SB test is at matched physical size." };
         var pivot = new Option<double>("--pivot-kpc") { Description = "Pivot physical size of the size–SB relation, kpc (mu0 is the SB at this size).", DefaultValueFactory = _ => 5.0 };
         var dimOffset = new Option<double>("--dimming-offset") { Description = "Added to every model's bolometric dimming exponent: −1 for f_ν (AB) band SB without a bandwidth K-correction, +1 for f_λ; 0 when bolometric or K-corrected.", DefaultValueFactory = _ => 0.0 };
@@ -41,7 +41,7 @@ internal static class FitCommand
         var folds = new Option<int>("--cv-folds") { Description = "Folds of the cross-validated log predictive density (0: none).", DefaultValueFactory = _ => 5 };
         var profile = new Option<string?>("--profile") { Description = "Parameter to profile (writes profile_MODEL_NAME.csv)." };
         var sampler = new Option<string>("--sampler") { Description = "Posterior sampling after the fit: none, mcmc or nested.", DefaultValueFactory = _ => "none" };
-        OneOf(sampler, "--sampler", "none", "mcmc", "nested");
+        OneOf(sampler, "--sampler", [.. SamplerKinds.Names]);
         var walkers = new Option<int>("--walkers") { Description = "MCMC: ensemble walkers.", DefaultValueFactory = _ => 32 };
         var steps = new Option<string>("--steps") { Description = "MCMC: steps per walker, or auto: run in blocks until ≥ 50 τ, split-R̂ ≤ 1.01 and ESS ≥ 400 hold (or --max-steps is reached: not converged, exit 1).", DefaultValueFactory = _ => "auto" };
         var maxSteps = new Option<int>("--max-steps") { Description = "MCMC with --steps auto: the most steps per walker.", DefaultValueFactory = _ => SizeTest.Inference.Sampling.ChainMemory.DefaultMaxSteps };

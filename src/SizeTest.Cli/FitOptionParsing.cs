@@ -91,11 +91,7 @@ internal static class FitOptionParsing
     }
 
     /// <summary>The observable kind from <c>--observable</c>.</summary>
-    public static ObservableKind Observable(string text) => text switch
-    {
-        "size" => ObservableKind.Size,
-        "sb" => ObservableKind.SurfaceBrightness,
-        "joint" => ObservableKind.Joint,
-        _ => throw new InputException($"--observable must be size, sb or joint; got '{text}'"),
-    };
+    public static ObservableKind Observable(string text) =>
+        ObservableKinds.TryParse(text, out var kind) ? kind
+            : throw new InputException($"--observable must be {string.Join(", ", ObservableKinds.Names.SkipLast(1))} or {ObservableKinds.Names[^1]}; got '{text}'");
 }

@@ -42,9 +42,9 @@ internal static class FitTables
     /// <summary>The ranked table and the statements under it.</summary>
     public static void WriteTable(TextWriter o, FitResult r)
     {
-        o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable}; seed {r.Seed}");
+        o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable.Name()}; seed {r.Seed}");
         o.WriteLine();
-        string evo = r.Settings.Observable == "sb" ? "sb_evolution" : "size_evolution";
+        string evo = r.Settings.Observable == ObservableKind.SurfaceBrightness ? "sb_evolution" : "size_evolution";
         string sym = evo == "sb_evolution" ? "b" : "a";
         // ln L, AIC and BIC carry no error of their own: two decimals; ΔAIC/ΔBIC one (the Kass–Raftery scale needs no more);
         // the evolution estimate is rounded to its 68% interval by the PDG rule.

@@ -26,7 +26,7 @@ internal static class PowerCommand
         var mocks = new Option<int>("--mocks") { Description = "Mocks per sample size (default 100).", DefaultValueFactory = _ => 100 };
         var candidates = new Option<string>("--models") { Description = $"Candidate world models fitted to every mock, comma-separated ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
         var observable = new Option<string?>("--observable") { Description = "What the fits use: size, sb or joint (default joint for galaxies, size for radio sources)." };
-        observable.AcceptOnlyFromAmong("size", "sb", "joint");
+        observable.AcceptOnlyFromAmong([.. ObservableKinds.Names]);
         var target = new Option<double>("--target-power") { Description = "Fraction of mocks that must give ΔBIC > 10 for a decisive design (default 0.9).", DefaultValueFactory = _ => 0.9 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per fit (default 1).", DefaultValueFactory = _ => 1 };
         var threads = new Option<int?>("--threads") { Description = "Most threads to use (default: all cores)." };
@@ -52,10 +52,10 @@ internal static class PowerCommand
                 var trueModel = models.Create(parse);
                 var design = survey.Design(parse, grid.Max());
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
-                string obsText = parse.GetValue(observable) ?? (design.Kind == MockObjectKind.Galaxy ? "joint" : "size");
-                if (design.Kind == MockObjectKind.CompactRadio && obsText != "size")
+                var kind = parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText)
+                    : design.Kind == MockObjectKind.Galaxy ? ObservableKind.Joint : ObservableKind.Size;
+                if (design.Kind == MockObjectKind.CompactRadio && kind != ObservableKind.Size)
                     throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
-                var kind = obsText switch { "size" => ObservableKind.Size, "sb" => ObservableKind.SurfaceBrightness, _ => ObservableKind.Joint };
                 var cuts = design.Cuts;
                 var selection = new SelectionLimits(
                     kind == ObservableKind.Size ? null : cuts.SbLimit,
@@ -83,7 +83,7 @@ internal static class PowerCommand
                 var allKnown = hypotheses.SelectMany(h => h.Parameters.Select(p => p.Name)).ToHashSet();
                 foreach (var name in userFixed.Keys.Concat(userFree))
                     if (!allKnown.Contains(name))
-                        throw new InputException($"unknown parameter '{name}' for these models and --observable {obsText}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
+                        throw new InputException($"unknown parameter '{name}' for these models and --observable {kind.Name()}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
                 request.Validate();
                 ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null);
@@ -131,7 +131,7 @@ internal static class PowerCommand
 
     private static void WriteTable(TextWriter o, PowerResult r)
     {
-        o.WriteLine(FormattableString.Invariant($"Power analysis (synthetic mocks): true model {r.TrueCandidate}, candidates {string.Join(", ", r.Candidates)}; {r.Mocks} mocks per N; observable {r.Observable}; z {r.ZDist}; seed {r.Seed}."));
+        o.WriteLine(FormattableString.Invariant($"Power analysis (synthetic mocks): true model {r.TrueCandidate}, candidates {string.Join(", ", r.Candidates)}; {r.Mocks} mocks per N; observable {r.Observable.Name()}; z {r.ZDist}; seed {r.Seed}."));
         var header = new[] { "N", "P(best)", "P(dBIC>6)", "P(dBIC>10)", "dBIC q16", "q50", "q84", "a bias", "a spread", "a cover", "verdict" };
         var rows = new List<string[]> { header };
         foreach (var p in r.Points)

@@ -3,7 +3,7 @@ using SizeTest.Inference.Comparison;
 namespace SizeTest.Inference;
 
 /// <summary>The settings a study ran with (recorded in results.json for reproducibility).</summary>
-/// <param name="Observable"><c>size</c>, <c>sb</c> or <c>joint</c>.</param>
+/// <param name="Observable">The observable fitted (written <c>size</c>, <c>sb</c> or <c>joint</c>).</param>
 /// <param name="Selection">Selection cuts.</param>
 /// <param name="SizeSbRelation">Whether the joint model links μ to physical size.</param>
 /// <param name="PivotSizeKpc">Pivot of that relation, kpc.</param>
@@ -12,7 +12,7 @@ namespace SizeTest.Inference;
 /// <param name="Starts">Optimiser starts per model.</param>
 /// <param name="Bootstrap">Bootstrap resamples (0: none).</param>
 /// <param name="CrossValidationFolds">Folds (0: none).</param>
-/// <param name="Sampler"><c>none</c>, <c>mcmc</c> or <c>nested</c>.</param>
+/// <param name="Sampler">The posterior sampler (written <c>none</c>, <c>mcmc</c> or <c>nested</c>).</param>
 /// <param name="Walkers">MCMC walkers (when sampled).</param>
 /// <param name="Steps">MCMC steps (when sampled).</param>
 /// <param name="LivePoints">Nested-sampling live points (when sampled).</param>
@@ -20,8 +20,8 @@ namespace SizeTest.Inference;
 /// <param name="Expected">Expected ranges given by the user.</param>
 /// <param name="Seed">Seed of every random process in the study.</param>
 public sealed record FitSettings(
-    string Observable, SelectionLimits Selection, bool SizeSbRelation, double PivotSizeKpc, double DimmingExponentOffset,
-    int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, string Sampler, int Walkers, int Steps, int LivePoints, string? ProfileParameter,
+    ObservableKind Observable, SelectionLimits Selection, bool SizeSbRelation, double PivotSizeKpc, double DimmingExponentOffset,
+    int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, SamplerKind Sampler, int Walkers, int Steps, int LivePoints, string? ProfileParameter,
     IReadOnlyList<ExpectedRange> Expected, int Seed);
 
 /// <summary>

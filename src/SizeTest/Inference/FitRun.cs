@@ -129,9 +129,9 @@ public static class FitRun
             Rejected = request.Rejected,
             Seed = request.Seed,
             Settings = new FitSettings(
-                first.Observable switch { ObservableKind.Size => "size", ObservableKind.SurfaceBrightness => "sb", _ => "joint" },
+                first.Observable,
                 first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
-                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler.Name(), request.Walkers, request.Steps, request.LivePoints,
+                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
                 request.ProfileParameter, request.Expected, request.Seed),
             Models = ranked,
             BayesFactors = ModelComparison.BayesFactors(ranked),

@@ -54,7 +54,8 @@ public static class MaximumLikelihood
             double ll0 = likelihood.LogDensity([]);
             bool ok = double.IsFinite(ll0);
             return new MaximumLikelihoodResult([], ll0, posterior.LogDensity([]), ok,
-                ok ? "nothing to fit: every parameter is fixed" : "the likelihood is not finite at the fixed parameters", 1, 1, 1, new double[0, 0], [])
+                ok ? new ExitReason(ExitCause.NothingToFit, "nothing to fit: every parameter is fixed")
+                   : new ExitReason(ExitCause.LikelihoodNotFinite, "the likelihood is not finite at the fixed parameters"), 1, 1, 1, new double[0, 0], [])
             { Exit = OptimizerExit.Converged, ConditionNumber = 1 };
         }
         var post = posterior as ILogDensityWithGradient ?? new CentralDifferenceGradient(posterior, min, max);
@@ -128,20 +129,20 @@ public static class MaximumLikelihood
         bool optimiserOk = exit is OptimizerExit.Converged or OptimizerExit.NoFurtherProgress && double.IsFinite(ll);
         bool gradientOk = !covariance || (analysis?.Covariance is not null && gradSigma <= MaxGradientSigma);
         bool converged = optimiserOk && stable && gradientOk;
-        var words = new List<string>();
-        if (!double.IsFinite(ll)) words.Add("the likelihood is not finite anywhere the search went (check the data against the model)");
-        else if (!optimiserOk) words.Add($"L-BFGS-B stopped without meeting its tolerance ({Words(exit)})");
-        else if (!stable) words.Add("a restart from the best point kept improving the maximum (a ridge or a very flat likelihood)");
+        var failures = new List<(ExitCause Cause, string Words)>();
+        if (!double.IsFinite(ll)) failures.Add((ExitCause.LikelihoodNotFinite, "the likelihood is not finite anywhere the search went (check the data against the model)"));
+        else if (!optimiserOk) failures.Add((ExitCause.OptimiserStopped, $"L-BFGS-B stopped without meeting its tolerance ({Words(exit)})"));
+        else if (!stable) failures.Add((ExitCause.RestartImproved, "a restart from the best point kept improving the maximum (a ridge or a very flat likelihood)"));
         if (double.IsFinite(ll) && covariance && analysis?.Covariance is null)
-            words.Add(analysis?.Degeneracy ?? "the curvature matrix is not positive definite");
+            failures.Add((ExitCause.CurvatureNotDefinite, analysis?.Degeneracy ?? "the curvature matrix is not positive definite"));
         else if (double.IsFinite(ll) && covariance && gradSigma > MaxGradientSigma)
-            words.Add(FormattableString.Invariant($"the gradient at the maximum is still {gradSigma:g2} standard deviations long"));
+            failures.Add((ExitCause.GradientRemaining, FormattableString.Invariant($"the gradient at the maximum is still {gradSigma:g2} standard deviations long")));
         var bounds = Enumerable.Range(0, d).Where(j => atBound[j]).Select(j => free[j].Name).ToArray();
-        string summary = converged
-            ? FormattableString.Invariant($"converged: L-BFGS-B ({Words(exit)}), ") + (covariance ? "a restart did not improve it, " : "") + FormattableString.Invariant($"{agreeing} of {starts.Count} starts agree")
-              + (covariance ? FormattableString.Invariant($", remaining gradient {gradSigma:g2} σ, Hessian negative definite (Cholesky; condition number {analysis!.ConditionNumber:g3})") : "")
-            : "not converged: " + string.Join("; ", words);
-        if (bounds.Length > 0) summary += $"; at a bound: {string.Join(", ", bounds)} (its interval is one-sided)";
+        var summary = converged
+            ? new ExitReason(ExitCause.Converged, FormattableString.Invariant($"converged: L-BFGS-B ({Words(exit)}), ") + (covariance ? "a restart did not improve it, " : "") + FormattableString.Invariant($"{agreeing} of {starts.Count} starts agree")
+              + (covariance ? FormattableString.Invariant($", remaining gradient {gradSigma:g2} σ, Hessian negative definite (Cholesky; condition number {analysis!.ConditionNumber:g3})") : ""))
+            : new ExitReason(failures[0].Cause, ["not converged: " + failures[0].Words, .. failures.Skip(1).Select(f => f.Words)]);
+        if (bounds.Length > 0) summary = summary.And($"at a bound: {string.Join(", ", bounds)} (its interval is one-sided)");
         return new MaximumLikelihoodResult(theta, ll, lp, converged, summary, evals, agreeing, starts.Count, analysis?.Covariance, atBound)
         {
             Exit = exit,

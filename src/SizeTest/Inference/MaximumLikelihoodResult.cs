@@ -7,14 +7,14 @@ namespace SizeTest.Inference;
 /// <param name="Converged">Whether the search converged: the optimiser met its tolerance, a restart from the best
 /// point did not improve it, the Hessian of the free (interior) parameters is negative definite (Cholesky) and the remaining
 /// gradient is below 0.01 standard deviations.</param>
-/// <param name="ExitReason">Why it stopped, in words.</param>
+/// <param name="ExitReason">Why it stopped: the deciding cause and the sentence.</param>
 /// <param name="Evaluations">Likelihood evaluations used.</param>
 /// <param name="StartsAgreeing">How many of the starts reached the best maximum (within the agreement tolerance).</param>
 /// <param name="Starts">Number of starts.</param>
 /// <param name="Covariance">Covariance from the inverse negative Hessian (null when it is not positive definite).</param>
 /// <param name="AtBound">For each free parameter, whether the maximum lies on (within 1e-6 of the range of) a bound.</param>
 public sealed record MaximumLikelihoodResult(
-    double[] Theta, double LogLikelihood, double LogPosterior, bool Converged, string ExitReason, int Evaluations,
+    double[] Theta, double LogLikelihood, double LogPosterior, bool Converged, ExitReason ExitReason, int Evaluations,
     int StartsAgreeing, int Starts, double[,]? Covariance, bool[] AtBound)
 {
     /// <summary>Why the optimiser stopped (typed).</summary>

@@ -97,7 +97,7 @@ public static class ModeSearch
         if (!ReferenceEquals(best, fit))
         {
             string found = $"global maximum reached from a profile peak of {string.Join(", ", scanned)} (the multi-start fit had stopped {Objective(h, best) - Objective(h, fit):0.###} lower in ln L)";
-            best = best with { ExitReason = best.ExitReason + "; " + found };
+            best = best with { ExitReason = best.ExitReason.And(found) };
         }
         double topObjective = Objective(h, best);
         var modes = distinct.Select((d, i) => i == 0 ? best : d).Where(d => Objective(h, d) >= topObjective - ModeWindow).ToArray();

@@ -37,8 +37,8 @@ public sealed record ModelFitSummary
     public double? LogEvidenceError { get; init; }
     /// <summary>Whether the fit converged (optimiser and, if run, sampler diagnostics).</summary>
     public required bool Converged { get; init; }
-    /// <summary>Why the fit stopped or failed, in words.</summary>
-    public string ExitReason { get; init; } = "";
+    /// <summary>Why the fit stopped or failed (written to results.json as its sentence).</summary>
+    public ExitReason ExitReason { get; init; } = ExitReason.None;
     /// <summary>Rank by BIC (1 = best). Models whose criteria agree within <see cref="ModelComparison.TieTolerance"/>
     /// share a rank (0 before ranking).</summary>
     public int Rank { get; init; }

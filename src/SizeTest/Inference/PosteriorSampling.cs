@@ -4,12 +4,12 @@ namespace SizeTest.Inference;
 
 /// <summary>Posterior samples kept for writing (not part of results.json).</summary>
 /// <param name="Model">Model name.</param>
-/// <param name="Sampler"><c>mcmc</c> or <c>nested</c>.</param>
+/// <param name="Sampler">The sampler that drew them (<see cref="SamplerKind.Mcmc"/> or <see cref="SamplerKind.Nested"/>).</param>
 /// <param name="ParameterNames">Free-parameter names, in column order.</param>
 /// <param name="Rows">Nested sampling: the weighted samples (θ…, ln L, ln weight); MCMC: the kept draws after the burn-in
 /// (θ…, ln posterior), every walker at every step, thinned by a whole stride to at most <see cref="PosteriorSampling.MaxKeptDraws"/>
 /// rows — the draws the corner plot shows (the full chain goes to the chain store).</param>
-public sealed record PosteriorDraws(string Model, string Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows)
+public sealed record PosteriorDraws(string Model, SamplerKind Sampler, IReadOnlyList<string> ParameterNames, IReadOnlyList<double[]> Rows)
 {
     /// <summary>MCMC: the run's length, burn-in and convergence numbers; null for nested sampling.</summary>
     public ChainSummary? Chain { get; init; }
@@ -129,7 +129,7 @@ public static class PosteriorSampling
                 diag.Parameters.Count == 0 ? double.NaN : diag.Parameters.Max(p => p.SplitRhat),
                 diag.Parameters.Count == 0 ? double.NaN : diag.Parameters.Min(p => p.MinEss),
                 run.AcceptanceFraction);
-            samples = new PosteriorDraws(label, "mcmc", names, KeptDraws(run)) { Chain = chain };
+            samples = new PosteriorDraws(label, SamplerKind.Mcmc, names, KeptDraws(run)) { Chain = chain };
         }
         else if (request.Sampler == SamplerKind.Nested)
         {
@@ -148,7 +148,7 @@ public static class PosteriorSampling
             verdict = $"nested sampling ({request.LivePoints} live points): {(ev.Converged ? "converged" : "not converged")} ({ev.ExitReason})";
             lnZ = ev.LogEvidence;
             lnZErr = ev.LogEvidenceError;
-            samples = new PosteriorDraws(label, "nested", names,
+            samples = new PosteriorDraws(label, SamplerKind.Nested, names,
                 ev.WeightedDraws.Select(w => w.Theta.Concat([w.LogLikelihood, w.LogWeight]).ToArray()).ToArray());
         }
         else throw new ArgumentException($"sampler {request.Sampler} is not run here");
@@ -162,7 +162,7 @@ public static class PosteriorSampling
         {
             Parameters = parameters,
             Converged = summary.Converged && converged,
-            ExitReason = summary.ExitReason + "; " + verdict,
+            ExitReason = summary.ExitReason.And(converged ? ExitCause.Converged : ExitCause.SamplerNotConverged, verdict),
             LogEvidence = lnZ,
             LogEvidenceError = lnZErr,
         }, samples);

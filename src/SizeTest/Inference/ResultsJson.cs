@@ -24,6 +24,10 @@ public static class ResultsJson
         };
         o.Converters.Add(new FiniteDoubleConverter());
         o.Converters.Add(new ParameterListConverter());
+        // ObservableKind, SamplerKind and ExitReason name their own converters (one spelling in every JSON file);
+        // these go first so that the generic enum converter below does not take them.
+        o.Converters.Add(new ObservableKinds.JsonConverter());
+        o.Converters.Add(new SamplerKinds.JsonConverter());
         o.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower));
         o.MakeReadOnly(populateMissingResolver: true);
         return o;

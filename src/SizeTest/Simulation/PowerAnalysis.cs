@@ -96,7 +96,7 @@ public static class PowerAnalysis
             TrueNuisance = truth,
             Candidates = request.Candidates.Select(c => c.Label).ToArray(),
             TrueCandidate = trueName,
-            Observable = first.Observable switch { ObservableKind.Size => "size", ObservableKind.SurfaceBrightness => "sb", _ => "joint" },
+            Observable = first.Observable,
             Kind = request.Template.Design.Kind == MockObjectKind.Galaxy ? "galaxy" : "radio",
             ZDist = request.Template.Design.Redshifts.Text,
             Seed = request.Template.Seed,

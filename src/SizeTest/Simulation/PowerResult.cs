@@ -59,8 +59,8 @@ public sealed record PowerResult
     public required IReadOnlyList<string> Candidates { get; init; }
     /// <summary>The candidate matching the truth.</summary>
     public required string TrueCandidate { get; init; }
-    /// <summary>Observable fitted (<c>size</c>, <c>sb</c>, <c>joint</c>).</summary>
-    public required string Observable { get; init; }
+    /// <summary>Observable fitted (written <c>size</c>, <c>sb</c>, <c>joint</c>).</summary>
+    public required Inference.ObservableKind Observable { get; init; }
     /// <summary>Kind of object simulated.</summary>
     public required string Kind { get; init; }
     /// <summary>The redshift distribution.</summary>

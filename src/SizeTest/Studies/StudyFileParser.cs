@@ -112,14 +112,9 @@ public static class StudyFileParser
             if (names.Take(i).Contains(n)) throw (namesNode.Items?[i] ?? namesNode).Error($"world model '{n}' is listed twice");
         }
         var obsNode = modelsNode.Get("observable");
-        var observable = obsNode?.Scalar switch
-        {
-            null => ObservableKind.Size,
-            "size" => ObservableKind.Size,
-            "sb" => ObservableKind.SurfaceBrightness,
-            "joint" => ObservableKind.Joint,
-            _ => throw obsNode!.Error("'models.observable' must be \"size\", \"sb\" or \"joint\""),
-        };
+        var observable = ObservableKind.Size;
+        if (obsNode is not null && !(obsNode.Scalar is string obsText && ObservableKinds.TryParse(obsText, out observable)))
+            throw obsNode.Error("'models.observable' must be \"size\", \"sb\" or \"joint\"");
 
         // [selection]
         var selection = SelectionLimits.None;

@@ -31,7 +31,7 @@ public static class StudyOutputFiles
         Text("results.json", ResultsJson.Serialize(result));
         Text("results.csv", StudyResultsCsv.Write(result));
         Text("rejects.csv", rejectCsv);
-        foreach (var draws in result.Samples.Where(x => x.Sampler == "nested" && x.Rows.Count > 0))
+        foreach (var draws in result.Samples.Where(x => x.Sampler == SamplerKind.Nested && x.Rows.Count > 0))
             Text($"samples_{draws.Model}.csv", SamplesCsv(draws));
         foreach (var p in result.Profiles)
             Text($"profile_{p.Model}_{p.Parameter}.csv", ProfileCsv(p));

@@ -82,7 +82,7 @@ public static class StudyRunner
                 hypotheses = survey.Hypotheses;
                 foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + note);
             }
-            options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.ToString().ToLowerInvariant()} observable)");
+            options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.Name()} observable)");
             var observables = selected.Observables;
             int folds = study.CrossValidationFolds > observables.Count ? 0 : study.CrossValidationFolds;
             var result = FitRun.Run(new FitRequest
@@ -169,7 +169,7 @@ public static class StudyRunner
     // The kept MCMC draws of one model (θ columns of PosteriorDraws.Rows), as the report's corner plot takes them.
     internal static CornerDraws? Plotted(FitResult result, string model, IReadOnlyList<Hypothesis> hypotheses)
     {
-        var draws = result.Samples.FirstOrDefault(x => x.Model == model && x.Sampler == "mcmc");
+        var draws = result.Samples.FirstOrDefault(x => x.Model == model && x.Sampler == SamplerKind.Mcmc);
         var h = hypotheses.FirstOrDefault(x => x.Label == model);
         if (draws is null || h is null || draws.Rows.Count == 0) return null;
         int d = draws.ParameterNames.Count;

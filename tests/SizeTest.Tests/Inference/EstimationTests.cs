@@ -19,7 +19,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 2000, truth, seed: 21);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size)).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var s = FitSummaries.From(lik, fit);
         foreach (var (name, t) in new[] { ("r0_kpc", truth.R0Kpc), ("size_evolution", truth.SizeEvolution), ("scatter_dex", truth.ScatterDex) })
         {
@@ -39,7 +39,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         var obs = MockCatalogue.Draw(TestWorldModels.Eds.Create(Defaults), 3000, truth, seed: 8);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint, SizeSbRelation: true)).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var s = FitSummaries.From(lik, fit);
         foreach (var (name, t) in new[] { ("sb_evolution", 1.2), ("kormendy_slope", 3.0), ("size_evolution", -1.0), ("mu0", 21.0) })
         {
@@ -99,7 +99,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         {
             var lik = Hypothesis.Create(TestWorldModels.Eds, nm).Bind(obs);
             var f = MaximumLikelihood.Fit(lik);
-            Assert.True(f.Converged, f.ExitReason);
+            Assert.True(f.Converged, f.ExitReason.Text);
             return FitSummaries.From(lik, f).Parameters.Single(p => p.Name == "size_evolution").Value;
         }
         double naive = Fit(new NuisanceModel(ObservableKind.Size));
@@ -119,7 +119,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         {
             var lik = Hypothesis.Create(TestWorldModels.Eds, nm).Bind(obs);
             var f = MaximumLikelihood.Fit(lik);
-            Assert.True(f.Converged, f.ExitReason);
+            Assert.True(f.Converged, f.ExitReason.Text);
             return FitSummaries.From(lik, f).Parameters.Single(p => p.Name == "sb_evolution").Value;
         }
         double naive = Fit(new NuisanceModel(ObservableKind.SurfaceBrightness));
@@ -138,7 +138,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
             keep: (z, lnTheta, mu) => lnTheta > lnMin && mu < sbLim);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint, new SelectionLimits(SbLimit: sbLim, MinThetaArcsec: thetaMin), SizeSbRelation: true)).Bind(obs);
         var f = MaximumLikelihood.Fit(lik);
-        Assert.True(f.Converged, f.ExitReason);
+        Assert.True(f.Converged, f.ExitReason.Text);
         var s = FitSummaries.From(lik, f);
         foreach (var (name, t) in new[] { ("size_evolution", -1.0), ("sb_evolution", 1.0), ("kormendy_slope", 2.5) })
         {
@@ -159,7 +159,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
         {
             var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint, cuts, SizeSbRelation: true)).Bind(obs);
             var f = MaximumLikelihood.Fit(lik);
-            Assert.True(f.Converged, f.ExitReason);
+            Assert.True(f.Converged, f.ExitReason.Text);
             return (f.Theta[1], f.StandardError(1));
         }
         var (naive, _) = Fit(SelectionLimits.None);
@@ -178,7 +178,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
             new ParameterOverrides(Free: new HashSet<string> { "omega_m" }, Fixed: new Dictionary<string, double> { ["size_evolution"] = 0 }));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var om = Est(FitSummaries.From(lik, fit), "omega_m");
         Assert.InRange(0.3, om.Value - 3 * (om.Hi - om.Lo) / 2, om.Value + 3 * (om.Hi - om.Lo) / 2);
     }
@@ -192,7 +192,7 @@ public sealed class EstimationTests(Xunit.Abstractions.ITestOutputHelper output)
             new ParameterOverrides(Priors: new Dictionary<string, (double, double)> { ["h0"] = (68, 2) }));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var h0 = Est(FitSummaries.From(lik, fit), "h0");
         Assert.InRange(h0.Value, 66, 70);          // the data are flat in h0 at fixed R0·H0: the prior decides (derived)
         Assert.InRange((h0.Hi - h0.Lo) / 2, 1.5, 2.5); // posterior σ ≈ prior σ = 2

@@ -56,7 +56,7 @@ public sealed class IsophotalLikelihoodTests
         var mock = Draw(3000, seed: 11);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint)).Bind(mock.Isophotal);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var s = FitSummaries.From(lik, fit);
         foreach (var (name, t) in new[] { ("size_evolution", A), ("r0_kpc", R0), ("sb_evolution", B), ("mu0", Mu0), ("scatter_dex", ScatterDex) })
         {
@@ -72,7 +72,7 @@ public sealed class IsophotalLikelihoodTests
         var mock = Draw(3000, seed: 12);
         var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size)).Bind(mock.AsEffective);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         var a = Est(FitSummaries.From(lik, fit), "size_evolution");
         double sigma = (a.Hi - a.Lo) / 2;
         // Expected bias (derived): with uniform errors and D_A fixed the size fit is least squares of ln θ on ln(1+z), so the

@@ -84,7 +84,7 @@ public sealed class OptimiserAndHessianTests(ITestOutputHelper output)
         var obs = MockCatalogue.Draw(model, 2000, new MockCatalogue.Truth(), seed: 4);
         var lik = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "h0" })).Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        output.WriteLine(fit.ExitReason);
+        output.WriteLine(fit.ExitReason.Text);
         Assert.False(fit.Converged);
         Assert.NotNull(fit.Degeneracy);
         Assert.Contains("r0_kpc", fit.Degeneracy);
@@ -126,8 +126,8 @@ public sealed class OptimiserAndHessianTests(ITestOutputHelper output)
         var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size), new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        output.WriteLine(fit.ExitReason);
-        Assert.True(fit.Converged, fit.ExitReason);
+        output.WriteLine(fit.ExitReason.Text);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         int iom = h.FreeParameters.ToList().FindIndex(p => p.Name == "omega_m");
         double best = fit.Theta[iom], se = fit.StandardError(iom);
         Assert.True(double.IsFinite(se) && se > 0);

@@ -48,7 +48,7 @@ public sealed class RealDataTests(Xunit.Abstractions.ITestOutputHelper output)
             var lnTheta = bins.Select(b => Math.Log(b.ThetaArcsec / 206264.80624709636)).ToArray(); // arcsec → rad
             var lik = Hypothesis.Create(family, new NuisanceModel(ObservableKind.Size)).Bind(new Observables(z, lnTheta, new double[z.Length]));
             var fit = MaximumLikelihood.Fit(lik);
-            Assert.True(fit.Converged, fit.ExitReason);
+            Assert.True(fit.Converged, fit.ExitReason.Text);
             var p = FitSummaries.From(lik, fit).Parameters.ToDictionary(q => q.Name, q => q.Value);
             output.WriteLine($"log L_V = {logL}: size_evolution {p["size_evolution"]:0.000000} (reference {want.A:0.000000}), r0_kpc {p["r0_kpc"]:0.0000}, scatter_dex {p["scatter_dex"]:0.000000}");
             // Reference: numpy 1.24.2 lstsq / scipy 1.10.1 least_squares on astropy 5.2.1 angles (van_der_wel_slopes.py).

@@ -115,7 +115,7 @@ internal static class SyntheticReport
     private static ModelReport Model(string name, int k, double lnL, int n, IReadOnlyList<ParameterEstimate> ps)
     {
         double aic = 2 * k - 2 * lnL, bic = k * Math.Log(n) - 2 * lnL, aicc = aic + 2.0 * k * (k + 1) / (n - k - 1);
-        return new ModelReport(new ModelFitSummary { Name = name, Parameters = ps, LogLikelihood = lnL, K = k, N = n, Aic = aic, Aicc = aicc, Bic = bic, Converged = true, ExitReason = "gradient below tolerance" });
+        return new ModelReport(new ModelFitSummary { Name = name, Parameters = ps, LogLikelihood = lnL, K = k, N = n, Aic = aic, Aicc = aicc, Bic = bic, Converged = true, ExitReason = new ExitReason(ExitCause.Converged, "gradient below tolerance") });
     }
 
     private static List<ModelReport> WithComparison(List<ModelReport> models)

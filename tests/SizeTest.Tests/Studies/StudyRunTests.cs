@@ -149,8 +149,8 @@ public sealed class StudyRunTests
         // Every model sampled once, to convergence (the rules of ConvergenceCriteria: ≥ 50 τ, R̂ ≤ 1.01, ESS ≥ 400).
         Assert.Equal(results.Models.Select(m => m.Name).Order(), results.Chains.Select(c => c.Model).Order());
         var chain = results.Chains.Single(c => c.Model == best.Name);
-        Assert.True(chain.Auto && chain.Converged, best.ExitReason);
-        Assert.True(chain.LengthInTau >= 50 && chain.MaxRhat <= 1.01 && chain.MinEss >= 400, best.ExitReason);
+        Assert.True(chain.Auto && chain.Converged, best.ExitReason.Text);
+        Assert.True(chain.LengthInTau >= 50 && chain.MaxRhat <= 1.01 && chain.MinEss >= 400, best.ExitReason.Text);
         Assert.Equal(chain.Steps / 4, chain.BurnIn); // the stated burn-in rule: the first quarter
 
         // The plotted draws are draws of the chain written to chains_MODEL.csv after its burn-in, the chain whose
@@ -201,7 +201,7 @@ public sealed class StudyRunTests
         var power = new SizeTest.Simulation.PowerResult
         {
             TrueModel = "lcdm", TrueModelParameters = new Dictionary<string, double>(), TrueNuisance = new Dictionary<string, double>(),
-            Candidates = ["lcdm", "tired-light"], TrueCandidate = "lcdm", Observable = "size", Kind = "galaxy", ZDist = "uniform:0.1:2.5",
+            Candidates = ["lcdm", "tired-light"], TrueCandidate = "lcdm", Observable = SizeTest.Inference.ObservableKind.Size, Kind = "galaxy", ZDist = "uniform:0.1:2.5",
             Seed = 1, Mocks = 10, TargetPower = 0.8, Conclusion = "test", Outcomes = [],
             Points =
             [

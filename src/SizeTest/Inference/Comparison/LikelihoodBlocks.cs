@@ -16,20 +16,20 @@ public static class LikelihoodBlocks
     {
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Settings;
-        if (s.Observable == "size" || result.Models.Count == 0) return false;
+        if (s.Observable == ObservableKind.Size || result.Models.Count == 0) return false;
         bool everyBFree = result.Models.All(m => m.Parameters.Any(p => p.Name == "sb_evolution" && !p.Fixed));
-        return everyBFree && (s.Observable == "sb" || !s.SizeSbRelation);
+        return everyBFree && (s.Observable == ObservableKind.SurfaceBrightness || !s.SizeSbRelation);
     }
 
     /// <summary>True when nothing in the likelihood can separate the models (surface brightness alone, blind).</summary>
     public static bool NothingDiscriminates(FitResult result) =>
-        result.Settings.Observable == "sb" && SurfaceBrightnessIsBlind(result);
+        result.Settings.Observable == ObservableKind.SurfaceBrightness && SurfaceBrightnessIsBlind(result);
 
     /// <summary>The sentence that says which block decides, or null when every fitted block can discriminate.</summary>
     public static string? Note(FitResult result)
     {
         if (!SurfaceBrightnessIsBlind(result)) return null;
-        return result.Settings.Observable == "sb"
+        return result.Settings.Observable == ObservableKind.SurfaceBrightness
             ? "Surface brightness cannot separate the models while sb_evolution is free (it constrains only n − b), so the data cannot decide; fix or bound sb_evolution, or fit sizes too."
             : "Surface brightness cannot separate the models while sb_evolution is free and μ is not linked to size, so the ranking comes from sizes alone.";
     }

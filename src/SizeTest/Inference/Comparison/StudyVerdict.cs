@@ -72,7 +72,7 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
         var failed = new[] { best, second }.Where(m => !m.Converged).ToList();
         if (failed.Count > 0)
             return new StudyVerdict(best.Name, false, strength,
-                $"The fit of {Join(failed.Select(L).ToList())} did not converge ({string.Join("; ", failed.Select(f => f.ExitReason).Where(r => r.Length > 0).DefaultIfEmpty("no reason given"))}), so the ranking of {L(best)} over {L(second)} ({gap}) cannot be trusted.");
+                $"The fit of {Join(failed.Select(L).ToList())} did not converge ({string.Join("; ", failed.Select(f => f.ExitReason.Text).Where(r => r.Length > 0).DefaultIfEmpty("no reason given"))}), so the ranking of {L(best)} over {L(second)} ({gap}) cannot be trusted.");
 
         if (modes.Count > 0)
         {

@@ -25,7 +25,7 @@ public sealed partial class EvolutionTestTableTests
     private static FitResult DemoLike() => new()
     {
         Source = "hand-made", RowsRead = 1000, Accepted = 1000, Rejected = 0, Seed = 1,
-        Settings = new FitSettings("joint", new SelectionLimits(), false, 5, 0, 0, 1, 0, 0, "none", 0, 0, 0, null, [new ExpectedRange("size_evolution", -1.5, -0.7)], 1),
+        Settings = new FitSettings(ObservableKind.Joint, new SelectionLimits(), false, 5, 0, 0, 1, 0, 0, SamplerKind.None, 0, 0, 0, null, [new ExpectedRange("size_evolution", -1.5, -0.7)], 1),
         Models = ModelComparison.Rank([
             Model("lcdm", -1.018, -1.052, -0.985, 1.041, 1.018, 1.064),
             Model("tired-light", -0.064, -0.098, -0.030, -1.959, -1.982, -1.936),

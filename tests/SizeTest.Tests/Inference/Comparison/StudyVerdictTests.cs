@@ -72,13 +72,13 @@ public sealed class StudyVerdictTests
         Parameters = [new ParameterEstimate("size_evolution", -1, -1.1, -0.9, false), new ParameterEstimate("sb_evolution", 1, 0.9, 1.1, !sbFree)],
         LogLikelihood = lnL, K = k, N = n,
         Aic = 2 * k - 2 * lnL, Aicc = 2 * k - 2 * lnL, Bic = k * Math.Log(n) - 2 * lnL,
-        Converged = converged, ExitReason = converged ? "" : "iteration limit",
+        Converged = converged, ExitReason = converged ? ExitReason.None : new ExitReason(ExitCause.OptimiserStopped, "iteration limit"),
     };
 
     private static FitResult Result(string observable, bool relation, params ModelFitSummary[] models) => new()
     {
         Source = "hand-made", RowsRead = 100, Accepted = 100, Rejected = 0, Seed = 1,
-        Settings = new FitSettings(observable, new SelectionLimits(), relation, 5, 0, 0, 1, 0, 0, "none", 0, 0, 0, null, [], 1),
+        Settings = new FitSettings(ObservableKinds.Parse(observable), new SelectionLimits(), relation, 5, 0, 0, 1, 0, 0, SamplerKind.None, 0, 0, 0, null, [], 1),
         Models = ModelComparison.Rank(models),
     };
 

@@ -25,7 +25,7 @@ internal static class SurveyFitting
         var h = Hypothesis.Create(family, new NuisanceModel(ObservableKind.Size, Survey: survey), overrides);
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         return (FitSummaries.From(lik, fit), lik);
     }
 
