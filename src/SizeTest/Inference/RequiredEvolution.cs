@@ -33,7 +33,7 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
     {
         ArgumentNullException.ThrowIfNull(estimate);
         var inv = System.Globalization.CultureInfo.InvariantCulture;
-        string what = estimate.Name == "size_evolution" ? "size evolution (1+z)^a" : "surface-brightness evolution b";
+        string what = estimate.Name == NuisanceParameters.Names.SizeEvolution ? "size evolution (1+z)^a" : "surface-brightness evolution b";
         if (estimate.Fixed)
             return new RequiredEvolution(model, estimate.Name, estimate.Value, estimate.Value, estimate.Value, true, false, null, null,
                 expected?.Lo, expected?.Hi, $"{model}: {what} held fixed at {estimate.Value.ToString("0.###", inv)}");

@@ -38,7 +38,7 @@ public sealed record EvolutionTestRow(string Model, string Parameter, double Val
     /// <summary>"size evolution" or "surface-brightness evolution".</summary>
     public string What => EvolutionTestTable.What(Parameter);
     /// <summary>"a" or "b".</summary>
-    public string Symbol => Parameter == "size_evolution" ? "a" : Parameter == "sb_evolution" ? "b" : Parameter;
+    public string Symbol => Parameter == NuisanceParameters.Names.SizeEvolution ? "a" : Parameter == NuisanceParameters.Names.SbEvolution ? "b" : Parameter;
     /// <summary>The estimate with its 68% interval at the PDG precision.</summary>
     public string ValueText => PdgRounding.ValueWithInterval(Value, Lo, Hi);
     /// <summary>Half-width of the 68% interval (mean of the two sides).</summary>
@@ -59,13 +59,13 @@ public static class EvolutionTestTable
     public const string LevelWords = "95% level";
 
     /// <summary>The evolution parameters the table covers.</summary>
-    public static IReadOnlyList<string> Parameters { get; } = ["size_evolution", "sb_evolution"];
+    public static IReadOnlyList<string> Parameters { get; } = [NuisanceParameters.Names.SizeEvolution, NuisanceParameters.Names.SbEvolution];
 
     /// <summary>The parameter in words.</summary>
     public static string What(string parameter) => parameter switch
     {
-        "size_evolution" => "size evolution",
-        "sb_evolution" => "surface-brightness evolution",
+        NuisanceParameters.Names.SizeEvolution => "size evolution",
+        NuisanceParameters.Names.SbEvolution => "surface-brightness evolution",
         _ => parameter,
     };
 
@@ -127,8 +127,8 @@ public static class EvolutionTestTable
         string range = $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]";
         string physical = row.Parameter switch
         {
-            "size_evolution" => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
-            "sb_evolution" => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",
+            NuisanceParameters.Names.SizeEvolution => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
+            NuisanceParameters.Names.SbEvolution => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",
             _ => e.ExpectedSign > 0 ? "expected > 0" : "expected < 0",
         };
         string v = $"{row.Symbol} = {row.ValueText}";
