@@ -107,16 +107,16 @@ internal static class FitCommand
                 var loadOptions = catalogOptions.ToLoadOptions(parse);
                 if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
                     loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
-                if (SizeTest.Distributed.RankContext.IsDistributed && surveyAsked)
-                    throw new InputException("the survey options (--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, --size-errors gaussian, --z-prior) do not run under mpirun yet; run fit on one machine");
+                if (SizeTest.Distributed.RankContext.IsDistributed && surveyRequest.NeedsWholeSample(parse.GetValue(surveyOptions.Group) is not null) is { Count: > 0 } whole)
+                    throw new InputException($"{string.Join(", ", whole)} do not run under mpirun (group labels, equal-count redshift bins and the luminosity window's counts need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
                 string? profileName = parse.GetValue(profile);
                 // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
-                Func<Observables, SurveyBinding> survey = obs => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
+                Func<Observables, RedshiftGridSpan?, SurveyBinding> survey = (obs, whole) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
                 {
                     CheckNames(overrides, expected, families, nm, profileName);
                     return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
-                });
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = SizeTest.Distributed.RankContext.IsDistributed ? null : survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
+                }, whole);
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
             {

@@ -24,8 +24,9 @@ internal sealed record FitArgs(
     public IReadOnlyList<string> Inputs { get; init; } = [];
     /// <summary>Largest fraction of objects outside the stated cuts (--max-outside-selection); see <see cref="SelectionConsistency"/>.</summary>
     public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
-    /// <summary>Survey terms: rebuilds the hypotheses for the loaded sample (group labels, redshift bins, z_err), or null.</summary>
-    public Func<Observables, SurveyBinding>? Survey { get; init; }
+    /// <summary>Survey terms: rebuilds the hypotheses for the loaded sample (group labels, redshift bins, z_err) — this process's
+    /// objects and, under MPI, the whole sample's redshift range — or null.</summary>
+    public Func<Observables, RedshiftGridSpan?, SurveyBinding>? Survey { get; init; }
 }
 
 
@@ -75,10 +76,21 @@ internal static class FitRunner
                 };
                 built = new PhotometryResult(ObservablesSubset.Take(built.Observables, keep), built.Corrections);
             }
-            var local = built.Observables;
+        });
+        if (code != 0)
+        {
+            folder?.Abandon();
+            return code;
+        }
+
+        // The whole sample's redshift range (every rank gets the same sums), for survey terms bound on a rank's share.
+        RedshiftGridSpan? wholeSample = ranks.Size > 1 ? WholeSampleSpan(ranks, built!.Observables) : null;
+        code = Agree(context, ranks, () =>
+        {
+            var local = built!.Observables;
             if (a.Survey is { } bindSurvey)
             {
-                survey = bindSurvey(local);
+                survey = bindSurvey(local, wholeSample);
                 a = a with { Hypotheses = survey.Hypotheses };
                 if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(w));
             }
@@ -185,6 +197,26 @@ internal static class FitRunner
             }
             return code;
         }
+    }
+
+    // Objects and redshift bounds of every rank in its own slots, summed over ranks (as EvaluationBackend does); null when empty.
+    private static RedshiftGridSpan? WholeSampleSpan(IRankReducer ranks, Observables local)
+    {
+        var mine = new double[3 * ranks.Size];
+        var all = new double[3 * ranks.Size];
+        mine[3 * ranks.Rank] = local.Count;
+        if (local.Count > 0) { mine[3 * ranks.Rank + 1] = local.Z.Min(); mine[3 * ranks.Rank + 2] = local.Z.Max(); }
+        ranks.SumAll(mine, all);
+        long n = 0;
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        for (int r = 0; r < ranks.Size; r++)
+        {
+            if (all[3 * r] == 0) continue;
+            n += (long)all[3 * r];
+            lo = Math.Min(lo, all[3 * r + 1]);
+            hi = Math.Max(hi, all[3 * r + 2]);
+        }
+        return n == 0 ? null : new RedshiftGridSpan(lo, hi, (int)Math.Min(n, int.MaxValue));
     }
 
     // Runs a step on every rank, then agrees on the outcome: when any rank failed, the lowest failing rank prints its

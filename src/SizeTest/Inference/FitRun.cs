@@ -8,7 +8,6 @@ namespace SizeTest.Inference;
 /// </summary>
 public static class FitRun
 {
-    private static readonly string[] EvolutionParameters = [NuisanceParameters.Names.SizeEvolution, NuisanceParameters.Names.SbEvolution];
 
     /// <summary>Runs the study. Physics only: no I/O; progress goes to <paramref name="progress"/>.</summary>
     public static FitResult Run(FitRequest request, IProgress<FitProgress>? progress = null, CancellationToken cancel = default)
@@ -67,7 +66,7 @@ public static class FitRun
             }
             summaries.Add(summary);
 
-            foreach (var name in EvolutionParameters)
+            foreach (var name in Comparison.EvolutionTestTable.EvolutionNames(summary.Parameters.Select(p => p.Name)).ToArray())
             {
                 var est = summary.Parameters.FirstOrDefault(p => p.Name == name);
                 if (est is null) continue;
@@ -82,7 +81,7 @@ public static class FitRun
                     lrt = LikelihoodRatioTest.Compute(h.Label, name, 0, fit.LogLikelihood, nfit.LogLikelihood, 1);
                     lrts.Add(lrt);
                 }
-                required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name)));
+                required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name || e.Parameter == Comparison.EvolutionTestTable.BaseName(name))));
             }
 
             request.Timings?.Mark($"evolution tests {h.Label}");
@@ -112,6 +111,8 @@ public static class FitRun
         var first = request.Hypotheses[0].Nuisance;
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
         notes.AddRange(extraNotes);
+        if (first.SurveyTerms.Groups is { Count: > 1 } groups)
+            notes.Add($"populations {string.Join(", ", groups)}: the required evolution is stated for each group (size_evolution@GROUP, each with its own likelihood-ratio test against 0); the model comparison (AIC, BIC, weights, Bayes factors) is one combined comparison over all groups, with the world model shared");
         if (ranked.Count > 1 && ranked[0].Tied)
             notes.Insert(0, $"models {string.Join(", ", ranked.Where(r => r.Rank == 1).Select(r => r.Name))} tie (AIC and BIC equal within {ModelComparison.TieTolerance}): none is ranked first");
         if (!backend.Concurrent)

@@ -48,8 +48,6 @@ public sealed record NuisanceModel(
             throw new ArgumentException("the size–surface-brightness relation needs --observable joint");
         if (!(PivotSizeKpc > 0)) throw new ArgumentException("the pivot size must be positive (kpc)");
         SurveyTerms.Validate(Observable);
-        if (SurveyTerms.IsActive && (s.MinThetaArcsec is not null))
-            throw new ArgumentException("--min-size cannot be combined with the survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors) yet; drop the cut or the survey options");
         if (GridNodes != 0 && GridNodes is < 16 or > 1024) throw new ArgumentException("the redshift grid needs 16 to 1024 nodes (or 0 for automatic)");
     }
 

@@ -28,18 +28,23 @@ public sealed record ExpectedRange(string Parameter, double Lo, double Hi);
 public sealed record RequiredEvolution(string Model, string Parameter, double Value, double Lo, double Hi, bool Fixed,
     bool ZeroExcluded, double? PValue, double? Sigma, double? ExpectedLo, double? ExpectedHi, string Verdict)
 {
+    /// <summary>The population of a per-group exponent (<c>size_evolution@early</c> → <c>early</c>; <c>--group</c>), or null for the whole sample.</summary>
+    public string? Group => Comparison.EvolutionTestTable.GroupOf(Parameter);
+
     /// <summary>Builds the statement from a fitted estimate, its LRT (if any) and an expected range (if any).</summary>
     public static RequiredEvolution Assess(string model, ParameterEstimate estimate, LikelihoodRatioTest? lrt, ExpectedRange? expected)
     {
         ArgumentNullException.ThrowIfNull(estimate);
         var inv = System.Globalization.CultureInfo.InvariantCulture;
-        string what = estimate.Name == NuisanceParameters.Names.SizeEvolution ? "size evolution (1+z)^a" : "surface-brightness evolution b";
+        string baseName = Comparison.EvolutionTestTable.BaseName(estimate.Name);
+        string what = (baseName == NuisanceParameters.Names.SizeEvolution ? "size evolution (1+z)^a" : "surface-brightness evolution b")
+                      + (Comparison.EvolutionTestTable.GroupOf(estimate.Name) is { } group ? $" of group {group}" : "");
         if (estimate.Fixed)
             return new RequiredEvolution(model, estimate.Name, estimate.Value, estimate.Value, estimate.Value, true, false, null, null,
                 expected?.Lo, expected?.Hi, $"{model}: {what} held fixed at {estimate.Value.ToString("0.###", inv)}");
         bool excluded = lrt is not null && lrt.PValue < Comparison.EvolutionTestTable.Alpha;
         // The same words as the report and the CLI (one statement per test, Comparison.EvolutionTestTable).
-        var exp = Comparison.EvolutionExpectation.InForce(expected is null ? [] : [expected]).FirstOrDefault(e => e.Parameter == estimate.Name);
+        var exp = Comparison.EvolutionExpectation.InForce(expected is null ? [] : [expected]).FirstOrDefault(e => e.Parameter == baseName);
         var row = new Comparison.EvolutionTestRow(model, estimate.Name, estimate.Value, estimate.Lo, estimate.Hi, lrt?.PValue,
             lrt is null ? Comparison.EvolutionNeed.NotTested : excluded ? Comparison.EvolutionNeed.Needed : Comparison.EvolutionNeed.NotNeeded,
             exp?.Judge(estimate.Value, estimate.Lo, estimate.Hi) ?? Comparison.Plausibility.NotJudged, exp);

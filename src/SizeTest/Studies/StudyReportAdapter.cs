@@ -85,12 +85,12 @@ public static class StudyReportAdapter
         return data.WithBins(study.Report.Bins, study.Report.BinResamples, study.Seed);
     }
 
-    private static string Describe(string parameter) => parameter switch
+    private static string Describe(string parameter) => (Inference.Comparison.EvolutionTestTable.BaseName(parameter) switch
     {
         NuisanceParameters.Names.SizeEvolution => "size evolution a, R ∝ (1+z)^a",
         NuisanceParameters.Names.SbEvolution => "surface-brightness evolution b, Δμ = −2.5 b log10(1+z)",
         _ => parameter,
-    };
+    }) + (Inference.Comparison.EvolutionTestTable.GroupOf(parameter) is { } g ? $", group {g}" : "");
 
     private static string Method(StudyDefinition s, FitResult result)
     {

@@ -116,6 +116,37 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void MinimumSizeTruncationRunsWithTheSurveyTermsAndTheNotesSayHow()
+    {
+        var mock = Simulate("--luminosity-function", "schechter:-21:-1.2:-24:-16", "--size-lum-slope", "0.3", "--photoz-err", "0.03", "--min-size", "0.4");
+        var (code, _, err, dir) = Fit(mock, "--size-luminosity", "--min-size", "0.4");
+        Assert.True(code == 0, err);
+        var json = File.ReadAllText(Path.Combine(dir, "results.json"));
+        using var doc = JsonDocument.Parse(json);
+        var notes = doc.RootElement.GetProperty("notes").EnumerateArray().Select(n => n.GetString()!).ToList();
+        Assert.Contains(notes, n => n.Contains("minimum size: each object's density is divided by P(θ_obs > 0.4″ | z)", StringComparison.Ordinal)
+                                    && n.Contains("at every redshift node of the photo-z integral", StringComparison.Ordinal));
+        // β = 0.3 injected; ±0.1 is loose for 800 objects (see MagnitudeLimitedSimulationFitsWithTheSizeLuminosityRelation).
+        Assert.InRange(Param(Model(json, "lcdm"), "size_luminosity_slope"), 0.2, 0.4);
+    }
+
+    [Theory]
+    [InlineData("sb")]
+    [InlineData("joint")]
+    public void SurveyTermsOutsideTheSizeObservableAreRefusedNotIgnored(string observable)
+    {
+        // The survey terms live in the size likelihood only: sb and joint fits refuse them with exit 2 and say why.
+        var mock = Simulate("--population", "early:0.5:3:-1.5", "--population", "late:0.5:6:-0.75");
+        foreach (var extra in new[] { new[] { "--group", "group" }, ["--evolution", "binned:3"], ["--size-errors", "gaussian"] })
+        {
+            var (code, _, err, dir) = Fit(mock, [.. extra, "--observable", observable]);
+            Assert.True(code == 2, $"{string.Join(" ", extra)}: exit {code}: {err}");
+            Assert.Contains("built for --observable size", err, StringComparison.Ordinal);
+            Assert.False(Directory.Exists(dir));
+        }
+    }
+
+    [Fact]
     public void SimulateRejectsInconsistentSurveyOptions()
     {
         string p = _t.PathOf("bad.csv");

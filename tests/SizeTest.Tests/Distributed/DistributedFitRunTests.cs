@@ -4,6 +4,7 @@ using SizeTest.Distributed;
 using SizeTest.Inference;
 using SizeTest.Inference.Evaluation;
 using SizeTest.Photometry;
+using SizeTest.Simulation;
 using Xunit;
 
 namespace SizeTest.Tests.Distributed;
@@ -64,6 +65,41 @@ public sealed class DistributedFitStudyTests : IDisposable
             // (rounding, ~1e-15 relative; 1e-12 allowed).
             Assert.True(Math.Abs(sum - expected) <= 1e-12 * Math.Abs(expected), $"{parts} parts: {sum:R} vs {expected:R}");
         }
+    }
+
+    [Fact]
+    public void SurveyTermsWithTheSharedGridAddUpToTheWholeLikelihood()
+    {
+        // Photo-z marginalisation (prior = the whole sample's range), the size–luminosity relation and a minimum size, free Ωm:
+        // per-object sums whose grid and prior come from the shared span, so any split adds up to the whole.
+        var mock = MockSurveyGenerator.Generate(new MockSurveySpec(new LambdaCdmModel(70, 0.3),
+            new SurveyDesign(2000, UniformZ(0.2, 2), MockObjectKind.Galaxy, new MeasurementErrors(0.05, PhotoZError: 0.04), new MockSelection(MinThetaArcsec: 0.3)),
+            5, null, null, new SurveyPopulation(new SchechterLuminosityFunction(), SizeLuminositySlope: 0.3)), parallel: false);
+        var obs = mock.ToObservables();
+        var sv = new SizeTest.Inference.Survey.SurveyModel(SizeTest.Inference.Survey.SizeRelationKind.Luminosity, MarginaliseRedshift: true);
+        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size, new SelectionLimits(MinThetaArcsec: 0.3), Survey: sv),
+            new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
+        var span = new RedshiftGridSpan(obs.Z.Min(), obs.Z.Max(), obs.Count);
+        var theta = h.Bind(obs).SuggestStart();
+        double expected = new HypothesisLikelihood(h, obs, span).LogDensity(theta);
+        Assert.True(double.IsFinite(expected));
+        foreach (int parts in new[] { 2, 5 })
+        {
+            double sum = 0;
+            for (int r = 0; r < parts; r++)
+            {
+                var (s, e) = RowPartition.RowRange(obs.Count, r, parts);
+                sum += new HypothesisLikelihood(h, ObservablesSubset.Take(obs, Enumerable.Range((int)s, (int)(e - s)).ToArray()), span).LogDensity(theta);
+            }
+            // Same grid nodes, quadrature nodes and prior: only the order of additions differs (1e-12 relative allowed).
+            Assert.True(Math.Abs(sum - expected) <= 1e-12 * Math.Abs(expected), $"{parts} parts: {sum:R} vs {expected:R}");
+        }
+    }
+
+    private static RedshiftDistribution UniformZ(double lo, double hi)
+    {
+        Assert.True(RedshiftDistribution.TryParse(FormattableString.Invariant($"uniform:{lo}:{hi}"), out var d, out var err), err);
+        return d!;
     }
 
     [Fact]

@@ -96,6 +96,41 @@ public sealed class MpiFitCommandTests : IDisposable
     }
 
     [MpiFact]
+    public void SurveyTermsOnTwoRanksGiveTheSingleProcessNumbers()
+    {
+        // Photometric-redshift marginalisation (z_err mapped), the size–luminosity relation and the --min-size truncation are sums
+        // over objects with a prior range from the whole sample: 2 ranks (one 1024-row chunk each) must match one process exactly.
+        string mock = Path.Combine(_dir, "survey.csv");
+        var (code, _, err) = CliRunner.Run(["simulate", "--n", "1500", "--seed", "9", "--out", mock, "--luminosity-function", "schechter:-21:-1.2:-24:-16",
+            "--size-lum-slope", "0.3", "--photoz-err", "0.03", "--min-size", "0.3"]);
+        Assert.True(code == 0, err);
+        string[] Args(string o) => ["fit", mock, "--models", "eds", "--size-luminosity", "--min-size", "0.3", "--cv-folds", "0", "--starts", "1", "--out", o];
+        string single = Path.Combine(_dir, "survey-single");
+        (code, _, err) = CliRunner.Run(Args(single));
+        Assert.True(code == 0, err);
+        string two = Path.Combine(_dir, "survey-np2");
+        var (exit, _, stderr) = MpiRunner.Run(2, Args(two));
+        Assert.True(exit == 0, stderr);
+        Assert.Equal(Numbers(single), Numbers(two));
+        // The notes state the whole sample's prior range, not rank 0's share.
+        var photoz = (JsonElement n) => n.GetString()!.Contains("photometric redshifts", StringComparison.Ordinal);
+        Assert.Equal(Results(single).GetProperty("notes").EnumerateArray().Single(photoz).GetString(),
+            Results(two).GetProperty("notes").EnumerateArray().Single(photoz).GetString());
+    }
+
+    [MpiFact]
+    public void SurveyTermsThatNeedTheWholeSampleAreRefusedUnderMpirun()
+    {
+        var csv = DistributedFitCatalogues.Csv(_dir, 500);
+        string output = Path.Combine(_dir, "groups");
+        var (exit, stdout, stderr) = MpiRunner.Run(2, "fit", csv, "--models", "eds", "--evolution", "binned:3", "--out", output);
+        Assert.Equal(2, exit);
+        Assert.Equal("", stdout.Trim());
+        Assert.Contains("--evolution binned do not run under mpirun", stderr, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(output));
+    }
+
+    [MpiFact]
     public void AMissingColumnStopsAllRanksWithOneMessage()
     {
         // Surface brightness needs a 'mu' column, which the catalogue lacks: checked before the fit on every rank.

@@ -38,7 +38,7 @@ public sealed record EvolutionTestRow(string Model, string Parameter, double Val
     /// <summary>"size evolution" or "surface-brightness evolution".</summary>
     public string What => EvolutionTestTable.What(Parameter);
     /// <summary>"a" or "b".</summary>
-    public string Symbol => Parameter == NuisanceParameters.Names.SizeEvolution ? "a" : Parameter == NuisanceParameters.Names.SbEvolution ? "b" : Parameter;
+    public string Symbol => EvolutionTestTable.Symbol(Parameter);
     /// <summary>The estimate with its 68% interval at the PDG precision.</summary>
     public string ValueText => PdgRounding.ValueWithInterval(Value, Lo, Hi);
     /// <summary>Half-width of the 68% interval (mean of the two sides).</summary>
@@ -61,13 +61,46 @@ public static class EvolutionTestTable
     /// <summary>The evolution parameters the table covers.</summary>
     public static IReadOnlyList<string> Parameters { get; } = [NuisanceParameters.Names.SizeEvolution, NuisanceParameters.Names.SbEvolution];
 
-    /// <summary>The parameter in words.</summary>
-    public static string What(string parameter) => parameter switch
+    /// <summary>The parameter in words ("size evolution", "size evolution of group early").</summary>
+    public static string What(string parameter)
     {
-        NuisanceParameters.Names.SizeEvolution => "size evolution",
-        NuisanceParameters.Names.SbEvolution => "surface-brightness evolution",
-        _ => parameter,
-    };
+        ArgumentNullException.ThrowIfNull(parameter);
+        string words = BaseName(parameter) switch
+        {
+            NuisanceParameters.Names.SizeEvolution => "size evolution",
+            NuisanceParameters.Names.SbEvolution => "surface-brightness evolution",
+            _ => BaseName(parameter),
+        };
+        return GroupOf(parameter) is { } g ? $"{words} of group {g}" : words;
+    }
+
+    /// <summary>The symbol: "a", "b", or for a population "a[early]".</summary>
+    public static string Symbol(string parameter)
+    {
+        ArgumentNullException.ThrowIfNull(parameter);
+        string b = BaseName(parameter) switch { NuisanceParameters.Names.SizeEvolution => "a", NuisanceParameters.Names.SbEvolution => "b", var other => other };
+        return GroupOf(parameter) is { } g ? $"{b}[{g}]" : b;
+    }
+
+    /// <summary>A parameter's name without its population suffix (<c>size_evolution@early</c> → <c>size_evolution</c>).</summary>
+    public static string BaseName(string parameter)
+    {
+        ArgumentNullException.ThrowIfNull(parameter);
+        int k = parameter.IndexOf('@', StringComparison.Ordinal);
+        return k < 0 ? parameter : parameter[..k];
+    }
+
+    /// <summary>The population of a <c>NAME@GROUP</c> parameter, or null.</summary>
+    public static string? GroupOf(string parameter)
+    {
+        ArgumentNullException.ThrowIfNull(parameter);
+        int k = parameter.IndexOf('@', StringComparison.Ordinal);
+        return k < 0 ? null : parameter[(k + 1)..];
+    }
+
+    /// <summary>The evolution parameters of a model's parameter list (each population's own, <c>NAME@GROUP</c>, included), in table order.</summary>
+    public static IEnumerable<string> EvolutionNames(IEnumerable<string> parameterNames) =>
+        parameterNames.Where(n => Parameters.Contains(BaseName(n))).OrderBy(n => Parameters.ToList().IndexOf(BaseName(n)));
 
     /// <summary>Rows for every free evolution parameter of every model, in the models' ranked order.</summary>
     public static IReadOnlyList<EvolutionTestRow> From(FitResult result)
@@ -76,13 +109,13 @@ public static class EvolutionTestTable
         var expectations = EvolutionExpectation.InForce(result.Settings.Expected);
         var rows = new List<EvolutionTestRow>();
         foreach (var m in result.Models)
-            foreach (var name in Parameters)
+            foreach (var name in EvolutionNames(m.Parameters.Select(p => p.Name)))
             {
                 var est = m.Parameters.FirstOrDefault(p => p.Name == name);
                 if (est is null || est.Fixed) continue;
                 var lrt = result.LikelihoodRatioTests.FirstOrDefault(t => t.Model == m.Name && t.Parameter == name && t.NullValue == 0);
                 var need = lrt is null ? EvolutionNeed.NotTested : lrt.PValue < Alpha ? EvolutionNeed.Needed : EvolutionNeed.NotNeeded;
-                var exp = expectations.FirstOrDefault(e => e.Parameter == name);
+                var exp = expectations.FirstOrDefault(e => e.Parameter == BaseName(name));
                 rows.Add(new EvolutionTestRow(m.Name, name, est.Value, est.Lo, est.Hi, lrt?.PValue, need,
                     exp?.Judge(est.Value, est.Lo, est.Hi) ?? Plausibility.NotJudged, exp));
             }
@@ -125,7 +158,7 @@ public static class EvolutionTestTable
         ArgumentNullException.ThrowIfNull(row);
         if (row.Expectation is not { } e) return null;
         string range = $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]";
-        string physical = row.Parameter switch
+        string physical = BaseName(row.Parameter) switch
         {
             NuisanceParameters.Names.SizeEvolution => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
             NuisanceParameters.Names.SbEvolution => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",

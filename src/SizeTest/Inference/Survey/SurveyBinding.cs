@@ -23,8 +23,11 @@ public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOn
     /// <param name="plain">The hypotheses without survey terms (returned when nothing is active).</param>
     /// <param name="rebuild">Builds one hypothesis per world model for a nuisance model with survey terms (the caller
     /// applies its own parameter settings and checks their names).</param>
+    /// <param name="wholeSample">When <paramref name="observables"/> are one rank's share, the whole sample's redshift range
+    /// (the default photo-z prior the notes state); null: these objects are the sample. A share may be empty: the hypotheses
+    /// are rebuilt alike on every rank.</param>
     public static SurveyBinding Bind(SurveyRequest request, bool asked, Observables observables, NuisanceModel nuisance,
-        IReadOnlyList<Hypothesis> plain, Func<NuisanceModel, IReadOnlyList<Hypothesis>> rebuild)
+        IReadOnlyList<Hypothesis> plain, Func<NuisanceModel, IReadOnlyList<Hypothesis>> rebuild, RedshiftGridSpan? wholeSample = null)
     {
         ArgumentNullException.ThrowIfNull(request);
         ArgumentNullException.ThrowIfNull(observables);
@@ -33,14 +36,15 @@ public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOn
         var notes = new List<string>();
         var model = request.Build(observables, nuisance.Observable, notes);
         var hypotheses = plain;
-        if ((model.IsActive || asked) && observables.Count > 0)
+        if ((model.IsActive || asked) && (observables.Count > 0 || wholeSample is not null))
         {
             var withSurvey = nuisance with { Survey = model };
             withSurvey.Validate();
             hypotheses = rebuild(withSurvey);
-            foreach (var h in hypotheses)
-                foreach (var note in h.Bind(observables).SurveyNotes)
-                    if (!notes.Contains(note)) notes.Add(note);
+            if (observables.Count > 0)
+                foreach (var h in hypotheses)
+                    foreach (var note in new HypothesisLikelihood(h, observables, wholeSample).SurveyNotes)
+                        if (!notes.Contains(note)) notes.Add(note);
         }
         string? warning = nuisance.Observable != ObservableKind.SurfaceBrightness ? SizeErrorCheck.LargeErrorWarning(observables, model.SizeErrors) : null;
         if (warning is not null) notes.Add("warning: " + warning);

@@ -55,6 +55,14 @@ public sealed record SurveyRequest(
     /// <summary>Nothing asked.</summary>
     public static SurveyRequest None { get; } = new();
 
+    /// <summary>
+    /// What of this request cannot run with the sample split over MPI ranks (group labels, equal-count bin edges and the
+    /// luminosity window's counts need the whole sample in one process), as option names; empty when all of it can.
+    /// </summary>
+    public IReadOnlyList<string> NeedsWholeSample(bool groupColumn) =>
+        [.. (Groups || groupColumn ? new[] { "--group" } : []), .. (EvolutionBins is not null ? new[] { "--evolution binned" } : []),
+         .. (AbsMagMin is not null || AbsMagMax is not null ? new[] { "--abs-mag-range" } : [])];
+
     /// <summary>Whether the photometry stage must prepare luminosities or masses.</summary>
     public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;
 
@@ -68,7 +76,7 @@ public sealed record SurveyRequest(
         {
             var g = observables.Survey.Group ?? throw new SizeTest.Foundation.Errors.InputException("--group needs a group column; name it with --group COLUMN");
             groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
-            if (groups.Count < 2) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
+            if (groups.Count == 1) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
         bool marginalise = false;

@@ -54,6 +54,9 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     private readonly double _eFixed;
     private readonly int _iLumExp = -1;
     private readonly bool _expanding;
+    // --min-size: the density of each object (at each photo-z node) is divided by P(θ_obs > θ_min | z); NaN = no cut.
+    private readonly double _minTheta = double.NaN, _lnMinTheta = double.NaN;
+    private readonly bool _truncated;
     // Photometric redshifts: per object i, nodes [i*J, (i+1)*J): ln(1+z), ln z, log weight (−∞ = dropped), ln D_A (fixed cosmology), luminosity base.
     private readonly double[] _nodeLn1pz = [], _nodeLnz = [], _nodeLogW = [], _nodeLumBase = [];
     private readonly double[]? _nodeLnDaFixed;
@@ -92,6 +95,17 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _eFixed = ModelLuminosity.DistanceExponent(startModel);
         for (int i = 0; i < h.Parameters.Count; i++)
             if (h.Parameters[i].Name == WorldModelParameters.Names.LuminosityExponent && h.Parameters[i].IsFree) _iLumExp = i;
+
+        // --- minimum-size truncation
+        if (h.Nuisance.Cuts.MinThetaArcsec is { } tMin)
+        {
+            _minTheta = tMin * SizeTest.Foundation.Angles.AngleUnits.RadiansPerArcsec;
+            _lnMinTheta = Math.Log(_minTheta);
+            _truncated = true;
+            notes.Add(FormattableString.Invariant($"minimum size: each object's density is divided by P(θ_obs > {tMin:G4}″ | z) under the same size model (") +
+                (sv.SizeErrors == SizeErrorKind.Gaussian ? "Gaussian errors: ∫ Φ((e^u − θ_min)/σ_θ) N(u; m, σ²) du" : "log-normal: Φ((m − ln θ_min)/√(σ_i² + σ²))") +
+                (sv.MarginaliseRedshift ? ", at every redshift node of the photo-z integral" : "") + ").");
+        }
 
         // --- size errors
         _gaussian = sv.SizeErrors == SizeErrorKind.Gaussian;
@@ -345,19 +359,31 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             double r = _y[i] - m, var = _s2[i] + sig * sig;
             dm = r / var;
             ds = sig * (r * r / (var * var) - 1 / var);
-            return -0.5 * (r * r / var + Math.Log(var)) - HalfLn2Pi;
+            double lp = -0.5 * (r * r / var + Math.Log(var)) - HalfLn2Pi;
+            if (_truncated)
+            {
+                // − ln Φ(t), t = (m − ln θ_min)/√V: ∂t/∂m = 1/√V, ∂t/∂σ = −t σ/V (truncated Gaussian, common practice).
+                double sd = Math.Sqrt(var), t = (m - _lnMinTheta) / sd, lam = NormalMath.LogPhiDerivative(t);
+                lp -= NormalMath.LogPhi(t);
+                dm -= lam / sd;
+                ds += lam * t * sig / var;
+            }
+            return lp;
         }
-        return GaussianThetaLogDensity(_theta[i], _sTheta[i], m, sig, out dm, out ds);
+        return GaussianThetaLogDensity(_theta[i], _sTheta[i], m, sig, _truncated ? _minTheta : 0, out dm, out ds);
     }
 
     /// <summary>
     /// ln [∫ N(θ; e^u, s²) N(u; m, σ²) du / ∫ Φ(e^u/s) N(u; m, σ²) du]: the exact density of a θ measured with Gaussian error s
     /// for a log-normal true size, given that θ_obs &gt; 0 (see the type's remarks for the quadrature).
     /// </summary>
-    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig) => GaussianThetaLogDensity(theta, s, m, sig, out _, out _);
+    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig) => GaussianThetaLogDensity(theta, s, m, sig, 0, out _, out _);
 
-    /// <summary>As <see cref="GaussianThetaLogDensity(double, double, double, double)"/>, with ∂/∂m and ∂/∂σ.</summary>
-    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig, out double dm, out double ds)
+    /// <summary>
+    /// As <see cref="GaussianThetaLogDensity(double, double, double, double)"/>, normalised by P(θ_obs &gt; <paramref name="thetaMin"/>)
+    /// = ∫ Φ((e^u − θ_min)/s) N(u; m, σ²) du instead (θ_min = 0: θ_obs &gt; 0), with ∂/∂m and ∂/∂σ.
+    /// </summary>
+    internal static double GaussianThetaLogDensity(double theta, double s, double m, double sig, double thetaMin, out double dm, out double ds)
     {
         double s2 = s * s, sig2 = sig * sig;
         // Mode of f(u) = −(θ − e^u)²/(2s²) − (u − m)²/(2σ²) by Fisher scoring from the precision-weighted start.
@@ -397,13 +423,14 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         double p = 0, dp = 0, dps = 0;
         for (int j = 0; j < gh.Nodes.Length; j++)
         {
-            double t = Math.Exp(m + Math.Sqrt(2) * sig * gh.Nodes[j]) / s;
+            double ex = Math.Exp(m + Math.Sqrt(2) * sig * gh.Nodes[j]) / s, t = ex - thetaMin / s;
             p += gh.Weights[j] * NormalMath.Phi(t);
-            double dens = gh.Weights[j] * Math.Exp(-0.5 * t * t) / Math.Sqrt(2 * Math.PI) * t;
+            double dens = gh.Weights[j] * Math.Exp(-0.5 * t * t) / Math.Sqrt(2 * Math.PI) * ex;
             dp += dens;
             dps += dens * Math.Sqrt(2) * gh.Nodes[j];
         }
-        // ∂lnI/∂m = E[(u−m)]/σ², ∂lnI/∂σ = E[(u−m)²]/σ³ − 1/σ; ∂lnP = ∂P/P with ∂t_j/∂m = t_j, ∂t_j/∂σ = √2 x_j t_j.
+        // ∂lnI/∂m = E[(u−m)]/σ², ∂lnI/∂σ = E[(u−m)²]/σ³ − 1/σ; ∂lnP = ∂P/P with t_j = (e^{u_j} − θ_min)/s,
+        // ∂t_j/∂m = e^{u_j}/s, ∂t_j/∂σ = √2 x_j e^{u_j}/s.
         dm = e1 / sig2 - dp / p;
         ds = e2 / (sig2 * sig) - 1 / sig - dps / p;
         p /= Math.Sqrt(Math.PI);

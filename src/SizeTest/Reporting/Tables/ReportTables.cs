@@ -31,6 +31,10 @@ public static class ReportTables
             {
                 var row = data.EvolutionTests.FirstOrDefault(r => r.Model == m.Fit.Name && r.Parameter == name);
                 if (row is not null) return row.ValueText + (row.Need == EvolutionNeed.NotNeeded ? " (not needed)" : "");
+                // Populations (--group): each group's own exponent, "a[early] = …; a[late] = …".
+                var perGroup = data.EvolutionTests.Where(r => r.Model == m.Fit.Name && EvolutionTestTable.GroupOf(r.Parameter) is not null && EvolutionTestTable.BaseName(r.Parameter) == name).ToList();
+                if (perGroup.Count > 0)
+                    return string.Join("; ", perGroup.Select(r => $"{r.Symbol} = {r.ValueText}" + (r.Need == EvolutionNeed.NotNeeded ? " (not needed)" : "")));
                 var p = m.Fit.Parameters.FirstOrDefault(q => q.Name == name);
                 return p is null ? "—" : p.Fixed ? $"{PdgRounding.Plain(p.Value)} (fixed)" : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi);
             }
