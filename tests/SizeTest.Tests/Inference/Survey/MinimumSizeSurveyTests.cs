@@ -22,7 +22,7 @@ public sealed class MinimumSizeSurveyTests(Xunit.Abstractions.ITestOutputHelper 
             new NuisanceModel(ObservableKind.Size, minTheta is { } t ? new SelectionLimits(MinThetaArcsec: t) : null, Survey: survey));
         var lik = h.Bind(obs);
         var fit = MaximumLikelihood.Fit(lik);
-        Assert.True(fit.Converged, fit.ExitReason);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
         return FitSummaries.From(lik, fit);
     }
 
