@@ -139,8 +139,8 @@ internal static class PowerCommand
             var a = p.Recovery.FirstOrDefault(x => x.Name == NuisanceParameters.Names.SizeEvolution);
             rows.Add([
                 p.SampleSize.ToString(Inv), p.ProbabilityTrueBest.ToString("F2", Inv), p.ProbabilityStrong.ToString("F2", Inv), p.ProbabilityDecisive.ToString("F2", Inv),
-                G(p.DeltaBicQuantiles[1]), G(p.DeltaBicQuantiles[2]), G(p.DeltaBicQuantiles[3]),
-                a is null ? "" : G(a.Bias), a is null ? "" : G(a.Spread), a is null ? "" : a.Coverage.ToString("F2", Inv), p.Verdict,
+                F(p.DeltaBicQuantiles[1], "F2"), F(p.DeltaBicQuantiles[2], "F2"), F(p.DeltaBicQuantiles[3], "F2"),
+                a is null ? "" : F(a.Bias, "F3"), a is null ? "" : F(a.Spread, "F3"), a is null ? "" : a.Coverage.ToString("F2", Inv), p.Verdict,
             ]);
         }
         int[] w = Enumerable.Range(0, header.Length).Select(c => rows.Max(x => x[c].Length)).ToArray();
@@ -148,5 +148,6 @@ internal static class PowerCommand
         o.WriteLine("Conclusion: " + r.Conclusion + ".");
     }
 
-    private static string G(double v) => double.IsFinite(v) ? v.ToString("G4", Inv) : "";
+    // Fixed decimals per column (ΔBIC to 0.01, the exponent's bias and spread to 0.001), so a column reads as one scale.
+    private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, Inv) : "";
 }

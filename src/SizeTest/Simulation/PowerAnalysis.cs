@@ -71,11 +71,11 @@ public static class PowerAnalysis
         string conclusion = uninterpretable.Length > 0 && required is null
             ? FormattableString.Invariant($"{NotInterpretable} (at N = {string.Join(", ", uninterpretable.Select(p => p.SampleSize))}: {string.Join("; ", uninterpretable[^1].RecoveryFailures)}); the fitted model cannot describe these mocks (e.g. a selection that is not modelled), so no power is claimed")
             : last.Verdict == FavoursWrongModel && required is null
-            ? FormattableString.Invariant($"favours a wrong model: at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3}, so mocks drawn from {trueName} prefer another candidate (the candidates or the mocks' selection are not what the fit assumes)")
+            ? FormattableString.Invariant($"favours a wrong model: at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:F1}, so mocks drawn from {trueName} prefer another candidate (the candidates or the mocks' selection are not what the fit assumes)")
             : required is { } r
             ? FormattableString.Invariant($"a sample of N = {r} decides: the true model {trueName} wins by ΔBIC > 10 in {points.First(p => p.SampleSize == r).ProbabilityDecisive:P0} of mocks (target {request.TargetPower:P0})")
             : last.Verdict == "unable to decide"
-                ? FormattableString.Invariant($"unable to decide: even at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:G3} and the true model {trueName} wins by ΔBIC > 10 in only {last.ProbabilityDecisive:P0} of mocks; this design cannot tell the models apart (widen the redshift range, add objects, or constrain the evolution the models may use)")
+                ? FormattableString.Invariant($"unable to decide: even at N = {last.SampleSize} the median ΔBIC is {last.DeltaBicQuantiles[2]:F1} and the true model {trueName} wins by ΔBIC > 10 in only {last.ProbabilityDecisive:P0} of mocks; this design cannot tell the models apart (widen the redshift range, add objects, or constrain the evolution the models may use)")
                 : FormattableString.Invariant($"no N in the grid is decisive: at N = {last.SampleSize} the true model {trueName} wins by ΔBIC > 10 in {last.ProbabilityDecisive:P0} of mocks (target {request.TargetPower:P0}); try larger N");
         var notes = new List<string>
         {
