@@ -44,8 +44,8 @@ internal static class FitTables
     {
         o.WriteLine($"{r.Source}: {r.RowsRead} rows read, {r.Accepted} accepted, {r.Rejected} rejected; observable {r.Settings.Observable.Name()}; seed {r.Seed}");
         o.WriteLine();
-        string evo = r.Settings.Observable == ObservableKind.SurfaceBrightness ? "sb_evolution" : "size_evolution";
-        string sym = evo == "sb_evolution" ? "b" : "a";
+        string evo = r.Settings.Observable == ObservableKind.SurfaceBrightness ? NuisanceParameters.Names.SbEvolution : NuisanceParameters.Names.SizeEvolution;
+        string sym = evo == NuisanceParameters.Names.SbEvolution ? "b" : "a";
         // ln L, AIC and BIC carry no error of their own: two decimals; ΔAIC/ΔBIC one (the Kass–Raftery scale needs no more);
         // the evolution estimate is rounded to its 68% interval by the PDG rule.
         o.WriteLine($"{"rank",4}  {"model",-18} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",7} {"BIC",11} {"ΔBIC",7}  {"evidence against",-34} {sym + " (68% interval)",-22} converged");

@@ -136,7 +136,7 @@ internal static class PowerCommand
         var rows = new List<string[]> { header };
         foreach (var p in r.Points)
         {
-            var a = p.Recovery.FirstOrDefault(x => x.Name == "size_evolution");
+            var a = p.Recovery.FirstOrDefault(x => x.Name == NuisanceParameters.Names.SizeEvolution);
             rows.Add([
                 p.SampleSize.ToString(Inv), p.ProbabilityTrueBest.ToString("F2", Inv), p.ProbabilityStrong.ToString("F2", Inv), p.ProbabilityDecisive.ToString("F2", Inv),
                 F(p.DeltaBicQuantiles[1], "F2"), F(p.DeltaBicQuantiles[2], "F2"), F(p.DeltaBicQuantiles[3], "F2"),

@@ -121,7 +121,7 @@ internal static class PredictCommand
             foreach (var (name, value) in model.ParameterValues) json.WriteNumber(name, value);
             json.WriteEndObject();
             json.WriteNumber("size_kpc", sizeKpc);
-            json.WriteNumber("dimming_exponent", model.BolometricDimmingExponent);
+            json.WriteNumber(WorldModelParameters.Names.DimmingExponent, model.BolometricDimmingExponent);
             if (model is FlrwModel flrw && double.IsFinite(flrw.AgeGyr)) json.WriteNumber("age_gyr", flrw.AgeGyr);
             else json.WriteNull("age_gyr");
             json.WriteStartArray("rows");

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 using SizeTest.Photometry;
 using SizeTest.Inference.Comparison;
 
@@ -26,7 +27,7 @@ public static class CrossValidation
     public static int[] AssignFolds(int n, int folds, int seed)
     {
         if (folds < 2 || folds > n) throw new ArgumentOutOfRangeException(nameof(folds), $"cross-validation needs 2 to {n} folds");
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var perm = Enumerable.Range(0, n).ToArray();
         rng.Shuffle(perm);
         var foldOf = new int[n];

@@ -106,8 +106,8 @@ public sealed class Hypothesis
         if (NuisanceParameters.All.Any(p => p.Name == name)) return false;
         // The dimming exponent (and the flux convention it defaults from) act only on surface brightness.
         // ... and, with a size–luminosity relation, the flux convention sets each object's luminosity (D_L = d (1+z)^q).
-        if (name == "luminosity_exponent" && size && nuisance.SurveyTerms.Relation != Survey.SizeRelationKind.None) return true;
-        if (name is "dimming_exponent" or "luminosity_exponent") return sb;
+        if (name == WorldModelParameters.Names.LuminosityExponent && size && nuisance.SurveyTerms.Relation != Survey.SizeRelationKind.None) return true;
+        if (name is WorldModelParameters.Names.DimmingExponent or WorldModelParameters.Names.LuminosityExponent) return sb;
         // Every other cosmological parameter acts through D_A, which only the size model sees
         // (the joint model with a size–SB relation sees it through the physical size too).
         return size && family.Parameters.Any(p => p.Name == name);

@@ -216,7 +216,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         {
             var name = _free[j].Name;
             double? guess = null;
-            if (name == "r0_kpc" && _cols.LnTheta.Length == _n)
+            if (name == NuisanceParameters.Names.R0Kpc && _cols.LnTheta.Length == _n)
             {
                 var t = new double[_n];
                 for (int i = 0; i < _n; i++)
@@ -227,7 +227,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
                 }
                 guess = Math.Exp(Median(t));
             }
-            else if (name == "mu0" && _cols.Mu.Length == _n)
+            else if (name == NuisanceParameters.Names.Mu0 && _cols.Mu.Length == _n)
             {
                 var t = new double[_n];
                 for (int i = 0; i < _n; i++) t[i] = _cols.Mu[i] - p.TolmanSlope * _cols.Log10OnePlusZ[i] - _cols.Correction[i];

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 namespace SizeTest.Inference;
 
 /// <summary>
@@ -72,7 +73,7 @@ public static class MaximumLikelihood
         var tr = new BoundedTransform(min, max);
         var u0 = new double[d];
         tr.ToUnbounded(start, u0);
-        var rng = new Random(settings.Seed);
+        var rng = SeededRandom.Create(settings.Seed);
         var starts = new List<double[]> { start.Select((v, j) => Math.Clamp(v, min[j], max[j])).ToArray() };
         for (int s = 1; s < settings.Starts; s++)
         {

@@ -8,36 +8,57 @@ namespace SizeTest.Inference;
 /// </summary>
 public static class NuisanceParameters
 {
+    /// <summary>The parameter names as constants (for <c>switch</c> cases and attribute arguments); the specs below use them.</summary>
+    public static class Names
+    {
+        /// <summary><c>r0_kpc</c>.</summary>
+        public const string R0Kpc = "r0_kpc";
+        /// <summary><c>size_evolution</c>.</summary>
+        public const string SizeEvolution = "size_evolution";
+        /// <summary><c>scatter_dex</c>.</summary>
+        public const string ScatterDex = "scatter_dex";
+        /// <summary><c>mu0</c>.</summary>
+        public const string Mu0 = "mu0";
+        /// <summary><c>sb_evolution</c>.</summary>
+        public const string SbEvolution = "sb_evolution";
+        /// <summary><c>scatter_mag</c>.</summary>
+        public const string ScatterMag = "scatter_mag";
+        /// <summary><c>kormendy_slope</c>.</summary>
+        public const string KormendySlope = "kormendy_slope";
+        /// <summary><c>size_luminosity_slope</c>.</summary>
+        public const string SizeLuminositySlope = "size_luminosity_slope";
+    }
+
     /// <summary>R0: physical size at z = 0 in kpc, in R(z) = R0 (1+z)^a. Degenerate with H0 for sizes (only R0·H0 is constrained).</summary>
-    public static readonly ParameterSpec R0Kpc = new("r0_kpc", "R0", "kpc", 5.0, 1e-4, 1e4,
+    public static readonly ParameterSpec R0Kpc = new(Names.R0Kpc, "R0", "kpc", 5.0, 1e-4, 1e4,
         "physical size at z = 0, R(z) = R0 (1+z)^a");
 
     /// <summary>a: size-evolution exponent in R ∝ (1+z)^a (a &lt; 0: smaller in the past).</summary>
-    public static readonly ParameterSpec SizeEvolution = new("size_evolution", "a", "", 0.0, -6.0, 6.0,
+    public static readonly ParameterSpec SizeEvolution = new(Names.SizeEvolution, "a", "", 0.0, -6.0, 6.0,
         "size evolution exponent a in R ∝ (1+z)^a");
 
     /// <summary>Intrinsic log-normal size scatter in dex (σ_ln = ln 10 · dex).</summary>
-    public static readonly ParameterSpec ScatterDex = new("scatter_dex", "σ_R", "dex", 0.2, 1e-4, 3.0,
+    public static readonly ParameterSpec ScatterDex = new(Names.ScatterDex, "σ_R", "dex", 0.2, 1e-4, 3.0,
         "intrinsic scatter of log10 size");
 
     /// <summary>μ0: surface brightness at z = 0 (at the pivot size in the joint model with a size–SB relation), mag/arcsec².</summary>
-    public static readonly ParameterSpec Mu0 = new("mu0", "μ0", "mag/arcsec2", 21.0, -10.0, 50.0,
+    public static readonly ParameterSpec Mu0 = new(Names.Mu0, "μ0", "mag/arcsec2", 21.0, -10.0, 50.0,
         "surface brightness at z = 0");
 
     /// <summary>b: surface-brightness (luminosity) evolution exponent, Δμ = −2.5 b log10(1+z) (b &gt; 0: brighter in the past).</summary>
-    public static readonly ParameterSpec SbEvolution = new("sb_evolution", "b", "", 0.0, -10.0, 10.0,
+    public static readonly ParameterSpec SbEvolution = new(Names.SbEvolution, "b", "", 0.0, -10.0, 10.0,
         "surface-brightness evolution exponent b, Δμ = −2.5 b log10(1+z)");
 
     /// <summary>Intrinsic surface-brightness scatter in mag.</summary>
-    public static readonly ParameterSpec ScatterMag = new("scatter_mag", "σ_μ", "mag", 0.3, 1e-4, 5.0,
+    public static readonly ParameterSpec ScatterMag = new(Names.ScatterMag, "σ_μ", "mag", 0.3, 1e-4, 5.0,
         "intrinsic scatter of surface brightness");
 
     /// <summary>Kormendy-type slope: dμ/dlog10 R at fixed redshift, mag/arcsec² per dex of physical size.</summary>
-    public static readonly ParameterSpec KormendySlope = new("kormendy_slope", "κ", "mag/dex", 0.0, -20.0, 20.0,
+    public static readonly ParameterSpec KormendySlope = new(Names.KormendySlope, "κ", "mag/dex", 0.0, -20.0, 20.0,
         "slope of μ against log10 physical size (Kormendy-type relation)");
 
     /// <summary>β in R ∝ (L/L_pivot)^β (or (M/M_pivot)^β): the size–luminosity (size–mass) slope; radio ℓ ∝ L^β.</summary>
-    public static readonly ParameterSpec SizeLuminositySlope = new("size_luminosity_slope", "β", "", 0.0, -3.0, 3.0,
+    public static readonly ParameterSpec SizeLuminositySlope = new(Names.SizeLuminositySlope, "β", "", 0.0, -3.0, 3.0,
         "slope β of the size–luminosity (or size–mass) relation R ∝ L^β");
 
     /// <summary>All nuisance parameters of the basic models, in reporting order.</summary>

@@ -37,7 +37,7 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
         ArgumentNullException.ThrowIfNull(estimate);
         var inv = System.Globalization.CultureInfo.InvariantCulture;
         string baseName = Comparison.EvolutionTestTable.BaseName(estimate.Name);
-        string what = (baseName == "size_evolution" ? "size evolution (1+z)^a" : "surface-brightness evolution b")
+        string what = (baseName == NuisanceParameters.Names.SizeEvolution ? "size evolution (1+z)^a" : "surface-brightness evolution b")
                       + (Comparison.EvolutionTestTable.GroupOf(estimate.Name) is { } group ? $" of group {group}" : "");
         if (estimate.Fixed)
             return new RequiredEvolution(model, estimate.Name, estimate.Value, estimate.Value, estimate.Value, true, false, null, null,

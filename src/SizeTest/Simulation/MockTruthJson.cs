@@ -1,3 +1,5 @@
+using SizeTest.Inference;
+using SizeTest.Cosmology;
 using System.Text;
 using System.Text.Json;
 
@@ -48,29 +50,29 @@ public static class MockTruthJson
             w.WriteStartObject("parameters");
             foreach (var (k, v) in spec.Model.ParameterValues) Number(w, k, v);
             w.WriteEndObject();
-            Number(w, "dimming_exponent", spec.Model.BolometricDimmingExponent);
+            Number(w, WorldModelParameters.Names.DimmingExponent, spec.Model.BolometricDimmingExponent);
             w.WriteEndObject();
             w.WriteString("kind", design.Kind == MockObjectKind.Galaxy ? "galaxy" : "radio");
             w.WriteStartObject("population");
             if (design.Kind == MockObjectKind.Galaxy)
             {
                 var g = spec.GalaxyTruth;
-                Number(w, "r0_kpc", g.R0Kpc);
-                Number(w, "size_evolution", g.SizeEvolution);
-                Number(w, "scatter_dex", g.ScatterDex);
-                Number(w, "mu0", g.Mu0);
-                Number(w, "sb_evolution", g.SbEvolution);
-                Number(w, "scatter_mag", g.ScatterMag);
-                Number(w, "kormendy_slope", g.KormendySlope);
+                Number(w, NuisanceParameters.Names.R0Kpc, g.R0Kpc);
+                Number(w, NuisanceParameters.Names.SizeEvolution, g.SizeEvolution);
+                Number(w, NuisanceParameters.Names.ScatterDex, g.ScatterDex);
+                Number(w, NuisanceParameters.Names.Mu0, g.Mu0);
+                Number(w, NuisanceParameters.Names.SbEvolution, g.SbEvolution);
+                Number(w, NuisanceParameters.Names.ScatterMag, g.ScatterMag);
+                Number(w, NuisanceParameters.Names.KormendySlope, g.KormendySlope);
                 Number(w, "pivot_size_kpc", g.PivotSizeKpc);
             }
             else
             {
                 var r = spec.RadioTruth;
                 Number(w, "linear_size_pc", r.LinearSizePc);
-                Number(w, "luminosity_exponent", r.LuminosityExponent);
-                Number(w, "size_evolution", r.SizeEvolution);
-                Number(w, "scatter_dex", r.ScatterDex);
+                Number(w, WorldModelParameters.Names.LuminosityExponent, r.LuminosityExponent);
+                Number(w, NuisanceParameters.Names.SizeEvolution, r.SizeEvolution);
+                Number(w, NuisanceParameters.Names.ScatterDex, r.ScatterDex);
                 Number(w, "log_lum_mean", r.LogLuminosityMean);
                 Number(w, "log_lum_sd", r.LogLuminositySd);
                 Number(w, "log_lum_pivot", r.LogLuminosityPivot);
@@ -89,7 +91,7 @@ public static class MockTruthJson
                 Number(w, "faint_limit", lf.FaintLimit);
                 w.WriteEndObject();
             }
-            Number(w, "size_luminosity_slope", sv.SizeLuminositySlope);
+            Number(w, NuisanceParameters.Names.SizeLuminositySlope, sv.SizeLuminositySlope);
             Number(w, "pivot_abs_mag", sv.PivotAbsMag);
             Number(w, "radio_spectral_index", sv.RadioSpectralIndex);
             w.WriteStartArray("populations");
@@ -98,10 +100,10 @@ public static class MockTruthJson
                 w.WriteStartObject();
                 w.WriteString("name", g.Name);
                 Number(w, "fraction", g.Fraction);
-                Number(w, "r0_kpc", g.R0Kpc);
-                Number(w, "size_evolution", g.SizeEvolution);
-                Number(w, "size_luminosity_slope", g.SizeLuminositySlope);
-                Number(w, "scatter_dex", g.ScatterDex);
+                Number(w, NuisanceParameters.Names.R0Kpc, g.R0Kpc);
+                Number(w, NuisanceParameters.Names.SizeEvolution, g.SizeEvolution);
+                Number(w, NuisanceParameters.Names.SizeLuminositySlope, g.SizeLuminositySlope);
+                Number(w, NuisanceParameters.Names.ScatterDex, g.ScatterDex);
                 w.WriteEndObject();
             }
             w.WriteEndArray();

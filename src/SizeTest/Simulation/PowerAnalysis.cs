@@ -119,21 +119,21 @@ public static class PowerAnalysis
             var r = spec.RadioTruth;
             return new Dictionary<string, double>
             {
-                ["r0_kpc"] = r.LinearSizePc / 1000.0,
-                ["size_evolution"] = r.SizeEvolution,
-                ["scatter_dex"] = r.ScatterDex,
+                [NuisanceParameters.Names.R0Kpc] = r.LinearSizePc / 1000.0,
+                [NuisanceParameters.Names.SizeEvolution] = r.SizeEvolution,
+                [NuisanceParameters.Names.ScatterDex] = r.ScatterDex,
             };
         }
         var g = spec.GalaxyTruth;
         return new Dictionary<string, double>
         {
-            ["r0_kpc"] = g.R0Kpc,
-            ["size_evolution"] = g.SizeEvolution,
-            ["scatter_dex"] = g.ScatterDex,
-            ["mu0"] = g.Mu0,
-            ["sb_evolution"] = g.SbEvolution,
-            ["scatter_mag"] = g.ScatterMag,
-            ["kormendy_slope"] = g.KormendySlope,
+            [NuisanceParameters.Names.R0Kpc] = g.R0Kpc,
+            [NuisanceParameters.Names.SizeEvolution] = g.SizeEvolution,
+            [NuisanceParameters.Names.ScatterDex] = g.ScatterDex,
+            [NuisanceParameters.Names.Mu0] = g.Mu0,
+            [NuisanceParameters.Names.SbEvolution] = g.SbEvolution,
+            [NuisanceParameters.Names.ScatterMag] = g.ScatterMag,
+            [NuisanceParameters.Names.KormendySlope] = g.KormendySlope,
         };
     }
 

@@ -70,7 +70,7 @@ public static class StudyReportAdapter
             Objects = points,
             Models = models,
             Assumptions = Assumptions(result, inputs),
-            SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == "mu0")?.Value).FirstOrDefault(v => v is not null),
+            SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == NuisanceParameters.Names.Mu0)?.Value).FirstOrDefault(v => v is not null),
             Posterior = posterior,
             Power = power is null ? null : PowerCurveFrom(power),
             // Caveats only: the evolution statements come from the one table of tests (EvolutionTests), the verdict from results.
@@ -87,8 +87,8 @@ public static class StudyReportAdapter
 
     private static string Describe(string parameter) => (Inference.Comparison.EvolutionTestTable.BaseName(parameter) switch
     {
-        "size_evolution" => "size evolution a, R ∝ (1+z)^a",
-        "sb_evolution" => "surface-brightness evolution b, Δμ = −2.5 b log10(1+z)",
+        NuisanceParameters.Names.SizeEvolution => "size evolution a, R ∝ (1+z)^a",
+        NuisanceParameters.Names.SbEvolution => "surface-brightness evolution b, Δμ = −2.5 b log10(1+z)",
         _ => parameter,
     }) + (Inference.Comparison.EvolutionTestTable.GroupOf(parameter) is { } g ? $", group {g}" : "");
 
@@ -148,21 +148,21 @@ public static class StudyReportAdapter
         double Get(string n, double fallback) => values.TryGetValue(n, out var v) && double.IsFinite(v) ? v : fallback;
         // Static models are not defined at z = 0; start at the sample's smallest redshift.
         double lo = Math.Max(zMin, 1e-4);
-        if (values.ContainsKey("r0_kpc"))
+        if (values.ContainsKey(NuisanceParameters.Names.R0Kpc))
         {
-            double r0 = Get("r0_kpc", 5), a = Get("size_evolution", 0);
+            double r0 = Get(NuisanceParameters.Names.R0Kpc, 5), a = Get(NuisanceParameters.Names.SizeEvolution, 0);
             report = report with
             {
                 Theta = Curve.Sample(z => model.AngularSizeArcsec(z, r0 * Math.Pow(1 + z, a)), lo, zMax),
                 ThetaNoEvolution = a == 0 ? null : Curve.Sample(z => model.AngularSizeArcsec(z, r0), lo, zMax),
             };
         }
-        if (values.ContainsKey("mu0"))
+        if (values.ContainsKey(NuisanceParameters.Names.Mu0))
         {
-            double mu0 = Get("mu0", 21), b = Get("sb_evolution", 0), kappa = Get("kormendy_slope", 0);
+            double mu0 = Get(NuisanceParameters.Names.Mu0, 21), b = Get(NuisanceParameters.Names.SbEvolution, 0), kappa = Get(NuisanceParameters.Names.KormendySlope, 0);
             double n = model.BolometricDimmingExponent + nuisance.DimmingExponentOffset;
-            double r0 = Get("r0_kpc", nuisance.PivotSizeKpc), a = Get("size_evolution", 0);
-            bool relation = nuisance.SizeSbRelation && values.ContainsKey("kormendy_slope");
+            double r0 = Get(NuisanceParameters.Names.R0Kpc, nuisance.PivotSizeKpc), a = Get(NuisanceParameters.Names.SizeEvolution, 0);
+            bool relation = nuisance.SizeSbRelation && values.ContainsKey(NuisanceParameters.Names.KormendySlope);
             double Mu(double z, double bb, double aa) =>
                 mu0 + 2.5 * (n - bb) * Math.Log10(1 + z)
                 + (relation ? kappa * (Math.Log10(r0 * Math.Pow(1 + z, aa)) - Math.Log10(nuisance.PivotSizeKpc)) : 0);
@@ -174,7 +174,7 @@ public static class StudyReportAdapter
             if (sbLimit is { } lim)
             {
                 // With the size–SB relation μ also scatters with log size: add (κ σ_dex)² (Gaussian in log R).
-                double sd = Math.Sqrt(Math.Pow(Get("scatter_mag", 0), 2) + muErr * muErr + (relation ? Math.Pow(kappa * Get("scatter_dex", 0), 2) : 0));
+                double sd = Math.Sqrt(Math.Pow(Get(NuisanceParameters.Names.ScatterMag, 0), 2) + muErr * muErr + (relation ? Math.Pow(kappa * Get(NuisanceParameters.Names.ScatterDex, 0), 2) : 0));
                 report = report with { MuSelected = Curve.Sample(z => TruncatedMean(Mu(z, b, a), sd, lim), lo, zMax) };
             }
         }
@@ -205,7 +205,7 @@ public static class StudyReportAdapter
                    (study.Nuisance.DimmingExponentOffset != 0 ? string.Create(Inv, $" plus an offset of {study.Nuisance.DimmingExponentOffset:0.##} for the band convention") : ""));
         if (study.Nuisance.SizeSbRelation)
             ev.Add(string.Create(Inv, $"μ is linked to log10 physical size by a free Kormendy-type slope at pivot {study.Nuisance.PivotSizeKpc:0.##} kpc"));
-        var fixedEvolution = inputs.Hypotheses.SelectMany(h => h.Parameters.Where(p => p.Name is "size_evolution" or "sb_evolution" && !p.IsFree)
+        var fixedEvolution = inputs.Hypotheses.SelectMany(h => h.Parameters.Where(p => p.Name is NuisanceParameters.Names.SizeEvolution or NuisanceParameters.Names.SbEvolution && !p.IsFree)
             .Select(p => string.Create(Inv, $"{h.Label}: {p.Name} fixed at {p.Value:0.###}"))).ToArray();
         if (fixedEvolution.Length > 0) ev.Add("held fixed: " + string.Join(", ", fixedEvolution));
         list.Add(new Assumption("evolution form", string.Join("; ", ev) + "."));

@@ -37,7 +37,7 @@ public sealed partial class LayeringTests
             .Select(x => $"{x.u.FromNamespace}.{x.u.FromType} ({x.from}) uses {x.u.ToNamespace}.{x.u.ToType} ({x.to})")
             .Distinct().Order(StringComparer.Ordinal).ToList();
 
-    private static string SourceRoot()
+    internal static string SourceRoot()
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);
         while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "SizeTest.sln"))) dir = dir.Parent;

@@ -59,7 +59,7 @@ public static class EvolutionTestTable
     public const string LevelWords = "95% level";
 
     /// <summary>The evolution parameters the table covers.</summary>
-    public static IReadOnlyList<string> Parameters { get; } = ["size_evolution", "sb_evolution"];
+    public static IReadOnlyList<string> Parameters { get; } = [NuisanceParameters.Names.SizeEvolution, NuisanceParameters.Names.SbEvolution];
 
     /// <summary>The parameter in words ("size evolution", "size evolution of group early").</summary>
     public static string What(string parameter)
@@ -67,8 +67,8 @@ public static class EvolutionTestTable
         ArgumentNullException.ThrowIfNull(parameter);
         string words = BaseName(parameter) switch
         {
-            "size_evolution" => "size evolution",
-            "sb_evolution" => "surface-brightness evolution",
+            NuisanceParameters.Names.SizeEvolution => "size evolution",
+            NuisanceParameters.Names.SbEvolution => "surface-brightness evolution",
             _ => BaseName(parameter),
         };
         return GroupOf(parameter) is { } g ? $"{words} of group {g}" : words;
@@ -78,7 +78,7 @@ public static class EvolutionTestTable
     public static string Symbol(string parameter)
     {
         ArgumentNullException.ThrowIfNull(parameter);
-        string b = BaseName(parameter) switch { "size_evolution" => "a", "sb_evolution" => "b", var other => other };
+        string b = BaseName(parameter) switch { NuisanceParameters.Names.SizeEvolution => "a", NuisanceParameters.Names.SbEvolution => "b", var other => other };
         return GroupOf(parameter) is { } g ? $"{b}[{g}]" : b;
     }
 
@@ -160,8 +160,8 @@ public static class EvolutionTestTable
         string range = $"[{PdgRounding.Plain(e.Lo)}, {PdgRounding.Plain(e.Hi)}]";
         string physical = BaseName(row.Parameter) switch
         {
-            "size_evolution" => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
-            "sb_evolution" => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",
+            NuisanceParameters.Names.SizeEvolution => row.Value > 0 ? "objects larger in the past; sizes grow with time, so a < 0" : "objects smaller in the past",
+            NuisanceParameters.Names.SbEvolution => row.Value < 0 ? "galaxies fading into the past; ageing stellar populations give b > 0" : "galaxies brightening into the past",
             _ => e.ExpectedSign > 0 ? "expected > 0" : "expected < 0",
         };
         string v = $"{row.Symbol} = {row.ValueText}";

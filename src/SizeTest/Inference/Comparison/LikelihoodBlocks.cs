@@ -17,7 +17,7 @@ public static class LikelihoodBlocks
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Settings;
         if (s.Observable == ObservableKind.Size || result.Models.Count == 0) return false;
-        bool everyBFree = result.Models.All(m => m.Parameters.Any(p => p.Name == "sb_evolution" && !p.Fixed));
+        bool everyBFree = result.Models.All(m => m.Parameters.Any(p => p.Name == NuisanceParameters.Names.SbEvolution && !p.Fixed));
         return everyBFree && (s.Observable == ObservableKind.SurfaceBrightness || !s.SizeSbRelation);
     }
 

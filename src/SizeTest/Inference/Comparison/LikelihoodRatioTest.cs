@@ -29,8 +29,8 @@ public sealed record LikelihoodRatioTest(string Model, string Parameter, double 
         if (double.IsInfinity(sigma) || p < 1e-300) sigma = Math.Sqrt(lambda); // Λ for 1 dof is the squared z-score
         string what = parameter switch
         {
-            "size_evolution" => "size evolution",
-            "sb_evolution" => "surface-brightness evolution",
+            NuisanceParameters.Names.SizeEvolution => "size evolution",
+            NuisanceParameters.Names.SbEvolution => "surface-brightness evolution",
             _ => parameter,
         };
         string ps = FormatPValue(p);

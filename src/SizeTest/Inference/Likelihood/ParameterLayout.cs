@@ -1,3 +1,4 @@
+using SizeTest.Inference;
 namespace SizeTest.Inference.Likelihood;
 
 /// <summary>
@@ -21,13 +22,13 @@ internal sealed class ParameterLayout
             _freeOfFull[i] = ps[i].IsFree ? j++ : -1;
             switch (ps[i].Name)
             {
-                case "r0_kpc": R0 = i; break;
-                case "size_evolution": SizeEvolution = i; break;
-                case "scatter_dex": ScatterDex = i; break;
-                case "mu0": Mu0 = i; break;
-                case "sb_evolution": SbEvolution = i; break;
-                case "scatter_mag": ScatterMag = i; break;
-                case "kormendy_slope": KormendySlope = i; break;
+                case NuisanceParameters.Names.R0Kpc: R0 = i; break;
+                case NuisanceParameters.Names.SizeEvolution: SizeEvolution = i; break;
+                case NuisanceParameters.Names.ScatterDex: ScatterDex = i; break;
+                case NuisanceParameters.Names.Mu0: Mu0 = i; break;
+                case NuisanceParameters.Names.SbEvolution: SbEvolution = i; break;
+                case NuisanceParameters.Names.ScatterMag: ScatterMag = i; break;
+                case NuisanceParameters.Names.KormendySlope: KormendySlope = i; break;
                 default: if (!NuisanceParameters.IsSurveyName(ps[i].Name)) cosmo.Add(i); break; // survey names: Survey.SurveySizeLikelihood
             }
         }

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 using System.Diagnostics;
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
@@ -111,7 +112,7 @@ public sealed class EnsembleSampler
         memory.Begin(nw, d, names, steps);
         store?.Begin(nw, d, names, steps);
 
-        var rng = new Random(_options.Seed);
+        var rng = SeededRandom.Create(_options.Seed);
         int half0 = nw / 2;
         int[] setA = [.. Enumerable.Range(0, half0)];
         int[] setB = [.. Enumerable.Range(half0, nw - half0)];
@@ -218,7 +219,7 @@ public sealed class EnsembleSampler
     public static double[][] GaussianBall(ReadOnlySpan<double> centre, ReadOnlySpan<double> scale, int walkers, int seed)
     {
         if (centre.Length != scale.Length) throw new ArgumentException("Centre and scale must have the same length.");
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var result = new double[walkers][];
         for (int w = 0; w < walkers; w++)
         {
@@ -242,7 +243,7 @@ public sealed class EnsembleSampler
     {
         ArgumentNullException.ThrowIfNull(density);
         if (centre.Length != density.Dimension) throw new ArgumentException("The centre must have one coordinate per parameter.");
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var result = new double[walkers][];
         for (int w = 0; w < walkers; w++)
         {
@@ -283,7 +284,7 @@ public sealed class EnsembleSampler
         try { factor = chol.Cholesky(); }
         catch (ArgumentException) { throw new ArgumentException("The starting covariance is not positive definite."); }
         var l = factor.Factor;
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var result = new double[walkers][];
         var z = new double[d];
         for (int w = 0; w < walkers; w++)

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 namespace SizeTest.Inference.Sampling;
 
 /// <summary>The outcome of a nested-sampling run (Skilling 2004; 2006, Bayesian Analysis 1, 833).</summary>
@@ -85,7 +86,7 @@ public sealed record EvidenceResult
     public double[][] Resample(int count, int seed)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(count, 1);
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var result = new double[count][];
         double u = rng.NextDouble() / count, cum = 0;
         int k = 0;

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 using System.Diagnostics;
 using System.Globalization;
 using SizeTest.Foundation.Errors;
@@ -69,7 +70,7 @@ public sealed class NestedSampler
     {
         int n = _options.LivePoints, d = _d;
         int sliceSteps = _options.SliceSteps ?? Math.Max(5, 3 * d);
-        var rng = new Random(_options.Seed);
+        var rng = SeededRandom.Create(_options.Seed);
         var clock = Stopwatch.StartNew();
         var state = new SliceState(d);
         long evaluations = 0;

@@ -1,3 +1,4 @@
+using SizeTest.Inference;
 using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference.Likelihood;
@@ -93,7 +94,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _expanding = h.Family.IsExpanding;
         _eFixed = ModelLuminosity.DistanceExponent(startModel);
         for (int i = 0; i < h.Parameters.Count; i++)
-            if (h.Parameters[i].Name == "luminosity_exponent" && h.Parameters[i].IsFree) _iLumExp = i;
+            if (h.Parameters[i].Name == WorldModelParameters.Names.LuminosityExponent && h.Parameters[i].IsFree) _iLumExp = i;
 
         // --- minimum-size truncation
         if (h.Nuisance.Cuts.MinThetaArcsec is { } tMin)
@@ -155,10 +156,10 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         {
             string l = labels[g];
             for (int k = 0; k < _bins; k++)
-                _radiusIndex[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"r0_kpc_bin{k + 1}" : "r0_kpc", l));
-            if (!sv.Binned) _evolutionIndex[g] = Need(SurveyModel.Named("size_evolution", l));
-            _scatterIndex[g] = Need(SurveyModel.Named("scatter_dex", l));
-            if (sv.Relation != SizeRelationKind.None) _luminositySlopeIndex[g] = Need(SurveyModel.Named("size_luminosity_slope", l));
+                _radiusIndex[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"r0_kpc_bin{k + 1}" : NuisanceParameters.Names.R0Kpc, l));
+            if (!sv.Binned) _evolutionIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeEvolution, l));
+            _scatterIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.ScatterDex, l));
+            if (sv.Relation != SizeRelationKind.None) _luminositySlopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
         }
 
         // --- luminosities

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Randomness;
 namespace SizeTest.Reporting.Data;
 
 /// <summary>
@@ -41,14 +42,14 @@ public static class BinnedStatistics
     /// <summary>
     /// Computes the statistic of <paramref name="values"/> in each bin of <paramref name="z"/>
     /// (bins are [lo, hi), the last one closed) with <paramref name="resamples"/> bootstrap
-    /// resamples drawn from <c>new Random(seed)</c>. Bins with no finite value are left out.
+    /// resamples drawn from <c>SeededRandom.Create(seed)</c>. Bins with no finite value are left out.
     /// </summary>
     public static IReadOnlyList<BinnedValue> Compute(IReadOnlyList<double> z, IReadOnlyList<double> values,
         IReadOnlyList<double> edges, Statistic statistic, int resamples, int seed)
     {
         if (z.Count != values.Count) throw new ArgumentException("z and values differ in length");
         if (resamples < 1) throw new ArgumentOutOfRangeException(nameof(resamples), "need at least one bootstrap resample");
-        var rng = new Random(seed);
+        var rng = SeededRandom.Create(seed);
         var result = new List<BinnedValue>();
         int nb = edges.Count - 1;
         for (int b = 0; b < nb; b++)
