@@ -22,6 +22,11 @@ internal static class FitTables
     /// <summary>Nested-sampling weighted samples as CSV: the free parameters, log_likelihood, log_weight.</summary>
     public static string SamplesCsv(PosteriorDraws s) => SizeTest.Studies.StudyOutputFiles.SamplesCsv(s);
 
+    // The estimate with its interval: ± form, or at a bound the value and the one-sided interval (never a ± interval).
+    private static string Estimate(ParameterEstimate p) => p.AtBound is null
+        ? PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi)
+        : $"{PdgRounding.Plain(p.Value)} [{PdgRounding.IntervalBounds(p.Value, p.Lo, p.Hi)}]";
+
     // How an interval was obtained, when it is not the Hessian's.
     private static string Marker(ParameterEstimate p) =>
         (p.Regions.Count > 1 ? " = " + string.Join(" ∪ ", p.Regions.Select(q => string.Create(Inv, $"[{q.Lo:0.####}, {q.Hi:0.####}]"))) : "")
@@ -56,7 +61,7 @@ internal static class FitTables
             // Tied models share a rank, shown as "=1" (no order among them).
             string shown = m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : PdgRounding.ValueWithInterval(e.Value, e.Lo, e.Hi) + Marker(e);
+            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : Estimate(e) + Marker(e);
             string words = m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
             o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }
@@ -65,7 +70,7 @@ internal static class FitTables
         {
             var special = m.Parameters.Where(p => !p.Fixed && (p.IntervalMethod != IntervalMethods.Hessian || p.AtBound is not null)).ToArray();
             if (special.Length > 0)
-                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi) is var t ? $"{p.Name} {t}{Marker(p)}" : "")));
+                o.WriteLine($"{m.Name}: " + string.Join(", ", special.Select(p => $"{p.Name} {Estimate(p)}{Marker(p)}")));
             if (m.Modes.Count > 1)
                 o.WriteLine($"{m.Name}: MULTIMODAL, {m.Modes.Count} maxima within Δ ln L < 2: " + string.Join("; ", m.Modes.Select(
                     md => string.Join(", ", md.Parameters.Select(kv => string.Create(Inv, $"{kv.Key} {kv.Value:0.####}"))) + string.Create(Inv, $" (ln L {md.LogLikelihood:0.00})"))));

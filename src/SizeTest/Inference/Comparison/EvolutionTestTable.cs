@@ -39,8 +39,15 @@ public sealed record EvolutionTestRow(string Model, string Parameter, double Val
     public string What => EvolutionTestTable.What(Parameter);
     /// <summary>"a" or "b".</summary>
     public string Symbol => EvolutionTestTable.Symbol(Parameter);
-    /// <summary>The estimate with its 68% interval at the PDG precision.</summary>
-    public string ValueText => PdgRounding.ValueWithInterval(Value, Lo, Hi);
+    /// <summary><c>lower</c> or <c>upper</c> when the estimate sits on that bound of the parameter's range (its interval is
+    /// then one-sided, from the bound to the profile's ½ crossing), else null.</summary>
+    public string? AtBound { get; init; }
+
+    /// <summary>The estimate with its 68% interval at the PDG precision; at a bound, the value and the one-sided interval
+    /// (never a ± interval).</summary>
+    public string ValueText => AtBound is { } b
+        ? $"{PdgRounding.Plain(Value)} at its {b} bound (one-sided 68% interval {PdgRounding.IntervalBounds(Value, Lo, Hi)})"
+        : PdgRounding.ValueWithInterval(Value, Lo, Hi);
     /// <summary>Half-width of the 68% interval (mean of the two sides).</summary>
     public double Error => 0.5 * (Hi - Lo);
 }
@@ -117,7 +124,7 @@ public static class EvolutionTestTable
                 var need = lrt is null ? EvolutionNeed.NotTested : lrt.PValue < Alpha ? EvolutionNeed.Needed : EvolutionNeed.NotNeeded;
                 var exp = expectations.FirstOrDefault(e => e.Parameter == BaseName(name));
                 rows.Add(new EvolutionTestRow(m.Name, name, est.Value, est.Lo, est.Hi, lrt?.PValue, need,
-                    exp?.Judge(est.Value, est.Lo, est.Hi) ?? Plausibility.NotJudged, exp));
+                    exp?.Judge(est.Value, est.Lo, est.Hi) ?? Plausibility.NotJudged, exp) { AtBound = est.AtBound });
             }
         return rows;
     }
@@ -129,7 +136,7 @@ public static class EvolutionTestTable
     public static string Statement(EvolutionTestRow row)
     {
         ArgumentNullException.ThrowIfNull(row);
-        string est = $"{row.Symbol} = {row.ValueText} (68% interval)";
+        string est = row.AtBound is null ? $"{row.Symbol} = {row.ValueText} (68% interval)" : $"{row.Symbol} = {row.ValueText}";
         string p = row.PValue is { } pv ? LikelihoodRatioTest.FormatPValue(pv) : "";
         return row.Need switch
         {

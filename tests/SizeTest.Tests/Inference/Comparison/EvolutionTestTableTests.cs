@@ -86,6 +86,22 @@ public sealed partial class EvolutionTestTableTests
     }
 
     [Fact]
+    public void AnEstimateAtABoundIsStatedWithItsOneSidedIntervalNeverWithPlusMinus()
+    {
+        // Issue 14: "a parameter pinned at a bound is reported as at bound and never shown as an interval" of ± form.
+        // Numbers from a fit of a committed-style mock with --bound size_evolution=-0.9:1 (Einstein–de Sitter wants a < −0.9).
+        var row = new EvolutionTestRow("eds", "size_evolution", -0.9, -0.9, -0.8992, 1e-301, EvolutionNeed.Needed, Plausibility.NotJudged, null)
+        { AtBound = "lower" };
+        string s = EvolutionTestTable.Statement(row);
+        Assert.Contains("at its lower bound (one-sided 68% interval", s, StringComparison.Ordinal);
+        Assert.DoesNotContain("±", s, StringComparison.Ordinal);
+        Assert.DoesNotContain("+0", s, StringComparison.Ordinal);
+        Assert.DoesNotContain(")(68% interval)", s.Replace(" ", "", StringComparison.Ordinal), StringComparison.Ordinal);
+        var interior = row with { AtBound = null, Lo = -0.95, Hi = -0.85 };
+        Assert.Contains("± 0.05 (68% interval)", EvolutionTestTable.Statement(interior), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void CallOutsNameModelsWithImplausibleEvolution()
     {
         var rows = EvolutionTestTable.From(DemoLike());
