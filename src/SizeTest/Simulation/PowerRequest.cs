@@ -64,7 +64,12 @@ public sealed record PowerRequest(
 
     /// <summary>What <see cref="EstimatedMemoryBytes"/> covers, naming the settings that size it (for the budget message).</summary>
     public string MemoryDescription() =>
-        $"the power analysis ({Mocks} mocks × {SampleSizes.Distinct().Count()} sample size{(SampleSizes.Distinct().Count() == 1 ? "" : "s")} up to N = {SampleSizes.Max()}, {Candidates.Count} models each: {(double)Mocks * SampleSizes.Distinct().Count() * Candidates.Count:0.###e0} fits)";
+        $"the power analysis ({Mocks} mocks × {SampleSizes.Distinct().Count()} sample size{(SampleSizes.Distinct().Count() == 1 ? "" : "s")} up to N = {SampleSizes.Max()}, {Candidates.Count} models each: {FitCount((double)Mocks * SampleSizes.Distinct().Count() * Candidates.Count)} fits)";
+
+    // A count of fits as people write it: digits up to 10⁹ (400, 2 000 000), then scientific (4e+12).
+    private static string FitCount(double n) => n < 1e9
+        ? n.ToString("#,0", System.Globalization.CultureInfo.InvariantCulture).Replace(",", " ", StringComparison.Ordinal)
+        : n.ToString("0.###e+0", System.Globalization.CultureInfo.InvariantCulture);
 }
 
 /// <summary>Progress of a power analysis: mocks fitted so far out of the total (over all sample sizes).</summary>

@@ -40,6 +40,8 @@ public sealed class PowerAndStudyBudgetTests : IDisposable
         var (exit, _, err) = CliRunner.Run(["power", "--mocks", "10", "--n", "2000", "--seed", "1", "--out", Path.Combine(_dir, "p"), "--max-memory", "1M"]);
         Assert.Equal(2, exit);
         Assert.Contains("more than --max-memory 1 MB", err);
+        // The work is stated as people write a count: 10 mocks × 1 sample size × 4 models = 40 fits (was "4e1 fits").
+        Assert.Contains("4 models each: 40 fits)", err);
     }
 
     [Theory]
