@@ -14,4 +14,14 @@ public static class IntervalMethods
     public const string Bootstrap = "bootstrap";
     /// <summary>The parameter was held fixed (lo = hi = value).</summary>
     public const string Fixed = "fixed";
+
+    /// <summary>The words tables and reports use for a method ("Hessian", "profile likelihood", …); the name itself when unknown.</summary>
+    public static string Words(string method) => method switch
+    {
+        Hessian => "Hessian",
+        Profile => "profile likelihood",
+        Posterior => "posterior",
+        Bootstrap => "bootstrap",
+        _ => method,
+    };
 }

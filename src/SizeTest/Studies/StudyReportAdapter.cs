@@ -96,8 +96,8 @@ public static class StudyReportAdapter
     {
         // The interval methods actually used (interval_method of every free parameter), e.g. "Hessian and profile-likelihood".
         var used = result.Models.SelectMany(m => m.Parameters).Where(p => !p.Fixed).Select(p => p.IntervalMethod).Distinct().ToList();
-        var words = new[] { (IntervalMethods.Hessian, "Hessian"), (IntervalMethods.Profile, "profile-likelihood"), (IntervalMethods.Posterior, "posterior"), (IntervalMethods.Bootstrap, "bootstrap") }
-            .Where(t => used.Contains(t.Item1)).Select(t => t.Item2).ToList();
+        var words = new[] { IntervalMethods.Hessian, IntervalMethods.Profile, IntervalMethods.Posterior, IntervalMethods.Bootstrap }
+            .Where(used.Contains).Select(IntervalMethods.Words).ToList();
         string intervals = words.Count == 0 ? "no free parameters"
             : (words.Count == 1 ? words[0] : string.Join(", ", words.Take(words.Count - 1)) + " or " + words[^1]) + " 68% intervals"
               + (words.Count > 1 ? " (each parameter's method in the parameter table and results.json)" : "");

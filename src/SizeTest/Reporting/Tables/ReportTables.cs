@@ -96,15 +96,6 @@ public static class ReportTables
 
     private static string Raw(ModelReport m, string name) => m.Fit.Parameters.FirstOrDefault(p => p.Name == name) is { } p ? R(p.Value) : "";
 
-    private static string IntervalMethodWords(string method) => method switch
-    {
-        Inference.IntervalMethods.Hessian => "Hessian",
-        Inference.IntervalMethods.Profile => "profile likelihood",
-        Inference.IntervalMethods.Posterior => "posterior",
-        Inference.IntervalMethods.Bootstrap => "bootstrap",
-        _ => method,
-    };
-
     /// <summary>Best-fit parameters of every model with 68% intervals.</summary>
     public static ReportTable Parameters(ReportData data)
     {
@@ -116,7 +107,7 @@ public static class ReportTables
                 string status = p.Fixed ? "fixed" : p.AtBound is { } b ? $"free, at its {b} bound" : "free";
                 rows.Add([m.Label, p.Name, p.Fixed ? PdgRounding.Plain(p.Value) : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi),
                     p.Fixed ? "" : PdgRounding.IntervalBounds(p.Value, p.Lo, p.Hi),
-                    p.Fixed ? "" : IntervalMethodWords(p.IntervalMethod), status, p.Unit]);
+                    p.Fixed ? "" : Inference.IntervalMethods.Words(p.IntervalMethod), status, p.Unit]);
                 raw.Add([m.Fit.Name, p.Name, R(p.Value), p.Fixed ? "" : R(p.Lo), p.Fixed ? "" : R(p.Hi), p.Fixed ? "" : p.IntervalMethod,
                     p.Fixed ? "fixed" : "free", p.AtBound ?? "", p.Unit]);
             }
