@@ -387,7 +387,10 @@ public abstract class FlrwModel : IWorldModel
     /// <summary>Below this many redshifts a curved model maps χ by sin/sinh per redshift instead of building the D_M table.</summary>
     private const int TransverseTableMinimumCount = 4096;
 
-    /// <summary>For benchmarks and tests: forces the scalar hot loop.</summary>
+    /// <summary>For benchmarks and tests: forces the scalar hot loop on the calling thread only. Per thread because the
+    /// two loops agree to ~1e-15 relative, not bit for bit, and tests running meanwhile on other threads compare results
+    /// bit for bit (the rank-invariance test once failed in the last digit while this was a process-wide switch).</summary>
+    [ThreadStatic]
     internal static bool DisableVectorPath;
 
     private enum TableKind { Comoving, Transverse, Lookback }

@@ -77,7 +77,7 @@ public abstract class FlrwContractTests : WorldModelContractTests
         var fast = new double[z.Length];
         var plain = new double[z.Length];
         m.AngularDiameterDistances(z, fast);
-        FlrwModel.DisableVectorPath = true; // harmless to tests running meanwhile: both loops give the same numbers
+        FlrwModel.DisableVectorPath = true; // this thread only (the switch is [ThreadStatic]): other tests compare bit for bit
         try { m.AngularDiameterDistances(z, plain); }
         finally { FlrwModel.DisableVectorPath = false; }
         for (int i = 0; i < z.Length; i++) Assert.Equal(plain[i], fast[i], 1e-13 * plain[i]);
