@@ -29,11 +29,10 @@ public static class AngularSizePlausibility
     {
         ArgumentNullException.ThrowIfNull(mapping);
         if (thetaRad is null || thetaRad.Count == 0 || !mapping.Roles.TryGetValue(ColumnRole.Theta, out var b) || b.IsRelative) return [];
-        var sorted = thetaRad.Where(double.IsFinite).ToArray();
-        if (sorted.Length == 0) return [];
-        Array.Sort(sorted);
-        int n = sorted.Length;
-        double median = (n % 2 == 1 ? sorted[n / 2] : 0.5 * (sorted[n / 2 - 1] + sorted[n / 2])) * AngleUnits.ArcsecPerRadian;
+        var finite = thetaRad.Where(double.IsFinite).ToArray();
+        if (finite.Length == 0) return [];
+        // Selection, not a sort: O(n) (a 10⁶-row sort cost 0.15 s of the load); the middle pair's mean for even n.
+        double median = MathNet.Numerics.Statistics.ArrayStatistics.MedianInplace(finite) * AngleUnits.ArcsecPerRadian;
         if (median is >= MinMedianArcsec and <= MaxMedianArcsec) return [];
         string bound = median > MaxMedianArcsec
             ? $"above {MaxMedianArcsec.ToString(CultureInfo.InvariantCulture)} arcsec (10 arcmin), larger than any sample of galaxies or compact radio sources"

@@ -37,16 +37,16 @@ public sealed class RedshiftGrid
             lo = Math.Min(lo, v);
             hi = Math.Max(hi, v);
         }
-        var distinct = z.ToArray();
-        Array.Sort(distinct);
-        int nd = 0;
-        for (int i = 0; i < distinct.Length; i++)
-            if (nd == 0 || distinct[i] != distinct[nd - 1]) distinct[nd++] = distinct[i];
-        if (nd <= nodes)
+        // The distinct redshifts, counted only up to nodes + 1 (a large sample of continuous redshifts stops after a few
+        // hundred objects instead of sorting them all).
+        var seen = new HashSet<double>();
+        foreach (var v in z)
+            if (seen.Add(v) && seen.Count > nodes) break;
+        if (seen.Count <= nodes)
         {
             IsExact = true;
             // Pad to 4 nodes so every stencil has 4 valid entries.
-            var list = distinct.AsSpan(0, nd).ToArray().ToList();
+            var list = seen.Order().ToList();
             while (list.Count < 4) list.Add(list[^1] * 1.5 + 0.1);
             Nodes = list.ToArray();
             for (int i = 0; i < z.Length; i++)

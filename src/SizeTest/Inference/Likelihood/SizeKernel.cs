@@ -12,7 +12,7 @@ namespace SizeTest.Inference.Likelihood;
 /// the kernel then runs on masked Gram matrices only (<see cref="SupportsMask"/>), which hold exactly the sums a copy of
 /// the included rows would.</remarks>
 internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut,
-    System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? sharedGrams = null, byte[]? mask = null) : IObservableKernel
+    SliceGramCache? sharedGrams = null, byte[]? mask = null) : IObservableKernel
 {
     /// <summary>Whether a size kernel on these rows, cut and distances can evaluate a row mask (the Gram path).</summary>
     public static bool SupportsMask(ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut) =>
@@ -23,7 +23,7 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
 
     // Equal ln θ variances and no cut: each slice's χ² is a quadratic form (SizeSliceGram), built at its first use; a
     // likelihood with parameters held fixed on the same rows and grid (profile refits) shares its parent's.
-    private readonly System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? _grams =
+    private readonly SliceGramCache? _grams =
         !UsesGrams(cols, cut) || (distances.FixedLnDa is null && distances.Grid is null) ? null
             : sharedGrams is not null && distances.FixedLnDa is null ? sharedGrams : new();
 
@@ -31,13 +31,15 @@ internal sealed class SizeKernel(ObjectColumns cols, DistanceTerms distances, Se
     public static bool UsesGrams(ObjectColumns cols, SelectionTruncation? cut) => cut is null && cols.UniformVarLnTheta;
 
     /// <summary>The slice Gram matrices (null when not used), for a likelihood that shares these rows and grid.</summary>
-    public System.Collections.Concurrent.ConcurrentDictionary<long, SizeSliceGram>? Grams => _grams;
+    public SliceGramCache? Grams => _grams;
 
     private SizeSliceGram? Gram(int start, int end) =>
         _grams is null || end <= start ? null
-            : _grams.GetOrAdd(((long)start << 32) | (uint)end, _ => distances.FixedLnDa is { } fixedLnDa
-                ? new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, fixedLnDa, null, null, start, end, mask)
-                : new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, cols.LnZ, distances.Grid, distances.ReferenceG, start, end, mask));
+            : _grams.GetOrAdd(start, end, static (s, e, k) => k.BuildGram(s, e), this);
+
+    private SizeSliceGram BuildGram(int start, int end) => distances.FixedLnDa is { } fixedLnDa
+        ? new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, fixedLnDa, null, null, start, end, mask)
+        : new SizeSliceGram(cols.LnTheta, cols.Ln1pZ, cols.LnZ, distances.Grid, distances.ReferenceG, start, end, mask);
 
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end)
     {
