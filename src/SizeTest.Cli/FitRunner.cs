@@ -126,9 +126,11 @@ internal static class FitRunner
             }
         }
 
+        // From here on the fit needs the catalogue only for its file rows and reject log: let its columns go (memory).
+        share = share! with { Local = share.Local.RowsOnly(), Whole = null };
         try
         {
-            var totals = share!.Combine(ranks);
+            var totals = share.Combine(ranks);
             var local = built!.Observables;
             if (a.CvFoldsExplicit && a.CrossValidationFolds > totals.Accepted)
                 throw new InputException($"--cv-folds {a.CrossValidationFolds} is more than the {totals.Accepted} objects accepted from {a.CataloguePath}; give at most {totals.Accepted} folds, or 0 for no cross-validation");

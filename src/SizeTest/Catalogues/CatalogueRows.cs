@@ -105,6 +105,13 @@ public sealed class CatalogueRows
     /// <summary>Further numeric columns kept by name (e.g. per-object K-correction, extinction).</summary>
     public IReadOnlyDictionary<string, double[]> ExtraColumns { get; }
 
+    /// <summary>
+    /// The same objects with only their file rows and redshifts (the other columns dropped), for a caller that has turned
+    /// the columns into observables and needs the rows only to name them: a 10⁶-row catalogue's ids and column arrays
+    /// (~100 MB) can then be collected before the fit.
+    /// </summary>
+    public CatalogueRows RowsOnly() => new(SourceName, SourceRows, Z, sizeDefinition: SizeDefinition);
+
     /// <summary>The objects at <paramref name="rows"/> (ascending indices), every role kept.</summary>
     public CatalogueRows Take(IReadOnlyList<int> rows)
     {
