@@ -11,15 +11,19 @@ namespace SizeTest.Cosmology;
 public sealed class WorldModelFamily : IWorldModelFamily
 {
     /// <summary>
-    /// Builds a model from values in the order of the parameter list (NaN = derived default).
+    /// Builds a model from the resolved values, read by spec (NaN = derived default).
     /// Returns null and a message when the combination is refused.
     /// </summary>
-    public delegate IWorldModel? Factory(ReadOnlySpan<double> values, out string? error);
+    public delegate IWorldModel? Factory(WorldModelValues values, out string? error);
 
     private readonly ParameterSpec[] _parameters;
     private readonly Factory _factory;
 
-    /// <summary>Defines a family.</summary>
+    /// <summary>
+    /// Defines a family. The factory is called once here with the defaults: it must read every
+    /// declared parameter and no other (a parameter left out of the list, or declared but never
+    /// used, throws <see cref="InvalidOperationException"/> at definition, not at a fit).
+    /// </summary>
     public WorldModelFamily(string name, string description, bool isExpanding, string dimmingLaw, IReadOnlyList<ParameterSpec> parameters, Factory factory)
     {
         Name = name;
@@ -28,6 +32,21 @@ public sealed class WorldModelFamily : IWorldModelFamily
         DimmingLaw = dimmingLaw;
         _parameters = parameters.ToArray();
         _factory = factory;
+        CheckFactoryReadsExactlyTheDeclaredParameters();
+    }
+
+    private void CheckFactoryReadsExactlyTheDeclaredParameters()
+    {
+        var duplicate = _parameters.GroupBy(p => p.Name, StringComparer.Ordinal).FirstOrDefault(g => g.Count() > 1);
+        if (duplicate is not null)
+            throw new InvalidOperationException($"World model '{Name}' declares parameter '{duplicate.Key}' twice.");
+        Span<double> defaults = stackalloc double[_parameters.Length];
+        for (int i = 0; i < _parameters.Length; i++) defaults[i] = _parameters[i].Default;
+        Span<bool> read = stackalloc bool[_parameters.Length];
+        _factory(new WorldModelValues(Name, _parameters, defaults, read), out _);
+        for (int i = 0; i < _parameters.Length; i++)
+            if (!read[i])
+                throw new InvalidOperationException($"World model '{Name}' declares parameter '{_parameters[i].Name}', which its factory never reads.");
     }
 
     /// <inheritdoc/>
@@ -79,7 +98,7 @@ public sealed class WorldModelFamily : IWorldModelFamily
             }
             v[index] = value;
         }
-        model = _factory(v, out string? refusal);
+        model = _factory(new WorldModelValues(Name, _parameters, v, []), out string? refusal);
         if (model is null)
         {
             error = refusal ?? $"World model '{Name}' refused these parameter values.";
@@ -88,6 +107,11 @@ public sealed class WorldModelFamily : IWorldModelFamily
         error = null;
         return true;
     }
+
+    /// <summary>The same family with its parameter list in another order or with parameters left
+    /// out (tests of the by-spec lookup: reordering changes nothing, leaving one out throws).</summary>
+    internal WorldModelFamily WithParameters(IReadOnlyList<ParameterSpec> parameters)
+        => new(Name, Description, IsExpanding, DimmingLaw, parameters, _factory);
 
     /// <summary>Index of parameter <paramref name="name"/>, or −1.</summary>
     public int IndexOf(string name)

@@ -29,21 +29,24 @@ public static class WorldModels
     public static readonly WorldModelFamily LambdaCdm = new("lcdm",
         "Cold dark matter and a cosmological constant; flat (ΩΛ = 1 − Ωm − Ωr) unless omega_lambda is given; radiation from t_cmb and n_eff.",
         true, FlrwDimming, LcdmParameters,
-        (ReadOnlySpan<double> v, out string? error) =>
+        (WorldModelValues v, out string? error) =>
         {
-            double? ol = double.IsNaN(v[2]) ? null : v[2];
-            error = LambdaCdmModel.Check(v[0], v[1], ol, v[3], v[4]);
-            return error is null ? new LambdaCdmModel(v[0], v[1], ol, v[3], v[4]) : null;
+            double h0 = v[WorldModelParameters.H0], om = v[WorldModelParameters.OmegaMatter];
+            double? ol = v.Optional(WorldModelParameters.OmegaLambda);
+            double t = v[WorldModelParameters.CmbTemperature], nEff = v[WorldModelParameters.EffectiveNeutrinoSpecies];
+            error = LambdaCdmModel.Check(h0, om, ol, t, nEff);
+            return error is null ? new LambdaCdmModel(h0, om, ol, t, nEff) : null;
         });
 
     /// <summary>Constant-w dark energy.</summary>
     public static readonly WorldModelFamily WCdm = new("wcdm",
         "Dark energy with a constant equation of state w = w0; flat unless omega_lambda (the dark-energy density) is given.",
         true, FlrwDimming, WcdmParameters,
-        (ReadOnlySpan<double> v, out string? error) =>
+        (WorldModelValues v, out string? error) =>
         {
-            double? ode = double.IsNaN(v[2]) ? null : v[2];
-            var p = DarkEnergyParameters.TryResolve("wcdm", v[0], v[1], ode, v[3], 0.0, v[4], v[5], includeWa: false, out error);
+            var p = DarkEnergyParameters.TryResolve("wcdm", v[WorldModelParameters.H0], v[WorldModelParameters.OmegaMatter],
+                v.Optional(WorldModelParameters.OmegaLambda), v[WorldModelParameters.W0], 0.0,
+                v[WorldModelParameters.CmbTemperature], v[WorldModelParameters.EffectiveNeutrinoSpecies], includeWa: false, out error);
             return p is null ? null : new WCdmModel(p);
         });
 
@@ -51,10 +54,11 @@ public static class WorldModels
     public static readonly WorldModelFamily W0WaCdm = new("w0wacdm",
         "Dark energy with w(a) = w0 + wa (1 − a) (Chevallier–Polarski–Linder); flat unless omega_lambda is given.",
         true, FlrwDimming, CplParameters,
-        (ReadOnlySpan<double> v, out string? error) =>
+        (WorldModelValues v, out string? error) =>
         {
-            double? ode = double.IsNaN(v[2]) ? null : v[2];
-            var p = DarkEnergyParameters.TryResolve("w0wacdm", v[0], v[1], ode, v[3], v[4], v[5], v[6], includeWa: true, out error);
+            var p = DarkEnergyParameters.TryResolve("w0wacdm", v[WorldModelParameters.H0], v[WorldModelParameters.OmegaMatter],
+                v.Optional(WorldModelParameters.OmegaLambda), v[WorldModelParameters.W0], v[WorldModelParameters.Wa],
+                v[WorldModelParameters.CmbTemperature], v[WorldModelParameters.EffectiveNeutrinoSpecies], includeWa: true, out error);
             return p is null ? null : new W0WaCdmModel(p);
         });
 
@@ -62,25 +66,25 @@ public static class WorldModels
     public static readonly WorldModelFamily EinsteinDeSitter = new("eds",
         "Einstein–de Sitter: flat, matter only (Ωm = 1); closed-form distances.",
         true, FlrwDimming, [WorldModelParameters.H0],
-        (ReadOnlySpan<double> v, out string? error) => { error = null; return new EinsteinDeSitterModel(v[0]); });
+        (WorldModelValues v, out string? error) => { error = null; return new EinsteinDeSitterModel(v[WorldModelParameters.H0]); });
 
     /// <summary>Milne (empty, open).</summary>
     public static readonly WorldModelFamily Milne = new("milne",
         "Milne: empty open universe (Ωm = ΩΛ = 0, Ωk = 1), E(z) = 1+z; closed-form distances.",
         true, FlrwDimming, [WorldModelParameters.H0],
-        (ReadOnlySpan<double> v, out string? error) => { error = null; return new MilneModel(v[0]); });
+        (WorldModelValues v, out string? error) => { error = null; return new MilneModel(v[WorldModelParameters.H0]); });
 
     /// <summary>Static Euclidean, linear Hubble law d = cz/H0.</summary>
     public static readonly WorldModelFamily StaticLinear = new("static-linear",
         "Static Euclidean space with a linear Hubble law at all z, d = cz/H0; θ = ℓ/d; D_L = d (1+z)^q.",
         false, StaticDimming, StaticParameters,
-        (ReadOnlySpan<double> v, out string? error) => CreateStatic(StaticDistanceLaw.Linear, v, out error));
+        (WorldModelValues v, out string? error) => CreateStatic(StaticDistanceLaw.Linear, v, out error));
 
     /// <summary>Static Euclidean, exponential tired light d = (c/H0) ln(1+z).</summary>
     public static readonly WorldModelFamily TiredLight = new("tired-light",
         "Static Euclidean space with exponential tired light, d = (c/H0) ln(1+z); θ = ℓ/d; D_L = d (1+z)^q.",
         false, StaticDimming, StaticParameters,
-        (ReadOnlySpan<double> v, out string? error) => CreateStatic(StaticDistanceLaw.Logarithmic, v, out error));
+        (WorldModelValues v, out string? error) => CreateStatic(StaticDistanceLaw.Logarithmic, v, out error));
 
     /// <summary>Every family, in contract order.</summary>
     public static IReadOnlyList<IWorldModelFamily> All { get; } = [LambdaCdm, WCdm, W0WaCdm, EinsteinDeSitter, Milne, StaticLinear, TiredLight];
@@ -100,10 +104,11 @@ public static class WorldModels
         => TryGet(name, out var family) ? family
             : throw new ArgumentException($"Unknown world model '{name}'{SizeTest.Foundation.Text.NameSuggestions.Hint(name, Names)}; known models are {string.Join(", ", Names)}.");
 
-    private static IWorldModel? CreateStatic(StaticDistanceLaw law, ReadOnlySpan<double> v, out string? error)
+    private static IWorldModel? CreateStatic(StaticDistanceLaw law, WorldModelValues v, out string? error)
     {
-        double? n = double.IsNaN(v[2]) ? null : v[2];
-        error = StaticEuclideanModel.Check(v[0], v[1], n);
-        return error is null ? new StaticEuclideanModel(law, v[0], v[1], n) : null;
+        double h0 = v[WorldModelParameters.H0], q = v[WorldModelParameters.LuminosityExponent];
+        double? n = v.Optional(WorldModelParameters.DimmingExponent);
+        error = StaticEuclideanModel.Check(h0, q, n);
+        return error is null ? new StaticEuclideanModel(law, h0, q, n) : null;
     }
 }
