@@ -49,7 +49,7 @@ public static class FitRun
             var lik = backend.Bind(h);
             var fit = MaximumLikelihood.Fit(lik, lik.Posterior, h.FreeParameters, backend.SuggestStart(h), opt);
             request.Timings?.Mark($"bind + multi-start fit {h.Label}");
-            var refined = ModelFitRefinement.Run(backend, lik, fit, request.ModeScanPoints, cancel);
+            var refined = ModelFitRefinement.Run(backend, lik, fit, request.ModeScanPoints, cancel, posteriorFollows: request.Sampler != SamplerKind.None && h.K > 0);
             request.Timings?.Mark($"mode search + intervals {h.Label}");
             fit = refined.Best;
             var summary = refined.Summary;

@@ -66,7 +66,7 @@ public static class FitSummaries
     }
 
     /// <summary>The value a world model derived for a parameter left "not given" (NaN), or NaN if it defines none.</summary>
-    private static double DerivedValue(Hypothesis h, double[] values, string name)
+    internal static double DerivedValue(Hypothesis h, double[] values, string name)
     {
         var given = new Dictionary<string, double>(StringComparer.Ordinal);
         var specs = h.Family.Parameters.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);

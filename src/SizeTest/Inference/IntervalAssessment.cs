@@ -45,8 +45,11 @@ public static class IntervalAssessment
     }
 
     /// <summary>As <see cref="Apply(HypothesisLikelihood, Observables, ModeSearchResult, ModelFitSummary)"/> with every
-    /// refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there.</summary>
-    public static IntervalAssessmentResult Apply(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, ModeSearchResult search, ModelFitSummary summary)
+    /// refit on <paramref name="backend"/>; <paramref name="likelihood"/> is the model bound there. With
+    /// <paramref name="posteriorFollows"/> a sampler will replace the intervals by posterior percentiles, and the notes say so
+    /// instead of saying that the profile interval is reported.</summary>
+    public static IntervalAssessmentResult Apply(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, ModeSearchResult search, ModelFitSummary summary,
+        bool posteriorFollows = false)
     {
         ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(likelihood);
@@ -101,9 +104,11 @@ public static class IntervalAssessment
             else if (!affected) nonQuadratic.Add(FormattableString.Invariant($"{p.Name} [{lo:G4}, {hi:G4}]") + (hasSe ? FormattableString.Invariant($" against the Hessian's ±{se:G3}") : " (the Hessian gave no finite σ)"));
         }
         if (nonQuadratic.Count > 0)
-            notes.Add($"{summary.Name}: the profile likelihood is not close to quadratic for {string.Join("; ", nonQuadratic)}, so the profile interval is reported");
+            notes.Add($"{summary.Name}: the profile likelihood is not close to quadratic for {string.Join("; ", nonQuadratic)}"
+                + (posteriorFollows ? "; " + PosteriorReported : ", so the profile interval is reported"));
         if (disjoint.Count > 0)
-            notes.Add($"{summary.Name}: the 68% profile-likelihood set is not one interval: {string.Join("; ", disjoint)} (lo–hi is their hull, which spans the modes and covers more than 68%; results.json lists the pieces as regions)");
+            notes.Add($"{summary.Name}: the 68% profile-likelihood set is not one interval: {string.Join("; ", disjoint)} "
+                + (posteriorFollows ? $"({PosteriorReported})" : "(lo–hi is their hull, which spans the modes and covers more than 68%; results.json lists the pieces as regions)"));
         IReadOnlyList<FitMode> modes = [];
         if (search.Multimodal)
         {
@@ -112,11 +117,14 @@ public static class IntervalAssessment
             var scanned = ModeSearch.ScannedParameters(h);
             string where = string.Join("; ", search.Modes.Select(m => string.Join(", ", scanned.Select(n => string.Create(Inv, $"{n} = {m.Theta[free.IndexOf(n)]:G3}"))) + string.Create(Inv, $" (ln L {m.LogLikelihood:0.00})")));
             notes.Insert(0, $"{summary.Name}: multimodal likelihood: {search.Modes.Count} distinct maxima within Δ ln L < {ModeSearch.ModeWindow:0} ({where}); "
-                + (profiled.Count > 0 ? $"the intervals of {string.Join(", ", profiled)} are profile-likelihood intervals spanning the modes" : "no interval is affected")
+                + (posteriorFollows ? PosteriorReported + " (they span the modes only as far as the chains visited them)"
+                    : profiled.Count > 0 ? $"the intervals of {string.Join(", ", profiled)} are profile-likelihood intervals spanning the modes" : "no interval is affected")
                 + "; every mode is listed in results.json (modes)");
         }
         return new IntervalAssessmentResult(summary with { Parameters = list, Modes = modes }, notes);
     }
+
+    private const string PosteriorReported = "the reported intervals are the sampler's posterior 16th–84th percentiles instead";
 
     // ln L at θ̂ ± Σ e_j / σ_j (inside the bounds) should be ½ below the maximum for a quadratic log-likelihood.
     private static bool QuadraticScreenPasses(Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult best, int j, double top)

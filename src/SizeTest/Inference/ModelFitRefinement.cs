@@ -27,7 +27,7 @@ public static class ModelFitRefinement
     /// <summary>Refines <paramref name="fit"/> of <paramref name="likelihood"/> (bound on <paramref name="backend"/>), every
     /// refit on the backend; <paramref name="scanPoints"/> = 0 skips the mode search.</summary>
     public static RefinedFit Run(Evaluation.EvaluationBackend backend, Evaluation.RowSumLikelihood likelihood, MaximumLikelihoodResult fit,
-        int scanPoints = ModeSearch.DefaultGridPoints, CancellationToken cancel = default)
+        int scanPoints = ModeSearch.DefaultGridPoints, CancellationToken cancel = default, bool posteriorFollows = false)
     {
         ArgumentNullException.ThrowIfNull(backend);
         ArgumentNullException.ThrowIfNull(likelihood);
@@ -37,7 +37,7 @@ public static class ModelFitRefinement
             : new ModeSearchResult(fit, [fit], new Dictionary<string, ProfileSample[]>());
         var summary = FitSummaries.From(likelihood.Hypothesis, backend.TotalObjects, search.Best);
         if (!double.IsFinite(search.Best.LogLikelihood)) return new RefinedFit(search.Best, summary, []);
-        var assessed = IntervalAssessment.Apply(backend, likelihood, search, summary);
+        var assessed = IntervalAssessment.Apply(backend, likelihood, search, summary, posteriorFollows);
         return new RefinedFit(search.Best, assessed.Summary, assessed.Notes);
     }
 

@@ -158,6 +158,17 @@ public static class PosteriorSampling
             int j = Array.IndexOf(names, p.Name);
             return j < 0 || p.Fixed ? p : p with { Value = p50(j), Lo = p16(j), Hi = p84(j) };
         }).ToArray();
+        // A value the model derives (e.g. omega_lambda = 1 − omega_m when flat) follows the reported point: at the posterior
+        // medians, not at the maximum the other parameters no longer show (for a one-parameter monotonic map, such as
+        // flatness, this is the derived quantity's own posterior median).
+        var medians = h.FullValues(Enumerable.Range(0, d).Select(p50).ToArray());
+        for (int i = 0; i < parameters.Length; i++)
+        {
+            int full = h.Parameters.ToList().FindIndex(q => q.Name == parameters[i].Name);
+            if (full < 0 || h.Parameters[full].IsFree || !double.IsNaN(h.Parameters[full].Value)) continue;
+            double derived = FitSummaries.DerivedValue(h, medians, parameters[i].Name);
+            parameters[i] = parameters[i] with { Value = derived, Lo = derived, Hi = derived };
+        }
         return (summary with
         {
             Parameters = parameters,
