@@ -69,7 +69,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var kind = hypothesis.Nuisance.Observable;
         if (_n == 0) throw new InputException("the sample has no accepted objects to fit");
         bool size = kind != ObservableKind.SurfaceBrightness, sb = kind != ObservableKind.Size;
-        _cols = new ObjectColumns(observables, size, sb);
+        _cols = ObjectColumns.For(observables, size, sb);
         if (size && observables.SizeDefinition.Kind == Catalogues.SizeKind.Isophotal)
         {
             if (kind != ObservableKind.Joint)

@@ -41,15 +41,13 @@ internal sealed class DistanceTerms
         _nFixed = model.BolometricDimmingExponent + hypothesis.Nuisance.DimmingExponentOffset;
         if (!size) return;
         _lnDaFixed = new double[n];
-        var da = new double[n];
-        var zs = z.ToArray();
-        var order = Enumerable.Range(0, n).ToArray();
-        Array.Sort(zs, order);
-        model.AngularDiameterDistances(zs, da);
+        // In catalogue order: a world model's batch distances take redshifts in any order (no sort of every z).
+        model.AngularDiameterDistances(z, _lnDaFixed);
         for (int k = 0; k < n; k++)
         {
-            if (!(da[k] > 0)) throw new ArgumentException($"world model '{hypothesis.Family.Name}' gives a non-positive angular-diameter distance at z = {zs[k]}");
-            _lnDaFixed[order[k]] = Math.Log(da[k]);
+            double da = _lnDaFixed[k];
+            if (!(da > 0)) throw new ArgumentException($"world model '{hypothesis.Family.Name}' gives a non-positive angular-diameter distance at z = {z[k]}");
+            _lnDaFixed[k] = Math.Log(da);
         }
     }
 

@@ -10,6 +10,20 @@ namespace SizeTest.Inference.Likelihood;
 /// </summary>
 internal sealed class ObjectColumns
 {
+    // One set of columns per observables instance and (size, sb) use: every hypothesis bound to the same rows shares them
+    // (a 10⁶-object fit of two models computed ln(1+z), ln z and the variances twice, ~60 ms and 24 MB).
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<Observables, ObjectColumns?[]> Shared = new();
+
+    /// <summary>The columns of <paramref name="observables"/> for these uses, built once and shared (the observables'
+    /// arrays are not changed after they are built).</summary>
+    public static ObjectColumns For(Observables observables, bool size, bool sb)
+    {
+        var slots = Shared.GetValue(observables, _ => new ObjectColumns?[4]);
+        int k = (size ? 1 : 0) + (sb ? 2 : 0);
+        lock (slots)
+            return slots[k] ??= new ObjectColumns(observables, size, sb);
+    }
+
     public ObjectColumns(Observables observables, bool size, bool sb)
     {
         Count = observables.Count;
