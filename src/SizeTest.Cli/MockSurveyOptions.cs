@@ -40,7 +40,7 @@ internal sealed class MockSurveyOptions
     public Option<double?> MagLimit { get; } = Number("--mag-limit", "Galaxies: keep only m_obs < LIMIT, m = μ − 2.5 log10(2π θ²).");
     public Option<double?> MinSize { get; } = Number("--min-size", "Keep only θ_obs > SIZE (arcsec; resolution limit).");
     public Option<double?> SizeErrFrac { get; } = Number("--size-err-frac", "Fractional size error (default 0.05).");
-    public Option<double?> SizeErrFloor { get; } = Number("--size-err-floor", "Size-error floor in arcsec, added in quadrature (default 0).");
+    public Option<double?> SizeErrFloor { get; } = Number("--size-err-floor", "Size-error floor in arcsec, added in quadrature, relative to the median size at z (default 0).");
     public Option<double?> MuErr { get; } = Number("--mu-err", "Galaxies: SB measurement error in mag (default 0.1).");
     public Option<double?> PhotoZErr { get; } = Number("--photoz-err", "Photometric-redshift error σ in σ(1+z) (default 0: spectroscopic).");
 

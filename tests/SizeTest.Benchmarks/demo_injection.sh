@@ -3,13 +3,13 @@
 # demo-catalogs/qdf-optical (a = -1.1, b = 1.0, SB limit 24.5, min size 0.08", size-error floor 0.02")
 # with seeds 5000+k, each fitted like demo-study.toml (lcdm, Ωm = 0.3 fixed, joint, both cuts as truncations,
 # size_evolution and sb_evolution free). Prints a, its interval and the pull per mock, then the mean pull.
-# Measured 2026-12-02 (30 mocks): mean a = −1.041 (truth −1.1), mean pull of a +1.71 (rms 1.97), of b −0.37: a is biased
-# by about +0.05 (1.5–1.7σ). Three mocks each with one ingredient at a time: no floor and no cuts −1.104, the SB cut
-# alone −1.099, the min-size cut alone −1.110, the 0.02" floor alone −1.058. The bias comes from the size-error floor:
-# the generator makes σ_ln = √(f² + (floor/θ_true)²) from the TRUE size, so an object's quoted error tells the fit its
-# true size (the error is not ancillary) while the likelihood treats σ_i as independent of θ_true; at fixed z the
-# small (downward-scattered in the population) objects get large σ_i and are down-weighted, pulling ln θ up most at
-# high z, so a comes out less negative. The truncations and the fitter's algebra are not the cause.
+# Measured 2026-12-02 (30 mocks) with the floor then taken from each object's TRUE size, σ_ln = √(f² + (floor/θ_true)²):
+# mean a = −1.041 (truth −1.1), mean pull of a +1.71 (rms 1.97), of b −0.37. One ingredient at a time: no floor and no cuts
+# −1.104, the SB cut alone −1.099, the min-size cut alone −1.110, the 0.02" floor alone −1.058: the quoted error told the fit
+# the true size (small objects got large σ_i and were down-weighted, pulling ln θ up most at high z).
+# Since 2026-12-03 the generator takes the floor at the population's median size at z, σ_ln = √(f² + (floor/θ_med(z))²)
+# (docs/simulation.md): 30 mocks give mean a = −1.097, mean pull of a +0.10 (rms 0.95; its standard error 0.17), of b −0.40
+# (rms 0.92; mean b = 0.991 against 1.0): a's bias is gone; b's −0.4σ was there before and does not come from the floor.
 # Usage (repository root, after building): tests/SizeTest.Benchmarks/demo_injection.sh [K] [WORKDIR]
 set -euo pipefail
 K=${1:-30}; W=${2:-/tmp/demo_injection}; S=src/SizeTest.Cli/bin/Release/net10.0/sizetest

@@ -174,14 +174,19 @@ public static class MockSurveyGenerator
             double sizeKpc = Math.Exp(Ln10 * log10Size);
             double thetaTrue = sizeKpc / da[i] * radPerKpcMpc;
             double frac = errors.SizeErrorFractionAtZMax is { } f1 ? sigmaFrac + (f1 - sigmaFrac) * (z - zLo) / (zHi - zLo) : sigmaFrac;
-            double sigmaLn = floor > 0 ? Math.Sqrt(frac * frac + floor * floor / (thetaTrue * thetaTrue)) : frac;
+            // The population's median angular size at this z (at the pivot luminosity): the scale of the errors that must carry no
+            // information about the object's own θ_true (the floor, and Gaussian errors).
+            double thetaMedian = Math.Exp(Ln10 * (s0 + sEvo * log10OnePlusZ)) / da[i] * radPerKpcMpc;
+            // The floor is set by the measurement (PSF, depth) at this z, not by the object: σ_ln = √(f² + (floor/θ_med(z))²). A floor
+            // from θ_true would make the quoted error tell the fit the true size, which the likelihood assumes it does not.
+            double sigmaLn = floor > 0 ? Math.Sqrt(frac * frac + floor * floor / (thetaMedian * thetaMedian)) : frac;
             double thetaObs, growth, thetaErr;
             if (gaussianErrors)
             {
                 // The quoted error is a fraction of the population's median size at this z (not of the object's own size), so it
                 // carries no information about θ_true: θ_obs ~ N(θ_true, σ_θ²) with σ_θ known, as a catalogue quotes it.
                 // GaussianOwnSize: the error is a fraction of the object's own true θ instead.
-                double thetaRef = ownSizeErrors ? thetaTrue : Math.Exp(Ln10 * (s0 + sEvo * log10OnePlusZ)) / da[i] * radPerKpcMpc;
+                double thetaRef = ownSizeErrors ? thetaTrue : thetaMedian;
                 thetaErr = frac * thetaRef;
                 thetaObs = thetaTrue + thetaErr * e3;
                 growth = thetaObs > 0 ? Math.Log(thetaObs / thetaTrue) : double.NaN;

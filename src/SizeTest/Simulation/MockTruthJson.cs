@@ -124,7 +124,7 @@ public static class MockTruthJson
                 ? "gaussian: theta_obs = theta_true + theta_err eps, theta_err = frac * median theta at z (pivot luminosity); theta_obs <= 0 counted as failed_min_size"
                 : e.SizeErrors == SizeErrorModel.GaussianOwnSize
                 ? "gaussian-own: theta_obs = theta_true + theta_err eps, theta_err = frac * theta_true of the object; theta_obs <= 0 counted as failed_min_size"
-                : "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/theta_true)^2); theta_err = sigma_ln theta_obs");
+                : "log-normal: ln theta_obs = ln theta_true + sigma_ln eps, sigma_ln = sqrt(frac^2 + (floor/median theta at z (pivot luminosity))^2); theta_err = sigma_ln theta_obs");
             w.WriteEndObject();
             var s = design.Cuts;
             w.WriteStartObject("selection");

@@ -31,6 +31,30 @@ public sealed class MockDistributionTests
         MockStats.AssertNormalMoments(r, 0, Math.Sqrt(Math.Pow(Ln10 * 0.2, 2) + 0.05 * 0.05), "ln θ residual");
     }
 
+    [Fact]
+    public void SizeErrorFloorIsSetByTheMedianSizeAtZNotByTheObject()
+    {
+        var model = WorldModels.Get("lcdm").Create(new Dictionary<string, double>());
+        var g = new GalaxyPopulation(R0Kpc: 4, SizeEvolution: -1.2, ScatterDex: 0.2);
+        var cat = Draw(model, 20000, 15, g, new MeasurementErrors(0.05, SizeErrorFloorArcsec: 0.1));
+        var quoted = new double[cat.Count];
+        var own = new double[cat.Count];
+        for (int i = 0; i < cat.Count; i++)
+        {
+            double z = cat.ZTrue[i];
+            double thetaMedian = model.AngularSizeArcsec(z, g.R0Kpc * Math.Pow(1 + z, g.SizeEvolution));
+            // Closed form (docs/simulation.md): theta_err/theta = σ_ln = √(f² + (floor/θ_med(z))²), θ_med = R0 (1+z)^a / D_A.
+            double expected = Math.Sqrt(0.05 * 0.05 + 0.1 * 0.1 / (thetaMedian * thetaMedian));
+            quoted[i] = cat.ThetaErrArcsec[i] / cat.ThetaArcsec[i];
+            Assert.Equal(expected, quoted[i], 1e-12); // relative 1e-12: the same formula, evaluated twice
+            own[i] = Math.Log(cat.ThetaTrueArcsec[i] / thetaMedian);
+        }
+        // The quoted error must not carry θ_true: its correlation with ln(θ_true/θ_med) is 0 within 4 standard errors (1/√n,
+        // Fisher 1915). A floor taken from θ_true gives ρ = −0.67 on this mock.
+        double rho = MockStats.Correlation(quoted, own);
+        Assert.InRange(rho, -4 / Math.Sqrt(cat.Count), 4 / Math.Sqrt(cat.Count));
+    }
+
     [Theory]
     [InlineData("lcdm", 4.0)]           // Tolman 1930: n = 4 for every FLRW model
     [InlineData("static-linear", 1.0)]  // static, energy loss only: n = 1 (the family's default)
