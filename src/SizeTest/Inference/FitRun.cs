@@ -111,6 +111,7 @@ public static class FitRun
         var first = request.Hypotheses[0].Nuisance;
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
         notes.AddRange(extraNotes);
+        if (PhysicalSizePlausibility.Note(ranked) is { } sizeScale) notes.Insert(0, sizeScale);
         if (first.SurveyTerms.Groups is { Count: > 1 } groups)
             notes.Add($"populations {string.Join(", ", groups)}: the required evolution is stated for each group (size_evolution@GROUP, each with its own likelihood-ratio test against 0); the model comparison (AIC, BIC, weights, Bayes factors) is one combined comparison over all groups, with the world model shared");
         if (ranked.Count > 1 && ranked[0].Tied)
