@@ -37,8 +37,16 @@ internal static class InspectCommand
                 var path = parse.GetValue(catalog)!;
                 var logPath = parse.GetValue(rejectLog);
                 bool overwrite = parse.GetValue(force);
-                if (logPath is not null && File.Exists(logPath) && !overwrite)
-                    throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
+                if (logPath is not null)
+                {
+                    // Nothing the user gave is replaced, not even with --force: the catalogue being read is never the reject log.
+                    if (SizeTest.Foundation.Files.FilePaths.SameFile(logPath, path))
+                        throw new InputException($"reject log '{logPath}' is the catalogue being read; choose another path (--force never replaces an input)");
+                    if (Directory.Exists(logPath))
+                        throw new InputException($"reject log '{logPath}' is a folder; name a file, e.g. --reject-log {Path.Combine(logPath, "rejects.csv")}");
+                    if (File.Exists(logPath) && !overwrite)
+                        throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
+                }
                 var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
                 var photText = phot.ToText(parse);
                 var photometry = phot.ToOptions(parse);

@@ -176,5 +176,27 @@ public sealed class OutputFolderTests : IDisposable
         Assert.Equal(2, exit);
         Assert.Contains("is a folder; name a file", err);
         Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "keep.txt")));
+        Assert.Contains(Path.Combine(folder, "rejects.csv"), err); // the message suggests a file in that folder
+    }
+
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void InspectRejectLogOntoTheCatalogueItselfIsRefusedEvenWithForceAndTheCatalogueIsKept(bool viaSymlink)
+    {
+        // `inspect CAT --reject-log CAT --force` replaced the catalogue with its reject log (found re-checking issue 14).
+        var cat = Path.Combine(_dir, "c.csv");
+        File.WriteAllText(cat, HardeningData.CatalogueText(20));
+        var before = File.ReadAllBytes(cat);
+        var target = cat;
+        if (viaSymlink)
+        {
+            target = Path.Combine(_dir, "link.csv");
+            File.CreateSymbolicLink(target, cat);
+        }
+        var (exit, _, err) = CliRunner.Run(["inspect", cat, "--reject-log", target, "--force"]);
+        Assert.Equal(2, exit);
+        Assert.Contains("is the catalogue being read", err);
+        Assert.Equal(before, File.ReadAllBytes(cat));
     }
 }

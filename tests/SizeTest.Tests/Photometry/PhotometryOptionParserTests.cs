@@ -101,7 +101,7 @@ public sealed class PhotometryOptionParserTests
     [InlineData("template:sed.txt,flux:jansky", "flux:'jansky' is not flambda or fnu")]
     [InlineData("template:sed.txt,filter-obs:r.txt,filter-obs:b.txt", "'filter-obs' is given twice")]
     [InlineData("template:missing.txt", "missing.txt")]
-    [InlineData("template:sed.txt,filter-obs:badrow.txt", "badrow.txt, line 2, column '2': 'x' is not a number")]
+    [InlineData("template:sed.txt,filter-obs:badrow.txt", "badrow.txt, line 2, column 2: 'x' is not a number")]
     [InlineData("template:sed.txt,filter-obs:decreasing.txt", "wavelengths must increase")]
     [InlineData("none,powerlaw:1", "expected none")]
     public void KCorrectionErrorsAreClear(string spec, string expected)

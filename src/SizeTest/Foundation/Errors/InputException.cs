@@ -40,7 +40,8 @@ public sealed class InputException : Exception
         var where = new List<string>();
         if (file is not null) where.Add(file);
         if (line is not null) where.Add($"{lineLabel} {line}");
-        if (column is not null) where.Add($"column '{column}'");
+        // A position (a study file's character column, a headerless table's column number) reads "column 4"; a name is quoted.
+        if (column is not null) where.Add(column.Length > 0 && column.All(char.IsAsciiDigit) ? $"column {column}" : $"column '{column}'");
         return where.Count == 0 ? message : $"{string.Join(", ", where)}: {message}";
     }
 }
