@@ -34,8 +34,9 @@ public sealed record EvidenceResult
     /// <summary>True when the run stopped on the tolerance (false: iteration limit).</summary>
     public required bool Converged { get; init; }
 
-    /// <summary>Why the run stopped, in words.</summary>
-    public required string ExitReason { get; init; }
+    /// <summary>Why the run stopped: <see cref="ExitCause.Converged"/> (tolerance met, or one likelihood plateau left) or
+    /// <see cref="ExitCause.SamplerNotConverged"/> (iteration limit), with the sentence.</summary>
+    public required ExitReason ExitReason { get; init; }
 
     /// <summary>Wall time.</summary>
     public required TimeSpan Elapsed { get; init; }

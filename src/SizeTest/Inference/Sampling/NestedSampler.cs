@@ -90,7 +90,7 @@ public sealed class NestedSampler
         double logZ = double.NegativeInfinity, h = 0.0;
         int iteration = 0;
         bool converged = false;
-        string exitReason = "";
+        var exitReason = ExitReason.None;
         var candidate = new double[d];
         var candidateTheta = new double[d];
         int recomputeEvery = Math.Max(1, n / 20);
@@ -121,8 +121,8 @@ public sealed class NestedSampler
                 // The whole remaining prior mass X lies on one plateau of height L: its evidence X·L is exact
                 // and is added below as the live-point contribution.
                 converged = true;
-                exitReason = string.Create(CultureInfo.InvariantCulture,
-                    $"all live points lie on one likelihood plateau (ln L = {threshold:G6}); its prior mass was added exactly");
+                exitReason = new ExitReason(ExitCause.Converged, string.Create(CultureInfo.InvariantCulture,
+                    $"all live points lie on one likelihood plateau (ln L = {threshold:G6}); its prior mass was added exactly"));
                 break;
             }
             for (int t = 0; t < tied.Count; t++)
@@ -142,14 +142,14 @@ public sealed class NestedSampler
             if (remaining < _options.Tolerance)
             {
                 converged = true;
-                exitReason = string.Create(CultureInfo.InvariantCulture,
-                    $"remaining evidence changes ln Z by {remaining:G3} < tolerance {_options.Tolerance:G3}");
+                exitReason = new ExitReason(ExitCause.Converged, string.Create(CultureInfo.InvariantCulture,
+                    $"remaining evidence changes ln Z by {remaining:G3} < tolerance {_options.Tolerance:G3}"));
                 break;
             }
             if (iteration >= _options.MaxIterations)
             {
-                exitReason = string.Create(CultureInfo.InvariantCulture,
-                    $"stopped at the iteration limit {_options.MaxIterations} with ln Z still uncertain by {remaining:G3} from the live points (tolerance {_options.Tolerance:G3})");
+                exitReason = new ExitReason(ExitCause.SamplerNotConverged, string.Create(CultureInfo.InvariantCulture,
+                    $"stopped at the iteration limit {_options.MaxIterations} with ln Z still uncertain by {remaining:G3} from the live points (tolerance {_options.Tolerance:G3})"));
                 break;
             }
 

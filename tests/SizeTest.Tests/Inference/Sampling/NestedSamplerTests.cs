@@ -77,7 +77,8 @@ public sealed class NestedSamplerTests
         // H for a Gaussian inside a wide uniform prior: ln((b−a)/(σ_μ √(2πe))) = ln(10/2.066) ≈ 1.58 nats (closed form);
         // the estimate scatters by O(σ_lnZ), so ±0.3.
         Assert.InRange(result.Information, 1.58 - 0.3, 1.58 + 0.3);
-        Assert.True(result.Converged, result.ExitReason);
+        Assert.True(result.Converged, result.ExitReason.Text);
+        Assert.Equal(ExitCause.Converged, result.ExitReason.Cause);
         Assert.Equal(1.0, result.WeightedDraws.Sum(w => Math.Exp(w.LogWeight)), 9);
         // Posterior mean ≈ ȳ: standard error σ_μ/√ESS (Kish ESS of the weights), bound 5 SE.
         double se = like.SigmaMu(0) / Math.Sqrt(result.EffectiveSampleSize);
@@ -190,7 +191,8 @@ public sealed class NestedSamplerTests
         var like = new GaussianDataLikelihood([0.0], [0.1], n: 10, seed: 12);
         var r = new NestedSampler(like, [new UniformPrior(-5, 5)], new NestedSamplerOptions { LivePoints = 20, MaxIterations = 30 }).Run();
         Assert.False(r.Converged);
-        Assert.Contains("iteration limit", r.ExitReason);
+        Assert.Contains("iteration limit", r.ExitReason.Text);
+        Assert.Equal(ExitCause.SamplerNotConverged, r.ExitReason.Cause);
     }
 
     [Fact]
@@ -217,6 +219,7 @@ public sealed class NestedSamplerTests
         Assert.Equal(-1.5, r.LogEvidence, 12);
         Assert.Equal(0.0, r.LogEvidenceError, 6);
         Assert.True(r.Converged);
-        Assert.Contains("plateau", r.ExitReason);
+        Assert.Contains("plateau", r.ExitReason.Text);
+        Assert.Equal(ExitCause.Converged, r.ExitReason.Cause);
     }
 }
