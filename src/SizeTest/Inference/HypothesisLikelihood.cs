@@ -31,7 +31,8 @@ namespace SizeTest.Inference;
 /// common practice]. The magnitude is m = μ − 5 log10(θ/″) − 2.5 log10(2π).</para>
 /// <para>Isophotal sizes (<see cref="Observables.SizeDefinition"/> of kind <see cref="Catalogues.SizeKind.Isophotal"/>; joint
 /// only): the mean ln θ becomes ln θ_iso = ln[R0 (1+z)^a / D_A] + ln(r_iso/R_e) with r_iso/R_e from
-/// <see cref="IsophotalSize"/> for the Sérsic index <see cref="Observables.SersicIndex"/>, the isophote
+/// <see cref="IsophotalSize"/> for each object's Sérsic index (<see cref="SurveyObservables.SersicN"/>, the <c>sersic_n</c> column,
+/// where mapped; else the sample-wide <see cref="Observables.SersicIndex"/>), the isophote
 /// <see cref="Observables.Isophote"/> and the model's mean observed SB at R_e, μ_e,obs = μ0 + 2.5 (n − b) log10(1+z)
 /// + K + A (+ κ term), i.e. mu0 is read as the rest-frame SB at R_e (Graham &amp; Driver 2005 eq. 5). Where the model's
 /// observed central SB is fainter than the isophote the object could not be in the sample: its density, and the whole
@@ -77,8 +78,11 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
             if (hypothesis.Nuisance.Cuts.MagLimit is not null)
                 throw new InputException("--mag-limit cannot be combined with isophotal sizes (the total magnitude is not a function of the isophotal size); drop the magnitude cut");
             var isophote = observables.Isophote ?? throw new InputException("the sizes are isophotal but the observables carry no isophote level; build them with the photometry stage");
-            double sersicN = observables.SersicIndex ?? throw new InputException("the sizes are isophotal: set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii");
-            _isophotal = new IsophotalCorrection(new IsophotalSize(sersicN), isophote);
+            // Each object's own Sérsic index (sersic_n column) where mapped, else the sample-wide index.
+            _isophotal = observables.Survey.SersicN is { } perObject
+                ? new IsophotalCorrection(perObject, isophote)
+                : new IsophotalCorrection(new IsophotalSize(observables.SersicIndex
+                    ?? throw new InputException("the sizes are isophotal: set a Sérsic index (e.g. --sersic-n 1) or map a sersic_n column so the fit can predict isophotal radii")), isophote);
         }
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);

@@ -28,7 +28,7 @@ public sealed class IsophotalSize
     public IsophotalSize(double sersicN)
     {
         _n = sersicN;
-        _scale = 1.0 / (SersicProfile.MagnitudesPerEFold * SersicProfile.Bn(sersicN));
+        _scale = Scale(sersicN);
     }
 
     /// <summary>The Sérsic index n.</summary>
@@ -46,13 +46,24 @@ public sealed class IsophotalSize
     /// observed SB at R_e: d ln(r_iso/R_e)/dμ_e,obs = −n·s/[1 + (μ_iso − μ_e,obs)·s], s = ln 10/(2.5 b_n) (differentiating
     /// the class formula). Both −∞/0 when the isophote is not reached.
     /// </summary>
-    public bool TryLnRadiusRatio(double muEffObserved, double isophote, out double lnRatio, out double slope)
+    public bool TryLnRadiusRatio(double muEffObserved, double isophote, out double lnRatio, out double slope) =>
+        TryLnRadiusRatio(_n, _scale, muEffObserved, isophote, out lnRatio, out slope);
+
+    /// <summary>s = ln 10/(2.5 b_n) in mag⁻¹ for Sérsic index <paramref name="sersicN"/>, the scale the static overloads take.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">n outside the accepted range of <see cref="SersicProfile"/>.</exception>
+    public static double Scale(double sersicN) => 1.0 / (SersicProfile.MagnitudesPerEFold * SersicProfile.Bn(sersicN));
+
+    /// <summary>
+    /// The instance method's ln(r_iso/R_e) and its derivative in μ_e,obs for any Sérsic index <paramref name="sersicN"/> with its
+    /// <paramref name="scale"/> = <see cref="Scale"/>(n) computed beforehand (one index per object without an instance each).
+    /// </summary>
+    public static bool TryLnRadiusRatio(double sersicN, double scale, double muEffObserved, double isophote, out double lnRatio, out double slope)
     {
-        double bracket = 1.0 + (isophote - muEffObserved) * _scale;
+        double bracket = 1.0 + (isophote - muEffObserved) * scale;
         if (bracket > 0 && !double.IsNaN(bracket))
         {
-            lnRatio = _n * Math.Log(bracket);
-            slope = -_n * _scale / bracket;
+            lnRatio = sersicN * Math.Log(bracket);
+            slope = -sersicN * scale / bracket;
             return true;
         }
         lnRatio = double.NegativeInfinity;

@@ -120,6 +120,49 @@ public sealed class IsophotalLikelihoodTests
     }
 
     [Fact]
+    public void IsophotalPredictionUsesEachObjectsSersicIndex()
+    {
+        // Five objects with Sérsic indices 0.8–6 from a sersic_n column (the sample-wide index 1 must be overridden). Reference:
+        // Reference/Photometry/sersic_isophote_scipy.py (scipy 1.10.1): b_n from gammaincinv(2n, 1/2), r_iso/R_e by brentq on the
+        // profile's intensity, the light fraction inside the isophote from gammainc(2n, b_n x^(1/n)) (Graham & Driver 2005 eqs. 2–5).
+        var rows = File.ReadAllLines(Path.Combine(AppContext.BaseDirectory, "Reference", "Photometry", "sersic_isophote_scipy.csv"))
+            .Where(l => !l.StartsWith('#')).Skip(1).Select(l => l.Split(',').Select(v => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture)).ToArray()).ToArray();
+        Assert.Equal(5, rows.Length);
+        var model = TestWorldModels.Eds.Create(Defaults);
+        double mu0 = 20.0, r0 = 4, a = -1, sdex = 0.1, b = 1, smag = 0.1;
+        int n = rows.Length;
+        var z = rows.Select(r => r[0]).ToArray();
+        var sersic = rows.Select(r => r[1]).ToArray();
+        var lnTheta = new double[n];
+        var mu = new double[n];
+        double expected = 0;
+        for (int i = 0; i < n; i++)
+        {
+            var (zi, ni, muEff, bn, lnRatio, light) = (rows[i][0], rows[i][1], rows[i][2], rows[i][3], rows[i][4], rows[i][5]);
+            Assert.Equal(bn, SersicProfile.Bn(ni), 1e-12);                                          // b_n, absolute 1e-12
+            Assert.Equal(lnRatio, IsophotalSize.TryLnRadiusRatio(ni, muEff, Iso, out double l) ? l : double.NaN, 1e-10); // absolute 1e-10 in ln
+            Assert.Equal(light, SersicProfile.EnclosedLightFraction(ni, Math.Exp(lnRatio)), 1e-12);   // light inside the isophote, absolute 1e-12
+            // The object sits 0.2 dex and 0.15 mag off the model, so ln L depends on the predicted isophotal radius.
+            double lnThetaIso = Math.Log(r0 * Math.Pow(1 + zi, a) * 1e-3 / model.AngularDiameterDistance(zi)) + lnRatio;
+            lnTheta[i] = lnThetaIso + 0.2 * Math.Log(10);
+            mu[i] = muEff + 0.15;
+            double vt = 0.05 * 0.05 + Math.Pow(Math.Log(10) * sdex, 2), vm = 0.05 * 0.05 + smag * smag;
+            double rt = lnTheta[i] - lnThetaIso, rm = mu[i] - muEff;
+            expected += -0.5 * (rt * rt / vt + rm * rm / vm + Math.Log(vt * vm)) - Math.Log(2 * Math.PI); // bivariate normal, ρ = 0
+        }
+        var obs = new Observables(z, lnTheta, Enumerable.Repeat(0.05, n).ToArray(), mu, Enumerable.Repeat(0.05, n).ToArray(),
+            sizeDefinition: new SizeDefinition(SizeKind.Isophotal, Iso), isophote: Enumerable.Repeat(Iso, n).ToArray(), sersicIndex: 1.0,
+            survey: new SurveyObservables(SersicN: sersic));
+        var fixedValues = new Dictionary<string, double> { ["r0_kpc"] = r0, ["size_evolution"] = a, ["scatter_dex"] = sdex, ["sb_evolution"] = b, ["scatter_mag"] = smag };
+        var lik = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint), new ParameterOverrides(Fixed: fixedValues)).Bind(obs);
+        Assert.Equal(expected, lik.LogDensity([mu0]), 9); // 9 decimals: the scipy radii carry ~1e-15 relative error
+        // The sample-wide index alone (no column) predicts other radii and another ln L.
+        var uniform = Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Joint), new ParameterOverrides(Fixed: fixedValues))
+            .Bind(new Observables(z, lnTheta, obs.LnThetaErr!, mu, obs.MuErr!, sizeDefinition: obs.SizeDefinition, isophote: obs.Isophote, sersicIndex: 1.0));
+        Assert.True(Math.Abs(uniform.LogDensity([mu0]) - expected) > 1, "a single n = 1 should not reproduce the per-object ln L");
+    }
+
+    [Fact]
     public void IsophotalSizesNeedTheJointObservableAndNoMagnitudeCut()
     {
         var mock = Draw(50, seed: 3);
