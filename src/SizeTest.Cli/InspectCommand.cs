@@ -1,7 +1,5 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text;
-using System.Text.Json;
 using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
@@ -56,7 +54,7 @@ internal static class InspectCommand
                 if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
                 switch (parse.GetValue(format))
                 {
-                    case "json": WriteJson(context.Out, path, load, corrections); break;
+                    case "json": context.Out.WriteLine(CatalogueInspectionJson.Write(path, load, corrections)); break;
                     case "csv": WriteCsv(context.Out, load); break;
                     default: WriteTable(context.Out, path, load, logPath, corrections); break;
                 }
@@ -156,80 +154,4 @@ internal static class InspectCommand
     }
 
     private static string R(double v) => double.IsNaN(v) ? "" : v.ToString("R", CultureInfo.InvariantCulture);
-
-    private static void WriteJson(TextWriter o, string path, CatalogueLoad load, IReadOnlyList<string> corrections)
-    {
-        using var ms = new MemoryStream();
-        using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
-        {
-            void Num(string name, double v) { if (double.IsFinite(v)) w.WriteNumber(name, v); else w.WriteNull(name); }
-            w.WriteStartObject();
-            w.WriteString("file", path);
-            w.WriteString("format", load.Format switch { CatalogueFormat.Fits => "fits", CatalogueFormat.VoTable => "votable", CatalogueFormat.Parquet => "parquet", _ => "text" });
-            if (load.Table is null) w.WriteNull("table"); else w.WriteString("table", load.Table);
-            w.WriteStartArray("layout");
-            foreach (var n in load.LayoutNotes) w.WriteStringValue(n);
-            w.WriteEndArray();
-            w.WriteStartArray("columns");
-            foreach (var c in load.Columns)
-            {
-                w.WriteStartObject();
-                w.WriteString("name", c.Name);
-                w.WriteString("type", c.Kind.ToString().ToLowerInvariant());
-                w.WriteString("stored_as", c.NativeType);
-                if (c.Unit is null) w.WriteNull("unit"); else w.WriteString("unit", c.Unit);
-                if (c.Ucd is null) w.WriteNull("ucd"); else w.WriteString("ucd", c.Ucd);
-                if (c.Description is null) w.WriteNull("description"); else w.WriteString("description", c.Description);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteStartArray("mapping");
-            foreach (var role in ColumnRoles.All)
-            {
-                if (!load.Mapping.Roles.TryGetValue(role, out var b)) continue;
-                w.WriteStartObject();
-                w.WriteString("role", role.Name());
-                w.WriteString("column", b.ColumnName);
-                w.WriteString("unit", b.Unit);
-                w.WriteString("unit_source", b.UnitReason);
-                w.WriteBoolean("relative", b.IsRelative);
-                w.WriteString("reason", b.Reason);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteString("size_definition", SizeDefinitions.Format(load.Mapping.SizeDefinition));
-            w.WriteStartArray("kept_columns");
-            foreach (var (name, _) in load.Mapping.Kept) w.WriteStringValue(name);
-            w.WriteEndArray();
-            w.WriteStartArray("detection");
-            foreach (var line in load.DetectionReport) w.WriteStringValue(line);
-            w.WriteEndArray();
-            w.WriteNumber("rows_read", load.RowsRead);
-            w.WriteNumber("accepted", load.Accepted);
-            w.WriteNumber("rejected", load.Rejected);
-            w.WriteStartObject("reject_reasons");
-            foreach (var (reason, count) in load.RejectLog.CountsByReason()) w.WriteNumber(reason.Code(), count);
-            w.WriteEndObject();
-            w.WriteStartArray("statistics");
-            foreach (var s in load.Statistics())
-            {
-                w.WriteStartObject();
-                w.WriteString("role", s.Role.Name());
-                w.WriteString("column", s.Column);
-                w.WriteString("unit", s.Unit);
-                w.WriteNumber("count", s.Count);
-                w.WriteNumber("null_count", s.NullCount);
-                Num("min", s.Min);
-                Num("median", s.Median);
-                Num("max", s.Max);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteStartArray("corrections");
-            foreach (var c in corrections) w.WriteStringValue(c);
-            w.WriteEndArray();
-            w.WriteEndObject();
-        }
-        o.WriteLine(Encoding.UTF8.GetString(ms.ToArray()));
-    }
 }
