@@ -23,7 +23,14 @@ public static class StudyReportAdapter
     /// <param name="Load">The catalogue load (sample, reject log, mapping).</param>
     /// <param name="CorrectionLines">The photometry corrections applied, in words (<c>PhotometryResult.Corrections</c>).</param>
     /// <param name="Hypotheses">The hypotheses fitted (for parameter statuses and priors).</param>
-    public sealed record Inputs(StudyDefinition Study, CatalogueLoad Load, IReadOnlyList<string> CorrectionLines, IReadOnlyList<Hypothesis> Hypotheses);
+    public sealed record Inputs(StudyDefinition Study, CatalogueLoad Load, IReadOnlyList<string> CorrectionLines, IReadOnlyList<Hypothesis> Hypotheses)
+    {
+        /// <summary>The fitted objects (needed for the binned-evolution figure's bin positions), or null.</summary>
+        public Photometry.Observables? Observables { get; init; }
+
+        /// <summary>With binned evolution: each model's power-law counterpart fit, by model label (<see cref="BinnedEvolutionReport.FitPowerLaws"/>).</summary>
+        public IReadOnlyDictionary<string, ModelFitSummary> PowerLawFits { get; init; } = new Dictionary<string, ModelFitSummary>();
+    }
 
     /// <summary>Builds the report data; <paramref name="posterior"/>, <paramref name="power"/> and <paramref name="manifest"/> may be null.</summary>
     public static ReportData Build(FitResult result, Inputs inputs, string version, string gitCommit, string catalogueLabel,
@@ -46,6 +53,8 @@ public static class StudyReportAdapter
                     .Select(r => new EvolutionRequirement(r.Parameter, Describe(r.Parameter), r.Value, r.Lo, r.Hi)).ToArray(),
             };
             if (WorldModels.TryGet(fit.Name, out var family)) report = WithCurves(report, family, fit, study.Nuisance, zMin, zMax, result.Settings.Selection.SbLimit, MedianMuError(points));
+            if (inputs.Observables is { } obs && inputs.Hypotheses.FirstOrDefault(h => h.Label == fit.Name) is { } hyp && hyp.Nuisance.SurveyTerms.Binned)
+                report = report with { BinnedEvolution = BinnedEvolutionReport.For(hyp, fit, obs, inputs.PowerLawFits.GetValueOrDefault(fit.Name)) };
             models.Add(report);
         }
 

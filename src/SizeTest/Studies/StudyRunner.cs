@@ -107,6 +107,15 @@ public static class StudyRunner
             }, options.FitProgress);
             if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
             Stage("fit");
+            IReadOnlyDictionary<string, ModelFitSummary> powerLaws = new Dictionary<string, ModelFitSummary>();
+            if (hypotheses.Any(h => h.Nuisance.SurveyTerms.Binned))
+            {
+                // The binned-evolution figure draws each model's power law over its bins: the same model refitted with R0 (1+z)^a.
+                options.Log?.Invoke("fitting each model's power-law counterpart for the binned-evolution figure");
+                powerLaws = BinnedEvolutionReport.FitPowerLaws(hypotheses, observables, new OptimizerSettings(Starts: study.Starts, Seed: study.Seed));
+                result = result with { Notes = [.. result.Notes, BinnedEvolutionReport.Note(hypotheses, powerLaws)] };
+                Stage("power-law counterparts");
+            }
 
             // Every model was sampled once inside the fit; the best-ranked model's chain is the one plotted.
             var posterior = result.Models.Count > 0 ? Plotted(result, result.Models[0].Name, hypotheses) : null;
@@ -136,7 +145,7 @@ public static class StudyRunner
                 StudyFileText = study.StudyFileText,
                 Inputs = RunManifest.DescribeInputs(inputs, wd),
             };
-            var adapterInputs = new StudyReportAdapter.Inputs(study, load, photometry.Corrections, hypotheses);
+            var adapterInputs = new StudyReportAdapter.Inputs(study, load, photometry.Corrections, hypotheses) { Observables = observables, PowerLawFits = powerLaws };
             var data = StudyReportAdapter.Build(result, adapterInputs, options.Version, options.GitCommit, Rel(study.CataloguePath), posterior, power, manifest);
             Stage("report data");
 

@@ -16,10 +16,10 @@ public sealed class FigureRendererTests
     private static FigureSpec Get(string id) => Figures.Value.Single(f => f.Id == id);
 
     [Fact]
-    public void SyntheticDataProduceAllSevenFigures()
+    public void SyntheticDataProduceAllEightFigures()
     {
-        // The fixture has sizes, SB, evolution terms, criteria, posterior, power and rejects, so every builder applies.
-        Assert.Equal(["angular-size", "surface-brightness", "required-evolution", "model-comparison", "posterior-corner", "power", "rejects"],
+        // The fixture has sizes, SB, evolution terms, binned evolution, criteria, posterior, power and rejects, so every builder applies.
+        Assert.Equal(["angular-size", "surface-brightness", "required-evolution", "binned-evolution", "model-comparison", "posterior-corner", "power", "rejects"],
             Figures.Value.Select(f => f.Id));
     }
 
@@ -94,6 +94,29 @@ public sealed class FigureRendererTests
         Assert.True(spec.Panels[0].X.Log && spec.Panels[0].Y.Log);
         Assert.Equal(2, spec.Panels.Count); // residual panel
         Assert.Equal("residuals against ΛCDM", spec.Panels[1].Note);
+    }
+
+    [Fact]
+    public void BinnedEvolutionFigureDrawsEachModelsBinsWithItsPowerLaw()
+    {
+        var spec = Get("binned-evolution");
+        // One panel per model with binned evolution (ΛCDM: one population; static linear: two), on log–log axes of 1 + z and R0.
+        Assert.Equal(2, spec.Panels.Count);
+        Assert.All(spec.Panels, p => Assert.True(p.X.Log && p.Y.Log && p.Y.Unit == "kpc" && p.X.Label == "1 + z"));
+        Assert.Single(spec.Panels[0].Series.OfType<BinnedSeries>());
+        Assert.Equal(2, spec.Panels[1].Series.OfType<BinnedSeries>().Count());
+        Assert.Equal(2, spec.Panels[1].Series.OfType<LineSeries>().Count());
+        Assert.StartsWith("ΛCDM: a = -0.98", spec.Panels[0].Note);
+        Assert.Contains("early: a = 0.35", spec.Panels[1].Note);
+        // Points sit at 1 + z_eff; the power-law line equals R0 (1+z)^a there (the fixture's unbent static model).
+        var bins = spec.Panels[1].Series.OfType<BinnedSeries>().First();
+        var line = spec.Panels[1].Series.OfType<LineSeries>().First();
+        for (int k = 0; k < bins.Y.Count; k++)
+        {
+            double x = bins.XCentre![k];
+            int j = line.X.Select((v, i) => (Math.Abs(v - x), i)).Min().i;
+            Assert.Equal(3.2 * Math.Pow(line.X[j], 0.35), line.Y[j], 1e-9); // the closed form R0 (1+z)^a, absolute 1e-9 kpc
+        }
     }
 
     [Fact]

@@ -63,6 +63,10 @@ internal static class SyntheticReport
                        RequiredEvolution = [new("size_evolution", "size evolution a, R ∝ (1+z)^a", 0.05, -0.08, 0.18)] },
         };
         models = WithComparison(models);
+        // Binned evolution (made up): five bins on R0 (1+z)^a, the ΛCDM ones with a bend at high z the power law cannot follow,
+        // and the static model with two populations.
+        models[0] = models[0] with { BinnedEvolution = [Binned("", 5.0, -0.98, 0.12)] };
+        models[1] = models[1] with { BinnedEvolution = [Binned("early", 3.2, 0.35, 0), Binned("late", 6.1, 0.2, 0)] };
         var edges = BinnedStatistics.EqualCountEdges(z, 8);
         var data = new ReportData
         {
@@ -95,6 +99,19 @@ internal static class SyntheticReport
             },
         };
         return data;
+    }
+
+    private static BinnedSizeEvolution Binned(string group, double r0, double a, double bend)
+    {
+        double[] e = [0.05, 0.3, 0.6, 1.0, 1.6, 3.0];
+        var bins = new List<BinnedSize>();
+        for (int k = 0; k < 5; k++)
+        {
+            double zEff = Math.Sqrt((1 + e[k]) * (1 + e[k + 1])) - 1;
+            double r = r0 * Math.Pow(1 + zEff, a) * Math.Exp(bend * k * k / 8.0);
+            bins.Add(new BinnedSize(e[k], e[k + 1], zEff, r, r * 0.94, r * 1.06, 60));
+        }
+        return new BinnedSizeEvolution(group, bins) { PowerLaw = new PowerLawSize(r0, a, a - 0.05, a + 0.05) };
     }
 
     private static CornerDraws Posterior(Random rng)

@@ -30,6 +30,9 @@ public sealed record ModelReport(ModelFitSummary Fit)
     /// <summary>Evolution the model needs to fit (e.g. the size-evolution exponent with its interval).</summary>
     public IReadOnlyList<EvolutionRequirement> RequiredEvolution { get; init; } = [];
 
+    /// <summary>With binned evolution: per population the fitted R0 of each redshift bin and the power-law fit; empty otherwise.</summary>
+    public IReadOnlyList<BinnedSizeEvolution> BinnedEvolution { get; init; } = [];
+
     /// <summary><see cref="DisplayName"/> or the model name.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public string Label => DisplayName.Length > 0 ? DisplayName : Cosmology.WorldModelDisplayNames.For(Fit.Name);

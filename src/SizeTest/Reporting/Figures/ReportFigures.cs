@@ -6,7 +6,7 @@ namespace SizeTest.Reporting.Figures;
 public static class ReportFigures
 {
     /// <summary>
-    /// Builds, in order: angular size, surface brightness (Tolman), required evolution,
+    /// Builds, in order: angular size, surface brightness (Tolman), required evolution, binned evolution,
     /// information criteria, posterior corner plot, power curve, reject summary.
     /// </summary>
     public static IReadOnlyList<FigureSpec> Build(ReportData data, FigureOptions? options = null)
@@ -17,6 +17,7 @@ public static class ReportFigures
             AngularSizeFigure.Build(data, options),
             SurfaceBrightnessFigure.Build(data, options),
             RequiredEvolutionFigure.Build(data),
+            BinnedEvolutionFigure.Build(data),
             CriteriaFigure.Build(data),
             CornerFigure.Build(data, options),
             PowerFigure.Build(data),
