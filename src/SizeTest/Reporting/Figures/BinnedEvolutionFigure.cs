@@ -68,7 +68,7 @@ public static class BinnedEvolutionFigure
             }
             panels.Add(new PanelSpec
             {
-                X = xAxis, Y = new AxisSpec("R0 of the bin", "kpc") { Log = true }, Series = series,
+                X = xAxis, Y = YAxis(m.BinnedEvolution, xMin, xMax), Series = series,
                 Row = i / columns, Column = i % columns, Legend = i == 0 ? LegendPlace.Below : LegendPlace.None,
                 XAxisLabelled = i + columns >= models.Count, YAxisLabelled = true, // each model has its own R0 scale
                 Note = m.Label + (notes.Count > 0 ? ": " + string.Join("; ", notes) : ""),
@@ -89,5 +89,26 @@ public static class BinnedEvolutionFigure
             RowHeights = Enumerable.Repeat(1.0, rows).ToArray(),
             HeightInches = 1.0 + 2.6 * rows,
         };
+    }
+
+    /// <summary>Minimum span of the R0 axis, dex: a narrower range (a model needing almost no evolution) leaves the log axis no inner ticks.</summary>
+    private const double MinSpanDex = 0.3;
+
+    /// <summary>The log R0 axis of one panel: the bins' intervals and the power law over the x range, widened about its centre to <see cref="MinSpanDex"/>.</summary>
+    private static AxisSpec YAxis(IReadOnlyList<BinnedSizeEvolution> evolutions, double xMin, double xMax)
+    {
+        var axis = new AxisSpec("R0 of the bin", "kpc") { Log = true };
+        var values = new List<double>();
+        foreach (var evo in evolutions)
+        {
+            values.AddRange(evo.Bins.SelectMany(b => new[] { b.Lo, b.Hi, b.R0Kpc }));
+            if (evo.PowerLaw is { } law) values.AddRange([law.At(xMin - 1), law.At(xMax - 1)]);
+        }
+        values = values.Where(v => v > 0 && double.IsFinite(v)).ToList();
+        if (values.Count == 0) return axis;
+        double lo = Math.Log10(values.Min()), hi = Math.Log10(values.Max());
+        if (hi - lo >= MinSpanDex) return axis;
+        double mid = (lo + hi) / 2;
+        return axis with { Min = Math.Pow(10, mid - MinSpanDex / 2), Max = Math.Pow(10, mid + MinSpanDex / 2) };
     }
 }
