@@ -35,11 +35,17 @@ internal sealed class InterruptCleanup : IDisposable
     private static void Stop(PosixSignalContext ctx, int exitCode)
     {
         ctx.Cancel = true;
+        // Environment.Exit runs the process-exit handlers while the work threads go on; should one of them
+        // hold the exit up, the process still ends with the signal's exit code, staging already removed.
+        new Thread(() => { Thread.Sleep(TimeSpan.FromSeconds(10)); StagingRegistry.RemoveAll(); ExitNow(exitCode); }) { IsBackground = true }.Start();
         StagingRegistry.RemoveAll();
         try { Console.Error.WriteLine($"sizetest: interrupted ({ctx.Signal}); staging files removed, earlier output left as it was"); }
         catch (IOException) { }
         Environment.Exit(exitCode);
     }
+
+    [DllImport("libc", EntryPoint = "_exit")]
+    private static extern void ExitNow(int status);
 
     private static void OnExit(object? sender, EventArgs e) => StagingRegistry.RemoveAll();
 

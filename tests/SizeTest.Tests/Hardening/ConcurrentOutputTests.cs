@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Files;
 using System.Diagnostics;
 using System.Text.Json;
 using Xunit;
@@ -111,6 +112,51 @@ public sealed class ConcurrentOutputTests : IDisposable
         {
             if (immutable) RunTool("chattr", "-i", frozen);
         }
+    }
+
+    /// <summary>
+    /// An earlier result that the file system forbids changing (the folder, or one file in it, chattr +i; the
+    /// folder chattr +a) is refused by <c>--force</c> at the start, before the work, with exit 2 and one line;
+    /// the earlier result stays byte for byte and nothing staged is left. Before, the whole fit ran and the
+    /// final rename failed. Where the file system has no such flags (chattr fails) there is nothing to refuse,
+    /// and the test checks only that FileSystemLocks reports no lock.
+    /// </summary>
+    [Fact]
+    public void AnImmutableEarlierResultIsRefusedBeforeTheRunStarts()
+    {
+        File.WriteAllText(Path.Combine(_dir, "c.csv"), HardeningData.CatalogueText(40));
+        var res = Path.Combine(_dir, "res");
+        Assert.Equal(0, CliProcess.Run(_dir, ["fit", "c.csv", .. HardeningData.ColArgs, .. HardeningData.Quick, "--out", "res"]).Exit);
+        var before = Directory.EnumerateFiles(res, "*", SearchOption.AllDirectories).ToDictionary(f => f, File.ReadAllBytes);
+        var results = Path.Combine(res, "results.json");
+        foreach (var (flag, entry) in new[] { ("+i", res), ("+i", results), ("+a", res) })
+        {
+            if (RunTool("chattr", flag, entry) != 0)
+            {
+                Assert.False(FileSystemLocks.IsImmutable(entry));
+                continue;
+            }
+            try
+            {
+                Assert.True(FileSystemLocks.IsImmutable(entry), $"chattr {flag} {entry} is not seen");
+                // Bootstrap resamples make the fit itself take about a second; the refusal must come first.
+                var (exit, stdout, err, _) = CliProcess.Run(_dir, ["fit", "c.csv", .. HardeningData.ColArgs, .. HardeningData.Quick, "--bootstrap", "40", "--out", "res", "--force"]);
+                Assert.Equal(2, exit);
+                var line = Assert.Single(err.Trim().Split('\n'), l => l.StartsWith("sizetest: ", StringComparison.Ordinal));
+                Assert.Contains("immutable", line);
+                Assert.Contains("choose another --out", line);
+                Assert.DoesNotContain("internal error", err);
+                Assert.DoesNotContain("bootstrap", stdout + err, StringComparison.OrdinalIgnoreCase);
+            }
+            finally
+            {
+                RunTool("chattr", flag.Replace('+', '-'), entry);
+            }
+            Assert.Equal(before.Keys.Order(), Directory.EnumerateFiles(res, "*", SearchOption.AllDirectories).Order());
+            foreach (var (f, bytes) in before) Assert.Equal(bytes, File.ReadAllBytes(f));
+            Assert.Equal(["c.csv", "res"], Directory.EnumerateFileSystemEntries(_dir).Select(Path.GetFileName).Order());
+        }
+        Assert.False(FileSystemLocks.IsImmutable(res));
     }
 
     private static int RunTool(string tool, params string[] args)

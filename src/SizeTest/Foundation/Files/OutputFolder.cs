@@ -205,8 +205,16 @@ public sealed class OutputFolder : IDisposable
             if (old is not null)
             {
                 StagingRegistry.Unregister(old);
-                var kept = DeleteOwned(old);
-                if (kept is not null) notes.Add($"files that appeared in '{_display}' during the run were kept in '{kept}'");
+                _done = true;   // the new results are in place: a failure below must not discard them
+                try
+                {
+                    var kept = DeleteOwned(old);
+                    if (kept is not null) notes.Add($"files that appeared in '{_display}' during the run were kept in '{kept}'");
+                }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                {
+                    notes.Add($"the previous contents of '{_display}' could not all be deleted ({e.Message.TrimEnd('.')}); they are kept in '{KeepAside(old)}'");
+                }
             }
             _done = true;
             return notes;
@@ -293,8 +301,29 @@ public sealed class OutputFolder : IDisposable
             foreach (var f in Files(full))
                 if (!owned.Contains(f))
                     throw new InputException($"output folder '{display}' holds '{f}', which sizetest did not write; --force replaces only sizetest's own files; move it away or choose another --out");
+        CheckReplaceable(display, full, owned);
         var text = File.Exists(Path.Combine(full, MarkerFileName)) ? File.ReadAllText(Path.Combine(full, MarkerFileName)) : "(no marker)";
         return (text + "\n" + string.Join("\n", Files(full)), owned);
+    }
+
+    // Replacing moves the folder aside and deletes the files SizeTest wrote there: refuse now, before the run,
+    // what the file system would refuse then (an immutable folder or file, a folder without write permission).
+    private static void CheckReplaceable(string display, string full, IEnumerable<string> owned)
+    {
+        if (FileSystemLocks.IsImmutable(full))
+            throw new InputException($"output folder '{display}' is marked immutable or append-only (chattr +i/+a) and cannot be replaced; clear the flag or choose another --out");
+        var folders = new HashSet<string>(StringComparer.Ordinal) { full };
+        foreach (var rel in owned.Append(MarkerFileName))
+        {
+            var path = Path.Combine(full, rel);
+            if (!File.Exists(path) && !Directory.Exists(path)) continue;
+            if (FileSystemLocks.IsImmutable(path))
+                throw new InputException($"output folder '{display}' holds '{rel}', which is marked immutable or append-only (chattr +i/+a), so --force cannot replace it; clear the flag or choose another --out");
+            folders.Add(Path.GetDirectoryName(path)!);
+        }
+        foreach (var folder in folders.Where(Directory.Exists))
+            if (!FileSystemLocks.CanChangeFolder(folder))
+                throw new InputException($"output folder '{display}' cannot be replaced: sizetest may not delete files in '{folder}' (no write permission, or immutable); choose another --out");
     }
 
     private static void CheckNotInside(string display, string full, IEnumerable<string> inputs)
@@ -328,9 +357,15 @@ public sealed class OutputFolder : IDisposable
             Directory.Delete(old);
             return null;
         }
+        return KeepAside(old);
+    }
+
+    // Gives a left-over old folder a visible name beside the target; keeps the hidden name if that fails.
+    private string KeepAside(string old)
+    {
         var keep = Target + $".kept-{DateTime.UtcNow:yyyyMMddTHHmmss}";
-        Directory.Move(old, keep);
-        return keep;
+        try { Directory.Move(old, keep); return keep; }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { return old; }
     }
 
     private static FileStream AcquireLock(string display, string lockPath)

@@ -41,16 +41,15 @@ public static class StagingRegistry
 
     /// <summary>
     /// Marks the process as terminating and deletes every registered staging folder and file.
-    /// Safe to call more than once and from a signal handler thread.
+    /// Safe to call more than once and from a signal handler thread. The paths stay registered: a writer
+    /// that passed <see cref="ThrowIfTerminating"/> just before the flag was set may re-create its folder,
+    /// and the next call (the process-exit handler) deletes it again.
     /// </summary>
     public static void RemoveAll()
     {
         _terminating = true;
         foreach (var path in Live.Keys.ToArray())
-        {
             TryDelete(path);
-            Live.TryRemove(path, out _);
-        }
     }
 
     /// <summary>
