@@ -42,7 +42,6 @@ public static class PhotoZCost
             $"ratio marginalised / spectroscopic: {m.Seconds / s.Seconds:0.00}x wall ({m.Seconds / i.Seconds:0.00}x against the same catalogue with z exact); per evaluation {m.PerEval / s.PerEval:0.00}x; target ≤ 3x"));
         // Where the cost goes: the time per evaluation against the number J of redshift nodes (the default is 7): the intercept
         // is the survey kernel's fixed cost per object, the slope the cost of one more node per object.
-        // With few nodes an object whose nodes all lie outside the prior has no density and the fit fails: said, not hidden.
         foreach (int j in new[] { 3, 5, 7, 9 })
         {
             string what = FormattableString.Invariant($"  marginalised, {j} z nodes");

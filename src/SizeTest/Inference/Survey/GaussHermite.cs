@@ -5,18 +5,13 @@ namespace SizeTest.Inference.Survey;
 /// (Abramowitz &amp; Stegun 1964, 25.4.46). Nodes by Newton's method on the orthonormal Hermite recurrence
 /// (Press et al., Numerical Recipes 3rd ed., §4.6 <c>gauher</c>).
 /// </summary>
-public sealed class GaussHermite
+public sealed class GaussHermite : QuadratureRule
 {
-    /// <summary>Nodes x_j, ascending.</summary>
-    public double[] Nodes { get; }
+    /// <summary>The m-point rule (1 ≤ m ≤ 100) for the weight function e^{−x²} (the weights sum to √π).</summary>
+    public GaussHermite(int m) : base(m, "Gauss–Hermite", Build) { }
 
-    /// <summary>Weights w_j for the weight function e^{−x²} (they sum to √π).</summary>
-    public double[] Weights { get; }
-
-    /// <summary>The m-point rule (1 ≤ m ≤ 100).</summary>
-    public GaussHermite(int m)
+    private static (double[] Nodes, double[] Weights) Build(int m)
     {
-        if (m is < 1 or > 100) throw new ArgumentOutOfRangeException(nameof(m), m, "Gauss–Hermite order must be 1–100");
         var x = new double[m];
         var w = new double[m];
         const double pim4 = 0.7511255444649425; // π^(−1/4)
@@ -52,7 +47,6 @@ public sealed class GaussHermite
         }
         Array.Reverse(x);
         Array.Reverse(w);
-        Nodes = x;
-        Weights = w;
+        return (x, w);
     }
 }

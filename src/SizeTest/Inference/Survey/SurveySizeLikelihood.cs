@@ -209,6 +209,8 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             _nodeLogW = new double[_n * J];
             _nodeLumBase = new double[_n * J];
             var nodeZ = new double[_n * J];
+            GaussLegendre? gl = null;
+            int truncated = 0;
             for (int i = 0; i < _n; i++)
             {
                 double sum = 0;
@@ -224,10 +226,27 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
                     _nodeLnz[q] = Math.Log(nodeZ[q]);
                     if (_lumBase is not null) _nodeLumBase[q] = _lumBase[i] - _lumZSlope * (_nodeLn1pz[q] - _ln1pz[i]);
                 }
-                for (int j = 0; j < J; j++)
+                if (sum > 0)
+                    for (int j = 0; j < J; j++)
+                    {
+                        int q = i * J + j;
+                        _nodeLogW[q] = _nodeLogW[q] > 0 ? Math.Log(_nodeLogW[q] / sum) : double.NegativeInfinity;
+                    }
+                else
                 {
-                    int q = i * J + j;
-                    _nodeLogW[q] = _nodeLogW[q] > 0 ? Math.Log(_nodeLogW[q] / sum) : double.NegativeInfinity;
+                    // No node inside the prior: the truncated normal on the prior by Gauss–Legendre (TruncatedRedshiftNodes).
+                    if (!(zErr[i] > 0))
+                        throw new InputException($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen --z-prior or drop the object");
+                    truncated++;
+                    gl ??= new GaussLegendre(J);
+                    TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), _nodeLogW.AsSpan(i * J, J));
+                    for (int j = 0; j < J; j++)
+                    {
+                        int q = i * J + j;
+                        _nodeLn1pz[q] = Math.Log(1 + nodeZ[q]);
+                        _nodeLnz[q] = Math.Log(nodeZ[q]);
+                        if (_lumBase is not null) _nodeLumBase[q] = _lumBase[i] - _lumZSlope * (_nodeLn1pz[q] - _ln1pz[i]);
+                    }
                 }
             }
             if (lnDaFixed is not null)
@@ -239,6 +258,8 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             else
                 _nodeGrid = new RedshiftGrid(nodeZ, grid!.Nodes.Length, gridMinZ, gridMaxZ);
             notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
+            if (truncated > 0)
+                notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
         }
         Notes = notes;
     }
