@@ -37,7 +37,7 @@ internal sealed class CliContext
         switch (ex)
         {
             case InputException ie:
-                Err.WriteLine($"sizetest: {TerminalText.Escape(ie.Message)}");
+                Err.WriteLine($"sizetest: {TerminalText.Escape(SettingFlags.Message(ie))}");
                 if (Verbose && ie.InnerException is not null) Err.WriteLine(ie.InnerException);
                 return ExitCodes.BadInput;
             case ArgumentException ae:

@@ -88,15 +88,16 @@ internal static class FitCommand
                 bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
                 if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
                 int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
-                if (nBoot < 0) throw new InputException("--bootstrap must be 0 or more");
-                if (nFolds is < 0 or 1) throw new InputException("--cv-folds must be 0 (none) or at least 2");
-                if (nStarts < 1) throw new InputException("--starts must be at least 1");
                 var samplerName = SamplerKinds.Parse(parse.GetValue(sampler) ?? "none");
                 int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
                 int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
-                if (nWalkers < 4 || (nSteps != 0 && nSteps < 10) || nLive < 10) throw new InputException("--walkers needs at least 4, --steps and --live-points at least 10");
-                if (nMax < 10) throw new InputException("--max-steps must be at least 10");
                 var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+                // The settings are checked by the library before the catalogue is read (FitRun.Run checks them again).
+                SettingProblem.ThrowIfAny(new FitRequest
+                {
+                    Hypotheses = hypotheses, Observables = new Observables([]), Starts = nStarts, Bootstrap = nBoot, CrossValidationFolds = nFolds,
+                    Sampler = samplerName, Walkers = nWalkers, Steps = nSteps, MaxSteps = nMax, LivePoints = nLive,
+                }.Validate());
                 long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
                 FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
                 if (samplerName == SamplerKind.Mcmc)

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference;
@@ -53,6 +54,23 @@ public sealed record FitRequest
     public Func<string, Sampling.IChainStore?>? ChainStoreFactory { get; init; }
     /// <summary>When set, each model's stages (fit, mode search and intervals, evolution tests, bootstrap, CV) are marked on it.</summary>
     public SizeTest.Foundation.Profiling.StageTimings? Timings { get; init; }
+
+    /// <summary>
+    /// The problems with the request's settings (empty when it can run), each naming the setting: at least one
+    /// start, no negative bootstrap count, 0 or ≥ 2 folds, and for the samplers at least 4 walkers, 10 steps (or
+    /// 0: auto), 10 maximum steps and 10 live points. The sample is not looked at, so a caller can check the
+    /// settings before it loads one; <see cref="FitRun.Run"/> refuses a request with problems.
+    /// </summary>
+    public IReadOnlyList<SettingProblem> Validate()
+    {
+        var problems = new List<SettingProblem>();
+        if (Bootstrap < 0) problems.Add(new("{bootstrap} must be 0 or more"));
+        if (CrossValidationFolds is < 0 or 1) problems.Add(new("{cv_folds} must be 0 (none) or at least 2"));
+        if (Starts < 1) problems.Add(new("{starts} must be at least 1"));
+        if (Walkers < 4 || (Steps != 0 && Steps < 10) || LivePoints < 10) problems.Add(new("{walkers} needs at least 4, {steps} and {live_points} at least 10"));
+        if (MaxSteps < 10) problems.Add(new("{max_steps} must be at least 10"));
+        return problems;
+    }
 }
 
 /// <summary>Progress of a study: a stage name and how far it is.</summary>

@@ -14,6 +14,7 @@ public static class FitRun
     {
         ArgumentNullException.ThrowIfNull(request);
         if (request.Hypotheses.Count == 0) throw new ArgumentException("no world models to fit");
+        SizeTest.Foundation.Errors.SettingProblem.ThrowIfAny(request.Validate());
         if (request.Sampler == SamplerKind.Mcmc)
             foreach (var h in request.Hypotheses.Where(h => h.K > 0))
                 Sampling.ChainMemory.Check(request.Walkers, request.Steps > 0 ? request.Steps : request.MaxSteps, h.K, request.ChainMemoryBudget);

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 
 namespace SizeTest.Simulation;
@@ -25,20 +26,31 @@ public sealed record PowerRequest(
     int Starts = 1,
     int? MaxThreads = null)
 {
-    /// <summary>Checks the request; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>The problems with the request's settings (empty when it can run), each naming the setting
+    /// (<see cref="SettingProblem"/>): two or more candidates including the true one, K ≥ 1 mocks, sample sizes of
+    /// at least 10, a target power in (0, 1), at least one start and one thread.</summary>
+    public IReadOnlyList<SettingProblem> Problems()
+    {
+        ArgumentNullException.ThrowIfNull(Candidates);
+        var problems = new List<SettingProblem>();
+        if (Candidates.Count < 2) problems.Add(new("a power analysis needs at least two candidate world models to compare"));
+        else if (Candidates.All(c => c.Label != TrueCandidate))
+            problems.Add(new($"the true model '{TrueCandidate}' is not among the candidates ({string.Join(", ", Candidates.Select(c => c.Label))}); add it to {{models}}"));
+        if (Mocks < 1) problems.Add(new($"{{mocks}} must be at least 1; got {Mocks}"));
+        if (SampleSizes is null || SampleSizes.Count == 0 || SampleSizes.Any(n => n < 10))
+            problems.Add(new("{sample_sizes} needs one or more sample sizes of at least 10 objects, e.g. {sample_sizes} 250,500,1000,2000"));
+        if (!(TargetPower > 0 && TargetPower < 1)) problems.Add(new(FormattableString.Invariant($"{{target_power}} must be between 0 and 1; got {TargetPower}")));
+        if (Starts < 1) problems.Add(new("{starts} must be at least 1"));
+        if (MaxThreads is < 1) problems.Add(new("{threads} must be at least 1"));
+        return problems;
+    }
+
+    /// <summary>Checks the request: throws an <see cref="InputException"/> carrying <see cref="Problems"/>, then
+    /// checks the mock survey template.</summary>
     public void Validate()
     {
         ArgumentNullException.ThrowIfNull(Template);
-        ArgumentNullException.ThrowIfNull(Candidates);
-        if (Candidates.Count < 2) throw new ArgumentException("a power analysis needs at least two candidate world models to compare");
-        if (Candidates.All(c => c.Label != TrueCandidate))
-            throw new ArgumentException($"the true model '{TrueCandidate}' is not among the candidates ({string.Join(", ", Candidates.Select(c => c.Label))}); add it to --models");
-        if (Mocks < 1) throw new ArgumentException($"--mocks must be at least 1; got {Mocks}");
-        if (SampleSizes is null || SampleSizes.Count == 0 || SampleSizes.Any(n => n < 10))
-            throw new ArgumentException("--n needs one or more sample sizes of at least 10 objects, e.g. --n 250,500,1000,2000");
-        if (!(TargetPower > 0 && TargetPower < 1)) throw new ArgumentException($"--target-power must be between 0 and 1; got {TargetPower}");
-        if (Starts < 1) throw new ArgumentException("--starts must be at least 1");
-        if (MaxThreads is < 1) throw new ArgumentException("--threads must be at least 1");
+        SettingProblem.ThrowIfAny(Problems());
         Template.Validate();
     }
 

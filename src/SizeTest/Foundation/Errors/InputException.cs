@@ -35,6 +35,10 @@ public sealed class InputException : Exception
     /// <summary>The message without the location prefix.</summary>
     public string Reason { get; }
 
+    /// <summary>When the error is about request settings: the problems, worded with setting names so that a front
+    /// end can render them with its own spelling (<see cref="SettingProblem"/>); empty otherwise.</summary>
+    public IReadOnlyList<SettingProblem> SettingProblems { get; init; } = [];
+
     private static string Compose(string message, string? file, long? line, string? column, string lineLabel)
     {
         var where = new List<string>();
