@@ -52,38 +52,14 @@ internal static class PowerCommand
                 var trueModel = models.Create(parse);
                 var design = survey.Design(parse, grid.Max());
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
-                var kind = parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText)
-                    : design.Kind == MockObjectKind.Galaxy ? ObservableKind.Joint : ObservableKind.Size;
-                if (design.Kind == MockObjectKind.CompactRadio && kind != ObservableKind.Size)
-                    throw new InputException("compact radio sources have no surface brightness: use --observable size with --kind radio");
-                var cuts = design.Cuts;
-                var selection = new SelectionLimits(
-                    kind == ObservableKind.Size ? null : cuts.SbLimit,
-                    kind == ObservableKind.Joint ? cuts.MagLimit : null,
-                    kind == ObservableKind.SurfaceBrightness ? null : cuts.MinThetaArcsec);
-                var nuisance = new NuisanceModel(kind, selection, SizeSbRelation: kind == ObservableKind.Joint && template.GalaxyTruth.KormendySlope != 0);
+                var kind = PowerCandidates.Observable(template, parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText) : null);
+                var nuisance = PowerCandidates.Nuisance(template, kind);
                 var userFixed = FitOptionParsing.Fixed(parse.GetValue(fix));
                 var userFree = FitOptionParsing.List(parse.GetValue(free)).ToHashSet(StringComparer.Ordinal);
                 var names = (parse.GetValue(candidates) ?? "").Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries).Distinct().ToArray();
-                var hypotheses = new List<Hypothesis>();
-                foreach (var name in names)
-                {
-                    if (!WorldModels.TryGet(name, out var family))
-                        throw new InputException($"--models: unknown world model '{name}'; known models are {string.Join(", ", WorldModels.Names)}");
-                    // The true family is fitted with the true cosmological parameters held fixed; the others at their defaults.
-                    var fixedValues = family.Name == trueModel.Name
-                        ? trueModel.ParameterValues.Where(p => family.Parameters.Any(q => q.Name == p.Key) && !userFree.Contains(p.Key)).ToDictionary(p => p.Key, p => p.Value)
-                        : new Dictionary<string, double>();
-                    foreach (var (key, value) in userFixed) fixedValues[key] = value;
-                    var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet();
-                    hypotheses.Add(Hypothesis.Create(family, nuisance, new ParameterOverrides(
-                        Free: userFree.Where(known.Contains).ToHashSet(),
-                        Fixed: fixedValues.Where(kv => known.Contains(kv.Key)).ToDictionary())));
-                }
-                var allKnown = hypotheses.SelectMany(h => h.Parameters.Select(p => p.Name)).ToHashSet();
-                foreach (var name in userFixed.Keys.Concat(userFree))
-                    if (!allKnown.Contains(name))
-                        throw new InputException($"unknown parameter '{name}' for these models and --observable {kind.Name()}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
+                var families = names.Select(name => WorldModels.TryGet(name, out var family) ? family
+                    : throw new InputException($"--models: unknown world model '{name}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
+                var hypotheses = PowerCandidates.Create(trueModel, families, nuisance, userFixed, userFree);
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
                 request.Validate();
                 ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null);

@@ -74,15 +74,15 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         if (size && observables.SizeDefinition.Kind == Catalogues.SizeKind.Isophotal)
         {
             if (kind != ObservableKind.Joint)
-                throw new InputException("the sizes are isophotal: fit them with --observable joint, which predicts each object's isophotal radius from the surface-brightness model (mu0, sb_evolution; hold them with --fix if they are known)");
+                throw SettingProblem.Exception([new("the sizes are isophotal: fit them with {observable} joint, which predicts each object's isophotal radius from the surface-brightness model (mu0, sb_evolution; hold them with {fix} if they are known)")]);
             if (hypothesis.Nuisance.Cuts.MagLimit is not null)
-                throw new InputException("--mag-limit cannot be combined with isophotal sizes (the total magnitude is not a function of the isophotal size); drop the magnitude cut");
+                throw SettingProblem.Exception([new("{mag_limit} cannot be combined with isophotal sizes (the total magnitude is not a function of the isophotal size); drop the magnitude cut")]);
             var isophote = observables.Isophote ?? throw new InputException("the sizes are isophotal but the observables carry no isophote level; build them with the photometry stage");
             // Each object's own Sérsic index (sersic_n column) where mapped, else the sample-wide index.
             _isophotal = observables.Survey.SersicN is { } perObject
                 ? new IsophotalCorrection(perObject, isophote)
                 : new IsophotalCorrection(new IsophotalSize(observables.SersicIndex
-                    ?? throw new InputException("the sizes are isophotal: set a Sérsic index (e.g. --sersic-n 1) or map a sersic_n column so the fit can predict isophotal radii")), isophote);
+                    ?? throw SettingProblem.Exception([new("the sizes are isophotal: set a Sérsic index (e.g. {sersic_n} 1) or map a sersic_n column so the fit can predict isophotal radii")])), isophote);
         }
         _free = hypothesis.FreeParameters.ToArray();
         _layout = new ParameterLayout(hypothesis);

@@ -167,10 +167,14 @@ public sealed class IsophotalLikelihoodTests
     {
         var mock = Draw(50, seed: 3);
         var size = Assert.Throws<InputException>(() => Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.Size)).Bind(mock.Isophotal));
-        Assert.Contains("--observable joint", size.Message);
+        // The library names the settings (observable, mag_limit); the CLI writes them as flags (PhotometryOptionsCliTests).
+        Assert.Contains("observable joint", size.Message);
+        Assert.DoesNotContain("--", size.Message);
+        Assert.Contains("observable", Assert.Single(size.SettingProblems).Settings);
         var mag = Assert.Throws<InputException>(() => Hypothesis.Create(TestWorldModels.Eds,
             new NuisanceModel(ObservableKind.Joint, new SelectionLimits(null, 24.0, null))).Bind(mock.Isophotal));
-        Assert.Contains("--mag-limit", mag.Message);
+        Assert.Contains("mag_limit", Assert.Single(mag.SettingProblems).Settings);
+        Assert.DoesNotContain("--", mag.Message);
         // The SB-only fit does not use the sizes, so isophotal sizes do not matter there.
         Assert.True(double.IsFinite(Hypothesis.Create(TestWorldModels.Eds, new NuisanceModel(ObservableKind.SurfaceBrightness)).Bind(mock.Isophotal)
             .LogDensity([Mu0, B, ScatterMag])));

@@ -30,13 +30,13 @@ internal sealed class ObjectColumns
         int n = Count;
         if (size)
         {
-            LnTheta = observables.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
+            LnTheta = observables.LnTheta ?? throw SettingProblem.Exception([new("fitting angular sizes needs a 'theta' column; map it with {col} theta=NAME")]);
             VarLnTheta = Square(observables.LnThetaErr, n);
             UniformVarLnTheta = Uniform(VarLnTheta);
         }
         if (sb)
         {
-            Mu = observables.Mu ?? throw new InputException("fitting surface brightness needs a 'mu' column; map it with --col mu=NAME");
+            Mu = observables.Mu ?? throw SettingProblem.Exception([new("fitting surface brightness needs a 'mu' column; map it with {col} mu=NAME")]);
             VarMu = Square(observables.MuErr, n);
             Correction = new double[n];
             for (int i = 0; i < n; i++)

@@ -1,0 +1,65 @@
+using SizeTest.Cosmology;
+using SizeTest.Foundation.Errors;
+using SizeTest.Inference;
+
+namespace SizeTest.Simulation;
+
+/// <summary>
+/// The policy of a power analysis's candidate fits, given a mock survey template:
+/// <list type="bullet">
+/// <item>the observable defaults to <c>joint</c> for galaxies and <c>size</c> for compact radio sources (which have
+/// no surface brightness, so only <c>size</c> is allowed for them);</item>
+/// <item>the fits model the template's selection cuts that enter the observable (the SB limit unless size-only, the
+/// magnitude limit only for joint, the smallest size unless SB-only), and the size–SB relation when the truth has a
+/// Kormendy slope;</item>
+/// <item>the candidate of the true family is fitted with the true cosmological parameters held fixed (unless the
+/// user frees them), the other families at their defaults; the user's fixed values apply to every candidate
+/// where the parameter exists.</item>
+/// </list>
+/// Problems name settings (<see cref="SettingProblem"/>): <c>observable</c>, <c>kind</c>, <c>fix</c>, <c>free</c>.
+/// </summary>
+public static class PowerCandidates
+{
+    /// <summary>The observable of the fits: <paramref name="asked"/>, or the default for the template's objects.</summary>
+    public static ObservableKind Observable(MockSurveySpec template, ObservableKind? asked)
+    {
+        var kind = asked ?? (template.Design.Kind == MockObjectKind.Galaxy ? ObservableKind.Joint : ObservableKind.Size);
+        if (template.Design.Kind == MockObjectKind.CompactRadio && kind != ObservableKind.Size)
+            throw SettingProblem.Exception([new("compact radio sources have no surface brightness: use {observable} size with {kind} radio")]);
+        return kind;
+    }
+
+    /// <summary>The nuisance model of every candidate: the template's cuts that enter <paramref name="kind"/>.</summary>
+    public static NuisanceModel Nuisance(MockSurveySpec template, ObservableKind kind)
+    {
+        var cuts = template.Design.Cuts;
+        var selection = new SelectionLimits(
+            kind == ObservableKind.Size ? null : cuts.SbLimit,
+            kind == ObservableKind.Joint ? cuts.MagLimit : null,
+            kind == ObservableKind.SurfaceBrightness ? null : cuts.MinThetaArcsec);
+        return new NuisanceModel(kind, selection, SizeSbRelation: kind == ObservableKind.Joint && template.GalaxyTruth.KormendySlope != 0);
+    }
+
+    /// <summary>One hypothesis per family; a fixed or freed name that no candidate has is a problem naming the parameter.</summary>
+    public static IReadOnlyList<Hypothesis> Create(IWorldModel trueModel, IEnumerable<IWorldModelFamily> families, NuisanceModel nuisance,
+        IReadOnlyDictionary<string, double> userFixed, IReadOnlySet<string> userFree)
+    {
+        var hypotheses = new List<Hypothesis>();
+        foreach (var family in families)
+        {
+            var fixedValues = family.Name == trueModel.Name
+                ? trueModel.ParameterValues.Where(p => family.Parameters.Any(q => q.Name == p.Key) && !userFree.Contains(p.Key)).ToDictionary(p => p.Key, p => p.Value)
+                : new Dictionary<string, double>();
+            foreach (var (key, value) in userFixed) fixedValues[key] = value;
+            var known = family.Parameters.Select(p => p.Name).Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet();
+            hypotheses.Add(Hypothesis.Create(family, nuisance, new ParameterOverrides(
+                Free: userFree.Where(known.Contains).ToHashSet(),
+                Fixed: fixedValues.Where(kv => known.Contains(kv.Key)).ToDictionary())));
+        }
+        var allKnown = hypotheses.SelectMany(h => h.Parameters.Select(p => p.Name)).ToHashSet();
+        foreach (var name in userFixed.Keys.Concat(userFree))
+            if (!allKnown.Contains(name))
+                throw SettingProblem.Exception([new($"unknown parameter '{name}' for these models and {{observable}} {nuisance.Observable.Name()}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}")]);
+        return hypotheses;
+    }
+}
