@@ -27,14 +27,14 @@ internal static class FitCommand
         var catalogOptions = new CatalogueOptions();
         var photometryOptions = new PhotometryCliOptions();
         var surveyOptions = new SurveyCliOptions();
-        var models = new Option<string>("--models") { Description = $"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
+        var choice = new CandidateModelOptions($"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).",
+            "NAME=VALUE: hold a parameter fixed (e.g. size_evolution=0); repeatable.", "Parameter(s) to fit (e.g. omega_m); repeatable or comma-separated.");
+        var limits = new OutputLimitOptions("Replace an existing output folder.", "a fit whose estimated memory (chains, resamples, starts, live points)");
         var observable = new Option<string>("--observable") { Description = "What to fit: size (ln θ), sb (Tolman surface brightness) or joint.", DefaultValueFactory = _ => "size" };
         OneOf(observable, "--observable", [.. ObservableKinds.Names]);
         var relation = new Option<bool>("--size-sb-relation") { Description = "Joint only: link μ to log10 physical size with a free Kormendy-type slope (kormendy_slope), so the SB test is at matched physical size." };
         var pivot = new Option<double>("--pivot-kpc") { Description = "Pivot physical size of the size–SB relation, kpc (mu0 is the SB at this size).", DefaultValueFactory = _ => 5.0 };
         var dimOffset = new Option<double>("--dimming-offset") { Description = "Added to every model's bolometric dimming exponent: −1 for f_ν (AB) band SB without a bandwidth K-correction, +1 for f_λ; 0 when bolometric or K-corrected.", DefaultValueFactory = _ => 0.0 };
-        var free = new Option<string[]>("--free") { Description = "Parameter(s) to fit (e.g. omega_m); repeatable or comma-separated." };
-        var fix = new Option<string[]>("--fix") { Description = "NAME=VALUE: hold a parameter fixed (e.g. size_evolution=0); repeatable." };
         var prior = new Option<string[]>("--prior") { Description = "NAME=MEAN,SD: free with a Gaussian prior (truncated to the bounds); repeatable." };
         var bound = new Option<string[]>("--bound") { Description = "NAME=LO:HI: narrower bounds for a free parameter; repeatable." };
         var bootstrap = new Option<int>("--bootstrap") { Description = "Bootstrap resamples per model (0: none).", DefaultValueFactory = _ => 0 };
@@ -53,16 +53,14 @@ internal static class FitCommand
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
         var maxOutside = new Option<double>("--max-outside-selection") { Description = "Largest fraction (0–1) of objects that may lie outside --sb-limit/--mag-limit/--min-size; they go to the reject log, and beyond it the fit is refused.", DefaultValueFactory = _ => SelectionConsistency.DefaultMaxOutsideFraction };
-        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse a fit whose estimated memory (chains, resamples, starts, live points) is above this size (e.g. 4G); the machine's available memory is always a limit." };
         var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
-        var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
         command.Arguments.Add(catalog);
         catalogOptions.AddTo(command);
         photometryOptions.AddTo(command);
         surveyOptions.AddTo(command);
-        foreach (var o in new Option[] { models, observable, relation, pivot, dimOffset, free, fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, maxMemory, expect, nodes, force, output, format })
+        foreach (var o in new Option[] { choice.Models, observable, relation, pivot, dimOffset, choice.Free, choice.Fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, limits.MaxMemory, expect, nodes, limits.Force, output, format })
             command.Options.Add(o);
 
         command.SetAction(parse =>
@@ -75,13 +73,12 @@ internal static class FitCommand
                     parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
                 nuisance.Validate();
                 var overrides = new ParameterOverrides(
-                    Free: FitOptionParsing.List(parse.GetValue(free)).ToHashSet(StringComparer.Ordinal),
-                    Fixed: FitOptionParsing.Fixed(parse.GetValue(fix)),
+                    Free: choice.Freed(parse),
+                    Fixed: choice.Fixed(parse),
                     Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
                     Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
                 var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
-                var families = FitOptionParsing.List([parse.GetValue(models) ?? ""]).Distinct().Select(n =>
-                    WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
+                var families = choice.Families(parse);
                 if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
                 var surveyRequest = surveyOptions.Request(parse);
                 var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
@@ -98,7 +95,7 @@ internal static class FitCommand
                     Hypotheses = hypotheses, Observables = new Observables([]), Starts = nStarts, Bootstrap = nBoot, CrossValidationFolds = nFolds,
                     Sampler = samplerName, Walkers = nWalkers, Steps = nSteps, MaxSteps = nMax, LivePoints = nLive,
                 }.Validate());
-                long? memoryLimit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
+                long? memoryLimit = limits.MemoryLimit(parse);
                 FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
                 if (samplerName == SamplerKind.Mcmc)
                     foreach (var h in hypotheses.Where(h => h.K > 0))
@@ -117,7 +114,7 @@ internal static class FitCommand
                     CheckNames(overrides, expected, families, nm, profileName);
                     return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
                 }, whole);
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, parse.GetValue(force), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
+                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, MaxOutsideSelection = parse.GetValue(maxOutside) });
             }
             catch (Exception ex)
             {

@@ -24,7 +24,9 @@ internal static class PowerCommand
         var survey = new MockSurveyOptions("Sample sizes to try, comma-separated (e.g. 250,500,1000,2000).");
         var sizes = new Option<string?>("--n") { Description = "Sample sizes N to try, comma-separated (e.g. 250,500,1000,2000); default 2000." };
         var mocks = new Option<int>("--mocks") { Description = "Mocks per sample size (default 100).", DefaultValueFactory = _ => 100 };
-        var candidates = new Option<string>("--models") { Description = $"Candidate world models fitted to every mock, comma-separated ({string.Join(", ", WorldModels.Names)}).", DefaultValueFactory = _ => "lcdm,eds,static-linear,tired-light" };
+        var choice = new CandidateModelOptions($"Candidate world models fitted to every mock, comma-separated ({string.Join(", ", WorldModels.Names)}).",
+            "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable.", "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated.");
+        var limits = new OutputLimitOptions("Replace an existing output folder.", "an analysis whose estimated memory (mock outcomes, and one mock catalogue per thread at the largest N)");
         var observable = new Option<string?>("--observable") { Description = "What the fits use: size, sb or joint (default joint for galaxies, size for radio sources)." };
         observable.AcceptOnlyFromAmong([.. ObservableKinds.Names]);
         var target = new Option<double>("--target-power") { Description = "Fraction of mocks that must give ΔBIC > 10 for a decisive design (default 0.9).", DefaultValueFactory = _ => 0.9 };
@@ -32,15 +34,11 @@ internal static class PowerCommand
         var threads = new Option<int?>("--threads") { Description = "Most threads to use (default: all cores)." };
         var seed = new Option<long?>("--seed") { Description = "Base seed of the mocks (required)." };
         var output = new Option<string?>("--out") { Description = "Output folder for power.json, power.csv and mocks.csv." };
-        var force = new Option<bool>("--force") { Description = "Replace an existing output folder." };
-        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse an analysis whose estimated memory (mock outcomes, and one mock catalogue per thread at the largest N) is above this size (e.g. 4G); the machine's available memory is always a limit." };
-        var fix = new Option<string[]>("--fix") { Description = "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable." };
-        var free = new Option<string[]>("--free") { Description = "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated." };
         var format = CliOptions.Format();
         models.AddTo(command);
         command.Options.Add(sizes);
         survey.AddTo(command, includeCount: false);
-        foreach (var o in new Option[] { mocks, candidates, observable, fix, free, target, starts, threads, seed, output, force, maxMemory, format }) command.Options.Add(o);
+        foreach (var o in new Option[] { mocks, choice.Models, observable, choice.Fix, choice.Free, target, starts, threads, seed, output, limits.Force, limits.MaxMemory, format }) command.Options.Add(o);
         command.SetAction(parse =>
         {
             OutputFolder? folder = null;
@@ -54,16 +52,11 @@ internal static class PowerCommand
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 var kind = PowerCandidates.Observable(template, parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText) : null);
                 var nuisance = PowerCandidates.Nuisance(template, kind);
-                var userFixed = FitOptionParsing.Fixed(parse.GetValue(fix));
-                var userFree = FitOptionParsing.List(parse.GetValue(free)).ToHashSet(StringComparer.Ordinal);
-                var names = (parse.GetValue(candidates) ?? "").Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries).Distinct().ToArray();
-                var families = names.Select(name => WorldModels.TryGet(name, out var family) ? family
-                    : throw new InputException($"--models: unknown world model '{name}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
-                var hypotheses = PowerCandidates.Create(trueModel, families, nuisance, userFixed, userFree);
+                var hypotheses = PowerCandidates.Create(trueModel, choice.Families(parse), nuisance, choice.Fixed(parse), choice.Freed(parse));
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
                 request.Validate();
-                ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null);
-                folder = OutputFolder.Begin(outDir, parse.GetValue(force));
+                ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), limits.MemoryLimit(parse));
+                folder = OutputFolder.Begin(outDir, limits.Replace(parse));
                 var result = PowerAnalysis.Run(request, new PowerProgressReporter(context));
                 AtomicFile.WriteAllText(folder.PathOf("power.json"), PowerResultFiles.Json(result));
                 AtomicFile.WriteAllText(folder.PathOf("power.csv"), PowerResultFiles.Csv(result));

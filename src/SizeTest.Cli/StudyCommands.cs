@@ -20,20 +20,18 @@ internal static class StudyCommands
     {
         var study = new Argument<string>("STUDY") { Description = "Study file (TOML): catalogue, columns, corrections, models, priors, selection, inference and report settings." };
         var output = new Option<string?>("--out") { Description = "Output folder (default: reports/<study name>/)." };
-        var force = new Option<bool>("--force") { Description = "Replace the output folder if it exists." };
-        var maxMemory = new Option<string?>("--max-memory") { Description = "Refuse a study whose estimated memory (chains, resamples, starts) is above this size (e.g. 4G); the machine's available memory is always a limit." };
+        var limits = new OutputLimitOptions("Replace the output folder if it exists.", "a study whose estimated memory (chains, resamples, starts)");
         var cmd = new Command("run", "Run a whole study from a study file: load, correct, fit, compare, and write the report folder.");
         cmd.Arguments.Add(study);
         cmd.Options.Add(output);
-        cmd.Options.Add(force);
-        cmd.Options.Add(maxMemory);
+        cmd.Options.Add(limits.Force);
+        cmd.Options.Add(limits.MaxMemory);
         cmd.SetAction(parse =>
         {
             try
             {
                 var def = StudyFileParser.Load(parse.GetValue(study)!);
-                long? limit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
-                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), parse.GetValue(force), "run", limit);
+                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), limits.Replace(parse), "run", limits.MemoryLimit(parse));
             }
             catch (Exception ex)
             {
