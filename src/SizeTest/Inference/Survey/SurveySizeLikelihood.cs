@@ -45,7 +45,6 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     private readonly int _n, _groups, _bins, _nodesPerObject;
     private readonly double[] _y, _s2, _theta, _sTheta, _ln1pz, _lnz;
     private readonly double[]? _weight, _lumBase;
-    private readonly double _lumZSlope;
     private readonly int[] _group, _bin;
     private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _luminositySlopeIndex;
     private readonly bool _gaussian, _photoZ, _hasLum;
@@ -78,16 +77,12 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _s2 = new double[_n];
         _theta = new double[_n];
         _sTheta = new double[_n];
-        _ln1pz = new double[_n];
-        _lnz = new double[_n];
         for (int i = 0; i < _n; i++)
         {
             double rel = o.LnThetaErr?[i] ?? 0;
             _s2[i] = rel * rel;
             _theta[i] = Math.Exp(_y[i]);
             _sTheta[i] = rel * _theta[i];
-            _ln1pz[i] = Math.Log(1 + o.Z[i]);
-            _lnz[i] = Math.Log(o.Z[i]);
         }
         _lnDaFixed = lnDaFixed;
         _grid = grid;
@@ -117,32 +112,28 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (20-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0).");
         }
 
-        // --- groups
+        // --- groups, bins, luminosities, weights and window, photometric-redshift nodes (shared with the other survey kernels)
+        var rows = new SurveyRows(h, o, "R0, a, scatter" + (sv.Relation != SizeRelationKind.None ? " and β" : ""), lnDaFixed is not null, grid, gridMinZ, gridMaxZ,
+            priorMinZ, priorMaxZ, startModel);
         var labels = sv.GroupLabels;
-        _groups = labels.Count;
-        _group = new int[_n];
-        if (sv.Groups is { Count: > 0 })
-        {
-            var g = o.Survey.Group ?? throw new InputException("--group needs a group column; map it with --group COLUMN or --col group=NAME");
-            var index = labels.Select((l, k) => (l, k)).ToDictionary(t => t.l, t => t.k, StringComparer.Ordinal);
-            for (int i = 0; i < _n; i++)
-                _group[i] = index.TryGetValue(g[i], out var k) ? k : throw new InputException($"object {i + 1} has group '{g[i]}', which is not among the fitted groups {string.Join(", ", labels)}");
-            notes.Add($"populations: {_groups} groups ({string.Join(", ", labels)}), each with its own R0, a, scatter" + (sv.Relation != SizeRelationKind.None ? " and β" : "") + "; the world model is shared.");
-        }
-
-        // --- evolution bins (by observed redshift)
-        _bins = sv.BinCount;
-        _bin = new int[_n];
-        if (sv.EvolutionBinEdges is { } edges)
-        {
-            for (int i = 0; i < _n; i++)
-            {
-                int k = 0;
-                while (k < _bins - 1 && o.Z[i] >= edges[k + 1]) k++;
-                _bin[i] = k;
-            }
-            notes.Add($"evolution: binned, R0 free in {_bins} equal-count redshift bins (edges {string.Join(", ", edges.Select(x => x.ToString("G4", System.Globalization.CultureInfo.InvariantCulture)))}) instead of (1+z)^a.");
-        }
+        _ln1pz = rows.Ln1pZ;
+        _lnz = rows.LnZ;
+        _groups = rows.GroupCount;
+        _group = rows.Group;
+        _bins = rows.BinCount;
+        _bin = rows.Bin;
+        _hasLum = sv.Relation != SizeRelationKind.None;
+        _lumBase = rows.LuminosityBase;
+        _weight = rows.Weight;
+        _photoZ = rows.MarginalisesRedshift;
+        _nodesPerObject = rows.NodesPerObject;
+        _nodeLn1pz = rows.NodeLn1pZ;
+        _nodeLnz = rows.NodeLnZ;
+        _nodeLogW = rows.NodeLogWeight;
+        _nodeLumBase = rows.NodeLuminosityBase;
+        _nodeLnDaFixed = rows.NodeLnDaFixed;
+        _nodeGrid = rows.NodeGrid;
+        notes.AddRange(rows.Notes);
 
         // --- parameter indices
         _radiusIndex = Enumerable.Repeat(-1, _groups * _bins).ToArray();
@@ -162,105 +153,6 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             if (sv.Relation != SizeRelationKind.None) _luminositySlopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
         }
 
-        // --- luminosities
-        var lum = o.Survey.Luminosity;
-        _hasLum = sv.Relation != SizeRelationKind.None;
-        if (_hasLum || sv.HasWindow)
-        {
-            if (lum is null) throw new InputException(sv.Relation == SizeRelationKind.Mass
-                ? "--size-mass needs a 'log_mass' column; map it with --col log_mass=NAME"
-                : "--size-luminosity and --abs-mag-range need 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
-            if (sv.Relation == SizeRelationKind.Mass && !lum.IsMass) throw new InputException("--size-mass needs stellar masses (log_mass), but the luminosity data are not masses");
-            if (sv.Relation == SizeRelationKind.Luminosity && lum.IsMass) throw new InputException("the luminosity data are stellar masses; use --size-mass");
-            _lumBase = ModelLuminosity.BaseTerms(lum, o.Z, sv.PivotOrDefault);
-            _lumZSlope = lum.Kind == LuminosityKind.FluxDensity ? 1 + lum.SpectralIndex : 0;
-        }
-
-        // --- weights and window
-        double[]? w = o.Survey.Weight is { } ow ? (double[])ow.Clone() : null;
-        if (sv.HasWindow)
-        {
-            if (lum!.Kind is LuminosityKind.FluxDensity or LuminosityKind.StellarMass) throw new InputException("--abs-mag-range needs magnitudes (mag or abs_mag), not flux densities or masses");
-            w ??= Enumerable.Repeat(1.0, _n).ToArray();
-            var lnDl = ModelLuminosity.LnLuminosityDistances(startModel, o.Z);
-            double piv = sv.PivotOrDefault.AbsMag;
-            int kept = 0;
-            for (int i = 0; i < _n; i++)
-            {
-                double absMag = piv - (_lumBase![i] + 2 * lnDl[i]) / (0.4 * Ln10);
-                bool inside = (sv.AbsMagMin is not { } lo || absMag >= lo) && (sv.AbsMagMax is not { } hi || absMag <= hi);
-                if (!inside) w[i] = 0; else kept++;
-            }
-            if (kept == 0) throw new InputException($"no object of the sample lies in --abs-mag-range under world model '{h.Family.Name}'");
-            notes.Add($"luminosity window: {kept} of {_n} objects have M in [{sv.AbsMagMin?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "-inf"}, {sv.AbsMagMax?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "+inf"}] under {h.Family.Name} (its own D_L, at its start parameters); the others do not enter its likelihood, so its n differs from other models'.");
-        }
-        _weight = w;
-
-        // --- photometric redshifts
-        _photoZ = sv.MarginaliseRedshift;
-        if (_photoZ)
-        {
-            var zErr = o.Survey.ZErr ?? throw new InputException("photometric-redshift marginalisation needs a 'z_err' column");
-            var gh = new GaussHermite(sv.RedshiftNodes);
-            int J = sv.RedshiftNodes;
-            _nodesPerObject = J;
-            _nodeLn1pz = new double[_n * J];
-            _nodeLnz = new double[_n * J];
-            _nodeLogW = new double[_n * J];
-            _nodeLumBase = new double[_n * J];
-            var nodeZ = new double[_n * J];
-            GaussLegendre? gl = null;
-            int truncated = 0;
-            for (int i = 0; i < _n; i++)
-            {
-                double sum = 0;
-                for (int j = 0; j < J; j++)
-                {
-                    double z = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
-                    bool inside = z >= priorMinZ && z <= priorMaxZ && z > 0;
-                    int q = i * J + j;
-                    nodeZ[q] = inside ? z : o.Z[i];
-                    _nodeLogW[q] = inside ? gh.Weights[j] : 0;
-                    sum += _nodeLogW[q];
-                    _nodeLn1pz[q] = Math.Log(1 + nodeZ[q]);
-                    _nodeLnz[q] = Math.Log(nodeZ[q]);
-                    if (_lumBase is not null) _nodeLumBase[q] = _lumBase[i] - _lumZSlope * (_nodeLn1pz[q] - _ln1pz[i]);
-                }
-                if (sum > 0)
-                    for (int j = 0; j < J; j++)
-                    {
-                        int q = i * J + j;
-                        _nodeLogW[q] = _nodeLogW[q] > 0 ? Math.Log(_nodeLogW[q] / sum) : double.NegativeInfinity;
-                    }
-                else
-                {
-                    // No node inside the prior: the truncated normal on the prior by Gauss–Legendre (TruncatedRedshiftNodes).
-                    if (!(zErr[i] > 0))
-                        throw new InputException($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen --z-prior or drop the object");
-                    truncated++;
-                    gl ??= new GaussLegendre(J);
-                    TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), _nodeLogW.AsSpan(i * J, J));
-                    for (int j = 0; j < J; j++)
-                    {
-                        int q = i * J + j;
-                        _nodeLn1pz[q] = Math.Log(1 + nodeZ[q]);
-                        _nodeLnz[q] = Math.Log(nodeZ[q]);
-                        if (_lumBase is not null) _nodeLumBase[q] = _lumBase[i] - _lumZSlope * (_nodeLn1pz[q] - _ln1pz[i]);
-                    }
-                }
-            }
-            if (lnDaFixed is not null)
-            {
-                _nodeLnDaFixed = ModelLuminosity.LnLuminosityDistances(startModel, nodeZ);
-                double e = _eFixed;
-                for (int q = 0; q < nodeZ.Length; q++) _nodeLnDaFixed[q] -= e * _nodeLn1pz[q];
-            }
-            else
-                _nodeGrid = new RedshiftGrid(nodeZ, grid!.Nodes.Length, gridMinZ, gridMaxZ);
-            notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
-            if (truncated > 0)
-                notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
-        }
         Notes = notes;
     }
 

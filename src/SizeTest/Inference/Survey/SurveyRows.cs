@@ -1,0 +1,238 @@
+using SizeTest.Cosmology;
+using SizeTest.Foundation.Errors;
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference.Survey;
+
+/// <summary>
+/// The per-object terms of a <see cref="SurveyModel"/> that do not depend on the observable: each object's population (group),
+/// evolution bin, weight (times the per-model luminosity window), luminosity base term and photometric-redshift quadrature
+/// nodes. Built once per bound hypothesis and shared by the survey kernels (<see cref="SurveySizeLikelihood"/>).
+/// </summary>
+/// <remarks>
+/// <para>Luminosity: ln(L_i/L_pivot) = C_i + 2 ln D_L(z) with C_i from <see cref="ModelLuminosity.BaseTerms"/>; for flux densities
+/// C shifts with z by −(1 + α) Δln(1+z) at a photo-z node (K-correction of a power-law spectrum S ∝ ν^α; flux held fixed).</para>
+/// <para>Luminosity window: M_i = M_pivot − (C_i + 2 ln D_L(z_i)) / (0.4 ln 10), evaluated once with the world model's start (or fixed)
+/// parameters; an object outside gets weight 0.</para>
+/// <para>Photometric redshifts: p_i = ∫ p_i(· | z) N(z; z_obs, σ_z²) π(z) dz with π flat on [z_lo, z_hi], by Gauss–Hermite with J nodes
+/// z_ij = z_obs + √2 σ_z x_j (Abramowitz &amp; Stegun 1964, 25.4.46); nodes outside the prior are dropped and the rest renormalised
+/// (log weights, −∞ for a dropped node). An object with no node inside the prior is integrated under its truncated normal by
+/// J-point Gauss–Legendre (<see cref="TruncatedRedshiftNodes"/>). Node i·J + j belongs to object i.</para>
+/// </remarks>
+internal sealed class SurveyRows
+{
+    private const double Ln10 = 2.302585092994046;
+
+    /// <summary>Objects.</summary>
+    public int Count { get; }
+
+    /// <summary>ln(1+z) and ln z at each object's observed redshift.</summary>
+    public double[] Ln1pZ { get; }
+
+    /// <inheritdoc cref="Ln1pZ"/>
+    public double[] LnZ { get; }
+
+    /// <summary>Number of groups (1 without populations) and each object's group index.</summary>
+    public int GroupCount { get; }
+
+    /// <summary>Each object's group index in <see cref="SurveyModel.GroupLabels"/>.</summary>
+    public int[] Group { get; }
+
+    /// <summary>Number of evolution bins (1 for the power law) and each object's bin (by observed redshift).</summary>
+    public int BinCount { get; }
+
+    /// <summary>Each object's evolution bin.</summary>
+    public int[] Bin { get; }
+
+    /// <summary>Each object's weight (null: all 1); 0 outside the luminosity window.</summary>
+    public double[]? Weight { get; }
+
+    /// <summary>Whether luminosity terms are present (a size relation or a window).</summary>
+    public bool HasLuminosity => LuminosityBase is not null;
+
+    /// <summary>C_i (null without luminosity terms).</summary>
+    public double[]? LuminosityBase { get; }
+
+    /// <summary>∂C/∂ln(1+z) with flux held fixed: 1 + α for flux densities, else 0.</summary>
+    public double LuminosityZSlope { get; }
+
+    /// <summary>Whether each object is integrated over its redshift.</summary>
+    public bool MarginalisesRedshift { get; }
+
+    /// <summary>Redshift nodes per object (0 without photo-z).</summary>
+    public int NodesPerObject { get; }
+
+    /// <summary>ln(1+z), ln z, log weight (−∞: dropped) and C at each node.</summary>
+    public double[] NodeLn1pZ { get; } = [];
+
+    /// <inheritdoc cref="NodeLn1pZ"/>
+    public double[] NodeLnZ { get; } = [];
+
+    /// <inheritdoc cref="NodeLn1pZ"/>
+    public double[] NodeLogWeight { get; } = [];
+
+    /// <inheritdoc cref="NodeLn1pZ"/>
+    public double[] NodeLuminosityBase { get; } = [];
+
+    /// <summary>ln D_A at each node under a fixed cosmology (null when the cosmology is free).</summary>
+    public double[]? NodeLnDaFixed { get; }
+
+    /// <summary>The nodes' stencils on the redshift grid (free cosmology; null otherwise).</summary>
+    public RedshiftGrid? NodeGrid { get; }
+
+    /// <summary>Notes for the results.</summary>
+    public IReadOnlyList<string> Notes { get; }
+
+    /// <param name="h">The hypothesis (its survey terms and world model).</param>
+    /// <param name="o">The objects.</param>
+    /// <param name="groupNuisance">What each group has of its own, for the note (e.g. "R0, a, scatter").</param>
+    /// <param name="fixedCosmology">Whether ln D_A is fixed (then node distances are computed once with <paramref name="startModel"/>).</param>
+    /// <param name="grid">The redshift grid of a free cosmology (its node count is reused for the photo-z nodes' grid).</param>
+    /// <param name="gridMinZ">Lower end of the grid.</param>
+    /// <param name="gridMaxZ">Upper end of the grid.</param>
+    /// <param name="priorMinZ">Lower end of the photo-z prior.</param>
+    /// <param name="priorMaxZ">Upper end of the photo-z prior.</param>
+    /// <param name="startModel">The world model at its start (or fixed) parameters.</param>
+    public SurveyRows(Hypothesis h, Observables o, string groupNuisance, bool fixedCosmology, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
+        double priorMinZ, double priorMaxZ, IWorldModel startModel)
+    {
+        var sv = h.Nuisance.SurveyTerms;
+        var notes = new List<string>();
+        int n = Count = o.Count;
+        Ln1pZ = new double[n];
+        LnZ = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            Ln1pZ[i] = Math.Log(1 + o.Z[i]);
+            LnZ[i] = Math.Log(o.Z[i]);
+        }
+
+        // --- groups
+        var labels = sv.GroupLabels;
+        GroupCount = labels.Count;
+        Group = new int[n];
+        if (sv.Groups is { Count: > 0 })
+        {
+            var g = o.Survey.Group ?? throw new InputException("--group needs a group column; map it with --group COLUMN or --col group=NAME");
+            var index = labels.Select((l, k) => (l, k)).ToDictionary(t => t.l, t => t.k, StringComparer.Ordinal);
+            for (int i = 0; i < n; i++)
+                Group[i] = index.TryGetValue(g[i], out var k) ? k : throw new InputException($"object {i + 1} has group '{g[i]}', which is not among the fitted groups {string.Join(", ", labels)}");
+            notes.Add($"populations: {GroupCount} groups ({string.Join(", ", labels)}), each with its own {groupNuisance}; the world model is shared.");
+        }
+
+        // --- evolution bins (by observed redshift)
+        BinCount = sv.BinCount;
+        Bin = new int[n];
+        if (sv.EvolutionBinEdges is { } edges)
+        {
+            for (int i = 0; i < n; i++)
+            {
+                int k = 0;
+                while (k < BinCount - 1 && o.Z[i] >= edges[k + 1]) k++;
+                Bin[i] = k;
+            }
+            notes.Add($"evolution: binned, R0 free in {BinCount} equal-count redshift bins (edges {string.Join(", ", edges.Select(x => x.ToString("G4", System.Globalization.CultureInfo.InvariantCulture)))}) instead of (1+z)^a.");
+        }
+
+        // --- luminosities
+        var lum = o.Survey.Luminosity;
+        bool hasLum = sv.Relation != SizeRelationKind.None;
+        if (hasLum || sv.HasWindow)
+        {
+            if (lum is null) throw new InputException(sv.Relation == SizeRelationKind.Mass
+                ? "--size-mass needs a 'log_mass' column; map it with --col log_mass=NAME"
+                : "--size-luminosity and --abs-mag-range need 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
+            if (sv.Relation == SizeRelationKind.Mass && !lum.IsMass) throw new InputException("--size-mass needs stellar masses (log_mass), but the luminosity data are not masses");
+            if (sv.Relation == SizeRelationKind.Luminosity && lum.IsMass) throw new InputException("the luminosity data are stellar masses; use --size-mass");
+            LuminosityBase = ModelLuminosity.BaseTerms(lum, o.Z, sv.PivotOrDefault);
+            LuminosityZSlope = lum.Kind == LuminosityKind.FluxDensity ? 1 + lum.SpectralIndex : 0;
+        }
+
+        // --- weights and window
+        double[]? w = o.Survey.Weight is { } ow ? (double[])ow.Clone() : null;
+        if (sv.HasWindow)
+        {
+            if (lum!.Kind is LuminosityKind.FluxDensity or LuminosityKind.StellarMass) throw new InputException("--abs-mag-range needs magnitudes (mag or abs_mag), not flux densities or masses");
+            w ??= Enumerable.Repeat(1.0, n).ToArray();
+            var lnDl = ModelLuminosity.LnLuminosityDistances(startModel, o.Z);
+            double piv = sv.PivotOrDefault.AbsMag;
+            int kept = 0;
+            for (int i = 0; i < n; i++)
+            {
+                double absMag = piv - (LuminosityBase![i] + 2 * lnDl[i]) / (0.4 * Ln10);
+                bool inside = (sv.AbsMagMin is not { } lo || absMag >= lo) && (sv.AbsMagMax is not { } hi || absMag <= hi);
+                if (!inside) w[i] = 0; else kept++;
+            }
+            if (kept == 0) throw new InputException($"no object of the sample lies in --abs-mag-range under world model '{h.Family.Name}'");
+            notes.Add($"luminosity window: {kept} of {n} objects have M in [{sv.AbsMagMin?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "-inf"}, {sv.AbsMagMax?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "+inf"}] under {h.Family.Name} (its own D_L, at its start parameters); the others do not enter its likelihood, so its n differs from other models'.");
+        }
+        Weight = w;
+
+        // --- photometric redshifts
+        MarginalisesRedshift = sv.MarginaliseRedshift;
+        if (MarginalisesRedshift)
+        {
+            var zErr = o.Survey.ZErr ?? throw new InputException("photometric-redshift marginalisation needs a 'z_err' column");
+            var gh = new GaussHermite(sv.RedshiftNodes);
+            int J = sv.RedshiftNodes;
+            NodesPerObject = J;
+            NodeLn1pZ = new double[n * J];
+            NodeLnZ = new double[n * J];
+            NodeLogWeight = new double[n * J];
+            NodeLuminosityBase = new double[n * J];
+            var nodeZ = new double[n * J];
+            GaussLegendre? gl = null;
+            int truncated = 0;
+            for (int i = 0; i < n; i++)
+            {
+                double sum = 0;
+                for (int j = 0; j < J; j++)
+                {
+                    double z = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
+                    bool inside = z >= priorMinZ && z <= priorMaxZ && z > 0;
+                    int q = i * J + j;
+                    nodeZ[q] = inside ? z : o.Z[i];
+                    NodeLogWeight[q] = inside ? gh.Weights[j] : 0;
+                    sum += NodeLogWeight[q];
+                    NodeLn1pZ[q] = Math.Log(1 + nodeZ[q]);
+                    NodeLnZ[q] = Math.Log(nodeZ[q]);
+                    if (LuminosityBase is not null) NodeLuminosityBase[q] = LuminosityBase[i] - LuminosityZSlope * (NodeLn1pZ[q] - Ln1pZ[i]);
+                }
+                if (sum > 0)
+                    for (int j = 0; j < J; j++)
+                    {
+                        int q = i * J + j;
+                        NodeLogWeight[q] = NodeLogWeight[q] > 0 ? Math.Log(NodeLogWeight[q] / sum) : double.NegativeInfinity;
+                    }
+                else
+                {
+                    // No node inside the prior: the truncated normal on the prior by Gauss–Legendre (TruncatedRedshiftNodes).
+                    if (!(zErr[i] > 0))
+                        throw new InputException($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen --z-prior or drop the object");
+                    truncated++;
+                    gl ??= new GaussLegendre(J);
+                    TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), NodeLogWeight.AsSpan(i * J, J));
+                    for (int j = 0; j < J; j++)
+                    {
+                        int q = i * J + j;
+                        NodeLn1pZ[q] = Math.Log(1 + nodeZ[q]);
+                        NodeLnZ[q] = Math.Log(nodeZ[q]);
+                        if (LuminosityBase is not null) NodeLuminosityBase[q] = LuminosityBase[i] - LuminosityZSlope * (NodeLn1pZ[q] - Ln1pZ[i]);
+                    }
+                }
+            }
+            if (fixedCosmology)
+            {
+                NodeLnDaFixed = ModelLuminosity.LnLuminosityDistances(startModel, nodeZ);
+                double e = ModelLuminosity.DistanceExponent(startModel);
+                for (int q = 0; q < nodeZ.Length; q++) NodeLnDaFixed[q] -= e * NodeLn1pZ[q];
+            }
+            else
+                NodeGrid = new RedshiftGrid(nodeZ, grid!.Nodes.Length, gridMinZ, gridMaxZ);
+            notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
+            if (truncated > 0)
+                notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
+        }
+        Notes = notes;
+    }
+}
