@@ -27,6 +27,8 @@ internal sealed record FitArgs(
     /// <summary>Survey terms: rebuilds the hypotheses for the loaded sample (group labels, redshift bins, z_err) — this process's
     /// objects and, under MPI, the whole sample's redshift range — or null.</summary>
     public Func<Observables, RedshiftGridSpan?, SurveyBinding>? Survey { get; init; }
+    /// <summary>The survey request behind <see cref="Survey"/> (its stated photo-z prior is a selection cut for exact redshifts), or null.</summary>
+    public SurveyRequest? SurveyTerms { get; init; }
 }
 
 
@@ -62,7 +64,7 @@ internal static class FitRunner
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
             // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
             var nuisance = a.Hypotheses[0].Nuisance;
-            split = SelectionConsistency.Classify(built.Observables, nuisance, i => share.Local.SourceRows[i], role => role.Name());
+            split = SelectionConsistency.Classify(built.Observables, nuisance, i => share.Local.SourceRows[i], role => role.Name(), a.SurveyTerms);
             if (split.Outside.Count > 0)
             {
                 var keep = split.Keep.ToArray();
@@ -106,16 +108,16 @@ internal static class FitRunner
         }
 
         // The selection decision over all ranks (every rank gets the same sums, so all decide alike).
-        var sums = new double[5];
+        var sums = new double[6];
         ranks.SumAll([split!.Outside.Count + built!.Observables.Count, split.Outside.Count,
             split.Outside.Count(e => e.Reason == RejectReason.OutsideSbLimit), split.Outside.Count(e => e.Reason == RejectReason.OutsideMagLimit),
-            split.Outside.Count(e => e.Reason == RejectReason.OutsideMinSize)], sums);
+            split.Outside.Count(e => e.Reason == RejectReason.OutsideMinSize), split.Outside.Count(e => e.Reason == RejectReason.OutsideRedshiftPrior)], sums);
         string? selectionWarning = null;
         if (sums[1] > 0)
         {
             try
             {
-                var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4])]);
+                var detail = SelectionSplit.Describe([(RejectReason.OutsideSbLimit, (long)sums[2]), (RejectReason.OutsideMagLimit, (long)sums[3]), (RejectReason.OutsideMinSize, (long)sums[4]), (RejectReason.OutsideRedshiftPrior, (long)sums[5])]);
                 selectionWarning = SelectionConsistency.Decide((long)sums[1], (long)sums[0], detail, a.MaxOutsideSelection, a.CataloguePath);
                 if (root) context.Err.WriteLine($"sizetest: warning: {TerminalText.Escape(selectionWarning)}");
             }

@@ -21,6 +21,8 @@ public enum RejectReason
     OutsideMagLimit,
     /// <summary>Angular size not above the stated resolution limit (θ ≤ min_size).</summary>
     OutsideMinSize,
+    /// <summary>A redshift taken as exact (z_err = 0) outside the stated photometric-redshift prior: no density under the prior.</summary>
+    OutsideRedshiftPrior,
     /// <summary>A numeric cell holds an infinity or NaN written out (<c>inf</c>, <c>Infinity</c>, <c>-inf</c>, <c>nan</c>, <c>NaN</c>), whatever the reader.</summary>
     NonFinite,
 }
@@ -28,7 +30,7 @@ public enum RejectReason
 /// <summary>Text forms of <see cref="RejectReason"/> used in the reject log and reports.</summary>
 public static class RejectReasons
 {
-    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>, <c>outside selection: sb_limit</c> (also <c>mag_limit</c>, <c>min_size</c>), <c>non-finite value</c>.</summary>
+    /// <summary>The reason code written to the reject log: <c>missing value</c>, <c>unparsable</c>, <c>z &lt;= 0</c>, <c>non-positive size</c>, <c>negative error</c>, <c>out of range</c>, <c>outside selection: sb_limit</c> (also <c>mag_limit</c>, <c>min_size</c>, <c>z_prior</c>), <c>non-finite value</c>.</summary>
     public static string Code(this RejectReason reason) => reason switch
     {
         RejectReason.MissingValue => "missing value",
@@ -40,6 +42,7 @@ public static class RejectReasons
         RejectReason.OutsideSbLimit => "outside selection: sb_limit",
         RejectReason.OutsideMagLimit => "outside selection: mag_limit",
         RejectReason.OutsideMinSize => "outside selection: min_size",
+        RejectReason.OutsideRedshiftPrior => "outside selection: z_prior",
         RejectReason.NonFinite => "non-finite value",
         _ => reason.ToString(),
     };

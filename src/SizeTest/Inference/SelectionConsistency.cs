@@ -34,7 +34,9 @@ public static class SelectionConsistency
     /// <param name="nuisance">The nuisance model with the stated cuts.</param>
     /// <param name="maxOutsideFraction">Refuse when more than this fraction of the objects lies outside (0–1).</param>
     /// <exception cref="InputException">Too many objects outside, or none left.</exception>
-    public static SelectionConsistencyResult Apply(CatalogueLoad load, Observables observables, NuisanceModel nuisance, double maxOutsideFraction = DefaultMaxOutsideFraction)
+    /// <param name="survey">The survey request, whose stated photo-z prior is a cut for objects with exact redshifts (null: none).</param>
+    public static SelectionConsistencyResult Apply(CatalogueLoad load, Observables observables, NuisanceModel nuisance, double maxOutsideFraction = DefaultMaxOutsideFraction,
+        Survey.SurveyRequest? survey = null)
     {
         ArgumentNullException.ThrowIfNull(load);
         ArgumentNullException.ThrowIfNull(observables);
@@ -43,7 +45,7 @@ public static class SelectionConsistency
             throw new InputException($"the largest fraction outside the selection must be between 0 and 1; got {maxOutsideFraction.ToString(CultureInfo.InvariantCulture)}");
         int n = observables.Count;
         if (n != load.Rows.Count) throw new ArgumentException("the observables do not match the sample row for row");
-        var split = Classify(observables, nuisance, i => load.Rows.SourceRows[i], role => load.Mapping.Roles.TryGetValue(role, out var b) ? b.ColumnName : role.Name());
+        var split = Classify(observables, nuisance, i => load.Rows.SourceRows[i], role => load.Mapping.Roles.TryGetValue(role, out var b) ? b.ColumnName : role.Name(), survey);
         if (split.Outside.Count == 0) return new SelectionConsistencyResult(load, observables, 0, []);
         var warning = Decide(split.Outside.Count, n, split.Describe(), maxOutsideFraction, load.Rows.SourceName);
         return new SelectionConsistencyResult(load.WithRejected(split.Keep, split.Outside), ObservablesSubset.Take(observables, split.Keep.ToArray()), split.Outside.Count, [warning]);
@@ -57,7 +59,10 @@ public static class SelectionConsistency
     /// <param name="nuisance">The nuisance model with the stated cuts.</param>
     /// <param name="sourceRow">Source row (1-based file line or table row) of object i, for the reject log.</param>
     /// <param name="columnName">The catalogue column of a role, for the reject log.</param>
-    public static SelectionSplit Classify(Observables observables, NuisanceModel nuisance, Func<int, long> sourceRow, Func<ColumnRole, string> columnName)
+    /// <param name="survey">The survey request (null: none): an object with z_err = 0 outside its stated photo-z prior has no density
+    /// under the prior (<see cref="Survey.SurveyRequest.OutsideRedshiftPrior"/>) and is moved out with reason <c>z_prior</c>.</param>
+    public static SelectionSplit Classify(Observables observables, NuisanceModel nuisance, Func<int, long> sourceRow, Func<ColumnRole, string> columnName,
+        Survey.SurveyRequest? survey = null)
     {
         ArgumentNullException.ThrowIfNull(observables);
         ArgumentNullException.ThrowIfNull(nuisance);
@@ -65,7 +70,9 @@ public static class SelectionConsistency
         var cuts = nuisance.Cuts;
         var keep = new List<int>(n);
         var rejected = new List<RejectEntry>();
-        if (cuts.IsEmpty)
+        bool zPrior = survey is not null && survey.MarginalisesRedshift(observables, nuisance.Observable)
+                      && (survey.RedshiftPriorMin is not null || survey.RedshiftPriorMax is not null);
+        if (cuts.IsEmpty && !zPrior)
         {
             for (int i = 0; i < n; i++) keep.Add(i);
             return new SelectionSplit(keep, rejected);
@@ -86,6 +93,9 @@ public static class SelectionConsistency
                 double mag = mu[i] - 5.0 * Math.Log10(Math.Exp(lt[i]) * AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
                 if (!(mag < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(m)} (--mag-limit)");
             }
+            if (entry is null && zPrior && survey!.OutsideRedshiftPrior(observables, nuisance.Observable, i))
+                entry = new(sourceRow(i), columnName(ColumnRole.Z), F(observables.Z[i]), RejectReason.OutsideRedshiftPrior,
+                    $"z_err = 0 and z outside the redshift prior [{F(survey.RedshiftPriorMin ?? 0)}, {(survey.RedshiftPriorMax is { } hi ? F(hi) : "inf")}]: no density under the prior");
             if (entry is null) keep.Add(i); else rejected.Add(entry);
         }
         return new SelectionSplit(keep, rejected);

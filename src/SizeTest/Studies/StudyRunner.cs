@@ -70,7 +70,7 @@ public static class StudyRunner
             var photometry = ObservablesBuilder.Build(load.Rows, photometryOptions);
             Stage("photometry");
 
-            var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection);
+            var selected = SelectionConsistency.Apply(load, photometry.Observables, study.Nuisance, study.MaxOutsideSelection, study.Survey);
             foreach (var w in selected.Warnings) options.Log?.Invoke("warning: " + w);
             load = selected.Load;
             var hypotheses = StudyHypotheses.Build(study);

@@ -116,6 +116,32 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void AnExactRedshiftOutsideTheStatedPriorGoesToTheRejectLogByRow()
+    {
+        // Row 6 of the file (the 5th object): z = 3.5 with z_err = 0 has no density under a flat prior on [0.05, 3] (the
+        // integrand N(z; 3.5, 0) π(z) is zero everywhere); row 7: z = 3.5 with its z_err > 0 is integrated under its truncated
+        // normal on the prior and stays. read = accepted + rejected: 300 = 299 + 1.
+        string mock = _t.PathOf("prior-mock.csv");
+        Assert.Equal(0, CliRunner.Run(["simulate", "--n", "300", "--seed", "4", "--photoz-err", "0.03", "--out", mock]).Exit);
+        var lines = File.ReadAllLines(mock);
+        var head = lines[0].Split(',');
+        int iz = Array.IndexOf(head, "z"), ie = Array.IndexOf(head, "z_err");
+        string[] Edit(string line, bool exact) { var f = line.Split(','); f[iz] = "3.5"; if (exact) f[ie] = "0"; return f; }
+        lines[5] = string.Join(',', Edit(lines[5], exact: true));
+        lines[6] = string.Join(',', Edit(lines[6], exact: false));
+        string path = _t.PathOf("prior.csv");
+        File.WriteAllLines(path, lines);
+        var (code, o, err, dir) = Fit(path, "--z-prior", "0.05:3");
+        Assert.True(code == 0, err);
+        Assert.Contains("300 rows read, 299 accepted, 1 rejected", o, StringComparison.Ordinal);
+        Assert.Contains("1 z_prior", err, StringComparison.Ordinal);
+        var rejects = File.ReadAllLines(Path.Combine(dir, "rejects.csv"));
+        Assert.Equal(2, rejects.Length);
+        Assert.StartsWith("6,z,3.5,outside selection: z_prior,", rejects[1], StringComparison.Ordinal);
+        Assert.Contains("1 object(s) have no Gauss–Hermite node inside the prior", o, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void MinimumSizeTruncationRunsWithTheSurveyTermsAndTheNotesSayHow()
     {
         var mock = Simulate("--luminosity-function", "schechter:-21:-1.2:-24:-16", "--size-lum-slope", "0.3", "--photoz-err", "0.03", "--min-size", "0.4");

@@ -79,15 +79,30 @@ public sealed record SurveyRequest(
             if (groups.Count == 1) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
-        bool marginalise = false;
+        bool marginalise = MarginalisesRedshift(observables, observable);
         if (observables.Survey.ZErr is not null && !IgnoreZErr)
         {
-            if (observable == ObservableKind.Size) marginalise = true;
-            else notes.Add("z_err is mapped, but redshift marginalisation is built for --observable size only; redshifts are taken as exact here.");
+            if (!marginalise) notes.Add("z_err is mapped, but redshift marginalisation is built for --observable size only; redshifts are taken as exact here.");
         }
         else if (observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
             AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax);
     }
+
+    /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped, not ignored, and the observable has the
+    /// marginalisation.</summary>
+    public bool MarginalisesRedshift(Observables observables, ObservableKind observable) =>
+        observables.Survey.ZErr is not null && !IgnoreZErr && observable == ObservableKind.Size;
+
+    /// <summary>
+    /// Whether object <paramref name="i"/> has no density under the stated redshift prior: it is integrated over redshift
+    /// (<see cref="MarginalisesRedshift"/>), a prior end is stated, its z_err is 0 (its redshift is exact) and z lies outside
+    /// [<see cref="RedshiftPriorMin"/>, <see cref="RedshiftPriorMax"/>]. (An object with z_err &gt; 0 is integrated under its
+    /// truncated normal on the prior instead; without a stated prior the prior is the sample's range.)
+    /// </summary>
+    public bool OutsideRedshiftPrior(Observables observables, ObservableKind observable, int i) =>
+        MarginalisesRedshift(observables, observable) && (RedshiftPriorMin is not null || RedshiftPriorMax is not null)
+        && !(observables.Survey.ZErr![i] > 0)
+        && (observables.Z[i] < (RedshiftPriorMin ?? double.NegativeInfinity) || observables.Z[i] > (RedshiftPriorMax ?? double.PositiveInfinity));
 }
