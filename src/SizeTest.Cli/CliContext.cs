@@ -45,7 +45,7 @@ internal sealed class CliContext
                 if (Verbose) Err.WriteLine(ae);
                 return ExitCodes.BadInput;
             case AnalysisException an:
-                Err.WriteLine($"sizetest: {TerminalText.Escape(an.Message)}");
+                Err.WriteLine($"sizetest: {TerminalText.Escape(SettingFlags.Message(an))}");
                 if (Verbose) Err.WriteLine(an);
                 return ExitCodes.AnalysisFailed;
             case FileNotFoundException fnf:

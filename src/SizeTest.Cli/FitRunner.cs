@@ -59,7 +59,7 @@ internal static class FitRunner
         code = Agree(context, ranks, () =>
         {
             share = CatalogueShare.Load(a.CataloguePath, a.LoadOptions, ranks.Rank, ranks.Size);
-            if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + w);
+            if (root) foreach (var w in share.UnitWarnings) context.Err.WriteLine("sizetest: warning: " + SettingFlags.Text(w));
             timings?.Mark("read catalogue");
             built = ObservablesBuilder.Build(share.Local, a.Photometry);
             // Objects outside a stated cut leave the sample for the reject log before any likelihood (decided below, for all ranks).
@@ -163,6 +163,8 @@ internal static class FitRunner
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
             result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c),
                 .. share.UnitWarnings.Select(w => "catalogue: warning: " + w), .. result.Notes] };
+            // Inner stages name settings ({expect}, {col}); the notes written and shown are in the CLI's flags.
+            result = result with { Notes = result.Notes.Select(SettingFlags.Text).ToArray() };
 
             StudyOutputFiles.Write(folder!, result, totals.RejectCsv);
             folder!.Commit();

@@ -54,7 +54,7 @@ internal static class InspectCommand
                 if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
                 switch (parse.GetValue(format))
                 {
-                    case "json": context.Out.WriteLine(CatalogueInspectionJson.Write(path, load, corrections)); break;
+                    case "json": context.Out.WriteLine(SettingFlags.Text(CatalogueInspectionJson.Write(path, load, corrections))); break;
                     case "csv": WriteCsv(context.Out, load); break;
                     default: WriteTable(context.Out, path, load, logPath, corrections); break;
                 }
@@ -80,7 +80,7 @@ internal static class InspectCommand
         }
         catch (InputException ex) when (given == new PhotometryOptionText())
         {
-            return [$"cannot be applied as given: {ex.Message}"];
+            return [$"cannot be applied as given: {SettingFlags.Message(ex)}"];
         }
     }
 
@@ -113,7 +113,7 @@ internal static class InspectCommand
         WriteGrid(o, ["name", "type", "stored as", "unit", "UCD", "description"], rows);
         o.WriteLine();
         o.WriteLine("mapping:");
-        foreach (var line in load.DetectionReport) o.WriteLine($"  {line}");
+        foreach (var line in load.DetectionReport) o.WriteLine($"  {SettingFlags.Text(line)}");
         o.WriteLine();
         o.WriteLine($"rows: {load.RowsRead} read, {load.Accepted} accepted, {load.Rejected} rejected");
         foreach (var (reason, count) in load.RejectLog.CountsByReason().Take(5))

@@ -151,7 +151,7 @@ internal sealed class MockSurveyOptions
     {
         if (text.StartsWith("hist:", StringComparison.Ordinal))
             return RedshiftHistogramFile.Read(text["hist:".Length..]);
-        if (!RedshiftDistribution.TryParse(text, out var dist, out var error)) throw new InputException(error);
+        if (!RedshiftDistribution.TryParse(text, out var dist, out var error)) throw SettingProblem.Input(error);
         return dist!;
     }
 

@@ -12,13 +12,21 @@ internal static class SettingFlags
     private static readonly Dictionary<string, string> Exceptions = new(StringComparer.Ordinal)
     {
         ["sample_sizes"] = "--n",
+        ["object_count"] = "--n",
     };
 
     /// <summary>The flag of <paramref name="setting"/>.</summary>
     public static string Flag(string setting) =>
         Exceptions.TryGetValue(setting, out var flag) ? flag : "--" + setting.Replace('_', '-');
 
+    /// <summary>A note or warning from an inner stage with every setting written as its flag (<see cref="SettingProblem.RenderText"/>).</summary>
+    public static string Text(string text) => SettingProblem.RenderText(text, Flag);
+
     /// <summary>The message of <paramref name="e"/> with every setting written as its flag.</summary>
-    public static string Message(InputException e) =>
-        e.SettingProblems.Count == 0 ? e.Message : string.Join("; ", e.SettingProblems.Select(p => p.Render(Flag)));
+    public static string Message(Exception e) => e switch
+    {
+        InputException ie => ie.Render(Flag),
+        AnalysisException ae => ae.Render(Flag),
+        _ => e.Message,
+    };
 }

@@ -44,8 +44,8 @@ public static class CatalogueLoader
         var source = reader.SourceName;
         var mapping = MappingResolver.Resolve(reader.Columns, options.Mapping, source);
         if (!mapping.Roles.ContainsKey(ColumnRole.Z))
-            throw new InputException(
-                $"no redshift column found (none is named z/redshift/zspec… or has UCD src.redshift); map one with --col z=NAME — the columns are {string.Join(", ", reader.Columns.Take(30).Select(c => $"'{c.Name}'"))}",
+            throw SettingProblem.Input(
+                $"no redshift column found (none is named z/redshift/zspec… or has UCD src.redshift); map one with {{col}} z=NAME — the columns are {string.Join(", ", reader.Columns.Take(30).Select(c => $"'{c.Name}'"))}",
                 source);
 
         var bindings = Order.Where(mapping.Roles.ContainsKey).Select(r => mapping.Roles[r]).ToArray();

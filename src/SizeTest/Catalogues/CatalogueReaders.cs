@@ -54,11 +54,11 @@ public static class CatalogueReaders
                     return VoTableReader.Open(path, options);
                 case CatalogueFormat.Parquet:
                     if (options.Table is not null)
-                        throw new InputException($"a Parquet file has only one table; drop --hdu '{options.Table}'", path);
+                        throw SettingProblem.Input($"a Parquet file has only one table; drop {{hdu}} '{options.Table}'", path);
                     return ParquetCatalogueReader.Open(path);
                 default:
                     if (options.Table is not null)
-                        throw new InputException($"a text table has only one table; drop --hdu '{options.Table}'", path);
+                        throw SettingProblem.Input($"a text table has only one table; drop {{hdu}} '{options.Table}'", path);
                     var layout = TextLayout.Detect(path, options);
                     return layout.Delimiter == ' '
                         ? new WhitespaceTextReader(path, layout, options)

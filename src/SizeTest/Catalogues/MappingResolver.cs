@@ -69,10 +69,10 @@ public static class MappingResolver
             var col = columns[idx];
             if (!Eligible(a.Role, col))
                 throw new InputException($"column '{col.Name}' ({col.NativeType}) cannot hold {a.Role.Name()} values", sourceName, column: col.Name);
-            var b = Bind(a.Role, idx, col, a.Unit, "given with --col", roles, out var problem);
-            if (b is null) throw new InputException($"{problem}; give the unit with --col {a.Role.Name()}={col.Name}:UNIT", sourceName, column: col.Name);
+            var b = Bind(a.Role, idx, col, a.Unit, "given with {col}", roles, out var problem);
+            if (b is null) throw SettingProblem.Input($"{problem}; give the unit with {{col}} {a.Role.Name()}={col.Name}:UNIT", sourceName, column: col.Name);
             if (!string.IsNullOrWhiteSpace(a.Unit) && !string.IsNullOrWhiteSpace(col.Unit) && !CatalogueUnits.SameUnit(a.Unit, col.Unit))
-                notes.Add($"warning: column '{col.Name}' declares unit '{col.Unit.Trim()}' in the file, but --col {a.Role.Name()}={col.Name}:{a.Unit} gives '{a.Unit}'; the given unit is used");
+                notes.Add($"warning: column '{col.Name}' declares unit '{col.Unit.Trim()}' in the file, but {{col}} {a.Role.Name()}={col.Name}:{a.Unit} gives '{a.Unit}'; the given unit is used");
             roles[a.Role] = b;
             used.Add(idx);
         }
@@ -106,7 +106,7 @@ public static class MappingResolver
         {
             var valueRole = b.Role.ValueRoleOf()!.Value;
             if (!roles.ContainsKey(valueRole))
-                throw new InputException($"{b.Role.Name()} is relative ({b.Unit}) but no {valueRole.Name()} column is mapped; map one with --col {valueRole.Name()}=NAME", sourceName, column: b.ColumnName);
+                throw SettingProblem.Input($"{b.Role.Name()} is relative ({b.Unit}) but no {valueRole.Name()} column is mapped; map one with {{col}} {valueRole.Name()}=NAME", sourceName, column: b.ColumnName);
         }
 
         // 3. Kept columns.
@@ -123,12 +123,12 @@ public static class MappingResolver
         // 4. Size definition.
         SizeDefinition def;
         string defReason;
-        if (mapping.SizeDefinition is { } given) { def = given; defReason = "given with --size-def"; }
+        if (mapping.SizeDefinition is { } given) { def = given; defReason = "given with {size_def}"; }
         else if (roles.TryGetValue(ColumnRole.Theta, out var th) && Norm(th.ColumnName).Contains("petro"))
         { def = new SizeDefinition(SizeKind.Petrosian); defReason = $"size column '{th.ColumnName}' is named Petrosian"; }
         else if (roles.TryGetValue(ColumnRole.Theta, out th) && Norm(th.ColumnName).Contains("fwhm"))
         { def = new SizeDefinition(SizeKind.GaussianFwhm); defReason = $"size column '{th.ColumnName}' is named FWHM"; }
-        else { def = SizeDefinition.Effective; defReason = "default; set another with --size-def"; }
+        else { def = SizeDefinition.Effective; defReason = "default; set another with {size_def}"; }
 
         return new ResolvedMapping(roles, kept, def, defReason, notes);
     }
@@ -240,7 +240,7 @@ public static class MappingResolver
             roles[role] = b;
             used.Add(cand.Index);
             var others = candidates.Where(c => c.Index != cand.Index && !used.Contains(c.Index)).Select(c => $"'{columns[c.Index].Name}'").ToArray();
-            if (others.Length > 0) notes.Add($"for {role.Name()} also possible: {string.Join(", ", others)} (choose with --col {role.Name()}=NAME)");
+            if (others.Length > 0) notes.Add($"for {role.Name()} also possible: {string.Join(", ", others)} (choose with {{col}} {role.Name()}=NAME)");
             return;
         }
     }

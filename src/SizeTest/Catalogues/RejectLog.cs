@@ -50,7 +50,7 @@ public sealed class RejectLog
     public void WriteCsv(string path, bool force = false)
     {
         if (File.Exists(path) && !force)
-            throw new InputException($"reject log '{path}' already exists; pass --force to replace it or choose another path");
+            throw SettingProblem.Input($"reject log '{path}' already exists; pass {{force}} to replace it or choose another path");
         AtomicFile.WriteAllText(path, ToCsv());
     }
 

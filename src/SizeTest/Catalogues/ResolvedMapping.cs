@@ -22,10 +22,12 @@ public sealed class ResolvedMapping
     /// <summary>The size definition that travels with the sample.</summary>
     public SizeDefinition SizeDefinition { get; }
 
-    /// <summary>Why that size definition (<c>given with --size-def</c>, <c>column name 'petroR50' says Petrosian</c>, <c>default</c>).</summary>
+    /// <summary>Why that size definition (<c>given with {size_def}</c>, <c>column name 'petroR50' says Petrosian</c>, <c>default</c>).</summary>
     public string SizeDefinitionReason { get; }
 
-    /// <summary>Further remarks: candidates passed over and why, roles left unmapped.</summary>
+    /// <summary>Further remarks: candidates passed over and why, roles left unmapped. Here, in <see cref="RoleBinding.Reason"/>
+    /// and in <see cref="SizeDefinitionReason"/> settings are written <c>{col}</c>, <c>{size_def}</c>
+    /// (<see cref="Foundation.Errors.SettingProblem.RenderText"/>): whoever shows the text spells them.</summary>
     public IReadOnlyList<string> Notes { get; }
 
     /// <summary>The warnings among <see cref="Notes"/> (a <c>--col</c> unit that differs from the file's declared unit, an

@@ -160,7 +160,7 @@ public static class FitRun
             notes.Add("surface-brightness dimming uses each model's bolometric exponent (4 for FLRW, dimming_exponent for static models)"
                       + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
         if (first.Observable == ObservableKind.SurfaceBrightness && hypotheses.All(h => h.FreeParameters.Any(p => p.Name == NuisanceParameters.Names.SbEvolution)))
-            notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation (--expect sb_evolution=LO:HI), or fit --observable joint");
+            notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation ({expect} sb_evolution=LO:HI), or fit {observable} joint");
         if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
         if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
         if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");

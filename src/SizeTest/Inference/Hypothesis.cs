@@ -1,4 +1,5 @@
 using SizeTest.Cosmology;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Inference;
 
@@ -41,7 +42,7 @@ public sealed class Hypothesis
     /// Defaults: cosmological parameters fixed at their defaults (h0 in particular, because for sizes only
     /// R0·H0 is constrained); the nuisance parameters of the observable free.
     /// </summary>
-    /// <exception cref="ArgumentException">An override is inconsistent (e.g. frees a parameter that does not enter the likelihood).</exception>
+    /// <exception cref="SizeTest.Foundation.Errors.InputException">An override is inconsistent (e.g. frees a parameter that does not enter the likelihood; names the settings {free}, {prior}).</exception>
     public static Hypothesis Create(IWorldModelFamily family, NuisanceModel nuisance, ParameterOverrides? overrides = null)
     {
         ArgumentNullException.ThrowIfNull(family);
@@ -62,7 +63,7 @@ public sealed class Hypothesis
             if (overrides.Bounds?.TryGetValue(spec.Name, out var b) == true && s.IsFree)
                 s = s with { Min = b.Min, Max = b.Max, Value = Math.Clamp(s.Value, b.Min, b.Max) };
             if (s.IsFree && !EntersLikelihood(spec.Name, nuisance, family))
-                throw new ArgumentException($"parameter '{spec.Name}' does not enter the {Describe(nuisance.Observable)} likelihood of world model '{family.Name}', so it cannot be fitted; remove it from --free/--prior");
+                throw SettingProblem.Input($"parameter '{spec.Name}' does not enter the {Describe(nuisance.Observable)} likelihood of world model '{family.Name}', so it cannot be fitted; remove it from {{free}}/{{prior}}");
             if (s.IsFree && double.IsNaN(s.Value)) s = s with { Value = RealisedDefault(family, spec.Name) ?? 0.5 * (s.Min + s.Max) };
             if (s.IsFree) s = s with { Value = Math.Clamp(s.Value, s.Min, s.Max) };
             s.Validate();

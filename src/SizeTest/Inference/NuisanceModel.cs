@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Inference;
 
 /// <summary>
@@ -31,21 +33,21 @@ public sealed record NuisanceModel(
     /// <summary>The selection cuts (never null).</summary>
     public SelectionLimits Cuts => Selection ?? SelectionLimits.None;
 
-    /// <summary>Checks consistency; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks consistency; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
         var s = Cuts;
         if (Observable == ObservableKind.Size && (s.SbLimit is not null || s.MagLimit is not null))
-            throw new ArgumentException("a surface-brightness or magnitude limit needs --observable sb or joint (a size-only fit has no surface-brightness model)");
+            throw SettingProblem.Input("a surface-brightness or magnitude limit needs {observable} sb or joint (a size-only fit has no surface-brightness model)");
         if (Observable == ObservableKind.SurfaceBrightness && (s.MinThetaArcsec is not null || s.MagLimit is not null))
-            throw new ArgumentException("a minimum size or magnitude limit needs --observable size or joint (a surface-brightness-only fit has no size model)");
+            throw SettingProblem.Input("a minimum size or magnitude limit needs {observable} size or joint (a surface-brightness-only fit has no size model)");
         int cuts = (s.SbLimit is null ? 0 : 1) + (s.MagLimit is null ? 0 : 1) + (s.MinThetaArcsec is null ? 0 : 1);
         if (cuts > 2)
-            throw new ArgumentException("at most two selection cuts can be modelled together (the joint truncation is bivariate); drop one of --sb-limit, --mag-limit, --min-size");
+            throw SettingProblem.Input("at most two selection cuts can be modelled together (the joint truncation is bivariate); drop one of {sb_limit}, {mag_limit}, {min_size}");
         if (s.MinThetaArcsec is { } t && !(t > 0))
-            throw new ArgumentException("--min-size must be positive (arcsec)");
+            throw SettingProblem.Input("{min_size} must be positive (arcsec)");
         if (SizeSbRelation && Observable != ObservableKind.Joint)
-            throw new ArgumentException("the size–surface-brightness relation needs --observable joint");
+            throw SettingProblem.Input("the size–surface-brightness relation needs {observable} joint");
         if (!(PivotSizeKpc > 0)) throw new ArgumentException("the pivot size must be positive (kpc)");
         SurveyTerms.Validate(Observable);
         if (GridNodes != 0 && GridNodes is < 16 or > 1024) throw new ArgumentException("the redshift grid needs 16 to 1024 nodes (or 0 for automatic)");

@@ -117,7 +117,7 @@ public static class PosteriorSampling
             int stepsRun = run.Chain.Steps;
             var diag = run.Diagnostics;
             string length = auto
-                ? (converged ? $"ran to convergence: {stepsRun} steps" : $"not converged within --max-steps {maxSteps}: {stepsRun} steps")
+                ? (converged ? $"ran to convergence: {stepsRun} steps" : $"not converged within the limit of {maxSteps} steps: {stepsRun} steps")
                 : $"{stepsRun} steps (fixed)";
             verdict = $"ensemble MCMC ({request.Walkers} walkers, moves {run.MoveName}, {length}, first {run.BurnIn} discarded as burn-in, acceptance {run.AcceptanceFraction:0.00}): {diag.Verdict.Summary}";
             if (LaplaceEvidence.TryCompute(likelihood, priors, fit.Theta, out var laplace, out var failure))

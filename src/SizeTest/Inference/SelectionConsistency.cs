@@ -85,13 +85,13 @@ public static class SelectionConsistency
         {
             RejectEntry? entry = null;
             if (cuts.MinThetaArcsec is { } minT && lnTheta is not null && !(lnTheta[i] > lnMin))
-                entry = new(sourceRow(i), columnName(ColumnRole.Theta), F(Math.Exp(lnTheta[i]) * AngleUnits.ArcsecPerRadian), RejectReason.OutsideMinSize, $"θ must be > {F(minT)} arcsec (--min-size)");
+                entry = new(sourceRow(i), columnName(ColumnRole.Theta), F(Math.Exp(lnTheta[i]) * AngleUnits.ArcsecPerRadian), RejectReason.OutsideMinSize, $"θ must be > {F(minT)} arcsec (the minimum size)");
             else if (cuts.SbLimit is { } s && mu is not null && !(mu[i] < s))
-                entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mu[i]), RejectReason.OutsideSbLimit, $"μ must be < {F(s)} mag/arcsec2 (--sb-limit)");
+                entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mu[i]), RejectReason.OutsideSbLimit, $"μ must be < {F(s)} mag/arcsec2 (the surface-brightness limit)");
             else if (cuts.MagLimit is { } m && mu is not null && observables.LnTheta is { } lt)
             {
                 double mag = mu[i] - 5.0 * Math.Log10(Math.Exp(lt[i]) * AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
-                if (!(mag < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(m)} (--mag-limit)");
+                if (!(mag < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(m)} (the magnitude limit)");
             }
             if (entry is null && zPrior && survey!.OutsideRedshiftPrior(observables, nuisance.Observable, i))
                 entry = new(sourceRow(i), columnName(ColumnRole.Z), F(observables.Z[i]), RejectReason.OutsideRedshiftPrior,
@@ -109,9 +109,9 @@ public static class SelectionConsistency
     {
         double fraction = total == 0 ? 0 : (double)outside / total;
         if (outside >= total)
-            throw new InputException($"every one of the {total} objects lies outside the stated selection ({detail}); the likelihood is not defined there; check --sb-limit, --mag-limit and --min-size against the catalogue", source);
+            throw SettingProblem.Input($"every one of the {total} objects lies outside the stated selection ({detail}); the likelihood is not defined there; check {{sb_limit}}, {{mag_limit}} and {{min_size}} against the catalogue", source);
         if (fraction > maxOutsideFraction)
-            throw new InputException($"{outside} of {total} objects ({Pct(fraction, "0.0")}) lie outside the stated selection ({detail}), more than the {Pct(maxOutsideFraction, "0.##")} allowed; the cut does not describe this catalogue; check the limits (or raise --max-outside-selection)", source);
+            throw SettingProblem.Input($"{outside} of {total} objects ({Pct(fraction, "0.0")}) lie outside the stated selection ({detail}), more than the {Pct(maxOutsideFraction, "0.##")} allowed; the cut does not describe this catalogue; check the limits (or raise {{max_outside_selection}})", source);
         return $"{outside} of {total} objects lie outside the stated selection ({detail}); they were moved to the reject log and not fitted";
     }
 

@@ -83,7 +83,7 @@ public static class ObservablesBuilder
             if (ik != outKind)
             {
                 if ((sersic ?? (sample.Survey.SersicN is not null ? 1.0 : null)) is not { } nn)
-                    throw new InputException($"Converting surface brightness from '{SurfaceBrightness.Token(ik)}' to '{SurfaceBrightness.Token(outKind)}' needs a Sérsic index; set it (e.g. --sersic-n 4).");
+                    throw SettingProblem.Input($"Converting surface brightness from '{SurfaceBrightness.Token(ik)}' to '{SurfaceBrightness.Token(outKind)}' needs a Sérsic index; set it (e.g. {{sersic_n}} 4).");
                 double off = SurfaceBrightness.ConversionOffset(ik, outKind, nn);
                 if (sample.Survey.SersicN is { } perObject)
                 {
@@ -111,7 +111,7 @@ public static class ObservablesBuilder
             if (sample.SizeDefinition.IsophoteMagPerArcsec2 is not { } level)
                 throw new InputException($"{sample.SourceName}: the sizes are isophotal but no isophote level is given.");
             if (sersic is not { } nIso && sample.Survey.SersicN is null)
-                throw new InputException($"{sample.SourceName}: the sizes are isophotal (mu_iso = {F(level)}); set a Sérsic index (e.g. --sersic-n 1) so the fit can predict isophotal radii.");
+                throw SettingProblem.Input($"{sample.SourceName}: the sizes are isophotal (mu_iso = {F(level)}); set a Sérsic index (e.g. {{sersic_n}} 1) so the fit can predict isophotal radii.");
             iso = new double[n];
             Array.Fill(iso, level);
             ApplyZeroPoints(sample, options, iso);
@@ -146,7 +146,7 @@ public static class ObservablesBuilder
         string refText = o.Reference is null ? "flat ΛCDM (H0 = 70, Ωm = 0.3; the default — set the catalogue's own)" : $"{o.Reference.Name} {string.Join(", ", o.Reference.ParameterValues.Where(kv => double.IsFinite(kv.Value)).Select(kv => $"{kv.Key} = {F(kv.Value)}"))}";
         if (o.Mass)
         {
-            var lm = sample.Survey.LogMass ?? throw new InputException($"{sample.SourceName}: a size–mass relation needs a 'log_mass' column; map it with --col log_mass=NAME");
+            var lm = sample.Survey.LogMass ?? throw SettingProblem.Input($"{sample.SourceName}: a size–mass relation needs a 'log_mass' column; map it with {{col}} log_mass=NAME");
             notes.Add($"stellar masses: log_mass taken as computed in the reference cosmology {refText}; for each world model M* is scaled by (D_L,model/D_L,ref)^2, i.e. the mass-to-light ratio is assumed not to depend on the cosmology.");
             return new LuminosityData(LuminosityKind.StellarMass, (double[])lm.Clone(), LnReferenceDistance: RefLn(), ReferenceModel: o.ReferenceModel.Name);
         }
@@ -173,7 +173,7 @@ public static class ObservablesBuilder
             notes.Add($"luminosity: abs_mag taken as computed in the reference cosmology {refText}; for each world model M = M_ref - 5 log10(D_L,model/D_L,ref) (the catalogue's K-correction and extinction are kept).");
             return new LuminosityData(LuminosityKind.AbsoluteMagnitude, (double[])am.Clone(), LnReferenceDistance: RefLn(), ReferenceModel: o.ReferenceModel.Name);
         }
-        throw new InputException($"{sample.SourceName}: a size–luminosity relation or luminosity window needs 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
+        throw SettingProblem.Input($"{sample.SourceName}: a size–luminosity relation or luminosity window needs 'mag', 'abs_mag' or 'flux_density'; map one with {{col}} ROLE=NAME");
     }
 
     private static double[]? KCorrections(CatalogueRows sample, PhotometryOptions options, BandMatchPlan? match, List<string> notes)

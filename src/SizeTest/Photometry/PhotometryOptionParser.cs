@@ -9,7 +9,8 @@ namespace SizeTest.Photometry;
 /// at its first colon (so values may contain colons; file names may not contain commas).
 /// Files named in the strings are read through the <c>readText</c> delegate
 /// (<see cref="PhotometryFiles.ReadText"/> by default), so the parser itself does no I/O.
-/// Every error is an <see cref="InputException"/> whose message names the option and the bad part.
+/// Every error is an <see cref="InputException"/> whose message names the setting (<see cref="SettingProblem"/>: <c>{kcorr}</c>,
+/// <c>{extinction}</c>, <c>{zero_points}</c>, <c>{band}</c>, <c>{band_match}</c>, <c>{sersic_n}</c>, <c>{sb}</c>) and the bad part.
 /// </summary>
 public static class PhotometryOptionParser
 {
@@ -25,19 +26,19 @@ public static class PhotometryOptionParser
         if (text.ZeroPoints is { } z) o = o with { ZeroPoints = ParseZeroPoints(z, readText) };
         if (text.DefaultBand is { } b)
         {
-            if (string.IsNullOrWhiteSpace(b)) throw new InputException("--band: the band name is empty.");
+            if (string.IsNullOrWhiteSpace(b)) throw SettingProblem.Input("{band}: the band name is empty.");
             o = o with { DefaultBand = b.Trim() };
         }
         if (text.BandMatch is { } m) o = o with { BandMatch = ParseBandMatch(m, readText) };
         if (text.SersicIndex is { } n) o = o with { SersicIndex = ParseSersicIndex(n) };
         if (text.SurfaceBrightness is { } s) o = o with { SurfaceBrightness = ParseSurfaceBrightness(s) };
         if (o.KCorrection is KCorrectionOption.Template { ObservedBand: null } && o.BandMatch is null)
-            throw new InputException("--kcorr template: give the observed filter curve (filter-obs:FILE) or use --band-match.");
+            throw SettingProblem.Input("{kcorr} template: give the observed filter curve (filter-obs:FILE) or use {band_match}.");
         return o;
     }
 
     /// <summary>Parses <c>--kcorr</c>; see <see cref="PhotometryOptionText.KCorrection"/>.</summary>
-    public static KCorrectionOption ParseKCorrection(string spec, Func<string, string>? readText = null, string option = "--kcorr")
+    public static KCorrectionOption ParseKCorrection(string spec, Func<string, string>? readText = null, string option = "kcorr")
     {
         var items = Items(spec, option);
         var (key, value) = items[0];
@@ -68,12 +69,12 @@ public static class PhotometryOptionParser
                 return new KCorrectionOption.Template(spectrum, obs, rest, Ref("reference-obs"), Ref("reference-rest"));
             }
             default:
-                throw new InputException($"{option} '{spec}': expected none, column:NAME, powerlaw:ALPHA or template:FILE[,filter-obs:FILE,filter-rest:FILE,…].");
+                throw SettingProblem.Input($"{{{option}}} '{spec}': expected none, column:NAME, powerlaw:ALPHA or template:FILE[,filter-obs:FILE,filter-rest:FILE,…].");
         }
     }
 
     /// <summary>Parses <c>--extinction</c>; see <see cref="PhotometryOptionText.Extinction"/>.</summary>
-    public static ExtinctionOption ParseExtinction(string spec, Func<string, string>? readText = null, string option = "--extinction")
+    public static ExtinctionOption ParseExtinction(string spec, Func<string, string>? readText = null, string option = "extinction")
     {
         var items = Items(spec, option);
         var (key, value) = items[0];
@@ -88,33 +89,33 @@ public static class PhotometryOptionParser
                 string col = NonEmpty(value, option, "ebv:COLUMN");
                 var keys = Keys(items.Skip(1), option, "coeffs");
                 if (!keys.TryGetValue("coeffs", out var file))
-                    throw new InputException($"{option} '{spec}': ebv:COLUMN needs coeffs:FILE (a table of A_band/E(B-V) per band).");
+                    throw SettingProblem.Input($"{{{option}}} '{spec}': ebv:COLUMN needs coeffs:FILE (a table of A_band/E(B-V) per band).");
                 var table = TwoColumnText.ParseBandTable((readText ?? PhotometryFiles.ReadText)(file), file, "A_band/E(B-V) coefficient");
                 return new ExtinctionOption.ColourExcess(col, table);
             }
             default:
-                throw new InputException($"{option} '{spec}': expected none, column:NAME or ebv:COLUMN,coeffs:FILE.");
+                throw SettingProblem.Input($"{{{option}}} '{spec}': expected none, column:NAME or ebv:COLUMN,coeffs:FILE.");
         }
     }
 
     /// <summary>Parses <c>--zero-points FILE</c>: rows "band offset" with m_AB = m + offset.</summary>
-    public static BandTable ParseZeroPoints(string path, Func<string, string>? readText = null, string option = "--zero-points")
+    public static BandTable ParseZeroPoints(string path, Func<string, string>? readText = null, string option = "zero_points")
     {
-        if (string.IsNullOrWhiteSpace(path)) throw new InputException($"{option}: the file name is empty.");
+        if (string.IsNullOrWhiteSpace(path)) throw SettingProblem.Input($"{{{option}}}: the file name is empty.");
         return TwoColumnText.ParseBandTable((readText ?? PhotometryFiles.ReadText)(path.Trim()), path.Trim(), "AB zero-point offset");
     }
 
     /// <summary>Parses <c>--sersic-n N</c> (a number in the range of <see cref="SersicProfile"/>).</summary>
-    public static double ParseSersicIndex(string text, string option = "--sersic-n")
+    public static double ParseSersicIndex(string text, string option = "sersic_n")
     {
         double n = Number(text, option, "a number such as 1 or 4");
         if (!SersicProfile.IsValidIndex(n))
-            throw new InputException($"{option} {text}: the Sérsic index must lie between {SersicProfile.MinIndex.ToString(Inv)} and {SersicProfile.MaxIndex.ToString(Inv)}.");
+            throw SettingProblem.Input($"{{{option}}} {text}: the Sérsic index must lie between {SersicProfile.MinIndex.ToString(Inv)} and {SersicProfile.MaxIndex.ToString(Inv)}.");
         return n;
     }
 
     /// <summary>Parses <c>--sb</c>; see <see cref="PhotometryOptionText.SurfaceBrightness"/>.</summary>
-    public static SurfaceBrightnessOption ParseSurfaceBrightness(string spec, string option = "--sb")
+    public static SurfaceBrightnessOption ParseSurfaceBrightness(string spec, string option = "sb")
     {
         var items = Items(spec, option);
         var (key, value) = items[0];
@@ -124,12 +125,12 @@ public static class PhotometryOptionParser
         {
             "column" => new SurfaceBrightnessOption(false, value is null ? null : Kind(value, option), to),
             "from-mag" when value is null => new SurfaceBrightnessOption(true, SurfaceBrightnessKind.MeanWithinEffective, to),
-            _ => throw new InputException($"{option} '{spec}': expected column[:mean|effective|central][,to:KIND] or from-mag[,to:KIND]."),
+            _ => throw SettingProblem.Input($"{{{option}}} '{spec}': expected column[:mean|effective|central][,to:KIND] or from-mag[,to:KIND]."),
         };
     }
 
     /// <summary>Parses <c>--band-match</c>; see <see cref="PhotometryOptionText.BandMatch"/>.</summary>
-    public static BandMatchOption ParseBandMatch(string spec, Func<string, string>? readText = null, string option = "--band-match")
+    public static BandMatchOption ParseBandMatch(string spec, Func<string, string>? readText = null, string option = "band_match")
     {
         var items = Items(spec, option);
         var read = readText ?? PhotometryFiles.ReadText;
@@ -154,7 +155,7 @@ public static class PhotometryOptionParser
                     {
                         "nearest" => BandMatchMode.Nearest,
                         "interpolate" => BandMatchMode.Interpolate,
-                        _ => throw new InputException($"{option}: mode '{v}' is not nearest or interpolate."),
+                        _ => throw SettingProblem.Input($"{{{option}}}: mode '{v}' is not nearest or interpolate."),
                     };
                     break;
                 case "band":
@@ -162,24 +163,24 @@ public static class PhotometryOptionParser
                     string b = NonEmpty(v, option, "band:NAME=MU_COLUMN[/ERR_COLUMN]@LAMBDA|FILE");
                     int eq = b.IndexOf('='), at = b.LastIndexOf('@');
                     if (eq <= 0 || at < eq + 2 || at == b.Length - 1)
-                        throw new InputException($"{option}: band '{b}' should read NAME=MU_COLUMN[/ERR_COLUMN]@LAMBDA (or @FILE).");
+                        throw SettingProblem.Input($"{{{option}}}: band '{b}' should read NAME=MU_COLUMN[/ERR_COLUMN]@LAMBDA (or @FILE).");
                     string name = b[..eq].Trim();
                     string cols = b[(eq + 1)..at];
                     int slash = cols.IndexOf('/');
                     string muCol = (slash < 0 ? cols : cols[..slash]).Trim();
                     string? errCol = slash < 0 ? null : cols[(slash + 1)..].Trim();
                     if (muCol.Length == 0 || errCol is { Length: 0 })
-                        throw new InputException($"{option}: band '{b}' has an empty column name.");
+                        throw SettingProblem.Input($"{{{option}}}: band '{b}' has an empty column name.");
                     var (lam, curve) = LambdaOrFilter(b[(at + 1)..].Trim(), unit, read, name);
                     bands.Add(new ObservedBand(name, muCol, errCol, lam, curve));
                     break;
                 }
                 default:
-                    throw new InputException($"{option}: unknown item '{k}'; use target:, band:, mode: or wavelength-unit:.");
+                    throw SettingProblem.Input($"{{{option}}}: unknown item '{k}'; use target:, band:, mode: or wavelength-unit:.");
             }
         }
-        if (targetLambda is null) throw new InputException($"{option} '{spec}': give the rest-frame target band (target:LAMBDA or target:FILE).");
-        if (bands.Count == 0) throw new InputException($"{option} '{spec}': give at least one observed band (band:NAME=MU_COLUMN@LAMBDA).");
+        if (targetLambda is null) throw SettingProblem.Input($"{{{option}}} '{spec}': give the rest-frame target band (target:LAMBDA or target:FILE).");
+        if (bands.Count == 0) throw SettingProblem.Input($"{{{option}}} '{spec}': give at least one observed band (band:NAME=MU_COLUMN@LAMBDA).");
         return new BandMatchOption(bands, targetLambda.Value, target, mode);
     }
 
@@ -187,11 +188,11 @@ public static class PhotometryOptionParser
 
     private static List<(string Key, string? Value)> Items(string spec, string option)
     {
-        if (string.IsNullOrWhiteSpace(spec)) throw new InputException($"{option}: the value is empty.");
+        if (string.IsNullOrWhiteSpace(spec)) throw SettingProblem.Input($"{{{option}}}: the value is empty.");
         var list = new List<(string, string?)>();
         foreach (var raw in spec.Split(',', StringSplitOptions.TrimEntries))
         {
-            if (raw.Length == 0) throw new InputException($"{option} '{spec}': empty item between commas.");
+            if (raw.Length == 0) throw SettingProblem.Input($"{{{option}}} '{spec}': empty item between commas.");
             int c = raw.IndexOf(':');
             list.Add(c < 0 ? (raw.ToLowerInvariant(), null) : (raw[..c].Trim().ToLowerInvariant(), raw[(c + 1)..].Trim()));
         }
@@ -204,20 +205,20 @@ public static class PhotometryOptionParser
         foreach (var (k, v) in items)
         {
             if (!allowed.Contains(k))
-                throw new InputException($"{option}: unknown item '{k}'; allowed here: {string.Join(", ", allowed)}.");
-            if (v is null || v.Length == 0) throw new InputException($"{option}: item '{k}' needs a value ({k}:VALUE).");
-            if (!d.TryAdd(k, v)) throw new InputException($"{option}: item '{k}' is given twice.");
+                throw SettingProblem.Input($"{{{option}}}: unknown item '{k}'; allowed here: {string.Join(", ", allowed)}.");
+            if (v is null || v.Length == 0) throw SettingProblem.Input($"{{{option}}}: item '{k}' needs a value ({k}:VALUE).");
+            if (!d.TryAdd(k, v)) throw SettingProblem.Input($"{{{option}}}: item '{k}' is given twice.");
         }
         return d;
     }
 
     private static string NonEmpty(string? v, string option, string form) =>
-        string.IsNullOrWhiteSpace(v) ? throw new InputException($"{option}: expected {form}.") : v.Trim();
+        string.IsNullOrWhiteSpace(v) ? throw SettingProblem.Input($"{{{option}}}: expected {form}.") : v.Trim();
 
     private static double Number(string? v, string option, string form)
     {
         if (v is null || !double.TryParse(v.Trim(), NumberStyles.Float, Inv, out double x) || !double.IsFinite(x))
-            throw new InputException($"{option}: '{v}' is not a number; expected {form}.");
+            throw SettingProblem.Input($"{{{option}}}: '{v}' is not a number; expected {form}.");
         return x;
     }
 
@@ -226,7 +227,7 @@ public static class PhotometryOptionParser
         "mean" => SurfaceBrightnessKind.MeanWithinEffective,
         "effective" => SurfaceBrightnessKind.AtEffective,
         "central" => SurfaceBrightnessKind.Central,
-        _ => throw new InputException($"{option}: surface-brightness kind '{v}' is not mean, effective or central."),
+        _ => throw SettingProblem.Input($"{{{option}}}: surface-brightness kind '{v}' is not mean, effective or central."),
     };
 
     private static SpectralDensity Density(Dictionary<string, string> keys, string key, string option, SpectralDensity dflt) =>
@@ -234,7 +235,7 @@ public static class PhotometryOptionParser
         {
             "flambda" => SpectralDensity.PerWavelength,
             "fnu" => SpectralDensity.PerFrequency,
-            _ => throw new InputException($"{option}: {key}:'{v}' is not flambda or fnu."),
+            _ => throw SettingProblem.Input($"{{{option}}}: {key}:'{v}' is not flambda or fnu."),
         };
 
     private static double WavelengthUnit(Dictionary<string, string> keys, string option) =>
@@ -245,7 +246,7 @@ public static class PhotometryOptionParser
         "angstrom" or "a" => 1.0,
         "nm" => 10.0,
         "um" or "micron" => 1e4,
-        _ => throw new InputException($"{option}: wavelength-unit '{v}' is not angstrom, nm or um."),
+        _ => throw SettingProblem.Input($"{{{option}}}: wavelength-unit '{v}' is not angstrom, nm or um."),
     };
 
     private static (double Lambda, FilterResponse? Curve) LambdaOrFilter(string v, double unit, Func<string, string> read, string name)

@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -31,12 +33,12 @@ public sealed record GalaxyPopulation(
     double KormendySlope = 0.0,
     double PivotSizeKpc = 5.0)
 {
-    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the values; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
-        if (!(R0Kpc > 0) || !double.IsFinite(R0Kpc)) throw new ArgumentException($"--r0-kpc must be a positive size in kpc; got {R0Kpc}");
-        if (!(ScatterDex >= 0) || !double.IsFinite(ScatterDex)) throw new ArgumentException($"--scatter-dex must be ≥ 0; got {ScatterDex}");
-        if (!(ScatterMag >= 0) || !double.IsFinite(ScatterMag)) throw new ArgumentException($"--scatter-mag must be ≥ 0; got {ScatterMag}");
+        if (!(R0Kpc > 0) || !double.IsFinite(R0Kpc)) throw SettingProblem.Input($"{{r0_kpc}} must be a positive size in kpc; got {R0Kpc}");
+        if (!(ScatterDex >= 0) || !double.IsFinite(ScatterDex)) throw SettingProblem.Input($"{{scatter_dex}} must be ≥ 0; got {ScatterDex}");
+        if (!(ScatterMag >= 0) || !double.IsFinite(ScatterMag)) throw SettingProblem.Input($"{{scatter_mag}} must be ≥ 0; got {ScatterMag}");
         if (!double.IsFinite(SizeEvolution) || !double.IsFinite(SbEvolution) || !double.IsFinite(Mu0) || !double.IsFinite(KormendySlope))
             throw new ArgumentException("galaxy population parameters must be finite numbers");
         if (!(PivotSizeKpc > 0)) throw new ArgumentException($"the pivot size must be positive; got {PivotSizeKpc}");

@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -29,14 +31,14 @@ public sealed record MeasurementErrors(
     SizeErrorModel SizeErrors = SizeErrorModel.LogNormal,
     double? SizeErrorFractionAtZMax = null)
 {
-    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the values; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>).</summary>
     public void Validate()
     {
-        if (!(SizeErrorFraction >= 0) || !double.IsFinite(SizeErrorFraction)) throw new ArgumentException($"--size-err-frac must be ≥ 0; got {SizeErrorFraction}");
-        if (!(SizeErrorFloorArcsec >= 0) || !double.IsFinite(SizeErrorFloorArcsec)) throw new ArgumentException($"--size-err-floor must be ≥ 0 arcsec; got {SizeErrorFloorArcsec}");
-        if (!(MuErrorMag >= 0) || !double.IsFinite(MuErrorMag)) throw new ArgumentException($"--mu-err must be ≥ 0 mag; got {MuErrorMag}");
-        if (!(PhotoZError >= 0) || !(PhotoZError < 1)) throw new ArgumentException($"--photoz-err must be in [0, 1); got {PhotoZError}");
-        if (SizeErrorFractionAtZMax is { } f1 && !(f1 >= 0 && double.IsFinite(f1))) throw new ArgumentException($"--size-err-frac-zmax must be ≥ 0; got {f1}");
-        if (SizeErrors != SizeErrorModel.LogNormal && SizeErrorFloorArcsec > 0) throw new ArgumentException("--size-err-floor applies to log-normal size errors only");
+        if (!(SizeErrorFraction >= 0) || !double.IsFinite(SizeErrorFraction)) throw SettingProblem.Input($"{{size_err_frac}} must be ≥ 0; got {SizeErrorFraction}");
+        if (!(SizeErrorFloorArcsec >= 0) || !double.IsFinite(SizeErrorFloorArcsec)) throw SettingProblem.Input($"{{size_err_floor}} must be ≥ 0 arcsec; got {SizeErrorFloorArcsec}");
+        if (!(MuErrorMag >= 0) || !double.IsFinite(MuErrorMag)) throw SettingProblem.Input($"{{mu_err}} must be ≥ 0 mag; got {MuErrorMag}");
+        if (!(PhotoZError >= 0) || !(PhotoZError < 1)) throw SettingProblem.Input($"{{photoz_err}} must be in [0, 1); got {PhotoZError}");
+        if (SizeErrorFractionAtZMax is { } f1 && !(f1 >= 0 && double.IsFinite(f1))) throw SettingProblem.Input($"{{size_err_frac_zmax}} must be ≥ 0; got {f1}");
+        if (SizeErrors != SizeErrorModel.LogNormal && SizeErrorFloorArcsec > 0) throw SettingProblem.Input("{size_err_floor} applies to log-normal size errors only");
     }
 }

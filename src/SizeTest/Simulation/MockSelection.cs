@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -18,11 +20,11 @@ public sealed record MockSelection(double? SbLimit = null, double? MagLimit = nu
     /// <summary>True when no cut is set.</summary>
     public bool IsEmpty => SbLimit is null && MagLimit is null && MinThetaArcsec is null;
 
-    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the values; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>).</summary>
     public void Validate()
     {
-        if (SbLimit is { } s && !double.IsFinite(s)) throw new ArgumentException("--sb-limit must be a finite number of mag/arcsec2");
-        if (MagLimit is { } m && !double.IsFinite(m)) throw new ArgumentException("--mag-limit must be a finite magnitude");
-        if (MinThetaArcsec is { } t && !(t > 0 && double.IsFinite(t))) throw new ArgumentException($"--min-size must be a positive size in arcsec; got {t}");
+        if (SbLimit is { } s && !double.IsFinite(s)) throw SettingProblem.Input("{sb_limit} must be a finite number of mag/arcsec2");
+        if (MagLimit is { } m && !double.IsFinite(m)) throw SettingProblem.Input("{mag_limit} must be a finite magnitude");
+        if (MinThetaArcsec is { } t && !(t > 0 && double.IsFinite(t))) throw SettingProblem.Input($"{{min_size}} must be a positive size in arcsec; got {t}");
     }
 }

@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -20,14 +22,14 @@ public sealed record MockSubpopulation(string Name, double Fraction, double R0Kp
         {
             if (i >= p.Length) return d;
             return double.TryParse(p[i], System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out var v) && double.IsFinite(v)
-                ? v : throw new ArgumentException($"--population '{text}': '{p[i]}' is not a number; write NAME:FRACTION:R0_KPC:A[:BETA[:SCATTER_DEX]], e.g. early:0.4:3:-1.5:0.3:0.15");
+                ? v : throw SettingProblem.Input($"{{population}} '{text}': '{p[i]}' is not a number; write NAME:FRACTION:R0_KPC:A[:BETA[:SCATTER_DEX]], e.g. early:0.4:3:-1.5:0.3:0.15");
         }
         if (p.Length < 4 || p.Length > 6 || p[0].Trim().Length == 0)
-            throw new ArgumentException($"--population '{text}' must be NAME:FRACTION:R0_KPC:A[:BETA[:SCATTER_DEX]], e.g. early:0.4:3:-1.5:0.3:0.15");
+            throw SettingProblem.Input($"{{population}} '{text}' must be NAME:FRACTION:R0_KPC:A[:BETA[:SCATTER_DEX]], e.g. early:0.4:3:-1.5:0.3:0.15");
         var s = new MockSubpopulation(p[0].Trim(), N(1, 0), N(2, 0), N(3, 0), N(4, 0), N(5, 0.2));
-        if (!(s.Fraction > 0)) throw new ArgumentException($"--population '{text}': the fraction must be positive");
-        if (!(s.R0Kpc > 0)) throw new ArgumentException($"--population '{text}': R0 must be positive (kpc)");
-        if (!(s.ScatterDex >= 0)) throw new ArgumentException($"--population '{text}': the scatter must be ≥ 0");
+        if (!(s.Fraction > 0)) throw SettingProblem.Input($"{{population}} '{text}': the fraction must be positive");
+        if (!(s.R0Kpc > 0)) throw SettingProblem.Input($"{{population}} '{text}': R0 must be positive (kpc)");
+        if (!(s.ScatterDex >= 0)) throw SettingProblem.Input($"{{population}} '{text}': the scatter must be ≥ 0");
         return s;
     }
 }

@@ -31,7 +31,8 @@ public static class MockSurveyGenerator
     /// <param name="spec">World model, population, design, seed.</param>
     /// <param name="parallel">Whether chunks may run on several threads (the result is identical either way).</param>
     /// <param name="cancel">Cancellation.</param>
-    /// <exception cref="ArgumentException">The spec is invalid.</exception>
+    /// <exception cref="InputException">A setting of the spec is invalid (named as in <see cref="SettingProblem"/>).</exception>
+    /// <exception cref="ArgumentException">Another value of the spec is invalid.</exception>
     /// <exception cref="AnalysisException">The selection passes too few objects (more than the draw cap needed).</exception>
     public static MockCatalogue Generate(MockSurveySpec spec, bool parallel = true, CancellationToken cancel = default)
     {
@@ -84,8 +85,8 @@ public static class MockSurveyGenerator
             }
             passEstimate = Math.Max((double)passedThisRound / drawnThisRound, 1e-6);
             if (result.Count < n && drawn >= maxDraws)
-                throw new AnalysisException(FormattableString.Invariant(
-                    $"the selection passes too few objects: only {result.Count} of {drawn} drawn objects passed (pass fraction {(double)result.Count / drawn:G3}); loosen --sb-limit/--mag-limit/--min-size or lower --n"));
+                throw SettingProblem.Analysis(FormattableString.Invariant(
+                    $"the selection passes too few objects: only {result.Count} of {drawn} drawn objects passed (pass fraction {(double)result.Count / drawn:G3}); loosen {{sb_limit}}/{{mag_limit}}/{{min_size}} or lower {{object_count}}"));
         }
         return new MockCatalogue(spec, result, drawn, failSb, failMag, failSize);
     }

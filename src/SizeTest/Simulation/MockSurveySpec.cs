@@ -1,4 +1,5 @@
 using SizeTest.Cosmology;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Simulation;
 
@@ -30,7 +31,7 @@ public sealed record MockSurveySpec(
     /// <summary>The radio-source population (never null).</summary>
     public RadioSourcePopulation RadioTruth => RadioSources ?? new RadioSourcePopulation();
 
-    /// <summary>Checks the spec; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the spec; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
         ArgumentNullException.ThrowIfNull(Model);
@@ -40,7 +41,7 @@ public sealed record MockSurveySpec(
         else RadioTruth.Validate();
         SurveyTruth.Validate();
         if (Design.Kind == MockObjectKind.CompactRadio && (SurveyTruth.LuminosityFunction is not null || SurveyTruth.Groups.Count > 0))
-            throw new ArgumentException("a luminosity function and --population apply to --kind galaxy (radio sources draw log10 L from --log-lum-mean/--log-lum-sd)");
+            throw SettingProblem.Input("a luminosity function and {population} apply to {kind} galaxy (radio sources draw log10 L from {log_lum_mean}/{log_lum_sd})");
         if (!Model.IsExpanding && Design.Redshifts.ZMin <= 0)
             throw new ArgumentException($"the static world model '{Model.Name}' needs redshifts above 0");
     }

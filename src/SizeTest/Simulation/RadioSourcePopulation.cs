@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -23,11 +25,11 @@ public sealed record RadioSourcePopulation(
     double LogLuminositySd = 0.5,
     double LogLuminosityPivot = 27.0)
 {
-    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the values; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
         if (!(LinearSizePc > 0) || !double.IsFinite(LinearSizePc)) throw new ArgumentException($"the linear size ℓ_m must be positive (pc); got {LinearSizePc}");
-        if (!(ScatterDex >= 0) || !double.IsFinite(ScatterDex)) throw new ArgumentException($"--scatter-dex must be ≥ 0; got {ScatterDex}");
+        if (!(ScatterDex >= 0) || !double.IsFinite(ScatterDex)) throw SettingProblem.Input($"{{scatter_dex}} must be ≥ 0; got {ScatterDex}");
         if (!(LogLuminositySd >= 0) || !double.IsFinite(LogLuminositySd)) throw new ArgumentException($"the log-luminosity spread must be ≥ 0; got {LogLuminositySd}");
         if (!double.IsFinite(LuminosityExponent) || !double.IsFinite(SizeEvolution) || !double.IsFinite(LogLuminosityMean) || !double.IsFinite(LogLuminosityPivot))
             throw new ArgumentException("radio-source population parameters must be finite numbers");

@@ -96,7 +96,8 @@ public sealed class RedshiftDistribution
 
     /// <summary>
     /// Parses the <c>--z-dist</c> forms <c>uniform:ZMIN:ZMAX</c> and <c>survey:PEAK[:ZMIN:ZMAX]</c>
-    /// (histograms are read from a file by the caller and built with <see cref="Histogram"/>).
+    /// (histograms are read from a file by the caller and built with <see cref="Histogram"/>). On failure
+    /// <paramref name="error"/> is a <see cref="Foundation.Errors.SettingProblem"/> template naming the setting <c>{z_dist}</c>.
     /// </summary>
     public static bool TryParse(string text, out RedshiftDistribution? distribution, out string error)
     {
@@ -107,7 +108,7 @@ public sealed class RedshiftDistribution
         for (int k = 1; k < parts.Length; k++)
             if (!double.TryParse(parts[k], NumberStyles.Float, CultureInfo.InvariantCulture, out nums[k - 1]))
             {
-                error = $"--z-dist '{text}': '{parts[k]}' is not a number";
+                error = $"{{z_dist}} '{text}': '{parts[k]}' is not a number";
                 return false;
             }
         try
@@ -124,13 +125,13 @@ public sealed class RedshiftDistribution
                     distribution = Survey(nums[0], nums[1], nums[2]);
                     return true;
                 default:
-                    error = $"--z-dist '{text}' is not understood; use uniform:ZMIN:ZMAX, survey:PEAK[:ZMIN:ZMAX] or hist:FILE";
+                    error = $"{{z_dist}} '{text}' is not understood; use uniform:ZMIN:ZMAX, survey:PEAK[:ZMIN:ZMAX] or hist:FILE";
                     return false;
             }
         }
         catch (ArgumentException ex)
         {
-            error = $"--z-dist '{text}': {ex.Message}";
+            error = $"{{z_dist}} '{text}': {ex.Message}";
             return false;
         }
     }

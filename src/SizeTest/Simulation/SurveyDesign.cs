@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -30,15 +32,15 @@ public sealed record SurveyDesign(
     /// <summary>The selection cuts (never null).</summary>
     public MockSelection Cuts => Selection ?? MockSelection.None;
 
-    /// <summary>Checks the design; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the design; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
         ArgumentNullException.ThrowIfNull(Redshifts);
-        if (Count < 1) throw new ArgumentException($"--n must be at least 1; got {Count}");
+        if (Count < 1) throw SettingProblem.Input($"{{object_count}} must be at least 1; got {Count}");
         if (MaxDrawsPerObject < 1) throw new ArgumentException("the draw cap per object must be at least 1");
         MeasurementErrors.Validate();
         Cuts.Validate();
         if (Kind == MockObjectKind.CompactRadio && (Cuts.SbLimit is not null || Cuts.MagLimit is not null))
-            throw new ArgumentException("compact radio sources have no surface brightness or magnitude: --sb-limit and --mag-limit apply to --kind galaxy only");
+            throw SettingProblem.Input("compact radio sources have no surface brightness or magnitude: {sb_limit} and {mag_limit} apply to {kind} galaxy only");
     }
 }

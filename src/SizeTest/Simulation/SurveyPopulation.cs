@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Simulation;
 
 /// <summary>
@@ -26,12 +28,12 @@ public sealed record SurveyPopulation(
     /// <summary>The populations (never null).</summary>
     public IReadOnlyList<MockSubpopulation> Groups => Populations ?? [];
 
-    /// <summary>Checks the values; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks the values; throws an <see cref="Foundation.Errors.InputException"/> naming the setting (<see cref="Foundation.Errors.SettingProblem"/>), or an <see cref="ArgumentException"/> for a value no setting gives, with a user-facing message.</summary>
     public void Validate()
     {
         LuminosityFunction?.Validate();
         if (!double.IsFinite(SizeLuminositySlope) || !double.IsFinite(PivotAbsMag) || !double.IsFinite(RadioSpectralIndex))
             throw new ArgumentException("survey population parameters must be finite numbers");
-        if (Groups.Select(g => g.Name).Distinct().Count() != Groups.Count) throw new ArgumentException("--population names must differ");
+        if (Groups.Select(g => g.Name).Distinct().Count() != Groups.Count) throw SettingProblem.Input("{population} names must differ");
     }
 }

@@ -133,9 +133,13 @@ public static class StudyFileParser
             nuisance.Validate();
             if (survey is not null) (nuisance with { Survey = ProvisionalSurvey(survey) }).Validate();
         }
+        catch (InputException e) when (e.SettingProblems.Count > 0)
+        {
+            throw (selNode ?? modelsNode).Error(e.Render(StudySettingKeys.Key));
+        }
         catch (ArgumentException e)
         {
-            throw (selNode ?? modelsNode).Error(e.Message.Replace("--observable", "models.observable").Replace("--sb-limit", "selection.sb_limit").Replace("--mag-limit", "selection.mag_limit").Replace("--min-size", "selection.min_size"));
+            throw (selNode ?? modelsNode).Error(e.Message);
         }
 
         // [parameters] (every model) and [models.NAME] (one model).
@@ -259,10 +263,12 @@ public static class StudyFileParser
             {
                 StudyHypotheses.For(f, study);
             }
-            catch (ArgumentException e)
+            catch (Exception e) when (e is ArgumentException or InputException { SettingProblems.Count: > 0 })
             {
                 var at = perModelNodes.GetValueOrDefault(f.Name) ?? root.Get("parameters") ?? modelsNode;
-                throw at.Error(e.Message.Replace("remove it from --free/--prior", "fix it in the study file"));
+                // The study file has no free/prior lists: a parameter is held by a fixed value in [parameters] or [models.NAME].
+                string message = e is InputException ie ? ie.Render(StudySettingKeys.Key) : e.Message;
+                throw at.Error(message.Replace("remove it from free/prior", "fix it in the study file"));
             }
         }
         return study;

@@ -230,8 +230,8 @@ public static class StudyReportAdapter
             ? "no photometric corrections were applied (magnitudes and surface brightnesses as catalogued)."
             : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));
         if (inputs.Load.Mapping.Warnings.Count > 0)
-            list.Add(new Assumption("units", string.Join(" ", inputs.Load.Mapping.Warnings.Select(w => w.TrimEnd('.') + "."))));
-        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6))}."));
+            list.Add(new Assumption("units", string.Join(" ", inputs.Load.Mapping.Warnings.Select(w => StudySettingKeys.Text(w).TrimEnd('.') + "."))));
+        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6).Select(StudySettingKeys.Text))}."));
         return list;
     }
 

@@ -54,7 +54,7 @@ public static class StudyRunner
             var load = CatalogueLoader.Load(study.CataloguePath, new CatalogueLoadOptions { Reader = study.Reader, Mapping = study.Mapping });
             inputs.Add(study.CataloguePath);
             options.Log?.Invoke($"{load.RowsRead} rows read, {load.Accepted} accepted, {load.Rejected} rejected");
-            foreach (var w in load.Mapping.Warnings) options.Log?.Invoke("warning: " + w);
+            foreach (var w in load.Mapping.Warnings) options.Log?.Invoke("warning: " + StudySettingKeys.Text(w));
             Stage("load");
 
             string ReadTable(string path)
@@ -106,6 +106,7 @@ public static class StudyRunner
                 ChainStoreFactory = study.Sampler == SamplerKind.Mcmc ? label => new CsvChainStore(folder.PathOf($"chains_{label}.csv")) : null,
             }, options.FitProgress);
             if (survey is not null) result = result with { Notes = [.. survey.Notes.Select(n => "survey: " + n), .. result.Notes] };
+            result = result with { Notes = result.Notes.Select(StudySettingKeys.Text).ToArray() }; // settings as study-file keys
             Stage("fit");
             IReadOnlyDictionary<string, ModelFitSummary> powerLaws = new Dictionary<string, ModelFitSummary>();
             if (hypotheses.Any(h => h.Nuisance.SurveyTerms.Binned))

@@ -90,7 +90,7 @@ public sealed class CsvLoadTests
         Assert.Equal(0.3, s.ExtraColumns["Kcorr"][0]);
         Assert.Equal(SizeKind.Petrosian, s.SizeDefinition.Kind);
         Assert.Contains(load.DetectionReport, l => l.StartsWith("z") && l.Contains("zspec") && l.Contains("common name"));
-        Assert.Contains(load.DetectionReport, l => l.StartsWith("theta ") && l.Contains("given with --col"));
+        Assert.Contains(load.DetectionReport, l => l.StartsWith("theta ") && l.Contains("given with {col}"));
     }
 
     [Fact]
@@ -100,7 +100,7 @@ public sealed class CsvLoadTests
         var p = t.Write("e.csv", "a,b\n1,2\n");
         var ex = Assert.Throws<InputException>(() => CatalogueLoader.Load(p));
         Assert.Contains("e.csv", ex.Message);
-        Assert.Contains("--col z=", ex.Message);
+        Assert.Contains("{col} z=", ex.SettingProblems.Single().Template); // the CLI writes {col} as --col
     }
 
     [Fact]

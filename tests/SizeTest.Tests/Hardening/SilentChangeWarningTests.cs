@@ -61,7 +61,7 @@ public sealed class SilentChangeWarningTests : IDisposable
         var cat = Catalogue("tiny.csv", "z,theta\n0.5,1e-7\n1.0,2e-7\n1.5,3e-7\n");
         var load = CatalogueLoader.Load(cat, new CatalogueLoadOptions());
         var w = Assert.Single(load.Mapping.Warnings);
-        Assert.Equal("the median angular size of theta column 'theta' is 2E-07 arcsec when read in arcsec (default; the column has no unit), below 1E-05 arcsec (10 µas), smaller than any measured size; the file's median value is 2E-07; check the unit (--col theta=theta:UNIT)", w);
+        Assert.Equal("the median angular size of theta column 'theta' is 2E-07 arcsec when read in arcsec (default; the column has no unit), below 1E-05 arcsec (10 µas), smaller than any measured size; the file's median value is 2E-07; check the unit ({col} theta=theta:UNIT)", w); // the CLI writes {col} as --col
     }
 
     [Fact]

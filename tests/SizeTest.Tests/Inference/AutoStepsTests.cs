@@ -61,7 +61,7 @@ public sealed class AutoStepsTests : IDisposable
         var out1 = Path.Combine(_dir, "short");
         var (exit, _, err) = CliRunner.Run("fit", cat, "--models", "eds", "--cv-folds", "0", "--sampler", "mcmc", "--walkers", "16", "--max-steps", "120", "--out", out1);
         Assert.Equal(1, exit);
-        Assert.Contains("not converged within --max-steps 120", err);
+        Assert.Contains("not converged within the limit of 120 steps", err);
         Assert.Contains("τ", err); // the numbers of the failed rules are stated
         var c = Results(out1).Chains.Single();
         Assert.Equal((120, false, true), (c.Steps, c.Converged, c.Auto));

@@ -1,4 +1,5 @@
 using CsCheck;
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Photometry;
 using Xunit;
@@ -101,7 +102,7 @@ public sealed class LikelihoodTests
     [Fact]
     public void FreeingAParameterThatDoesNotEnterIsRefused()
     {
-        var ex = Assert.Throws<ArgumentException>(() => Hypothesis.Create(TestWorldModels.FlatLcdm, new NuisanceModel(ObservableKind.SurfaceBrightness),
+        var ex = Assert.Throws<InputException>(() => Hypothesis.Create(TestWorldModels.FlatLcdm, new NuisanceModel(ObservableKind.SurfaceBrightness),
             new ParameterOverrides(Free: new HashSet<string> { "omega_m" })));
         Assert.Contains("omega_m", ex.Message);
     }

@@ -93,7 +93,7 @@ public sealed class PhotometryOptionParserTests
     }
 
     [Theory]
-    [InlineData("", "--kcorr: the value is empty")]
+    [InlineData("", "kcorr: the value is empty")] // the setting's name; the CLI writes it as --kcorr
     [InlineData("sometimes", "expected none, column:NAME, powerlaw:ALPHA or template:FILE")]
     [InlineData("powerlaw:steep", "'steep' is not a number")]
     [InlineData("column:", "expected column:NAME")]

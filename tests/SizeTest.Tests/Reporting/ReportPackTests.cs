@@ -76,7 +76,7 @@ public sealed class ReportPackTests
             w.Write(target, false, Make(7));
             var before = File.ReadAllText(Path.Combine(target, "manifest.json"));
             var ex = Assert.Throws<InputException>(() => w.Write(target, false, Make(8)));
-            Assert.Contains("--force", ex.Message);
+            Assert.Contains("force", ex.SettingProblems.Single().Settings); // the CLI writes it as --force
             Assert.Equal(before, File.ReadAllText(Path.Combine(target, "manifest.json")));
             w.Write(target, true, Make(8));
             Assert.Contains("\"seed\": 8", File.ReadAllText(Path.Combine(target, "manifest.json")));

@@ -61,6 +61,6 @@ public sealed class SelectionTests
     public void RadioSourcesRefuseSurfaceBrightnessCuts()
     {
         var spec = new MockSurveySpec(Lcdm, new SurveyDesign(10, RedshiftDistribution.Uniform(0.5, 3), MockObjectKind.CompactRadio, Selection: new MockSelection(SbLimit: 24)), 1);
-        Assert.Throws<ArgumentException>(() => MockSurveyGenerator.Generate(spec));
+        Assert.Throws<InputException>(() => MockSurveyGenerator.Generate(spec));
     }
 }

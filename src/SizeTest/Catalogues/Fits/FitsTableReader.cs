@@ -103,7 +103,7 @@ internal sealed class FitsTableReader : ICatalogueReader
         if (hit is null)
             throw new InputException($"there is no HDU '{selector}' (HDUs: {string.Join("; ", hdus.Select(h => h.Describe()))})", path);
         if (hit.Type != "BINTABLE")
-            throw new InputException($"{hit.Describe()} is not a binary table; choose a BINTABLE with --hdu", path);
+            throw SettingProblem.Input($"{hit.Describe()} is not a binary table; choose a BINTABLE with {{hdu}}", path);
         return hit;
     }
 

@@ -21,7 +21,10 @@ public sealed class InputException : Exception
         Line = line;
         Column = column;
         Reason = message;
+        _lineLabel = lineLabel;
     }
+
+    private readonly string _lineLabel;
 
     /// <summary>File being read, if any.</summary>
     public string? File { get; }
@@ -38,6 +41,12 @@ public sealed class InputException : Exception
     /// <summary>When the error is about request settings: the problems, worded with setting names so that a front
     /// end can render them with its own spelling (<see cref="SettingProblem"/>); empty otherwise.</summary>
     public IReadOnlyList<SettingProblem> SettingProblems { get; init; } = [];
+
+    /// <summary>The message with each setting of <see cref="SettingProblems"/> written by <paramref name="spell"/> (a front
+    /// end's spelling, e.g. the CLI's flags), behind the same location prefix; <see cref="Exception.Message"/> when the
+    /// error names no setting.</summary>
+    public string Render(Func<string, string> spell) =>
+        SettingProblems.Count == 0 ? Message : Compose(string.Join("; ", SettingProblems.Select(p => p.Render(spell))), File, Line, Column, _lineLabel);
 
     private static string Compose(string message, string? file, long? line, string? column, string lineLabel)
     {

@@ -18,7 +18,14 @@ public sealed partial record SettingProblem(string Template)
     public IReadOnlyList<string> Settings => Placeholder().Matches(Template).Select(m => m.Groups[1].Value).Distinct(StringComparer.Ordinal).ToArray();
 
     /// <summary>The sentence with each setting written by <paramref name="spell"/>.</summary>
-    public string Render(Func<string, string> spell) => Placeholder().Replace(Template, m => spell(m.Groups[1].Value));
+    public string Render(Func<string, string> spell) => RenderText(Template, spell);
+
+    /// <summary>
+    /// Any text an inner stage hands on for a user to read (a note, a warning, the reason a column was chosen) that names
+    /// settings as <c>{name}</c>, with each setting written by <paramref name="spell"/>: the same placeholders as a problem's
+    /// template, rendered by the front end that shows or writes the text (the CLI with its flags, a study with its keys).
+    /// </summary>
+    public static string RenderText(string text, Func<string, string> spell) => Placeholder().Replace(text, m => spell(m.Groups[1].Value));
 
     /// <summary>The sentence with the setting names themselves.</summary>
     public override string ToString() => Render(s => s);
@@ -26,6 +33,18 @@ public sealed partial record SettingProblem(string Template)
     /// <summary>An <see cref="InputException"/> carrying <paramref name="problems"/> (its message names the settings).</summary>
     public static InputException Exception(IReadOnlyList<SettingProblem> problems) =>
         new(string.Join("; ", problems.Select(p => p.ToString()))) { SettingProblems = problems };
+
+    /// <summary>An <see cref="InputException"/> (exit 2) for the one problem <paramref name="template"/>, with the location
+    /// of the bad input where one applies (as <see cref="InputException(string, string?, long?, string?, System.Exception?, string)"/>).</summary>
+    public static InputException Input(string template, string? file = null, long? line = null, string? column = null, Exception? inner = null, string lineLabel = "line") =>
+        new(new SettingProblem(template).ToString(), file, line, column, inner, lineLabel) { SettingProblems = [new SettingProblem(template)] };
+
+    /// <summary>An <see cref="AnalysisException"/> (exit 1) whose advice names settings.</summary>
+    public static AnalysisException Analysis(string template, Exception? inner = null) =>
+        new(new SettingProblem(template).ToString(), inner) { SettingProblems = [new SettingProblem(template)] };
+
+    /// <summary>The placeholder of <paramref name="setting"/> in a template: <c>{setting}</c> (for a setting held in a variable).</summary>
+    public static string Name(string setting) => "{" + setting + "}";
 
     /// <summary>Throws <see cref="Exception(IReadOnlyList{SettingProblem})"/> when <paramref name="problems"/> is not empty.</summary>
     public static void ThrowIfAny(IReadOnlyList<SettingProblem> problems)

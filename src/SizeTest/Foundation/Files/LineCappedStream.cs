@@ -58,7 +58,7 @@ public sealed class LineCappedStream : Stream
     private void Check()
     {
         if (_run > MaxLineBytes)
-            throw new InputException($"line {_line} is longer than the {MaxLineBytes} byte limit for a text line (is this a text catalogue? raise the cap with --max-line-bytes if the line is real)", _path);
+            throw SettingProblem.Input($"line {_line} is longer than the {MaxLineBytes} byte limit for a text line (is this a text catalogue? raise the cap with {{max_line_bytes}} if the line is real)", _path);
     }
 
     /// <inheritdoc />

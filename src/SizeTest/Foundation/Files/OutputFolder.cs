@@ -74,7 +74,7 @@ public sealed class OutputFolder : IDisposable
     public static OutputFolder Begin(string target, bool force, IEnumerable<string>? inputs = null, bool keepForeignFiles = false)
     {
         if (string.IsNullOrWhiteSpace(target))
-            throw new InputException("the output folder is empty (--out ''); name a folder to write the results to");
+            throw SettingProblem.Input("the output folder is empty ({out} ''); name a folder to write the results to");
         string full;
         try { full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(target)); }
         catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
@@ -85,11 +85,11 @@ public sealed class OutputFolder : IDisposable
         if (parent is null || Path.GetFileName(full).Length == 0)
             throw new InputException($"output folder '{target}' is the root of the file system; choose a folder of its own");
         if (File.Exists(full))
-            throw new InputException($"output path '{target}' is a file, not a folder; choose another --out");
+            throw SettingProblem.Input($"output path '{target}' is a file, not a folder; choose another {{out}}");
         for (var up = parent; up is not null; up = Path.GetDirectoryName(up))
         {
             if (File.Exists(up))
-                throw new InputException($"output folder '{target}' lies under '{up}', which is a file; choose another --out");
+                throw SettingProblem.Input($"output folder '{target}' lies under '{up}', which is a file; choose another {{out}}");
             if (Directory.Exists(up)) break;
         }
         var inputList = (inputs ?? []).Where(p => !string.IsNullOrEmpty(p)).Select(p => Path.GetFullPath(p)).ToList();
@@ -98,7 +98,7 @@ public sealed class OutputFolder : IDisposable
         try { Directory.CreateDirectory(parent); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"cannot create the output folder's parent '{parent}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+            throw SettingProblem.Input($"cannot create the output folder's parent '{parent}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
         }
         var name = Path.GetFileName(full);
         var lockPath = Path.Combine(parent, $".{name}.lock");
@@ -113,7 +113,7 @@ public sealed class OutputFolder : IDisposable
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
                 StagingRegistry.Unregister(staging);
-                throw new InputException($"cannot write in '{parent}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+                throw SettingProblem.Input($"cannot write in '{parent}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
             }
             return new OutputFolder(target, full, staging, force, keepForeignFiles, snapshot, owned, lockStream, lockPath, inputList) { RemovedStale = removed };
         }
@@ -179,7 +179,7 @@ public sealed class OutputFolder : IDisposable
             try { (now, _) = Inspect(_display, Target, _force, _keepForeign, _inputs); }
             catch (InputException) when (_snapshot is null) { now = "(filled)"; }
             if (!string.Equals(now, _snapshot, StringComparison.Ordinal))
-                throw new InputException($"output folder '{_display}' was written by another run while this one was working; nothing was replaced and this run's results were discarded; rerun with another --out");
+                throw SettingProblem.Input($"output folder '{_display}' was written by another run while this one was working; nothing was replaced and this run's results were discarded; rerun with another {{out}}");
             if (_keepForeign)
                 foreach (var f in Files(Target))
                     if (!_previouslyOwned.Contains(f) && !_carried.Contains(f))
@@ -222,7 +222,7 @@ public sealed class OutputFolder : IDisposable
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             Abandon();
-            throw new InputException($"cannot write the output folder '{_display}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+            throw SettingProblem.Input($"cannot write the output folder '{_display}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
         }
         catch
         {
@@ -287,20 +287,20 @@ public sealed class OutputFolder : IDisposable
         try { any = Directory.EnumerateFileSystemEntries(full).Any(); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"cannot read the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+            throw SettingProblem.Input($"cannot read the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
         }
         if (!any) return (null, owned);
         CheckNotInside(display, full, inputs);
         if (!force)
-            throw new InputException($"output folder '{display}' already exists and is not empty; pass --force to replace it or choose another --out");
+            throw SettingProblem.Input($"output folder '{display}' already exists and is not empty; pass {{force}} to replace it or choose another {{out}}");
         var marker = ReadMarker(full);
         if (marker is null && !keepForeign)
-            throw new InputException($"output folder '{display}' was not written by sizetest (it has no {MarkerFileName} marker); --force replaces only folders sizetest wrote; choose another --out");
+            throw SettingProblem.Input($"output folder '{display}' was not written by sizetest (it has no {MarkerFileName} marker); {{force}} replaces only folders sizetest wrote; choose another {{out}}");
         owned = marker ?? owned;
         if (!keepForeign)
             foreach (var f in Files(full))
                 if (!owned.Contains(f))
-                    throw new InputException($"output folder '{display}' holds '{f}', which sizetest did not write; --force replaces only sizetest's own files; move it away or choose another --out");
+                    throw SettingProblem.Input($"output folder '{display}' holds '{f}', which sizetest did not write; {{force}} replaces only sizetest's own files; move it away or choose another {{out}}");
         CheckReplaceable(display, full, owned);
         var text = File.Exists(Path.Combine(full, MarkerFileName)) ? File.ReadAllText(Path.Combine(full, MarkerFileName)) : "(no marker)";
         return (text + "\n" + string.Join("\n", Files(full)), owned);
@@ -311,19 +311,19 @@ public sealed class OutputFolder : IDisposable
     private static void CheckReplaceable(string display, string full, IEnumerable<string> owned)
     {
         if (FileSystemLocks.IsImmutable(full))
-            throw new InputException($"output folder '{display}' is marked immutable or append-only (chattr +i/+a) and cannot be replaced; clear the flag or choose another --out");
+            throw SettingProblem.Input($"output folder '{display}' is marked immutable or append-only (chattr +i/+a) and cannot be replaced; clear the flag or choose another {{out}}");
         var folders = new HashSet<string>(StringComparer.Ordinal) { full };
         foreach (var rel in owned.Append(MarkerFileName))
         {
             var path = Path.Combine(full, rel);
             if (!File.Exists(path) && !Directory.Exists(path)) continue;
             if (FileSystemLocks.IsImmutable(path))
-                throw new InputException($"output folder '{display}' holds '{rel}', which is marked immutable or append-only (chattr +i/+a), so --force cannot replace it; clear the flag or choose another --out");
+                throw SettingProblem.Input($"output folder '{display}' holds '{rel}', which is marked immutable or append-only (chattr +i/+a), so {{force}} cannot replace it; clear the flag or choose another {{out}}");
             folders.Add(Path.GetDirectoryName(path)!);
         }
         foreach (var folder in folders.Where(Directory.Exists))
             if (!FileSystemLocks.CanChangeFolder(folder))
-                throw new InputException($"output folder '{display}' cannot be replaced: sizetest may not delete files in '{folder}' (no write permission, or immutable); choose another --out");
+                throw SettingProblem.Input($"output folder '{display}' cannot be replaced: sizetest may not delete files in '{folder}' (no write permission, or immutable); choose another {{out}}");
     }
 
     private static void CheckNotInside(string display, string full, IEnumerable<string> inputs)
@@ -331,7 +331,7 @@ public sealed class OutputFolder : IDisposable
         var prefix = full + Path.DirectorySeparatorChar;
         foreach (var input in inputs)
             if (input == full || input.StartsWith(prefix, StringComparison.Ordinal))
-                throw new InputException($"output folder '{display}' holds '{Path.GetRelativePath(full, input)}', an input of this run; sizetest never replaces its inputs; choose another --out");
+                throw SettingProblem.Input($"output folder '{display}' holds '{Path.GetRelativePath(full, input)}', an input of this run; sizetest never replaces its inputs; choose another {{out}}");
     }
 
     // Every file below folder (relative, '/'-separated), except the marker.
@@ -382,15 +382,15 @@ public sealed class OutputFolder : IDisposable
         }
         catch (UnauthorizedAccessException e)
         {
-            throw new InputException($"cannot write beside the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+            throw SettingProblem.Input($"cannot write beside the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
         }
         catch (IOException e) when (File.Exists(lockPath))
         {
-            throw new InputException($"output folder '{display}' is being written by another sizetest run (lock file '{lockPath}'); wait for it to finish or choose another --out", inner: e);
+            throw SettingProblem.Input($"output folder '{display}' is being written by another sizetest run (lock file '{lockPath}'); wait for it to finish or choose another {{out}}", inner: e);
         }
         catch (IOException e)
         {
-            throw new InputException($"cannot write beside the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another --out", inner: e);
+            throw SettingProblem.Input($"cannot write beside the output folder '{display}' ({e.Message.TrimEnd('.')}); choose another {{out}}", inner: e);
         }
     }
 

@@ -30,13 +30,13 @@ public static class ResourceBudget
     /// Refuses <paramref name="estimatedBytes"/> for <paramref name="what"/> when it exceeds <paramref name="maxMemoryBytes"/>
     /// (when given) or the available memory.
     /// </summary>
-    /// <param name="what">What needs the memory, with the options that size it (e.g. <c>the MCMC chains (--walkers × --steps)</c>).</param>
+    /// <param name="what">What needs the memory, with the settings that size it (e.g. <c>the MCMC chains ({walkers} × {steps})</c>, settings as in <see cref="SettingProblem"/>).</param>
     /// <param name="estimatedBytes">The estimate (a double, so products of huge counts cannot overflow).</param>
     /// <param name="maxMemoryBytes">The user's limit, or null.</param>
     public static void Check(string what, double estimatedBytes, long? maxMemoryBytes)
     {
         if (maxMemoryBytes is { } max && estimatedBytes > max)
-            throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than --max-memory {Format(max)}; ask for less or raise --max-memory (memory budget checked before any allocation)");
+            throw SettingProblem.Input($"{what} would need about {Format(estimatedBytes)}, more than {{max_memory}} {Format(max)}; ask for less or raise {{max_memory}} (memory budget checked before any allocation)");
         long avail = AvailableBytes();
         if (avail > 0 && estimatedBytes > avail)
             throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than the {Format(avail)} of memory available on this machine; ask for less (memory budget checked before any allocation)");
@@ -44,7 +44,7 @@ public static class ResourceBudget
 
     /// <summary>Parses a size: a number of bytes with an optional suffix K, M, G, T (powers of 1024; e.g. <c>4G</c>, <c>512M</c>, <c>1e9</c>).</summary>
     /// <exception cref="InputException">Not a positive size.</exception>
-    public static long ParseSize(string text, string option = "--max-memory")
+    public static long ParseSize(string text, string setting = "max_memory")
     {
         var t = (text ?? "").Trim();
         double factor = 1;
@@ -56,7 +56,7 @@ public static class ResourceBudget
             if (idx >= 0) { factor = Math.Pow(1024, idx + 1); t = t[..^1]; }
         }
         if (!double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out var v) || !(v * factor >= 1) || !double.IsFinite(v * factor) || v * factor > long.MaxValue)
-            throw new InputException($"{option} must be a size such as 4G, 512M or 1e9 (bytes); got '{text}'");
+            throw SettingProblem.Input($"{SettingProblem.Name(setting)} must be a size such as 4G, 512M or 1e9 (bytes); got '{text}'");
         return (long)(v * factor);
     }
 

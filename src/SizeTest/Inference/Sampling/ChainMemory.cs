@@ -25,7 +25,7 @@ public static class ChainMemory
     {
         long bytes = Bytes(walkers, maxSteps, dimension);
         if (bytes > budgetBytes)
-            throw new SizeTest.Foundation.Errors.InputException(string.Create(CultureInfo.InvariantCulture,
-                $"the MCMC chain could need {walkers} walkers × {maxSteps} steps × ({dimension} parameters + ln p) × 8 B = {bytes / 1048576.0:0} MiB, more than the budget of {budgetBytes / 1048576.0:0} MiB; lower --max-steps or --walkers"));
+            throw SizeTest.Foundation.Errors.SettingProblem.Input(string.Create(CultureInfo.InvariantCulture,
+                $"the MCMC chain could need {walkers} walkers × {maxSteps} steps × ({dimension} parameters + ln p) × 8 B = {bytes / 1048576.0:0} MiB, more than the budget of {budgetBytes / 1048576.0:0} MiB; lower {{max_steps}} or {{walkers}}"));
     }
 }

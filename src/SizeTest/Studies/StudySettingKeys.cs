@@ -1,0 +1,27 @@
+using SizeTest.Foundation.Errors;
+
+namespace SizeTest.Studies;
+
+/// <summary>
+/// The study file's spelling of a setting named by an inner stage (<see cref="SettingProblem"/>, e.g. <c>{sb_limit}</c>):
+/// the key a study author writes (<c>selection.sb_limit</c>; docs/study-file.md). A setting the study file has no key of
+/// its own for keeps its name.
+/// </summary>
+internal static class StudySettingKeys
+{
+    /// <summary>The study-file key of <paramref name="setting"/>.</summary>
+    public static string Key(string setting) => setting switch
+    {
+        "observable" => "models.observable",
+        "size_sb_relation" => "models.size_sb_relation",
+        "sb_limit" or "mag_limit" or "min_size" => "selection." + setting,
+        "max_outside_selection" => "selection.max_outside_fraction",
+        "col" => "[columns]",
+        "size_def" => "catalogue.size_definition",
+        "expect" => "[expected]",
+        _ => setting,
+    };
+
+    /// <summary>A note or warning from an inner stage with every setting written as its study-file key.</summary>
+    public static string Text(string text) => SettingProblem.RenderText(text, Key);
+}
