@@ -46,7 +46,7 @@ public sealed class GradientTests
     }
 
     // A point off the maximum: each free parameter moved by +3% of itself (or +0.02 when near 0).
-    private static double[] OffMaximum(HypothesisLikelihood lik)
+    internal static double[] OffMaximum(HypothesisLikelihood lik)
     {
         var t = lik.SuggestStart();
         var free = lik.Hypothesis.FreeParameters;

@@ -75,10 +75,8 @@ public sealed class SurveyGradientTests
         var family = kind == "static" ? WorldModels.Get("static-linear") : WorldModels.LambdaCdm;
         var overrides = new ParameterOverrides(Free: free.Length == 0 ? null : new HashSet<string> { free });
         var lik = Hypothesis.Create(family, new NuisanceModel(ObservableKind.Size, cut is null ? null : new SelectionLimits(MinThetaArcsec: 0.4), Survey: sv), overrides).Bind(obs);
-        var t = lik.SuggestStart();
+        var t = SizeTest.Tests.Inference.GradientTests.OffMaximum(lik);
         var fp = lik.Hypothesis.FreeParameters;
-        for (int j = 0; j < t.Length; j++)
-            t[j] = Math.Clamp(t[j] + Math.Max(0.03 * Math.Abs(t[j]), 0.02), fp[j].Min, fp[j].Max - 1e-6);
         var analytic = new double[t.Length];
         double v = lik.LogDensityAndGradient(t, analytic);
         Assert.True(double.IsFinite(v));
