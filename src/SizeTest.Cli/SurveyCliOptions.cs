@@ -16,16 +16,16 @@ internal sealed class SurveyCliOptions
     private static Option<double?> Number(string name, string description) =>
         new(name) { Description = description, CustomParser = WorldModelOptions.NumberParser };
 
-    public Option<bool> SizeLuminosity { get; } = new("--size-luminosity") { Description = "Size observable: R = R0 (L/L_pivot)^β (1+z)^a with L from each world model's own D_L (parameter size_luminosity_slope); radio: ℓ = ℓ_m L^β (1+z)^n from flux_density." };
-    public Option<bool> SizeMass { get; } = new("--size-mass") { Description = "Size observable: R = R0 (M*/M_pivot)^β (1+z)^a from the log_mass column, scaled to each world model by (D_L/D_L,ref)²." };
+    public Option<bool> SizeLuminosity { get; } = new("--size-luminosity") { Description = "Size and joint observables: R = R0 (L/L_pivot)^β (1+z)^a with L from each world model's own D_L (parameter size_luminosity_slope); radio: ℓ = ℓ_m L^β (1+z)^n from flux_density." };
+    public Option<bool> SizeMass { get; } = new("--size-mass") { Description = "Size and joint observables: R = R0 (M*/M_pivot)^β (1+z)^a from the log_mass column, scaled to each world model by (D_L/D_L,ref)²." };
     public Option<double?> PivotAbsMag { get; } = Number("--pivot-abs-mag", "Pivot absolute magnitude of the size–luminosity relation (default −21).");
     public Option<double?> PivotLogMass { get; } = Number("--pivot-log-mass", "Pivot log10(M*/Msun) of the size–mass relation (default 10.7).");
     public Option<double?> PivotLogLum { get; } = Number("--pivot-log-lum", "Radio: pivot log10(L_ν / W Hz⁻¹) (default 27).");
     public Option<string?> AbsMagRange { get; } = new("--abs-mag-range") { Description = "LO:HI: fit only objects with LO ≤ M ≤ HI (e.g. -23:-20), M recomputed for each world model with its own D_L." };
-    public Option<string?> Group { get; } = new("--group") { Description = "COLUMN: population label column; each group gets its own R0, a, β and scatter (names NAME@GROUP); the world model is shared." };
-    public Option<string> Evolution { get; } = new("--evolution") { Description = "Size evolution: power ((1+z)^a, default) or binned:K (R0 free in K equal-count redshift bins).", DefaultValueFactory = _ => "power" };
+    public Option<string?> Group { get; } = new("--group") { Description = "COLUMN: population label column; each group gets its own R0, a, β and scatter (sb, joint: also μ0, b and SB scatter; names NAME@GROUP); the world model is shared." };
+    public Option<string> Evolution { get; } = new("--evolution") { Description = "Size evolution: power ((1+z)^a, default) or binned:K (R0, and μ0 in sb and joint fits, free in K equal-count redshift bins).", DefaultValueFactory = _ => "power" };
     public Option<bool> IgnoreZErr { get; } = new("--ignore-z-err") { Description = "Take redshifts as exact even when a z_err column is mapped (default: marginalise each object over its redshift)." };
-    public Option<string> SizeErrors { get; } = new Option<string>("--size-errors") { Description = "Size-error model: lognormal (σ_lnθ = σ_θ/θ) or gaussian (exact for errors quoted in θ).", DefaultValueFactory = _ => "lognormal" }.AcceptOnlyFromAmong("lognormal", "gaussian");
+    public Option<string> SizeErrors { get; } = new Option<string>("--size-errors") { Description = "Size-error model: lognormal (σ_lnθ = σ_θ/θ) or gaussian (exact for errors quoted in θ; --observable size only).", DefaultValueFactory = _ => "lognormal" }.AcceptOnlyFromAmong("lognormal", "gaussian");
     public Option<string?> ZPrior { get; } = new("--z-prior") { Description = "LO:HI: flat redshift prior of the photometric-redshift marginalisation (default: the sample's redshift range)." };
     public Option<double?> FrequencyGhz { get; } = Number("--frequency-ghz", "Radio: observing frequency of flux_density in GHz (recorded with the luminosities).");
     public Option<double?> SpectralIndex { get; } = Number("--spectral-index", "Radio: spectral index α, S_ν ∝ ν^α, in L_ν = 4π D_L² S_ν (1+z)^−(1+α) (default 0).");

@@ -103,8 +103,10 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         {
             var startModel = _distances.CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                              ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
-            _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
-            _kernel = _survey;
+            if (kind == ObservableKind.Size)
+                _kernel = _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+            else
+                _kernel = _surveyJoint = new Survey.SurveyJointLikelihood(hypothesis, _layout, observables, _cols, _distances, cut, _isophotal, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
         }
         else
             _kernel = kind switch
@@ -178,7 +180,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         ArgumentNullException.ThrowIfNull(mask);
         if (mask.Length != _n) throw new ArgumentException($"a mask of {mask.Length} rows for {_n} objects", nameof(mask));
         var cut = SelectionTruncation.For(_h.Nuisance.Cuts);
-        if (_mask is not null || _survey is not null || _h.Nuisance.Observable != ObservableKind.Size || !SizeKernel.SupportsMask(_cols, _distances, cut))
+        if (_mask is not null || HasSurveyTerms || _h.Nuisance.Observable != ObservableKind.Size || !SizeKernel.SupportsMask(_cols, _distances, cut))
             return null;
         int selected = 0;
         foreach (var b in mask) if (b != 0) selected++;
@@ -193,17 +195,19 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     /// </summary>
     /// <exception cref="InvalidOperationException">Survey terms are active (bind <c>Hypothesis.WithFixed</c> instead).</exception>
     public HypothesisLikelihood WithFixed(string name, double value) =>
-        _survey is null ? new(this, _h.WithFixed(name, value))
+        !HasSurveyTerms ? new(this, _h.WithFixed(name, value))
             : throw new InvalidOperationException("WithFixed does not carry survey terms; bind hypothesis.WithFixed(name, value) to the observables instead");
     // Survey terms (size–luminosity relation, groups, binned evolution, photometric redshifts, Gaussian size errors,
     // weights, luminosity window): the size kernel when any is active.
     private readonly Survey.SurveySizeLikelihood? _survey;
+    // The same terms for surface brightness and joint fits.
+    private readonly Survey.SurveyJointLikelihood? _surveyJoint;
 
     /// <summary>Whether survey terms are active (then <see cref="WithFixed"/> is not available).</summary>
-    public bool HasSurveyTerms => _survey is not null;
+    public bool HasSurveyTerms => _survey is not null || _surveyJoint is not null;
 
     /// <summary>Notes on the survey terms applied (empty when none).</summary>
-    public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? [];
+    public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? _surveyJoint?.Notes ?? [];
 
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
@@ -215,6 +219,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         var e = Prepare(start);
         if (e is null) return start;
         if (_survey is not null) { _survey.SuggestStart(start, _free, _h, e); return start; }
+        if (_surveyJoint is not null) { _surveyJoint.SuggestStart(start, _free, _h, e); return start; }
         var p = Point(e);
         for (int j = 0; j < _free.Length; j++)
         {

@@ -66,18 +66,22 @@ public static class NuisanceParameters
 
     /// <summary>
     /// Nuisance parameters of <paramref name="nuisance"/>, including its survey terms: per group (<c>NAME@GROUP</c>) R0 (per
-    /// redshift bin <c>r0_kpc_binK</c> with binned evolution, which drops <c>size_evolution</c>), a, scatter and β.
+    /// redshift bin <c>r0_kpc_binK</c> with binned evolution, which drops <c>size_evolution</c>), a, scatter and β; with surface
+    /// brightness (sb, joint) also μ0 (per bin <c>mu0_binK</c>, dropping <c>sb_evolution</c>), b and the SB scatter; the size–SB slope
+    /// <c>kormendy_slope</c> stays shared.
     /// </summary>
     public static IReadOnlyList<ParameterSpec> For(NuisanceModel nuisance)
     {
         ArgumentNullException.ThrowIfNull(nuisance);
         var sv = nuisance.SurveyTerms;
-        if (!sv.IsActive || nuisance.Observable != ObservableKind.Size) return For(nuisance.Observable, nuisance.SizeSbRelation);
+        if (!sv.IsActive) return For(nuisance.Observable, nuisance.SizeSbRelation);
         var list = new List<ParameterSpec>();
+        bool size = nuisance.Observable != ObservableKind.SurfaceBrightness, sb = nuisance.Observable != ObservableKind.Size;
         foreach (var g in sv.GroupLabels)
         {
             string suffix = g.Length == 0 ? "" : $" ({g})";
-            if (sv.Binned)
+            if (!size) { /* surface brightness alone: no size parameters */ }
+            else if (sv.Binned)
                 for (int k = 1; k <= sv.BinCount; k++)
                     list.Add(R0Kpc with { Name = Survey.SurveyModel.Named($"r0_kpc_bin{k}", g), Description = $"physical size in redshift bin {k}{suffix}" });
             else
@@ -85,16 +89,31 @@ public static class NuisanceParameters
                 list.Add(R0Kpc with { Name = Survey.SurveyModel.Named(R0Kpc.Name, g), Description = R0Kpc.Description + suffix });
                 list.Add(SizeEvolution with { Name = Survey.SurveyModel.Named(SizeEvolution.Name, g), Description = SizeEvolution.Description + suffix });
             }
-            list.Add(ScatterDex with { Name = Survey.SurveyModel.Named(ScatterDex.Name, g), Description = ScatterDex.Description + suffix });
-            if (sv.Relation != Survey.SizeRelationKind.None)
-                list.Add(SizeLuminositySlope with { Name = Survey.SurveyModel.Named(SizeLuminositySlope.Name, g), Description = SizeLuminositySlope.Description + suffix });
+            if (size)
+            {
+                list.Add(ScatterDex with { Name = Survey.SurveyModel.Named(ScatterDex.Name, g), Description = ScatterDex.Description + suffix });
+                if (sv.Relation != Survey.SizeRelationKind.None)
+                    list.Add(SizeLuminositySlope with { Name = Survey.SurveyModel.Named(SizeLuminositySlope.Name, g), Description = SizeLuminositySlope.Description + suffix });
+            }
+            if (!sb) continue;
+            if (sv.Binned)
+                for (int k = 1; k <= sv.BinCount; k++)
+                    list.Add(Mu0 with { Name = Survey.SurveyModel.Named($"mu0_bin{k}", g), Description = $"surface brightness in redshift bin {k}, dimming removed{suffix}" });
+            else
+            {
+                list.Add(Mu0 with { Name = Survey.SurveyModel.Named(Mu0.Name, g), Description = Mu0.Description + suffix });
+                list.Add(SbEvolution with { Name = Survey.SurveyModel.Named(SbEvolution.Name, g), Description = SbEvolution.Description + suffix });
+            }
+            list.Add(ScatterMag with { Name = Survey.SurveyModel.Named(ScatterMag.Name, g), Description = ScatterMag.Description + suffix });
         }
+        if (nuisance.SizeSbRelation) list.Add(KormendySlope);
         return list;
     }
 
     /// <summary>Whether <paramref name="name"/> is a survey-term parameter (β, per-group or per-bin names).</summary>
     public static bool IsSurveyName(string name) =>
-        name.StartsWith(SizeLuminositySlope.Name, StringComparison.Ordinal) || name.Contains('@', StringComparison.Ordinal) || name.StartsWith("r0_kpc_bin", StringComparison.Ordinal);
+        name.StartsWith(SizeLuminositySlope.Name, StringComparison.Ordinal) || name.Contains('@', StringComparison.Ordinal) || name.StartsWith("r0_kpc_bin", StringComparison.Ordinal)
+        || name.StartsWith("mu0_bin", StringComparison.Ordinal);
 
     /// <summary>Nuisance parameters that enter the likelihood for the given observable.</summary>
     public static IReadOnlyList<ParameterSpec> For(ObservableKind kind, bool sizeSbRelation) => kind switch

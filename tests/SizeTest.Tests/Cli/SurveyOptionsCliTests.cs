@@ -111,7 +111,7 @@ public sealed class SurveyOptionsCliTests : IDisposable
         Assert.Equal(2, Fit(mock, "--size-luminosity", "--size-mass").Code);
         Assert.Contains("log_mass", Fit(mock, "--size-mass").Err, StringComparison.Ordinal);
         Assert.Contains("group", Fit(mock, "--group", "nosuch").Err, StringComparison.Ordinal);
-        Assert.Contains("--observable size", Fit(mock, "--size-luminosity", "--observable", "joint").Err, StringComparison.Ordinal);
+        Assert.Contains("--observable size or joint", Fit(mock, "--size-luminosity", "--observable", "sb").Err, StringComparison.Ordinal);
         Assert.Contains("--size-luminosity", Fit(mock, "--frequency-ghz", "5").Err, StringComparison.Ordinal);
     }
 
@@ -159,17 +159,38 @@ public sealed class SurveyOptionsCliTests : IDisposable
     [Theory]
     [InlineData("sb")]
     [InlineData("joint")]
-    public void SurveyTermsOutsideTheSizeObservableAreRefusedNotIgnored(string observable)
+    public void GroupsBinnedEvolutionAndPhotometricRedshiftsRunForSurfaceBrightnessAndJointFits(string observable)
     {
-        // The survey terms live in the size likelihood only: sb and joint fits refuse them with exit 2 and say why.
-        var mock = Simulate("--population", "early:0.5:3:-1.5", "--population", "late:0.5:6:-0.75");
-        foreach (var extra in new[] { new[] { "--group", "group" }, ["--evolution", "binned:3"], ["--size-errors", "gaussian"] })
+        // Each group gets its own μ0, b and SB scatter (joint: also R0, a and the size scatter); binned evolution frees μ0 (and R0)
+        // per redshift bin; a z_err column is marginalised over by default.
+        var mock = Simulate("--population", "early:0.5:3:-1.5", "--population", "late:0.5:6:-0.75", "--photoz-err", "0.03");
+        var (code, _, err, dir) = Fit(mock, "--group", "group", "--observable", observable);
+        Assert.True(code == 0, err);
+        var json = File.ReadAllText(Path.Combine(dir, "results.json"));
+        var m = Model(json, "lcdm");
+        foreach (var g in new[] { "early", "late" })
         {
-            var (code, _, err, dir) = Fit(mock, [.. extra, "--observable", observable]);
-            Assert.True(code == 2, $"{string.Join(" ", extra)}: exit {code}: {err}");
-            Assert.Contains("built for --observable size", err, StringComparison.Ordinal);
-            Assert.False(Directory.Exists(dir));
+            Assert.InRange(Param(m, $"sb_evolution@{g}"), 0.5, 1.5); // b = 1 injected (simulate's default)
+            if (observable == "joint") Assert.True(Param(m, $"r0_kpc@{g}") > 0);
         }
+        Assert.Contains("photometric redshifts: each object integrated over z", json, StringComparison.Ordinal);
+        var (code2, _, err2, dir2) = Fit(mock, "--evolution", "binned:3", "--observable", observable, "--ignore-z-err");
+        Assert.True(code2 == 0, err2);
+        var m2 = Model(File.ReadAllText(Path.Combine(dir2, "results.json")), "lcdm");
+        for (int k = 1; k <= 3; k++) Assert.True(Param(m2, $"mu0_bin{k}") > 15);
+    }
+
+    [Theory]
+    [InlineData("sb", "--size-errors", "gaussian", "--size-errors gaussian is built for --observable size only")]
+    [InlineData("joint", "--size-errors", "gaussian", "--size-errors gaussian is built for --observable size only")]
+    [InlineData("sb", "--size-luminosity", null, "need a size model: fit them with --observable size or joint")]
+    public void SurveyTermsWithoutAModelForThemAreRefusedNotIgnored(string observable, string flag, string? value, string message)
+    {
+        var mock = Simulate("--luminosity-function", "schechter:-21:-1.2:-24:-16", "--size-lum-slope", "0.3");
+        var (code, _, err, dir) = Fit(mock, [flag, .. value is null ? Array.Empty<string>() : [value], "--observable", observable]);
+        Assert.True(code == 2, $"exit {code}: {err}");
+        Assert.Contains(message, err, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(dir));
     }
 
     [Fact]

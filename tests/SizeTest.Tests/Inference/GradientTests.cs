@@ -16,7 +16,7 @@ namespace SizeTest.Tests.Inference;
 /// </summary>
 public sealed class GradientTests
 {
-    private static double[] FiniteDifference(ILogDensity f, double[] theta)
+    internal static double[] FiniteDifference(ILogDensity f, double[] theta)
     {
         var g = new double[theta.Length];
         for (int j = 0; j < theta.Length; j++)

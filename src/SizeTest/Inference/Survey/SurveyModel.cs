@@ -1,9 +1,10 @@
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference.Survey;
 
 /// <summary>
-/// The survey-scale parts of a nuisance model (size observable): a size–luminosity or size–mass relation, populations
+/// The survey-scale parts of a nuisance model: a size–luminosity or size–mass relation, populations
 /// with their own nuisance parameters, binned evolution, photometric-redshift marginalisation, the size-error model and a
 /// per-model luminosity window. The default changes nothing.
 /// </summary>
@@ -56,12 +57,16 @@ public sealed record SurveyModel(
     /// <summary>A parameter's name for group <paramref name="group"/> (label empty: the plain name).</summary>
     public static string Named(string name, string group) => group.Length == 0 ? name : $"{name}@{group}";
 
-    /// <summary>Checks consistency; throws <see cref="ArgumentException"/> with a user-facing message.</summary>
+    /// <summary>Checks consistency; throws <see cref="ArgumentException"/> (or an <see cref="InputException"/> naming settings) with a
+    /// user-facing message. Every term runs for every observable except the size–luminosity relation (needs a size model) and Gaussian
+    /// size errors (size only).</summary>
     public void Validate(ObservableKind observable)
     {
         if (!IsActive) return;
-        if (observable != ObservableKind.Size)
-            throw new ArgumentException("--size-luminosity, --size-mass, --group, --evolution binned, --abs-mag-range, photometric-redshift marginalisation and --size-errors gaussian are built for --observable size (add --ignore-z-err to fit a z_err catalogue in sb or joint mode)");
+        if (observable == ObservableKind.SurfaceBrightness && Relation != SizeRelationKind.None)
+            throw SettingProblem.Exception([new("the size–luminosity and size–mass relations need a size model: fit them with {observable} size or joint, not sb (drop {size_luminosity} / {size_mass})")]);
+        if (observable != ObservableKind.Size && SizeErrors == SizeErrorKind.Gaussian)
+            throw SettingProblem.Exception([new("{size_errors} gaussian is built for {observable} size only; fit sb or joint with the log-normal size errors (drop {size_errors} gaussian)")]);
         if (EvolutionBinEdges is { } e)
         {
             if (e.Count < 3) throw new ArgumentException("--evolution binned:K needs K ≥ 2 bins");

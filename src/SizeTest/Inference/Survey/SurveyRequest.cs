@@ -80,20 +80,16 @@ public sealed record SurveyRequest(
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
         bool marginalise = MarginalisesRedshift(observables, observable);
-        if (observables.Survey.ZErr is not null && !IgnoreZErr)
-        {
-            if (!marginalise) notes.Add("z_err is mapped, but redshift marginalisation is built for --observable size only; redshifts are taken as exact here.");
-        }
-        else if (observables.Survey.ZErr is not null)
+        if (!marginalise && observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
             AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax);
     }
 
-    /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped, not ignored, and the observable has the
-    /// marginalisation.</summary>
+    /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped and not ignored. Every observable
+    /// (<paramref name="observable"/>: size, sb and joint alike) has the marginalisation.</summary>
     public bool MarginalisesRedshift(Observables observables, ObservableKind observable) =>
-        observables.Survey.ZErr is not null && !IgnoreZErr && observable == ObservableKind.Size;
+        observables.Survey.ZErr is not null && !IgnoreZErr;
 
     /// <summary>
     /// Whether object <paramref name="i"/> has no density under the stated redshift prior: it is integrated over redshift

@@ -1,0 +1,358 @@
+using SizeTest.Cosmology;
+using SizeTest.Foundation.Errors;
+using SizeTest.Inference.Likelihood;
+using SizeTest.Photometry;
+
+namespace SizeTest.Inference.Survey;
+
+/// <summary>
+/// The surface-brightness and joint (ln θ, μ) likelihoods with the survey terms of a <see cref="SurveyModel"/>: photometric-redshift
+/// marginalisation, populations with their own nuisance parameters, binned evolution (R0 and μ0 per redshift bin), the size–luminosity
+/// (size–mass) relation, weights and the per-model luminosity window. The per-object terms come from <see cref="SurveyRows"/>;
+/// <see cref="HypothesisLikelihood"/> delegates its rows here when any survey term is active and the observable is sb or joint.
+/// </summary>
+/// <remarks>
+/// <para>Means at redshift z for object i in group g and redshift bin k (x = ln(1+z), ℓ = log10(1+z)):
+/// ln R̄ = ln R0_{g(,k)} + a_g x + β_g ln(L_i/L_pivot) (binned evolution drops a_g x), m_t = ln R̄ + ln(10⁻³) − ln D_A(z) (R0 in kpc,
+/// D_A in Mpc) and m_μ = μ0_{g(,k)} + 2.5 (n − b_g) ℓ + K_i + A_i + κ (ln R̄ − ln R_pivot) (binned evolution drops b_g: μ0 per bin),
+/// n the world model's bolometric dimming exponent plus the flux-convention offset (Tolman 1930), ln(L_i/L_pivot) = C_i + 2 ln D_L(z)
+/// with ln D_L = ln D_A + e x (<see cref="ModelLuminosity"/>). Covariance as the built-in joint model:
+/// [[σ_t,i² + σ_g², κσ_g²], [κσ_g², σ_μ,i² + s_μ,g² + κ²σ_g²]] (σ_g = ln10·scatter_dex@g, κ = kormendy_slope/ln10, shared);
+/// surface brightness alone: μ_i ~ N(m_μ, σ_μ,i² + s_μ,g²). The selection truncation (<see cref="SelectionTruncation"/>: SB limit,
+/// magnitude limit, minimum size) and the isophotal correction (<see cref="IsophotalCorrection"/>) are those of the built-in kernels,
+/// evaluated with these means.</para>
+/// <para>Photometric redshifts: p_i = ∫ p_i(θ, μ | z) N(z; z_obs, σ_z²) π(z) dz over the nodes of <see cref="SurveyRows"/>; at each node
+/// the dimming 2.5 (n − b) ℓ, D_A (joint) and the luminosity move with z, the truncation is taken at that node, and K and A are held at
+/// the catalogue's values (computed for z_obs). An isophotal node where the model's central SB is fainter than the isophote gets no
+/// density; an object with none left has ln L = −∞.</para>
+/// <para>Gradient: analytic, all in θ (<see cref="ModelAdjoint.Direct"/>) except the distances (node adjoint). With d_t, d_μ, D_Vt, D_Vμ,
+/// D_C the per-point partials of the bivariate Gaussian (as <see cref="JointKernel"/>): ∂/∂R0 = (d_t + κd_μ)/R0, ∂/∂a = (d_t + κd_μ)x,
+/// ∂/∂β = (d_t + κd_μ) ln(L/L_pivot), ∂/∂scatter_dex = 2σ ln10 (D_Vt + κ²D_Vμ + κD_C), ∂/∂μ0 = d_μ, ∂/∂b = −2.5 d_μ ℓ,
+/// ∂/∂scatter_mag = 2 s_μ D_Vμ, ∂/∂kormendy_slope = [d_μ(ln R̄ − ln R_pivot) + 2κσ²D_Vμ + σ²D_C]/ln10, ∂/∂ln D_A = d_t(2β − 1) + 2κβ d_μ,
+/// ∂/∂e = 2β x (d_t + κd_μ), ∂/∂θ_c = 2.5 d_μ ℓ ∂n/∂θ_c; photometric redshifts weight each node's partials by its posterior share.</para>
+/// </remarks>
+internal sealed class SurveyJointLikelihood : IObservableKernel
+{
+    private const double Ln10 = ModelPoint.Ln10, HalfLn2Pi = GaussianCore.HalfLn2Pi;
+
+    private readonly ParameterLayout _layout;
+    private readonly ObjectColumns _cols;
+    private readonly SurveyRows _rows;
+    private readonly SelectionTruncation? _cut;
+    private readonly IsophotalCorrection? _isophotal;
+    private readonly bool _joint, _hasLum, _expanding;
+    private readonly int _groups, _bins, _iLumExp = -1, _iKormendy = -1;
+    private readonly double _eFixed, _lnPivot;
+    private readonly double[]? _lnDaFixed;
+    private readonly RedshiftGrid? _grid;
+    private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _slopeIndex, _mu0Index, _sbEvolutionIndex, _scatterMagIndex;
+
+    /// <summary>Notes for the results (what the survey terms did).</summary>
+    public IReadOnlyList<string> Notes { get; }
+
+    /// <param name="h">The hypothesis (observable sb or joint, with survey terms).</param>
+    /// <param name="layout">Its parameter layout.</param>
+    /// <param name="o">The objects.</param>
+    /// <param name="cols">Their bound columns (μ, and ln θ for joint).</param>
+    /// <param name="distances">The distance terms (exact ln D_A or the redshift grid; joint only).</param>
+    /// <param name="cut">The selection truncation, or null.</param>
+    /// <param name="isophotal">The isophotal correction (joint with isophotal sizes), or null.</param>
+    /// <param name="gridMinZ">Lower end of the redshift grid.</param>
+    /// <param name="gridMaxZ">Upper end of the redshift grid.</param>
+    /// <param name="priorMinZ">Lower end of the photo-z prior.</param>
+    /// <param name="priorMaxZ">Upper end of the photo-z prior.</param>
+    /// <param name="startModel">The world model at its start (or fixed) parameters.</param>
+    public SurveyJointLikelihood(Hypothesis h, ParameterLayout layout, Observables o, ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut,
+        IsophotalCorrection? isophotal, double gridMinZ, double gridMaxZ, double priorMinZ, double priorMaxZ, IWorldModel startModel)
+    {
+        var sv = h.Nuisance.SurveyTerms;
+        _layout = layout;
+        _cols = cols;
+        _cut = cut;
+        _isophotal = isophotal;
+        _joint = h.Nuisance.Observable == ObservableKind.Joint;
+        _hasLum = sv.Relation != SizeRelationKind.None;
+        _expanding = h.Family.IsExpanding;
+        _eFixed = ModelLuminosity.DistanceExponent(startModel);
+        _lnPivot = Math.Log(h.Nuisance.PivotSizeKpc);
+        _lnDaFixed = distances.FixedLnDa;
+        _grid = distances.Grid;
+        string own = (_joint ? "R0, a, scatter_dex" + (_hasLum ? ", β" : "") + ", " : "") + "mu0, b, scatter_mag";
+        // Surface brightness alone has no distances: the photo-z nodes need no grid stencils.
+        _rows = new SurveyRows(h, o, own, fixedCosmology: !_joint || _lnDaFixed is not null, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+        _groups = _rows.GroupCount;
+        _bins = _rows.BinCount;
+
+        var byName = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (int i = 0; i < h.Parameters.Count; i++) byName[h.Parameters[i].Name] = i;
+        int Need(string name) => byName.TryGetValue(name, out var i) ? i : throw new ArgumentException($"hypothesis has no parameter '{name}'");
+        _radiusIndex = Filled(_groups * _bins);
+        _mu0Index = Filled(_groups * _bins);
+        _evolutionIndex = Filled(_groups);
+        _scatterIndex = Filled(_groups);
+        _slopeIndex = Filled(_groups);
+        _sbEvolutionIndex = Filled(_groups);
+        _scatterMagIndex = Filled(_groups);
+        var labels = sv.GroupLabels;
+        for (int g = 0; g < _groups; g++)
+        {
+            string l = labels[g];
+            for (int k = 0; k < _bins; k++)
+            {
+                if (_joint) _radiusIndex[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"r0_kpc_bin{k + 1}" : NuisanceParameters.Names.R0Kpc, l));
+                _mu0Index[g * _bins + k] = Need(SurveyModel.Named(sv.Binned ? $"mu0_bin{k + 1}" : NuisanceParameters.Names.Mu0, l));
+            }
+            if (_joint)
+            {
+                if (!sv.Binned) _evolutionIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeEvolution, l));
+                _scatterIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.ScatterDex, l));
+                if (_hasLum) _slopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
+            }
+            if (!sv.Binned) _sbEvolutionIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SbEvolution, l));
+            _scatterMagIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.ScatterMag, l));
+        }
+        if (h.Nuisance.SizeSbRelation) _iKormendy = Need(NuisanceParameters.Names.KormendySlope);
+        if (_hasLum) _iLumExp = h.Parameters.Select((p, i) => (p, i)).FirstOrDefault(t => t.p.Name == WorldModelParameters.Names.LuminosityExponent && t.p.IsFree, (null!, -1)).Item2;
+
+        var notes = new List<string>(_rows.Notes);
+        if (_rows.MarginalisesRedshift)
+            notes.Add("photometric redshifts (" + (_joint ? "joint" : "surface brightness") + "): at each redshift node the dimming 2.5 (n − b) log10(1+z)" +
+                      (_joint ? ", D_A" : "") + (_rows.HasLuminosity ? ", the luminosities" : "") + (_cut is not null ? " and the selection truncation" : "") +
+                      " move with z; K-corrections and extinctions are held at the catalogue's values.");
+        Notes = notes;
+    }
+
+    private static int[] Filled(int n) => Enumerable.Repeat(-1, n).ToArray();
+
+    /// <inheritdoc/>
+    public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) => Accumulate(e, start, end, null);
+
+    /// <inheritdoc/>
+    public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) => Accumulate(e, start, end, adjoint);
+
+    // Per-evaluation constants of one group (and bin).
+    private struct GroupPoint
+    {
+        public double A, Sig, Beta, B, Sm;
+    }
+
+    // One point's partials: ∂ℓ/∂m_t, ∂ℓ/∂m_μ (isophotal slope included), ∂ℓ/∂V_t, ∂ℓ/∂V_μ, ∂ℓ/∂C, and ln R̄ and ln(L/L_pivot) at the point.
+    private struct Partials
+    {
+        public double Dt, Dm, Dvt, Dvm, Dc, LnSize, LnLum;
+    }
+
+    private double Accumulate(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
+    {
+        var v = e.Values;
+        int gb = _groups * _bins;
+        Span<double> lnR0 = stackalloc double[gb], mu0 = stackalloc double[gb];
+        var gp = new GroupPoint[_groups];
+        for (int q = 0; q < gb; q++)
+        {
+            lnR0[q] = _radiusIndex[q] >= 0 ? Math.Log(v[_radiusIndex[q]]) : 0;
+            mu0[q] = v[_mu0Index[q]];
+        }
+        for (int g = 0; g < _groups; g++)
+            gp[g] = new GroupPoint
+            {
+                A = _evolutionIndex[g] >= 0 ? v[_evolutionIndex[g]] : 0,
+                Sig = _scatterIndex[g] >= 0 ? Ln10 * v[_scatterIndex[g]] : 0,
+                Beta = _slopeIndex[g] >= 0 ? v[_slopeIndex[g]] : 0,
+                B = _sbEvolutionIndex[g] >= 0 ? v[_sbEvolutionIndex[g]] : 0,
+                Sm = v[_scatterMagIndex[g]],
+            };
+        double kap = _iKormendy >= 0 ? v[_iKormendy] / Ln10 : 0;
+        double eExp = _expanding ? 2.0 : _iLumExp >= 0 && double.IsFinite(v[_iLumExp]) ? v[_iLumExp] : _eFixed;
+        double dimming = e.Dimming;
+        double[]? direct = null;
+        double[]? nodeA = adj?.NodeAdjoint;
+        if (adj is not null) direct = adj.Direct ??= new double[_layout.FreeCount];
+        var rows = _rows;
+        var wts = rows.Weight;
+        int J = rows.NodesPerObject;
+        Span<double> lp = stackalloc double[Math.Max(J, 1)];
+        Span<double> lnDaj = stackalloc double[Math.Max(J, 1)];
+        var pj = new Partials[Math.Max(J, 1)];
+        double acc = 0, sumDmL10 = 0;
+        for (int i = start; i < end; i++)
+        {
+            double w = wts?[i] ?? 1.0;
+            if (w == 0) continue;
+            int g = rows.Group[i], q0 = g * _bins + rows.Bin[i];
+            ref readonly var G = ref gp[g];
+            if (!rows.MarginalisesRedshift)
+            {
+                double lnDa = _joint ? (_lnDaFixed is not null ? _lnDaFixed[i] : rows.LnZ[i] + _grid!.Interpolate(e.GridLnDaOverZ, i)) : 0;
+                double li = PointLogDensity(i, lnR0[q0], mu0[q0], G, kap, dimming, eExp, rows.Ln1pZ[i], lnDa, rows.LuminosityBase?[i] ?? 0, adj is not null, out var d);
+                if (double.IsNegativeInfinity(li)) return double.NegativeInfinity;
+                acc += w * li;
+                if (adj is not null)
+                {
+                    AddPartials(direct!, v, g, q0, w, d, kap, G, eExp, rows.Ln1pZ[i]);
+                    sumDmL10 += w * d.Dm * rows.Ln1pZ[i] / Ln10;
+                    if (nodeA is not null && _grid is not null) ScatterNodes(nodeA, _grid, i, -w * (d.Dt * (2 * G.Beta - 1) + 2 * kap * G.Beta * d.Dm));
+                }
+                continue;
+            }
+            double max = double.NegativeInfinity;
+            for (int j = 0; j < J; j++)
+            {
+                int q = i * J + j;
+                if (double.IsNegativeInfinity(rows.NodeLogWeight[q])) { lp[j] = double.NegativeInfinity; continue; }
+                lnDaj[j] = _joint ? (rows.NodeLnDaFixed is not null ? rows.NodeLnDaFixed[q] : rows.NodeLnZ[q] + rows.NodeGrid!.Interpolate(e.GridLnDaOverZ, q)) : 0;
+                lp[j] = rows.NodeLogWeight[q] + PointLogDensity(i, lnR0[q0], mu0[q0], G, kap, dimming, eExp, rows.NodeLn1pZ[q], lnDaj[j],
+                    rows.HasLuminosity ? rows.NodeLuminosityBase[q] : 0, adj is not null, out pj[j]);
+                if (lp[j] > max) max = lp[j];
+            }
+            if (double.IsNegativeInfinity(max)) return double.NegativeInfinity;
+            double sum = 0;
+            for (int j = 0; j < J; j++) sum += Math.Exp(lp[j] - max);
+            acc += w * (max + Math.Log(sum));
+            if (adj is null) continue;
+            for (int j = 0; j < J; j++)
+            {
+                if (double.IsNegativeInfinity(lp[j])) continue;
+                int q = i * J + j;
+                double share = w * Math.Exp(lp[j] - max) / sum;
+                AddPartials(direct!, v, g, q0, share, pj[j], kap, G, eExp, rows.NodeLn1pZ[q]);
+                sumDmL10 += share * pj[j].Dm * rows.NodeLn1pZ[q] / Ln10;
+                if (nodeA is not null && rows.NodeGrid is not null)
+                    ScatterNodes(nodeA, rows.NodeGrid, q, -share * (pj[j].Dt * (2 * G.Beta - 1) + 2 * kap * G.Beta * pj[j].Dm));
+            }
+        }
+        if (adj is not null && e.DimmingDerivatives is { } dn)
+            for (int c = 0; c < _layout.FreeCosmological.Length; c++)
+                Add(direct!, _layout.FreeCosmological[c], 2.5 * sumDmL10 * dn[c]);
+        return acc;
+    }
+
+    // ln p(θ_i, μ_i | z) (or ln p(μ_i | z)) at one redshift, with the selection truncation; −∞ where an isophotal object cannot be seen.
+    private double PointLogDensity(int i, double lnR0, double mu0, in GroupPoint G, double kap, double dimming, double eExp, double x, double lnDa, double lumBase,
+        bool partials, out Partials d)
+    {
+        d = default;
+        double l10 = x / Ln10;
+        double mm = mu0 + 2.5 * (dimming - G.B) * l10 + _cols.Correction[i];
+        if (!_joint)
+        {
+            double vs = _cols.VarMu[i] + G.Sm * G.Sm, r = _cols.Mu[i] - mm, inv = 1 / vs;
+            double lp = -0.5 * (r * r * inv + Math.Log(vs)) - HalfLn2Pi;
+            double smm = 0, svm = 0;
+            if (_cut is not null) lp -= partials ? _cut.LogPass(0, mm, 0, vs, 0, out _, out smm, out _, out svm, out _) : _cut.LogPass(0, mm, 0, vs, 0);
+            d.Dm = r * inv - smm;
+            d.Dvm = 0.5 * (r * r * inv * inv - inv) - svm;
+            return lp;
+        }
+        double lnLum = _hasLum ? lumBase + 2 * (lnDa + eExp * x) : 0;
+        double lnSize = lnR0 + G.A * x + G.Beta * lnLum;
+        double mt = lnSize + ModelPoint.LnKpcPerMpc - lnDa;
+        mm += kap * (lnSize - _lnPivot);
+        double isoSlope = 0;
+        if (_isophotal is not null)
+        {
+            if (!_isophotal.TryOffset(mm, i, out double lnRatio, out isoSlope)) return double.NegativeInfinity;
+            mt += lnRatio;
+        }
+        double sig2 = G.Sig * G.Sig, c = kap * sig2;
+        double vt = _cols.VarLnTheta[i] + sig2, vm = _cols.VarMu[i] + G.Sm * G.Sm + kap * kap * sig2;
+        double det = vt * vm - c * c, idet = 1 / det;
+        double rt = _cols.LnTheta[i] - mt, rm = _cols.Mu[i] - mm;
+        double value = -0.5 * ((vm * rt * rt - 2 * c * rt * rm + vt * rm * rm) * idet + Math.Log(det)) - 2 * HalfLn2Pi;
+        if (!partials)
+        {
+            if (_cut is not null) value -= _cut.LogPass(mt, mm, vt, vm, c);
+            return value;
+        }
+        double at = (vm * rt - c * rm) * idet, am = (vt * rm - c * rt) * idet;
+        double dt = at, dm = am;
+        double dvt = 0.5 * (at * at - vm * idet), dvm = 0.5 * (am * am - vt * idet), dc = at * am + c * idet;
+        if (_cut is not null)
+        {
+            value -= _cut.LogPass(mt, mm, vt, vm, c, out double smt, out double smm, out double svt, out double svm, out double sc);
+            dt -= smt; dm -= smm; dvt -= svt; dvm -= svm; dc -= sc;
+        }
+        dm += dt * isoSlope;
+        d = new Partials { Dt = dt, Dm = dm, Dvt = dvt, Dvm = dvm, Dc = dc, LnSize = lnSize, LnLum = lnLum };
+        return value;
+    }
+
+    private void AddPartials(double[] direct, double[] v, int g, int q0, double w, in Partials d, double kap, in GroupPoint G, double eExp, double x)
+    {
+        double dm = w * d.Dm;
+        Add(direct, _mu0Index[q0], dm);
+        Add(direct, _sbEvolutionIndex[g], -2.5 * dm * x / Ln10);
+        Add(direct, _scatterMagIndex[g], 2 * G.Sm * w * d.Dvm);
+        if (!_joint) return;
+        double dSize = w * (d.Dt + kap * d.Dm); // ∂ℓ/∂ln R̄
+        Add(direct, _radiusIndex[q0], dSize / v[_radiusIndex[q0]]);
+        Add(direct, _evolutionIndex[g], dSize * x);
+        Add(direct, _scatterIndex[g], 2 * G.Sig * Ln10 * w * (d.Dvt + kap * kap * d.Dvm + kap * d.Dc));
+        if (_hasLum)
+        {
+            Add(direct, _slopeIndex[g], dSize * d.LnLum);
+            Add(direct, _iLumExp, dSize * 2 * G.Beta * x);
+        }
+        if (_iKormendy >= 0)
+        {
+            double sig2 = G.Sig * G.Sig;
+            Add(direct, _iKormendy, w * (d.Dm * (d.LnSize - _lnPivot) + 2 * kap * sig2 * d.Dvm + sig2 * d.Dc) / Ln10);
+        }
+    }
+
+    private void Add(double[] direct, int full, double value)
+    {
+        int j = _layout.FreeIndex(full);
+        if (j >= 0) direct[j] += value;
+    }
+
+    // The adjoint of RedshiftGrid.Interpolate: value times the row's four stencil weights onto their nodes.
+    private static void ScatterNodes(double[] nodeAdjoint, RedshiftGrid grid, int row, double value)
+    {
+        for (int s = 0, j = grid.Index[row], k = 4 * row; s < 4; s++) nodeAdjoint[j + s] += value * grid.Weights[k + s];
+    }
+
+    /// <summary>Data-driven start values for R0 and μ0 (per group and bin): the medians implied by the objects at the start parameters.</summary>
+    public void SuggestStart(double[] start, IReadOnlyList<ParameterSetting> free, Hypothesis h, LikelihoodEvaluation e)
+    {
+        var v = e.Values;
+        double eExp = _expanding ? 2.0 : _eFixed;
+        var rows = _rows;
+        for (int gb = 0; gb < _groups * _bins; gb++)
+        {
+            var sizes = new List<double>();
+            var sbs = new List<double>();
+            for (int i = 0; i < rows.Count; i++)
+            {
+                if (rows.Group[i] * _bins + rows.Bin[i] != gb || (rows.Weight?[i] ?? 1) == 0) continue;
+                int g = rows.Group[i];
+                double x = rows.Ln1pZ[i];
+                double b = _sbEvolutionIndex[g] >= 0 ? v[_sbEvolutionIndex[g]] : 0;
+                sbs.Add(_cols.Mu[i] - 2.5 * (e.Dimming - b) * x / Ln10 - _cols.Correction[i]);
+                if (!_joint) continue;
+                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : rows.LnZ[i] + _grid!.Interpolate(e.GridLnDaOverZ, i);
+                double t = _cols.LnTheta[i] + lnDa - ModelPoint.LnKpcPerMpc - (_evolutionIndex[g] >= 0 ? v[_evolutionIndex[g]] : 0) * x;
+                if (_hasLum) t -= v[_slopeIndex[g]] * (rows.LuminosityBase![i] + 2 * (lnDa + eExp * x));
+                if (_isophotal is not null && _isophotal.TryOwnOffset(_cols.Mu[i], i, out double lr)) t -= lr;
+                sizes.Add(t);
+            }
+            Set(start, free, h, _mu0Index[gb], Median(sbs));
+            if (_joint && Median(sizes) is { } m && double.IsFinite(m)) Set(start, free, h, _radiusIndex[gb], Math.Exp(m));
+        }
+    }
+
+    private static double Median(List<double> t)
+    {
+        if (t.Count == 0) return double.NaN;
+        t.Sort();
+        return t[t.Count / 2];
+    }
+
+    private static void Set(double[] start, IReadOnlyList<ParameterSetting> free, Hypothesis h, int full, double value)
+    {
+        if (full < 0 || !double.IsFinite(value)) return;
+        string name = h.Parameters[full].Name;
+        for (int j = 0; j < free.Count; j++)
+            if (free[j].Name == name) start[j] = Math.Clamp(value, free[j].Min, free[j].Max);
+    }
+}
