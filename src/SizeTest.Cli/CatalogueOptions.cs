@@ -20,15 +20,9 @@ internal sealed class CatalogueOptions
         AllowMultipleArgumentsPerToken = false,
     };
 
-    public Option<string?> Hdu { get; } = new("--hdu")
-    {
-        Description = "Which table: a FITS HDU index (1 = first extension) or EXTNAME, or a VOTable TABLE index (1-based) or name. Default: the first table.",
-    };
+    public Option<string?> Hdu { get; } = CliOptions.Text("--hdu", "Which table: a FITS HDU index (1 = first extension) or EXTNAME, or a VOTable TABLE index (1-based) or name. Default: the first table.");
 
-    public Option<string?> SizeDef { get; } = new("--size-def")
-    {
-        Description = "How the sizes were measured: effective (default), petrosian, isophotal:LEVEL (mag/arcsec2) or fwhm.",
-    };
+    public Option<string?> SizeDef { get; } = CliOptions.Text("--size-def", "How the sizes were measured: effective (default), petrosian, isophotal:LEVEL (mag/arcsec2) or fwhm.");
 
     public Option<string[]> Keep { get; } = new("--keep")
     {
@@ -37,20 +31,11 @@ internal sealed class CatalogueOptions
         AllowMultipleArgumentsPerToken = false,
     };
 
-    public Option<string?> CatalogueFormat { get; } = new("--catalog-format")
-    {
-        Description = "The catalogue's format if detection is wrong: csv (any delimited text), fits, votable or parquet.",
-    };
+    public Option<string?> CatalogueFormat { get; } = CliOptions.Text("--catalog-format", "The catalogue's format if detection is wrong: csv (any delimited text), fits, votable or parquet.");
 
-    public Option<string?> Delimiter { get; } = new("--delimiter")
-    {
-        Description = "Text catalogues: the field delimiter (a character, or 'tab', or 'space' for runs of blanks). Default: detected.",
-    };
+    public Option<string?> Delimiter { get; } = CliOptions.Text("--delimiter", "Text catalogues: the field delimiter (a character, or 'tab', or 'space' for runs of blanks). Default: detected.");
 
-    public Option<string?> Header { get; } = new("--header")
-    {
-        Description = "Text catalogues: whether the first line is a header: auto (default), yes or no.",
-    };
+    public Option<string?> Header { get; } = CliOptions.Text("--header", "Text catalogues: whether the first line is a header: auto (default), yes or no.");
 
     public Option<int> MaxLineBytes { get; } = new("--max-line-bytes")
     {

@@ -1,3 +1,4 @@
+using System.CommandLine;
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Text;
 
@@ -30,6 +31,21 @@ internal sealed class CliContext
 
     /// <summary>True when standard error is a terminal and not CI.</summary>
     public bool IsInteractive { get; }
+
+    /// <summary>Sets <paramref name="action"/> as the action of <paramref name="command"/>: its exit code, or, when it throws,
+    /// the exit code and one-line message of <see cref="Fail"/> (the scaffolding every verb shares).</summary>
+    public void SetAction(Command command, Func<ParseResult, int> action) =>
+        command.SetAction(parse =>
+        {
+            try
+            {
+                return action(parse);
+            }
+            catch (Exception ex)
+            {
+                return Fail(ex);
+            }
+        });
 
     /// <summary>Maps an exception to a one-line message and an exit code.</summary>
     public int Fail(Exception ex)

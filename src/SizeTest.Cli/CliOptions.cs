@@ -18,4 +18,11 @@ internal static class CliOptions
         Description = "Output format: table (default, for people), csv or json.",
         DefaultValueFactory = _ => "table",
     }.AcceptOnlyFromAmong("table", "csv", "json");
+
+    /// <summary>A text option with its help text (its value is null when not given).</summary>
+    public static Option<string?> Text(string name, string description) => new(name) { Description = description };
+
+    /// <summary>A number option with its help text, parsed in the invariant culture (<see cref="WorldModelOptions.NumberParser"/>).</summary>
+    public static Option<double?> Number(string name, string description) =>
+        new(name) { Description = description, CustomParser = WorldModelOptions.NumberParser };
 }

@@ -1,6 +1,4 @@
 using System.CommandLine;
-using System.Globalization;
-using System.Text;
 using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Files;
@@ -18,8 +16,6 @@ namespace SizeTest.Cli;
 /// </summary>
 internal static class FitCommand
 {
-    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
-
     public static Command Create(CliContext context)
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
@@ -63,63 +59,56 @@ internal static class FitCommand
         foreach (var o in new Option[] { choice.Models, observable, relation, pivot, dimOffset, choice.Free, choice.Fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, limits.MaxMemory, expect, nodes, limits.Force, output, format })
             command.Options.Add(o);
 
-        command.SetAction(parse =>
+        context.SetAction(command, parse =>
         {
-            try
+            var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
+            var nuisance = new NuisanceModel(kind,
+                new SelectionLimits(parse.GetValue(sbLimit), parse.GetValue(magLimit), parse.GetValue(minSize)),
+                parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
+            nuisance.Validate();
+            var overrides = new ParameterOverrides(
+                Free: choice.Freed(parse),
+                Fixed: choice.Fixed(parse),
+                Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
+                Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
+            var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
+            var families = choice.Families(parse);
+            if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
+            var surveyRequest = surveyOptions.Request(parse);
+            var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
+            bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
+            if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
+            int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
+            var samplerName = SamplerKinds.Parse(parse.GetValue(sampler) ?? "none");
+            int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
+            int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
+            var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
+            // The settings are checked by the library before the catalogue is read (FitRun.Run checks them again).
+            SettingProblem.ThrowIfAny(new FitRequest
             {
-                var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
-                var nuisance = new NuisanceModel(kind,
-                    new SelectionLimits(parse.GetValue(sbLimit), parse.GetValue(magLimit), parse.GetValue(minSize)),
-                    parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
-                nuisance.Validate();
-                var overrides = new ParameterOverrides(
-                    Free: choice.Freed(parse),
-                    Fixed: choice.Fixed(parse),
-                    Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
-                    Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
-                var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
-                var families = choice.Families(parse);
-                if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
-                var surveyRequest = surveyOptions.Request(parse);
-                var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
-                bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
-                if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));
-                int nBoot = parse.GetValue(bootstrap), nFolds = parse.GetValue(folds), nStarts = parse.GetValue(starts);
-                var samplerName = SamplerKinds.Parse(parse.GetValue(sampler) ?? "none");
-                int nWalkers = parse.GetValue(walkers), nLive = parse.GetValue(live), nMax = parse.GetValue(maxSteps);
-                int nSteps = FitOptionParsing.Steps(parse.GetValue(steps));
-                var hypotheses = families.Select(f => Hypothesis.Create(f, nuisance, overrides)).ToArray();
-                // The settings are checked by the library before the catalogue is read (FitRun.Run checks them again).
-                SettingProblem.ThrowIfAny(new FitRequest
-                {
-                    Hypotheses = hypotheses, Observables = new Observables([]), Starts = nStarts, Bootstrap = nBoot, CrossValidationFolds = nFolds,
-                    Sampler = samplerName, Walkers = nWalkers, Steps = nSteps, MaxSteps = nMax, LivePoints = nLive,
-                }.Validate());
-                long? memoryLimit = limits.MemoryLimit(parse);
-                FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
-                if (samplerName == SamplerKind.Mcmc)
-                    foreach (var h in hypotheses.Where(h => h.K > 0))
-                        SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
-                var inputs = new List<string> { parse.GetValue(catalog)! };
-                var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
-                var loadOptions = catalogOptions.ToLoadOptions(parse);
-                if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
-                    loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
-                if (SizeTest.Distributed.RankContext.IsDistributed && surveyRequest.NeedsWholeSample(parse.GetValue(surveyOptions.Group) is not null) is { Count: > 0 } whole)
-                    throw new InputException($"{string.Join(", ", whole)} do not run under mpirun (group labels, equal-count redshift bins and the luminosity window's counts need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
-                string? profileName = parse.GetValue(profile);
-                // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
-                Func<Observables, RedshiftGridSpan?, SurveyBinding> survey = (obs, whole) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
-                {
-                    CheckNames(overrides, expected, families, nm, profileName);
-                    return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
-                }, whole);
-                return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, SurveyTerms = surveyRequest, MaxOutsideSelection = parse.GetValue(maxOutside) });
-            }
-            catch (Exception ex)
+                Hypotheses = hypotheses, Observables = new Observables([]), Starts = nStarts, Bootstrap = nBoot, CrossValidationFolds = nFolds,
+                Sampler = samplerName, Walkers = nWalkers, Steps = nSteps, MaxSteps = nMax, LivePoints = nLive,
+            }.Validate());
+            long? memoryLimit = limits.MemoryLimit(parse);
+            FitMemoryBudget.Check(hypotheses, samplerName, nWalkers, nSteps == 0 ? nMax : nSteps, nLive, nBoot, nStarts, memoryLimit);
+            if (samplerName == SamplerKind.Mcmc)
+                foreach (var h in hypotheses.Where(h => h.K > 0))
+                    SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
+            var inputs = new List<string> { parse.GetValue(catalog)! };
+            var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
+            var loadOptions = catalogOptions.ToLoadOptions(parse);
+            if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
+                loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
+            if (SizeTest.Distributed.RankContext.IsDistributed && surveyRequest.NeedsWholeSample(parse.GetValue(surveyOptions.Group) is not null) is { Count: > 0 } whole)
+                throw new InputException($"{string.Join(", ", whole)} do not run under mpirun (group labels, equal-count redshift bins and the luminosity window's counts need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
+            string? profileName = parse.GetValue(profile);
+            // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
+            Func<Observables, RedshiftGridSpan?, SurveyBinding> survey = (obs, whole) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
             {
-                return context.Fail(ex);
-            }
+                CheckNames(overrides, expected, families, nm, profileName);
+                return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
+            }, whole);
+            return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, SurveyTerms = surveyRequest, MaxOutsideSelection = parse.GetValue(maxOutside) });
         });
         return command;
     }

@@ -28,42 +28,35 @@ internal static class InspectCommand
         cmd.Options.Add(format);
         cmd.Options.Add(rejectLog);
         cmd.Options.Add(force);
-        cmd.SetAction(parse =>
+        context.SetAction(cmd, parse =>
         {
-            try
+            var path = parse.GetValue(catalog)!;
+            var logPath = parse.GetValue(rejectLog);
+            bool overwrite = parse.GetValue(force);
+            if (logPath is not null)
             {
-                var path = parse.GetValue(catalog)!;
-                var logPath = parse.GetValue(rejectLog);
-                bool overwrite = parse.GetValue(force);
-                if (logPath is not null)
-                {
-                    // Nothing the user gave is replaced, not even with --force: the catalogue being read is never the reject log.
-                    if (SizeTest.Foundation.Files.FilePaths.SameFile(logPath, path))
-                        throw new InputException($"reject log '{logPath}' is the catalogue being read; choose another path (--force never replaces an input)");
-                    if (Directory.Exists(logPath))
-                        throw new InputException($"reject log '{logPath}' is a folder; name a file, e.g. --reject-log {Path.Combine(logPath, "rejects.csv")}");
-                    if (File.Exists(logPath) && !overwrite)
-                        throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
-                }
-                var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
-                var photText = phot.ToText(parse);
-                var photometry = phot.ToOptions(parse);
-                var load = CatalogueLoader.Load(path, options);
-                var corrections = Corrections(load, photometry, photText);
-                if (context.IsInteractive && load.RowsRead >= 1_000_000) context.Err.WriteLine();
-                if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
-                switch (parse.GetValue(format))
-                {
-                    case "json": context.Out.WriteLine(SettingFlags.Text(CatalogueInspectionJson.Write(path, load, corrections))); break;
-                    case "csv": WriteCsv(context.Out, load); break;
-                    default: WriteTable(context.Out, path, load, logPath, corrections); break;
-                }
-                return ExitCodes.Success;
+                // Nothing the user gave is replaced, not even with --force: the catalogue being read is never the reject log.
+                if (SizeTest.Foundation.Files.FilePaths.SameFile(logPath, path))
+                    throw new InputException($"reject log '{logPath}' is the catalogue being read; choose another path (--force never replaces an input)");
+                if (Directory.Exists(logPath))
+                    throw new InputException($"reject log '{logPath}' is a folder; name a file, e.g. --reject-log {Path.Combine(logPath, "rejects.csv")}");
+                if (File.Exists(logPath) && !overwrite)
+                    throw new InputException($"reject log '{logPath}' already exists; pass --force to replace it or choose another path");
             }
-            catch (Exception ex)
+            var options = cat.ToLoadOptions(parse) with { Progress = n => Progress(context, n) };
+            var photText = phot.ToText(parse);
+            var photometry = phot.ToOptions(parse);
+            var load = CatalogueLoader.Load(path, options);
+            var corrections = Corrections(load, photometry, photText);
+            if (context.IsInteractive && load.RowsRead >= 1_000_000) context.Err.WriteLine();
+            if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
+            switch (parse.GetValue(format))
             {
-                return context.Fail(ex);
+                case "json": context.Out.WriteLine(SettingFlags.Text(CatalogueInspectionJson.Write(path, load, corrections))); break;
+                case "csv": WriteCsv(context.Out, load); break;
+                default: WriteTable(context.Out, path, load, logPath, corrections); break;
             }
+            return ExitCodes.Success;
         });
         return cmd;
     }

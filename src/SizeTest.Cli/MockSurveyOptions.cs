@@ -11,8 +11,7 @@ namespace SizeTest.Cli;
 /// </summary>
 internal sealed class MockSurveyOptions
 {
-    private static Option<double?> Number(string name, string description) =>
-        new(name) { Description = description, CustomParser = WorldModelOptions.NumberParser };
+    private static Option<double?> Number(string name, string description) => CliOptions.Number(name, description);
 
     public Option<int?> Count { get; }
     public Option<string> Kind { get; } = new Option<string>("--kind")
@@ -44,10 +43,7 @@ internal sealed class MockSurveyOptions
     public Option<double?> MuErr { get; } = Number("--mu-err", "Galaxies: SB measurement error in mag (default 0.1).");
     public Option<double?> PhotoZErr { get; } = Number("--photoz-err", "Photometric-redshift error σ in σ(1+z) (default 0: spectroscopic).");
 
-    public Option<string?> LuminosityFunction { get; } = new("--luminosity-function")
-    {
-        Description = "Galaxies: draw absolute magnitudes from a Schechter function, schechter:MSTAR:ALPHA[:BRIGHT:FAINT] (e.g. schechter:-21:-1.2:-24:-16); writes the apparent magnitude m = M + 5 log10(D_L/10 pc) and μ from m and θ.",
-    };
+    public Option<string?> LuminosityFunction { get; } = CliOptions.Text("--luminosity-function", "Galaxies: draw absolute magnitudes from a Schechter function, schechter:MSTAR:ALPHA[:BRIGHT:FAINT] (e.g. schechter:-21:-1.2:-24:-16); writes the apparent magnitude m = M + 5 log10(D_L/10 pc) and μ from m and θ.");
     public Option<double?> SizeLuminositySlope { get; } = Number("--size-lum-slope", "Galaxies with --luminosity-function: β in R ∝ L^β (default 0).");
     public Option<double?> PivotAbsMag { get; } = Number("--pivot-abs-mag", "Galaxies: pivot absolute magnitude of R ∝ (L/L_pivot)^β (default −21).");
     public Option<string[]> Population { get; } = new("--population")

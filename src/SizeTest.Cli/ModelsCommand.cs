@@ -14,22 +14,15 @@ internal static class ModelsCommand
         var command = new Command("models", "List the world models with their parameters (option, default, unit, range) and the surface-brightness dimming law each implies.");
         var format = CliOptions.Format();
         command.Options.Add(format);
-        command.SetAction(parse =>
+        context.SetAction(command, parse =>
         {
-            try
+            switch (parse.GetValue(format))
             {
-                switch (parse.GetValue(format))
-                {
-                    case "json": WriteJson(context.Out); break;
-                    case "csv": WriteCsv(context.Out); break;
-                    default: WriteTable(context.Out); break;
-                }
-                return ExitCodes.Success;
+                case "json": WriteJson(context.Out); break;
+                case "csv": WriteCsv(context.Out); break;
+                default: WriteTable(context.Out); break;
             }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            return ExitCodes.Success;
         });
         return command;
     }

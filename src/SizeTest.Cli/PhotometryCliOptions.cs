@@ -12,40 +12,19 @@ namespace SizeTest.Cli;
 /// </summary>
 internal sealed class PhotometryCliOptions
 {
-    public Option<string?> KCorrection { get; } = new("--kcorr")
-    {
-        Description = "K-correction: none (default), column:NAME, powerlaw:ALPHA (f_nu ~ nu^ALPHA, K = -2.5(1+ALPHA)log10(1+z)) or template:FILE[,filter-obs:FILE,filter-rest:FILE,reference:ab|FILE,flux:flambda|fnu,wavelength-unit:angstrom|nm|um].",
-    };
+    public Option<string?> KCorrection { get; } = CliOptions.Text("--kcorr", "K-correction: none (default), column:NAME, powerlaw:ALPHA (f_nu ~ nu^ALPHA, K = -2.5(1+ALPHA)log10(1+z)) or template:FILE[,filter-obs:FILE,filter-rest:FILE,reference:ab|FILE,flux:flambda|fnu,wavelength-unit:angstrom|nm|um].");
 
-    public Option<string?> Extinction { get; } = new("--extinction")
-    {
-        Description = "Galactic extinction added to the SB model: none (default), column:NAME (A_band, mag) or ebv:COLUMN,coeffs:FILE (A = R_band x E(B-V)).",
-    };
+    public Option<string?> Extinction { get; } = CliOptions.Text("--extinction", "Galactic extinction added to the SB model: none (default), column:NAME (A_band, mag) or ebv:COLUMN,coeffs:FILE (A = R_band x E(B-V)).");
 
-    public Option<string?> ZeroPoints { get; } = new("--zero-points")
-    {
-        Description = "FILE of rows 'band offset' converting to AB (m_AB = m + offset), applied to mu, mag and the isophote.",
-    };
+    public Option<string?> ZeroPoints { get; } = CliOptions.Text("--zero-points", "FILE of rows 'band offset' converting to AB (m_AB = m + offset), applied to mu, mag and the isophote.");
 
-    public Option<string?> Band { get; } = new("--band")
-    {
-        Description = "Band of every object when the catalogue has no band column (for zero points and extinction coefficients).",
-    };
+    public Option<string?> Band { get; } = CliOptions.Text("--band", "Band of every object when the catalogue has no band column (for zero points and extinction coefficients).");
 
-    public Option<string?> BandMatch { get; } = new("--band-match")
-    {
-        Description = "Match observed bands to a rest-frame target: target:LAMBDA|FILE,band:NAME=MU_COL[/ERR_COL]@LAMBDA|FILE,...[,mode:nearest|interpolate][,wavelength-unit:...].",
-    };
+    public Option<string?> BandMatch { get; } = CliOptions.Text("--band-match", "Match observed bands to a rest-frame target: target:LAMBDA|FILE,band:NAME=MU_COL[/ERR_COL]@LAMBDA|FILE,...[,mode:nearest|interpolate][,wavelength-unit:...].");
 
-    public Option<string?> SersicIndex { get; } = new("--sersic-n")
-    {
-        Description = "Sérsic index n of the profiles (needed for isophotal sizes and SB conversions), e.g. 1 or 4.",
-    };
+    public Option<string?> SersicIndex { get; } = CliOptions.Text("--sersic-n", "Sérsic index n of the profiles (needed for isophotal sizes and SB conversions), e.g. 1 or 4.");
 
-    public Option<string?> SurfaceBrightness { get; } = new("--sb")
-    {
-        Description = "Surface brightness: column[:mean|effective|central][,to:KIND] (default: the mu column as given) or from-mag[,to:KIND] (<mu>_e from mag and size).",
-    };
+    public Option<string?> SurfaceBrightness { get; } = CliOptions.Text("--sb", "Surface brightness: column[:mean|effective|central][,to:KIND] (default: the mu column as given) or from-mag[,to:KIND] (<mu>_e from mag and size).");
 
     public void AddTo(Command command)
     {

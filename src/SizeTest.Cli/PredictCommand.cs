@@ -39,23 +39,16 @@ internal static class PredictCommand
         command.Options.Add(z);
         command.Options.Add(size);
         command.Options.Add(format);
-        command.SetAction(parse =>
+        context.SetAction(command, parse =>
         {
-            try
-            {
-                double sizeKpc = parse.GetValue(size) ?? 1.0;
-                if (!(sizeKpc > 0) || !double.IsFinite(sizeKpc))
-                    throw new InputException($"--size-kpc must be a positive number of kpc; got {sizeKpc.ToString(CultureInfo.InvariantCulture)}.");
-                double[] redshifts = RedshiftList.Parse(parse.GetValue(z) ?? "");
-                var model = models.Create(parse);
-                var rows = Compute(model, redshifts, sizeKpc);
-                Write(context.Out, parse.GetValue(format) ?? "table", model, sizeKpc, rows);
-                return ExitCodes.Success;
-            }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            double sizeKpc = parse.GetValue(size) ?? 1.0;
+            if (!(sizeKpc > 0) || !double.IsFinite(sizeKpc))
+                throw new InputException($"--size-kpc must be a positive number of kpc; got {sizeKpc.ToString(CultureInfo.InvariantCulture)}.");
+            double[] redshifts = RedshiftList.Parse(parse.GetValue(z) ?? "");
+            var model = models.Create(parse);
+            var rows = Compute(model, redshifts, sizeKpc);
+            Write(context.Out, parse.GetValue(format) ?? "table", model, sizeKpc, rows);
+            return ExitCodes.Success;
         });
         return command;
     }

@@ -23,21 +23,14 @@ internal static class ReportCommand
         cmd.Options.Add(output);
         cmd.Options.Add(force);
         cmd.Options.Add(paper);
-        cmd.SetAction(parse =>
+        context.SetAction(cmd, parse =>
         {
-            try
-            {
-                PaperSize.TryParse(parse.GetValue(paper), out var size);
-                var src = parse.GetValue(dir)!;
-                context.Err.WriteLine($"sizetest: redrawing the report from {Path.Combine(src, Reporting.Data.ReportDataJson.FileName)}");
-                var (target, files) = ReportRedraw.Run(src, parse.GetValue(output), parse.GetValue(force), new ReportPackOptions { Paper = size });
-                context.Out.WriteLine($"wrote {files.Count} report files to {target} (report.html, report.pdf, figures/, tables/, manifest.json)");
-                return ExitCodes.Success;
-            }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            PaperSize.TryParse(parse.GetValue(paper), out var size);
+            var src = parse.GetValue(dir)!;
+            context.Err.WriteLine($"sizetest: redrawing the report from {Path.Combine(src, Reporting.Data.ReportDataJson.FileName)}");
+            var (target, files) = ReportRedraw.Run(src, parse.GetValue(output), parse.GetValue(force), new ReportPackOptions { Paper = size });
+            context.Out.WriteLine($"wrote {files.Count} report files to {target} (report.html, report.pdf, figures/, tables/, manifest.json)");
+            return ExitCodes.Success;
         });
         return cmd;
     }

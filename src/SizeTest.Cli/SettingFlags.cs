@@ -9,15 +9,12 @@ namespace SizeTest.Cli;
 /// </summary>
 internal static class SettingFlags
 {
-    private static readonly Dictionary<string, string> Exceptions = new(StringComparer.Ordinal)
-    {
-        ["sample_sizes"] = "--n",
-        ["object_count"] = "--n",
-    };
-
     /// <summary>The flag of <paramref name="setting"/>.</summary>
-    public static string Flag(string setting) =>
-        Exceptions.TryGetValue(setting, out var flag) ? flag : "--" + setting.Replace('_', '-');
+    public static string Flag(string setting) => setting switch
+    {
+        "sample_sizes" or "object_count" => "--n",   // power's list of sample sizes, simulate's number of objects
+        _ => "--" + setting.Replace('_', '-'),
+    };
 
     /// <summary>A note or warning from an inner stage with every setting written as its flag (<see cref="SettingProblem.RenderText"/>).</summary>
     public static string Text(string text) => SettingProblem.RenderText(text, Flag);

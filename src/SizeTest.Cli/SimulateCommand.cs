@@ -1,8 +1,5 @@
 using System.CommandLine;
 using SizeTest.Catalogues;
-using SizeTest.Catalogues.Fits;
-using SizeTest.Catalogues.Text;
-using SizeTest.Catalogues.VoTable;
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Files;
 using SizeTest.Simulation;
@@ -32,37 +29,30 @@ internal static class SimulateCommand
         command.Options.Add(output);
         command.Options.Add(force);
         command.Options.Add(maxMemory);
-        command.SetAction(parse =>
+        context.SetAction(command, parse =>
         {
-            try
-            {
-                int n = parse.GetValue(survey.Count) ?? throw new InputException("--n is required: the number of objects in the catalogue, e.g. --n 2000");
-                long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the catalogue can be reproduced, e.g. --seed 1");
-                string outPath = parse.GetValue(output) ?? throw new InputException("--out is required: the catalogue file, e.g. --out mock.csv");
-                var format = FormatOf(outPath);
-                if (n < 1) throw new InputException($"--n must be at least 1; got {n}");
-                long? limit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
-                // About 240 bytes per object: the mock's columns plus the table written from them (measured in issue 14).
-                ResourceBudget.Check($"a catalogue of {n} objects (--n)", 240.0 * n, limit);
-                string truthPath = outPath + ".truth.json";
-                bool replace = parse.GetValue(force);
-                foreach (var p in new[] { outPath, truthPath })
-                    if (File.Exists(p) && !replace)
-                        throw new InputException("already exists; pass --force to replace it or choose another --out", p);
-                var model = models.Create(parse);
-                var design = survey.Design(parse, n);
-                var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
-                var catalog = MockSurveyGenerator.Generate(spec);
-                Write(catalog, outPath, format);
-                AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalog, Path.GetFileName(outPath), CommandText(parse)));
-                context.Out.WriteLine(FormattableString.Invariant(
-                    $"Wrote {catalog.Count} synthetic {(design.Kind == MockObjectKind.Galaxy ? "galaxies" : "radio sources")} to {outPath} ({format.ToString().ToLowerInvariant()}; drawn {catalog.Drawn}, pass fraction {catalog.PassFraction:G4}) and the truth to {truthPath}."));
-                return ExitCodes.Success;
-            }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            int n = parse.GetValue(survey.Count) ?? throw new InputException("--n is required: the number of objects in the catalogue, e.g. --n 2000");
+            long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the catalogue can be reproduced, e.g. --seed 1");
+            string outPath = parse.GetValue(output) ?? throw new InputException("--out is required: the catalogue file, e.g. --out mock.csv");
+            var format = FormatOf(outPath);
+            if (n < 1) throw new InputException($"--n must be at least 1; got {n}");
+            long? limit = parse.GetValue(maxMemory) is { } mm ? ResourceBudget.ParseSize(mm) : null;
+            // About 240 bytes per object: the mock's columns plus the table written from them (measured in issue 14).
+            ResourceBudget.Check($"a catalogue of {n} objects (--n)", 240.0 * n, limit);
+            string truthPath = outPath + ".truth.json";
+            bool replace = parse.GetValue(force);
+            foreach (var p in new[] { outPath, truthPath })
+                if (File.Exists(p) && !replace)
+                    throw new InputException("already exists; pass --force to replace it or choose another --out", p);
+            var model = models.Create(parse);
+            var design = survey.Design(parse, n);
+            var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
+            var catalog = MockSurveyGenerator.Generate(spec);
+            Write(catalog, outPath, format);
+            AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalog, Path.GetFileName(outPath), CommandText(parse)));
+            context.Out.WriteLine(FormattableString.Invariant(
+                $"Wrote {catalog.Count} synthetic {(design.Kind == MockObjectKind.Galaxy ? "galaxies" : "radio sources")} to {outPath} ({(format == CatalogueFormat.Text ? "csv" : format.ToString().ToLowerInvariant())}; drawn {catalog.Drawn}, pass fraction {catalog.PassFraction:G4}) and the truth to {truthPath}."));
+            return ExitCodes.Success;
         });
         return command;
     }
@@ -71,42 +61,16 @@ internal static class SimulateCommand
     private static string CommandText(ParseResult parse) =>
         "sizetest simulate " + string.Join(' ', parse.Tokens.Skip(1).Select(t => t.Value.Contains(' ') ? $"\"{t.Value}\"" : t.Value));
 
-    private enum OutputFormat { Csv, Fits, VoTable, Parquet }
+    private static CatalogueFormat FormatOf(string path) => CatalogueWriters.FormatOf(path)
+        ?? throw new InputException("--out must end in .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet to choose the format", path);
 
-    private static OutputFormat FormatOf(string path) => Path.GetExtension(path).ToLowerInvariant() switch
-    {
-        ".csv" => OutputFormat.Csv,
-        ".fits" or ".fit" or ".fts" => OutputFormat.Fits,
-        ".vot" or ".votable" or ".xml" => OutputFormat.VoTable,
-        ".parquet" or ".pq" => OutputFormat.Parquet,
-        _ => throw new InputException("--out must end in .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet to choose the format", path),
-    };
-
-    private static void Write(MockCatalogue catalog, string path, OutputFormat format)
+    /// <summary>Writes the mock: angles in arcsec (the default unit), radio sizes in mas where the format carries units (FITS, VOTable).</summary>
+    private static void Write(MockCatalogue catalog, string path, CatalogueFormat format)
     {
         bool radio = catalog.Spec.Design.Kind == MockObjectKind.CompactRadio;
         string name = radio ? "MOCK_RADIO" : "MOCK_GALAXIES";
-        switch (format)
-        {
-            case OutputFormat.Csv:
-                CsvTableWriter.Write(path, catalog.ToTable(name));
-                break;
-            case OutputFormat.Parquet:
-                // Uncompressed, set explicitly: the fastest to read (docs/scaling.md); angles in arcsec (the default unit).
-                SizeTest.Catalogues.Parquet.ParquetTableWriter.Write(path, ParquetColumns(catalog.ToTable(name)),
-                    compression: SizeTest.Catalogues.Parquet.ParquetCompression.None);
-                break;
-            case OutputFormat.Fits:
-                FitsTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio));
-                break;
-            default:
-                VoTableWriter.Write(path, catalog.ToTable(name, thetaInMas: radio), "Synthetic mock catalogue drawn by SizeTest (not an observation); truth in the .truth.json file beside it.");
-                break;
-        }
+        bool unitsInFile = format is CatalogueFormat.Fits or CatalogueFormat.VoTable;
+        CatalogueWriters.Write(path, format, catalog.ToTable(name, thetaInMas: radio && unitsInFile),
+            "Synthetic mock catalogue drawn by SizeTest (not an observation); truth in the .truth.json file beside it.");
     }
-
-    private static List<SizeTest.Catalogues.Parquet.ParquetColumnValues> ParquetColumns(CatalogueTable table) =>
-        table.Columns.Select(c => c.Texts is { } t
-            ? SizeTest.Catalogues.Parquet.ParquetColumnValues.Text(c.Name, t)
-            : SizeTest.Catalogues.Parquet.ParquetColumnValues.Number(c.Name, c.Reals ?? c.Integers!.Select(v => (double)v).ToArray())).ToList();
 }

@@ -26,17 +26,10 @@ internal static class StudyCommands
         cmd.Options.Add(output);
         cmd.Options.Add(limits.Force);
         cmd.Options.Add(limits.MaxMemory);
-        cmd.SetAction(parse =>
+        context.SetAction(cmd, parse =>
         {
-            try
-            {
-                var def = StudyFileParser.Load(parse.GetValue(study)!);
-                return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), limits.Replace(parse), "run", limits.MemoryLimit(parse));
-            }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            var def = StudyFileParser.Load(parse.GetValue(study)!);
+            return Execute(context, def, parse.GetValue(output) ?? Path.Combine("reports", def.Name), limits.Replace(parse), "run", limits.MemoryLimit(parse));
         });
         return cmd;
     }
@@ -48,20 +41,13 @@ internal static class StudyCommands
         var cmd = new Command("demo", $"Run the shipped demo study ({DemoStudy}, synthetic Quillon Deep Field catalogue) and write its report to reports/demo/.");
         cmd.Options.Add(output);
         cmd.Options.Add(force);
-        cmd.SetAction(parse =>
+        context.SetAction(cmd, parse =>
         {
-            try
-            {
-                var root = FindRoot() ?? throw new InputException($"cannot find {DemoStudy} in this folder or any folder above it; run the demo from the SizeTest repository");
-                var path = Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, DemoStudy));
-                var def = StudyFileParser.Load(path);
-                var outDir = parse.GetValue(output) ?? Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, "reports", "demo"));
-                return Execute(context, def, outDir, parse.GetValue(force), "demo");
-            }
-            catch (Exception ex)
-            {
-                return context.Fail(ex);
-            }
+            var root = FindRoot() ?? throw new InputException($"cannot find {DemoStudy} in this folder or any folder above it; run the demo from the SizeTest repository");
+            var path = Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, DemoStudy));
+            var def = StudyFileParser.Load(path);
+            var outDir = parse.GetValue(output) ?? Path.GetRelativePath(Directory.GetCurrentDirectory(), Path.Combine(root, "reports", "demo"));
+            return Execute(context, def, outDir, parse.GetValue(force), "demo");
         });
         return cmd;
     }

@@ -13,8 +13,7 @@ namespace SizeTest.Cli;
 /// </summary>
 internal sealed class SurveyCliOptions
 {
-    private static Option<double?> Number(string name, string description) =>
-        new(name) { Description = description, CustomParser = WorldModelOptions.NumberParser };
+    private static Option<double?> Number(string name, string description) => CliOptions.Number(name, description);
 
     public Option<bool> SizeLuminosity { get; } = new("--size-luminosity") { Description = "Size and joint observables: R = R0 (L/L_pivot)^β (1+z)^a with L from each world model's own D_L (parameter size_luminosity_slope); radio: ℓ = ℓ_m L^β (1+z)^n from flux_density." };
     public Option<bool> SizeMass { get; } = new("--size-mass") { Description = "Size and joint observables: R = R0 (M*/M_pivot)^β (1+z)^a from the log_mass column, scaled to each world model by (D_L/D_L,ref)²." };

@@ -36,18 +36,9 @@ internal sealed record DarkEnergyParameters(double H0, double OmegaM, double Ome
     {
         error = Check(model, h0, om, ode, w0, wa, t, nEff);
         if (error is not null) return null;
-        double r = PhysicalConstants.RadiationDensity(t, nEff, h0);
-        double de = ode ?? 1.0 - om - r;
-        var values = new Dictionary<string, double>
-        {
-            [WorldModelParameters.H0.Name] = h0,
-            [WorldModelParameters.OmegaMatter.Name] = om,
-            [WorldModelParameters.OmegaLambda.Name] = de,
-            [WorldModelParameters.W0.Name] = w0,
-        };
-        if (includeWa) values[WorldModelParameters.Wa.Name] = wa;
-        values[WorldModelParameters.CmbTemperature.Name] = t;
-        values[WorldModelParameters.EffectiveNeutrinoSpecies.Name] = nEff;
-        return new DarkEnergyParameters(h0, om, r, de, w0, wa, ode is null, values);
+        var d = includeWa
+            ? FlrwDensities.Resolve(h0, om, ode, t, nEff, (WorldModelParameters.W0.Name, w0), (WorldModelParameters.Wa.Name, wa))
+            : FlrwDensities.Resolve(h0, om, ode, t, nEff, (WorldModelParameters.W0.Name, w0));
+        return new DarkEnergyParameters(h0, om, d.OmegaRadiation, d.OmegaDarkEnergy, w0, wa, ode is null, d.Values);
     }
 }

@@ -64,16 +64,7 @@ public sealed class LambdaCdmModel : FlrwModel
     private static Resolved Resolve(double h0, double om, double? ol, double t, double nEff)
     {
         if (Check(h0, om, ol, t, nEff) is { } error) throw new ArgumentException(error);
-        double r = PhysicalConstants.RadiationDensity(t, nEff, h0);
-        double l = ol ?? 1.0 - om - r;
-        var values = new Dictionary<string, double>
-        {
-            [WorldModelParameters.H0.Name] = h0,
-            [WorldModelParameters.OmegaMatter.Name] = om,
-            [WorldModelParameters.OmegaLambda.Name] = l,
-            [WorldModelParameters.CmbTemperature.Name] = t,
-            [WorldModelParameters.EffectiveNeutrinoSpecies.Name] = nEff,
-        };
-        return new Resolved(h0, om, r, l, ol is null, values);
+        var d = FlrwDensities.Resolve(h0, om, ol, t, nEff);
+        return new Resolved(h0, om, d.OmegaRadiation, d.OmegaDarkEnergy, ol is null, d.Values);
     }
 }

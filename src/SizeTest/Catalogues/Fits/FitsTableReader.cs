@@ -245,7 +245,7 @@ internal sealed class FitsTableReader : ICatalogueReader
                 }
                 case 'E' or 'D':
                 {
-                    double v = f.Code == 'E' ? BinaryPrimitives.ReadSingleBigEndian(cell) : BinaryPrimitives.ReadDoubleBigEndian(cell);
+                    double v = BigEndianCell.Real(cell, f.Code == 'E' ? 4 : 8);
                     if (double.IsNaN(v)) { buf.SetNull(r); break; }
                     v = zero + scale * v;
                     if (asText) buf.SetText(r, v.ToString("R", CultureInfo.InvariantCulture)); else buf.SetNumber(r, v);
@@ -253,13 +253,7 @@ internal sealed class FitsTableReader : ICatalogueReader
                 }
                 default:
                 {
-                    long raw = f.Code switch
-                    {
-                        'B' => cell[0],
-                        'I' => BinaryPrimitives.ReadInt16BigEndian(cell),
-                        'J' => BinaryPrimitives.ReadInt32BigEndian(cell),
-                        _ => BinaryPrimitives.ReadInt64BigEndian(cell),
-                    };
+                    long raw = BigEndianCell.Integer(cell, f.Code switch { 'B' => 1, 'I' => 2, 'J' => 4, _ => 8 });
                     if (f.Null is long tnull && raw == tnull) { buf.SetNull(r); break; }
                     if (asText)
                         buf.SetText(r, f.IsScaled

@@ -481,18 +481,12 @@ internal sealed class VoTableReader : ICatalogueReader
             // astropy 5.2 writes a true scalar bit as 0x08. Any set bit reads as true.
             case "bit": v = cell[0] != 0 ? 1 : 0; break;
             case "float" or "double":
-                v = f.Datatype == "float" ? BinaryPrimitives.ReadSingleBigEndian(cell) : BinaryPrimitives.ReadDoubleBigEndian(cell);
+                v = BigEndianCell.Real(cell, f.Datatype == "float" ? 4 : 8);
                 if (double.IsNaN(v) || (_nullReals[col] is double nr && v == nr)) { buf.SetNull(row); return; }
                 break;
             default:
             {
-                long raw = f.Datatype switch
-                {
-                    "unsignedByte" => cell[0],
-                    "short" => BinaryPrimitives.ReadInt16BigEndian(cell),
-                    "int" => BinaryPrimitives.ReadInt32BigEndian(cell),
-                    _ => BinaryPrimitives.ReadInt64BigEndian(cell),
-                };
+                long raw = BigEndianCell.Integer(cell, f.Datatype switch { "unsignedByte" => 1, "short" => 2, "int" => 4, _ => 8 });
                 if (_nullInts[col] is long ni && raw == ni) { buf.SetNull(row); return; }
                 if (asText) { buf.SetText(row, raw.ToString(CultureInfo.InvariantCulture)); return; }
                 v = raw;

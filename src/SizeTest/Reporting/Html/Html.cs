@@ -10,6 +10,12 @@ public static partial class Html
     /// <summary>HTML-escapes text.</summary>
     public static string Text(string s) => WebUtility.HtmlEncode(s);
 
+    /// <summary>Appends one escaped <c>&lt;li&gt;</c> line per item (the list's own tags are the caller's).</summary>
+    public static void Items(StringBuilder sb, IEnumerable<string> items)
+    {
+        foreach (var item in items) sb.Append("<li>").Append(Text(item)).Append("</li>\n");
+    }
+
     /// <summary>Appends a table with a caption.</summary>
     public static void Table(StringBuilder sb, ReportTable t)
     {

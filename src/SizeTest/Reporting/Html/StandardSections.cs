@@ -16,7 +16,7 @@ public sealed class VerdictSection : IHtmlSection
     {
         Html.Table(html, content.Table("summary"));
         html.Append("<ul class=\"verdict\">\n");
-        foreach (var c in content.Conclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+        Html.Items(html, content.Conclusions);
         html.Append("</ul>\n");
     }
 }
@@ -77,12 +77,12 @@ public sealed class ConclusionsSection : IHtmlSection
     {
         Html.Table(html, content.Table("evolution-tests"));
         html.Append("<div class=\"pair\">\n<div class=\"conclusions\"><h3>What the tests say</h3><ul>\n");
-        foreach (var c in ReportConclusions.Statements(content.Data)) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+        Html.Items(html, ReportConclusions.Statements(content.Data));
         html.Append("</ul>\n");
         if (content.Data.ExtraConclusions.Count > 0)
         {
             html.Append("<h3>Notes</h3><ul>\n");
-            foreach (var c in content.Data.ExtraConclusions) html.Append("<li>").Append(Html.Text(c)).Append("</li>\n");
+            Html.Items(html, content.Data.ExtraConclusions);
             html.Append("</ul>\n");
         }
         html.Append("</div>\n<div class=\"assumptions\"><h3>Assumptions</h3><dl>\n");
