@@ -48,15 +48,17 @@ public sealed class StudySurveyTableTests : IDisposable
         return d;
     }
 
-    [Fact]
-    public void ASurveyTableGivesTheSameNumbersAsTheCommandLine()
+    [Theory]
+    [InlineData("size")]
+    [InlineData("joint")]
+    public void ASurveyTableGivesTheSameNumbersAsTheCommandLine(string observable)
     {
         var cat = Mock();
         var fitOut = Path.Combine(_dir, "fit");
-        var fit = CliRunner.Run("fit", cat, "--models", "lcdm,static-linear", "--observable", "size", "--size-luminosity", "--group", "group",
+        var fit = CliRunner.Run("fit", cat, "--models", "lcdm,static-linear", "--observable", observable, "--size-luminosity", "--group", "group",
             "--pivot-abs-mag", "-20.5", "--starts", "1", "--cv-folds", "0", "--seed", "1", "--out", fitOut);
         Assert.True(fit.Exit == 0, fit.Err);
-        File.WriteAllText(Path.Combine(_dir, "sv.toml"), """
+        File.WriteAllText(Path.Combine(_dir, "sv.toml"), $$"""
             name = "sv"
             seed = 1
             [catalogue]
@@ -64,7 +66,7 @@ public sealed class StudySurveyTableTests : IDisposable
             synthetic = true
             [models]
             names = ["lcdm", "static-linear"]
-            observable = "size"
+            observable = "{{observable}}"
             [survey]
             size_relation = "luminosity"
             pivot_abs_mag = -20.5
@@ -82,6 +84,7 @@ public sealed class StudySurveyTableTests : IDisposable
         // Both must carry the per-group survey parameters (names NAME@GROUP) and β.
         Assert.Contains("lcdm.size_evolution@early", a.Keys);
         Assert.Contains("lcdm.size_luminosity_slope@late", a.Keys);
+        if (observable == "joint") Assert.Contains("static-linear.sb_evolution@early", a.Keys); // each group's own b in joint fits
         Assert.Equal(a.Keys.Order(StringComparer.Ordinal), b.Keys.Order(StringComparer.Ordinal));
         foreach (var (k, v) in a) Assert.True(v == b[k], $"{k}: fit {v:R}, run {b[k]:R}");
     }

@@ -119,6 +119,10 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             notes.Add("photometric redshifts (" + (_joint ? "joint" : "surface brightness") + "): at each redshift node the dimming 2.5 (n − b) log10(1+z)" +
                       (_joint ? ", D_A" : "") + (_rows.HasLuminosity ? ", the luminosities" : "") + (_cut is not null ? " and the selection truncation" : "") +
                       " move with z; K-corrections and extinctions are held at the catalogue's values.");
+        if (_joint && _hasLum)
+            notes.Add("size–luminosity relation in the joint fit: the sizes are conditional on each object's luminosity, the surface brightnesses " +
+                      "are not (their mean is μ0 + 2.5 (n − b) log10(1+z) + K + A, plus κ times the relation's mean size). Where μ and the luminosity " +
+                      "come from one photometry, μ = m + 5 log10 θ + const is fixed by them, which this model does not use; the size fit with the relation does not have this issue.");
         Notes = notes;
     }
 
