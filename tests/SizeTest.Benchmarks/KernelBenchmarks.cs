@@ -55,15 +55,14 @@ public class KernelBenchmarks
     }
 }
 
-/// <summary>The scalar reference and the compressed (sufficient-statistics) evaluation at 10^6 objects, for comparison.</summary>
+/// <summary>The scalar reference and the vectorised evaluation at 10^6 objects, for comparison.</summary>
 [SimpleJob(RunStrategy.Monitoring, launchCount: 1, warmupCount: 2, iterationCount: 10)]
 public class KernelReferenceBenchmarks
 {
     private KernelColumns _columns = null!;
-    private SufficientStatistics _stats = null!;
     private double[] _model = null!;
 
-    /// <summary>Builds 10^6 SYNTHETIC rows and their statistics (32 variance classes).</summary>
+    /// <summary>Builds 10^6 SYNTHETIC rows.</summary>
     [GlobalSetup]
     public void Setup()
     {
@@ -72,8 +71,6 @@ public class KernelReferenceBenchmarks
         var z = new double[n]; var y = new double[n]; var e = new double[n];
         SyntheticKernelRows.Fill(1, 0, z, y, e);
         _columns = KernelColumns.Build(z, y, e, grid);
-        _stats = new SufficientStatistics(grid, 32, 0.05 * 0.05, 0.15 * 0.15 * 1.0000001);
-        _stats.Add(_columns, 0, n);
         _model = new double[grid.Count];
         AngularSizeModelGrid.FillFromDistances(grid, grid.Nodes.Select(SyntheticKernelRows.EdsAngularDiameterDistanceMpc).ToArray(), Math.Log(5), -1, _model);
     }
@@ -85,8 +82,4 @@ public class KernelReferenceBenchmarks
     /// <summary>Vectorised, one thread.</summary>
     [Benchmark]
     public double VectorisedOneThread() => GaussianGridKernel.LogLikelihood(_columns, 0, _columns.Count, _model, 0.2);
-
-    /// <summary>Compressed statistics (2047 cells × 32 classes).</summary>
-    [Benchmark]
-    public double SufficientStatisticsEvaluation() => _stats.LogLikelihood(_model, 0.2);
 }

@@ -1,6 +1,7 @@
 using System.Text;
 using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
+using SizeTest.Tests.Cli;
 using Xunit;
 
 namespace SizeTest.Tests.Hardening;

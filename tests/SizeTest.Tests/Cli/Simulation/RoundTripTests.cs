@@ -1,9 +1,8 @@
 using SizeTest.Inference;
 using SizeTest.Tests.Catalogues;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Simulation;
+namespace SizeTest.Tests.Cli.Simulation;
 
 /// <summary>simulate → fit through the real CLI and files recovers the truth.</summary>
 public sealed class RoundTripTests

@@ -1,9 +1,8 @@
 using SizeTest.Cli;
 using SizeTest.Foundation.Errors;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Issue 14 point 10: <c>--z 0:1:1e-300</c> said it "needs a positive step" (1e-300 rounds to a decimal 0).</summary>
 public sealed class RedshiftStepTests

@@ -1,9 +1,9 @@
+using SizeTest.Tests.Distributed;
 using System.Text.Json;
 using SizeTest.Distributed;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Distributed;
+namespace SizeTest.Tests.Cli.Distributed;
 
 /// <summary>
 /// Rank-count invariance of the distributed likelihood (issue 8): 1, 2 and 4 Open MPI ranks (oversubscribed on

@@ -3,7 +3,7 @@ using System.Text;
 using SizeTest.Tests.Inference;
 using SizeTest.Foundation.Angles;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Synthetic catalogues (mock EdS draws, invented objects) and byte-exact folder snapshots.</summary>
 internal static class HardeningData

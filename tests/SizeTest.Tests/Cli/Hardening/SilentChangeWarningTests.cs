@@ -1,10 +1,9 @@
 using System.Globalization;
 using System.Text.Json;
 using SizeTest.Catalogues;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>
 /// Issue 14 points 8 and 9, re-checked: a wrong angular unit (<c>--col theta=theta:deg</c> on arcsec values) and

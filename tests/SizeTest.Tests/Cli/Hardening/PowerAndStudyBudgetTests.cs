@@ -1,8 +1,7 @@
-using SizeTest.Tests.Cli;
 using SizeTest.Tests.Studies;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>
 /// Issue 14 point 5: <c>power --mocks 2e9</c>, a huge power <c>--n</c>, and study files with huge starts or bootstrap

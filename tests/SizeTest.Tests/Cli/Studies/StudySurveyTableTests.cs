@@ -1,10 +1,9 @@
 using System.Text.Json;
 using SizeTest.Foundation.Errors;
 using SizeTest.Studies;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Studies;
+namespace SizeTest.Tests.Cli.Studies;
 
 /// <summary>
 /// The study file's <c>[survey]</c> table is the same request as fit's survey options: a study and the equivalent

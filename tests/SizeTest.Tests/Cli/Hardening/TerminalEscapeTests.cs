@@ -1,9 +1,8 @@
 using SizeTest.Foundation.Text;
 using SizeTest.Tests.Catalogues;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Issue 14 point 10: terminal escape sequences from a file's header never reach the terminal raw.</summary>
 public sealed class TerminalEscapeTests

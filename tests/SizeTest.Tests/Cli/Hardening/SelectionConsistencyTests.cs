@@ -5,10 +5,9 @@ using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
 using SizeTest.Inference;
 using SizeTest.Photometry;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Issue 14 point 2: objects that break a stated cut are rejected before the fit, or the fit is refused.</summary>
 public sealed class SelectionConsistencyTests : IDisposable

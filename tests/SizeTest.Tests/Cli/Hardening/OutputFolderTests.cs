@@ -1,9 +1,8 @@
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Files;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>
 /// Issue 14 point 1 and 4: SizeTest replaces only folders and files it wrote, never an input, and two runs on

@@ -2,7 +2,7 @@ using System.Diagnostics;
 using System.Runtime.InteropServices;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli;
 
 /// <summary>
 /// Runs <c>dotnet sizetest.dll …</c> as a real process (own working directory, signals, peak memory),

@@ -3,7 +3,7 @@ using System.Diagnostics;
 using System.Text.Json;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>
 /// Issue 14 point 4 with real processes: two <c>sizetest fit</c> processes started together on one <c>--out</c>.

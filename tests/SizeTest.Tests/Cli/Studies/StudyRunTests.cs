@@ -1,10 +1,10 @@
+using SizeTest.Tests.Studies;
 using System.Globalization;
 using System.Text.Json;
 using SizeTest.Studies;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Studies;
+namespace SizeTest.Tests.Cli.Studies;
 
 public sealed class StudyRunTests
 {

@@ -1,10 +1,9 @@
 using System.Text.Json;
 using SizeTest.Catalogues;
 using SizeTest.Tests.Catalogues;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Simulation;
+namespace SizeTest.Tests.Cli.Simulation;
 
 /// <summary>The committed demo catalogues are reproduced by the commands in their truth files and READMEs.</summary>
 public sealed class DemoCatalogueTests

@@ -1,8 +1,7 @@
 using System.Diagnostics;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Issue 14 point 7: an interrupted run (SIGINT, SIGTERM) leaves nothing staged and the previous output intact.</summary>
 public sealed class InterruptTests : IDisposable

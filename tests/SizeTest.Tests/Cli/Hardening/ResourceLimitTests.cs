@@ -1,10 +1,9 @@
 using System.Text;
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Files;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Hardening;
+namespace SizeTest.Tests.Cli.Hardening;
 
 /// <summary>Issue 14 points 5, 6, 10 and 11: memory is estimated before allocation, text lines are capped, inputs give exit 2.</summary>
 public sealed class ResourceLimitTests : IDisposable

@@ -1,11 +1,11 @@
+using SizeTest.Tests.Inference;
 using System.Globalization;
 using System.Text;
 using SizeTest.Inference;
-using SizeTest.Tests.Cli;
 using Xunit;
 using SizeTest.Foundation.Angles;
 
-namespace SizeTest.Tests.Inference;
+namespace SizeTest.Tests.Cli.Inference;
 
 /// <summary><c>--steps auto</c> (the default): the ensemble sampler runs in blocks until the convergence rules hold
 /// (≥ 50 τ, split-R̂ ≤ 1.01, ESS ≥ 400: <see cref="SizeTest.Inference.Sampling.ConvergenceCriteria"/>) or --max-steps.</summary>

@@ -1,8 +1,8 @@
+using SizeTest.Tests.Distributed;
 using System.Text.Json;
-using SizeTest.Tests.Cli;
 using Xunit;
 
-namespace SizeTest.Tests.Distributed;
+namespace SizeTest.Tests.Cli.Distributed;
 
 /// <summary>`mpirun -np N sizetest fit …` against the single-process `sizetest fit` of the same catalogue.</summary>
 public sealed class MpiFitCommandTests : IDisposable
