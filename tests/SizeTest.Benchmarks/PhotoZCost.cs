@@ -9,7 +9,8 @@ namespace SizeTest.Benchmarks;
 
 /// <summary>
 /// Issue 12 target: photometric-redshift marginalisation costs ≤ 3× the spectroscopic fit.
-/// <c>dotnet run -c Release --project tests/SizeTest.Benchmarks -- --photoz-cost [N] [REPEATS]</c> (defaults 2000, 5): draws one
+/// <c>dotnet run -c Release --project tests/SizeTest.Benchmarks -- --photoz-cost [N] [REPEATS] [size|sb|joint]</c> (defaults 2000, 5,
+/// size; sb and joint fit the same mocks' surface brightnesses too): draws one
 /// ΛCDM mock of N galaxies, z_true uniform on [0.3, 2], σ_z = 0.08 (1+z), 5% log-normal size errors (the design of the photo-z
 /// tests), and times the maximum-likelihood fit (Ωm free, Bind + MaximumLikelihood.Fit) three ways, the median of REPEATS
 /// runs each after one warm-up: the same mock's catalogue with z taken as exact (--ignore-z-err), the same with z marginalised
@@ -26,15 +27,22 @@ public static class PhotoZCost
         int n = args.Length > 0 ? int.Parse(args[0], inv) : 2000;
         int repeats = args.Length > 1 ? int.Parse(args[1], inv) : 5;
         if (n < 10 || repeats < 1) throw new ArgumentException("--photoz-cost N REPEATS: N ≥ 10, REPEATS ≥ 1");
+        var observable = args.Length > 2 ? args[2] switch
+        {
+            "size" => ObservableKind.Size,
+            "sb" => ObservableKind.SurfaceBrightness,
+            "joint" => ObservableKind.Joint,
+            _ => throw new ArgumentException("--photoz-cost N REPEATS OBSERVABLE: the observable is size, sb or joint"),
+        } : ObservableKind.Size;
         var model = new LambdaCdmModel(70, 0.3);
         var photo = Draw(model, n, 31, 0.08).ToObservables();
         var spec = Draw(model, n, 31, 0.0).ToObservables();
         var marg = new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2);
 
-        var s = Time(spec, null, repeats);
-        var i = Time(photo, null, repeats);
-        var m = Time(photo, marg, repeats);
-        o.WriteLine(FormattableString.Invariant($"photo-z cost, N = {n}, median of {repeats} fits (ΛCDM, Ωm free), {Environment.ProcessorCount} cores:"));
+        var s = Time(spec, null, repeats, observable);
+        var i = Time(photo, null, repeats, observable);
+        var m = Time(photo, marg, repeats, observable);
+        o.WriteLine(FormattableString.Invariant($"photo-z cost, N = {n}, median of {repeats} fits (ΛCDM, observable {observable}), {Environment.ProcessorCount} cores:"));
         Line(o, "spectroscopic mock (σ_z = 0)", s);
         Line(o, "photo-z mock, z taken as exact", i);
         Line(o, "photo-z mock, z marginalised", m);
@@ -45,7 +53,7 @@ public static class PhotoZCost
         foreach (int j in new[] { 3, 5, 7, 9 })
         {
             string what = FormattableString.Invariant($"  marginalised, {j} z nodes");
-            try { Line(o, what, Time(photo, marg with { RedshiftNodes = j }, repeats)); }
+            try { Line(o, what, Time(photo, marg with { RedshiftNodes = j }, repeats, observable)); }
             catch (InvalidOperationException ex) { o.WriteLine($"  {what,-32} {ex.Message}"); }
         }
     }
@@ -60,9 +68,9 @@ public static class PhotoZCost
         return MockSurveyGenerator.Generate(new MockSurveySpec(model, design, seed, null, null, null), parallel: false);
     }
 
-    private static (double Seconds, int Evaluations, double PerEval) Time(Observables obs, SurveyModel? survey, int repeats)
+    private static (double Seconds, int Evaluations, double PerEval) Time(Observables obs, SurveyModel? survey, int repeats, ObservableKind observable)
     {
-        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size, Survey: survey));
+        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(observable, Survey: survey));
         var times = new double[repeats];
         int evals = 0;
         for (int r = -1; r < repeats; r++)

@@ -67,18 +67,24 @@ public sealed class DistributedFitStudyTests : IDisposable
         }
     }
 
-    [Fact]
-    public void SurveyTermsWithTheSharedGridAddUpToTheWholeLikelihood()
+    [Theory]
+    [InlineData(ObservableKind.Size)]
+    [InlineData(ObservableKind.Joint)]
+    [InlineData(ObservableKind.SurfaceBrightness)]
+    public void SurveyTermsWithTheSharedGridAddUpToTheWholeLikelihood(ObservableKind observable)
     {
-        // Photo-z marginalisation (prior = the whole sample's range), the size–luminosity relation and a minimum size, free Ωm:
-        // per-object sums whose grid and prior come from the shared span, so any split adds up to the whole.
+        // Photo-z marginalisation (prior = the whole sample's range), the size–luminosity relation and a minimum size, free Ωm
+        // (surface brightness: photo-z and an SB limit): per-object sums whose grid and prior come from the shared span, so any split
+        // adds up to the whole.
         var mock = MockSurveyGenerator.Generate(new MockSurveySpec(new LambdaCdmModel(70, 0.3),
             new SurveyDesign(2000, UniformZ(0.2, 2), MockObjectKind.Galaxy, new MeasurementErrors(0.05, PhotoZError: 0.04), new MockSelection(MinThetaArcsec: 0.3)),
             5, null, null, new SurveyPopulation(new SchechterLuminosityFunction(), SizeLuminositySlope: 0.3)), parallel: false);
         var obs = mock.ToObservables();
-        var sv = new SizeTest.Inference.Survey.SurveyModel(SizeTest.Inference.Survey.SizeRelationKind.Luminosity, MarginaliseRedshift: true);
-        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(ObservableKind.Size, new SelectionLimits(MinThetaArcsec: 0.3), Survey: sv),
-            new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
+        bool sb = observable == ObservableKind.SurfaceBrightness;
+        var sv = new SizeTest.Inference.Survey.SurveyModel(sb ? SizeTest.Inference.Survey.SizeRelationKind.None : SizeTest.Inference.Survey.SizeRelationKind.Luminosity,
+            MarginaliseRedshift: true);
+        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(observable, sb ? new SelectionLimits(SbLimit: 24) : new SelectionLimits(MinThetaArcsec: 0.3), Survey: sv),
+            sb ? null : new ParameterOverrides(Free: new HashSet<string> { "omega_m" }));
         var span = new RedshiftGridSpan(obs.Z.Min(), obs.Z.Max(), obs.Count);
         var theta = h.Bind(obs).SuggestStart();
         double expected = new HypothesisLikelihood(h, obs, span).LogDensity(theta);

@@ -21,6 +21,15 @@ public sealed class SurveyJointRecoveryTests(Xunit.Abstractions.ITestOutputHelpe
     private static Hypothesis LcdmHypothesis(NuisanceModel nuisance, ParameterOverrides? overrides = null) =>
         Hypothesis.Create(global::SizeTest.Cosmology.WorldModels.LambdaCdm, nuisance, overrides);
 
+    // The flat-ΛCDM fit (Ωm fixed) of one observable with these survey terms (null: none).
+    private static ModelFitSummary FitLcdm(ObservableKind kind, Observables obs, SurveyModel? survey)
+    {
+        var lik = LcdmHypothesis(new NuisanceModel(kind, Survey: survey)).Bind(obs);
+        var fit = MaximumLikelihood.Fit(lik);
+        Assert.True(fit.Converged, fit.ExitReason.Text);
+        return FitSummaries.From(lik, fit);
+    }
+
     private static double Reference(string key)
     {
         var path = Path.Combine(AppContext.BaseDirectory, "Reference", "Inference", "photoz_sb_joint_marginal.txt");
@@ -79,18 +88,28 @@ public sealed class SurveyJointRecoveryTests(Xunit.Abstractions.ITestOutputHelpe
         // z_true uniform on [0.3, 2] (the stated flat prior), σ_z = 0.05 (1+z), μ_err 0.1, s_μ = 0.3, b = 1 (GalaxyPopulation defaults).
         // Errors in log10(1+z) attenuate the fitted Tolman slope 2.5 (n − b) by var(ℓ)/(var(ℓ) + (0.05/ln10)²) ≈ 0.97: b ≈ 1.1.
         var obs = Draw(Lcdm, 4000, 41, "uniform:0.3:2", errors: new Mock.MeasurementErrors(0.05, MuErrorMag: 0.1, PhotoZError: 0.05)).ToObservables();
-        ModelFitSummary FitSb(SurveyModel? sv)
-        {
-            var lik = LcdmHypothesis(new NuisanceModel(ObservableKind.SurfaceBrightness, Survey: sv)).Bind(obs);
-            var fit = MaximumLikelihood.Fit(lik);
-            Assert.True(fit.Converged, fit.ExitReason.Text);
-            return FitSummaries.From(lik, fit);
-        }
-        var b0 = Est(FitSb(null), "sb_evolution");
-        var b1 = Est(FitSb(new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2)), "sb_evolution");
+        var b0 = Est(FitLcdm(ObservableKind.SurfaceBrightness, obs, null), "sb_evolution");
+        var b1 = Est(FitLcdm(ObservableKind.SurfaceBrightness, obs, new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2)), "sb_evolution");
         output.WriteLine($"z exact: b = {b0.Value:F3} [{b0.Lo:F3}, {b0.Hi:F3}]; marginalised: b = {b1.Value:F3} [{b1.Lo:F3}, {b1.Hi:F3}]");
         Assert.False(Within(b0, 1.0, 3), $"taking z as exact should bias b: {b0.Value}");
         Assert.True(Within(b1, 1.0, 2), $"marginalised b = {b1.Value}");
+    }
+
+    [Fact]
+    public void IgnoringRedshiftErrorsBiasesTheJointFitAndMarginalisingRemovesIt()
+    {
+        // Joint (ln θ, μ) mock, z_true uniform on [0.3, 2], σ_z = 0.05 (1+z), a = −1, b = 1 (GalaxyPopulation defaults), Ωm fixed.
+        var obs = Draw(Lcdm, 4000, 43, "uniform:0.3:2", errors: new Mock.MeasurementErrors(0.05, MuErrorMag: 0.1, PhotoZError: 0.05)).ToObservables();
+        var exact = FitLcdm(ObservableKind.Joint, obs, null);
+        var marg = FitLcdm(ObservableKind.Joint, obs, new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2));
+        foreach (var (name, truth) in new[] { ("size_evolution", -1.0), ("sb_evolution", 1.0) })
+        {
+            var e0 = Est(exact, name);
+            var e1 = Est(marg, name);
+            output.WriteLine($"{name}: z exact {e0.Value:F3} [{e0.Lo:F3}, {e0.Hi:F3}]; marginalised {e1.Value:F3} [{e1.Lo:F3}, {e1.Hi:F3}] (truth {truth})");
+            Assert.True(Within(e1, truth, 2), $"marginalised {name} = {e1.Value}");
+        }
+        Assert.False(Within(Est(exact, "sb_evolution"), 1.0, 3), "taking z as exact should bias b");
     }
 
     private static readonly (string Name, Mock.GalaxyPopulation Truth)[] Groups =
