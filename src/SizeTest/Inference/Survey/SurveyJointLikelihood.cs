@@ -200,14 +200,31 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 continue;
             }
             double max = double.NegativeInfinity;
-            for (int j = 0; j < J; j++)
+            if (!_joint && _cut is null)
             {
-                int q = i * J + j;
-                if (double.IsNegativeInfinity(rows.NodeLogWeight[q])) { lp[j] = double.NegativeInfinity; continue; }
-                lnDaj[j] = _joint ? (rows.NodeLnDaFixed is not null ? rows.NodeLnDaFixed[q] : rows.NodeLnZ[q] + rows.NodeGrid!.Interpolate(e.GridLnDaOverZ, q)) : 0;
-                lp[j] = rows.NodeLogWeight[q] + PointLogDensity(i, lnR0[q0], mu0[q0], G, kap, dimming, eExp, rows.NodeLn1pZ[q], lnDaj[j],
-                    rows.HasLuminosity ? rows.NodeLuminosityBase[q] : 0, adj is not null, out pj[j]);
-                if (lp[j] > max) max = lp[j];
+                // Surface brightness without a cut: the variance, and so its logarithm, is the same at every node of the object.
+                double vs = _cols.VarMu[i] + G.Sm * G.Sm, inv = 1 / vs, c0 = -0.5 * Math.Log(vs) - HalfLn2Pi;
+                double mBase = mu0[q0] + _cols.Correction[i], slope = 2.5 * (dimming - G.B) / Ln10;
+                for (int j = 0; j < J; j++)
+                {
+                    int q = i * J + j;
+                    double r = _cols.Mu[i] - (mBase + slope * rows.NodeLn1pZ[q]);
+                    lp[j] = rows.NodeLogWeight[q] - 0.5 * r * r * inv + c0; // −∞ for a dropped node
+                    if (lp[j] > max) max = lp[j];
+                    if (adj is not null) pj[j] = new Partials { Dm = r * inv, Dvm = 0.5 * (r * r * inv * inv - inv) };
+                }
+            }
+            else
+            {
+                for (int j = 0; j < J; j++)
+                {
+                    int q = i * J + j;
+                    if (double.IsNegativeInfinity(rows.NodeLogWeight[q])) { lp[j] = double.NegativeInfinity; continue; }
+                    lnDaj[j] = _joint ? (rows.NodeLnDaFixed is not null ? rows.NodeLnDaFixed[q] : rows.NodeLnZ[q] + rows.NodeGrid!.Interpolate(e.GridLnDaOverZ, q)) : 0;
+                    lp[j] = rows.NodeLogWeight[q] + PointLogDensity(i, lnR0[q0], mu0[q0], G, kap, dimming, eExp, rows.NodeLn1pZ[q], lnDaj[j],
+                        rows.HasLuminosity ? rows.NodeLuminosityBase[q] : 0, adj is not null, out pj[j]);
+                    if (lp[j] > max) max = lp[j];
+                }
             }
             if (double.IsNegativeInfinity(max)) return double.NegativeInfinity;
             double sum = 0;
