@@ -19,8 +19,8 @@ internal static class FitCommand
     public static Command Create(CliContext context)
     {
         var command = new Command("fit", "Fit world models to a catalogue's angular sizes and/or surface brightnesses, rank them and report the evolution each needs.");
-        var catalog = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
-        var catalogOptions = new CatalogueOptions();
+        var catalogue = new Argument<string>("CATALOG") { Description = "Catalogue file (CSV, whitespace text, FITS BINTABLE or VOTable)." };
+        var catalogueOptions = new CatalogueOptions();
         var photometryOptions = new PhotometryCliOptions();
         var surveyOptions = new SurveyCliOptions();
         var choice = new CandidateModelOptions($"Comma-separated world models ({string.Join(", ", WorldModels.Names)}).",
@@ -52,8 +52,8 @@ internal static class FitCommand
         var nodes = new Option<int>("--grid-nodes") { Description = "Redshift-grid nodes for D_A (16–1024; 0 = automatic: 48 below 20 000 objects, 96 above).", DefaultValueFactory = _ => 0 };
         var output = new Option<string>("--out") { Description = "Output folder.", Required = true };
         var format = CliOptions.Format();
-        command.Arguments.Add(catalog);
-        catalogOptions.AddTo(command);
+        command.Arguments.Add(catalogue);
+        catalogueOptions.AddTo(command);
         photometryOptions.AddTo(command);
         surveyOptions.AddTo(command);
         foreach (var o in new Option[] { choice.Models, observable, relation, pivot, dimOffset, choice.Free, choice.Fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, limits.MaxMemory, expect, nodes, limits.Force, output, format })
@@ -94,9 +94,9 @@ internal static class FitCommand
             if (samplerName == SamplerKind.Mcmc)
                 foreach (var h in hypotheses.Where(h => h.K > 0))
                     SizeTest.Inference.Sampling.ChainMemory.Check(nWalkers, nSteps > 0 ? nSteps : nMax, h.K, SizeTest.Inference.Sampling.ChainMemory.DefaultBudgetBytes);
-            var inputs = new List<string> { parse.GetValue(catalog)! };
+            var inputs = new List<string> { parse.GetValue(catalogue)! };
             var photometry = photometryOptions.ToOptions(parse, inputs) with { Luminosity = luminosity };
-            var loadOptions = catalogOptions.ToLoadOptions(parse);
+            var loadOptions = catalogueOptions.ToLoadOptions(parse);
             if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
                 loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
             if (SizeTest.Distributed.RankContext.IsDistributed && surveyRequest.NeedsWholeSample(parse.GetValue(surveyOptions.Group) is not null) is { Count: > 0 } whole)
@@ -108,7 +108,7 @@ internal static class FitCommand
                 CheckNames(overrides, expected, families, nm, profileName);
                 return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
             }, whole);
-            return FitRunner.Run(context, new FitArgs(parse.GetValue(catalog)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, SurveyTerms = surveyRequest, MaxOutsideSelection = parse.GetValue(maxOutside) });
+            return FitRunner.Run(context, new FitArgs(parse.GetValue(catalogue)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, SurveyTerms = surveyRequest, MaxOutsideSelection = parse.GetValue(maxOutside) });
         });
         return command;
     }

@@ -15,14 +15,14 @@ internal static class InspectCommand
 {
     public static Command Create(CliContext context)
     {
-        var catalog = new Argument<string>("catalog") { Description = "The catalogue file (CSV/TSV/text, FITS binary table or VOTable)." };
+        var catalogue = new Argument<string>("catalog") { Description = "The catalogue file (CSV/TSV/text, FITS binary table or VOTable)." };
         var cat = new CatalogueOptions();
         var phot = new PhotometryCliOptions();
         var format = CliOptions.Format();
         var rejectLog = new Option<string?>("--reject-log") { Description = "Write the rejected rows (row,column,value,reason,detail) to this CSV file." };
         var force = new Option<bool>("--force") { Description = "Replace an existing reject log." };
         var cmd = new Command("inspect", "Show how a catalogue is read: format, columns, column mapping, accepted and rejected rows, per-role statistics.");
-        cmd.Arguments.Add(catalog);
+        cmd.Arguments.Add(catalogue);
         cat.AddTo(cmd);
         phot.AddTo(cmd);
         cmd.Options.Add(format);
@@ -30,7 +30,7 @@ internal static class InspectCommand
         cmd.Options.Add(force);
         context.SetAction(cmd, parse =>
         {
-            var path = parse.GetValue(catalog)!;
+            var path = parse.GetValue(catalogue)!;
             var logPath = parse.GetValue(rejectLog);
             bool overwrite = parse.GetValue(force);
             if (logPath is not null)

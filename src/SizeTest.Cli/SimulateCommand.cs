@@ -47,11 +47,11 @@ internal static class SimulateCommand
             var model = models.Create(parse);
             var design = survey.Design(parse, n);
             var spec = new MockSurveySpec(model, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
-            var catalog = MockSurveyGenerator.Generate(spec);
-            Write(catalog, outPath, format);
-            AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalog, Path.GetFileName(outPath), CommandText(parse)));
+            var catalogue = MockSurveyGenerator.Generate(spec);
+            Write(catalogue, outPath, format);
+            AtomicFile.WriteAllText(truthPath, MockTruthJson.Serialize(catalogue, Path.GetFileName(outPath), CommandText(parse)));
             context.Out.WriteLine(FormattableString.Invariant(
-                $"Wrote {catalog.Count} synthetic {(design.Kind == MockObjectKind.Galaxy ? "galaxies" : "radio sources")} to {outPath} ({(format == CatalogueFormat.Text ? "csv" : format.ToString().ToLowerInvariant())}; drawn {catalog.Drawn}, pass fraction {catalog.PassFraction:G4}) and the truth to {truthPath}."));
+                $"Wrote {catalogue.Count} synthetic {(design.Kind == MockObjectKind.Galaxy ? "galaxies" : "radio sources")} to {outPath} ({(format == CatalogueFormat.Text ? "csv" : format.ToString().ToLowerInvariant())}; drawn {catalogue.Drawn}, pass fraction {catalogue.PassFraction:G4}) and the truth to {truthPath}."));
             return ExitCodes.Success;
         });
         return command;
@@ -65,12 +65,12 @@ internal static class SimulateCommand
         ?? throw new InputException("--out must end in .csv, .fits (.fit, .fts), .vot (.votable, .xml) or .parquet to choose the format", path);
 
     /// <summary>Writes the mock: angles in arcsec (the default unit), radio sizes in mas where the format carries units (FITS, VOTable).</summary>
-    private static void Write(MockCatalogue catalog, string path, CatalogueFormat format)
+    private static void Write(MockCatalogue catalogue, string path, CatalogueFormat format)
     {
-        bool radio = catalog.Spec.Design.Kind == MockObjectKind.CompactRadio;
+        bool radio = catalogue.Spec.Design.Kind == MockObjectKind.CompactRadio;
         string name = radio ? "MOCK_RADIO" : "MOCK_GALAXIES";
         bool unitsInFile = format is CatalogueFormat.Fits or CatalogueFormat.VoTable;
-        CatalogueWriters.Write(path, format, catalog.ToTable(name, thetaInMas: radio && unitsInFile),
+        CatalogueWriters.Write(path, format, catalogue.ToTable(name, thetaInMas: radio && unitsInFile),
             "Synthetic mock catalogue drawn by SizeTest (not an observation); truth in the .truth.json file beside it.");
     }
 }

@@ -20,14 +20,14 @@ namespace SizeTest.Simulation;
 /// </remarks>
 public static class MockTruthJson
 {
-    /// <summary>Serialises the truth of <paramref name="catalog"/>.</summary>
-    /// <param name="catalog">The drawn catalogue.</param>
-    /// <param name="catalogFile">File name of the catalogue it describes (for the record), or null.</param>
+    /// <summary>Serialises the truth of <paramref name="catalogue"/>.</summary>
+    /// <param name="catalogue">The drawn catalogue.</param>
+    /// <param name="catalogueFile">File name of the catalogue it describes (for the record), or null.</param>
     /// <param name="command">The command line that made it, or null.</param>
-    public static string Serialize(MockCatalogue catalog, string? catalogFile = null, string? command = null)
+    public static string Serialize(MockCatalogue catalogue, string? catalogueFile = null, string? command = null)
     {
-        ArgumentNullException.ThrowIfNull(catalog);
-        var spec = catalog.Spec;
+        ArgumentNullException.ThrowIfNull(catalogue);
+        var spec = catalogue.Spec;
         var design = spec.Design;
         using var stream = new MemoryStream();
         using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
@@ -36,7 +36,7 @@ public static class MockTruthJson
             w.WriteNumber("schema_version", 1);
             w.WriteBoolean("synthetic", true);
             w.WriteString("note", "synthetic mock catalogue drawn by SizeTest; not an observation");
-            if (catalogFile is not null) w.WriteString("catalog", catalogFile);
+            if (catalogueFile is not null) w.WriteString("catalog", catalogueFile);
             if (command is not null) w.WriteString("command", command);
             w.WriteNumber("seed", spec.Seed);
             w.WriteStartObject("random");
@@ -135,18 +135,18 @@ public static class MockTruthJson
             w.WriteString("selection_mode", "applied to observed values; objects drawn until n pass");
             w.WriteEndObject();
             w.WriteStartObject("outcome");
-            w.WriteNumber("drawn", catalog.Drawn);
-            w.WriteNumber("passed", catalog.Count);
-            Number(w, "pass_fraction", catalog.PassFraction);
-            w.WriteNumber("failed_sb_limit", catalog.FailedSbLimit);
-            w.WriteNumber("failed_mag_limit", catalog.FailedMagLimit);
-            w.WriteNumber("failed_min_size", catalog.FailedMinSize);
+            w.WriteNumber("drawn", catalogue.Drawn);
+            w.WriteNumber("passed", catalogue.Count);
+            Number(w, "pass_fraction", catalogue.PassFraction);
+            w.WriteNumber("failed_sb_limit", catalogue.FailedSbLimit);
+            w.WriteNumber("failed_mag_limit", catalogue.FailedMagLimit);
+            w.WriteNumber("failed_min_size", catalogue.FailedMinSize);
             w.WriteEndObject();
-            if (catalog.ZErr is not null)
+            if (catalogue.ZErr is not null)
             {
                 // Photometric redshifts: the true redshift of every catalogue row, in row order.
                 w.WriteStartArray("z_true");
-                foreach (var z in catalog.ZTrue) w.WriteNumberValue(z);
+                foreach (var z in catalogue.ZTrue) w.WriteNumberValue(z);
                 w.WriteEndArray();
             }
             w.WriteEndObject();

@@ -140,8 +140,8 @@ public static class PowerAnalysis
     private static MockOutcome FitMock(PowerRequest request, int n, int mock, long seed, int trueIndex)
     {
         var spec = request.Template with { Seed = seed, Design = request.Template.Design with { Count = n } };
-        var catalog = MockSurveyGenerator.Generate(spec, parallel: false);
-        var obs = catalog.ToObservables();
+        var catalogue = MockSurveyGenerator.Generate(spec, parallel: false);
+        var obs = catalogue.ToObservables();
         var bic = new double[request.Candidates.Count];
         bool converged = true;
         IReadOnlyList<ParameterEstimate> estimates = [];

@@ -30,19 +30,11 @@ public sealed partial class InnerStageMessageTests
 
     /// <summary>The (1-based line, flag, literal) of each flag inside a string literal of <paramref name="source"/>; comment
     /// lines are skipped. (A literal interrupted by a nested literal of an interpolation is checked in its pieces.)</summary>
-    internal static List<(int Line, string Flag, string Literal)> FlagsInLiterals(string source)
-    {
-        var found = new List<(int, string, string)>();
-        var lines = source.Split('\n');
-        for (int i = 0; i < lines.Length; i++)
-        {
-            if (lines[i].TrimStart().StartsWith("//", StringComparison.Ordinal)) continue;
-            foreach (Match lit in StringLiteral().Matches(lines[i]))
-                foreach (Match f in Flag().Matches(lit.Groups[1].Value))
-                    found.Add((i + 1, f.Value, lit.Groups[1].Value));
-        }
-        return found;
-    }
+    internal static List<(int Line, string Flag, string Literal)> FlagsInLiterals(string source) =>
+        [.. from l in VocabularyTests.CodeLines(source)
+            from Match lit in StringLiteral().Matches(l.Text)
+            from Match f in Flag().Matches(lit.Groups[1].Value)
+            select (l.Line, f.Value, lit.Groups[1].Value)];
 
     [Fact]
     public void NoLibraryStringNamesACommandLineFlag()

@@ -34,18 +34,15 @@ public sealed partial class VocabularyTests
 
     /// <summary>The (1-based line, name) of each string literal in <paramref name="source"/> that is exactly a parameter
     /// name; comment lines (<c>//</c>, <c>///</c>) are skipped.</summary>
-    internal static List<(int Line, string Name)> ParameterNameLiterals(string source)
-    {
-        var found = new List<(int, string)>();
-        var lines = source.Split('\n');
-        for (int i = 0; i < lines.Length; i++)
-        {
-            if (lines[i].TrimStart().StartsWith("//", StringComparison.Ordinal)) continue;
-            foreach (Match m in StringLiteral().Matches(lines[i]))
-                if (ParameterNames.Contains(m.Groups[1].Value)) found.Add((i + 1, m.Groups[1].Value));
-        }
-        return found;
-    }
+    internal static List<(int Line, string Name)> ParameterNameLiterals(string source) =>
+        [.. from l in CodeLines(source)
+            from Match m in StringLiteral().Matches(l.Text)
+            where ParameterNames.Contains(m.Groups[1].Value)
+            select (l.Line, m.Groups[1].Value)];
+
+    /// <summary>The (1-based number, text) of each line of <paramref name="source"/> that is not a comment line (<c>//</c>, <c>///</c>).</summary>
+    internal static IEnumerable<(int Line, string Text)> CodeLines(string source) =>
+        source.Split('\n').Select((text, i) => (i + 1, text)).Where(l => !l.text.TrimStart().StartsWith("//", StringComparison.Ordinal));
 
     private static IEnumerable<(string Relative, string Text)> SourceFiles()
     {
@@ -93,13 +90,46 @@ public sealed partial class VocabularyTests
         Assert.Equal([(3, "size_evolution"), (5, "mu0")], found);
     }
 
+    [GeneratedRegex("\"(?:[^\"\\\\]|\\\\.)*\"")]
+    private static partial Regex AnyStringLiteral();
+
+    [GeneratedRegex(@"\b\w*[Cc]atalog(?!ue)\w*\b")]
+    private static partial Regex CatalogIdentifier();
+
+    /// <summary>The (1-based line, word) of each identifier spelt "catalog" rather than "catalogue" in <paramref name="source"/>:
+    /// string literals and comment lines are skipped (file formats and flags such as <c>--catalog-format</c> keep their text).</summary>
+    internal static List<(int Line, string Word)> CatalogSpellings(string source) =>
+        [.. from l in CodeLines(source)
+            from Match m in CatalogIdentifier().Matches(AnyStringLiteral().Replace(l.Text, "\"\""))
+            select (l.Line, m.Value)];
+
+    [Fact]
+    public void OneSpellingOfCatalogueInIdentifiers()
+    {
+        var offenders = SourceFiles()
+            .SelectMany(f => CatalogSpellings(f.Text).Select(x => $"{f.Relative}:{x.Line} {x.Word}"))
+            .ToList();
+        Assert.True(offenders.Count == 0, "identifiers spelt 'catalog' (write catalogue):\n" + string.Join("\n", offenders));
+    }
+
+    [Fact]
+    public void TheSpellingFinderSkipsStringsAndComments()
+    {
+        // A test of the test: an identifier is seen; a flag or file name in a string and a comment are not.
+        const string code = """
+            // the catalog in a comment
+            var catalogFile = new Option<string?>("--catalog-format");
+            var catalogue = Load("demo-catalogs/x.csv");
+            """;
+        Assert.Equal([(2, "catalogFile")], CatalogSpellings(code));
+    }
+
     [GeneratedRegex(@"\bnew\s+(System\.)?Random\s*\(|\bRandom\.Shared\b|\bRandom\s+\w+\s*=\s*new\s*\(")]
     private static partial Regex RandomConstruction();
 
     /// <summary>The 1-based lines of <paramref name="source"/> that make a <see cref="Random"/> (comments skipped).</summary>
     internal static List<int> RandomConstructions(string source) =>
-        source.Split('\n').Select((l, i) => (l, i)).Where(x => !x.l.TrimStart().StartsWith("//", StringComparison.Ordinal) && RandomConstruction().IsMatch(x.l))
-            .Select(x => x.i + 1).ToList();
+        CodeLines(source).Where(l => RandomConstruction().IsMatch(l.Text)).Select(l => l.Line).ToList();
 
     [Fact]
     public void OneSeededRandomSource()
