@@ -18,6 +18,7 @@ internal static class StudySettingKeys
         "max_outside_selection" => "selection.max_outside_fraction",
         "col" => "[columns]",
         "size_def" => "catalogue.size_definition",
+        "z_marginal" => "survey.z_marginal",
         "expect" => "[expected]",
         _ => setting,
     };

@@ -58,11 +58,36 @@ public sealed class SurveyOptionsCliTests : IDisposable
         var m = Model(json, "lcdm");
         foreach (var g in new[] { "early", "late" })
             for (int k = 1; k <= 3; k++) Assert.True(Param(m, $"r0_kpc_bin{k}@{g}") > 0);
-        Assert.Contains("Gauss", json, StringComparison.Ordinal);               // the photo-z quadrature is stated
+        Assert.Contains("linearised marginal", json, StringComparison.Ordinal); // the photo-z marginal is stated
         var (code2, _, err2, dir2) = Fit(mock, "--group", "group", "--ignore-z-err", "--fix", "size_evolution@early=-1.5");
         Assert.True(code2 == 0, err2);
         var m2 = Model(File.ReadAllText(Path.Combine(dir2, "results.json")), "lcdm");
         Assert.Equal(-1.5, Param(m2, "size_evolution@early"));
+    }
+
+    [Fact]
+    public void ThePhotometricRedshiftMarginalIsLinearisedByDefaultAndQuadratureOnRequest()
+    {
+        var mock = Simulate("--photoz-err", "0.03", "--z-dist", "uniform:0.3:2");
+        var (code, _, err, dir) = Fit(mock, "--z-prior", "0.3:2");
+        Assert.True(code == 0, err);
+        var json = File.ReadAllText(Path.Combine(dir, "results.json"));
+        Assert.Contains("linearised marginal (--z-marginal linear", json, StringComparison.Ordinal); // the note names the flag
+        Assert.DoesNotContain("-point Gauss", json, StringComparison.Ordinal);
+        var (code2, _, err2, dir2) = Fit(mock, "--z-prior", "0.3:2", "--z-marginal", "quadrature");
+        Assert.True(code2 == 0, err2);
+        var json2 = File.ReadAllText(Path.Combine(dir2, "results.json"));
+        Assert.Contains("-point Gauss", json2, StringComparison.Ordinal);
+        // 800 objects, σ_z = 0.03(1+z): the linearised a lies within a tenth of the quadrature's 68% half-width (the 2000-object
+        // comparison is PhotometricRedshiftTests.LinearisedAndQuadratureMarginalsAgreeOnAPhotometricMock).
+        var (lin, quad) = (Model(json, "lcdm"), Model(json2, "lcdm"));
+        var pq = quad.GetProperty("parameters").GetProperty("size_evolution");
+        double half = 0.5 * (pq.GetProperty("hi").GetDouble() - pq.GetProperty("lo").GetDouble());
+        Assert.True(Math.Abs(Param(lin, "size_evolution") - Param(quad, "size_evolution")) <= 0.1 * half);
+        // sb and joint integrate by quadrature only: their default, and an explicit linear is refused (exit 2).
+        var (code3, _, err3, _) = Fit(mock, "--observable", "joint", "--z-marginal", "linear");
+        Assert.Equal(2, code3);
+        Assert.Contains("--z-marginal linear is built for --observable size only", err3, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -94,6 +119,7 @@ public sealed class SurveyOptionsCliTests : IDisposable
     [InlineData("--abs-mag-range", "-20:-23", "LO must be below HI")]
     [InlineData("--abs-mag-range", "bright", "must be LO:HI")]
     [InlineData("--z-prior", "1:x", "must be LO:HI")]
+    [InlineData("--z-marginal", "cubic", "quadrature")]
     [InlineData("--ref-cosmology", "70", "must be H0:OMEGA_M")]
     public void BadSurveyOptionsExitWithTwo(string option, string value, string message)
     {
@@ -131,7 +157,7 @@ public sealed class SurveyOptionsCliTests : IDisposable
         lines[6] = string.Join(',', Edit(lines[6], exact: false));
         string path = _t.PathOf("prior.csv");
         File.WriteAllLines(path, lines);
-        var (code, o, err, dir) = Fit(path, "--z-prior", "0.05:3");
+        var (code, o, err, dir) = Fit(path, "--z-prior", "0.05:3", "--z-marginal", "quadrature");
         Assert.True(code == 0, err);
         Assert.Contains("300 rows read, 299 accepted, 1 rejected", o, StringComparison.Ordinal);
         Assert.Contains("1 z_prior", err, StringComparison.Ordinal);
@@ -151,7 +177,7 @@ public sealed class SurveyOptionsCliTests : IDisposable
         using var doc = JsonDocument.Parse(json);
         var notes = doc.RootElement.GetProperty("notes").EnumerateArray().Select(n => n.GetString()!).ToList();
         Assert.Contains(notes, n => n.Contains("minimum size: each object's density is divided by P(θ_obs > 0.4″ | z)", StringComparison.Ordinal)
-                                    && n.Contains("at every redshift node of the photo-z integral", StringComparison.Ordinal));
+                                    && n.Contains("with the linearised photo-z variance", StringComparison.Ordinal));
         // β = 0.3 injected; ±0.1 is loose for 800 objects (see MagnitudeLimitedSimulationFitsWithTheSizeLuminosityRelation).
         Assert.InRange(Param(Model(json, "lcdm"), "size_luminosity_slope"), 0.2, 0.4);
     }

@@ -80,6 +80,8 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         string own = (_joint ? "R0, a, scatter_dex" + (_hasLum ? ", β" : "") + ", " : "") + "mu0, b, scatter_mag";
         // Surface brightness alone has no distances: the photo-z nodes need no grid stencils.
         _rows = new SurveyRows(h, o, own, fixedCosmology: !_joint || _lnDaFixed is not null, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+        if (_rows.MarginalisesRedshift && _rows.Marginal == RedshiftMarginal.Linear)
+            throw new InvalidOperationException("the sb/joint survey kernel integrates photometric redshifts by quadrature only (SurveyModel.Validate refuses z_marginal linear there)");
         _groups = _rows.GroupCount;
         _bins = _rows.BinCount;
 

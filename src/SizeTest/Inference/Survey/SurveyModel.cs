@@ -19,6 +19,7 @@ namespace SizeTest.Inference.Survey;
 /// <param name="AbsMagMax">Keep objects with M ≤ this (fainter end); null = open.</param>
 /// <param name="RedshiftPriorMin">Lower end of the flat redshift prior of the photo-z marginalisation (null: the sample's lowest z).</param>
 /// <param name="RedshiftPriorMax">Upper end of that prior (null: the sample's highest z).</param>
+/// <param name="ZMarginal">How each object is integrated over its redshift: quadrature or the linearised (effective-variance) marginal.</param>
 public sealed record SurveyModel(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -30,7 +31,8 @@ public sealed record SurveyModel(
     double? AbsMagMin = null,
     double? AbsMagMax = null,
     double? RedshiftPriorMin = null,
-    double? RedshiftPriorMax = null)
+    double? RedshiftPriorMax = null,
+    RedshiftMarginal ZMarginal = RedshiftMarginal.Quadrature)
 {
     /// <summary>Nothing beyond the basic size model.</summary>
     public static SurveyModel None { get; } = new();
@@ -65,6 +67,8 @@ public sealed record SurveyModel(
         if (!IsActive) return;
         if (observable == ObservableKind.SurfaceBrightness && Relation != SizeRelationKind.None)
             throw SettingProblem.Exception([new("the size–luminosity and size–mass relations need a size model: fit them with {observable} size or joint, not sb (drop {size_luminosity} / {size_mass})")]);
+        if (observable != ObservableKind.Size && MarginaliseRedshift && ZMarginal == RedshiftMarginal.Linear)
+            throw SettingProblem.Exception([new("{z_marginal} linear is built for {observable} size only; sb and joint fits integrate photometric redshifts by quadrature (drop {z_marginal} linear)")]);
         if (observable != ObservableKind.Size && SizeErrors == SizeErrorKind.Gaussian)
             throw SettingProblem.Exception([new("{size_errors} gaussian is built for {observable} size only; fit sb or joint with the log-normal size errors (drop {size_errors} gaussian)")]);
         if (EvolutionBinEdges is { } e)

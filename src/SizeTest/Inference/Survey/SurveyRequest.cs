@@ -17,6 +17,9 @@ namespace SizeTest.Inference.Survey;
 /// <param name="AbsMagMax">Luminosity window, faint end (null: open).</param>
 /// <param name="RedshiftPriorMin">Flat redshift prior's lower end for photo-z marginalisation (null: the sample's range).</param>
 /// <param name="RedshiftPriorMax">Its upper end.</param>
+/// <param name="ZMarginal">Null for the default: the linearised marginal for the size observable (over 200 mocks of the design
+/// its 68% intervals of a cover 69.0%, mean bias +0.010 against a half-width of 0.106), the quadrature for sb and joint, whose kernel
+/// integrates by quadrature only (setting <c>z_marginal</c>).</param>
 public sealed record SurveyRequest(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -27,7 +30,8 @@ public sealed record SurveyRequest(
     double? AbsMagMin = null,
     double? AbsMagMax = null,
     double? RedshiftPriorMin = null,
-    double? RedshiftPriorMax = null)
+    double? RedshiftPriorMax = null,
+    RedshiftMarginal? ZMarginal = null)
 {
     /// <summary>Most redshift bins of binned evolution.</summary>
     public const int MaxEvolutionBins = 50;
@@ -50,6 +54,13 @@ public sealed record SurveyRequest(
             return true;
         }
         return false;
+    }
+
+    /// <summary>Reads <c>quadrature</c> or <c>linear</c> (fit's z_marginal setting); false (and null) for any other text.</summary>
+    public static bool TryParseZMarginal(string? text, out RedshiftMarginal? marginal)
+    {
+        marginal = text switch { "linear" => RedshiftMarginal.Linear, "quadrature" => RedshiftMarginal.Quadrature, _ => null };
+        return marginal is not null;
     }
 
     /// <summary>Nothing asked.</summary>
@@ -83,7 +94,7 @@ public sealed record SurveyRequest(
         if (!marginalise && observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
-            AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax);
+            AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax, ZMarginal ?? (observable == ObservableKind.Size ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature));
     }
 
     /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped and not ignored. Every observable

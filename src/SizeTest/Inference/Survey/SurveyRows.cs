@@ -80,6 +80,20 @@ internal sealed class SurveyRows
     /// <summary>The nodes' stencils on the redshift grid (free cosmology; null otherwise).</summary>
     public RedshiftGrid? NodeGrid { get; }
 
+    /// <summary>How objects are integrated over redshift (<see cref="RedshiftMarginal.Linear"/>: no nodes; the slope terms below instead).</summary>
+    public RedshiftMarginal Marginal { get; }
+
+    /// <summary>Linearised marginal: the variance s² of each object's redshift posterior (empty otherwise). Its one node
+    /// (<see cref="NodesPerObject"/> = 1, log weight 0) sits at the posterior mean z̄.</summary>
+    public double[] RedshiftVariance { get; } = [];
+
+    /// <summary>Linearised marginal, fixed cosmology: d ln D_A/d z at z̄ (central difference of the model's D_A, step 10⁻⁴ z).</summary>
+    public double[]? LnDaSlopeFixed { get; }
+
+    /// <summary>Linearised marginal, free cosmology: 4 weights per object on its node's stencil in <see cref="NodeGrid"/> giving
+    /// d(ln D_A − ln z)/d z at z̄ (<see cref="RedshiftGridSlope"/>).</summary>
+    public double[]? SlopeWeights { get; }
+
     /// <summary>Notes for the results.</summary>
     public IReadOnlyList<string> Notes { get; }
 
@@ -170,11 +184,13 @@ internal sealed class SurveyRows
 
         // --- photometric redshifts
         MarginalisesRedshift = sv.MarginaliseRedshift;
+        Marginal = sv.ZMarginal;
+        bool linear = Marginal == RedshiftMarginal.Linear;
         if (MarginalisesRedshift)
         {
             var zErr = o.Survey.ZErr ?? throw new InputException("photometric-redshift marginalisation needs a 'z_err' column");
             var gh = new GaussHermite(sv.RedshiftNodes);
-            int J = sv.RedshiftNodes;
+            int J = linear ? 1 : sv.RedshiftNodes;
             NodesPerObject = J;
             NodeLn1pZ = new double[n * J];
             NodeLnZ = new double[n * J];
@@ -183,7 +199,14 @@ internal sealed class SurveyRows
             var nodeZ = new double[n * J];
             GaussLegendre? gl = null;
             int truncated = 0;
-            for (int i = 0; i < n; i++)
+            if (linear) RedshiftVariance = LinearisedCentres(o.Z, zErr, priorMinZ, priorMaxZ, nodeZ, out truncated);
+            for (int i = 0; i < n && linear; i++)
+            {
+                NodeLn1pZ[i] = Math.Log(1 + nodeZ[i]);
+                NodeLnZ[i] = Math.Log(nodeZ[i]);
+                if (LuminosityBase is not null) NodeLuminosityBase[i] = LuminosityBase[i] - LuminosityZSlope * (NodeLn1pZ[i] - Ln1pZ[i]);
+            }
+            for (int i = 0; i < n && !linear; i++)
             {
                 double sum = 0;
                 for (int j = 0; j < J; j++)
@@ -229,10 +252,68 @@ internal sealed class SurveyRows
             }
             else
                 NodeGrid = new RedshiftGrid(nodeZ, grid!.Nodes.Length, gridMinZ, gridMaxZ);
+            if (linear)
+            {
+                if (fixedCosmology) LnDaSlopeFixed = LnDaSlope(startModel, nodeZ);
+                else SlopeWeights = RedshiftGridSlope.Weights(NodeGrid!, nodeZ);
+                notes.Add(FormattableString.Invariant($"photometric redshifts: linearised marginal ({{z_marginal}} linear; effective variance, Clutton-Brock 1967, Orear 1982): ln θ ~ N(m(z̄), σ_i² + σ² + (∂m/∂z)² s²) with z̄, s² the mean and variance of the object's redshift posterior N(z; z_obs, z_err²) on the flat prior [{priorMinZ:G4}, {priorMaxZ:G4}] (z_obs and z_err² where the prior keeps all but 10⁻¹² of the Gaussian) and ∂m/∂z at z̄ from each world model's own distances; {{z_marginal}} quadrature integrates exactly."));
+            }
+            else
+            {
             notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
             if (truncated > 0)
                 notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
+            }
         }
         Notes = notes;
+    }
+
+    // Linearised marginal: each object's redshift posterior N(z; z_obs, σ²) on the flat prior [lo, hi] summarised by its mean (written to
+    // centre) and variance (returned): z_obs and σ² where the prior keeps all but 10⁻¹² of the Gaussian, else the truncated normal's
+    // moments by 32-point Gauss–Legendre on its window (TruncatedRedshiftNodes); counted in cut.
+    internal static double[] LinearisedCentres(double[] z, double[] zErr, double lo, double hi, double[] centre, out int cut)
+    {
+        var variance = new double[z.Length];
+        var gl = new GaussLegendre(32);
+        Span<double> zk = stackalloc double[32], lw = stackalloc double[32];
+        cut = 0;
+        for (int i = 0; i < z.Length; i++)
+        {
+            double s = zErr[i];
+            centre[i] = z[i];
+            variance[i] = s * s;
+            if (!(hi > lo))
+            {
+                // A prior of one redshift (a sample or share of one distinct z, with the default prior): the posterior is that z.
+                centre[i] = lo;
+                variance[i] = 0;
+                cut++;
+                continue;
+            }
+            if (!(s > 0) || NormalMath.Phi((hi - z[i]) / s) - NormalMath.Phi((lo - z[i]) / s) > 1 - 1e-12) continue;
+            cut++;
+            TruncatedRedshiftNodes.Fill(z[i], s, Math.Max(lo, 0), hi, gl, zk, lw);
+            double mean = 0, m2 = 0;
+            for (int k = 0; k < 32; k++) mean += Math.Exp(lw[k]) * zk[k];
+            for (int k = 0; k < 32; k++) m2 += Math.Exp(lw[k]) * (zk[k] - mean) * (zk[k] - mean);
+            centre[i] = mean;
+            variance[i] = m2;
+        }
+        return variance;
+    }
+
+    // d ln D_A/dz at z under a fixed model: central difference with step 10⁻⁴ z (relative error ~10⁻⁹).
+    private static double[] LnDaSlope(IWorldModel model, double[] z)
+    {
+        int n = z.Length;
+        var zp = new double[n];
+        var zm = new double[n];
+        for (int i = 0; i < n; i++) { zp[i] = z[i] * (1 + 1e-4); zm[i] = z[i] * (1 - 1e-4); }
+        var dp = ModelLuminosity.LnLuminosityDistances(model, zp);
+        var dm = ModelLuminosity.LnLuminosityDistances(model, zm);
+        double e = ModelLuminosity.DistanceExponent(model);
+        var slope = new double[n];
+        for (int i = 0; i < n; i++) slope[i] = (dp[i] - dm[i] - e * (Math.Log(1 + zp[i]) - Math.Log(1 + zm[i]))) / (zp[i] - zm[i]);
+        return slope;
     }
 }

@@ -28,7 +28,12 @@ namespace SizeTest.Inference.Survey;
 /// z_ij = z_obs + √2 σ_z x_j; nodes outside the prior range are dropped and the rest renormalised. D_A at the nodes comes from the
 /// same redshift grid (its nodes are computed once per parameter vector; fixed cosmology: exact per node). The luminosity of
 /// flux-density objects is re-evaluated at each node (flux and magnitudes held fixed, K and A at the catalogue's values).
-/// Log-normal errors without a size cut run on the block-vectorised <see cref="RedshiftQuadratureKernel"/>.</para>
+/// Log-normal errors without a size cut run on the block-vectorised <see cref="RedshiftQuadratureKernel"/>.
+/// <see cref="RedshiftMarginal.Linear"/> instead evaluates each object once, at the mean z̄ of its redshift posterior under the prior
+/// (<see cref="SurveyRows.LinearisedCentres"/>), with the scatter σ replaced by √(σ² + m′² s²), s² that posterior's variance and
+/// m′ = ∂m/∂z = (a + 2βe − βs_C)/(1+z̄) + (2β − 1) ∂ln D_A/∂z (s_C = ∂C/∂ln(1+z); ∂ln D_A/∂z from the grid interpolant's derivative,
+/// <see cref="RedshiftGridSlope"/>): the effective-variance method (Clutton-Brock 1967; Orear 1982, Am. J. Phys. 50, 912). Its gradient
+/// chains ∂ℓ/∂σ_eff through σ and m′ (a, β, e and the grid nodes).</para>
 /// <para>Each object's log density is multiplied by its weight; objects outside the luminosity window get weight 0. The window is
 /// evaluated once, with each world model's start (or fixed) parameters.</para>
 /// </remarks>
@@ -100,7 +105,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             _truncated = true;
             notes.Add(FormattableString.Invariant($"minimum size: each object's density is divided by P(θ_obs > {tMin:G4}″ | z) under the same size model (") +
                 (sv.SizeErrors == SizeErrorKind.Gaussian ? "Gaussian errors: ∫ Φ((e^u − θ_min)/σ_θ) N(u; m, σ²) du" : "log-normal: Φ((m − ln θ_min)/√(σ_i² + σ²))") +
-                (sv.MarginaliseRedshift ? ", at every redshift node of the photo-z integral" : "") + ").");
+                (sv.MarginaliseRedshift ? sv.ZMarginal == RedshiftMarginal.Linear ? ", with the linearised photo-z variance" : ", at every redshift node of the photo-z integral" : "") + ").");
         }
 
         // --- size errors
@@ -134,6 +139,16 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _nodeLumBase = rows.NodeLuminosityBase;
         _nodeLnDaFixed = rows.NodeLnDaFixed;
         _nodeGrid = rows.NodeGrid;
+        _linear = _photoZ && rows.Marginal == RedshiftMarginal.Linear;
+        if (_linear)
+        {
+            _zErr2 = rows.RedshiftVariance;
+            _inv1pz = rows.NodeLn1pZ.Select(x => Math.Exp(-x)).ToArray();
+            _invZ = rows.NodeLnZ.Select(x => Math.Exp(-x)).ToArray();
+            _lnDaSlopeFixed = rows.LnDaSlopeFixed;
+            _slopeWeights = rows.SlopeWeights;
+            _lumZSlope = rows.LuminosityZSlope;
+        }
         notes.AddRange(rows.Notes);
 
         // --- parameter indices
@@ -155,7 +170,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         }
 
         // Log-normal errors without a size cut: the block-vectorised quadrature.
-        if (_photoZ && !_gaussian && !_truncated)
+        if (_photoZ && !_linear && !_gaussian && !_truncated)
         {
             var cell = new int[_n];
             for (int i = 0; i < _n; i++) cell[i] = _group[i] * _bins + _bin[i];
@@ -166,6 +181,12 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     }
 
     private readonly RedshiftQuadratureKernel? _quadrature;
+    // Linearised photo-z marginal (one node per object, at its posterior mean z̄): the posterior variance s², 1/(1+z̄), 1/z̄,
+    // d ln D_A/dz at z̄ (fixed cosmology) or its weights on the node grid, ∂C/∂ln(1+z).
+    private readonly bool _linear;
+    private readonly double[] _zErr2 = [], _inv1pz = [], _invZ = [];
+    private readonly double[]? _lnDaSlopeFixed, _slopeWeights;
+    private readonly double _lumZSlope;
 
     /// <inheritdoc/>
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) => Accumulate(e, start, end, null);
@@ -206,16 +227,30 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             if (w == 0) continue;
             int g = _group[i], q0 = g * _bins + _bin[i];
             double r0 = lnR0[q0], ag = a[g], bg = beta[g], sg = sig[g];
-            if (!_photoZ)
+            if (!_photoZ || _linear)
             {
-                double lnDa = _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + _grid!.Interpolate(e.GridLnDaOverZ, i);
-                double c = _lumBase?[i] ?? 0;
-                double li = PointLogDensity(i, r0, ag, bg, sg, eExp, _ln1pz[i], lnDa, c, out double dm, out double ds);
+                var grid = _linear ? _nodeGrid : _grid;
+                double ln1pz = _linear ? _nodeLn1pz[i] : _ln1pz[i];
+                double lnDa = _linear
+                    ? _nodeLnDaFixed is not null ? _nodeLnDaFixed[i] : _nodeLnz[i] + grid!.Interpolate(e.GridLnDaOverZ, i)
+                    : _lnDaFixed is not null ? _lnDaFixed[i] : _lnz[i] + grid!.Interpolate(e.GridLnDaOverZ, i);
+                double c = _hasLum ? _linear ? _nodeLumBase[i] : _lumBase![i] : 0;
+                // Linearised photo-z: the scatter becomes √(σ² + m′² z_err²) with m′ = ∂m/∂z at z_obs (see the remarks).
+                double slope = 0, lnDaSlope = 0, sUse = sg;
+                if (_linear)
+                {
+                    lnDaSlope = _lnDaSlopeFixed is not null ? _lnDaSlopeFixed[i] : _invZ[i] + GridSlope(e.GridLnDaOverZ!, i);
+                    slope = (ag + 2 * bg * eExp - bg * _lumZSlope) * _inv1pz[i] + (2 * bg - 1) * lnDaSlope;
+                    sUse = Math.Sqrt(sg * sg + slope * slope * _zErr2[i]);
+                }
+                double li = PointLogDensity(i, r0, ag, bg, sUse, eExp, ln1pz, lnDa, c, out double dm, out double ds);
                 acc += w * li;
                 if (adj is not null)
                 {
-                    AddPartials(direct!, v, g, q0, w * dm, w * ds, _ln1pz[i], lnDa, c, bg, eExp);
-                    if (nodeA is not null) ScatterNodes(nodeA, _grid!, i, -w * dm * (2 * bg - 1));
+                    double k = _linear && sUse > 0 ? ds / sUse : 0;
+                    AddPartials(direct!, v, g, q0, w * dm, w * (_linear ? k * sg : ds), ln1pz, lnDa, c, bg, eExp);
+                    if (nodeA is not null) ScatterNodes(nodeA, grid!, i, -w * dm * (2 * bg - 1));
+                    if (_linear) AddSlopePartials(direct!, nodeA, i, g, w * k * slope * _zErr2[i], bg, eExp, lnDaSlope);
                 }
             }
             else
@@ -266,6 +301,36 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         }
         if (_hasLum) Add(direct, _iLumExp, dExp);
         return value;
+    }
+
+    // d(ln D_A − ln z)/dz at object i's z̄ from the grid's node values (RedshiftGridSlope's weights on its node's stencil).
+    private double GridSlope(double[] g, int i)
+    {
+        int j = _nodeGrid!.Index[i], k = 4 * i;
+        var w = _slopeWeights!;
+        return w[k] * g[j] + w[k + 1] * g[j + 1] + w[k + 2] * g[j + 2] + w[k + 3] * g[j + 3];
+    }
+
+    // ∂ℓ/∂m′ = dSlope into the parameters m′ = (a + 2βe − βs)/(1+z) + (2β − 1) d ln D_A/dz depends on (s = ∂C/∂ln(1+z)), and
+    // into the grid nodes through the slope stencil (NodeAdjoint holds −∂ℓ/∂g_k).
+    private void AddSlopePartials(double[] direct, double[]? nodeA, int i, int g, double dSlope, double beta, double eExp, double lnDaSlope)
+    {
+        double x = _inv1pz[i];
+        Add(direct, _evolutionIndex[g], dSlope * x);
+        if (_hasLum)
+        {
+            Add(direct, _luminositySlopeIndex[g], dSlope * ((2 * eExp - _lumZSlope) * x + 2 * lnDaSlope));
+            Add(direct, _iLumExp, dSlope * 2 * beta * x);
+        }
+        if (nodeA is not null && _slopeWeights is not null)
+        {
+            int j = _nodeGrid!.Index[i], k = 4 * i;
+            double f = -dSlope * (2 * beta - 1);
+            nodeA[j] += f * _slopeWeights[k];
+            nodeA[j + 1] += f * _slopeWeights[k + 1];
+            nodeA[j + 2] += f * _slopeWeights[k + 2];
+            nodeA[j + 3] += f * _slopeWeights[k + 3];
+        }
     }
 
     private void AddPartials(double[] direct, double[] v, int g, int q0, double dm, double ds, double ln1pz, double lnDa, double c, double beta, double eExp)

@@ -47,39 +47,32 @@ public sealed class StudySurveyTableTests : IDisposable
         return d;
     }
 
+    // Fits catalogue NAME.csv with fit's flags and runs the study NAME.toml ([survey] lines as given, the same models and observable,
+    // seed 1, one start): the two results.json files' numbers, and the study's results text.
+    private (Dictionary<string, double> Fit, Dictionary<string, double> Run, string RunText) FitAndRun(string name, string[] models, string observable,
+        string[] flags, string surveyLines)
+    {
+        var fitOut = Path.Combine(_dir, "fit-" + name);
+        var fit = CliRunner.Run(["fit", Path.Combine(_dir, name + ".csv"), "--models", string.Join(',', models), "--observable", observable, .. flags,
+            "--starts", "1", "--cv-folds", "0", "--seed", "1", "--force", "--out", fitOut]);
+        Assert.True(fit.Exit == 0, fit.Err);
+        File.WriteAllText(Path.Combine(_dir, name + ".toml"), $"name = \"{name}\"\nseed = 1\n[catalogue]\npath = \"{name}.csv\"\nsynthetic = true\n" +
+            $"[models]\nnames = [{string.Join(", ", models.Select(m => $"\"{m}\""))}]\nobservable = \"{observable}\"\n[survey]\n{surveyLines}\n" +
+            "[inference]\nstarts = 1\n[report]\nformats = [\"html\"]\n");
+        var runOut = Path.Combine(_dir, "run-" + name);
+        var run = CliRunner.Run("run", Path.Combine(_dir, name + ".toml"), "--force", "--out", runOut);
+        Assert.True(run.Exit == 0, run.Err);
+        return (Numbers(Path.Combine(fitOut, "results.json")), Numbers(Path.Combine(runOut, "results.json")), File.ReadAllText(Path.Combine(runOut, "results.json")));
+    }
+
     [Theory]
     [InlineData("size")]
     [InlineData("joint")]
     public void ASurveyTableGivesTheSameNumbersAsTheCommandLine(string observable)
     {
-        var cat = Mock();
-        var fitOut = Path.Combine(_dir, "fit");
-        var fit = CliRunner.Run("fit", cat, "--models", "lcdm,static-linear", "--observable", observable, "--size-luminosity", "--group", "group",
-            "--pivot-abs-mag", "-20.5", "--starts", "1", "--cv-folds", "0", "--seed", "1", "--out", fitOut);
-        Assert.True(fit.Exit == 0, fit.Err);
-        File.WriteAllText(Path.Combine(_dir, "sv.toml"), $$"""
-            name = "sv"
-            seed = 1
-            [catalogue]
-            path = "sv.csv"
-            synthetic = true
-            [models]
-            names = ["lcdm", "static-linear"]
-            observable = "{{observable}}"
-            [survey]
-            size_relation = "luminosity"
-            pivot_abs_mag = -20.5
-            group = "group"
-            [inference]
-            starts = 1
-            [report]
-            formats = ["html"]
-            """);
-        var runOut = Path.Combine(_dir, "run");
-        var run = CliRunner.Run("run", Path.Combine(_dir, "sv.toml"), "--out", runOut);
-        Assert.True(run.Exit == 0, run.Err);
-        var a = Numbers(Path.Combine(fitOut, "results.json"));
-        var b = Numbers(Path.Combine(runOut, "results.json"));
+        Mock();
+        var (a, b, _) = FitAndRun("sv", ["lcdm", "static-linear"], observable, ["--size-luminosity", "--group", "group", "--pivot-abs-mag", "-20.5"],
+            "size_relation = \"luminosity\"\npivot_abs_mag = -20.5\ngroup = \"group\"");
         // Both must carry the per-group survey parameters (names NAME@GROUP) and β.
         Assert.Contains("lcdm.size_evolution@early", a.Keys);
         Assert.Contains("lcdm.size_luminosity_slope@late", a.Keys);
@@ -88,12 +81,27 @@ public sealed class StudySurveyTableTests : IDisposable
         foreach (var (k, v) in a) Assert.True(v == b[k], $"{k}: fit {v:R}, run {b[k]:R}");
     }
 
+    [Fact]
+    public void ZMarginalInTheSurveyTableIsFitsZMarginal()
+    {
+        var r = CliRunner.Run("simulate", "--n", "300", "--seed", "8", "--photoz-err", "0.05", "--z-dist", "uniform:0.3:2", "--out", Path.Combine(_dir, "pz.csv"));
+        Assert.True(r.Exit == 0, r.Err);
+        var (a, b, text) = FitAndRun("pz", ["lcdm"], "size", ["--z-marginal", "quadrature"], "z_marginal = \"quadrature\"");
+        foreach (var (k, v) in a) Assert.True(v == b[k], $"{k}: fit {v:R}, run {b[k]:R}");
+        Assert.Contains("-point Gauss", text, StringComparison.Ordinal);
+        // Without the key the study takes fit's default, the linearised marginal, and its note names the study key.
+        var (a2, b2, text2) = FitAndRun("pz", ["lcdm"], "size", [], "");
+        foreach (var (k, v) in a2) Assert.True(v == b2[k], $"{k}: fit {v:R}, run {b2[k]:R}");
+        Assert.Contains("linearised marginal (survey.z_marginal linear", text2, StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData("size_relation = \"height\"", "'survey.size_relation' must be")]
     [InlineData("evolution = \"binned:1\"", "'survey.evolution' must be")]
     [InlineData("ref_cosmology = [70, 0.3]", "'survey.ref_cosmology' needs size_relation")]
     [InlineData("size_relation = \"mass\"\nabs_mag_range = [-23, -20]", "cannot be combined with size_relation = \"mass\"")]
     [InlineData("sise_errors = \"gaussian\"", "did you mean 'size_errors'")]
+    [InlineData("z_marginal = \"cubic\"", "'survey.z_marginal' must be \"quadrature\" or \"linear\"")]
     public void BadSurveyKeysNameTheirPlace(string lines, string expected)
     {
         string text = $"[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[survey]\n{lines}\n";

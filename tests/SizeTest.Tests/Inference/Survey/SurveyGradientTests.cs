@@ -13,7 +13,9 @@ namespace SizeTest.Tests.Inference.Survey;
 /// Gaussian size errors, radio flux densities, free Ωm, a static model's free luminosity exponent, and the --min-size
 /// truncation with the relation, with Gaussian errors and inside the photo-z integral; and the same for the surface-brightness and
 /// joint survey kernel (Survey.SurveyJointLikelihood): photometric redshifts (with an SB or magnitude limit inside the integral),
-/// groups, binned evolution, the size–luminosity and size–SB relations, free Ωm, a static model's free dimming and luminosity exponents.
+/// groups, binned evolution, the size–luminosity and size–SB relations, free Ωm, a static model's free dimming and luminosity exponents;
+/// and the linearised photo-z marginal of the size kernel (RedshiftMarginal.Linear: m′ through a, β, e and the grid nodes' slope
+/// stencil) alone, with radio luminosities, a static model, the truncation and Gaussian errors.
 /// Tolerance: |analytic − FD| ≤ 10⁻⁵ (|FD| + 1), and 10⁻⁴ for Gaussian size errors, whose analytic derivative is that of the
 /// exact integral (posterior expectations) while FD differentiates the 20-node adaptive quadrature, whose nodes move with the
 /// parameters (measured difference 2·10⁻⁵ relative).
@@ -27,6 +29,8 @@ public sealed class SurveyGradientTests
         { "luminosity", "" }, { "luminosity", "omega_m" }, { "groups", "omega_m" }, { "binned", "" }, { "photoz", "" },
         { "photoz", "omega_m" }, { "gaussian", "" }, { "radio", "omega_m" }, { "static", "luminosity_exponent" },
         { "minsize", "omega_m" }, { "minsize-gaussian", "" }, { "minsize-photoz", "omega_m" },
+        { "linear", "" }, { "linear", "omega_m" }, { "linear-radio", "omega_m" }, { "linear-static", "luminosity_exponent" },
+        { "linear-minsize", "omega_m" }, { "linear-gaussian", "omega_m" },
     };
 
     [Theory]
@@ -35,14 +39,18 @@ public sealed class SurveyGradientTests
     {
         var pops = new[] { new MockSubpopulation("early", 0.5, 3, -1.5, 0.2, 0.15), new MockSubpopulation("late", 0.5, 6, -0.75, 0.3, 0.2) };
         var lf = new SchechterLuminosityFunction();
-        var cut = kind.StartsWith("minsize", StringComparison.Ordinal) ? new MockSelection(MinThetaArcsec: 0.4) : null;
+        var cut = kind.Contains("minsize", StringComparison.Ordinal) ? new MockSelection(MinThetaArcsec: 0.4) : null;
         var mock = kind switch
         {
             "minsize" => Draw(Lcdm, 300, 1, selection: cut, survey: new SurveyPopulation(lf, SizeLuminositySlope: 0.3)),
             "minsize-gaussian" => Draw(Lcdm, 300, 1, "uniform:0.1:2", errors: new MeasurementErrors(0.1, SizeErrors: SizeErrorModel.Gaussian, SizeErrorFractionAtZMax: 0.3), selection: cut),
             "minsize-photoz" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.05, PhotoZError: 0.05), selection: cut),
             "radio" => Draw(Lcdm, 300, 1, "uniform:0.4:2.5", kind: MockObjectKind.CompactRadio, radio: new RadioSourcePopulation(LuminosityExponent: 0.1)),
-            "photoz" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.05, PhotoZError: 0.05)),
+            "photoz" or "linear" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.05, PhotoZError: 0.05)),
+            "linear-radio" => Draw(Lcdm, 300, 1, "uniform:0.4:2.5", errors: new MeasurementErrors(0.05, PhotoZError: 0.05), kind: MockObjectKind.CompactRadio, radio: new RadioSourcePopulation(LuminosityExponent: 0.1)),
+            "linear-static" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.05, PhotoZError: 0.05), survey: new SurveyPopulation(lf, SizeLuminositySlope: 0.3)),
+            "linear-minsize" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.05, PhotoZError: 0.05), selection: new MockSelection(MinThetaArcsec: 0.4)),
+            "linear-gaussian" => Draw(Lcdm, 300, 1, "uniform:0.3:2", errors: new MeasurementErrors(0.1, PhotoZError: 0.05, SizeErrors: SizeErrorModel.Gaussian, SizeErrorFractionAtZMax: 0.3)),
             "gaussian" => Draw(Lcdm, 300, 1, "uniform:0.1:2", errors: new MeasurementErrors(0.1, SizeErrors: SizeErrorModel.Gaussian, SizeErrorFractionAtZMax: 0.4)),
             "groups" => Draw(Lcdm, 300, 1, survey: new SurveyPopulation(lf, Populations: pops)),
             _ => Draw(Lcdm, 300, 1, survey: new SurveyPopulation(lf, SizeLuminositySlope: 0.3)),
@@ -55,9 +63,12 @@ public sealed class SurveyGradientTests
             "photoz" => new SurveyModel(MarginaliseRedshift: true),
             "gaussian" or "minsize-gaussian" => new SurveyModel(SizeErrors: SizeErrorKind.Gaussian),
             "minsize-photoz" => new SurveyModel(MarginaliseRedshift: true),
+            "linear" or "linear-minsize" => new SurveyModel(MarginaliseRedshift: true, ZMarginal: RedshiftMarginal.Linear),
+            "linear-radio" or "linear-static" => new SurveyModel(SizeRelationKind.Luminosity, MarginaliseRedshift: true, ZMarginal: RedshiftMarginal.Linear),
+            "linear-gaussian" => new SurveyModel(MarginaliseRedshift: true, SizeErrors: SizeErrorKind.Gaussian, ZMarginal: RedshiftMarginal.Linear),
             _ => new SurveyModel(SizeRelationKind.Luminosity),
         };
-        var family = kind == "static" ? WorldModels.Get("static-linear") : WorldModels.LambdaCdm;
+        var family = kind is "static" or "linear-static" ? WorldModels.Get("static-linear") : WorldModels.LambdaCdm;
         var overrides = new ParameterOverrides(Free: free.Length == 0 ? null : new HashSet<string> { free });
         var lik = Hypothesis.Create(family, new NuisanceModel(ObservableKind.Size, cut is null ? null : new SelectionLimits(MinThetaArcsec: 0.4), Survey: sv), overrides).Bind(obs);
         AssertGradientMatches(lik, kind.EndsWith("gaussian", StringComparison.Ordinal) ? 1e-4 : 1e-5, $"{kind}/{free}");
