@@ -98,4 +98,20 @@ public sealed class ResultsSchemaApprovalTests : IDisposable
         Assert.NotEqual(Schema(a.RootElement), Schema(b.RootElement));
         Assert.Contains("- models[].parameters.{name}.value: number", Approval.Diff(Schema(a.RootElement), Schema(b.RootElement)));
     }
+
+    [Fact]
+    public void EveryApprovedKeyIsDocumented()
+    {
+        // docs/results-schema.md documents the format: every key name of the approved schema (each segment of each key
+        // path, without [] and the {name} placeholder) must appear there in backticks (an array as `name` or `name[]`), so the page cannot fall behind.
+        string page = File.ReadAllText(Path.Combine(Approval.Folder, "..", "..", "..", "..", "docs", "results-schema.md"));
+        var names = File.ReadAllLines(Path.Combine(Approval.Folder, "results-schema.txt"))
+            .Where(l => l.Length > 0 && !l.StartsWith('#'))
+            .SelectMany(l => l[..l.IndexOf(':')].Split('.'))
+            .Select(seg => seg.Replace("[]", "", StringComparison.Ordinal))
+            .Where(seg => seg.Length > 0 && seg != "{name}")
+            .Distinct(StringComparer.Ordinal);
+        var missing = names.Where(n => !page.Contains($"`{n}`", StringComparison.Ordinal) && !page.Contains($"`{n}[]`", StringComparison.Ordinal)).ToList();
+        Assert.True(missing.Count == 0, "keys of Approved/results-schema.txt not documented in docs/results-schema.md: " + string.Join(", ", missing));
+    }
 }

@@ -142,4 +142,34 @@ public sealed class PhotometryOptionParserTests
         var e = Assert.Throws<InputException>(() => PhotometryFiles.ReadText("/nonexistent/dir/zp.txt"));
         Assert.Equal("/nonexistent/dir/zp.txt", e.File);
     }
+
+    /// <summary>docs/photometry.md documents the option grammar: every example on the page written as flags
+    /// (<c>`--kcorr powerlaw:-1`</c>, <c>`--band-match target:… --kcorr …`</c>) parses.</summary>
+    [Fact]
+    public void TheExamplesOfTheReferencePageParse()
+    {
+        string page = File.ReadAllText(Path.Combine(SizeTest.Tests.Studies.StudyFileParserTests.RepoRoot(), "docs", "photometry.md"));
+        var examples = System.Text.RegularExpressions.Regex.Matches(page, @"`(--(?:kcorr|extinction|zero-points|band-match|band|sersic-n|sb) [^`]+)`")
+            .Select(m => m.Groups[1].Value).ToList();
+        Assert.NotEmpty(examples);
+        foreach (var example in examples)
+        {
+            var text = new PhotometryOptionText();
+            var tokens = example.Split(' ', StringSplitOptions.RemoveEmptyEntries);
+            for (int i = 0; i + 1 < tokens.Length; i += 2)
+                text = tokens[i] switch
+                {
+                    "--kcorr" => text with { KCorrection = tokens[i + 1] },
+                    "--extinction" => text with { Extinction = tokens[i + 1] },
+                    "--zero-points" => text with { ZeroPoints = tokens[i + 1] },
+                    "--band-match" => text with { BandMatch = tokens[i + 1] },
+                    "--band" => text with { DefaultBand = tokens[i + 1] },
+                    "--sersic-n" => text with { SersicIndex = tokens[i + 1] },
+                    "--sb" => text with { SurfaceBrightness = tokens[i + 1] },
+                    _ => throw new Xunit.Sdk.XunitException($"'{tokens[i]}' in the example '{example}' is not a photometry option"),
+                };
+            var options = PhotometryOptionParser.Parse(text, Read);
+            Assert.NotNull(options);
+        }
+    }
 }
