@@ -61,11 +61,13 @@ public static class BinnedEvolutionReport
         foreach (var h in hypotheses.Where(h => h.Nuisance.SurveyTerms.Binned))
         {
             if (!powerLaws.TryGetValue(h.Label, out var f)) { parts.Add($"{h.Label} (power-law fit did not converge)"); continue; }
-            var a = f.Parameters.Where(p => NuisanceParameters.Names.SizeEvolution == (p.Name.Split('@')[0])).Select(p =>
+            var a = f.Parameters.Where(p => p.Name.Split('@')[0] is NuisanceParameters.Names.SizeEvolution or NuisanceParameters.Names.SbEvolution).Select(p =>
                 string.Create(inv, $"{p.Name} = {p.Value:0.###} [{p.Lo:0.###}, {p.Hi:0.###}]"));
             parts.Add($"{h.Label}: {string.Join(", ", a)}");
         }
+        bool sb = hypotheses.Any(h => h.Nuisance.SurveyTerms.Binned && h.Nuisance.Observable != ObservableKind.Size);
         return "binned evolution: the binned-evolution figure draws over each model's bins the same model refitted with R0 (1+z)^a " +
+               (sb ? "(and μ0 − 2.5 b log10(1+z) for the surface brightnesses; the figure draws the R0 bins, results.json has the mu0_binK) " : "") +
                "on the same objects (maximum likelihood, not part of the comparison): " + string.Join("; ", parts);
     }
 
