@@ -25,13 +25,14 @@ internal sealed class SurveyCliOptions
     public Option<string> Evolution { get; } = new("--evolution") { Description = "Size evolution: power ((1+z)^a, default) or binned:K (R0, and μ0 in sb and joint fits, free in K equal-count redshift bins).", DefaultValueFactory = _ => "power" };
     public Option<bool> IgnoreZErr { get; } = new("--ignore-z-err") { Description = "Take redshifts as exact even when a z_err column is mapped (default: marginalise each object over its redshift)." };
     public Option<string> SizeErrors { get; } = new Option<string>("--size-errors") { Description = "Size-error model: lognormal (σ_lnθ = σ_θ/θ) or gaussian (exact for errors quoted in θ; --observable size only).", DefaultValueFactory = _ => "lognormal" }.AcceptOnlyFromAmong("lognormal", "gaussian");
-    public Option<string?> ZPrior { get; } = new("--z-prior") { Description = "LO:HI: flat redshift prior of the photometric-redshift marginalisation (default: the sample's redshift range)." };
+    public Option<string?> ZPrior { get; } = new("--z-prior") { Description = "LO:HI: the range of the redshift prior of the photometric-redshift marginalisation (default: the sample's redshift range)." };
     public Option<string?> ZMarginal { get; } = new Option<string?>("--z-marginal") { Description = "Photometric redshifts: linear (effective variance σ² + (∂m/∂z)² s² about each object's redshift posterior under the prior, one evaluation per object; the default for --observable size) or quadrature (Gauss–Hermite over each object's z; the default, and the only one, for sb and joint)." }.AcceptOnlyFromAmong("quadrature", "linear");
+    public Option<string> ZPriorShape { get; } = new Option<string>("--z-prior-shape") { Description = "population|flat: the redshift prior's shape on its range: the sample's redshift distribution deconvolved from the z errors (default), or flat in z.", DefaultValueFactory = _ => "population" }.AcceptOnlyFromAmong("population", "flat");
     public Option<double?> FrequencyGhz { get; } = Number("--frequency-ghz", "Radio: observing frequency of flux_density in GHz (recorded with the luminosities).");
     public Option<double?> SpectralIndex { get; } = Number("--spectral-index", "Radio: spectral index α, S_ν ∝ ν^α, in L_ν = 4π D_L² S_ν (1+z)^−(1+α) (default 0).");
     public Option<string?> RefCosmology { get; } = new("--ref-cosmology") { Description = "H0:OMEGA_M of the flat ΛCDM in which the catalogue computed abs_mag or log_mass (default 70:0.3)." };
 
-    public IEnumerable<Option> All => [SizeLuminosity, SizeMass, PivotAbsMag, PivotLogMass, PivotLogLum, AbsMagRange, Group, Evolution, IgnoreZErr, SizeErrors, ZPrior, ZMarginal, FrequencyGhz, SpectralIndex, RefCosmology];
+    public IEnumerable<Option> All => [SizeLuminosity, SizeMass, PivotAbsMag, PivotLogMass, PivotLogLum, AbsMagRange, Group, Evolution, IgnoreZErr, SizeErrors, ZPrior, ZPriorShape, ZMarginal, FrequencyGhz, SpectralIndex, RefCosmology];
 
     public void AddTo(Command command)
     {
@@ -50,7 +51,8 @@ internal sealed class SurveyCliOptions
         return new SurveyRequest(lum ? SizeRelationKind.Luminosity : mass ? SizeRelationKind.Mass : SizeRelationKind.None, pivot,
             parse.GetValue(Group) is not null, EvolutionBins(parse.GetValue(Evolution) ?? "power"), parse.GetValue(IgnoreZErr),
             parse.GetValue(SizeErrors) == "gaussian" ? SizeErrorKind.Gaussian : SizeErrorKind.LogNormal, mLo, mHi, zLo, zHi,
-            parse.GetValue(ZMarginal) switch { "quadrature" => RedshiftMarginal.Quadrature, "linear" => RedshiftMarginal.Linear, _ => null });
+            parse.GetValue(ZMarginal) switch { "quadrature" => RedshiftMarginal.Quadrature, "linear" => RedshiftMarginal.Linear, _ => null },
+            parse.GetValue(ZPriorShape) == "flat" ? RedshiftPriorShape.Flat : RedshiftPriorShape.Population);
     }
 
     /// <summary>The luminosity preparation for the photometry stage, or null when no relation or window is asked.</summary>

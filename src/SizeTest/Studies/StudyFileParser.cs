@@ -23,7 +23,7 @@ public static class StudyFileParser
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
-        ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, z_marginal, frequency_ghz, spectral_index, ref_cosmology",
+        ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, z_prior_shape, z_marginal, frequency_ghz, spectral_index, ref_cosmology",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, figure_width, bins, bin_resamples",
@@ -311,8 +311,15 @@ public static class StudyFileParser
         RedshiftMarginal? marginal = null;
         if (sv.Get("z_marginal") is { } zmNode && !SurveyRequest.TryParseZMarginal(zmNode.Scalar as string, out marginal))
             throw zmNode.Error($"'survey.z_marginal' must be \"quadrature\" or \"linear\"; got '{zmNode.Scalar}'");
+        var shapeNode = sv.Get("z_prior_shape");
+        var shape = shapeNode?.Scalar switch
+        {
+            null or "population" => RedshiftPriorShape.Population,
+            "flat" => RedshiftPriorShape.Flat,
+            _ => throw shapeNode!.Error("'survey.z_prior_shape' must be \"population\" or \"flat\""),
+        };
         var request = new SurveyRequest(relation, pivot, group is not null, bins, sv.Boolean("ignore_z_err") ?? false, errors,
-            window?[0], window?[1], zPrior?[0], zPrior?[1], marginal);
+            window?[0], window?[1], zPrior?[0], zPrior?[1], marginal, shape);
         if (relation == SizeRelationKind.Mass && window is not null)
             throw sv.Get("abs_mag_range")!.Error("'survey.abs_mag_range' selects on luminosity; it cannot be combined with size_relation = \"mass\"");
         double? freq = sv.Number("frequency_ghz"), alpha = sv.Number("spectral_index");

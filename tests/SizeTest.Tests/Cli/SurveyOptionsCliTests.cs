@@ -142,6 +142,23 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void TheRedshiftPriorShapeIsStatedAndCanBeFlat()
+    {
+        var mock = Simulate("--photoz-err", "0.03");
+        var (code, o, err, _) = Fit(mock);
+        Assert.True(code == 0, err);
+        Assert.Contains("deconvolved from the quoted z errors", o, StringComparison.Ordinal);
+        (code, o, err, _) = Fit(mock, "--z-prior-shape", "flat");
+        Assert.True(code == 0, err);
+        Assert.Contains("flat in z", o, StringComparison.Ordinal);
+        Assert.DoesNotContain("deconvolved", o, StringComparison.Ordinal);
+        Assert.Equal(2, Fit(mock, "--z-prior-shape", "bumpy").Code);
+        // The study file's key reads the same two words.
+        var study = SizeTest.Studies.StudyFileParser.Parse("[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\n[survey]\nz_prior_shape = \"flat\"\n", "s.toml", _t.Dir);
+        Assert.Equal(SizeTest.Inference.Survey.RedshiftPriorShape.Flat, study.Survey!.RedshiftPriorShape);
+    }
+
+    [Fact]
     public void AnExactRedshiftOutsideTheStatedPriorGoesToTheRejectLogByRow()
     {
         // Row 6 of the file (the 5th object): z = 3.5 with z_err = 0 has no density under a flat prior on [0.05, 3] (the

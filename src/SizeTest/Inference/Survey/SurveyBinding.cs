@@ -34,7 +34,7 @@ public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOn
         ArgumentNullException.ThrowIfNull(nuisance);
         ArgumentNullException.ThrowIfNull(rebuild);
         var notes = new List<string>();
-        var model = request.Build(observables, nuisance.Observable, notes);
+        var model = request.Build(observables, nuisance.Observable, notes, wholeSample is not null);
         var hypotheses = plain;
         if ((model.IsActive || asked) && (observables.Count > 0 || wholeSample is not null))
         {

@@ -20,6 +20,7 @@ namespace SizeTest.Inference.Survey;
 /// <param name="RedshiftPriorMin">Lower end of the flat redshift prior of the photo-z marginalisation (null: the sample's lowest z).</param>
 /// <param name="RedshiftPriorMax">Upper end of that prior (null: the sample's highest z).</param>
 /// <param name="ZMarginal">How each object is integrated over its redshift: quadrature or the linearised (effective-variance) marginal.</param>
+/// <param name="RedshiftPopulation">The prior's shape on that range: the sample's deconvolved redshift distribution; null: flat in z.</param>
 public sealed record SurveyModel(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -32,7 +33,8 @@ public sealed record SurveyModel(
     double? AbsMagMax = null,
     double? RedshiftPriorMin = null,
     double? RedshiftPriorMax = null,
-    RedshiftMarginal ZMarginal = RedshiftMarginal.Quadrature)
+    RedshiftMarginal ZMarginal = RedshiftMarginal.Quadrature,
+    PopulationRedshiftPrior? RedshiftPopulation = null)
 {
     /// <summary>Nothing beyond the basic size model.</summary>
     public static SurveyModel None { get; } = new();

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference.Survey;
@@ -20,6 +21,7 @@ namespace SizeTest.Inference.Survey;
 /// <param name="ZMarginal">Null for the default: the linearised marginal for the size observable (over 200 mocks of the design
 /// its 68% intervals of a cover 69.0%, mean bias +0.010 against a half-width of 0.106), the quadrature for sb and joint, whose kernel
 /// integrates by quadrature only (setting <c>z_marginal</c>).</param>
+/// <param name="RedshiftPriorShape">The prior's shape on its range: the sample's deconvolved redshift distribution (default) or flat.</param>
 public sealed record SurveyRequest(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -31,7 +33,8 @@ public sealed record SurveyRequest(
     double? AbsMagMax = null,
     double? RedshiftPriorMin = null,
     double? RedshiftPriorMax = null,
-    RedshiftMarginal? ZMarginal = null)
+    RedshiftMarginal? ZMarginal = null,
+    RedshiftPriorShape RedshiftPriorShape = RedshiftPriorShape.Population)
 {
     /// <summary>Most redshift bins of binned evolution.</summary>
     public const int MaxEvolutionBins = 50;
@@ -78,7 +81,12 @@ public sealed record SurveyRequest(
     public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;
 
     /// <summary>The survey model for <paramref name="observables"/> and <paramref name="observable"/>; notes say what was decided.</summary>
-    public SurveyModel Build(Observables observables, ObservableKind observable, ICollection<string> notes)
+    /// <param name="observables">The loaded, selected sample (under MPI, this rank's share).</param>
+    /// <param name="observable">The fitted observable.</param>
+    /// <param name="notes">Receives what was decided.</param>
+    /// <param name="distributed">The sample is split over MPI ranks (then the population redshift prior, which needs every object,
+    /// is refused: a flat prior must be asked for, so one process and several never differ silently).</param>
+    public SurveyModel Build(Observables observables, ObservableKind observable, ICollection<string> notes, bool distributed = false)
     {
         ArgumentNullException.ThrowIfNull(observables);
         ArgumentNullException.ThrowIfNull(notes);
@@ -93,8 +101,20 @@ public sealed record SurveyRequest(
         bool marginalise = MarginalisesRedshift(observables, observable);
         if (!marginalise && observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
+        PopulationRedshiftPrior? population = null;
+        if (marginalise && RedshiftPriorShape == RedshiftPriorShape.Population && observables.Count > 0)
+        {
+            if (distributed)
+                throw SettingProblem.Exception([new("the population redshift prior (the default {z_prior_shape} population) is estimated from every object in one process; under mpirun set {z_prior_shape} flat, or fit on one machine")]);
+            else
+            {
+                double lo = RedshiftPriorMin ?? observables.Z.Min(), hi = RedshiftPriorMax ?? observables.Z.Max();
+                if (hi > lo) population = PopulationRedshiftPrior.Estimate(observables.Z, observables.Survey.ZErr!, lo, hi);
+            }
+        }
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
-            AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax, ZMarginal ?? (observable == ObservableKind.Size ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature));
+            AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax, ZMarginal ?? (observable == ObservableKind.Size ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature),
+            population);
     }
 
     /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped and not ignored. Every observable

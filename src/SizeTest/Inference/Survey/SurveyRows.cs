@@ -199,7 +199,11 @@ internal sealed class SurveyRows
             var nodeZ = new double[n * J];
             GaussLegendre? gl = null;
             int truncated = 0;
-            if (linear) RedshiftVariance = LinearisedCentres(o.Z, zErr, priorMinZ, priorMaxZ, nodeZ, out truncated);
+            if (linear)
+            {
+                RedshiftVariance = LinearisedCentres(o.Z, zErr, priorMinZ, priorMaxZ, nodeZ, out truncated);
+                if (sv.RedshiftPopulation is { } pop) PopulationMoments(o.Z, zErr, priorMinZ, priorMaxZ, pop, nodeZ, RedshiftVariance);
+            }
             for (int i = 0; i < n && linear; i++)
             {
                 NodeLn1pZ[i] = Math.Log(1 + nodeZ[i]);
@@ -244,6 +248,23 @@ internal sealed class SurveyRows
                     }
                 }
             }
+            if (sv.RedshiftPopulation is { } population && !linear)
+                for (int i = 0; i < n; i++)
+                {
+                    // ln w_ij + ln π(z_ij), renormalised over the object's nodes (the prior's shape; its range was applied above).
+                    double max = double.NegativeInfinity;
+                    for (int q = i * J; q < (i + 1) * J; q++)
+                    {
+                        if (double.IsNegativeInfinity(NodeLogWeight[q])) continue;
+                        NodeLogWeight[q] += population.LogDensity(nodeZ[q]);
+                        if (NodeLogWeight[q] > max) max = NodeLogWeight[q];
+                    }
+                    if (double.IsNegativeInfinity(max)) throw new InvalidOperationException($"object {i + 1}: the population redshift prior vanishes at every node");
+                    double sum = 0;
+                    for (int q = i * J; q < (i + 1) * J; q++) sum += Math.Exp(NodeLogWeight[q] - max);
+                    double norm = max + Math.Log(sum);
+                    for (int q = i * J; q < (i + 1) * J; q++) NodeLogWeight[q] -= norm;
+                }
             if (fixedCosmology)
             {
                 NodeLnDaFixed = ModelLuminosity.LnLuminosityDistances(startModel, nodeZ);
@@ -256,16 +277,51 @@ internal sealed class SurveyRows
             {
                 if (fixedCosmology) LnDaSlopeFixed = LnDaSlope(startModel, nodeZ);
                 else SlopeWeights = RedshiftGridSlope.Weights(NodeGrid!, nodeZ);
-                notes.Add(FormattableString.Invariant($"photometric redshifts: linearised marginal ({{z_marginal}} linear; effective variance, Clutton-Brock 1967, Orear 1982): ln θ ~ N(m(z̄), σ_i² + σ² + (∂m/∂z)² s²) with z̄, s² the mean and variance of the object's redshift posterior N(z; z_obs, z_err²) on the flat prior [{priorMinZ:G4}, {priorMaxZ:G4}] (z_obs and z_err² where the prior keeps all but 10⁻¹² of the Gaussian) and ∂m/∂z at z̄ from each world model's own distances; {{z_marginal}} quadrature integrates exactly."));
+                notes.Add(FormattableString.Invariant($"photometric redshifts: linearised marginal ({{z_marginal}} linear; effective variance, Clutton-Brock 1967, Orear 1982): ln θ ~ N(m(z̄), σ_i² + σ² + (∂m/∂z)² s²) with z̄, s² the mean and variance of the object's redshift posterior N(z; z_obs, z_err²) π(z) on [{priorMinZ:G4}, {priorMaxZ:G4}], π ") +
+                    (sv.RedshiftPopulation is { } popL ? popL.Describe() + " ({z_prior_shape} flat for a flat prior; moments integrated numerically)" : "flat in z (z_obs and z_err² where the prior keeps all but 10⁻¹² of the Gaussian)") + FormattableString.Invariant($", and ∂m/∂z at z̄ from each world model's own distances; {{z_marginal}} quadrature integrates exactly."));
             }
             else
             {
-            notes.Add($"photometric redshifts: each object integrated over z with a flat prior in z on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")} times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
+                notes.Add($"photometric redshifts: each object integrated over z with a prior on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")}, " +
+                    (sv.RedshiftPopulation is { } pop ? pop.Describe() + " ({z_prior_shape} flat for a flat prior)" : "flat in z") + $", times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
             if (truncated > 0)
                 notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
             }
         }
         Notes = notes;
+    }
+
+    // Linearised marginal under the population prior: each object's posterior N(z; z_obs, σ²) π(z) on [lo, hi] summarised by its mean
+    // (written to centre) and variance, by 64-point Gauss–Legendre on the Gaussian's 20-e-fold window (TruncatedRedshiftNodes) with
+    // ln π added to each node's log weight; objects with σ = 0 keep z_obs and variance 0.
+    internal static void PopulationMoments(double[] z, double[] zErr, double lo, double hi, PopulationRedshiftPrior prior, double[] centre, double[] variance)
+    {
+        if (!(hi > lo)) return; // a one-point range (a single-object check): the flat moments stand
+        var gl = new GaussLegendre(64);
+        Span<double> zk = stackalloc double[64], lw = stackalloc double[64];
+        for (int i = 0; i < z.Length; i++)
+        {
+            if (!(zErr[i] > 0)) continue;
+            TruncatedRedshiftNodes.Fill(z[i], zErr[i], Math.Max(lo, 0), hi, gl, zk, lw);
+            double max = double.NegativeInfinity;
+            for (int k = 0; k < 64; k++)
+            {
+                lw[k] += prior.LogDensity(zk[k]);
+                if (lw[k] > max) max = lw[k];
+            }
+            if (double.IsNegativeInfinity(max)) continue;
+            double sw = 0, m1 = 0, m2 = 0;
+            for (int k = 0; k < 64; k++)
+            {
+                double w = Math.Exp(lw[k] - max);
+                sw += w;
+                m1 += w * zk[k];
+                m2 += w * zk[k] * zk[k];
+            }
+            m1 /= sw;
+            centre[i] = m1;
+            variance[i] = Math.Max(m2 / sw - m1 * m1, 0);
+        }
     }
 
     // Linearised marginal: each object's redshift posterior N(z; z_obs, σ²) on the flat prior [lo, hi] summarised by its mean (written to

@@ -104,7 +104,8 @@ public sealed class MpiFitCommandTests : IDisposable
         var (code, _, err) = CliRunner.Run(["simulate", "--n", "1500", "--seed", "9", "--out", mock, "--luminosity-function", "schechter:-21:-1.2:-24:-16",
             "--size-lum-slope", "0.3", "--photoz-err", "0.03", "--min-size", "0.3"]);
         Assert.True(code == 0, err);
-        string[] Args(string o) => ["fit", mock, "--models", "eds", "--size-luminosity", "--min-size", "0.3", "--cv-folds", "0", "--starts", "1", "--out", o];
+        // The population redshift prior needs the whole sample in one process and is refused under mpirun (checked below): flat here.
+        string[] Args(string o) => ["fit", mock, "--models", "eds", "--size-luminosity", "--min-size", "0.3", "--cv-folds", "0", "--starts", "1", "--z-prior-shape", "flat", "--out", o];
         string single = Path.Combine(_dir, "survey-single");
         (code, _, err) = CliRunner.Run(Args(single));
         Assert.True(code == 0, err);
@@ -116,6 +117,18 @@ public sealed class MpiFitCommandTests : IDisposable
         var photoz = (JsonElement n) => n.GetString()!.Contains("photometric redshifts", StringComparison.Ordinal);
         Assert.Equal(Results(single).GetProperty("notes").EnumerateArray().Single(photoz).GetString(),
             Results(two).GetProperty("notes").EnumerateArray().Single(photoz).GetString());
+    }
+
+    [MpiFact]
+    public void ThePopulationRedshiftPriorIsRefusedUnderMpirunNotSilentlyReplaced()
+    {
+        string mock = Path.Combine(_dir, "photoz.csv");
+        var (code, _, err) = CliRunner.Run(["simulate", "--n", "400", "--seed", "3", "--out", mock, "--photoz-err", "0.03"]);
+        Assert.True(code == 0, err);
+        var (exit, stdout, stderr) = MpiRunner.Run(2, "fit", mock, "--models", "eds", "--cv-folds", "0", "--out", Path.Combine(_dir, "photoz-np2"));
+        Assert.Equal(2, exit);
+        Assert.Equal("", stdout.Trim());
+        Assert.Contains("under mpirun set --z-prior-shape flat", stderr, StringComparison.Ordinal);
     }
 
     [MpiFact]

@@ -102,6 +102,7 @@ public sealed class StudySurveyTableTests : IDisposable
     [InlineData("size_relation = \"mass\"\nabs_mag_range = [-23, -20]", "cannot be combined with size_relation = \"mass\"")]
     [InlineData("sise_errors = \"gaussian\"", "did you mean 'size_errors'")]
     [InlineData("z_marginal = \"cubic\"", "'survey.z_marginal' must be \"quadrature\" or \"linear\"")]
+    [InlineData("z_prior_shape = \"bumpy\"", "'survey.z_prior_shape' must be \"population\" or \"flat\"")]
     public void BadSurveyKeysNameTheirPlace(string lines, string expected)
     {
         string text = $"[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[survey]\n{lines}\n";

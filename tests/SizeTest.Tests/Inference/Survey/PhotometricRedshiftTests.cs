@@ -31,7 +31,7 @@ public sealed class PhotometricRedshiftTests(Xunit.Abstractions.ITestOutputHelpe
         output.WriteLine($"ignored: a = {a0.Value:F3} [{a0.Lo:F3}, {a0.Hi:F3}]; marginalised: a = {a1.Value:F3} [{a1.Lo:F3}, {a1.Hi:F3}]");
         Assert.False(Within(a0, -1.0, 3), $"ignoring z_err should bias a: {a0.Value}");
         Assert.True(Within(a1, -1.0, 2), $"marginalised a = {a1.Value}");
-        Assert.Contains(lik.SurveyNotes, n => n.Contains("flat prior in z", StringComparison.Ordinal));
+        Assert.Contains(lik.SurveyNotes, n => n.Contains("flat in z", StringComparison.Ordinal));
     }
 
     [Fact]

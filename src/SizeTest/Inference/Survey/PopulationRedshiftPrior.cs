@@ -1,0 +1,143 @@
+namespace SizeTest.Inference.Survey;
+
+/// <summary>
+/// The redshift distribution of the population a sample was drawn from, estimated from the observed redshifts and their quoted
+/// errors, for use as the prior π(z) of the photometric-redshift marginalisation (empirical Bayes).
+/// </summary>
+/// <remarks>
+/// <para>Model: π(z) = Σ_k p_k N(z; c_k, s²) with K fixed centres c_k = z_lo + (k + ½) h on the prior range, h = (z_hi − z_lo)/K,
+/// s = h/2, and weights p_k ≥ 0, Σ p_k = 1. Each observed z_i ~ N(z, σ_i²) given its true z, so z_i is drawn from
+/// Σ_k p_k N(z_i; c_k, s² + σ_i²): a Gaussian mixture with known, per-object component widths. The weights are the maximum-likelihood
+/// solution by the EM iteration p_k ← (1/N) Σ_i p_k L_ik / Σ_j p_j L_ij, L_ik = N(z_i; c_k, s² + σ_i²) (Dempster, Laird &amp; Rubin 1977;
+/// with per-object errors this is the deconvolution of Bovy, Hogg &amp; Roweis 2011, Ann. Appl. Stat. 5, 1657, with fixed means and
+/// variances). K = clamp(round((z_hi − z_lo) / median σ), 4, 40), so a component is about as wide as a typical error.</para>
+/// <para>Why: a prior flat over the sample's observed range is wider than the population's true range (observed redshifts scatter past
+/// its ends), and gives too much weight to redshifts the population does not reach. On mocks with z uniform on [0.5, 3] and
+/// σ_z = 0.05 (1+z) this biased the size evolution a by about +1σ at N = 1500 (a = −0.954 over 40 mocks, truth −1); the deconvolved
+/// prior removes it (tests: PopulationRedshiftPriorTests).</para>
+/// <para>Objects are used with equal weight (catalogue weights are not applied); at most <see cref="MaxObjects"/> objects, taken at an
+/// even stride, enter the estimate. Iteration stops when no weight changes by more than 10⁻⁷ or after <see cref="MaxIterations"/> steps.</para>
+/// </remarks>
+public sealed class PopulationRedshiftPrior
+{
+    /// <summary>Most objects used by the estimate.</summary>
+    public const int MaxObjects = 5000;
+
+    /// <summary>Most EM steps.</summary>
+    public const int MaxIterations = 500;
+
+    private readonly double[] _logWeights, _centres;
+
+    /// <summary>Component centres c_k.</summary>
+    public IReadOnlyList<double> Centres { get; }
+
+    /// <summary>Component weights p_k.</summary>
+    public IReadOnlyList<double> Weights { get; }
+
+    /// <summary>Component width s.</summary>
+    public double Width { get; }
+
+    /// <summary>The prior range's lower end.</summary>
+    public double Min { get; }
+
+    /// <summary>The prior range's upper end.</summary>
+    public double Max { get; }
+
+    /// <summary>EM steps taken.</summary>
+    public int Iterations { get; }
+
+    private PopulationRedshiftPrior(double[] centres, double[] weights, double width, double min, double max, int iterations)
+    {
+        Centres = _centres = centres;
+        Weights = weights;
+        _logWeights = weights.Select(w => Math.Log(w)).ToArray();
+        Width = width;
+        Min = min;
+        Max = max;
+        Iterations = iterations;
+    }
+
+    /// <summary>ln π(z) up to a constant (the mixture density; the range is applied by the caller).</summary>
+    public double LogDensity(double z)
+    {
+        double max = double.NegativeInfinity;
+        Span<double> t = stackalloc double[_logWeights.Length];
+        double inv = 1 / Width;
+        for (int k = 0; k < t.Length; k++)
+        {
+            double u = (z - _centres[k]) * inv;
+            t[k] = _logWeights[k] - 0.5 * u * u;
+            if (t[k] > max) max = t[k];
+        }
+        if (double.IsNegativeInfinity(max)) return max;
+        double sum = 0;
+        for (int k = 0; k < t.Length; k++) sum += Math.Exp(t[k] - max);
+        return max + Math.Log(sum);
+    }
+
+    /// <summary>Estimates the prior on [<paramref name="min"/>, <paramref name="max"/>] from observed redshifts and their errors.</summary>
+    /// <param name="z">Observed redshifts.</param>
+    /// <param name="zErr">Their 1σ errors (0: exact).</param>
+    /// <param name="min">The prior range's lower end.</param>
+    /// <param name="max">Its upper end (&gt; <paramref name="min"/>).</param>
+    public static PopulationRedshiftPrior Estimate(IReadOnlyList<double> z, IReadOnlyList<double> zErr, double min, double max)
+    {
+        ArgumentNullException.ThrowIfNull(z);
+        ArgumentNullException.ThrowIfNull(zErr);
+        if (z.Count != zErr.Count) throw new ArgumentException("z and z_err differ in length");
+        if (!(max > min)) throw new ArgumentException("the prior range needs max > min");
+        int stride = Math.Max(1, (z.Count + MaxObjects - 1) / MaxObjects);
+        var zs = new List<double>();
+        var vs = new List<double>();
+        for (int i = 0; i < z.Count; i += stride)
+        {
+            zs.Add(z[i]);
+            vs.Add(zErr[i] * zErr[i]);
+        }
+        var errs = zErr.Where(e => e > 0).Order().ToArray();
+        double median = errs.Length > 0 ? errs[errs.Length / 2] : (max - min) / 40;
+        int k = Math.Clamp((int)Math.Round((max - min) / median), 4, 40);
+        double h = (max - min) / k, s = 0.5 * h;
+        var c = new double[k];
+        for (int j = 0; j < k; j++) c[j] = min + (j + 0.5) * h;
+        int n = zs.Count;
+        // L_ik = N(z_i; c_k, s² + σ_i²), kept as a dense n × k table (n ≤ MaxObjects, k ≤ 40: at most 1.6 MB).
+        var like = new double[n * k];
+        for (int i = 0; i < n; i++)
+        {
+            double v = s * s + vs[i];
+            for (int j = 0; j < k; j++)
+            {
+                double d = zs[i] - c[j];
+                like[i * k + j] = Math.Exp(-0.5 * d * d / v) / Math.Sqrt(2 * Math.PI * v);
+            }
+        }
+        var p = Enumerable.Repeat(1.0 / k, k).ToArray();
+        var next = new double[k];
+        int it = 0;
+        for (; it < MaxIterations; it++)
+        {
+            Array.Clear(next);
+            for (int i = 0; i < n; i++)
+            {
+                double den = 0;
+                for (int j = 0; j < k; j++) den += p[j] * like[i * k + j];
+                if (!(den > 0)) continue; // an object far from every centre carries no information on the weights
+                for (int j = 0; j < k; j++) next[j] += p[j] * like[i * k + j] / den;
+            }
+            double total = next.Sum(), change = 0;
+            for (int j = 0; j < k; j++)
+            {
+                double w = next[j] / total;
+                change = Math.Max(change, Math.Abs(w - p[j]));
+                p[j] = w;
+            }
+            if (change < 1e-7) { it++; break; }
+        }
+        return new PopulationRedshiftPrior(c, p, s, min, max, it);
+    }
+
+    /// <summary>One line for the results' notes.</summary>
+    public string Describe() => FormattableString.Invariant(
+        $"the sample's redshift distribution deconvolved from the quoted z errors ({Centres.Count} Gaussian components of width {Width:G3} on [{Min:G4}, {Max:G4}], weights by EM in {Iterations} steps; empirical Bayes)");
+}
