@@ -94,7 +94,7 @@ internal static class FitRunner
             {
                 survey = bindSurvey(local, wholeSample);
                 a = a with { Hypotheses = survey.Hypotheses };
-                if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(w));
+                if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(SettingFlags.Text(w)));
             }
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)

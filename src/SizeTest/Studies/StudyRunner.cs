@@ -81,7 +81,7 @@ public static class StudyRunner
                 survey = Inference.Survey.SurveyBinding.Bind(surveyRequest, true, selected.Observables, study.Nuisance, hypotheses,
                     nm => StudyHypotheses.BuildChecked(study with { Nuisance = nm }));
                 hypotheses = survey.Hypotheses;
-                foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + note);
+                foreach (var note in survey.Notes) options.Log?.Invoke("survey: " + StudySettingKeys.Text(note));
             }
             options.Log?.Invoke($"fitting {string.Join(", ", study.Models)} ({study.Nuisance.Observable.Name()} observable)");
             var observables = selected.Observables;

@@ -19,6 +19,9 @@ internal static class StudySettingKeys
         "col" => "[columns]",
         "size_def" => "catalogue.size_definition",
         "z_marginal" => "survey.z_marginal",
+        "group" or "evolution" or "z_prior" or "z_prior_shape" or "abs_mag_range" or "size_errors" or "ignore_z_err" => "survey." + setting,
+        "size_luminosity" => "survey.size_relation = \"luminosity\"",
+        "size_mass" => "survey.size_relation = \"mass\"",
         "expect" => "[expected]",
         _ => setting,
     };

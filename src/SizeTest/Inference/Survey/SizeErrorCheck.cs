@@ -13,6 +13,6 @@ public static class SizeErrorCheck
         double max = 0;
         foreach (var x in e) { if (x > 0.2) count++; max = Math.Max(max, x); }
         return count == 0 ? null : FormattableString.Invariant(
-            $"{count} objects have sigma_theta/theta > 0.2 (largest {max:G3}); the log-normal error model (sigma_ln theta = sigma_theta/theta) is first order there — if the errors are quoted in theta, use --size-errors gaussian");
+            $"{count} objects have sigma_theta/theta > 0.2 (largest {max:G3}); the log-normal error model (sigma_ln theta = sigma_theta/theta) is first order there — if the errors are quoted in theta, use {{size_errors}} gaussian");
     }
 }

@@ -75,24 +75,24 @@ public sealed record SurveyModel(
             throw SettingProblem.Exception([new("{size_errors} gaussian is built for {observable} size only; fit sb or joint with the log-normal size errors (drop {size_errors} gaussian)")]);
         if (EvolutionBinEdges is { } e)
         {
-            if (e.Count < 3) throw new ArgumentException("--evolution binned:K needs K ≥ 2 bins");
+            if (e.Count < 3) throw SettingProblem.Exception([new("{evolution} binned:K needs K ≥ 2 bins")]);
             for (int k = 1; k < e.Count; k++)
                 if (!(e[k] > e[k - 1])) throw new ArgumentException("the evolution bins' redshift edges must increase (too few distinct redshifts for K bins?)");
         }
         if (Groups is { } g && g.Distinct(StringComparer.Ordinal).Count() != g.Count) throw new ArgumentException("group labels must be distinct");
         if (RedshiftPriorMin is { } zl && !(zl > 0)) throw new ArgumentException("the redshift prior's lower end must be > 0");
-        if (RedshiftPriorMin is { } z0 && RedshiftPriorMax is { } z1 && !(z0 < z1)) throw new ArgumentException("--z-prior LO:HI needs LO < HI");
+        if (RedshiftPriorMin is { } z0 && RedshiftPriorMax is { } z1 && !(z0 < z1)) throw SettingProblem.Exception([new("{z_prior} LO:HI needs LO < HI")]);
         if (RedshiftNodes is < 2 or > 40) throw new ArgumentException("the redshift quadrature needs 2–40 nodes");
-        if (AbsMagMin is { } lo && AbsMagMax is { } hi && !(lo < hi)) throw new ArgumentException("--abs-mag-range LO:HI needs LO < HI (LO the bright end, e.g. -23:-20)");
-        if (Relation == SizeRelationKind.Mass && HasWindow) throw new ArgumentException("--abs-mag-range selects on luminosity; it cannot be combined with --size-mass");
+        if (AbsMagMin is { } lo && AbsMagMax is { } hi && !(lo < hi)) throw SettingProblem.Exception([new("{abs_mag_range} LO:HI needs LO < HI (LO the bright end, e.g. -23:-20)")]);
+        if (Relation == SizeRelationKind.Mass && HasWindow) throw SettingProblem.Exception([new("{abs_mag_range} selects on luminosity; it cannot be combined with {size_mass}")]);
     }
 
     /// <summary>Equal-count redshift bin edges for K bins (edges at the sample quantiles; outer edges at the extreme redshifts).</summary>
     public static double[] EqualCountEdges(IReadOnlyList<double> z, int k)
     {
         ArgumentNullException.ThrowIfNull(z);
-        if (k < 2) throw new ArgumentException("--evolution binned:K needs K ≥ 2");
-        if (z.Count < 2 * k) throw new ArgumentException($"--evolution binned:{k} needs at least {2 * k} objects");
+        if (k < 2) throw SettingProblem.Exception([new("{evolution} binned:K needs K ≥ 2")]);
+        if (z.Count < 2 * k) throw SettingProblem.Exception([new($"{{evolution}} binned:{k} needs at least {2 * k} objects")]);
         var s = z.ToArray();
         Array.Sort(s);
         var edges = new double[k + 1];

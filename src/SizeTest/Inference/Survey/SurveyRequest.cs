@@ -74,8 +74,8 @@ public sealed record SurveyRequest(
     /// luminosity window's counts need the whole sample in one process), as option names; empty when all of it can.
     /// </summary>
     public IReadOnlyList<string> NeedsWholeSample(bool groupColumn) =>
-        [.. (Groups || groupColumn ? new[] { "--group" } : []), .. (EvolutionBins is not null ? new[] { "--evolution binned" } : []),
-         .. (AbsMagMin is not null || AbsMagMax is not null ? new[] { "--abs-mag-range" } : [])];
+        [.. (Groups || groupColumn ? new[] { "{group}" } : []), .. (EvolutionBins is not null ? new[] { "{evolution} binned" } : []),
+         .. (AbsMagMin is not null || AbsMagMax is not null ? new[] { "{abs_mag_range}" } : [])];
 
     /// <summary>Whether the photometry stage must prepare luminosities or masses.</summary>
     public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;
@@ -93,14 +93,14 @@ public sealed record SurveyRequest(
         IReadOnlyList<string>? groups = null;
         if (Groups)
         {
-            var g = observables.Survey.Group ?? throw new SizeTest.Foundation.Errors.InputException("--group needs a group column; name it with --group COLUMN");
+            var g = observables.Survey.Group ?? throw SettingProblem.Exception([new("{group} needs a group column; name it with {group} COLUMN")]);
             groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
-            if (groups.Count == 1) notes.Add($"--group: the group column has a single label '{groups[0]}'; fitting one population.");
+            if (groups.Count == 1) notes.Add($"{{group}}: the group column has a single label '{groups[0]}'; fitting one population.");
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
         bool marginalise = MarginalisesRedshift(observables, observable);
         if (!marginalise && observables.Survey.ZErr is not null)
-            notes.Add("z_err is mapped but ignored (--ignore-z-err): redshifts are taken as exact.");
+            notes.Add("z_err is mapped but ignored ({ignore_z_err}): redshifts are taken as exact.");
         PopulationRedshiftPrior? population = null;
         if (marginalise && RedshiftPriorShape == RedshiftPriorShape.Population && observables.Count > 0)
         {

@@ -127,7 +127,7 @@ internal sealed class SurveyRows
         Group = new int[n];
         if (sv.Groups is { Count: > 0 })
         {
-            var g = o.Survey.Group ?? throw new InputException("--group needs a group column; map it with --group COLUMN or --col group=NAME");
+            var g = o.Survey.Group ?? throw SettingProblem.Exception([new("{group} needs a group column; map it with {group} COLUMN or {col} group=NAME")]);
             var index = labels.Select((l, k) => (l, k)).ToDictionary(t => t.l, t => t.k, StringComparer.Ordinal);
             for (int i = 0; i < n; i++)
                 Group[i] = index.TryGetValue(g[i], out var k) ? k : throw new InputException($"object {i + 1} has group '{g[i]}', which is not among the fitted groups {string.Join(", ", labels)}");
@@ -153,11 +153,11 @@ internal sealed class SurveyRows
         bool hasLum = sv.Relation != SizeRelationKind.None;
         if (hasLum || sv.HasWindow)
         {
-            if (lum is null) throw new InputException(sv.Relation == SizeRelationKind.Mass
-                ? "--size-mass needs a 'log_mass' column; map it with --col log_mass=NAME"
-                : "--size-luminosity and --abs-mag-range need 'mag', 'abs_mag' or 'flux_density'; map one with --col ROLE=NAME");
-            if (sv.Relation == SizeRelationKind.Mass && !lum.IsMass) throw new InputException("--size-mass needs stellar masses (log_mass), but the luminosity data are not masses");
-            if (sv.Relation == SizeRelationKind.Luminosity && lum.IsMass) throw new InputException("the luminosity data are stellar masses; use --size-mass");
+            if (lum is null) throw SettingProblem.Exception([new(sv.Relation == SizeRelationKind.Mass
+                ? "{size_mass} needs a 'log_mass' column; map it with {col} log_mass=NAME"
+                : "{size_luminosity} and {abs_mag_range} need 'mag', 'abs_mag' or 'flux_density'; map one with {col} ROLE=NAME")]);
+            if (sv.Relation == SizeRelationKind.Mass && !lum.IsMass) throw SettingProblem.Exception([new("{size_mass} needs stellar masses (log_mass), but the luminosity data are not masses")]);
+            if (sv.Relation == SizeRelationKind.Luminosity && lum.IsMass) throw SettingProblem.Exception([new("the luminosity data are stellar masses; use {size_mass}")]);
             LuminosityBase = ModelLuminosity.BaseTerms(lum, o.Z, sv.PivotOrDefault);
             LuminosityZSlope = lum.Kind == LuminosityKind.FluxDensity ? 1 + lum.SpectralIndex : 0;
         }
@@ -166,7 +166,7 @@ internal sealed class SurveyRows
         double[]? w = o.Survey.Weight is { } ow ? (double[])ow.Clone() : null;
         if (sv.HasWindow)
         {
-            if (lum!.Kind is LuminosityKind.FluxDensity or LuminosityKind.StellarMass) throw new InputException("--abs-mag-range needs magnitudes (mag or abs_mag), not flux densities or masses");
+            if (lum!.Kind is LuminosityKind.FluxDensity or LuminosityKind.StellarMass) throw SettingProblem.Exception([new("{abs_mag_range} needs magnitudes (mag or abs_mag), not flux densities or masses")]);
             w ??= Enumerable.Repeat(1.0, n).ToArray();
             var lnDl = ModelLuminosity.LnLuminosityDistances(startModel, o.Z);
             double piv = sv.PivotOrDefault.AbsMag;
@@ -177,7 +177,7 @@ internal sealed class SurveyRows
                 bool inside = (sv.AbsMagMin is not { } lo || absMag >= lo) && (sv.AbsMagMax is not { } hi || absMag <= hi);
                 if (!inside) w[i] = 0; else kept++;
             }
-            if (kept == 0) throw new InputException($"no object of the sample lies in --abs-mag-range under world model '{h.Family.Name}'");
+            if (kept == 0) throw SettingProblem.Exception([new($"no object of the sample lies in {{abs_mag_range}} under world model '{h.Family.Name}'")]);
             notes.Add($"luminosity window: {kept} of {n} objects have M in [{sv.AbsMagMin?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "-inf"}, {sv.AbsMagMax?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "+inf"}] under {h.Family.Name} (its own D_L, at its start parameters); the others do not enter its likelihood, so its n differs from other models'.");
         }
         Weight = w;
@@ -235,7 +235,7 @@ internal sealed class SurveyRows
                 {
                     // No node inside the prior: the truncated normal on the prior by Gauss–Legendre (TruncatedRedshiftNodes).
                     if (!(zErr[i] > 0))
-                        throw new InputException($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen --z-prior or drop the object");
+                        throw SettingProblem.Exception([new($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen {{z_prior}} or drop the object")]);
                     truncated++;
                     gl ??= new GaussLegendre(J);
                     TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), NodeLogWeight.AsSpan(i * J, J));
@@ -282,8 +282,8 @@ internal sealed class SurveyRows
             }
             else
             {
-                notes.Add($"photometric redshifts: each object integrated over z with a prior on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with --z-prior)" : "")}, " +
-                    (sv.RedshiftPopulation is { } pop ? pop.Describe() + " ({z_prior_shape} flat for a flat prior)" : "flat in z") + $", times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); --ignore-z-err turns this off.");
+                notes.Add($"photometric redshifts: each object integrated over z with a prior on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with {z_prior})" : "")}, " +
+                    (sv.RedshiftPopulation is { } pop ? pop.Describe() + " ({z_prior_shape} flat for a flat prior)" : "flat in z") + $", times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); {{ignore_z_err}} turns this off.");
             if (truncated > 0)
                 notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
             }

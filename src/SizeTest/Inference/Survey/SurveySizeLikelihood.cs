@@ -79,7 +79,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _layout = layout;
         var notes = new List<string>();
         _n = o.Count;
-        _y = o.LnTheta ?? throw new InputException("fitting angular sizes needs a 'theta' column; map it with --col theta=NAME");
+        _y = o.LnTheta ?? throw SettingProblem.Exception([new("fitting angular sizes needs a 'theta' column; map it with {col} theta=NAME")]);
         _s2 = new double[_n];
         _theta = new double[_n];
         _sTheta = new double[_n];
@@ -112,9 +112,9 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         _gaussian = sv.SizeErrors == SizeErrorKind.Gaussian;
         if (_gaussian)
         {
-            if (o.LnThetaErr is null) throw new InputException("--size-errors gaussian needs a 'theta_err' column (the error quoted in θ)");
+            if (o.LnThetaErr is null) throw SettingProblem.Exception([new("{size_errors} gaussian needs a 'theta_err' column (the error quoted in θ)")]);
             for (int i = 0; i < _n; i++)
-                if (!(_sTheta[i] > 0)) throw new InputException($"--size-errors gaussian needs a positive theta_err for every object; object {i + 1} has none");
+                if (!(_sTheta[i] > 0)) throw SettingProblem.Exception([new($"{{size_errors}} gaussian needs a positive theta_err for every object; object {i + 1} has none")]);
             notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (20-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0).");
         }
 
