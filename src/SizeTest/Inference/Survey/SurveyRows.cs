@@ -325,12 +325,15 @@ internal sealed class SurveyRows
     }
 
     // Linearised marginal: each object's redshift posterior N(z; z_obs, σ²) on the flat prior [lo, hi] summarised by its mean (written to
-    // centre) and variance (returned): z_obs and σ² where the prior keeps all but 10⁻¹² of the Gaussian, else the truncated normal's
-    // moments by 32-point Gauss–Legendre on its window (TruncatedRedshiftNodes); counted in cut.
+    // centre) and variance (returned): z_obs and σ² where the prior keeps all but 10⁻¹² of the Gaussian (both ends more than 7.1σ away),
+    // else the truncated normal's moments, α = (lo − z)/σ, β = (hi − z)/σ, Z = Φ(β) − Φ(α): mean z + σ(φ(α) − φ(β))/Z, variance
+    // σ²[1 + (αφ(α) − βφ(β))/Z − ((φ(α) − φ(β))/Z)²] (Johnson, Kotz & Balakrishnan 1994, §10.1), or, where Z < 10⁻⁸ (the Gaussian far
+    // outside the prior, where that form cancels), by 32-point Gauss–Legendre on its window (TruncatedRedshiftNodes); counted in cut.
     internal static double[] LinearisedCentres(double[] z, double[] zErr, double lo, double hi, double[] centre, out int cut)
     {
+        const double Keep = 7.1; // Φ(−7.1) = 6·10⁻¹³
         var variance = new double[z.Length];
-        var gl = new GaussLegendre(32);
+        GaussLegendre? gl = null;
         Span<double> zk = stackalloc double[32], lw = stackalloc double[32];
         cut = 0;
         for (int i = 0; i < z.Length; i++)
@@ -346,8 +349,21 @@ internal sealed class SurveyRows
                 cut++;
                 continue;
             }
-            if (!(s > 0) || NormalMath.Phi((hi - z[i]) / s) - NormalMath.Phi((lo - z[i]) / s) > 1 - 1e-12) continue;
+            if (!(s > 0)) continue;
+            double a = (lo - z[i]) / s, b = (hi - z[i]) / s;
+            if (a < -Keep && b > Keep) continue;
             cut++;
+            double mass = NormalMath.Phi(b) - NormalMath.Phi(a);
+            if (mass > 1e-8)
+            {
+                double pa = Math.Exp(-0.5 * a * a) / Math.Sqrt(2 * Math.PI), pb = Math.Exp(-0.5 * b * b) / Math.Sqrt(2 * Math.PI);
+                double d = (pa - pb) / mass;
+                double ta = double.IsFinite(a) ? a * pa : 0, tb = double.IsFinite(b) ? b * pb : 0;
+                centre[i] = z[i] + s * d;
+                variance[i] = s * s * (1 + (ta - tb) / mass - d * d);
+                continue;
+            }
+            gl ??= new GaussLegendre(32);
             TruncatedRedshiftNodes.Fill(z[i], s, Math.Max(lo, 0), hi, gl, zk, lw);
             double mean = 0, m2 = 0;
             for (int k = 0; k < 32; k++) mean += Math.Exp(lw[k]) * zk[k];
