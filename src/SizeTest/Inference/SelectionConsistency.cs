@@ -70,8 +70,7 @@ public static class SelectionConsistency
         var cuts = nuisance.Cuts;
         var keep = new List<int>(n);
         var rejected = new List<RejectEntry>();
-        bool zPrior = survey is not null && survey.MarginalisesRedshift(observables, nuisance.Observable)
-                      && (survey.RedshiftPriorMin is not null || survey.RedshiftPriorMax is not null);
+        bool zPrior = survey?.HasStatedRedshiftPrior(observables, nuisance.Observable) == true;
         if (cuts.IsEmpty && !zPrior)
         {
             for (int i = 0; i < n; i++) keep.Add(i);

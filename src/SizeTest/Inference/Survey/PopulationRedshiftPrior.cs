@@ -147,6 +147,7 @@ public sealed class PopulationRedshiftPrior
                 for (int j = 0; j < k; j++) next[j] += p[j] * like[i * k + j] / den;
             }
             double total = next.Sum(), change = 0;
+            if (!(total > 0)) break; // no object anywhere near the range (a stated prior away from the data): the weights stay flat
             for (int j = 0; j < k; j++)
             {
                 double w = next[j] / total;

@@ -122,6 +122,11 @@ public sealed record SurveyRequest(
     public bool MarginalisesRedshift(Observables observables, ObservableKind observable) =>
         observables.Survey.ZErr is not null && !IgnoreZErr;
 
+    /// <summary>Whether objects are integrated over their redshifts under a prior with at least one end stated (a selection cut for
+    /// objects with exact redshifts, <see cref="OutsideRedshiftPrior"/>).</summary>
+    public bool HasStatedRedshiftPrior(Observables observables, ObservableKind observable) =>
+        MarginalisesRedshift(observables, observable) && (RedshiftPriorMin is not null || RedshiftPriorMax is not null);
+
     /// <summary>
     /// Whether object <paramref name="i"/> has no density under the stated redshift prior: it is integrated over redshift
     /// (<see cref="MarginalisesRedshift"/>), a prior end is stated, its z_err is 0 (its redshift is exact) and z lies outside
@@ -129,7 +134,6 @@ public sealed record SurveyRequest(
     /// truncated normal on the prior instead; without a stated prior the prior is the sample's range.)
     /// </summary>
     public bool OutsideRedshiftPrior(Observables observables, ObservableKind observable, int i) =>
-        MarginalisesRedshift(observables, observable) && (RedshiftPriorMin is not null || RedshiftPriorMax is not null)
-        && !(observables.Survey.ZErr![i] > 0)
+        HasStatedRedshiftPrior(observables, observable) && !(observables.Survey.ZErr![i] > 0)
         && (observables.Z[i] < (RedshiftPriorMin ?? double.NegativeInfinity) || observables.Z[i] > (RedshiftPriorMax ?? double.PositiveInfinity));
 }

@@ -42,6 +42,16 @@ public sealed class PopulationRedshiftPriorTests(Xunit.Abstractions.ITestOutputH
         Assert.Equal(1.0, prior.Weights.Sum(), 12);
     }
 
+    [Fact]
+    public void APriorRangeAwayFromEveryObjectLeavesTheWeightsFlatNotUndefined()
+    {
+        // Every N(z_i; c_k, s² + σ²) underflows to 0 (z ≈ 1, σ = 0.01, range [5, 6]): EM has no information, so the weights must
+        // stay at their flat start 1/K (closed form) instead of 0/0.
+        var prior = PopulationRedshiftPrior.Estimate([1.0, 1.1, 0.9], [0.01, 0.01, 0.01], 5, 6);
+        Assert.All(prior.Weights, w => Assert.Equal(1.0 / prior.Weights.Count, w, 12));
+        Assert.True(double.IsFinite(prior.LogDensity(5.5)));
+    }
+
     private static (double Population, double Flat) FitBoth(long seed, int n)
     {
         // z_true uniform on [0.5, 3], σ_z = 0.05 (1+z), 5% log-normal size errors, no stated prior: the range is the observed one.
