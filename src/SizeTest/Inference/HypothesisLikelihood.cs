@@ -106,7 +106,13 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
             if (kind == ObservableKind.Size)
                 _kernel = _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
             else
+            {
+                // With a size–luminosity relation the fit conditions on the luminosities, which come from the apparent magnitudes: a
+                // magnitude limit selects on them and so does not truncate the likelihood (SurveyJointLikelihood's notes say so).
+                if (survey.Relation == Survey.SizeRelationKind.Luminosity && hypothesis.Nuisance.Cuts.MagLimit is not null)
+                    cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts with { MagLimit = null });
                 _kernel = _surveyJoint = new Survey.SurveyJointLikelihood(hypothesis, _layout, observables, _cols, _distances, cut, _isophotal, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+            }
         }
         else
             _kernel = kind switch

@@ -27,6 +27,8 @@ public static class NuisanceParameters
         public const string KormendySlope = "kormendy_slope";
         /// <summary><c>size_luminosity_slope</c>.</summary>
         public const string SizeLuminositySlope = "size_luminosity_slope";
+        /// <summary><c>sb_luminosity_slope</c>.</summary>
+        public const string SbLuminositySlope = "sb_luminosity_slope";
     }
 
     /// <summary>R0: physical size at z = 0 in kpc, in R(z) = R0 (1+z)^a. Degenerate with H0 for sizes (only R0·H0 is constrained).</summary>
@@ -61,13 +63,22 @@ public static class NuisanceParameters
     public static readonly ParameterSpec SizeLuminositySlope = new(Names.SizeLuminositySlope, "β", "", 0.0, -3.0, 3.0,
         "slope β of the size–luminosity (or size–mass) relation R ∝ L^β");
 
+    /// <summary>
+    /// γ in the joint fit with a size–luminosity (size–mass) relation: the surface brightness is conditional on the luminosity too,
+    /// Δμ = −2.5 γ log10(L/L_pivot) (= γ (M − M_pivot) in absolute magnitudes). Where μ = m + 5 log10 θ + 2.5 log10 2π comes from
+    /// the same photometry as L, μ = M + 5 log10 R + 5 log10(D_L/D_A) + const, so with R ∝ L^β (and no Kormendy term) γ = 1 − 2β.
+    /// </summary>
+    public static readonly ParameterSpec SbLuminositySlope = new(Names.SbLuminositySlope, "γ", "mag/mag", 0.0, -5.0, 5.0,
+        "slope γ of surface brightness against absolute magnitude, Δμ = −2.5 γ log10(L/L_pivot)");
+
     /// <summary>All nuisance parameters of the basic models, in reporting order.</summary>
     public static IReadOnlyList<ParameterSpec> All { get; } = [R0Kpc, SizeEvolution, ScatterDex, Mu0, SbEvolution, ScatterMag, KormendySlope];
 
     /// <summary>
     /// Nuisance parameters of <paramref name="nuisance"/>, including its survey terms: per group (<c>NAME@GROUP</c>) R0 (per
     /// redshift bin <c>r0_kpc_binK</c> with binned evolution, which drops <c>size_evolution</c>), a, scatter and β; with surface
-    /// brightness (sb, joint) also μ0 (per bin <c>mu0_binK</c>, dropping <c>sb_evolution</c>), b and the SB scatter; the size–SB slope
+    /// brightness (sb, joint) also μ0 (per bin <c>mu0_binK</c>, dropping <c>sb_evolution</c>), b and the SB scatter, and in joint fits with a
+    /// size relation γ (<c>sb_luminosity_slope</c>); the size–SB slope
     /// <c>kormendy_slope</c> stays shared.
     /// </summary>
     public static IReadOnlyList<ParameterSpec> For(NuisanceModel nuisance)
@@ -105,6 +116,8 @@ public static class NuisanceParameters
                 list.Add(SbEvolution with { Name = Survey.SurveyModel.Named(SbEvolution.Name, g), Description = SbEvolution.Description + suffix });
             }
             list.Add(ScatterMag with { Name = Survey.SurveyModel.Named(ScatterMag.Name, g), Description = ScatterMag.Description + suffix });
+            if (size && sv.Relation != Survey.SizeRelationKind.None)
+                list.Add(SbLuminositySlope with { Name = Survey.SurveyModel.Named(SbLuminositySlope.Name, g), Description = SbLuminositySlope.Description + suffix });
         }
         if (nuisance.SizeSbRelation) list.Add(KormendySlope);
         return list;
@@ -112,7 +125,7 @@ public static class NuisanceParameters
 
     /// <summary>Whether <paramref name="name"/> is a survey-term parameter (β, per-group or per-bin names).</summary>
     public static bool IsSurveyName(string name) =>
-        name.StartsWith(SizeLuminositySlope.Name, StringComparison.Ordinal) || name.Contains('@', StringComparison.Ordinal) || name.StartsWith("r0_kpc_bin", StringComparison.Ordinal)
+        name.StartsWith(SizeLuminositySlope.Name, StringComparison.Ordinal) || name.StartsWith(SbLuminositySlope.Name, StringComparison.Ordinal) || name.Contains('@', StringComparison.Ordinal) || name.StartsWith("r0_kpc_bin", StringComparison.Ordinal)
         || name.StartsWith("mu0_bin", StringComparison.Ordinal);
 
     /// <summary>Nuisance parameters that enter the likelihood for the given observable.</summary>

@@ -20,7 +20,8 @@ namespace SizeTest.Inference;
 /// The cuts are applied exactly as the likelihood applies them to the observables: μ &lt; sb_limit on the
 /// zero-pointed surface brightness, θ &gt; min_size, and m &lt; mag_limit with
 /// m = μ − 5 log10(θ/arcsec) − 2.5 log10(2π) (the mean surface brightness within the half-light radius;
-/// see <see cref="SelectionLimits"/>). Only cuts the fitted observable models are applied
+/// see <see cref="SelectionLimits"/>); in a joint fit with the size–luminosity relation the limit is checked on the magnitude column
+/// the luminosities come from instead (the likelihood conditions on those magnitudes and does not truncate on them). Only cuts the fitted observable models are applied
 /// (<see cref="NuisanceModel.Validate"/> refuses the others).
 /// </remarks>
 public static class SelectionConsistency
@@ -79,6 +80,8 @@ public static class SelectionConsistency
         bool size = nuisance.Observable != ObservableKind.SurfaceBrightness, sb = nuisance.Observable != ObservableKind.Size;
         double[]? lnTheta = size ? observables.LnTheta : null;
         double[]? mu = sb ? observables.Mu : null;
+        var relation = survey?.Relation ?? nuisance.SurveyTerms.Relation;
+        double[]? magnitudes = sb && size && relation == Survey.SizeRelationKind.Luminosity ? observables.Mag : null;
         double lnMin = cuts.MinThetaArcsec is { } t ? Math.Log(t * AngleUnits.RadiansPerArcsec) : double.NaN;
         for (int i = 0; i < n; i++)
         {
@@ -87,10 +90,15 @@ public static class SelectionConsistency
                 entry = new(sourceRow(i), columnName(ColumnRole.Theta), F(Math.Exp(lnTheta[i]) * AngleUnits.ArcsecPerRadian), RejectReason.OutsideMinSize, $"θ must be > {F(minT)} arcsec (the minimum size)");
             else if (cuts.SbLimit is { } s && mu is not null && !(mu[i] < s))
                 entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mu[i]), RejectReason.OutsideSbLimit, $"μ must be < {F(s)} mag/arcsec2 (the surface-brightness limit)");
-            else if (cuts.MagLimit is { } m && mu is not null && observables.LnTheta is { } lt)
+            else if (cuts.MagLimit is { } m && magnitudes is not null)
+            {
+                // The size–luminosity relation's own magnitudes: the limit selects on the photometry the luminosities come from.
+                if (!(magnitudes[i] < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mag), F(magnitudes[i]), RejectReason.OutsideMagLimit, $"m must be < {F(m)} (the magnitude limit)");
+            }
+            else if (cuts.MagLimit is { } lim && mu is not null && observables.LnTheta is { } lt)
             {
                 double mag = mu[i] - 5.0 * Math.Log10(Math.Exp(lt[i]) * AngleUnits.ArcsecPerRadian) - 2.5 * Math.Log10(2 * Math.PI);
-                if (!(mag < m)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(m)} (the magnitude limit)");
+                if (!(mag < lim)) entry = new(sourceRow(i), columnName(ColumnRole.Mu), F(mag), RejectReason.OutsideMagLimit, $"m = μ − 5 log10 θ − 2.5 log10 2π must be < {F(lim)} (the magnitude limit)");
             }
             if (entry is null && zPrior && survey!.OutsideRedshiftPrior(observables, nuisance.Observable, i))
                 entry = new(sourceRow(i), columnName(ColumnRole.Z), F(observables.Z[i]), RejectReason.OutsideRedshiftPrior,

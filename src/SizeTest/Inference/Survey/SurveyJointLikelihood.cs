@@ -34,6 +34,8 @@ namespace SizeTest.Inference.Survey;
 internal sealed class SurveyJointLikelihood : IObservableKernel
 {
     private const double Ln10 = ModelPoint.Ln10, HalfLn2Pi = GaussianCore.HalfLn2Pi;
+    // −2.5 / ln 10: magnitudes per unit of ln L (Δμ = −2.5 γ log10(L/L_pivot) = SbMagPerLn · γ · ln(L/L_pivot)).
+    private const double SbMagPerLn = -2.5 / Ln10;
 
     private readonly ParameterLayout _layout;
     private readonly ObjectColumns _cols;
@@ -45,7 +47,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     private readonly double _eFixed, _lnPivot;
     private readonly double[]? _lnDaFixed;
     private readonly RedshiftGrid? _grid;
-    private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _slopeIndex, _mu0Index, _sbEvolutionIndex, _scatterMagIndex;
+    private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _slopeIndex, _sbSlopeIndex, _mu0Index, _sbEvolutionIndex, _scatterMagIndex;
 
     /// <summary>Notes for the results (what the survey terms did).</summary>
     public IReadOnlyList<string> Notes { get; }
@@ -93,6 +95,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         _evolutionIndex = Filled(_groups);
         _scatterIndex = Filled(_groups);
         _slopeIndex = Filled(_groups);
+        _sbSlopeIndex = Filled(_groups);
         _sbEvolutionIndex = Filled(_groups);
         _scatterMagIndex = Filled(_groups);
         var labels = sv.GroupLabels;
@@ -108,7 +111,11 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             {
                 if (!sv.Binned) _evolutionIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeEvolution, l));
                 _scatterIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.ScatterDex, l));
-                if (_hasLum) _slopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
+                if (_hasLum)
+                {
+                    _slopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
+                    _sbSlopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SbLuminositySlope, l));
+                }
             }
             if (!sv.Binned) _sbEvolutionIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SbEvolution, l));
             _scatterMagIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.ScatterMag, l));
@@ -122,9 +129,14 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                       (_joint ? ", D_A" : "") + (_rows.HasLuminosity ? ", the luminosities" : "") + (_cut is not null ? " and the selection truncation" : "") +
                       " move with z; K-corrections and extinctions are held at the catalogue's values.");
         if (_joint && _hasLum)
-            notes.Add("size–luminosity relation in the joint fit: the sizes are conditional on each object's luminosity, the surface brightnesses " +
-                      "are not (their mean is μ0 + 2.5 (n − b) log10(1+z) + K + A, plus κ times the relation's mean size). Where μ and the luminosity " +
-                      "come from one photometry, μ = m + 5 log10 θ + const is fixed by them, which this model does not use; the size fit with the relation does not have this issue.");
+            notes.Add("size–" + (sv.Relation == SizeRelationKind.Mass ? "mass" : "luminosity") + " relation in the joint fit: sizes and surface brightnesses are both " +
+                      "conditional on each object's " + (sv.Relation == SizeRelationKind.Mass ? "stellar mass" : "luminosity") + ", computed with each world model's own D_L " +
+                      "(μ's mean is μ0 + 2.5 (n − b) log10(1+z) + K + A − 2.5 γ log10(X/X_pivot), γ = sb_luminosity_slope, plus κ times the relation's mean size). " +
+                      "Where μ and L come from one photometry (μ = m + 5 log10 θ + 2.5 log10 2π), γ = 1 − 2β and b = −2a without a size–SB slope; " +
+                      "the μ and size scatters are then one scatter, which this model takes as independent, so its intervals on b, μ0 and γ are too narrow.");
+        if (_joint && sv.Relation == SizeRelationKind.Luminosity && h.Nuisance.Cuts.MagLimit is not null)
+            notes.Add("magnitude limit with the size–luminosity relation: the limit selects on the apparent magnitude the luminosities come from, which the fit " +
+                      "conditions on, so it does not truncate the likelihood; the rows outside it are rejected against the magnitude column.");
         Notes = notes;
     }
 
@@ -139,7 +151,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     // Per-evaluation constants of one group (and bin).
     private struct GroupPoint
     {
-        public double A, Sig, Beta, B, Sm;
+        public double A, Sig, Beta, B, Sm, Gam;
     }
 
     // One point's partials: ∂ℓ/∂m_t, ∂ℓ/∂m_μ (isophotal slope included), ∂ℓ/∂V_t, ∂ℓ/∂V_μ, ∂ℓ/∂C, and ln R̄ and ln(L/L_pivot) at the point.
@@ -167,6 +179,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 Beta = _slopeIndex[g] >= 0 ? v[_slopeIndex[g]] : 0,
                 B = _sbEvolutionIndex[g] >= 0 ? v[_sbEvolutionIndex[g]] : 0,
                 Sm = v[_scatterMagIndex[g]],
+                Gam = _sbSlopeIndex[g] >= 0 ? v[_sbSlopeIndex[g]] : 0,
             };
         double kap = _iKormendy >= 0 ? v[_iKormendy] / Ln10 : 0;
         double eExp = _expanding ? 2.0 : _iLumExp >= 0 && double.IsFinite(v[_iLumExp]) ? v[_iLumExp] : _eFixed;
@@ -197,7 +210,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 {
                     AddPartials(direct!, v, g, q0, w, d, kap, G, eExp, rows.Ln1pZ[i]);
                     sumDmL10 += w * d.Dm * rows.Ln1pZ[i] / Ln10;
-                    if (nodeA is not null && _grid is not null) ScatterNodes(nodeA, _grid, i, -w * (d.Dt * (2 * G.Beta - 1) + 2 * kap * G.Beta * d.Dm));
+                    if (nodeA is not null && _grid is not null) ScatterNodes(nodeA, _grid, i, -w * (d.Dt * (2 * G.Beta - 1) + 2 * (kap * G.Beta + SbMagPerLn * G.Gam) * d.Dm));
                 }
                 continue;
             }
@@ -241,7 +254,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 AddPartials(direct!, v, g, q0, share, pj[j], kap, G, eExp, rows.NodeLn1pZ[q]);
                 sumDmL10 += share * pj[j].Dm * rows.NodeLn1pZ[q] / Ln10;
                 if (nodeA is not null && rows.NodeGrid is not null)
-                    ScatterNodes(nodeA, rows.NodeGrid, q, -share * (pj[j].Dt * (2 * G.Beta - 1) + 2 * kap * G.Beta * pj[j].Dm));
+                    ScatterNodes(nodeA, rows.NodeGrid, q, -share * (pj[j].Dt * (2 * G.Beta - 1) + 2 * (kap * G.Beta + SbMagPerLn * G.Gam) * pj[j].Dm));
             }
         }
         if (adj is not null && e.DimmingDerivatives is { } dn)
@@ -270,7 +283,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         double lnLum = _hasLum ? lumBase + 2 * (lnDa + eExp * x) : 0;
         double lnSize = lnR0 + G.A * x + G.Beta * lnLum;
         double mt = lnSize + ModelPoint.LnKpcPerMpc - lnDa;
-        mm += kap * (lnSize - _lnPivot);
+        mm += kap * (lnSize - _lnPivot) + SbMagPerLn * G.Gam * lnLum;
         double isoSlope = 0;
         if (_isophotal is not null)
         {
@@ -314,7 +327,8 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         if (_hasLum)
         {
             Add(direct, _slopeIndex[g], dSize * d.LnLum);
-            Add(direct, _iLumExp, dSize * 2 * G.Beta * x);
+            Add(direct, _sbSlopeIndex[g], dm * SbMagPerLn * d.LnLum);
+            Add(direct, _iLumExp, (dSize * 2 * G.Beta + dm * 2 * SbMagPerLn * G.Gam) * x);
         }
         if (_iKormendy >= 0)
         {

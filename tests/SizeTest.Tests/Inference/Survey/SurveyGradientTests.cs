@@ -80,6 +80,8 @@ public sealed class SurveyGradientTests
         { "joint", "photoz", "omega_m" }, { "joint", "photoz-maglimit", "omega_m" }, { "joint", "groups", "omega_m" }, { "joint", "binned", "" },
         { "joint", "luminosity", "omega_m" }, { "joint", "photoz-luminosity", "omega_m" }, { "joint", "kormendy-photoz", "omega_m" },
         { "joint", "static-luminosity", "luminosity_exponent" }, { "joint", "photoz", "" },
+        // The magnitude limit with the size–luminosity relation selects on the conditioning magnitudes: no truncation, γ (sb_luminosity_slope) free.
+        { "joint", "photoz-luminosity-maglimit", "omega_m" }, { "joint", "kormendy-luminosity", "omega_m" },
     };
 
     [Theory]
