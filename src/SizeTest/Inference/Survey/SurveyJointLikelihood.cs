@@ -14,12 +14,14 @@ namespace SizeTest.Inference.Survey;
 /// <remarks>
 /// <para>Means at redshift z for object i in group g and redshift bin k (x = ln(1+z), ℓ = log10(1+z)):
 /// ln R̄ = ln R0_{g(,k)} + a_g x + β_g ln(L_i/L_pivot) (binned evolution drops a_g x), m_t = ln R̄ + ln(10⁻³) − ln D_A(z) (R0 in kpc,
-/// D_A in Mpc) and m_μ = μ0_{g(,k)} + 2.5 (n − b_g) ℓ + K_i + A_i + κ (ln R̄ − ln R_pivot) (binned evolution drops b_g: μ0 per bin),
+/// D_A in Mpc) and m_μ = μ0_{g(,k)} + 2.5 (n − b_g) ℓ + K_i + A_i + κ (ln R̄ − ln R_pivot) − (2.5/ln10) γ_g ln(L_i/L_pivot) (binned evolution
+/// drops b_g: μ0 per bin; γ = <c>sb_luminosity_slope</c>, joint fits with a size relation only, <see cref="NuisanceParameters.SbLuminositySlope"/>),
 /// n the world model's bolometric dimming exponent plus the flux-convention offset (Tolman 1930), ln(L_i/L_pivot) = C_i + 2 ln D_L(z)
 /// with ln D_L = ln D_A + e x (<see cref="ModelLuminosity"/>). Covariance as the built-in joint model:
 /// [[σ_t,i² + σ_g², κσ_g²], [κσ_g², σ_μ,i² + s_μ,g² + κ²σ_g²]] (σ_g = ln10·scatter_dex@g, κ = kormendy_slope/ln10, shared);
 /// surface brightness alone: μ_i ~ N(m_μ, σ_μ,i² + s_μ,g²). The selection truncation (<see cref="SelectionTruncation"/>: SB limit,
-/// magnitude limit, minimum size) and the isophotal correction (<see cref="IsophotalCorrection"/>) are those of the built-in kernels,
+/// magnitude limit, minimum size; with the size–luminosity relation the magnitude limit selects on the conditioning luminosities and is
+/// left out, <see cref="HypothesisLikelihood"/>) and the isophotal correction (<see cref="IsophotalCorrection"/>) are those of the built-in kernels,
 /// evaluated with these means.</para>
 /// <para>Photometric redshifts: p_i = ∫ p_i(θ, μ | z) N(z; z_obs, σ_z²) π(z) dz over the nodes of <see cref="SurveyRows"/>; at each node
 /// the dimming 2.5 (n − b) ℓ, D_A (joint) and the luminosity move with z, the truncation is taken at that node, and K and A are held at
@@ -28,8 +30,8 @@ namespace SizeTest.Inference.Survey;
 /// <para>Gradient: analytic, all in θ (<see cref="ModelAdjoint.Direct"/>) except the distances (node adjoint). With d_t, d_μ, D_Vt, D_Vμ,
 /// D_C the per-point partials of the bivariate Gaussian (as <see cref="JointKernel"/>): ∂/∂R0 = (d_t + κd_μ)/R0, ∂/∂a = (d_t + κd_μ)x,
 /// ∂/∂β = (d_t + κd_μ) ln(L/L_pivot), ∂/∂scatter_dex = 2σ ln10 (D_Vt + κ²D_Vμ + κD_C), ∂/∂μ0 = d_μ, ∂/∂b = −2.5 d_μ ℓ,
-/// ∂/∂scatter_mag = 2 s_μ D_Vμ, ∂/∂kormendy_slope = [d_μ(ln R̄ − ln R_pivot) + 2κσ²D_Vμ + σ²D_C]/ln10, ∂/∂ln D_A = d_t(2β − 1) + 2κβ d_μ,
-/// ∂/∂e = 2β x (d_t + κd_μ), ∂/∂θ_c = 2.5 d_μ ℓ ∂n/∂θ_c; photometric redshifts weight each node's partials by its posterior share.</para>
+/// ∂/∂scatter_mag = 2 s_μ D_Vμ, ∂/∂kormendy_slope = [d_μ(ln R̄ − ln R_pivot) + 2κσ²D_Vμ + σ²D_C]/ln10, ∂/∂γ = −2.5 d_μ ln(L/L_pivot)/ln10,
+/// ∂/∂ln D_A = d_t(2β − 1) + 2(κβ − 2.5γ/ln10) d_μ, ∂/∂e = 2x [β (d_t + κd_μ) − 2.5γ d_μ/ln10], ∂/∂θ_c = 2.5 d_μ ℓ ∂n/∂θ_c; photometric redshifts weight each node's partials by its posterior share.</para>
 /// </remarks>
 internal sealed class SurveyJointLikelihood : IObservableKernel
 {
