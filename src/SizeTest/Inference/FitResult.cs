@@ -19,10 +19,12 @@ namespace SizeTest.Inference;
 /// <param name="ProfileParameter">Profiled parameter, if any.</param>
 /// <param name="Expected">Expected ranges given by the user.</param>
 /// <param name="Seed">Seed of every random process in the study.</param>
+/// <param name="Survey">The survey terms (size relation, groups, binned evolution, photometric redshifts, size errors, luminosity
+/// window), or null when none was active.</param>
 public sealed record FitSettings(
     ObservableKind Observable, SelectionLimits Selection, bool SizeSbRelation, double PivotSizeKpc, double DimmingExponentOffset,
     int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, SamplerKind Sampler, int Walkers, int Steps, int LivePoints, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, int Seed);
+    IReadOnlyList<ExpectedRange> Expected, int Seed, Survey.SurveySettings? Survey = null);
 
 /// <summary>
 /// Everything a fit study produced: sample counts, the ranked models (the <c>models</c> array of results.json), Bayes

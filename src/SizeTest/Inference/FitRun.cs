@@ -82,7 +82,8 @@ public static class FitRun
                     lrt = LikelihoodRatioTest.Compute(h.Label, name, 0, fit.LogLikelihood, nfit.LogLikelihood, 1);
                     lrts.Add(lrt);
                 }
-                required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name || e.Parameter == Comparison.EvolutionTestTable.BaseName(name))));
+                required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name || e.Parameter == Comparison.EvolutionTestTable.BaseName(name)),
+                    h.Nuisance.Observable == ObservableKind.Joint && h.Nuisance.SurveyTerms.Relation != Survey.SizeRelationKind.None));
             }
 
             request.Timings?.Mark($"evolution tests {h.Label}");
@@ -134,7 +135,7 @@ public static class FitRun
                 first.Observable,
                 first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
                 request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
-                request.ProfileParameter, request.Expected, request.Seed),
+                request.ProfileParameter, request.Expected, request.Seed, Survey.SurveySettings.From(first.SurveyTerms)),
             Models = ranked,
             BayesFactors = ModelComparison.BayesFactors(ranked),
             LikelihoodRatioTests = lrts,
@@ -161,7 +162,14 @@ public static class FitRun
                       + (first.DimmingExponentOffset != 0 ? $" plus the band offset {first.DimmingExponentOffset}" : "") + "; K-corrections and extinction enter additively");
         if (first.Observable == ObservableKind.SurfaceBrightness && hypotheses.All(h => h.FreeParameters.Any(p => p.Name == NuisanceParameters.Names.SbEvolution)))
             notes.Add("with sb_evolution free, surface brightness alone constrains only n − b, so every world model fits equally well; compare the evolution b each model needs with an expectation ({expect} sb_evolution=LO:HI), or fit {observable} joint");
-        if (!first.Cuts.IsEmpty) notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood");
+        if (!first.Cuts.IsEmpty)
+        {
+            // With the size–luminosity relation a joint fit conditions on the magnitudes a magnitude limit selects on (SurveyJointLikelihood).
+            bool magConditioned = first.Observable == ObservableKind.Joint && first.SurveyTerms.Relation == Survey.SizeRelationKind.Luminosity && first.Cuts.MagLimit is not null;
+            if (!(magConditioned && first.Cuts with { MagLimit = null } == SelectionLimits.None))
+                notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood" +
+                          (magConditioned ? " (not the magnitude limit: with the size–luminosity relation the fit is conditional on the magnitudes it selects on)" : ""));
+        }
         if (ranked.Any(r => !r.Converged)) notes.Add("at least one fit did not converge; its numbers are not reliable");
         if (ranked.Count > 1 && ranked.All(r => r.LogEvidence is null)) notes.Add("Bayes factors are BIC approximations (no evidence computed)");
         if (sampler == SamplerKind.Mcmc) notes.Add("parameters are posterior medians with 16th–84th percentiles from the ensemble sampler; evidences are Laplace approximations at the maximum, so Bayes factors depend on the prior bounds");

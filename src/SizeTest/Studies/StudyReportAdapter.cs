@@ -207,11 +207,26 @@ public static class StudyReportAdapter
                 $"{h.Label} ({h.Family.Description}): {(cosmo.Length == 0 ? "no cosmological parameters" : string.Join("; ", cosmo.Select(Words)))}."));
         }
         var ev = new List<string>();
+        var sv = result.Settings.Survey;
+        string relation = sv?.SizeRelation switch { "luminosity" => " (L/L_pivot)^β", "mass" => " (M*/M_pivot)^β", _ => "" };
+        string relationWords = sv?.SizeRelation switch
+        {
+            "luminosity" => string.Create(Inv, $", L from each world model's own D_L (pivot M = {sv.PivotAbsMag:0.##})"),
+            "mass" => string.Create(Inv, $", M* scaled to each world model by (D_L/D_L,ref)² (pivot log10 M* = {sv.PivotLogMass:0.##})"),
+            _ => "",
+        };
+        bool binned = sv?.EvolutionBinEdges is not null;
         if (study.Nuisance.Observable != ObservableKind.SurfaceBrightness)
-            ev.Add("physical sizes follow R(z) = R0 (1+z)^a with log-normal intrinsic scatter (scatter_dex)");
+            ev.Add((binned ? $"physical sizes follow R = R0,k{relation} with one R0 per redshift bin ({sv!.EvolutionBinEdges!.Count - 1} bins) instead of a power law"
+                           : $"physical sizes follow R(z) = R0{relation} (1+z)^a") + relationWords + ", with log-normal intrinsic scatter (scatter_dex)");
         if (study.Nuisance.Observable != ObservableKind.Size)
-            ev.Add("surface brightness follows μ = μ0 + 2.5 (n − b) log10(1+z) with Gaussian intrinsic scatter (scatter_mag); n is the model's bolometric dimming exponent (4 for FLRW, Tolman 1930)" +
+            ev.Add((binned ? "surface brightness follows μ = μ0,k + 2.5 n log10(1+z) (one μ0 per redshift bin)" : "surface brightness follows μ = μ0 + 2.5 (n − b) log10(1+z)") +
+                   (study.Nuisance.Observable == ObservableKind.Joint && relation.Length > 0 ? " − 2.5 γ log10(L/L_pivot) (γ = sb_luminosity_slope: μ conditional on the luminosity too)" : "") +
+                   " with Gaussian intrinsic scatter (scatter_mag); n is the model's bolometric dimming exponent (4 for FLRW, Tolman 1930)" +
                    (study.Nuisance.DimmingExponentOffset != 0 ? string.Create(Inv, $" plus an offset of {study.Nuisance.DimmingExponentOffset:0.##} for the band convention") : ""));
+        if (sv?.Groups is { Count: > 0 } groups)
+            ev.Add($"each population of the group column ({string.Join(", ", groups)}) has its own size and surface-brightness parameters; the world model is shared");
+        if (sv?.SizeErrors == "gaussian") ev.Add("size errors are Gaussian in θ as quoted (integrated exactly)");
         if (study.Nuisance.SizeSbRelation)
             ev.Add(string.Create(Inv, $"μ is linked to log10 physical size by a free Kormendy-type slope at pivot {study.Nuisance.PivotSizeKpc:0.##} kpc"));
         var fixedEvolution = inputs.Hypotheses.SelectMany(h => h.Parameters.Where(p => p.Name is NuisanceParameters.Names.SizeEvolution or NuisanceParameters.Names.SbEvolution && !p.IsFree)
@@ -223,9 +238,19 @@ public static class StudyReportAdapter
         if (cuts.SbLimit is { } sb) cutWords.Add(string.Create(Inv, $"μ < {sb:0.##} mag/arcsec²"));
         if (cuts.MagLimit is { } m) cutWords.Add(string.Create(Inv, $"m < {m:0.##} mag"));
         if (cuts.MinThetaArcsec is { } t) cutWords.Add(string.Create(Inv, $"θ > {t:0.###} arcsec"));
-        list.Add(new Assumption("selection model", cutWords.Count == 0
-            ? "no selection cuts are modelled: the sample is taken to be complete in size and surface brightness at every redshift."
-            : $"the likelihood is truncated at {string.Join(" and ", cutWords)} (each object's density renormalised by the probability of passing the cuts at its redshift)."));
+        // A joint fit with the size–luminosity relation conditions on the magnitudes a magnitude limit selects on: not a truncation there.
+        bool magConditioned = cuts.MagLimit is not null && study.Nuisance.Observable == ObservableKind.Joint && sv?.SizeRelation == "luminosity";
+        if (magConditioned) cutWords.RemoveAll(w => w.StartsWith("m <", StringComparison.Ordinal));
+        string window = sv is { AbsMagMin: not null } or { AbsMagMax: not null }
+            ? string.Create(Inv, $" Only objects with {(sv.AbsMagMin is { } lo ? $"{lo:0.##} ≤ " : "")}M{(sv.AbsMagMax is { } hi ? $" ≤ {hi:0.##}" : "")} are fitted, recomputed for each world model.") : "";
+        list.Add(new Assumption("selection model", (cutWords.Count == 0
+            ? magConditioned ? "no truncation is modelled." : "no selection cuts are modelled: the sample is taken to be complete in size and surface brightness at every redshift."
+            : $"the likelihood is truncated at {string.Join(" and ", cutWords)} (each object's density renormalised by the probability of passing the cuts at its redshift).")
+            + (magConditioned ? string.Create(Inv, $" The magnitude limit m < {cuts.MagLimit:0.##} selects on the magnitudes the luminosities come from; the likelihood is conditional on them, so the limit is not a truncation.") : "")
+            + window));
+        if (sv is { PhotometricRedshifts: true })
+            list.Add(new Assumption("redshifts", string.Create(Inv,
+                $"photometric: each object is integrated over its redshift, N(z_obs, z_err²) times a {(sv.RedshiftPriorShape == "population" ? "prior deconvolved from the sample's own redshift distribution" : "flat prior")} on {(sv.RedshiftPriorMin is { } a ? $"{a:0.###}" : "the sample's lowest z")} – {(sv.RedshiftPriorMax is { } b ? $"{b:0.###}" : "its highest z")}, by {(sv.ZMarginal == "linear" ? "the linearised (effective-variance) marginal" : $"Gauss–Hermite quadrature with {sv.RedshiftNodes} nodes")}; K-corrections stay at the catalogue's values.")));
         list.Add(new Assumption("K-corrections", inputs.CorrectionLines.Count == 0
             ? "no photometric corrections were applied (magnitudes and surface brightnesses as catalogued)."
             : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));

@@ -31,11 +31,14 @@ public sealed record EvolutionExpectation(string Parameter, string Population, d
     /// <summary>
     /// The expectations in force: the shipped rows with the plausible range replaced by the study's own range where it
     /// gives one (the far range is then one range width beyond each end, as in the shipped table; the sign is kept),
-    /// plus any study range for a parameter the table does not have.
+    /// plus any study range for a parameter the table does not have. <paramref name="sbAtFixedLuminosity"/>: the fit's surface
+    /// brightness is conditional on each object's luminosity (a joint fit with a size relation, <c>sb_luminosity_slope</c>), so b is the
+    /// SB change at fixed luminosity (−2a when μ and L come from one photometry), not the luminosity evolution the shipped
+    /// <c>sb_evolution</c> row describes: that row is left out (a study's own range still applies).
     /// </summary>
-    public static IReadOnlyList<EvolutionExpectation> InForce(IReadOnlyList<ExpectedRange>? overrides)
+    public static IReadOnlyList<EvolutionExpectation> InForce(IReadOnlyList<ExpectedRange>? overrides, bool sbAtFixedLuminosity = false)
     {
-        var list = Shipped.ToList();
+        var list = Shipped.Where(e => !(sbAtFixedLuminosity && e.Parameter == NuisanceParameters.Names.SbEvolution)).ToList();
         foreach (var o in overrides ?? [])
         {
             int i = list.FindIndex(e => e.Parameter == o.Parameter);

@@ -109,11 +109,18 @@ public static class EvolutionTestTable
     public static IEnumerable<string> EvolutionNames(IEnumerable<string> parameterNames) =>
         parameterNames.Where(n => Parameters.Contains(BaseName(n))).OrderBy(n => Parameters.ToList().IndexOf(BaseName(n)));
 
+    /// <summary>Whether the settings make b the SB change at fixed luminosity (<see cref="EvolutionExpectation.InForce"/>).</summary>
+    public static bool SbAtFixedLuminosity(FitSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        return settings.Observable == ObservableKind.Joint && settings.Survey is { SizeRelation: not "none" };
+    }
+
     /// <summary>Rows for every free evolution parameter of every model, in the models' ranked order.</summary>
     public static IReadOnlyList<EvolutionTestRow> From(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
-        var expectations = EvolutionExpectation.InForce(result.Settings.Expected);
+        var expectations = EvolutionExpectation.InForce(result.Settings.Expected, SbAtFixedLuminosity(result.Settings));
         var rows = new List<EvolutionTestRow>();
         foreach (var m in result.Models)
             foreach (var name in EvolutionNames(m.Parameters.Select(p => p.Name)))

@@ -88,4 +88,61 @@ public sealed class JointLuminosityReferenceTests(ITestOutputHelper output) : ID
         Within("sb_luminosity_slope", 1.0, 4);
         Within("sb_evolution", 0.0, 4);
     }
+
+    [Fact]
+    public void AStudyStatesTheConditionalModelInItsAssumptionsSettingsAndEvolutionVerdicts()
+    {
+        // The committed mock (m < 24) through a study: the report's assumptions must not claim a truncation at m < 24, the evolution form
+        // must carry the relation and γ, results.json must record the survey terms, and b (the SB change at fixed luminosity here: −2a,
+        // not luminosity evolution) must not be judged against the shipped luminosity-evolution range (it lies outside it, b ≈ 2.3).
+        string dir = _t.PathOf("study");
+        Directory.CreateDirectory(dir);
+        File.Copy(Path.Combine(Dir, "joint_luminosity_mock.csv"), Path.Combine(dir, "mock.csv"));
+        File.WriteAllText(Path.Combine(dir, "study.toml"), """
+            name = "joint-luminosity"
+            seed = 2
+            [catalogue]
+            path = "mock.csv"
+            synthetic = true
+            [columns]
+            z = "z"
+            theta = "theta:arcsec"
+            theta_err = "theta_err:arcsec"
+            mu = "mu"
+            mu_err = "mu_err"
+            mag = "mag"
+            [models]
+            names = ["lcdm"]
+            observable = "joint"
+            [selection]
+            mag_limit = 24
+            [survey]
+            size_relation = "luminosity"
+            [inference]
+            starts = 1
+            bootstrap = 0
+            sampler = "none"
+            [report]
+            formats = ["html"]
+            """);
+        string outDir = Path.Combine(dir, "out");
+        var (code, _, err) = CliRunner.Run("run", Path.Combine(dir, "study.toml"), "--out", outDir);
+        Assert.True(code == 0, err);
+        var report = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "report-data.json"))).RootElement.GetProperty("report");
+        string Assumption(string topic) => report.GetProperty("assumptions").EnumerateArray()
+            .Single(a => a.GetProperty("topic").GetString() == topic).GetProperty("statement").GetString()!;
+        Assert.Contains("not a truncation", Assumption("selection model"), StringComparison.Ordinal);
+        Assert.DoesNotContain("truncated at", Assumption("selection model"), StringComparison.Ordinal);
+        Assert.Contains("R0 (L/L_pivot)^β (1+z)^a", Assumption("evolution form"), StringComparison.Ordinal);
+        Assert.Contains("γ log10(L/L_pivot)", Assumption("evolution form"), StringComparison.Ordinal);
+        var results = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "results.json"))).RootElement;
+        var survey = results.GetProperty("settings").GetProperty("survey");
+        Assert.Equal("luminosity", survey.GetProperty("size_relation").GetString());
+        Assert.Equal(-21, survey.GetProperty("pivot_abs_mag").GetDouble());
+        Assert.False(survey.GetProperty("photometric_redshifts").GetBoolean());
+        var b = results.GetProperty("required_evolution").EnumerateArray().Single(r => r.GetProperty("parameter").GetString() == "sb_evolution");
+        Assert.InRange(b.GetProperty("value").GetDouble(), 2.0, 2.6);
+        Assert.DoesNotContain("expected", b.GetProperty("verdict").GetString()!, StringComparison.Ordinal);
+        Assert.DoesNotContain("outside", b.GetProperty("verdict").GetString()!, StringComparison.Ordinal);
+    }
 }
