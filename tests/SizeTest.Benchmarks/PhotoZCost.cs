@@ -48,12 +48,17 @@ public static class PhotoZCost
         var i = Time(photo, null, repeats, observable);
         var q = Time(photo, quad, repeats, observable);
         var l = size ? Time(photo, linear, repeats, observable) : q;
+        // The CLI default: the survey model as SurveyRequest.Build makes it (prior range = the sample's redshift range, shape = the
+        // population prior estimated by EM, the linearised marginal for size), its EM timed with it.
+        var pop = Time(photo, null, repeats, observable, fromRequest: true);
         o.WriteLine(FormattableString.Invariant($"photo-z cost, N = {n}, {repeats} fits each (ΛCDM, default free parameters: Ωm held at 0.3, observable {observable}), {Environment.ProcessorCount} cores; median and fastest:"));
         Line(o, "spectroscopic, equal errors", s);
         Line(o, "spectroscopic, unequal errors", u);
         Line(o, "photo-z mock, z taken as exact", i);
         Line(o, "photo-z, quadrature (7 nodes)", q);
         if (size) Line(o, "photo-z, linearised", l);
+        Line(o, "photo-z, CLI default (population)", pop);
+        o.WriteLine(FormattableString.Invariant($"  population prior: EM (SurveyRequest.Build) {pop.Prior * 1e3:0.0} ms (fastest) of {pop.Prior * 1e3 + pop.Best * 1e3:0.0} ms with the fit"));
         foreach (var (name, m) in size ? new[] { ("quadrature", q), ("linearised", l) } : [("quadrature", q)])
             o.WriteLine(FormattableString.Invariant(
                 $"ratio {name} / spectroscopic (fastest): {m.Best / s.Best:0.00}x wall against equal errors, {m.Best / u.Best:0.00}x against unequal errors; per evaluation {m.BestPerEval / s.BestPerEval:0.00}x and {m.BestPerEval / u.BestPerEval:0.00}x; target ≤ 3x"));
@@ -68,11 +73,12 @@ public static class PhotoZCost
     }
 
     private static void Line(TextWriter o, string what, Timing t) =>
-        o.WriteLine(FormattableString.Invariant($"  {what,-32} {t.Median * 1e3,9:0.0} ms (fastest {t.Best * 1e3,8:0.0} ms)  {t.Evaluations,5} evaluations  {t.BestPerEval * 1e6,8:0.0} µs/evaluation (fastest)"));
+        o.WriteLine(FormattableString.Invariant($"  {what,-34} {t.Median * 1e3,9:0.0} ms (fastest {t.Best * 1e3,8:0.0} ms)  set-up (Bind) {t.Bind * 1e3,6:0.0} ms  {t.Evaluations,5} evaluations  {t.BestPerEval * 1e6,8:0.0} µs/evaluation (fastest, Bind excluded)"));
 
-    private readonly record struct Timing(double Median, double Best, int Evaluations)
+    // Median and fastest whole fit (Bind + Fit), the Bind of that fastest run, the fastest prior estimate (CLI-default line only).
+    private readonly record struct Timing(double Median, double Best, double Bind, int Evaluations, double Prior = 0)
     {
-        public double BestPerEval => Best / Math.Max(Evaluations, 1);
+        public double BestPerEval => (Best - Bind) / Math.Max(Evaluations, 1);
     }
 
     // sizeErrAtZMax: the size-error fraction grows linearly in z from 5% to this (null: 5% everywhere).
@@ -83,21 +89,35 @@ public static class PhotoZCost
         return MockSurveyGenerator.Generate(new MockSurveySpec(model, design, seed, null, null, null), parallel: false);
     }
 
-    private static Timing Time(Observables obs, SurveyModel? survey, int repeats, ObservableKind observable)
+    // fromRequest: the survey model is built per run by the CLI's default SurveyRequest (its time reported as Prior, not in the fit's).
+    private static Timing Time(Observables obs, SurveyModel? survey, int repeats, ObservableKind observable, bool fromRequest = false)
     {
-        var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(observable, Survey: survey));
         var times = new double[repeats];
+        var binds = new double[repeats];
+        var priors = new double[repeats];
         int evals = 0;
         for (int r = -1; r < repeats; r++)
         {
             var sw = Stopwatch.StartNew();
-            var fit = MaximumLikelihood.Fit(h.Bind(obs));
+            if (fromRequest)
+            {
+                survey = new SurveyRequest().Build(obs, observable, new List<string>());
+                if (survey.RedshiftPopulation is null) throw new InvalidOperationException("the default request gave no population prior");
+            }
+            double prior = sw.Elapsed.TotalSeconds;
+            var h = Hypothesis.Create(WorldModels.LambdaCdm, new NuisanceModel(observable, Survey: survey));
+            sw.Restart();
+            var bound = h.Bind(obs);
+            double bind = sw.Elapsed.TotalSeconds;
+            var fit = MaximumLikelihood.Fit(bound);
             sw.Stop();
             if (!fit.Converged) throw new InvalidOperationException("fit did not converge: " + fit.ExitReason.Text);
             evals = fit.Evaluations;
-            if (r >= 0) times[r] = sw.Elapsed.TotalSeconds;
+            if (r >= 0) { times[r] = sw.Elapsed.TotalSeconds; binds[r] = bind; priors[r] = prior; }
         }
+        int best = Array.IndexOf(times, times.Min());
+        double fastestBind = binds[best], fastest = times[best];
         Array.Sort(times);
-        return new Timing(times[repeats / 2], times[0], evals);
+        return new Timing(times[repeats / 2], fastest, fastestBind, evals, priors.Min());
     }
 }
