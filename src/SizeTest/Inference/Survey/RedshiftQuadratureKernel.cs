@@ -19,7 +19,7 @@ namespace SizeTest.Inference.Survey;
 /// (∂m/∂ln R0 = 1, ∂m/∂a = ln(1+z), ∂m/∂β = C + 2 ln D_A + 2e ln(1+z), ∂m/∂e = 2β ln(1+z)). ∂m/∂ln D_A = 2β − 1 goes to the grid nodes
 /// through each redshift node's stencil.</para>
 /// </remarks>
-internal sealed class RedshiftQuadratureKernel
+internal sealed class RedshiftQuadratureKernel : IRedshiftMarginalKernel
 {
     private const double HalfLn2Pi = 0.91893853320467274;
     private const int BlockValues = 2048;

@@ -28,7 +28,8 @@ namespace SizeTest.Inference.Survey;
 /// z_ij = z_obs + √2 σ_z x_j; nodes outside the prior range are dropped and the rest renormalised. D_A at the nodes comes from the
 /// same redshift grid (its nodes are computed once per parameter vector; fixed cosmology: exact per node). The luminosity of
 /// flux-density objects is re-evaluated at each node (flux and magnitudes held fixed, K and A at the catalogue's values).
-/// Log-normal errors without a size cut run on the block-vectorised <see cref="RedshiftQuadratureKernel"/>.
+/// Log-normal errors without a size cut run on the block-vectorised <see cref="RedshiftQuadratureKernel"/> (the linearised marginal below on
+/// <see cref="LinearisedRedshiftKernel"/>).
 /// <see cref="RedshiftMarginal.Linear"/> instead evaluates each object once, at the mean z̄ of its redshift posterior under the prior
 /// (<see cref="SurveyRows.LinearisedCentres"/>), with the scatter σ replaced by √(σ² + m′² s²), s² that posterior's variance and
 /// m′ = ∂m/∂z = (a + 2βe − βs_C)/(1+z̄) + (2β − 1) ∂ln D_A/∂z (s_C = ∂C/∂ln(1+z); ∂ln D_A/∂z from the grid interpolant's derivative,
@@ -169,18 +170,21 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             if (sv.Relation != SizeRelationKind.None) _luminositySlopeIndex[g] = Need(SurveyModel.Named(NuisanceParameters.Names.SizeLuminositySlope, l));
         }
 
-        // Log-normal errors without a size cut: the block-vectorised quadrature.
-        if (_photoZ && !_linear && !_gaussian && !_truncated)
+        // Log-normal errors without a size cut: the block-vectorised quadrature or linearised marginal.
+        if (_photoZ && !_gaussian && !_truncated)
         {
             var cell = new int[_n];
             for (int i = 0; i < _n; i++) cell[i] = _group[i] * _bins + _bin[i];
-            _quadrature = new RedshiftQuadratureKernel(_nodesPerObject, _y, _s2, _group, cell, _weight, _nodeLn1pz, _nodeLnz, _nodeLogW,
-                _hasLum ? _nodeLumBase : null, _nodeLnDaFixed, _nodeGrid);
+            _marginal = _linear
+                ? new LinearisedRedshiftKernel(_y, _s2, _zErr2, _group, cell, _groups * _bins, _weight, _nodeLn1pz, _nodeLnz, _hasLum ? _nodeLumBase : null,
+                    _lumZSlope, _nodeLnDaFixed, _lnDaSlopeFixed, _nodeGrid, _slopeWeights)
+                : new RedshiftQuadratureKernel(_nodesPerObject, _y, _s2, _group, cell, _weight, _nodeLn1pz, _nodeLnz, _nodeLogW,
+                    _hasLum ? _nodeLumBase : null, _nodeLnDaFixed, _nodeGrid);
         }
         Notes = notes;
     }
 
-    private readonly RedshiftQuadratureKernel? _quadrature;
+    private readonly IRedshiftMarginalKernel? _marginal;
     // Linearised photo-z marginal (one node per object, at its posterior mean z̄): the posterior variance s², 1/(1+z̄), 1/z̄,
     // d ln D_A/dz at z̄ (fixed cosmology) or its weights on the node grid, ∂C/∂ln(1+z).
     private readonly bool _linear;
@@ -214,7 +218,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         double[]? direct = null;
         double[]? nodeA = adj?.NodeAdjoint;
         if (adj is not null) direct = adj.Direct ??= new double[_layout.FreeCount];
-        if (_quadrature is not null) return QuadratureSum(e, start, end, direct, nodeA, lnR0, a, beta, sig, eExp);
+        if (_marginal is not null) return MarginalSum(e, start, end, direct, nodeA, lnR0, a, beta, sig, eExp);
         double acc = 0;
         int J = _nodesPerObject;
         Span<double> lp = stackalloc double[Math.Max(J, 1)];
@@ -281,17 +285,17 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
         return acc;
     }
 
-    // The photo-z quadrature (RedshiftQuadratureKernel) with its partials summed per cell and group, mapped to the free parameters once.
-    private double QuadratureSum(LikelihoodEvaluation e, int start, int end, double[]? direct, double[]? nodeA,
+    // The photo-z marginal's kernel (quadrature or linearised) with its partials summed per cell and group, mapped to the free parameters once.
+    private double MarginalSum(LikelihoodEvaluation e, int start, int end, double[]? direct, double[]? nodeA,
         ReadOnlySpan<double> lnR0, ReadOnlySpan<double> a, ReadOnlySpan<double> beta, ReadOnlySpan<double> sig, double eExp)
     {
         double dExp = 0;
-        if (direct is null) return _quadrature!.Sum(lnR0, a, beta, sig, eExp, e.GridLnDaOverZ, start, end, default, default, default, default, ref dExp, null);
+        if (direct is null) return _marginal!.Sum(lnR0, a, beta, sig, eExp, e.GridLnDaOverZ, start, end, default, default, default, default, ref dExp, null);
         var v = e.Values;
         int gb = _groups * _bins;
         Span<double> dCell = stackalloc double[gb], dX = stackalloc double[_groups], dS = stackalloc double[_groups], dL = stackalloc double[_groups];
         dCell.Clear(); dX.Clear(); dS.Clear(); dL.Clear();
-        double value = _quadrature!.Sum(lnR0, a, beta, sig, eExp, e.GridLnDaOverZ, start, end, dCell, dX, dS, dL, ref dExp, nodeA);
+        double value = _marginal!.Sum(lnR0, a, beta, sig, eExp, e.GridLnDaOverZ, start, end, dCell, dX, dS, dL, ref dExp, nodeA);
         for (int q = 0; q < gb; q++) Add(direct, _radiusIndex[q], dCell[q] / v[_radiusIndex[q]]);
         for (int g = 0; g < _groups; g++)
         {

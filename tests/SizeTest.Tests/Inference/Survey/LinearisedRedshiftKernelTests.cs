@@ -9,7 +9,7 @@ using static SizeTest.Tests.Inference.Survey.SurveyFitting;
 namespace SizeTest.Tests.Inference.Survey;
 
 /// <summary>
-/// The linearised photo-z marginal's block-vectorised kernel (LinearisedRedshiftKernel) against stored values of the
+/// The linearised photo-z marginal's block-vectorised kernel (<see cref="LinearisedRedshiftKernel"/>) against stored values of the
 /// per-object implementation it replaced (SurveySizeLikelihood.Accumulate at 188f94e: one object at a time, σ_eff = √(σ² + m′² s²),
 /// partials added to the free parameters per object). The kernel sums the same terms in another order (per block, cell and group;
 /// vector logarithms), so agreement to 10⁻¹² relative (ln L) and 10⁻¹² (|g| + 1) (gradient) shows it computes the same likelihood.
@@ -94,6 +94,7 @@ public sealed class LinearisedRedshiftKernelTests(Xunit.Abstractions.ITestOutput
         if (Environment.GetEnvironmentVariable("SIZETEST_PRINT_LINEAR") == "1") return;
         var want = Stored[kind];
         Assert.Equal(want.Length, got.Length);
+        output.WriteLine(FormattableString.Invariant($"{kind}: ln L relative {Math.Abs(got[0] / want[0] - 1):E1}, gradient max |Δ|/(|g| + 1) {Enumerable.Range(1, got.Length - 1).Max(j => Math.Abs(got[j] - want[j]) / (Math.Abs(want[j]) + 1)):E1}"));
         Assert.True(Math.Abs(got[0] - want[0]) <= 1e-12 * Math.Abs(want[0]), $"{kind}: ln L {got[0]:R}, stored {want[0]:R}");
         for (int j = 1; j < got.Length; j++)
             Assert.True(Math.Abs(got[j] - want[j]) <= 1e-12 * (Math.Abs(want[j]) + 1), $"{kind}: {fp[j - 1].Name}: {got[j]:R}, stored {want[j]:R}");
