@@ -16,8 +16,10 @@ namespace SizeTest.Benchmarks;
 /// after one warm-up (the machine is shared: the fastest is the steadier number), for: a spectroscopic mock (σ_z = 0) with equal
 /// size errors (the fit reduces to redshift-grid slice sums, SizeSliceGram), a spectroscopic mock whose size errors grow from 5% to
 /// 30% over z (unequal: the per-object path real catalogues take), the photo-z mock with z taken as exact, and with z marginalised by
-/// the quadrature (7 nodes) and by the linearised marginal. Prints the ratios of both marginals against both spectroscopic paths
-/// (fastest runs), and the quadrature's cost against its number of redshift nodes (3, 5, 7, 9).
+/// the quadrature (7 nodes) and by the linearised marginal, and the CLI's default survey model (SurveyRequest.Build: prior range the
+/// sample's, the population prior estimated by EM, the linearised marginal for size), whose EM is timed on its own line. Each line gives
+/// the Bind time of its fastest run (set-up) and the time per evaluation without it. Prints the ratios of both marginals against both
+/// spectroscopic paths (fastest runs), and the quadrature's cost against its number of redshift nodes (3, 5, 7, 9).
 /// </summary>
 public static class PhotoZCost
 {

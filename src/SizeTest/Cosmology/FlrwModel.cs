@@ -328,8 +328,10 @@ public abstract class FlrwModel : IWorldModel
     /// <summary>
     /// AVX2 version of the hot loop, four redshifts per step: vector log, 32-bit panel
     /// indices, one gather per coefficient, Estrin's scheme in vector FMAs. Returns the
-    /// number of elements done (a multiple of 4); the caller finishes the rest.
+    /// number of elements done (a multiple of 4); the caller finishes the rest. Compiled optimised at once: a fit's set-up calls it a few
+    /// times only, which tiered compilation would leave in unoptimised code.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private unsafe int EvaluateTableAvx2(ChebyshevPanelTable table, TableKind kind, ReadOnlySpan<double> z, Span<double> result, double scale, bool divide, bool multiply)
     {
         int n = z.Length & ~3;

@@ -76,16 +76,12 @@ public static class ModelLuminosity
     public static double[] LnLuminosityDistances(IWorldModel model, ReadOnlySpan<double> z)
     {
         ArgumentNullException.ThrowIfNull(model);
+        // In the given order: a world model's batch distances are per redshift (no sort of every z; same values).
         int n = z.Length;
-        var order = new int[n];
-        var zs = z.ToArray();
-        for (int i = 0; i < n; i++) order[i] = i;
-        Array.Sort(zs, order);
-        var da = new double[n];
-        model.AngularDiameterDistances(zs, da);
-        double e = DistanceExponent(model);
         var r = new double[n];
-        for (int k = 0; k < n; k++) r[order[k]] = Math.Log(da[k]) + e * Math.Log(1 + zs[k]);
+        model.AngularDiameterDistances(z, r);
+        double e = DistanceExponent(model);
+        for (int k = 0; k < n; k++) r[k] = Math.Log(r[k]) + e * Math.Log(1 + z[k]);
         return r;
     }
 

@@ -92,6 +92,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     }
 
     /// <inheritdoc/>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double Sum(ReadOnlySpan<double> lnR0, ReadOnlySpan<double> a, ReadOnlySpan<double> beta, ReadOnlySpan<double> sig, double eExp,
         double[]? grid, int start, int end,
         Span<double> dCell, Span<double> dGroupX, Span<double> dGroupSig, Span<double> dGroupLum, ref double dExp, double[]? nodeAdjoint)
@@ -199,6 +200,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     }
 
     // ln D_A(z̄) and d ln D_A/dz at z̄ of objects [b0, b0 + nb) from the grid's node values (lanes up to padded: 0).
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private void GridDistances(double[] g, int b0, int nb, int padded, double[] da, double[] slope)
     {
         var idx = _grid!.Index;
@@ -217,6 +219,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     }
 
     // Each object's coefficients (ln R0 of its cell, k1, k2, ks, σ² and β of its group) into six rows of length size (lanes past nb: cell 0).
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private void Coefficients(ReadOnlySpan<double> lnR0, ReadOnlySpan<double> beta, ReadOnlySpan<double> k1, ReadOnlySpan<double> k2,
         ReadOnlySpan<double> ks, ReadOnlySpan<double> sg2, int b0, int nb, int padded, double[] coef, int size)
     {
@@ -233,6 +236,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     }
 
     // The stored per-object partials d, v, t of objects [b0, b0 + nb): sums per cell and group (several cells) and the grid nodes' adjoint.
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private void Scatter(ReadOnlySpan<double> k2, double eExp, bool lum, int b0, int nb,
         ReadOnlySpan<double> da, ReadOnlySpan<double> dsl, double[] parts, int size,
         Span<double> sd, Span<double> sx, Span<double> sv, Span<double> sl, double[]? nodeAdjoint)

@@ -1,3 +1,6 @@
+using System.Numerics;
+using System.Runtime.InteropServices;
+
 namespace SizeTest.Inference.Survey;
 
 /// <summary>
@@ -69,6 +72,7 @@ public sealed class PopulationRedshiftPrior
 
     /// <summary>ln π(z) up to a constant: the tabulated mixture inside [<see cref="Min"/>, <see cref="Max"/>] (linear interpolation),
     /// the mixture itself outside.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double LogDensity(double z)
     {
         double u = (z - Min) / (Max - Min) * (TableSize - 1);
@@ -79,6 +83,7 @@ public sealed class PopulationRedshiftPrior
     }
 
     /// <summary>ln Σ_k p_k exp(−(z − c_k)²/(2s²)), ln π(z) up to a constant (the range is applied by the caller).</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double MixtureLogDensity(double z)
     {
         double max = double.NegativeInfinity;
@@ -101,6 +106,7 @@ public sealed class PopulationRedshiftPrior
     /// <param name="zErr">Their 1σ errors (0: exact).</param>
     /// <param name="min">The prior range's lower end.</param>
     /// <param name="max">Its upper end (&gt; <paramref name="min"/>).</param>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static PopulationRedshiftPrior Estimate(IReadOnlyList<double> z, IReadOnlyList<double> zErr, double min, double max)
     {
         ArgumentNullException.ThrowIfNull(z);
@@ -122,30 +128,37 @@ public sealed class PopulationRedshiftPrior
         var c = new double[k];
         for (int j = 0; j < k; j++) c[j] = min + (j + 0.5) * h;
         int n = zs.Count;
-        // L_ik = N(z_i; c_k, s² + σ_i²), kept as a dense n × k table (n ≤ MaxObjects, k ≤ 40: at most 1.6 MB).
-        var like = new double[n * k];
+        // L_ik = N(z_i; c_k, s² + σ_i²), kept as a dense k × n table, component-major (n ≤ MaxObjects, k ≤ 40: at most 1.6 MB). An EM
+        // step takes the objects in blocks small enough for the first-level cache: den_i = Σ_k p_k L_ik, then Σ_i L_ik / den_i, in vectors.
+        var like = new double[k * n];
         for (int i = 0; i < n; i++)
         {
-            double v = s * s + vs[i];
+            double v = s * s + vs[i], norm = Math.Sqrt(2 * Math.PI * v);
             for (int j = 0; j < k; j++)
             {
                 double d = zs[i] - c[j];
-                like[i * k + j] = Math.Exp(-0.5 * d * d / v) / Math.Sqrt(2 * Math.PI * v);
+                like[j * n + i] = Math.Exp(-0.5 * d * d / v) / norm;
             }
         }
+        const int Block = 128;
         var p = Enumerable.Repeat(1.0 / k, k).ToArray();
         var next = new double[k];
+        Span<double> inv = stackalloc double[Block];
         int it = 0;
         for (; it < MaxIterations; it++)
         {
             Array.Clear(next);
-            for (int i = 0; i < n; i++)
+            for (int b0 = 0; b0 < n; b0 += Block)
             {
-                double den = 0;
-                for (int j = 0; j < k; j++) den += p[j] * like[i * k + j];
-                if (!(den > 0)) continue; // an object far from every centre carries no information on the weights
-                for (int j = 0; j < k; j++) next[j] += p[j] * like[i * k + j] / den;
+                int nb = Math.Min(Block, n - b0);
+                var den = inv[..nb];
+                // 1/den_i, 0 for an object far from every centre (it carries no information on the weights).
+                den.Clear();
+                for (int j = 0; j < k; j++) MultiplyAdd(den, like.AsSpan(j * n + b0, nb), p[j]);
+                Reciprocal(den);
+                for (int j = 0; j < k; j++) next[j] += Dot(like.AsSpan(j * n + b0, nb), den);
             }
+            for (int j = 0; j < k; j++) next[j] *= p[j];
             double total = next.Sum(), change = 0;
             if (!(total > 0)) break; // no object anywhere near the range (a stated prior away from the data): the weights stay flat
             for (int j = 0; j < k; j++)
@@ -157,6 +170,61 @@ public sealed class PopulationRedshiftPrior
             if (change < 1e-7) { it++; break; }
         }
         return new PopulationRedshiftPrior(c, p, s, min, max, it);
+    }
+
+    // acc += f·x elementwise (System.Numerics vectors).
+    private static void MultiplyAdd(Span<double> acc, ReadOnlySpan<double> x, double f)
+    {
+        int i = 0;
+        if (Vector.IsHardwareAccelerated && x.Length >= Vector<double>.Count)
+        {
+            var a = MemoryMarshal.Cast<double, Vector<double>>(acc);
+            var b = MemoryMarshal.Cast<double, Vector<double>>(x);
+            var vf = new Vector<double>(f);
+            for (int q = 0; q < b.Length; q++) a[q] += vf * b[q];
+            i = b.Length * Vector<double>.Count;
+        }
+        for (; i < x.Length; i++) acc[i] += f * x[i];
+    }
+
+    // x ← 1/x where x > 0, else 0 (System.Numerics vectors).
+    private static void Reciprocal(Span<double> x)
+    {
+        int i = 0;
+        if (Vector.IsHardwareAccelerated && x.Length >= Vector<double>.Count)
+        {
+            var a = MemoryMarshal.Cast<double, Vector<double>>(x);
+            for (int q = 0; q < a.Length; q++) a[q] = Vector.ConditionalSelect(Vector.GreaterThan(a[q], Vector<double>.Zero), Vector<double>.One / a[q], Vector<double>.Zero);
+            i = a.Length * Vector<double>.Count;
+        }
+        for (; i < x.Length; i++) x[i] = x[i] > 0 ? 1 / x[i] : 0;
+    }
+
+    // Σ x_i y_i (System.Numerics vectors).
+    private static double Dot(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
+    {
+        int i = 0;
+        double sum = 0;
+        if (Vector.IsHardwareAccelerated && x.Length >= Vector<double>.Count)
+        {
+            var a = MemoryMarshal.Cast<double, Vector<double>>(x);
+            var b = MemoryMarshal.Cast<double, Vector<double>>(y);
+            // Four accumulators: the additions of consecutive vectors do not wait on each other.
+            Vector<double> acc0 = Vector<double>.Zero, acc1 = acc0, acc2 = acc0, acc3 = acc0;
+            int q = 0;
+            for (; q + 4 <= a.Length; q += 4)
+            {
+                acc0 += a[q] * b[q];
+                acc1 += a[q + 1] * b[q + 1];
+                acc2 += a[q + 2] * b[q + 2];
+                acc3 += a[q + 3] * b[q + 3];
+            }
+            for (; q < a.Length; q++) acc0 += a[q] * b[q];
+            sum = Vector.Sum(acc0 + acc1 + (acc2 + acc3));
+            i = a.Length * Vector<double>.Count;
+        }
+        for (; i < x.Length; i++) sum += x[i] * y[i];
+        return sum;
     }
 
     /// <summary>One line for the results' notes.</summary>

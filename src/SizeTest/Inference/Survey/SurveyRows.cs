@@ -292,28 +292,38 @@ internal sealed class SurveyRows
     }
 
     // Linearised marginal under the population prior: each object's posterior N(z; z_obs, σ²) π(z) on [lo, hi] summarised by its mean
-    // (written to centre) and variance, by 64-point Gauss–Legendre on the Gaussian's 20-e-fold window (TruncatedRedshiftNodes) with
-    // ln π added to each node's log weight; objects with σ = 0 keep z_obs and variance 0.
+    // (written to centre) and variance, by 64-point Gauss–Legendre on the Gaussian's 20-e-fold window (TruncatedRedshiftNodes.Window)
+    // with node weights w_k e^{−u_k²/2} π(z_k), u_k = (z_k − z_obs)/σ (constant factors cancel in the moments; the exponentials in
+    // vectors); objects with σ = 0 keep z_obs and variance 0.
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     internal static void PopulationMoments(double[] z, double[] zErr, double lo, double hi, PopulationRedshiftPrior prior, double[] centre, double[] variance)
     {
         if (!(hi > lo)) return; // a one-point range (a single-object check): the flat moments stand
-        var gl = new GaussLegendre(64);
-        Span<double> zk = stackalloc double[64], lw = stackalloc double[64];
+        const int K = 64;
+        var gl = new GaussLegendre(K);
+        var lnW = gl.Weights.Select(w => Math.Log(w)).ToArray();
+        Span<double> zk = stackalloc double[K], lw = stackalloc double[K];
+        var lwv = System.Runtime.InteropServices.MemoryMarshal.Cast<double, System.Numerics.Vector<double>>(lw);
         for (int i = 0; i < z.Length; i++)
         {
             if (!(zErr[i] > 0)) continue;
-            TruncatedRedshiftNodes.Fill(z[i], zErr[i], Math.Max(lo, 0), hi, gl, zk, lw);
-            double max = double.NegativeInfinity;
-            for (int k = 0; k < 64; k++)
+            TruncatedRedshiftNodes.Window(z[i], zErr[i], Math.Max(lo, 0), hi, out double mid, out double half);
+            double max = double.NegativeInfinity, inv = 1 / zErr[i];
+            for (int k = 0; k < K; k++)
             {
-                lw[k] += prior.LogDensity(zk[k]);
+                zk[k] = mid + half * gl.Nodes[k];
+                double u = (zk[k] - z[i]) * inv;
+                lw[k] = lnW[k] - 0.5 * u * u + prior.LogDensity(zk[k]);
                 if (lw[k] > max) max = lw[k];
             }
             if (double.IsNegativeInfinity(max)) continue;
+            var vm = new System.Numerics.Vector<double>(max);
+            for (int q = 0; q < lwv.Length; q++) lwv[q] = System.Numerics.Vector.Exp(lwv[q] - vm);
+            for (int k = lwv.Length * System.Numerics.Vector<double>.Count; k < K; k++) lw[k] = Math.Exp(lw[k] - max);
             double sw = 0, m1 = 0, m2 = 0;
-            for (int k = 0; k < 64; k++)
+            for (int k = 0; k < K; k++)
             {
-                double w = Math.Exp(lw[k] - max);
+                double w = lw[k];
                 sw += w;
                 m1 += w * zk[k];
                 m2 += w * zk[k] * zk[k];

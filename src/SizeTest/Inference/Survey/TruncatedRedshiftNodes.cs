@@ -21,11 +21,8 @@ public static class TruncatedRedshiftNodes
     /// </summary>
     public static void Fill(double zObs, double sigma, double lo, double hi, GaussLegendre rule, Span<double> z, Span<double> logWeight)
     {
-        if (!(sigma > 0) || !(hi > lo)) throw new ArgumentException($"truncated redshift nodes need σ > 0 and lo < hi (σ = {sigma}, [{lo}, {hi}])");
-        double d = zObs < lo ? lo - zObs : zObs > hi ? zObs - hi : 0;
-        double half = Math.Sqrt(d * d + 2 * WindowEFolds * sigma * sigma);
-        double a = Math.Max(lo, zObs - half), b = Math.Min(hi, zObs + half);
-        double mid = 0.5 * (a + b), h = 0.5 * (b - a), max = double.NegativeInfinity;
+        Window(zObs, sigma, lo, hi, out double mid, out double h);
+        double max = double.NegativeInfinity;
         for (int k = 0; k < rule.Nodes.Length; k++)
         {
             z[k] = mid + h * rule.Nodes[k];
@@ -37,5 +34,19 @@ public static class TruncatedRedshiftNodes
         for (int k = 0; k < rule.Nodes.Length; k++) sum += Math.Exp(logWeight[k] - max);
         double norm = max + Math.Log(sum);
         for (int k = 0; k < rule.Nodes.Length; k++) logWeight[k] -= norm;
+    }
+
+    /// <summary>
+    /// The window [a, b] of <see cref="Fill"/> as its centre <paramref name="mid"/> = (a + b)/2 and half-width <paramref name="half"/> = (b − a)/2:
+    /// node k of a rule on [−1, 1] lies at mid + half·x_k.
+    /// </summary>
+    public static void Window(double zObs, double sigma, double lo, double hi, out double mid, out double half)
+    {
+        if (!(sigma > 0) || !(hi > lo)) throw new ArgumentException($"truncated redshift nodes need σ > 0 and lo < hi (σ = {sigma}, [{lo}, {hi}])");
+        double d = zObs < lo ? lo - zObs : zObs > hi ? zObs - hi : 0;
+        double reach = Math.Sqrt(d * d + 2 * WindowEFolds * sigma * sigma);
+        double a = Math.Max(lo, zObs - reach), b = Math.Min(hi, zObs + reach);
+        mid = 0.5 * (a + b);
+        half = 0.5 * (b - a);
     }
 }
