@@ -173,6 +173,7 @@ public sealed class PopulationRedshiftPrior
     }
 
     // acc += f·x elementwise (System.Numerics vectors).
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void MultiplyAdd(Span<double> acc, ReadOnlySpan<double> x, double f)
     {
         int i = 0;
@@ -188,6 +189,7 @@ public sealed class PopulationRedshiftPrior
     }
 
     // x ← 1/x where x > 0, else 0 (System.Numerics vectors).
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void Reciprocal(Span<double> x)
     {
         int i = 0;
@@ -201,6 +203,7 @@ public sealed class PopulationRedshiftPrior
     }
 
     // Σ x_i y_i (System.Numerics vectors).
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static double Dot(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
     {
         int i = 0;
