@@ -53,7 +53,10 @@ internal static class PowerCommand
                 var kind = PowerCandidates.Observable(template, parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText) : null);
                 var nuisance = PowerCandidates.Nuisance(template, kind);
                 var hypotheses = PowerCandidates.Create(trueModel, choice.Families(parse), nuisance, choice.Fixed(parse), choice.Freed(parse));
-                var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads));
+                var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads))
+                {
+                    Survey = PowerCandidates.Survey(template, kind),
+                };
                 request.Validate();
                 ResourceBudget.Check(request.MemoryDescription(), request.EstimatedMemoryBytes(), limits.MemoryLimit(parse));
                 folder = OutputFolder.Begin(outDir, limits.Replace(parse));

@@ -90,7 +90,7 @@ public static class MockTruthJson
                 Number(w, "bright_limit", lf.BrightLimit);
                 Number(w, "faint_limit", lf.FaintLimit);
                 w.WriteEndObject();
-                if (design.Kind == MockObjectKind.Galaxy) WriteSurfaceBrightnessFromPhotometry(w, spec, lf);
+                if (design.Kind == MockObjectKind.Galaxy) WriteSurfaceBrightnessFromPhotometry(w, spec);
             }
             Number(w, NuisanceParameters.Names.SizeLuminositySlope, sv.SizeLuminositySlope);
             Number(w, "pivot_abs_mag", sv.PivotAbsMag);
@@ -107,8 +107,11 @@ public static class MockTruthJson
                 Number(w, NuisanceParameters.Names.ScatterDex, g.ScatterDex);
                 if (sv.LuminosityFunction is not null)
                 {
-                    Number(w, NuisanceParameters.Names.SbEvolution, ImpliedSbEvolution(spec.Model, g.SizeEvolution));
-                    Number(w, NuisanceParameters.Names.SbLuminositySlope, 1 - 2 * g.SizeLuminositySlope);
+                    var implied = PhotometricSurfaceBrightness.For(spec.Model, sv.PivotAbsMag, g.R0Kpc, g.SizeEvolution, g.SizeLuminositySlope, g.ScatterDex);
+                    Number(w, NuisanceParameters.Names.Mu0, implied.Mu0);
+                    Number(w, NuisanceParameters.Names.SbEvolution, implied.SbEvolution);
+                    Number(w, NuisanceParameters.Names.SbLuminositySlope, implied.SbLuminositySlope);
+                    Number(w, NuisanceParameters.Names.ScatterMag, implied.ScatterMag);
                 }
                 w.WriteEndObject();
             }
@@ -160,27 +163,21 @@ public static class MockTruthJson
         return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
     }
 
-    // With a luminosity function μ is not drawn from μ0, b and σ_μ: it follows from the photometry, μ = m + 5 log10 θ + 2.5 log10 2π
-    // (+ μ_err noise), so μ = M + 5 log10 R + 5 log10(D_L/D_A) + const. The joint fit's parameters that this implies, for a fit with the
-    // generating world model and no size–SB slope (κ = 0): γ = 1 − 2β, b = n − 2e − 2a (D_L = D_A (1+z)^e; b = −2a for FLRW), μ0 at
-    // z = 0 and M = M_pivot, and σ_μ = 5 σ_R (the size scatter itself, fully correlated with it).
-    private static void WriteSurfaceBrightnessFromPhotometry(Utf8JsonWriter w, MockSurveySpec spec, SchechterLuminosityFunction lf)
+    // With a luminosity function μ follows from the photometry: the SB parameters it implies (PhotometricSurfaceBrightness).
+    private static void WriteSurfaceBrightnessFromPhotometry(Utf8JsonWriter w, MockSurveySpec spec)
     {
         var g = spec.GalaxyTruth;
         var sv = spec.SurveyTruth;
+        var implied = PhotometricSurfaceBrightness.For(spec.Model, sv.PivotAbsMag, g.R0Kpc, g.SizeEvolution, sv.SizeLuminositySlope, g.ScatterDex);
         w.WriteStartObject("surface_brightness_from_photometry");
         w.WriteString("rule", "mu = m + 5 log10 theta_obs + 2.5 log10(2 pi) + mu_err noise: population.mu0, sb_evolution, scatter_mag and kormendy_slope are not used; " +
                               "the values below are what a joint fit with the size-luminosity relation, the generating world model and no size-SB slope should find");
-        double mu0 = sv.PivotAbsMag + 25 + 5 * Math.Log10(g.R0Kpc * 1e-3 * Foundation.Angles.AngleUnits.ArcsecPerRadian) + 2.5 * Math.Log10(2 * Math.PI);
-        Number(w, NuisanceParameters.Names.Mu0, mu0);
-        Number(w, NuisanceParameters.Names.SbEvolution, ImpliedSbEvolution(spec.Model, g.SizeEvolution));
-        Number(w, NuisanceParameters.Names.SbLuminositySlope, 1 - 2 * sv.SizeLuminositySlope);
-        Number(w, NuisanceParameters.Names.ScatterMag, 5 * g.ScatterDex);
+        Number(w, NuisanceParameters.Names.Mu0, implied.Mu0);
+        Number(w, NuisanceParameters.Names.SbEvolution, implied.SbEvolution);
+        Number(w, NuisanceParameters.Names.SbLuminositySlope, implied.SbLuminositySlope);
+        Number(w, NuisanceParameters.Names.ScatterMag, implied.ScatterMag);
         w.WriteEndObject();
     }
-
-    private static double ImpliedSbEvolution(Cosmology.IWorldModel model, double sizeEvolution) =>
-        model.BolometricDimmingExponent - 2 * Photometry.ModelLuminosity.DistanceExponent(model) - 2 * sizeEvolution;
 
     private static void Number(Utf8JsonWriter w, string name, double v)
     {

@@ -88,7 +88,11 @@ public static class PowerAnalysis
         if (cuts.SbLimit is not null && first.Cuts.SbLimit is null) notes.Add("the mocks have an SB limit that the fitted observable cannot model; estimates may be biased");
         if (cuts.MagLimit is not null && first.Cuts.MagLimit is null) notes.Add("the mocks have a magnitude limit that the fitted observable cannot model; estimates may be biased");
         if (cuts.MinThetaArcsec is not null && first.Cuts.MinThetaArcsec is null) notes.Add("the mocks have a minimum size that the fitted observable cannot model; estimates may be biased");
-        if (request.Template.Design.MeasurementErrors.PhotoZError > 0) notes.Add("photometric-redshift errors are simulated but not modelled by the fit");
+        if (request.Template.Design.MeasurementErrors.PhotoZError > 0 && request.Survey is null) notes.Add("photometric-redshift errors are simulated but not modelled by the fit");
+        if (request.Survey is { } asked)
+            notes.Add("the fits take the survey terms of the design, as fit would: " + string.Join(", ", PowerCandidates.SurveyWords(asked, request.Template)) +
+                      (request.Template.SurveyTruth.LuminosityFunction is not null && first.Observable != ObservableKind.Size
+                          ? "; μ follows from the mocks' photometry, so the surface-brightness truths are the values it implies (γ = 1 − 2β, b = −2a for FLRW, σ_μ = 5 σ_R)" : ""));
         return new PowerResult
         {
             TrueModel = request.Template.Model.Name,
@@ -125,16 +129,32 @@ public static class PowerAnalysis
             };
         }
         var g = spec.GalaxyTruth;
-        return new Dictionary<string, double>
+        var sv = spec.SurveyTruth;
+        var truth = new Dictionary<string, double> { [NuisanceParameters.Names.KormendySlope] = g.KormendySlope };
+        // One population's truths (names with @GROUP for a mixed sample). With a luminosity function μ follows from the photometry:
+        // its SB truths are the ones that implies (PhotometricSurfaceBrightness), and the relation's slopes are truths too.
+        void Add(string suffix, double r0, double a, double beta, double scatter)
         {
-            [NuisanceParameters.Names.R0Kpc] = g.R0Kpc,
-            [NuisanceParameters.Names.SizeEvolution] = g.SizeEvolution,
-            [NuisanceParameters.Names.ScatterDex] = g.ScatterDex,
-            [NuisanceParameters.Names.Mu0] = g.Mu0,
-            [NuisanceParameters.Names.SbEvolution] = g.SbEvolution,
-            [NuisanceParameters.Names.ScatterMag] = g.ScatterMag,
-            [NuisanceParameters.Names.KormendySlope] = g.KormendySlope,
-        };
+            truth[NuisanceParameters.Names.R0Kpc + suffix] = r0;
+            truth[NuisanceParameters.Names.SizeEvolution + suffix] = a;
+            truth[NuisanceParameters.Names.ScatterDex + suffix] = scatter;
+            if (sv.LuminosityFunction is null)
+            {
+                truth[NuisanceParameters.Names.Mu0 + suffix] = g.Mu0;
+                truth[NuisanceParameters.Names.SbEvolution + suffix] = g.SbEvolution;
+                truth[NuisanceParameters.Names.ScatterMag + suffix] = g.ScatterMag;
+                return;
+            }
+            var implied = PhotometricSurfaceBrightness.For(spec.Model, sv.PivotAbsMag, r0, a, beta, scatter);
+            truth[NuisanceParameters.Names.SizeLuminositySlope + suffix] = beta;
+            truth[NuisanceParameters.Names.Mu0 + suffix] = implied.Mu0;
+            truth[NuisanceParameters.Names.SbEvolution + suffix] = implied.SbEvolution;
+            truth[NuisanceParameters.Names.SbLuminositySlope + suffix] = implied.SbLuminositySlope;
+            truth[NuisanceParameters.Names.ScatterMag + suffix] = implied.ScatterMag;
+        }
+        if (sv.Groups.Count == 0) Add("", g.R0Kpc, g.SizeEvolution, sv.SizeLuminositySlope, g.ScatterDex);
+        foreach (var p in sv.Groups) Add("@" + p.Name, p.R0Kpc, p.SizeEvolution, p.SizeLuminositySlope, p.ScatterDex);
+        return truth;
     }
 
     private static MockOutcome FitMock(PowerRequest request, int n, int mock, long seed, int trueIndex)
@@ -142,13 +162,20 @@ public static class PowerAnalysis
         var spec = request.Template with { Seed = seed, Design = request.Template.Design with { Count = n } };
         var catalogue = MockSurveyGenerator.Generate(spec, parallel: false);
         var obs = catalogue.ToObservables();
+        var candidates = request.Candidates;
+        if (request.Survey is { } survey)
+        {
+            // The survey terms of this mock, as fit builds them for a catalogue (group labels, the photo-z prior estimated from it).
+            var model = survey.Build(obs, candidates[0].Nuisance.Observable, new List<string>());
+            candidates = candidates.Select(h => h.WithNuisance(h.Nuisance with { Survey = model })).ToArray();
+        }
         var bic = new double[request.Candidates.Count];
         bool converged = true;
         IReadOnlyList<ParameterEstimate> estimates = [];
         var settings = new OptimizerSettings(Starts: request.Starts, Seed: mock + 1);
         for (int c = 0; c < request.Candidates.Count; c++)
         {
-            var h = request.Candidates[c];
+            var h = candidates[c];
             var lik = h.Bind(obs);
             bool isTrue = c == trueIndex;
             MaximumLikelihoodResult fit;

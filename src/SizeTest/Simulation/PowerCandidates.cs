@@ -12,6 +12,10 @@ namespace SizeTest.Simulation;
 /// <item>the fits model the template's selection cuts that enter the observable (the SB limit unless size-only, the
 /// magnitude limit only for joint, the smallest size unless SB-only), and the size–SB relation when the truth has a
 /// Kormendy slope;</item>
+/// <item>the fits take the survey terms the design implies, as <c>fit</c> would for such a catalogue (<see cref="Survey"/>): the
+/// size–luminosity relation when galaxies are drawn from a luminosity function (not for SB alone), each population's own
+/// nuisance parameters when the design mixes populations, and photometric-redshift marginalisation (with the population prior,
+/// estimated per mock) when the mocks have redshift errors;</item>
 /// <item>the candidate of the true family is fitted with the true cosmological parameters held fixed (unless the
 /// user frees them), the other families at their defaults; the user's fixed values apply to every candidate
 /// where the parameter exists.</item>
@@ -37,7 +41,44 @@ public static class PowerCandidates
             kind == ObservableKind.Size ? null : cuts.SbLimit,
             kind == ObservableKind.Joint ? cuts.MagLimit : null,
             kind == ObservableKind.SurfaceBrightness ? null : cuts.MinThetaArcsec);
-        return new NuisanceModel(kind, selection, SizeSbRelation: kind == ObservableKind.Joint && template.GalaxyTruth.KormendySlope != 0);
+        var survey = Survey(template, kind);
+        // The parameter names of the survey terms (group labels sorted as SurveyRequest.Build sorts them); each mock's fit rebuilds the
+        // model from its own objects (PowerAnalysis), which changes no name.
+        var named = survey is null ? null : new Inference.Survey.SurveyModel(survey.Relation, survey.Pivot,
+            survey.Groups ? template.SurveyTruth.Groups.Select(g => g.Name).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray() : null,
+            MarginaliseRedshift: template.Design.MeasurementErrors.PhotoZError > 0);
+        return new NuisanceModel(kind, selection, SizeSbRelation: kind == ObservableKind.Joint && template.GalaxyTruth.KormendySlope != 0, Survey: named);
+    }
+
+    /// <summary>
+    /// The survey terms <c>fit</c> would take for the template's catalogues, or null when the design needs none: the size–luminosity
+    /// relation (pivot as drawn) for galaxies from a luminosity function unless <paramref name="kind"/> is sb, populations as groups,
+    /// and photometric redshifts (a mock with redshift errors has a z_err column, so <see cref="Inference.Survey.SurveyRequest.Build"/>
+    /// marginalises over it by default).
+    /// </summary>
+    public static Inference.Survey.SurveyRequest? Survey(MockSurveySpec template, ObservableKind kind)
+    {
+        ArgumentNullException.ThrowIfNull(template);
+        bool galaxy = template.Design.Kind == MockObjectKind.Galaxy;
+        var sv = template.SurveyTruth;
+        var relation = galaxy && sv.LuminosityFunction is not null && kind != ObservableKind.SurfaceBrightness
+            ? Inference.Survey.SizeRelationKind.Luminosity : Inference.Survey.SizeRelationKind.None;
+        bool groups = galaxy && sv.Groups.Select(g => g.Name).Distinct(StringComparer.Ordinal).Count() > 1;
+        bool photoZ = template.Design.MeasurementErrors.PhotoZError > 0;
+        if (relation == Inference.Survey.SizeRelationKind.None && !groups && !photoZ) return null;
+        return new Inference.Survey.SurveyRequest(relation, relation == Inference.Survey.SizeRelationKind.None ? null : new Photometry.LuminosityPivot(AbsMag: sv.PivotAbsMag),
+            Groups: groups);
+    }
+
+    /// <summary>What <see cref="Survey"/> chose, in words for the notes.</summary>
+    public static IEnumerable<string> SurveyWords(Inference.Survey.SurveyRequest survey, MockSurveySpec template)
+    {
+        ArgumentNullException.ThrowIfNull(survey);
+        ArgumentNullException.ThrowIfNull(template);
+        if (survey.Relation == Inference.Survey.SizeRelationKind.Luminosity)
+            yield return FormattableString.Invariant($"the size–luminosity relation (pivot M = {template.SurveyTruth.PivotAbsMag:0.##}; in joint fits μ is conditional on L too and the magnitude limit is not a truncation)");
+        if (survey.Groups) yield return "one set of nuisance parameters per population";
+        if (template.Design.MeasurementErrors.PhotoZError > 0) yield return "each object marginalised over its photometric redshift (population prior estimated from each mock)";
     }
 
     /// <summary>One hypothesis per family; a fixed or freed name that no candidate has is a problem naming the parameter.</summary>

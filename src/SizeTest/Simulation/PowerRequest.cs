@@ -26,6 +26,12 @@ public sealed record PowerRequest(
     int Starts = 1,
     int? MaxThreads = null)
 {
+    /// <summary>
+    /// The survey terms of the candidate fits (size–luminosity relation, groups, photometric redshifts), built for each mock as fit
+    /// builds them for a catalogue (<see cref="Inference.Survey.SurveyRequest.Build"/>); null: none (<see cref="PowerCandidates.Survey"/>).
+    /// </summary>
+    public Inference.Survey.SurveyRequest? Survey { get; init; }
+
     /// <summary>The problems with the request's settings (empty when it can run), each naming the setting
     /// (<see cref="SettingProblem"/>): two or more candidates including the true one, K ≥ 1 mocks, sample sizes of
     /// at least 10, a target power in (0, 1), at least one start and one thread.</summary>
