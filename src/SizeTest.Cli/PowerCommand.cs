@@ -106,9 +106,14 @@ internal static class PowerCommand
         o.WriteLine(FormattableString.Invariant($"Power analysis (synthetic mocks): true model {r.TrueCandidate}, candidates {string.Join(", ", r.Candidates)}; {r.Mocks} mocks per N; observable {r.Observable.Name()}; z {r.ZDist}; seed {r.Seed}."));
         var header = new[] { "N", "P(best)", "P(dBIC>6)", "P(dBIC>10)", "dBIC q16", "q50", "q84", "a bias", "a spread", "a cover", "verdict" };
         var rows = new List<string[]> { header };
+        var perGroup = new List<string>();
         foreach (var p in r.Points)
         {
-            var a = p.Recovery.FirstOrDefault(x => x.Name == NuisanceParameters.Names.SizeEvolution);
+            // One size exponent per population (--population): the columns show the one worst recovered (largest |bias| / spread), named below.
+            var a = p.Recovery.FirstOrDefault(x => x.Name == NuisanceParameters.Names.SizeEvolution)
+                    ?? p.Recovery.Where(x => x.Name.StartsWith(NuisanceParameters.Names.SizeEvolution + "@", StringComparison.Ordinal))
+                        .OrderByDescending(x => double.IsFinite(x.Spread) && x.Spread > 0 ? Math.Abs(x.Bias) / x.Spread : 0).FirstOrDefault();
+            if (a is not null && a.Name != NuisanceParameters.Names.SizeEvolution) perGroup.Add(FormattableString.Invariant($"N = {p.SampleSize}: {a.Name}"));
             rows.Add([
                 p.SampleSize.ToString(Inv), p.ProbabilityTrueBest.ToString("F2", Inv), p.ProbabilityStrong.ToString("F2", Inv), p.ProbabilityDecisive.ToString("F2", Inv),
                 F(p.DeltaBicQuantiles[1], "F2"), F(p.DeltaBicQuantiles[2], "F2"), F(p.DeltaBicQuantiles[3], "F2"),
@@ -117,6 +122,7 @@ internal static class PowerCommand
         }
         int[] w = Enumerable.Range(0, header.Length).Select(c => rows.Max(x => x[c].Length)).ToArray();
         foreach (var row in rows) o.WriteLine(string.Join("  ", row.Select((x, c) => c == row.Length - 1 ? x : x.PadLeft(w[c]))).TrimEnd());
+        if (perGroup.Count > 0) o.WriteLine("a columns: the population whose exponent is recovered worst (" + string.Join("; ", perGroup) + ").");
         o.WriteLine("Conclusion: " + r.Conclusion + ".");
     }
 

@@ -239,6 +239,9 @@ public static class PowerAnalysis
     /// <summary>The verdict when the median ΔBIC is below −2: the mocks, drawn from the true model, prefer another one.</summary>
     public const string FavoursWrongModel = "favours a wrong model";
 
+    /// <summary>Fewest mocks with intervals from which the coverage is judged (<see cref="RecoveryFailures"/>).</summary>
+    public const int MinimumCoverageMocks = 10;
+
     /// <summary>The verdict of one sample size (order as in the class remarks).</summary>
     /// <param name="recoveryFailed">The true model failed to recover some parameter (<see cref="RecoveryFailures"/>).</param>
     /// <param name="medianDeltaBic">Median ΔBIC over the mocks.</param>
@@ -253,7 +256,9 @@ public static class PowerAnalysis
     /// <summary>
     /// The parameters the true model fails to recover: |bias| &gt; 2 × spread (the estimates sit away from the truth by
     /// more than twice their scatter), or 68% intervals covering the truth in fewer than 40% of mocks (binomially
-    /// impossible for honest 68% intervals once K ≳ 10: P(≤ 40% | 68%) &lt; 3% at K = 10).
+    /// impossible for honest 68% intervals once K ≳ 10: P(≤ 40% | 68%) &lt; 3% at K = 10). Coverage is judged from
+    /// <see cref="MinimumCoverageMocks"/> mocks with intervals on: below that one mock moves it by more than 10%, and a survey
+    /// design with many parameters reaches a low count by chance (1 of 6 has P = 1.5% per parameter for honest intervals).
     /// </summary>
     public static IReadOnlyList<string> RecoveryFailures(IEnumerable<ParameterRecovery> recovery)
     {
@@ -263,7 +268,7 @@ public static class PowerAnalysis
         {
             if (double.IsFinite(r.Spread) && Math.Abs(r.Bias) > 2 * r.Spread)
                 list.Add(FormattableString.Invariant($"{r.Name}: bias {r.Bias:+0.###;-0.###} is more than twice the spread {r.Spread:0.###}"));
-            else if (double.IsFinite(r.Coverage) && r.Coverage < 0.4)
+            else if (double.IsFinite(r.Coverage) && r.CoverageCount >= MinimumCoverageMocks && r.Coverage < 0.4)
                 list.Add(FormattableString.Invariant($"{r.Name}: 68% intervals cover the truth in only {r.Coverage:P0} of mocks"));
         }
         return list;
