@@ -8,6 +8,9 @@ namespace SizeTest.Inference.Survey;
 /// The photometric-redshift quadrature of the log-normal size likelihood without a size cut, on flat per-node arrays:
 /// ln p_i = ln Σ_j W_ij N(y_i; m(z_ij), V_i) with V_i = σ_i² + σ_g² and m(z) = ln R0 + (a + 2βe) ln(1+z) + (2β − 1) ln D_A(z) + β C(z),
 /// the mean of <see cref="SurveySizeLikelihood"/> (its remarks give the terms); W_ij are the normalised node weights, 0 for a dropped node.
+/// Bound without distances (neither fixed ln D_A nor a grid) the mean is ln R0 + a ln(1+z) + (2β − 1)·0 + β C: with β = 0, no relation and
+/// e = 0 this is a Gaussian in y with a mean linear in ln(1+z), which is how <see cref="SurveyJointLikelihood"/> runs the surface-brightness
+/// quadrature without a cut (y = μ − K − A, "ln R0" = μ0, a = 2.5 (n − b)/ln 10, σ_i² = σ_μ,i², σ_g = s_μ).
 /// </summary>
 /// <remarks>
 /// <para>Blocks of objects in three passes. Pass 1: each node's residual r and exponent u = −r²/(2V) (≤ 0). Pass 2: e^u in SIMD vectors
@@ -44,11 +47,10 @@ internal sealed class RedshiftQuadratureKernel : IRedshiftMarginalKernel
     /// <param name="nodeLogW">ln W_q, −∞ for a dropped node; Σ_j W_ij = 1.</param>
     /// <param name="nodeLumBase">C(z_q) of the luminosity term, or null without a relation.</param>
     /// <param name="nodeLnDaFixed">ln D_A(z_q) for a fixed cosmology, or null (then <paramref name="nodeGrid"/>).</param>
-    /// <param name="nodeGrid">The stencils of the nodes on the D_A grid, or null for a fixed cosmology.</param>
+    /// <param name="nodeGrid">The stencils of the nodes on the D_A grid, or null for a fixed cosmology (both null: no distance term, ln D_A = 0).</param>
     public RedshiftQuadratureKernel(int nodesPerObject, double[] y, double[] s2, int[] group, int[] cell, double[]? weight,
         double[] nodeLn1pz, double[] nodeLnz, double[] nodeLogW, double[]? nodeLumBase, double[]? nodeLnDaFixed, RedshiftGrid? nodeGrid)
     {
-        if (nodeLnDaFixed is null && nodeGrid is null) throw new ArgumentException("the redshift nodes need fixed distances or a grid");
         _j = nodesPerObject;
         _y = y; _s2 = s2; _group = group; _cell = cell; _weight = weight;
         _ln1pz = nodeLn1pz; _lnz = nodeLnz; _logW = nodeLogW; _w = nodeLogW.Select(Math.Exp).ToArray(); _lumBase = nodeLumBase; _lnDaFixed = nodeLnDaFixed; _grid = nodeGrid;
@@ -89,9 +91,9 @@ internal sealed class RedshiftQuadratureKernel : IRedshiftMarginalKernel
                     int q = i * J, o = t * J;
                     for (int j = 0; j < J; j++, q++, o++)
                     {
-                        double lnDa;
+                        double lnDa = 0;
                         if (fixedDa is not null) lnDa = fixedDa[q];
-                        else
+                        else if (idx is not null)
                         {
                             int s = idx![q], k = 4 * q;
                             lnDa = lnz[q] + sw![k] * grid![s] + sw[k + 1] * grid[s + 1] + sw[k + 2] * grid[s + 2] + sw[k + 3] * grid[s + 3];
@@ -153,7 +155,7 @@ internal sealed class RedshiftQuadratureKernel : IRedshiftMarginalKernel
                     double fi = f * inv;
                     dCell[_cell[i]] += fi * sr;
                     dGroupX[g] += fi * srx;
-                    dGroupSig[g] += w * sg * (f * sr2 * inv * inv - inv);
+                    dGroupSig[g] += sg * (f * sr2 * inv * inv - w * inv); // f carries w
                     if (lum)
                     {
                         dGroupLum[g] += fi * srl;

@@ -50,6 +50,8 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     private readonly double[]? _lnDaFixed;
     private readonly RedshiftGrid? _grid;
     private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _slopeIndex, _sbSlopeIndex, _mu0Index, _sbEvolutionIndex, _scatterMagIndex;
+    // Surface brightness with photometric redshifts and no cut: the block-vectorised quadrature (null otherwise: the per-object path).
+    private readonly RedshiftQuadratureKernel? _sbQuadrature;
 
     /// <summary>Notes for the results (what the survey terms did).</summary>
     public IReadOnlyList<string> Notes { get; }
@@ -88,6 +90,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             throw new InvalidOperationException("the sb/joint survey kernel integrates photometric redshifts by quadrature only (SurveyModel.Validate refuses z_marginal linear there)");
         _groups = _rows.GroupCount;
         _bins = _rows.BinCount;
+        if (_rows.MarginalisesRedshift && !_joint && cut is null) _sbQuadrature = SbQuadrature(_rows, cols, _bins);
 
         var byName = new Dictionary<string, int>(StringComparer.Ordinal);
         for (int i = 0; i < h.Parameters.Count; i++) byName[h.Parameters[i].Name] = i;
@@ -145,11 +148,67 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
 
     private static int[] Filled(int n) => Enumerable.Repeat(-1, n).ToArray();
 
-    /// <inheritdoc/>
-    public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) => Accumulate(e, start, end, null);
+    // μ_i ~ N(μ0 + K_i + A_i + 2.5 (n − b) log10(1+z), σ_μ,i² + s_μ²) as the quadrature kernel's Gaussian without distances: y = μ − K − A.
+    private static RedshiftQuadratureKernel SbQuadrature(SurveyRows rows, ObjectColumns cols, int bins)
+    {
+        int n = rows.Count;
+        var y = new double[n];
+        var cell = new int[n];
+        for (int i = 0; i < n; i++)
+        {
+            y[i] = cols.Mu[i] - cols.Correction[i];
+            cell[i] = rows.Group[i] * bins + rows.Bin[i];
+        }
+        return new RedshiftQuadratureKernel(rows.NodesPerObject, y, cols.VarMu, rows.Group, cell, rows.Weight, rows.NodeLn1pZ, rows.NodeLnZ, rows.NodeLogWeight,
+            null, null, null);
+    }
 
     /// <inheritdoc/>
-    public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) => Accumulate(e, start, end, adjoint);
+    public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) =>
+        _sbQuadrature is not null ? SbQuadratureSum(e, start, end, null) : Accumulate(e, start, end, null);
+
+    /// <inheritdoc/>
+    public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) =>
+        _sbQuadrature is not null ? SbQuadratureSum(e, start, end, adjoint) : Accumulate(e, start, end, adjoint);
+
+    // The surface-brightness quadrature without a cut on the kernel: mean μ0 per cell, slope 2.5 (n − b_g)/ln 10 in ln(1+z), scatter s_μ,g;
+    // the kernel's partials are ∂/∂μ0 per cell, Σ ∂/∂m ln(1+z) per group (so ∂/∂b = −2.5/ln10 times it, ∂/∂θ_c = 2.5/ln10 ∂n/∂θ_c times
+    // their sum) and ∂/∂s_μ per group.
+    private double SbQuadratureSum(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
+    {
+        var v = e.Values;
+        int gb = _groups * _bins;
+        Span<double> mu0 = stackalloc double[gb], slope = stackalloc double[_groups], zero = stackalloc double[_groups], sm = stackalloc double[_groups];
+        for (int q = 0; q < gb; q++) mu0[q] = v[_mu0Index[q]];
+        for (int g = 0; g < _groups; g++)
+        {
+            slope[g] = 2.5 * (e.Dimming - (_sbEvolutionIndex[g] >= 0 ? v[_sbEvolutionIndex[g]] : 0)) / Ln10;
+            sm[g] = v[_scatterMagIndex[g]];
+        }
+        double dExp = 0;
+        if (adj is null) return _sbQuadrature!.Sum(mu0, slope, zero, sm, 0, null, start, end, default, default, default, default, ref dExp, null);
+        Span<double> dCell = stackalloc double[gb], dX = stackalloc double[_groups], dS = stackalloc double[_groups];
+        double value = _sbQuadrature!.Sum(mu0, slope, zero, sm, 0, null, start, end, dCell, dX, dS, default, ref dExp, null);
+        var direct = adj.Direct ??= new double[_layout.FreeCount];
+        for (int q = 0; q < gb; q++) Add(direct, _mu0Index[q], dCell[q]);
+        double sumDmL10 = 0;
+        for (int g = 0; g < _groups; g++)
+        {
+            Add(direct, _sbEvolutionIndex[g], -2.5 * dX[g] / Ln10);
+            Add(direct, _scatterMagIndex[g], dS[g]);
+            sumDmL10 += dX[g] / Ln10;
+        }
+        AddDimming(e, direct, sumDmL10);
+        return value;
+    }
+
+    // ∂/∂θ_c of the dimming term 2.5 (n − b) ℓ: 2.5 Σ w ∂/∂m_μ ℓ · ∂n/∂θ_c.
+    private void AddDimming(LikelihoodEvaluation e, double[] direct, double sumDmL10)
+    {
+        if (e.DimmingDerivatives is not { } dn) return;
+        for (int c = 0; c < _layout.FreeCosmological.Length; c++)
+            Add(direct, _layout.FreeCosmological[c], 2.5 * sumDmL10 * dn[c]);
+    }
 
     // Per-evaluation constants of one group (and bin).
     private struct GroupPoint
@@ -245,24 +304,23 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 }
             }
             if (double.IsNegativeInfinity(max)) return double.NegativeInfinity;
+            // lp becomes e^(lp − max) (0 for a dropped node), reused for the shares.
             double sum = 0;
-            for (int j = 0; j < J; j++) sum += Math.Exp(lp[j] - max);
+            for (int j = 0; j < J; j++) sum += lp[j] = Math.Exp(lp[j] - max);
             acc += w * (max + Math.Log(sum));
             if (adj is null) continue;
             for (int j = 0; j < J; j++)
             {
-                if (double.IsNegativeInfinity(lp[j])) continue;
+                if (lp[j] == 0) continue;
                 int q = i * J + j;
-                double share = w * Math.Exp(lp[j] - max) / sum;
+                double share = w * lp[j] / sum;
                 AddPartials(direct!, v, g, q0, share, pj[j], kap, G, eExp, rows.NodeLn1pZ[q]);
                 sumDmL10 += share * pj[j].Dm * rows.NodeLn1pZ[q] / Ln10;
                 if (nodeA is not null && rows.NodeGrid is not null)
                     ScatterNodes(nodeA, rows.NodeGrid, q, -share * (pj[j].Dt * (2 * G.Beta - 1) + 2 * (kap * G.Beta + SbMagPerLn * G.Gam) * pj[j].Dm));
             }
         }
-        if (adj is not null && e.DimmingDerivatives is { } dn)
-            for (int c = 0; c < _layout.FreeCosmological.Length; c++)
-                Add(direct!, _layout.FreeCosmological[c], 2.5 * sumDmL10 * dn[c]);
+        if (adj is not null) AddDimming(e, direct!, sumDmL10);
         return acc;
     }
 
