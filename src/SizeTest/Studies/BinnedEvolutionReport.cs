@@ -67,66 +67,110 @@ public static class BinnedEvolutionReport
         }
         bool sb = hypotheses.Any(h => h.Nuisance.SurveyTerms.Binned && h.Nuisance.Observable != ObservableKind.Size);
         return "binned evolution: the binned-evolution figure draws over each model's bins the same model refitted with R0 (1+z)^a " +
-               (sb ? "(and μ0 − 2.5 b log10(1+z) for the surface brightnesses; the figure draws the R0 bins, results.json has the mu0_binK) " : "") +
+               (sb ? "(and μ0 − 2.5 b log10(1+z) over the μ0 bins of the surface brightnesses) " : "") +
                "on the same objects (maximum likelihood, not part of the comparison): " + string.Join("; ", parts);
     }
 
     /// <summary>
-    /// Per population, the bins of <paramref name="fit"/> (a binned fit of <paramref name="hypothesis"/> to
+    /// Per population, the R0 bins of <paramref name="fit"/> (a binned fit of <paramref name="hypothesis"/> to
     /// <paramref name="observables"/>) with their effective redshifts, and the power law of <paramref name="powerLaw"/>
-    /// when given. Empty when the hypothesis is not binned.
+    /// when given. Empty when the hypothesis is not binned; a population's bins are empty when the fit has no sizes (sb).
     /// </summary>
     public static IReadOnlyList<BinnedSizeEvolution> For(Hypothesis hypothesis, ModelFitSummary fit, Observables observables, ModelFitSummary? powerLaw)
     {
         ArgumentNullException.ThrowIfNull(hypothesis);
         ArgumentNullException.ThrowIfNull(fit);
         ArgumentNullException.ThrowIfNull(observables);
-        var sv = hypothesis.Nuisance.SurveyTerms;
-        if (sv.EvolutionBinEdges is not { } edges) return [];
-        int bins = sv.BinCount;
-        var labels = sv.GroupLabels;
-        var group = observables.Survey.Group;
-        var weight = observables.Survey.Weight;
-        var err = observables.LnThetaErr;
+        return PerGroup(hypothesis, fit, observables, powerLaw, NuisanceParameters.Names.ScatterDex, Math.Log(10), observables.LnThetaErr, "r0_kpc_bin",
+            NuisanceParameters.Names.R0Kpc, NuisanceParameters.Names.SizeEvolution, (g, bins, r0, a) => new BinnedSizeEvolution(g,
+                bins.Select(b => new BinnedSize(b.ZLow, b.ZHigh, b.ZEffective, b.Value.Value, b.Value.Lo, b.Value.Hi, b.Count)).ToList())
+            {
+                PowerLaw = r0 is not null && a is not null ? new PowerLawSize(r0.Value, a.Value, a.Lo, a.Hi) : null,
+            });
+    }
+
+    /// <summary>
+    /// Per population, the μ0 bins of <paramref name="fit"/> (a binned sb or joint fit of <paramref name="hypothesis"/>) with their
+    /// effective redshifts (surface-brightness weights, <see cref="BinnedSurfaceBrightnessEvolution"/>), and μ0 − 2.5 b log10(1+z)
+    /// of <paramref name="powerLaw"/> when given. Empty when the hypothesis is not binned or fits sizes alone.
+    /// </summary>
+    public static IReadOnlyList<BinnedSurfaceBrightnessEvolution> SurfaceBrightnessFor(Hypothesis hypothesis, ModelFitSummary fit, Observables observables,
+        ModelFitSummary? powerLaw)
+    {
+        ArgumentNullException.ThrowIfNull(hypothesis);
+        ArgumentNullException.ThrowIfNull(fit);
+        ArgumentNullException.ThrowIfNull(observables);
+        if (hypothesis.Nuisance.Observable == ObservableKind.Size) return [];
+        return PerGroup(hypothesis, fit, observables, powerLaw, NuisanceParameters.Names.ScatterMag, 1, observables.MuErr, "mu0_bin",
+            NuisanceParameters.Names.Mu0, NuisanceParameters.Names.SbEvolution, (g, bins, mu0, b) => new BinnedSurfaceBrightnessEvolution(g,
+                bins.Select(x => new BinnedSurfaceBrightness(x.ZLow, x.ZHigh, x.ZEffective, x.Value.Value, x.Value.Lo, x.Value.Hi, x.Count)).ToList())
+            {
+                PowerLaw = mu0 is not null && b is not null ? new PowerLawSurfaceBrightness(mu0.Value, b.Value, b.Lo, b.Hi) : null,
+            });
+    }
+
+    /// <summary>
+    /// For each population: its fitted bins <c>PREFIXk</c> (weights from the scatter <paramref name="scatterName"/> times
+    /// <paramref name="scatterScale"/> and the errors <paramref name="error"/>) and the power-law fit's level and exponent
+    /// (null without that fit), made into one record by <paramref name="make"/>. Empty when the hypothesis is not binned.
+    /// </summary>
+    private static List<T> PerGroup<T>(Hypothesis hypothesis, ModelFitSummary fit, Observables observables, ModelFitSummary? powerLaw,
+        string scatterName, double scatterScale, double[]? error, string prefix, string levelName, string exponentName,
+        Func<string, List<FittedBin>, ParameterEstimate?, ParameterEstimate?, T> make)
+    {
+        if (hypothesis.Nuisance.SurveyTerms.EvolutionBinEdges is null) return [];
         var est = fit.Parameters.ToDictionary(p => p.Name, StringComparer.Ordinal);
-        var list = new List<BinnedSizeEvolution>();
-        foreach (var g in labels)
+        var law = powerLaw?.Parameters.ToDictionary(p => p.Name, StringComparer.Ordinal);
+        var list = new List<T>();
+        foreach (var g in hypothesis.Nuisance.SurveyTerms.GroupLabels)
         {
-            double scatterDex = est.TryGetValue(SurveyModel.Named(NuisanceParameters.Names.ScatterDex, g), out var sc) ? sc.Value : double.NaN;
-            double s2 = Math.Pow(Math.Log(10) * scatterDex, 2);
-            var sumV = new double[bins];
-            var sumVx = new double[bins];
-            var count = new int[bins];
-            for (int i = 0; i < observables.Count; i++)
-            {
-                if (g.Length > 0 && (group is null || group[i] != g)) continue;
-                double w = weight?[i] ?? 1;
-                if (!(w > 0)) continue;
-                double z = observables.Z[i];
-                int k = 0;
-                while (k < bins - 1 && z >= edges[k + 1]) k++; // the likelihood's own assignment (SurveySizeLikelihood)
-                double sigma = err?[i] ?? 0;
-                double v = w / (s2 + sigma * sigma);
-                if (!double.IsFinite(v)) v = w;
-                sumV[k] += v;
-                sumVx[k] += v * Math.Log(1 + z);
-                count[k]++;
-            }
-            var rows = new List<BinnedSize>();
-            for (int k = 0; k < bins; k++)
-            {
-                if (!est.TryGetValue(SurveyModel.Named($"r0_kpc_bin{k + 1}", g), out var r) || count[k] == 0) continue;
-                rows.Add(new BinnedSize(edges[k], edges[k + 1], Math.Exp(sumVx[k] / sumV[k]) - 1, r.Value, r.Lo, r.Hi, count[k]));
-            }
-            PowerLawSize? law = null;
-            if (powerLaw is not null)
-            {
-                var pe = powerLaw.Parameters.ToDictionary(p => p.Name, StringComparer.Ordinal);
-                if (pe.TryGetValue(SurveyModel.Named(NuisanceParameters.Names.R0Kpc, g), out var r0) && pe.TryGetValue(SurveyModel.Named(NuisanceParameters.Names.SizeEvolution, g), out var a))
-                    law = new PowerLawSize(r0.Value, a.Value, a.Lo, a.Hi);
-            }
-            list.Add(new BinnedSizeEvolution(g, rows) { PowerLaw = law });
+            double s = scatterScale * (est.TryGetValue(SurveyModel.Named(scatterName, g), out var sc) ? sc.Value : double.NaN);
+            var bins = Bins(hypothesis, observables, g, s, error, est, prefix);
+            list.Add(make(g, bins, law?.GetValueOrDefault(SurveyModel.Named(levelName, g)), law?.GetValueOrDefault(SurveyModel.Named(exponentName, g))));
         }
         return list;
+    }
+
+    private readonly record struct FittedBin(double ZLow, double ZHigh, double ZEffective, ParameterEstimate Value, int Count);
+
+    /// <summary>
+    /// The fitted bins <c>PREFIXk</c> of population <paramref name="group"/> that hold objects, each at
+    /// 1 + z_eff = exp(Σ v_i ln(1+z_i)/Σ v_i), v_i = w_i/(s² + σ_i²) (<paramref name="scatter"/> s and <paramref name="error"/> σ_i
+    /// in the units of the binned quantity).
+    /// </summary>
+    private static List<FittedBin> Bins(Hypothesis hypothesis, Observables observables, string group, double scatter, double[]? error,
+        Dictionary<string, ParameterEstimate> est, string prefix)
+    {
+        var sv = hypothesis.Nuisance.SurveyTerms;
+        var edges = sv.EvolutionBinEdges!;
+        int bins = sv.BinCount;
+        var groups = observables.Survey.Group;
+        var weight = observables.Survey.Weight;
+        double s2 = scatter * scatter;
+        var sumV = new double[bins];
+        var sumVx = new double[bins];
+        var count = new int[bins];
+        for (int i = 0; i < observables.Count; i++)
+        {
+            if (group.Length > 0 && (groups is null || groups[i] != group)) continue;
+            double w = weight?[i] ?? 1;
+            if (!(w > 0)) continue;
+            double z = observables.Z[i];
+            int k = 0;
+            while (k < bins - 1 && z >= edges[k + 1]) k++; // the likelihood's own assignment (SurveySizeLikelihood)
+            double sigma = error?[i] ?? 0;
+            double v = w / (s2 + sigma * sigma);
+            if (!double.IsFinite(v)) v = w;
+            sumV[k] += v;
+            sumVx[k] += v * Math.Log(1 + z);
+            count[k]++;
+        }
+        var rows = new List<FittedBin>();
+        for (int k = 0; k < bins; k++)
+        {
+            if (!est.TryGetValue(SurveyModel.Named($"{prefix}{k + 1}", group), out var r) || count[k] == 0) continue;
+            rows.Add(new FittedBin(edges[k], edges[k + 1], Math.Exp(sumVx[k] / sumV[k]) - 1, r, count[k]));
+        }
+        return rows;
     }
 }

@@ -54,7 +54,11 @@ public static class StudyReportAdapter
             };
             if (WorldModels.TryGet(fit.Name, out var family)) report = WithCurves(report, family, fit, study.Nuisance, zMin, zMax, result.Settings.Selection.SbLimit, MedianMuError(points));
             if (inputs.Observables is { } obs && inputs.Hypotheses.FirstOrDefault(h => h.Label == fit.Name) is { } hyp && hyp.Nuisance.SurveyTerms.Binned)
-                report = report with { BinnedEvolution = BinnedEvolutionReport.For(hyp, fit, obs, inputs.PowerLawFits.GetValueOrDefault(fit.Name)) };
+                report = report with
+                {
+                    BinnedEvolution = BinnedEvolutionReport.For(hyp, fit, obs, inputs.PowerLawFits.GetValueOrDefault(fit.Name)),
+                    BinnedSurfaceBrightness = BinnedEvolutionReport.SurfaceBrightnessFor(hyp, fit, obs, inputs.PowerLawFits.GetValueOrDefault(fit.Name)),
+                };
             models.Add(report);
         }
 

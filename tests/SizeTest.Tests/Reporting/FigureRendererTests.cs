@@ -100,22 +100,40 @@ public sealed class FigureRendererTests
     public void BinnedEvolutionFigureDrawsEachModelsBinsWithItsPowerLaw()
     {
         var spec = Get("binned-evolution");
-        // One panel per model with binned evolution (ΛCDM: one population; static linear: two), on log–log axes of 1 + z and R0.
-        Assert.Equal(2, spec.Panels.Count);
-        Assert.All(spec.Panels, p => Assert.True(p.X.Log && p.Y.Log && p.Y.Unit == "kpc" && p.X.Label == "1 + z"));
-        Assert.Single(spec.Panels[0].Series.OfType<BinnedSeries>());
-        Assert.Equal(2, spec.Panels[1].Series.OfType<BinnedSeries>().Count());
-        Assert.Equal(2, spec.Panels[1].Series.OfType<LineSeries>().Count());
-        Assert.StartsWith("ΛCDM: a = -0.98", spec.Panels[0].Note);
-        Assert.Contains("early: a = 0.35", spec.Panels[1].Note);
-        // Points sit at 1 + z_eff; the power-law line equals R0 (1+z)^a there (the fixture's unbent static model).
-        var bins = spec.Panels[1].Series.OfType<BinnedSeries>().First();
-        var line = spec.Panels[1].Series.OfType<LineSeries>().First();
+        // One row per model with binned evolution (ΛCDM: one population, R0 and μ0 bins; static linear: two populations, R0
+        // only): R0 on log–log axes of 1 + z and R0 on the left, μ0 against log (1 + z) on the right.
+        Assert.Equal(3, spec.Panels.Count);
+        Assert.Equal(2, spec.Columns);
+        var lcdm = spec.Panels.Single(p => p.Row == 0 && p.Column == 0);
+        var lcdmSb = spec.Panels.Single(p => p.Row == 0 && p.Column == 1);
+        var stat = spec.Panels.Single(p => p.Row == 1 && p.Column == 0);
+        Assert.All(new[] { lcdm, stat }, p => Assert.True(p.X.Log && p.Y.Log && p.Y.Unit == "kpc" && p.X.Label == "1 + z"));
+        Assert.True(lcdmSb.X.Log && !lcdmSb.Y.Log && lcdmSb.Y.Unit == "mag/arcsec²");
+        Assert.Single(lcdm.Series.OfType<BinnedSeries>());
+        Assert.Equal(2, stat.Series.OfType<BinnedSeries>().Count());
+        Assert.Equal(2, stat.Series.OfType<LineSeries>().Count());
+        Assert.StartsWith("ΛCDM: a = -0.98", lcdm.Note);
+        Assert.StartsWith("ΛCDM: b = 1.20", lcdmSb.Note);
+        Assert.Contains("early: a = 0.35", stat.Note);
+        Assert.Contains("left the physical size R0", spec.Caption);
+        Assert.Contains("right the surface brightness μ0", spec.Caption);
+        // Points sit at 1 + z_eff; the power-law line equals R0 (1+z)^a there (the fixture's unbent static model), and the μ0
+        // line μ0 − 2.5 b log10(1+z) (the fixture's ΛCDM SB bins lie on it).
+        AssertLineAtBins(stat, x => 3.2 * Math.Pow(x, 0.35)); // the closed form R0 (1+z)^a, absolute 1e-9 kpc
+        AssertLineAtBins(lcdmSb, x => 19.5 - 2.5 * 1.2 * Math.Log10(x)); // μ0 − 2.5 b log10(1+z), absolute 1e-9 mag
+        var sbBins = lcdmSb.Series.OfType<BinnedSeries>().Single();
+        for (int k = 0; k < sbBins.Y.Count; k++) Assert.Equal(19.5 - 3.0 * Math.Log10(sbBins.XCentre![k]), sbBins.Y[k], 1e-9);
+    }
+
+    private static void AssertLineAtBins(PanelSpec panel, Func<double, double> closedForm)
+    {
+        var bins = panel.Series.OfType<BinnedSeries>().First();
+        var line = panel.Series.OfType<LineSeries>().First();
         for (int k = 0; k < bins.Y.Count; k++)
         {
             double x = bins.XCentre![k];
             int j = line.X.Select((v, i) => (Math.Abs(v - x), i)).Min().i;
-            Assert.Equal(3.2 * Math.Pow(line.X[j], 0.35), line.Y[j], 1e-9); // the closed form R0 (1+z)^a, absolute 1e-9 kpc
+            Assert.Equal(closedForm(line.X[j]), line.Y[j], 1e-9);
         }
     }
 

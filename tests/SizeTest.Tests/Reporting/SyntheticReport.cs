@@ -65,7 +65,7 @@ internal static class SyntheticReport
         models = WithComparison(models);
         // Binned evolution (made up): five bins on R0 (1+z)^a, the ΛCDM ones with a bend at high z the power law cannot follow,
         // and the static model with two populations.
-        models[0] = models[0] with { BinnedEvolution = [Binned("", 5.0, -0.98, 0.12)] };
+        models[0] = models[0] with { BinnedEvolution = [Binned("", 5.0, -0.98, 0.12)], BinnedSurfaceBrightness = [BinnedSb(19.5, 1.2)] };
         models[1] = models[1] with { BinnedEvolution = [Binned("early", 3.2, 0.35, 0), Binned("late", 6.1, 0.2, 0)] };
         var edges = BinnedStatistics.EqualCountEdges(z, 8);
         var data = new ReportData
@@ -112,6 +112,20 @@ internal static class SyntheticReport
             bins.Add(new BinnedSize(e[k], e[k + 1], zEff, r, r * 0.94, r * 1.06, 60));
         }
         return new BinnedSizeEvolution(group, bins) { PowerLaw = new PowerLawSize(r0, a, a - 0.05, a + 0.05) };
+    }
+
+    /// <summary>Five μ0 bins (dimming removed) on μ0 − 2.5 b log10(1+z), the ΛCDM model's SB truth above, with its power law.</summary>
+    private static BinnedSurfaceBrightnessEvolution BinnedSb(double mu0, double b)
+    {
+        double[] e = [0.05, 0.3, 0.6, 1.0, 1.6, 3.0];
+        var bins = new List<BinnedSurfaceBrightness>();
+        for (int k = 0; k < 5; k++)
+        {
+            double zEff = Math.Sqrt((1 + e[k]) * (1 + e[k + 1])) - 1;
+            double m = mu0 - 2.5 * b * Math.Log10(1 + zEff);
+            bins.Add(new BinnedSurfaceBrightness(e[k], e[k + 1], zEff, m, m - 0.04, m + 0.04, 60));
+        }
+        return new BinnedSurfaceBrightnessEvolution("", bins) { PowerLaw = new PowerLawSurfaceBrightness(mu0, b, b - 0.05, b + 0.05) };
     }
 
     private static CornerDraws Posterior(Random rng)

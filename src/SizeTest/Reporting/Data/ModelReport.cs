@@ -33,6 +33,9 @@ public sealed record ModelReport(ModelFitSummary Fit)
     /// <summary>With binned evolution: per population the fitted R0 of each redshift bin and the power-law fit; empty otherwise.</summary>
     public IReadOnlyList<BinnedSizeEvolution> BinnedEvolution { get; init; } = [];
 
+    /// <summary>With binned evolution of an sb or joint fit: per population the fitted μ0 of each redshift bin and the power-law fit; empty otherwise.</summary>
+    public IReadOnlyList<BinnedSurfaceBrightnessEvolution> BinnedSurfaceBrightness { get; init; } = [];
+
     /// <summary><see cref="DisplayName"/> or the model name.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public string Label => DisplayName.Length > 0 ? DisplayName : Cosmology.WorldModelDisplayNames.For(Fit.Name);
