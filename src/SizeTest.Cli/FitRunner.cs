@@ -95,6 +95,9 @@ internal static class FitRunner
                 survey = bindSurvey(local, wholeSample);
                 a = a with { Hypotheses = survey.Hypotheses };
                 if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(SettingFlags.Text(w)));
+                if (root)
+                    foreach (var n in survey.Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal))) // e.g. a stated z prior excluding the data
+                        context.Err.WriteLine("sizetest: " + TerminalText.Escape(SettingFlags.Text(n)));
             }
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)

@@ -66,6 +66,22 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void AStatedRedshiftPriorThatExcludesMostOrAllOfTheDataIsWarnedOrRefused()
+    {
+        // z uniform on 0.3–2, σ_z = 0.03(1+z) ≤ 0.09: with a prior of 1.7:3 every object below z ≈ 1.4 lies more than 3 σ_z below
+        // LO (3 σ_z < 0.27 there), over half the sample; with 2.5:3 every object does (z_obs ≤ 2 + noise, 2.5 − 3·0.09 = 2.23).
+        var mock = Simulate("--photoz-err", "0.03", "--z-dist", "uniform:0.3:2");
+        var (code, _, err, dir) = Fit(mock, "--z-prior", "1.7:3");
+        Assert.True(code == 0, err);
+        Assert.True(err.Contains("warning: ", StringComparison.Ordinal), err);
+        Assert.Matches(@"\d+ of the \d+ objects with z_err > 0 have z_obs more than 3 z_err outside the stated --z-prior \[1.7, 3\]", err);
+        Assert.Contains("outside the stated --z-prior [1.7, 3]", File.ReadAllText(Path.Combine(dir, "results.json")), StringComparison.Ordinal);
+        var (code2, _, err2, _) = Fit(mock, "--z-prior", "2.5:3");
+        Assert.Equal(2, code2);
+        Assert.Matches(@"(\d+) of the \1 objects with z_err > 0 have z_obs more than 3 z_err outside the stated --z-prior \[2.5, 3\]: the prior excludes all of them", err2);
+    }
+
+    [Fact]
     public void ThePhotometricRedshiftMarginalIsLinearisedByDefaultAndQuadratureOnRequest()
     {
         var mock = Simulate("--photoz-err", "0.03", "--z-dist", "uniform:0.3:2");

@@ -1,3 +1,4 @@
+using System.Globalization;
 using SizeTest.Foundation.Errors;
 using SizeTest.Photometry;
 
@@ -101,6 +102,7 @@ public sealed record SurveyRequest(
         bool marginalise = MarginalisesRedshift(observables, observable);
         if (!marginalise && observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored ({ignore_z_err}): redshifts are taken as exact.");
+        if (HasStatedRedshiftPrior(observables, observable)) CheckPriorCoversData(observables, notes);
         PopulationRedshiftPrior? population = null;
         if (marginalise && RedshiftPriorShape == RedshiftPriorShape.Population && observables.Count > 0)
         {
@@ -115,6 +117,31 @@ public sealed record SurveyRequest(
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
             AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax, ZMarginal ?? (observable == ObservableKind.Size ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature),
             population);
+    }
+
+    /// <summary>
+    /// A stated prior that excludes the data: of the objects with z_err &gt; 0, those whose z_obs lies more than 3 σ_z outside
+    /// [LO, HI] (their likelihood rests on the prior's tail). More than half of them: a warning note; all of them: an error.
+    /// </summary>
+    private void CheckPriorCoversData(Observables observables, ICollection<string> notes)
+    {
+        var zErr = observables.Survey.ZErr!;
+        double lo = RedshiftPriorMin ?? double.NegativeInfinity, hi = RedshiftPriorMax ?? double.PositiveInfinity;
+        int withErr = 0, outside = 0;
+        for (int i = 0; i < observables.Count; i++)
+        {
+            double s = zErr[i];
+            if (!(s > 0)) continue;
+            withErr++;
+            double z = observables.Z[i];
+            if (z < lo - 3 * s || z > hi + 3 * s) outside++;
+        }
+        if (withErr == 0 || 2 * outside <= withErr) return;
+        string range = string.Create(CultureInfo.InvariantCulture, $"[{(RedshiftPriorMin is { } a ? a.ToString("R", CultureInfo.InvariantCulture) : "−∞")}, {(RedshiftPriorMax is { } b ? b.ToString("R", CultureInfo.InvariantCulture) : "∞")}]");
+        string what = string.Create(CultureInfo.InvariantCulture, $"{outside} of the {withErr} objects with z_err > 0 have z_obs more than 3 z_err outside the stated {{z_prior}} {range}");
+        if (outside == withErr)
+            throw SettingProblem.Exception([new($"{what}: the prior excludes all of them; widen {{z_prior}} or leave it out (the default is the sample's range)")]);
+        notes.Add($"warning: {what}; their fit rests on the prior's tail and may not converge; check {{z_prior}}.");
     }
 
     /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped and not ignored. Every observable
