@@ -101,7 +101,8 @@ internal static class FitRunner
             }
             // What the observable kind needs (columns) is checked here on one object, so such errors stop all ranks cleanly.
             if (local.Count > 0)
-                foreach (var h in a.Hypotheses) _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]));
+                foreach (var h in a.Hypotheses)
+                    _ = new HypothesisLikelihood(h, ObservablesSubset.Take(local, [0]), new RedshiftGridSpan(local.Z.Min(), local.Z.Max(), local.Count)); // one object of local.Count
             timings?.Mark("observables and selection");
         });
         if (code != 0)

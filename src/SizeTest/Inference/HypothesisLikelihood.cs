@@ -89,6 +89,9 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
         _lnPivot = Math.Log(hypothesis.Nuisance.PivotSizeKpc);
         var survey = hypothesis.Nuisance.SurveyTerms;
         double gridMinZ = sharedGrid?.MinZ ?? observables.Z.Min(), gridMaxZ = sharedGrid?.MaxZ ?? observables.Z.Max();
+        // A part of a larger sample (a rank's share, or the CLI's one-object column check) cannot judge sample-wide conditions
+        // such as an empty luminosity window.
+        bool wholeSample = sharedGrid is null || sharedGrid.ObjectCount == observables.Count;
         double priorMinZ = survey.RedshiftPriorMin ?? gridMinZ, priorMaxZ = survey.RedshiftPriorMax ?? gridMaxZ;
         if (survey.MarginaliseRedshift)
         {
@@ -104,14 +107,14 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
             var startModel = _distances.CreateModel(hypothesis.FullValues(hypothesis.StartVector()))
                              ?? throw new ArgumentException($"world model '{hypothesis.Family.Name}' cannot be built from its start parameters");
             if (kind == ObservableKind.Size)
-                _kernel = _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+                _kernel = _survey = new Survey.SurveySizeLikelihood(hypothesis, _layout, observables, _distances.FixedLnDa, _distances.Grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel, wholeSample);
             else
             {
                 // With a size–luminosity relation the fit conditions on the luminosities, which come from the apparent magnitudes: a
                 // magnitude limit selects on them and so does not truncate the likelihood (SurveyJointLikelihood's notes say so).
                 if (survey.Relation == Survey.SizeRelationKind.Luminosity && hypothesis.Nuisance.Cuts.MagLimit is not null)
                     cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts with { MagLimit = null });
-                _kernel = _surveyJoint = new Survey.SurveyJointLikelihood(hypothesis, _layout, observables, _cols, _distances, cut, _isophotal, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+                _kernel = _surveyJoint = new Survey.SurveyJointLikelihood(hypothesis, _layout, observables, _cols, _distances, cut, _isophotal, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel, wholeSample);
             }
         }
         else

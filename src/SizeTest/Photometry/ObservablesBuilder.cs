@@ -165,7 +165,8 @@ public static class ObservablesBuilder
                 for (int i = 0; i < n; i++) corr[i] = (kc?[i] ?? 0) + (ext?[i] ?? 0);
             }
             notes.Add("luminosity: absolute magnitude M = m - 5 log10(D_L/10 pc) - K - A from the apparent magnitude, computed for each world model with its own D_L (static models: their flux convention D_L = d (1+z)^q)" +
-                      (corr is null ? " (no K-correction or extinction given)." : " with the K-correction and extinction above."));
+                      (corr is null ? " (no K-correction or extinction given)." : " with the K-correction and extinction above.") +
+                      (sample.Survey.AbsMag is not null ? " The abs_mag column is also mapped and is not used: the apparent magnitudes take precedence (unmap mag to use abs_mag)." : ""));
             return new LuminosityData(LuminosityKind.ApparentMagnitude, mag, corr);
         }
         if (sample.Survey.AbsMag is { } am)

@@ -49,6 +49,14 @@ public sealed record StudyVerdict(string? Best, bool Decided, string Strength, s
                 ? $"Only {L(ranked[0])} was fitted; a verdict needs at least two models to compare."
                 : $"Only {L(ranked[0])} has a finite likelihood ({result.Models.Count - 1} of {result.Models.Count} models have none); a verdict needs at least two models to compare.");
 
+        // A luminosity window recomputed with each world model's own D_L keeps different objects under each model: the likelihoods are
+        // over different data, so no information criterion or Bayes factor can rank them.
+        if (result.Settings.Survey is { AbsMagMin: not null } or { AbsMagMax: not null })
+            return new StudyVerdict(null, false, "none",
+                "The luminosity window is recomputed with each world model's own D_L, so each model is fitted to different objects (the notes give the counts); " +
+                "their likelihoods cannot be compared and the data cannot rank the models this way. Fit the size–luminosity relation without a window, " +
+                "or select the sample once in a reference cosmology, to compare them.");
+
         var best = ranked[0];
         var second = ranked[1];
         double twoLnB = byEvidence ? 2 * (best.LogEvidence!.Value - second.LogEvidence!.Value) : second.Bic - best.Bic;

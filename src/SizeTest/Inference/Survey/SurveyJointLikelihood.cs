@@ -68,8 +68,9 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     /// <param name="priorMinZ">Lower end of the photo-z prior.</param>
     /// <param name="priorMaxZ">Upper end of the photo-z prior.</param>
     /// <param name="startModel">The world model at its start (or fixed) parameters.</param>
+    /// <param name="wholeSample">These objects are the whole sample (false: a part of it, which cannot judge an empty luminosity window).</param>
     public SurveyJointLikelihood(Hypothesis h, ParameterLayout layout, Observables o, ObjectColumns cols, DistanceTerms distances, SelectionTruncation? cut,
-        IsophotalCorrection? isophotal, double gridMinZ, double gridMaxZ, double priorMinZ, double priorMaxZ, IWorldModel startModel)
+        IsophotalCorrection? isophotal, double gridMinZ, double gridMaxZ, double priorMinZ, double priorMaxZ, IWorldModel startModel, bool wholeSample = true)
     {
         var sv = h.Nuisance.SurveyTerms;
         _layout = layout;
@@ -85,7 +86,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         _grid = distances.Grid;
         string own = (_joint ? "R0, a, scatter_dex" + (_hasLum ? ", β" : "") + ", " : "") + "mu0, b, scatter_mag";
         // Surface brightness alone has no distances: the photo-z nodes need no grid stencils.
-        _rows = new SurveyRows(h, o, own, fixedCosmology: !_joint || _lnDaFixed is not null, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel);
+        _rows = new SurveyRows(h, o, own, fixedCosmology: !_joint || _lnDaFixed is not null, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel, wholeSample);
         if (_rows.MarginalisesRedshift && _rows.Marginal == RedshiftMarginal.Linear)
             throw new InvalidOperationException("the sb/joint survey kernel integrates photometric redshifts by quadrature only (SurveyModel.Validate refuses z_marginal linear there)");
         _groups = _rows.GroupCount;

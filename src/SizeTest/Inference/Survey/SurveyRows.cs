@@ -107,8 +107,10 @@ internal sealed class SurveyRows
     /// <param name="priorMinZ">Lower end of the photo-z prior.</param>
     /// <param name="priorMaxZ">Upper end of the photo-z prior.</param>
     /// <param name="startModel">The world model at its start (or fixed) parameters.</param>
+    /// <param name="wholeSample">These objects are the whole sample; false for a part of it (a rank's share, a one-object column check),
+    /// which cannot judge a luminosity window that keeps none of them.</param>
     public SurveyRows(Hypothesis h, Observables o, string groupNuisance, bool fixedCosmology, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
-        double priorMinZ, double priorMaxZ, IWorldModel startModel)
+        double priorMinZ, double priorMaxZ, IWorldModel startModel, bool wholeSample = true)
     {
         var sv = h.Nuisance.SurveyTerms;
         var notes = new List<string>();
@@ -177,7 +179,7 @@ internal sealed class SurveyRows
                 bool inside = (sv.AbsMagMin is not { } lo || absMag >= lo) && (sv.AbsMagMax is not { } hi || absMag <= hi);
                 if (!inside) w[i] = 0; else kept++;
             }
-            if (kept == 0) throw SettingProblem.Exception([new($"no object of the sample lies in {{abs_mag_range}} under world model '{h.Family.Name}'")]);
+            if (kept == 0 && wholeSample) throw SettingProblem.Exception([new($"no object of the sample lies in {{abs_mag_range}} under world model '{h.Family.Name}'")]);
             notes.Add($"luminosity window: {kept} of {n} objects have M in [{sv.AbsMagMin?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "-inf"}, {sv.AbsMagMax?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "+inf"}] under {h.Family.Name} (its own D_L, at its start parameters); the others do not enter its likelihood, so its n differs from other models'.");
         }
         Weight = w;

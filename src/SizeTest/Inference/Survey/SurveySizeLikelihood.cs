@@ -74,7 +74,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     private readonly ParameterLayout _layout;
 
     public SurveySizeLikelihood(Hypothesis h, ParameterLayout layout, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,
-        double priorMinZ, double priorMaxZ, IWorldModel startModel)
+        double priorMinZ, double priorMaxZ, IWorldModel startModel, bool wholeSample = true)
     {
         var sv = h.Nuisance.SurveyTerms;
         _layout = layout;
@@ -121,7 +121,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
 
         // --- groups, bins, luminosities, weights and window, photometric-redshift nodes (shared with the other survey kernels)
         var rows = new SurveyRows(h, o, "R0, a, scatter" + (sv.Relation != SizeRelationKind.None ? " and β" : ""), lnDaFixed is not null, grid, gridMinZ, gridMaxZ,
-            priorMinZ, priorMaxZ, startModel);
+            priorMinZ, priorMaxZ, startModel, wholeSample);
         var labels = sv.GroupLabels;
         _ln1pz = rows.Ln1pZ;
         _lnz = rows.LnZ;
