@@ -83,7 +83,7 @@ public static class FitRun
                     lrts.Add(lrt);
                 }
                 required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name || e.Parameter == Comparison.EvolutionTestTable.BaseName(name)),
-                    h.Nuisance.Observable == ObservableKind.Joint && h.Nuisance.SurveyTerms.Relation != Survey.SizeRelationKind.None));
+                    h.Nuisance.SbAtFixedLuminosity));
             }
 
             request.Timings?.Mark($"evolution tests {h.Label}");
@@ -165,7 +165,7 @@ public static class FitRun
         if (!first.Cuts.IsEmpty)
         {
             // With the size–luminosity relation a joint fit conditions on the magnitudes a magnitude limit selects on (SurveyJointLikelihood).
-            bool magConditioned = first.Observable == ObservableKind.Joint && first.SurveyTerms.Relation == Survey.SizeRelationKind.Luminosity && first.Cuts.MagLimit is not null;
+            bool magConditioned = first.MagLimitIsConditioned;
             if (!(magConditioned && first.Cuts with { MagLimit = null } == SelectionLimits.None))
                 notes.Add("selection cuts are modelled as per-object truncations of the Gaussian likelihood" +
                           (magConditioned ? " (not the magnitude limit: with the size–luminosity relation the fit is conditional on the magnitudes it selects on)" : ""));

@@ -112,7 +112,7 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
             {
                 // With a size–luminosity relation the fit conditions on the luminosities, which come from the apparent magnitudes: a
                 // magnitude limit selects on them and so does not truncate the likelihood (SurveyJointLikelihood's notes say so).
-                if (survey.Relation == Survey.SizeRelationKind.Luminosity && hypothesis.Nuisance.Cuts.MagLimit is not null)
+                if (hypothesis.Nuisance.MagLimitIsConditioned)
                     cut = SelectionTruncation.For(hypothesis.Nuisance.Cuts with { MagLimit = null });
                 _kernel = _surveyJoint = new Survey.SurveyJointLikelihood(hypothesis, _layout, observables, _cols, _distances, cut, _isophotal, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel, wholeSample);
             }

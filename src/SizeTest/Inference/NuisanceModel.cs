@@ -53,6 +53,18 @@ public sealed record NuisanceModel(
         if (GridNodes != 0 && GridNodes is < 16 or > 1024) throw new ArgumentException("the redshift grid needs 16 to 1024 nodes (or 0 for automatic)");
     }
 
+    /// <summary>
+    /// A joint fit with a size relation: surface brightness is conditional on each object's luminosity (or mass) too
+    /// (<c>sb_luminosity_slope</c>), so b is the SB change at fixed luminosity (<see cref="NuisanceParameters.SbLuminositySlope"/>).
+    /// </summary>
+    public bool SbAtFixedLuminosity => Observable == ObservableKind.Joint && SurveyTerms.Relation != Inference.Survey.SizeRelationKind.None;
+
+    /// <summary>
+    /// The magnitude limit selects on the magnitudes the luminosities come from, which a joint fit with the size–luminosity relation
+    /// conditions on: there it is not a truncation of the likelihood (<see cref="Inference.Survey.SurveyJointLikelihood"/>).
+    /// </summary>
+    public bool MagLimitIsConditioned => Observable == ObservableKind.Joint && SurveyTerms.Relation == Inference.Survey.SizeRelationKind.Luminosity && Cuts.MagLimit is not null;
+
     /// <summary>The node count used for a sample of <paramref name="objects"/> objects.</summary>
     public int NodesFor(int objects) => GridNodes != 0 ? GridNodes : objects < 20000 ? 48 : 96;
 }
