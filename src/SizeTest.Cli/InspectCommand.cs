@@ -52,7 +52,7 @@ internal static class InspectCommand
             if (logPath is not null) load.RejectLog.WriteCsv(logPath, overwrite);
             switch (parse.GetValue(format))
             {
-                case "json": context.Out.WriteLine(SettingFlags.Text(CatalogueInspectionJson.Write(path, load, corrections))); break;
+                case "json": context.Out.WriteLine(CatalogueInspectionJson.Write(path, load, corrections, SettingFlags.Flag)); break;
                 case "csv": WriteCsv(context.Out, load); break;
                 default: WriteTable(context.Out, path, load, logPath, corrections); break;
             }
@@ -73,7 +73,7 @@ internal static class InspectCommand
         }
         catch (InputException ex) when (given == new PhotometryOptionText())
         {
-            return [$"cannot be applied as given: {SettingFlags.Message(ex)}"];
+            return ["cannot be applied as given: " + SettingProblem.Literal(SettingFlags.Message(ex))]; // already spelled: kept literal
         }
     }
 
@@ -126,7 +126,7 @@ internal static class InspectCommand
         WriteGrid(o, ["role", "column", "unit", "count", "nulls", "min", "median", "max"], stats);
         o.WriteLine();
         o.WriteLine("corrections that will be applied:");
-        foreach (var c in corrections) o.WriteLine($"  {c}");
+        foreach (var c in corrections) o.WriteLine($"  {SettingFlags.Text(c)}");
     }
 
     private static void WriteGrid(TextWriter o, string[] header, List<string[]> rows)

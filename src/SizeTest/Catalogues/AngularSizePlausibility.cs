@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Errors;
 using System.Globalization;
 using SizeTest.Foundation.Angles;
 
@@ -40,7 +41,7 @@ public static class AngularSizePlausibility
         // The median as the file wrote it (the value before the unit's scale) tells the user which unit it was in.
         double asWritten = b.Scale > 0 ? median / AngleUnits.ArcsecPerRadian / b.Scale : double.NaN;
         string written = double.IsFinite(asWritten) ? $"; the file's median value is {G(asWritten)}" : "";
-        return [$"warning: the median angular size of theta column '{b.ColumnName}' is {G(median)} arcsec when read in {b.Unit} ({b.UnitReason}), {bound}{written}; check the unit ({{col}} theta={b.ColumnName}:UNIT)"];
+        return [SettingProblem.Text($"warning: the median angular size of theta column '{b.ColumnName}' is {G(median)} arcsec when read in {b.Unit} ({new SettingText(b.UnitReason)}), {bound}{written}; check the unit ({{col}} theta={b.ColumnName}:UNIT)")];
     }
 
     private static string G(double v) => v.ToString("G4", CultureInfo.InvariantCulture);

@@ -1,5 +1,6 @@
 using System.Text;
 using System.Text.Json;
+using SizeTest.Foundation.Errors;
 
 namespace SizeTest.Catalogues;
 
@@ -12,11 +13,15 @@ namespace SizeTest.Catalogues;
 public static class CatalogueInspectionJson
 {
     /// <summary>The inspect JSON object (indented UTF-8 text, no trailing newline) for <paramref name="load"/> of the
-    /// catalogue <paramref name="path"/>, with the photometric <paramref name="corrections"/> in words.</summary>
-    public static string Write(string path, CatalogueLoad load, IReadOnlyList<string> corrections)
+    /// catalogue <paramref name="path"/>, with the photometric <paramref name="corrections"/> in words. The texts that name
+    /// settings (a mapping's reason and unit source, the detection lines, the corrections) have each setting written by
+    /// <paramref name="spell"/> (<see cref="SettingProblem.RenderText"/>); names and values from the file are written as they are.</summary>
+    public static string Write(string path, CatalogueLoad load, IReadOnlyList<string> corrections, Func<string, string> spell)
     {
         ArgumentNullException.ThrowIfNull(load);
         ArgumentNullException.ThrowIfNull(corrections);
+        ArgumentNullException.ThrowIfNull(spell);
+        string Text(string template) => SettingProblem.RenderText(template, spell);
         using var ms = new MemoryStream();
         using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true }))
         {
@@ -49,9 +54,9 @@ public static class CatalogueInspectionJson
                 w.WriteString("role", role.Name());
                 w.WriteString("column", b.ColumnName);
                 w.WriteString("unit", b.Unit);
-                w.WriteString("unit_source", b.UnitReason);
+                w.WriteString("unit_source", Text(b.UnitReason));
                 w.WriteBoolean("relative", b.IsRelative);
-                w.WriteString("reason", b.Reason);
+                w.WriteString("reason", Text(b.Reason));
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -60,7 +65,7 @@ public static class CatalogueInspectionJson
             foreach (var (name, _) in load.Mapping.Kept) w.WriteStringValue(name);
             w.WriteEndArray();
             w.WriteStartArray("detection");
-            foreach (var line in load.DetectionReport) w.WriteStringValue(line);
+            foreach (var line in load.DetectionReport) w.WriteStringValue(Text(line));
             w.WriteEndArray();
             w.WriteNumber("rows_read", load.RowsRead);
             w.WriteNumber("accepted", load.Accepted);
@@ -84,7 +89,7 @@ public static class CatalogueInspectionJson
             }
             w.WriteEndArray();
             w.WriteStartArray("corrections");
-            foreach (var c in corrections) w.WriteStringValue(c);
+            foreach (var c in corrections) w.WriteStringValue(Text(c));
             w.WriteEndArray();
             w.WriteEndObject();
         }

@@ -72,7 +72,7 @@ public static class MappingResolver
             var b = Bind(a.Role, idx, col, a.Unit, "given with {col}", roles, out var problem);
             if (b is null) throw SettingProblem.Input($"{problem}; give the unit with {{col}} {a.Role.Name()}={col.Name}:UNIT", sourceName, column: col.Name);
             if (!string.IsNullOrWhiteSpace(a.Unit) && !string.IsNullOrWhiteSpace(col.Unit) && !CatalogueUnits.SameUnit(a.Unit, col.Unit))
-                notes.Add($"warning: column '{col.Name}' declares unit '{col.Unit.Trim()}' in the file, but {{col}} {a.Role.Name()}={col.Name}:{a.Unit} gives '{a.Unit}'; the given unit is used");
+                notes.Add(SettingProblem.Text($"warning: column '{col.Name}' declares unit '{col.Unit.Trim()}' in the file, but {{col}} {a.Role.Name()}={col.Name}:{a.Unit} gives '{a.Unit}'; the given unit is used"));
             roles[a.Role] = b;
             used.Add(idx);
         }
@@ -97,8 +97,8 @@ public static class MappingResolver
             bool follows = string.IsNullOrWhiteSpace(errFileUnit) || (!string.IsNullOrWhiteSpace(valFileUnit) && CatalogueUnits.SameUnit(valFileUnit, errFileUnit));
             if (!follows) continue;
             roles[err.Role] = err with { Unit = val.Unit, Scale = val.Scale, UnitReason = $"same as {val.Role.Name()}" };
-            notes.Add($"warning: {err.Role.Name()} column '{err.ColumnName}' is read in {val.Unit}, the unit given for {val.Role.Name()} column '{val.ColumnName}'"
-                      + (string.IsNullOrWhiteSpace(errFileUnit) ? "" : $", not its declared '{errFileUnit.Trim()}'"));
+            notes.Add(SettingProblem.Text($"warning: {err.Role.Name()} column '{err.ColumnName}' is read in {val.Unit}, the unit given for {val.Role.Name()} column '{val.ColumnName}'")
+                      + (string.IsNullOrWhiteSpace(errFileUnit) ? "" : SettingProblem.Text($", not its declared '{errFileUnit.Trim()}'")));
         }
 
         // A relative error needs its value.
@@ -125,9 +125,9 @@ public static class MappingResolver
         string defReason;
         if (mapping.SizeDefinition is { } given) { def = given; defReason = "given with {size_def}"; }
         else if (roles.TryGetValue(ColumnRole.Theta, out var th) && Norm(th.ColumnName).Contains("petro"))
-        { def = new SizeDefinition(SizeKind.Petrosian); defReason = $"size column '{th.ColumnName}' is named Petrosian"; }
+        { def = new SizeDefinition(SizeKind.Petrosian); defReason = SettingProblem.Text($"size column '{th.ColumnName}' is named Petrosian"); }
         else if (roles.TryGetValue(ColumnRole.Theta, out th) && Norm(th.ColumnName).Contains("fwhm"))
-        { def = new SizeDefinition(SizeKind.GaussianFwhm); defReason = $"size column '{th.ColumnName}' is named FWHM"; }
+        { def = new SizeDefinition(SizeKind.GaussianFwhm); defReason = SettingProblem.Text($"size column '{th.ColumnName}' is named FWHM"); }
         else { def = SizeDefinition.Effective; defReason = "default; set another with {size_def}"; }
 
         return new ResolvedMapping(roles, kept, def, defReason, notes);
@@ -230,17 +230,17 @@ public static class MappingResolver
             if (words.Length > 0 && words[0].StartsWith("stat.", StringComparison.Ordinal)) continue; // an error or statistic, not a value
             string n = Norm(c.Name);
             if (n == roleNorm) candidates.Add((i, 0, "named by role"));
-            else if (UcdMatchesValue(role, words)) candidates.Add((i, words.Contains("meta.main") ? 1 : 2, $"UCD {c.Ucd}"));
+            else if (UcdMatchesValue(role, words)) candidates.Add((i, words.Contains("meta.main") ? 1 : 2, SettingProblem.Text($"UCD {c.Ucd}")));
             else if (CommonNames.TryGetValue(role, out var names) && names.Contains(n)) candidates.Add((i, 3, $"common name for {role.Name()}"));
         }
         foreach (var cand in candidates.OrderBy(c => c.Tier).ThenBy(c => c.Index))
         {
             var b = Bind(role, cand.Index, columns[cand.Index], null, cand.Reason, roles, out var problem);
-            if (b is null) { notes.Add($"passed over '{columns[cand.Index].Name}' for {role.Name()}: {problem}"); continue; }
+            if (b is null) { notes.Add(SettingProblem.Text($"passed over '{columns[cand.Index].Name}' for {role.Name()}: {problem}")); continue; }
             roles[role] = b;
             used.Add(cand.Index);
             var others = candidates.Where(c => c.Index != cand.Index && !used.Contains(c.Index)).Select(c => $"'{columns[c.Index].Name}'").ToArray();
-            if (others.Length > 0) notes.Add($"for {role.Name()} also possible: {string.Join(", ", others)} (choose with {{col}} {role.Name()}=NAME)");
+            if (others.Length > 0) notes.Add(SettingProblem.Text($"for {role.Name()} also possible: {string.Join(", ", others)} (choose with {{col}} {role.Name()}=NAME)"));
             return;
         }
     }
@@ -262,16 +262,16 @@ public static class MappingResolver
             if (n == roleNorm) { candidates.Add((i, 0, "named by role")); continue; }
             if (value is null) continue;
             if (words.Length > 0 && words[0] == "stat.error" && UcdMatchesValue(valueRole, words.Skip(1)))
-                candidates.Add((i, 1, $"UCD {c.Ucd}"));
+                candidates.Add((i, 1, SettingProblem.Text($"UCD {c.Ucd}")));
             else if (v is not null && IsCompanionName(n, v))
-                candidates.Add((i, 2, $"error companion of '{value.ColumnName}' by name"));
+                candidates.Add((i, 2, SettingProblem.Text($"error companion of '{value.ColumnName}' by name")));
             else if (words.Length > 0 && words[0] == "stat.error" && i == value.ColumnIndex + 1)
-                candidates.Add((i, 3, $"UCD {c.Ucd} next to '{value.ColumnName}'"));
+                candidates.Add((i, 3, SettingProblem.Text($"UCD {c.Ucd} next to '{value.ColumnName}'")));
         }
         foreach (var cand in candidates.OrderBy(c => c.Tier).ThenBy(c => c.Index))
         {
             var b = Bind(role, cand.Index, columns[cand.Index], null, cand.Reason, roles, out var problem);
-            if (b is null) { notes.Add($"passed over '{columns[cand.Index].Name}' for {role.Name()}: {problem}"); continue; }
+            if (b is null) { notes.Add(SettingProblem.Text($"passed over '{columns[cand.Index].Name}' for {role.Name()}: {problem}")); continue; }
             roles[role] = b;
             used.Add(cand.Index);
             return;

@@ -45,7 +45,7 @@ public sealed class ResolvedMapping
         foreach (var role in ColumnRoles.All)
             if (Roles.TryGetValue(role, out var b)) lines.Add(b.Describe());
         lines.Add($"size definition: {SizeDefinitions.Format(SizeDefinition)} (because {SizeDefinitionReason})");
-        foreach (var (name, _) in Kept) lines.Add($"kept column: {name}");
+        foreach (var (name, _) in Kept) lines.Add("kept column: " + Foundation.Errors.SettingProblem.Literal(name));
         var missing = ColumnRoles.All.Where(r => !Roles.ContainsKey(r)).Select(r => r.Name()).ToArray();
         if (missing.Length > 0) lines.Add($"not mapped: {string.Join(", ", missing)}");
         lines.AddRange(Notes);

@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Errors;
+
 namespace SizeTest.Catalogues;
 
 /// <summary>How one role is read from the catalogue, and why.</summary>
@@ -13,5 +15,5 @@ public sealed record RoleBinding(ColumnRole Role, int ColumnIndex, string Column
 {
     /// <summary>One line for reports: <c>theta ← Re [arcsec, from the file] (because UCD phys.angSize;src)</c>.</summary>
     public string Describe() =>
-        $"{Role.Name(),-9} ← {ColumnName}{(Unit.Length > 0 ? $" [{Unit}, {UnitReason}]" : "")} (because {Reason})";
+        $"{Role.Name(),-9} ← {SettingProblem.Literal(ColumnName)}{(Unit.Length > 0 ? $" [{SettingProblem.Literal(Unit)}, {UnitReason}]" : "")} (because {Reason})";
 }

@@ -1,3 +1,4 @@
+using SizeTest.Foundation.Errors;
 using SizeTest.Inference.Comparison;
 
 namespace SizeTest.Inference;
@@ -115,7 +116,7 @@ public static class FitRun
         notes.AddRange(extraNotes);
         if (PhysicalSizePlausibility.Note(ranked) is { } sizeScale) notes.Insert(0, sizeScale);
         if (first.SurveyTerms.Groups is { Count: > 1 } groups)
-            notes.Add($"populations {string.Join(", ", groups)}: the required evolution is stated for each group ({(first.Observable switch { ObservableKind.Size => "size_evolution@GROUP", ObservableKind.SurfaceBrightness => "sb_evolution@GROUP", _ => "size_evolution@GROUP and sb_evolution@GROUP" })}, each with its own likelihood-ratio test against 0); the model comparison (AIC, BIC, weights, Bayes factors) is one combined comparison over all groups, with the world model shared");
+            notes.Add(SettingProblem.Text($"populations {string.Join(", ", groups)}: the required evolution is stated for each group ({(first.Observable switch { ObservableKind.Size => "size_evolution@GROUP", ObservableKind.SurfaceBrightness => "sb_evolution@GROUP", _ => "size_evolution@GROUP and sb_evolution@GROUP" })}, each with its own likelihood-ratio test against 0); the model comparison (AIC, BIC, weights, Bayes factors) is one combined comparison over all groups, with the world model shared"));
         if (ranked.Count > 1 && ranked[0].Tied)
             notes.Insert(0, $"models {string.Join(", ", ranked.Where(r => r.Rank == 1).Select(r => r.Name))} tie (AIC and BIC equal within {ModelComparison.TieTolerance}): none is ranked first");
         if (!backend.Concurrent)

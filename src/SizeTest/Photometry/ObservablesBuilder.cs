@@ -119,7 +119,7 @@ public static class ObservablesBuilder
         }
 
         if (options.ZeroPoints is { } zpt)
-            notes.Add($"zero points: AB offsets per band from {zpt.Source} added (m_AB = m + offset) to " +
+            notes.Add(SettingProblem.Text($"zero points: AB offsets per band from {zpt.Source} added (m_AB = m + offset) to ") +
                       (match is not null ? "each matched band's surface brightness" : "surface brightness") +
                       (mag is not null ? ", magnitudes" : "") + (iso is not null ? ", the isophote" : "") +
                       "; all surface brightness is AB mag/arcsec^2.");
@@ -190,7 +190,7 @@ public static class ObservablesBuilder
             case KCorrectionOption.Column c:
             {
                 var col = RequireColumn(sample, c.ColumnName, "K-correction");
-                notes.Add($"K-correction: per object from column '{c.ColumnName}' (mag, added to the model; Hogg et al. 2002 convention).");
+                notes.Add(SettingProblem.Text($"K-correction: per object from column '{c.ColumnName}' (mag, added to the model; Hogg et al. 2002 convention)."));
                 return (double[])col.Clone();
             }
             case KCorrectionOption.PowerLaw p:
@@ -217,13 +217,13 @@ public static class ObservablesBuilder
                         throw new InputException("A template K-correction needs the observed filter curve (filter-obs).");
                     var rest = t.RestBand ?? t.ObservedBand;
                     TemplateK(sample, t, t.ObservedBand, rest, options.TemplateRedshiftStep, k, null);
-                    notes.Add($"K-correction: template {t.Spectrum.Source} through observed band {t.ObservedBand.Name} to rest-frame band {rest.Name} " +
-                              $"(references {t.ObservedReference?.Source ?? "AB"} / {t.RestReference?.Source ?? "AB"}; photon-counting responses; Hogg et al. 2002 eq. 8).");
+                    notes.Add(SettingProblem.Text($"K-correction: template {t.Spectrum.Source} through observed band {t.ObservedBand.Name} to rest-frame band {rest.Name} ") +
+                              SettingProblem.Text($"(references {t.ObservedReference?.Source ?? "AB"} / {t.RestReference?.Source ?? "AB"}; photon-counting responses; Hogg et al. 2002 eq. 8)."));
                 }
                 else
                 {
                     match.ResidualK(sample, t, options.TemplateRedshiftStep, k);
-                    notes.Add($"K-correction: residual K from matched band to target for template {t.Spectrum.Source} (Hogg et al. 2002 eq. 8; narrow bands where no curve is given).");
+                    notes.Add(SettingProblem.Text($"K-correction: residual K from matched band to target for template {t.Spectrum.Source} (Hogg et al. 2002 eq. 8; narrow bands where no curve is given)."));
                 }
                 return k;
             }
@@ -287,7 +287,7 @@ public static class ObservablesBuilder
             case ExtinctionOption.Column c:
             {
                 var col = RequireColumn(sample, c.ColumnName, "extinction");
-                notes.Add($"Galactic extinction: per object A_band from column '{c.ColumnName}' (mag, added to the model).");
+                notes.Add(SettingProblem.Text($"Galactic extinction: per object A_band from column '{c.ColumnName}' (mag, added to the model)."));
                 return (double[])col.Clone();
             }
             case ExtinctionOption.ColourExcess ce:
@@ -299,7 +299,7 @@ public static class ObservablesBuilder
                 else
                     for (int i = 0; i < n; i++)
                         a[i] = Coefficient(sample, options, ce.Coefficients, i) * ebv[i];
-                notes.Add($"Galactic extinction: A_band = R_band x E(B-V) from column '{ce.ColourExcessColumn}', coefficients from {ce.Coefficients.Source}.");
+                notes.Add(SettingProblem.Text($"Galactic extinction: A_band = R_band x E(B-V) from column '{ce.ColourExcessColumn}', coefficients from {ce.Coefficients.Source}."));
                 return a;
             }
             default:

@@ -36,7 +36,7 @@ public static class ResourceBudget
     public static void Check(string what, double estimatedBytes, long? maxMemoryBytes)
     {
         if (maxMemoryBytes is { } max && estimatedBytes > max)
-            throw SettingProblem.Input($"{what} would need about {Format(estimatedBytes)}, more than {{max_memory}} {Format(max)}; ask for less or raise {{max_memory}} (memory budget checked before any allocation)");
+            throw SettingProblem.Input($"{new SettingText(what)} would need about {Format(estimatedBytes)}, more than {{max_memory}} {Format(max)}; ask for less or raise {{max_memory}} (memory budget checked before any allocation)");
         long avail = AvailableBytes();
         if (avail > 0 && estimatedBytes > avail)
             throw new InputException($"{what} would need about {Format(estimatedBytes)}, more than the {Format(avail)} of memory available on this machine; ask for less (memory budget checked before any allocation)");

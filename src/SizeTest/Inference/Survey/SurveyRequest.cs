@@ -96,7 +96,7 @@ public sealed record SurveyRequest(
         {
             var g = observables.Survey.Group ?? throw SettingProblem.Exception([new("{group} needs a group column; name it with {group} COLUMN")]);
             groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
-            if (groups.Count == 1) notes.Add($"{{group}}: the group column has a single label '{groups[0]}'; fitting one population.");
+            if (groups.Count == 1) notes.Add(SettingProblem.Text($"{{group}}: the group column has a single label '{groups[0]}'; fitting one population."));
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
         bool marginalise = MarginalisesRedshift(observables, observable);
@@ -140,7 +140,7 @@ public sealed record SurveyRequest(
         string range = string.Create(CultureInfo.InvariantCulture, $"[{(RedshiftPriorMin is { } a ? a.ToString("R", CultureInfo.InvariantCulture) : "−∞")}, {(RedshiftPriorMax is { } b ? b.ToString("R", CultureInfo.InvariantCulture) : "∞")}]");
         string what = string.Create(CultureInfo.InvariantCulture, $"{outside} of the {withErr} objects with z_err > 0 have z_obs more than 3 z_err outside the stated {{z_prior}} {range}");
         if (outside == withErr)
-            throw SettingProblem.Exception([new($"{what}: the prior excludes all of them; widen {{z_prior}} or leave it out (the default is the sample's range)")]);
+            throw SettingProblem.Exception([new($"{new SettingText(what)}: the prior excludes all of them; widen {{z_prior}} or leave it out (the default is the sample's range)")]);
         notes.Add($"warning: {what}; their fit rests on the prior's tail and may not converge; check {{z_prior}}.");
     }
 

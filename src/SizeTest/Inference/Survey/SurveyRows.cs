@@ -133,7 +133,7 @@ internal sealed class SurveyRows
             var index = labels.Select((l, k) => (l, k)).ToDictionary(t => t.l, t => t.k, StringComparer.Ordinal);
             for (int i = 0; i < n; i++)
                 Group[i] = index.TryGetValue(g[i], out var k) ? k : throw new InputException($"object {i + 1} has group '{g[i]}', which is not among the fitted groups {string.Join(", ", labels)}");
-            notes.Add($"populations: {GroupCount} groups ({string.Join(", ", labels)}), each with its own {groupNuisance}; the world model is shared.");
+            notes.Add(SettingProblem.Text($"populations: {GroupCount} groups ({string.Join(", ", labels)}), each with its own {groupNuisance}; the world model is shared."));
         }
 
         // --- evolution bins (by observed redshift)
