@@ -103,11 +103,11 @@ internal static class FitCommand
                 throw new InputException($"{SettingFlags.Text(string.Join(", ", whole))} do not run under mpirun (group labels, equal-count redshift bins and the luminosity window's counts need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
             string? profileName = parse.GetValue(profile);
             // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
-            Func<Observables, RedshiftGridSpan?, SurveyBinding> survey = (obs, whole) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
+            Func<Observables, RedshiftGridSpan?, RedshiftPriorCoverage?, SurveyBinding> survey = (obs, whole, coverage) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>
             {
                 CheckNames(overrides, expected, families, nm, profileName);
                 return families.Select(f => Hypothesis.Create(f, nm, overrides)).ToArray();
-            }, whole);
+            }, whole, coverage);
             return FitRunner.Run(context, new FitArgs(parse.GetValue(catalogue)!, loadOptions, parse.GetValue(output)!, limits.Replace(parse), parse.GetValue(format), hypotheses, parse.GetValue(seed), nStarts, nBoot, nFolds, parse.GetValue(profile), expected, samplerName, nWalkers, nSteps, nMax, nLive, photometry) { CvFoldsExplicit = parse.GetResult(folds) is { Implicit: false }, Inputs = inputs, Survey = survey, SurveyTerms = surveyRequest, MaxOutsideSelection = parse.GetValue(maxOutside) });
         });
         return command;

@@ -25,8 +25,8 @@ internal sealed record FitArgs(
     /// <summary>Largest fraction of objects outside the stated cuts (--max-outside-selection); see <see cref="SelectionConsistency"/>.</summary>
     public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
     /// <summary>Survey terms: rebuilds the hypotheses for the loaded sample (group labels, redshift bins, z_err) — this process's
-    /// objects and, under MPI, the whole sample's redshift range — or null.</summary>
-    public Func<Observables, RedshiftGridSpan?, SurveyBinding>? Survey { get; init; }
+    /// objects and, under MPI, the whole sample's redshift range and counts against a stated --z-prior — or null.</summary>
+    public Func<Observables, RedshiftGridSpan?, RedshiftPriorCoverage?, SurveyBinding>? Survey { get; init; }
     /// <summary>The survey request behind <see cref="Survey"/> (its stated photo-z prior is a selection cut for exact redshifts), or null.</summary>
     public SurveyRequest? SurveyTerms { get; init; }
 }
@@ -87,12 +87,14 @@ internal static class FitRunner
 
         // The whole sample's redshift range (every rank gets the same sums), for survey terms bound on a rank's share.
         RedshiftGridSpan? wholeSample = ranks.Size > 1 ? WholeSampleSpan(ranks, built!.Observables) : null;
+        // Likewise the counts against a stated --z-prior: the warning and the refusal are decided on the whole sample.
+        RedshiftPriorCoverage? wholeCoverage = ranks.Size > 1 && a.SurveyTerms is { } terms ? WholeSampleCoverage(ranks, terms.PriorCoverage(built!.Observables, a.Hypotheses[0].Nuisance.Observable)) : null;
         code = Agree(context, ranks, () =>
         {
             var local = built!.Observables;
             if (a.Survey is { } bindSurvey)
             {
-                survey = bindSurvey(local, wholeSample);
+                survey = bindSurvey(local, wholeSample, wholeCoverage);
                 a = a with { Hypotheses = survey.Hypotheses };
                 if (root && survey.Warning is { } w) context.Err.WriteLine("sizetest: warning: " + TerminalText.Escape(SettingFlags.Text(w)));
                 if (root)
@@ -211,6 +213,13 @@ internal static class FitRunner
     }
 
     // Objects and redshift bounds of every rank in its own slots, summed over ranks (as EvaluationBackend does); null when empty.
+    private static RedshiftPriorCoverage WholeSampleCoverage(IRankReducer ranks, RedshiftPriorCoverage mine)
+    {
+        var sums = new double[2];
+        ranks.SumAll([mine.WithErr, mine.Outside], sums); // counts below 2^53 add exactly in doubles
+        return new RedshiftPriorCoverage((long)sums[0], (long)sums[1]);
+    }
+
     private static RedshiftGridSpan? WholeSampleSpan(IRankReducer ranks, Observables local)
     {
         var mine = new double[3 * ranks.Size];

@@ -26,15 +26,18 @@ public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOn
     /// <param name="wholeSample">When <paramref name="observables"/> are one rank's share, the whole sample's redshift range
     /// (the default photo-z prior the notes state); null: these objects are the sample. A share may be empty: the hypotheses
     /// are rebuilt alike on every rank.</param>
+    /// <param name="wholeSampleCoverage">With <paramref name="wholeSample"/>, the whole sample's counts against a stated
+    /// redshift prior (<see cref="SurveyRequest.PriorCoverage"/> summed over ranks); null: count <paramref name="observables"/>.</param>
     public static SurveyBinding Bind(SurveyRequest request, bool asked, Observables observables, NuisanceModel nuisance,
-        IReadOnlyList<Hypothesis> plain, Func<NuisanceModel, IReadOnlyList<Hypothesis>> rebuild, RedshiftGridSpan? wholeSample = null)
+        IReadOnlyList<Hypothesis> plain, Func<NuisanceModel, IReadOnlyList<Hypothesis>> rebuild, RedshiftGridSpan? wholeSample = null,
+        RedshiftPriorCoverage? wholeSampleCoverage = null)
     {
         ArgumentNullException.ThrowIfNull(request);
         ArgumentNullException.ThrowIfNull(observables);
         ArgumentNullException.ThrowIfNull(nuisance);
         ArgumentNullException.ThrowIfNull(rebuild);
         var notes = new List<string>();
-        var model = request.Build(observables, nuisance.Observable, notes, wholeSample is not null);
+        var model = request.Build(observables, nuisance.Observable, notes, wholeSample is not null, wholeSampleCoverage);
         var hypotheses = plain;
         if ((model.IsActive || asked) && (observables.Count > 0 || wholeSample is not null))
         {

@@ -87,7 +87,11 @@ public sealed record SurveyRequest(
     /// <param name="notes">Receives what was decided.</param>
     /// <param name="distributed">The sample is split over MPI ranks (then the population redshift prior, which needs every object,
     /// is refused: a flat prior must be asked for, so one process and several never differ silently).</param>
-    public SurveyModel Build(Observables observables, ObservableKind observable, ICollection<string> notes, bool distributed = false)
+    /// <param name="wholeSampleCoverage">Under MPI, the whole sample's counts against the stated redshift prior (the sum of every
+    /// rank's <see cref="PriorCoverage"/>), so that the warning and the error are decided alike on every rank; null: count
+    /// <paramref name="observables"/>.</param>
+    public SurveyModel Build(Observables observables, ObservableKind observable, ICollection<string> notes, bool distributed = false,
+        RedshiftPriorCoverage? wholeSampleCoverage = null)
     {
         ArgumentNullException.ThrowIfNull(observables);
         ArgumentNullException.ThrowIfNull(notes);
@@ -102,7 +106,7 @@ public sealed record SurveyRequest(
         bool marginalise = MarginalisesRedshift(observables, observable);
         if (!marginalise && observables.Survey.ZErr is not null)
             notes.Add("z_err is mapped but ignored ({ignore_z_err}): redshifts are taken as exact.");
-        if (HasStatedRedshiftPrior(observables, observable)) CheckPriorCoversData(observables, notes);
+        if (HasStatedRedshiftPrior(observables, observable)) CheckPriorCoversData(wholeSampleCoverage ?? PriorCoverage(observables, observable), notes);
         PopulationRedshiftPrior? population = null;
         if (marginalise && RedshiftPriorShape == RedshiftPriorShape.Population && observables.Count > 0)
         {
@@ -120,28 +124,27 @@ public sealed record SurveyRequest(
     }
 
     /// <summary>
-    /// A stated prior that excludes the data: of the objects with z_err &gt; 0, those whose z_obs lies more than 3 σ_z outside
-    /// [LO, HI] (their likelihood rests on the prior's tail). More than half of them: a warning note; all of them: an error.
+    /// A stated prior that excludes the data (<see cref="RedshiftPriorCoverage"/>, of the whole sample). More than half of the
+    /// objects with z_err &gt; 0 outside: a warning note; all of them: an error.
     /// </summary>
-    private void CheckPriorCoversData(Observables observables, ICollection<string> notes)
+    private void CheckPriorCoversData(RedshiftPriorCoverage coverage, ICollection<string> notes)
     {
-        var zErr = observables.Survey.ZErr!;
-        double lo = RedshiftPriorMin ?? double.NegativeInfinity, hi = RedshiftPriorMax ?? double.PositiveInfinity;
-        int withErr = 0, outside = 0;
-        for (int i = 0; i < observables.Count; i++)
-        {
-            double s = zErr[i];
-            if (!(s > 0)) continue;
-            withErr++;
-            double z = observables.Z[i];
-            if (z < lo - 3 * s || z > hi + 3 * s) outside++;
-        }
-        if (withErr == 0 || 2 * outside <= withErr) return;
+        if (!coverage.MostOutside) return;
         string range = string.Create(CultureInfo.InvariantCulture, $"[{(RedshiftPriorMin is { } a ? a.ToString("R", CultureInfo.InvariantCulture) : "−∞")}, {(RedshiftPriorMax is { } b ? b.ToString("R", CultureInfo.InvariantCulture) : "∞")}]");
-        string what = string.Create(CultureInfo.InvariantCulture, $"{outside} of the {withErr} objects with z_err > 0 have z_obs more than 3 z_err outside the stated {{z_prior}} {range}");
-        if (outside == withErr)
+        string what = string.Create(CultureInfo.InvariantCulture, $"{coverage.Outside} of the {coverage.WithErr} objects with z_err > 0 have z_obs more than 3 z_err outside the stated {{z_prior}} {range}");
+        if (coverage.AllOutside)
             throw SettingProblem.Exception([new($"{new SettingText(what)}: the prior excludes all of them; widen {{z_prior}} or leave it out (the default is the sample's range)")]);
         notes.Add($"warning: {what}; their fit rests on the prior's tail and may not converge; check {{z_prior}}.");
+    }
+
+    /// <summary>The counts of <paramref name="observables"/> against the stated redshift prior (<see cref="RedshiftPriorCoverage"/>),
+    /// or zero counts when no stated prior applies (<see cref="HasStatedRedshiftPrior"/>). Under MPI each rank counts its share
+    /// and the sums go to <see cref="Build"/>.</summary>
+    public RedshiftPriorCoverage PriorCoverage(Observables observables, ObservableKind observable)
+    {
+        ArgumentNullException.ThrowIfNull(observables);
+        if (!HasStatedRedshiftPrior(observables, observable)) return default;
+        return RedshiftPriorCoverage.Count(observables.Z, observables.Survey.ZErr!, RedshiftPriorMin ?? double.NegativeInfinity, RedshiftPriorMax ?? double.PositiveInfinity);
     }
 
     /// <summary>Whether objects are integrated over their redshifts: a z_err column is mapped and not ignored. Every observable

@@ -120,6 +120,39 @@ public sealed class MpiFitCommandTests : IDisposable
     }
 
     [MpiFact]
+    public void AStatedRedshiftPriorIsJudgedOnTheWholeSampleUnderMpirun()
+    {
+        // 2048 photo-z objects (z 0.3–2, σ_z = 0.03(1+z)) sorted by z downwards: rank 0 holds the upper 1024 rows (one chunk),
+        // rank 1 the lower 1024. Under --z-prior 1.45:3 rank 1's share lies wholly more than 3 z_err below 1.45 (an error if it
+        // decided alone: 1024 of 1024), rank 0's mostly inside, the whole sample over half outside: one warning, as one process.
+        string mock = Path.Combine(_dir, "zprior.csv");
+        var (code, _, err) = CliRunner.Run(["simulate", "--n", "2048", "--seed", "5", "--photoz-err", "0.03", "--z-dist", "uniform:0.3:2", "--out", mock]);
+        Assert.True(code == 0, err);
+        var lines = File.ReadAllLines(mock);
+        var header = lines[0].Split(',');
+        int zi = Array.IndexOf(header, "z"), ei = Array.IndexOf(header, "z_err");
+        var rows = lines.Skip(1).OrderByDescending(l => double.Parse(l.Split(',')[zi], System.Globalization.CultureInfo.InvariantCulture)).ToArray();
+        File.WriteAllLines(mock, [lines[0], .. rows]);
+        bool Outside(string l)
+        {
+            var f = l.Split(',');
+            double z = double.Parse(f[zi], System.Globalization.CultureInfo.InvariantCulture), s = double.Parse(f[ei], System.Globalization.CultureInfo.InvariantCulture);
+            return z < 1.45 - 3 * s || z > 3 + 3 * s;   // the rule of SurveyRequest (18e0399), counted here from the file
+        }
+        int all = rows.Count(Outside), second = rows.Skip(1024).Count(Outside);
+        Assert.Equal(1024, second);                         // rank 1 alone would refuse the fit
+        Assert.InRange(all, 1025, 2047);                     // over half of 2048, not all: the whole sample warns
+        string warning = $"{all} of the 2048 objects with z_err > 0 have z_obs more than 3 z_err outside the stated --z-prior [1.45, 3]";
+        string[] Args(string o) => ["fit", mock, "--models", "eds", "--cv-folds", "0", "--starts", "1", "--z-prior", "1.45:3", "--z-prior-shape", "flat", "--out", o];
+        (code, _, err) = CliRunner.Run(Args(Path.Combine(_dir, "zprior-single")));
+        Assert.True(code == 0, err);
+        Assert.Contains(warning, err, StringComparison.Ordinal);
+        var (exit, _, stderr) = MpiRunner.Run(2, Args(Path.Combine(_dir, "zprior-np2")));
+        Assert.True(exit == 0, stderr);
+        Assert.Contains(warning, stderr, StringComparison.Ordinal);
+    }
+
+    [MpiFact]
     public void ThePopulationRedshiftPriorIsRefusedUnderMpirunNotSilentlyReplaced()
     {
         string mock = Path.Combine(_dir, "photoz.csv");
