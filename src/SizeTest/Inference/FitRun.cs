@@ -26,6 +26,10 @@ public static class FitRun
         SampleSizeCheck.RefuseUnidentifiable(request.Hypotheses, total);
         var extraNotes = new List<string>();
         if (SampleSizeCheck.Warning(request.Hypotheses, total) is { } small) extraNotes.Add(small);
+        if (backend.TotalWeight != total)
+            extraNotes.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"weights: the fit maximises Σ w ln p; AICc and BIC take n = Σ w = {backend.TotalWeight:G6} (frequency weights: an object of weight w counts as w observations), not the {total} objects"));
+
         int cvFolds = request.CrossValidationFolds;
         if (cvFolds > total)
         {

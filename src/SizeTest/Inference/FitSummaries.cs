@@ -18,8 +18,9 @@ public static class FitSummaries
     }
 
     /// <summary>As <see cref="From(HypothesisLikelihood, MaximumLikelihoodResult, string?)"/> for hypothesis <paramref name="h"/>
-    /// fitted to <paramref name="objects"/> objects (e.g. a sample spread over MPI ranks).</summary>
-    public static ModelFitSummary From(Hypothesis h, int objects, MaximumLikelihoodResult fit, string? name = null)
+    /// fitted to <paramref name="objects"/> objects (e.g. a sample spread over MPI ranks) whose weights sum to
+    /// <paramref name="weightSum"/> (null: every weight is 1), the n of AICc and BIC (<see cref="InformationCriteria"/>).</summary>
+    public static ModelFitSummary From(Hypothesis h, int objects, MaximumLikelihoodResult fit, string? name = null, double? weightSum = null)
     {
         ArgumentNullException.ThrowIfNull(h);
         ArgumentNullException.ThrowIfNull(fit);
@@ -50,6 +51,7 @@ public static class FitSummaries
             j++;
         }
         int k = h.K, n = objects;
+        double nInformation = weightSum ?? objects;
         return new ModelFitSummary
         {
             Name = name ?? h.Label,
@@ -58,8 +60,8 @@ public static class FitSummaries
             K = k,
             N = n,
             Aic = InformationCriteria.Aic(fit.LogLikelihood, k),
-            Aicc = InformationCriteria.Aicc(fit.LogLikelihood, k, n),
-            Bic = InformationCriteria.Bic(fit.LogLikelihood, k, n),
+            Aicc = InformationCriteria.Aicc(fit.LogLikelihood, k, nInformation),
+            Bic = InformationCriteria.Bic(fit.LogLikelihood, k, nInformation),
             Converged = fit.Converged,
             ExitReason = fit.ExitReason,
         };

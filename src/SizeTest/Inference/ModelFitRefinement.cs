@@ -35,7 +35,7 @@ public static class ModelFitRefinement
         var search = scanPoints >= 2
             ? ModeSearch.Run(backend, likelihood, fit, scanPoints, cancel)
             : new ModeSearchResult(fit, [fit], new Dictionary<string, ProfileSample[]>());
-        var summary = FitSummaries.From(likelihood.Hypothesis, backend.TotalObjects, search.Best);
+        var summary = FitSummaries.From(likelihood.Hypothesis, backend.TotalObjects, search.Best, weightSum: backend.TotalWeight);
         if (!double.IsFinite(search.Best.LogLikelihood)) return new RefinedFit(search.Best, summary, []);
         var assessed = IntervalAssessment.Apply(backend, likelihood, search, summary, posteriorFollows);
         return new RefinedFit(search.Best, assessed.Summary, assessed.Notes);

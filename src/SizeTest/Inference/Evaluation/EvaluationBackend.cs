@@ -103,6 +103,19 @@ public sealed class EvaluationBackend
         }
         ChunkOffset = offset;
         TotalChunks = chunks;
+
+        // Round 3: the sum of the weights (each chunk's in its slot, added in global chunk order: the same for any number
+        // of processes). Without a weight column every object weighs 1.
+        var weights = local.Survey.Weight;
+        var slots = new double[TotalChunks];
+        for (int c = 0; c < LocalChunks; c++)
+        {
+            var (s, e) = ChunkRange(c);
+            double sum = 0;
+            for (int i = s; i < e; i++) sum += weights?[i] ?? 1.0;
+            slots[ChunkOffset + c] = sum;
+        }
+        TotalWeight = SumChunks(slots);
     }
 
     /// <summary>A backend for one process over the whole sample.</summary>
@@ -120,6 +133,10 @@ public sealed class EvaluationBackend
 
     /// <summary>Objects in the whole sample (all processes).</summary>
     public int TotalObjects { get; }
+
+    /// <summary>Σ w_i over the whole sample (the weight column; <see cref="TotalObjects"/> without one): the n of BIC and AICc
+    /// for a weighted fit (<see cref="Comparison.InformationCriteria"/>).</summary>
+    public double TotalWeight { get; }
 
     /// <summary>The whole sample's redshift range and size, which every D_A grid spans.</summary>
     public RedshiftGridSpan GridSpan { get; }

@@ -21,6 +21,7 @@ namespace SizeTest.Inference.Survey;
 /// <param name="RedshiftPriorMax">Upper end of that prior (null: the sample's highest z).</param>
 /// <param name="ZMarginal">How each object is integrated over its redshift: quadrature or the linearised (effective-variance) marginal.</param>
 /// <param name="RedshiftPopulation">The prior's shape on that range: the sample's deconvolved redshift distribution; null: flat in z.</param>
+/// <param name="Weighted">The sample has a weight column: each object's ln L is multiplied by its weight (the survey kernels carry weights, so a weight column alone makes the model active).</param>
 public sealed record SurveyModel(
     SizeRelationKind Relation = SizeRelationKind.None,
     LuminosityPivot? Pivot = null,
@@ -34,7 +35,8 @@ public sealed record SurveyModel(
     double? RedshiftPriorMin = null,
     double? RedshiftPriorMax = null,
     RedshiftMarginal ZMarginal = RedshiftMarginal.Quadrature,
-    PopulationRedshiftPrior? RedshiftPopulation = null)
+    PopulationRedshiftPrior? RedshiftPopulation = null,
+    bool Weighted = false)
 {
     /// <summary>Nothing beyond the basic size model.</summary>
     public static SurveyModel None { get; } = new();
@@ -44,7 +46,7 @@ public sealed record SurveyModel(
 
     /// <summary>Whether any survey term is active.</summary>
     public bool IsActive => Relation != SizeRelationKind.None || Groups is { Count: > 0 } || EvolutionBinEdges is not null ||
-                            MarginaliseRedshift || SizeErrors != SizeErrorKind.LogNormal || HasWindow;
+                            MarginaliseRedshift || SizeErrors != SizeErrorKind.LogNormal || HasWindow || Weighted;
 
     /// <summary>Whether a luminosity window is set.</summary>
     public bool HasWindow => AbsMagMin is not null || AbsMagMax is not null;

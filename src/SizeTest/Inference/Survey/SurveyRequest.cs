@@ -120,7 +120,7 @@ public sealed record SurveyRequest(
         }
         return new SurveyModel(Relation, Pivot, groups is { Count: > 1 } ? groups : null, edges, marginalise, 7, SizeErrors,
             AbsMagMin, AbsMagMax, RedshiftPriorMin, RedshiftPriorMax, ZMarginal ?? (observable == ObservableKind.Size ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature),
-            population);
+            population, observables.Survey.Weight is not null);
     }
 
     /// <summary>
