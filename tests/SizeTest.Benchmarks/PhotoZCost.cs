@@ -10,14 +10,14 @@ namespace SizeTest.Benchmarks;
 /// <summary>
 /// Issue 12 target: photometric-redshift marginalisation costs ≤ 3× the spectroscopic fit.
 /// <c>dotnet run -c Release --project tests/SizeTest.Benchmarks -- --photoz-cost [N] [REPEATS] [size|sb|joint]</c> (defaults 2000, 5,
-/// size; sb and joint fit the same mocks' surface brightnesses too, with the quadrature only): draws
+/// size; sb and joint fit the same mocks' surface brightnesses too): draws
 /// ΛCDM mocks of N galaxies, z_true uniform on [0.3, 2], σ_z = 0.08 (1+z), 5% log-normal size errors (the design of the photo-z
 /// tests), and times the maximum-likelihood fit (the hypothesis's default free parameters, Ωm held at 0.3; Bind + MaximumLikelihood.Fit), the median and the fastest of REPEATS runs
 /// after one warm-up (the machine is shared: the fastest is the steadier number), for: a spectroscopic mock (σ_z = 0) with equal
 /// size errors (the fit reduces to redshift-grid slice sums, SizeSliceGram), a spectroscopic mock whose size errors grow from 5% to
 /// 30% over z (unequal: the per-object path real catalogues take), the photo-z mock with z taken as exact, and with z marginalised by
 /// the quadrature (7 nodes) and by the linearised marginal, and the CLI's default survey model (SurveyRequest.Build: prior range the
-/// sample's, the population prior estimated by EM, the linearised marginal for size), whose EM is timed on its own line. Each line gives
+/// sample's, the population prior estimated by EM, the linearised marginal), whose EM is timed on its own line. Each line gives
 /// the Bind time of its fastest run (set-up) and the time per evaluation without it. Prints the ratios of both marginals against both
 /// spectroscopic paths (fastest runs), and the quadrature's cost against its number of redshift nodes (3, 5, 7, 9).
 /// </summary>
@@ -44,24 +44,23 @@ public static class PhotoZCost
         var quad = new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2);
         var linear = quad with { ZMarginal = RedshiftMarginal.Linear };
 
-        bool size = observable == ObservableKind.Size;
         var s = Time(spec, null, repeats, observable);
         var u = Time(specUnequal, null, repeats, observable);
         var i = Time(photo, null, repeats, observable);
         var q = Time(photo, quad, repeats, observable);
-        var l = size ? Time(photo, linear, repeats, observable) : q;
+        var l = Time(photo, linear, repeats, observable);
         // The CLI default: the survey model as SurveyRequest.Build makes it (prior range = the sample's redshift range, shape = the
-        // population prior estimated by EM, the linearised marginal for size), its EM timed with it.
+        // population prior estimated by EM, the linearised marginal), its EM timed with it.
         var pop = Time(photo, null, repeats, observable, fromRequest: true);
         o.WriteLine(FormattableString.Invariant($"photo-z cost, N = {n}, {repeats} fits each (ΛCDM, default free parameters: Ωm held at 0.3, observable {observable}), {Environment.ProcessorCount} cores; median and fastest:"));
         Line(o, "spectroscopic, equal errors", s);
         Line(o, "spectroscopic, unequal errors", u);
         Line(o, "photo-z mock, z taken as exact", i);
         Line(o, "photo-z, quadrature (7 nodes)", q);
-        if (size) Line(o, "photo-z, linearised", l);
+        Line(o, "photo-z, linearised", l);
         Line(o, "photo-z, CLI default (population)", pop);
         o.WriteLine(FormattableString.Invariant($"  population prior: EM (SurveyRequest.Build) {pop.Prior * 1e3:0.0} ms (fastest) of {pop.Prior * 1e3 + pop.Best * 1e3:0.0} ms with the fit"));
-        foreach (var (name, m) in size ? new[] { ("quadrature", q), ("linearised", l) } : [("quadrature", q)])
+        foreach (var (name, m) in new[] { ("quadrature", q), ("linearised", l) })
             o.WriteLine(FormattableString.Invariant(
                 $"ratio {name} / spectroscopic (fastest): {m.Best / s.Best:0.00}x wall against equal errors, {m.Best / u.Best:0.00}x against unequal errors; per evaluation {m.BestPerEval / s.BestPerEval:0.00}x and {m.BestPerEval / u.BestPerEval:0.00}x; target ≤ 3x"));
         // Where the quadrature's cost goes: the time per evaluation against the number J of redshift nodes (the default is 7): the

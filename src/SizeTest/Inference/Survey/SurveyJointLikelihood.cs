@@ -27,6 +27,17 @@ namespace SizeTest.Inference.Survey;
 /// the dimming 2.5 (n − b) ℓ, D_A (joint) and the luminosity move with z, the truncation is taken at that node, and K and A are held at
 /// the catalogue's values (computed for z_obs). An isophotal node where the model's central SB is fainter than the isophote gets no
 /// density; an object with none left has ln L = −∞.</para>
+/// <para>The linearised marginal (<see cref="RedshiftMarginal.Linear"/>, the default except for isophotal sizes): each object once, at the
+/// mean z̄ of its redshift posterior under the prior (<see cref="SurveyRows.LinearisedCentres"/>), with the covariance C + s² g gᵀ
+/// (s² that posterior's variance; the multivariate effective variance, Clutton-Brock 1967; Orear 1982): g = (∂m_t/∂z, ∂m_μ/∂z) at z̄,
+/// ∂m_μ/∂z = 2.5 (n − b)/(ln10 (1+z̄)) + κ d ln R̄/dz − (2.5/ln10) γ d ln L/dz, ∂m_t/∂z = d ln R̄/dz − d ln D_A/dz,
+/// d ln R̄/dz = a/(1+z̄) + β d ln L/dz, d ln L/dz = (2e − s_C)/(1+z̄) + 2 d ln D_A/dz (s_C = −∂C/∂ln(1+z); d ln D_A/dz from the grid
+/// interpolant's derivative, <see cref="RedshiftGridSlope"/>); K and A stay at the catalogue's values, as in the quadrature, so they
+/// have no slope. Surface brightness alone: μ ~ N(m_μ(z̄), σ_μ,i² + s_μ² + (∂m_μ/∂z)² s²), without a cut on the block-vectorised
+/// <see cref="LinearisedRedshiftKernel"/> (distances 0, β = 0). A selection cut is linearised too: its truncation is taken at z̄ with the
+/// effective covariance. Isophotal sizes are refused (their offset is non-linear in m_μ; <see cref="SurveyRequest"/> defaults them to the
+/// quadrature). Gradient: ∂ℓ/∂g_t = s²(2D_Vt g_t + D_C g_μ), ∂ℓ/∂g_μ = s²(2D_Vμ g_μ + D_C g_t), chained through g's dependence on a, b, β, γ, κ,
+/// e, n (θ_c) and d ln D_A/dz (the slope stencil onto the grid nodes).</para>
 /// <para>Gradient: analytic, all in θ (<see cref="ModelAdjoint.Direct"/>) except the distances (node adjoint). With d_t, d_μ, D_Vt, D_Vμ,
 /// D_C the per-point partials of the bivariate Gaussian (as <see cref="JointKernel"/>): ∂/∂R0 = (d_t + κd_μ)/R0, ∂/∂a = (d_t + κd_μ)x,
 /// ∂/∂β = (d_t + κd_μ) ln(L/L_pivot), ∂/∂scatter_dex = 2σ ln10 (D_Vt + κ²D_Vμ + κD_C), ∂/∂μ0 = d_μ, ∂/∂b = −2.5 d_μ ℓ,
@@ -50,8 +61,12 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     private readonly double[]? _lnDaFixed;
     private readonly RedshiftGrid? _grid;
     private readonly int[] _radiusIndex, _evolutionIndex, _scatterIndex, _slopeIndex, _sbSlopeIndex, _mu0Index, _sbEvolutionIndex, _scatterMagIndex;
-    // Surface brightness with photometric redshifts and no cut: the block-vectorised quadrature (null otherwise: the per-object path).
-    private readonly RedshiftQuadratureKernel? _sbQuadrature;
+    // Surface brightness with photometric redshifts and no cut: the block-vectorised quadrature or linearised marginal (null otherwise:
+    // the per-object path).
+    private readonly IRedshiftMarginalKernel? _sbKernel;
+    // Linearised photo-z marginal (one node per object, at z̄): 1/(1+z̄) and 1/z̄ per object.
+    private readonly bool _linear;
+    private readonly double[] _inv1pz = [], _invZ = [];
 
     /// <summary>Notes for the results (what the survey terms did).</summary>
     public IReadOnlyList<string> Notes { get; }
@@ -87,11 +102,17 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         string own = (_joint ? "R0, a, scatter_dex" + (_hasLum ? ", β" : "") + ", " : "") + "mu0, b, scatter_mag";
         // Surface brightness alone has no distances: the photo-z nodes need no grid stencils.
         _rows = new SurveyRows(h, o, own, fixedCosmology: !_joint || _lnDaFixed is not null, _grid, gridMinZ, gridMaxZ, priorMinZ, priorMaxZ, startModel, wholeSample);
-        if (_rows.MarginalisesRedshift && _rows.Marginal == RedshiftMarginal.Linear)
-            throw new InvalidOperationException("the sb/joint survey kernel integrates photometric redshifts by quadrature only (SurveyModel.Validate refuses z_marginal linear there)");
+        _linear = _rows.MarginalisesRedshift && _rows.Marginal == RedshiftMarginal.Linear;
+        if (_linear && isophotal is not null)
+            throw SettingProblem.Exception([new("{z_marginal} linear cannot take isophotal sizes (the isophotal offset moves non-linearly with the mean SB, which the linearised marginal does not carry); use {z_marginal} quadrature, the default for isophotal joint fits")]);
         _groups = _rows.GroupCount;
         _bins = _rows.BinCount;
-        if (_rows.MarginalisesRedshift && !_joint && cut is null) _sbQuadrature = SbQuadrature(_rows, cols, _bins);
+        if (_rows.MarginalisesRedshift && !_joint && cut is null) _sbKernel = SbKernel(_rows, cols, _bins, _linear);
+        if (_linear)
+        {
+            _inv1pz = _rows.NodeLn1pZ.Select(x => Math.Exp(-x)).ToArray();
+            _invZ = _rows.NodeLnZ.Select(x => Math.Exp(-x)).ToArray();
+        }
 
         var byName = new Dictionary<string, int>(StringComparer.Ordinal);
         for (int i = 0; i < h.Parameters.Count; i++) byName[h.Parameters[i].Name] = i;
@@ -130,10 +151,15 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         if (_hasLum) _iLumExp = h.Parameters.Select((p, i) => (p, i)).FirstOrDefault(t => t.p.Name == WorldModelParameters.Names.LuminosityExponent && t.p.IsFree, (null!, -1)).Item2;
 
         var notes = new List<string>(_rows.Notes);
-        if (_rows.MarginalisesRedshift)
+        if (_rows.MarginalisesRedshift && !_linear)
             notes.Add("photometric redshifts (" + (_joint ? "joint" : "surface brightness") + "): at each redshift node the dimming 2.5 (n − b) log10(1+z)" +
                       (_joint ? ", D_A" : "") + (_rows.HasLuminosity ? ", the luminosities" : "") + (_cut is not null ? " and the selection truncation" : "") +
                       " move with z; K-corrections and extinctions are held at the catalogue's values.");
+        if (_linear)
+            notes.Add("photometric redshifts (" + (_joint ? "joint" : "surface brightness") + ", linearised): the slope ∂m/∂z at z̄ carries the dimming 2.5 (n − b)/(ln10 (1+z̄))" +
+                      (_joint ? ", D_A's slope" : "") + (_rows.HasLuminosity ? ", the luminosities' slope" : "") +
+                      "; K-corrections and extinctions are held at the catalogue's values (no slope)" +
+                      (_cut is not null ? "; the selection truncation is taken at z̄ with the effective covariance (linearised too)" : "") + ".");
         if (_joint && _hasLum)
             notes.Add("size–" + (sv.Relation == SizeRelationKind.Mass ? "mass" : "luminosity") + " relation in the joint fit: sizes and surface brightnesses are both " +
                       "conditional on each object's " + (sv.Relation == SizeRelationKind.Mass ? "stellar mass" : "luminosity") + ", computed with each world model's own D_L " +
@@ -149,8 +175,10 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
 
     private static int[] Filled(int n) => Enumerable.Repeat(-1, n).ToArray();
 
-    // μ_i ~ N(μ0 + K_i + A_i + 2.5 (n − b) log10(1+z), σ_μ,i² + s_μ²) as the quadrature kernel's Gaussian without distances: y = μ − K − A.
-    private static RedshiftQuadratureKernel SbQuadrature(SurveyRows rows, ObjectColumns cols, int bins)
+    // μ_i ~ N(μ0 + K_i + A_i + 2.5 (n − b) log10(1+z), σ_μ,i² + s_μ²) as the size kernels' Gaussian without distances: y = μ − K − A.
+    // Linearised: LinearisedRedshiftKernel with ln D_A and its slope 0 and β = 0, so m = μ0 + k ln(1+z̄), m′ = k/(1+z̄) and
+    // V = σ_μ,i² + s_μ² + m′² s² (k = 2.5 (n − b)/ln 10, the group's "a").
+    private static IRedshiftMarginalKernel SbKernel(SurveyRows rows, ObjectColumns cols, int bins, bool linear)
     {
         int n = rows.Count;
         var y = new double[n];
@@ -160,22 +188,28 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             y[i] = cols.Mu[i] - cols.Correction[i];
             cell[i] = rows.Group[i] * bins + rows.Bin[i];
         }
+        if (linear)
+        {
+            var none = new double[n];
+            return new LinearisedRedshiftKernel(y, cols.VarMu, rows.RedshiftVariance, rows.Group, cell, rows.GroupCount * bins, rows.Weight, rows.NodeLn1pZ,
+                rows.NodeLnZ, null, 0, none, none, null, null);
+        }
         return new RedshiftQuadratureKernel(rows.NodesPerObject, y, cols.VarMu, rows.Group, cell, rows.Weight, rows.NodeLn1pZ, rows.NodeLnZ, rows.NodeLogWeight,
             null, null, null);
     }
 
     /// <inheritdoc/>
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) =>
-        _sbQuadrature is not null ? SbQuadratureSum(e, start, end, null) : Accumulate(e, start, end, null);
+        _sbKernel is not null ? SbKernelSum(e, start, end, null) : Accumulate(e, start, end, null);
 
     /// <inheritdoc/>
     public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) =>
-        _sbQuadrature is not null ? SbQuadratureSum(e, start, end, adjoint) : Accumulate(e, start, end, adjoint);
+        _sbKernel is not null ? SbKernelSum(e, start, end, adjoint) : Accumulate(e, start, end, adjoint);
 
-    // The surface-brightness quadrature without a cut on the kernel: mean μ0 per cell, slope 2.5 (n − b_g)/ln 10 in ln(1+z), scatter s_μ,g;
+    // The surface-brightness quadrature or linearised marginal without a cut on the kernel: mean μ0 per cell, slope 2.5 (n − b_g)/ln 10 in ln(1+z), scatter s_μ,g;
     // the kernel's partials are ∂/∂μ0 per cell, Σ ∂/∂m ln(1+z) per group (so ∂/∂b = −2.5/ln10 times it, ∂/∂θ_c = 2.5/ln10 ∂n/∂θ_c times
     // their sum) and ∂/∂s_μ per group.
-    private double SbQuadratureSum(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
+    private double SbKernelSum(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
     {
         var v = e.Values;
         int gb = _groups * _bins;
@@ -187,9 +221,9 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             sm[g] = v[_scatterMagIndex[g]];
         }
         double dExp = 0;
-        if (adj is null) return _sbQuadrature!.Sum(mu0, slope, zero, sm, 0, null, start, end, default, default, default, default, ref dExp, null);
+        if (adj is null) return _sbKernel!.Sum(mu0, slope, zero, sm, 0, null, start, end, default, default, default, default, ref dExp, null);
         Span<double> dCell = stackalloc double[gb], dX = stackalloc double[_groups], dS = stackalloc double[_groups];
-        double value = _sbQuadrature!.Sum(mu0, slope, zero, sm, 0, null, start, end, dCell, dX, dS, default, ref dExp, null);
+        double value = _sbKernel!.Sum(mu0, slope, zero, sm, 0, null, start, end, dCell, dX, dS, default, ref dExp, null);
         var direct = adj.Direct ??= new double[_layout.FreeCount];
         for (int q = 0; q < gb; q++) Add(direct, _mu0Index[q], dCell[q]);
         double sumDmL10 = 0;
@@ -217,10 +251,19 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         public double A, Sig, Beta, B, Sm, Gam;
     }
 
-    // One point's partials: ∂ℓ/∂m_t, ∂ℓ/∂m_μ (isophotal slope included), ∂ℓ/∂V_t, ∂ℓ/∂V_μ, ∂ℓ/∂C, and ln R̄ and ln(L/L_pivot) at the point.
+    // One point's partials: ∂ℓ/∂m_t, ∂ℓ/∂m_μ (isophotal slope included), ∂ℓ/∂V_t, ∂ℓ/∂V_μ, ∂ℓ/∂C, and ln R̄ and ln(L/L_pivot) at the point;
+    // linearised photo-z: ∂ℓ/∂g_t and ∂ℓ/∂g_μ of the slope g = ∂(m_t, m_μ)/∂z, d ln R̄/dz and d ln(L/L_pivot)/dz at z̄.
     private struct Partials
     {
-        public double Dt, Dm, Dvt, Dvm, Dc, LnSize, LnLum;
+        public double Dt, Dm, Dvt, Dvm, Dc, LnSize, LnLum, Pt, Pm, SizeSlope, LumSlope;
+    }
+
+    // The linearised marginal at z̄ of object i: the effective-variance slope enters as V += s² g gᵀ (see the remarks).
+    private readonly struct Linearised(double zVar, double inv1pz, double lnDaSlope)
+    {
+        public double ZVar { get; } = zVar;
+        public double Inv1pz { get; } = inv1pz;
+        public double LnDaSlope { get; } = lnDaSlope;
     }
 
     private double Accumulate(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
@@ -277,6 +320,35 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                 }
                 continue;
             }
+            if (_linear)
+            {
+                // One node per object, at z̄: the bivariate (or univariate) Gaussian with covariance C + s² g gᵀ.
+                double x = rows.NodeLn1pZ[i];
+                double lnDa = 0, lnDaSlope = 0;
+                if (_joint)
+                {
+                    lnDa = rows.NodeLnDaFixed is not null ? rows.NodeLnDaFixed[i] : rows.NodeLnZ[i] + rows.NodeGrid!.Interpolate(e.GridLnDaOverZ, i);
+                    lnDaSlope = rows.LnDaSlopeFixed is not null ? rows.LnDaSlopeFixed[i] : _invZ[i] + GridSlope(e.GridLnDaOverZ!, i);
+                }
+                var lin = new Linearised(rows.RedshiftVariance[i], _inv1pz[i], lnDaSlope);
+                double li = PointLogDensity(i, lnR0[q0], mu0[q0], G, kap, dimming, eExp, x, lnDa, rows.HasLuminosity ? rows.NodeLuminosityBase[i] : 0,
+                    adj is not null, out var d, lin);
+                if (double.IsNegativeInfinity(li)) return double.NegativeInfinity;
+                acc += w * li;
+                if (adj is null) continue;
+                AddPartials(direct!, v, g, q0, w, d, kap, G, eExp, x);
+                sumDmL10 += w * (d.Dm * x + d.Pm * lin.Inv1pz) / Ln10;
+                AddSlopePartials(direct!, g, w, d, kap, G, lin.Inv1pz);
+                if (nodeA is not null && rows.NodeGrid is not null)
+                {
+                    double f = 2 * (kap * G.Beta + SbMagPerLn * G.Gam);
+                    ScatterNodes(nodeA, rows.NodeGrid, i, -w * (d.Dt * (2 * G.Beta - 1) + f * d.Dm));
+                    // The slope stencil: ∂g_t/∂S = 2β − 1, ∂g_μ/∂S = 2(κβ + (−2.5/ln10) γ), S = d ln D_A/dz.
+                    double fs = -w * (d.Pt * (2 * G.Beta - 1) + f * d.Pm);
+                    for (int s = 0, j = rows.NodeGrid.Index[i], k = 4 * i; s < 4; s++) nodeA[j + s] += fs * rows.SlopeWeights![k + s];
+                }
+                continue;
+            }
             double max = double.NegativeInfinity;
             if (!_joint && _cut is null)
             {
@@ -326,34 +398,43 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     }
 
     // ln p(θ_i, μ_i | z) (or ln p(μ_i | z)) at one redshift, with the selection truncation; −∞ where an isophotal object cannot be seen.
+    // Linearised (lin.ZVar > 0): the slopes g_μ = 2.5 (n − b)/(ln10 (1+z̄)) + κ d ln R̄/dz − (2.5/ln10) γ d ln L/dz and
+    // g_t = d ln R̄/dz − d ln D_A/dz, d ln R̄/dz = a/(1+z̄) + β d ln L/dz, d ln L/dz = (2e − s_C)/(1+z̄) + 2 d ln D_A/dz, add s² g gᵀ to the
+    // covariance (the truncation, if any, is taken with it); d.Pt, d.Pm are then ∂ℓ/∂g = s² (2 D_V g + D_C g_other).
     private double PointLogDensity(int i, double lnR0, double mu0, in GroupPoint G, double kap, double dimming, double eExp, double x, double lnDa, double lumBase,
-        bool partials, out Partials d)
+        bool partials, out Partials d, in Linearised lin = default)
     {
         d = default;
-        double l10 = x / Ln10;
+        double l10 = x / Ln10, s2z = lin.ZVar;
         double mm = mu0 + 2.5 * (dimming - G.B) * l10 + _cols.Correction[i];
+        double gm = 2.5 * (dimming - G.B) * lin.Inv1pz / Ln10;
         if (!_joint)
         {
-            double vs = _cols.VarMu[i] + G.Sm * G.Sm, r = _cols.Mu[i] - mm, inv = 1 / vs;
+            double vs = _cols.VarMu[i] + G.Sm * G.Sm + s2z * gm * gm, r = _cols.Mu[i] - mm, inv = 1 / vs;
             double lp = -0.5 * (r * r * inv + Math.Log(vs)) - HalfLn2Pi;
             double smm = 0, svm = 0;
             if (_cut is not null) lp -= partials ? _cut.LogPass(0, mm, 0, vs, 0, out _, out smm, out _, out svm, out _) : _cut.LogPass(0, mm, 0, vs, 0);
             d.Dm = r * inv - smm;
             d.Dvm = 0.5 * (r * r * inv * inv - inv) - svm;
+            d.Pm = s2z * 2 * d.Dvm * gm;
             return lp;
         }
         double lnLum = _hasLum ? lumBase + 2 * (lnDa + eExp * x) : 0;
         double lnSize = lnR0 + G.A * x + G.Beta * lnLum;
         double mt = lnSize + ModelPoint.LnKpcPerMpc - lnDa;
         mm += kap * (lnSize - _lnPivot) + SbMagPerLn * G.Gam * lnLum;
+        double lumSlope = _hasLum ? (2 * eExp - _rows.LuminosityZSlope) * lin.Inv1pz + 2 * lin.LnDaSlope : 0;
+        double sizeSlope = G.A * lin.Inv1pz + G.Beta * lumSlope;
+        double gt = sizeSlope - lin.LnDaSlope;
+        gm += kap * sizeSlope + SbMagPerLn * G.Gam * lumSlope;
         double isoSlope = 0;
         if (_isophotal is not null)
         {
             if (!_isophotal.TryOffset(mm, i, out double lnRatio, out isoSlope)) return double.NegativeInfinity;
             mt += lnRatio;
         }
-        double sig2 = G.Sig * G.Sig, c = kap * sig2;
-        double vt = _cols.VarLnTheta[i] + sig2, vm = _cols.VarMu[i] + G.Sm * G.Sm + kap * kap * sig2;
+        double sig2 = G.Sig * G.Sig, c = kap * sig2 + s2z * gt * gm;
+        double vt = _cols.VarLnTheta[i] + sig2 + s2z * gt * gt, vm = _cols.VarMu[i] + G.Sm * G.Sm + kap * kap * sig2 + s2z * gm * gm;
         double det = vt * vm - c * c, idet = 1 / det;
         double rt = _cols.LnTheta[i] - mt, rm = _cols.Mu[i] - mm;
         double value = -0.5 * ((vm * rt * rt - 2 * c * rt * rm + vt * rm * rm) * idet + Math.Log(det)) - 2 * HalfLn2Pi;
@@ -371,8 +452,39 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
             dt -= smt; dm -= smm; dvt -= svt; dvm -= svm; dc -= sc;
         }
         dm += dt * isoSlope;
-        d = new Partials { Dt = dt, Dm = dm, Dvt = dvt, Dvm = dvm, Dc = dc, LnSize = lnSize, LnLum = lnLum };
+        d = new Partials
+        {
+            Dt = dt, Dm = dm, Dvt = dvt, Dvm = dvm, Dc = dc, LnSize = lnSize, LnLum = lnLum,
+            Pt = s2z * (2 * dvt * gt + dc * gm), Pm = s2z * (2 * dvm * gm + dc * gt), SizeSlope = sizeSlope, LumSlope = lumSlope,
+        };
         return value;
+    }
+
+    // The linearised marginal's slope partials (w ∂ℓ/∂g_t = w Pt, w ∂ℓ/∂g_μ = w Pm) into a, β, γ, κ, b and e (the dimming's θ_c and the
+    // grid nodes are added by the caller): ∂g_t/∂a = 1/(1+z̄) and ∂g_μ/∂a = κ/(1+z̄); ∂/∂β: d ln L/dz (times 1 and κ); ∂g_μ/∂γ =
+    // −2.5/ln10 d ln L/dz; ∂g_μ/∂κ = d ln R̄/dz; ∂g_μ/∂b = −2.5/(ln10 (1+z̄)); ∂ d ln L/dz/∂e = 2/(1+z̄).
+    private void AddSlopePartials(double[] direct, int g, double w, in Partials d, double kap, in GroupPoint G, double inv1pz)
+    {
+        double pt = w * d.Pt, pm = w * d.Pm;
+        Add(direct, _sbEvolutionIndex[g], -2.5 * pm * inv1pz / Ln10);
+        if (!_joint) return;
+        double pSize = pt + kap * pm; // ∂ℓ/∂(d ln R̄/dz)
+        Add(direct, _evolutionIndex[g], pSize * inv1pz);
+        if (_hasLum)
+        {
+            Add(direct, _slopeIndex[g], pSize * d.LumSlope);
+            Add(direct, _sbSlopeIndex[g], pm * SbMagPerLn * d.LumSlope);
+            Add(direct, _iLumExp, (pSize * G.Beta + pm * SbMagPerLn * G.Gam) * 2 * inv1pz);
+        }
+        if (_iKormendy >= 0) Add(direct, _iKormendy, pm * d.SizeSlope / Ln10);
+    }
+
+    // d(ln D_A − ln z)/dz at object i's z̄ from the grid's node values (RedshiftGridSlope's weights on its node's stencil).
+    private double GridSlope(double[] g, int i)
+    {
+        int j = _rows.NodeGrid!.Index[i], k = 4 * i;
+        var w = _rows.SlopeWeights!;
+        return w[k] * g[j] + w[k + 1] * g[j + 1] + w[k + 2] * g[j + 2] + w[k + 3] * g[j + 3];
     }
 
     private void AddPartials(double[] direct, double[] v, int g, int q0, double w, in Partials d, double kap, in GroupPoint G, double eExp, double x)

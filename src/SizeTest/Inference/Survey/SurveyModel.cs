@@ -71,8 +71,6 @@ public sealed record SurveyModel(
         if (!IsActive) return;
         if (observable == ObservableKind.SurfaceBrightness && Relation != SizeRelationKind.None)
             throw SettingProblem.Exception([new("the size–luminosity and size–mass relations need a size model: fit them with {observable} size or joint, not sb (drop {size_luminosity} / {size_mass})")]);
-        if (observable != ObservableKind.Size && MarginaliseRedshift && ZMarginal == RedshiftMarginal.Linear)
-            throw SettingProblem.Exception([new("{z_marginal} linear is built for {observable} size only; sb and joint fits integrate photometric redshifts by quadrature (drop {z_marginal} linear)")]);
         if (observable != ObservableKind.Size && SizeErrors == SizeErrorKind.Gaussian)
             throw SettingProblem.Exception([new("{size_errors} gaussian is built for {observable} size only; fit sb or joint with the log-normal size errors (drop {size_errors} gaussian)")]);
         if (EvolutionBinEdges is { } e)

@@ -279,7 +279,13 @@ internal sealed class SurveyRows
             {
                 if (fixedCosmology) LnDaSlopeFixed = LnDaSlope(startModel, nodeZ);
                 else SlopeWeights = RedshiftGridSlope.Weights(NodeGrid!, nodeZ);
-                notes.Add(FormattableString.Invariant($"photometric redshifts: linearised marginal ({{z_marginal}} linear; effective variance, Clutton-Brock 1967, Orear 1982): ln θ ~ N(m(z̄), σ_i² + σ² + (∂m/∂z)² s²) with z̄, s² the mean and variance of the object's redshift posterior N(z; z_obs, z_err²) π(z) on [{priorMinZ:G4}, {priorMaxZ:G4}], π ") +
+                string law = h.Nuisance.Observable switch
+                {
+                    ObservableKind.SurfaceBrightness => "μ ~ N(m_μ(z̄), σ_μ,i² + s_μ² + (∂m_μ/∂z)² s²)",
+                    ObservableKind.Joint => "(ln θ, μ) ~ N(m(z̄), C + s² g gᵀ), C the bivariate covariance and g = (∂m_t/∂z, ∂m_μ/∂z)",
+                    _ => "ln θ ~ N(m(z̄), σ_i² + σ² + (∂m/∂z)² s²)",
+                };
+                notes.Add(FormattableString.Invariant($"photometric redshifts: linearised marginal ({{z_marginal}} linear; effective variance, Clutton-Brock 1967, Orear 1982): {law} with z̄, s² the mean and variance of the object's redshift posterior N(z; z_obs, z_err²) π(z) on [{priorMinZ:G4}, {priorMaxZ:G4}], π ") +
                     (sv.RedshiftPopulation is { } popL ? popL.Describe() + " ({z_prior_shape} flat for a flat prior; moments integrated numerically)" : "flat in z (z_obs and z_err² where the prior keeps all but 10⁻¹² of the Gaussian)") + FormattableString.Invariant($", and ∂m/∂z at z̄ from each world model's own distances; {{z_marginal}} quadrature integrates exactly."));
             }
             else

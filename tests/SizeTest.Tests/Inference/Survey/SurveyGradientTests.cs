@@ -15,7 +15,8 @@ namespace SizeTest.Tests.Inference.Survey;
 /// joint survey kernel (Survey.SurveyJointLikelihood): photometric redshifts (with an SB or magnitude limit inside the integral),
 /// groups, binned evolution, the size–luminosity and size–SB relations, free Ωm, a static model's free dimming and luminosity exponents;
 /// and the linearised photo-z marginal of the size kernel (RedshiftMarginal.Linear: m′ through a, β, e and the grid nodes' slope
-/// stencil) alone, with radio luminosities, a static model, the truncation and Gaussian errors.
+/// stencil) alone, with radio luminosities, a static model, the truncation and Gaussian errors, and of the sb and joint kernel (C + s² g gᵀ,
+/// g through a, b, β, γ, κ, e, the dimming and the slope stencil; with an SB or magnitude limit, groups, binned evolution).
 /// Tolerance: |analytic − FD| ≤ 10⁻⁵ (|FD| + 1), and 10⁻⁴ for Gaussian size errors, whose analytic derivative is that of the
 /// exact integral (posterior expectations) while FD differentiates the 20-node adaptive quadrature, whose nodes move with the
 /// parameters (measured difference 2·10⁻⁵ relative).
@@ -82,37 +83,49 @@ public sealed class SurveyGradientTests
         { "joint", "static-luminosity", "luminosity_exponent" }, { "joint", "photoz", "" },
         // The magnitude limit with the size–luminosity relation selects on the conditioning magnitudes: no truncation, γ (sb_luminosity_slope) free.
         { "joint", "photoz-luminosity-maglimit", "omega_m" }, { "joint", "kormendy-luminosity", "omega_m" },
+        // The linearised photo-z marginal (RedshiftMarginal.Linear): covariance C + s² g gᵀ, g through a, b, β, γ, κ, e, the dimming and D_A's
+        // slope stencil; the truncation taken with the effective covariance.
+        { "sb", "photoz-linear", "" }, { "sb", "photoz-sblimit-linear", "" }, { "sb", "photoz-static-linear", "dimming_exponent" },
+        { "sb", "photoz-groups-linear", "" },
+        { "joint", "photoz-linear", "omega_m" }, { "joint", "photoz-linear", "" }, { "joint", "photoz-maglimit-linear", "omega_m" },
+        { "joint", "photoz-luminosity-linear", "omega_m" }, { "joint", "kormendy-photoz-linear", "omega_m" },
+        { "joint", "photoz-static-luminosity-linear", "luminosity_exponent" }, { "joint", "photoz-binned-linear", "omega_m" },
+        { "joint", "photoz-sblimit-kormendy-linear", "" },
     };
 
     [Theory]
     [MemberData(nameof(SurfaceBrightnessCases))]
     public void AnalyticGradientOfTheSbAndJointSurveyKernelMatchesFiniteDifferences(string observable, string kind, string free)
     {
+        bool linear = kind.EndsWith("-linear", StringComparison.Ordinal);
+        string label = kind;
+        if (linear) kind = kind[..^"-linear".Length];
         var pops = new[] { new MockSubpopulation("early", 0.5, 3, -1.5, 0.2, 0.15), new MockSubpopulation("late", 0.5, 6, -0.75, 0.3, 0.2) };
         var lf = new SchechterLuminosityFunction();
         bool photoz = kind.Contains("photoz", StringComparison.Ordinal);
-        var cut = kind.EndsWith("sblimit", StringComparison.Ordinal) ? new MockSelection(SbLimit: 24)
+        var cut = kind.Contains("sblimit", StringComparison.Ordinal) ? new MockSelection(SbLimit: 24)
             : kind.EndsWith("maglimit", StringComparison.Ordinal) ? new MockSelection(MagLimit: 24) : null;
         var errors = new MeasurementErrors(0.05, MuErrorMag: 0.1, PhotoZError: photoz ? 0.05 : 0);
         var mock = kind switch
         {
-            "groups" => Draw(Lcdm, 300, 2, "uniform:0.3:2", errors: errors, survey: new SurveyPopulation(lf, Populations: pops)),
+            _ when kind.Contains("groups", StringComparison.Ordinal) => Draw(Lcdm, 300, 2, "uniform:0.3:2", errors: errors, survey: new SurveyPopulation(lf, Populations: pops)),
             _ when kind.Contains("luminosity", StringComparison.Ordinal) => Draw(Lcdm, 300, 2, "uniform:0.3:2", errors: errors, survey: new SurveyPopulation(lf, SizeLuminositySlope: 0.3)),
             _ => Draw(Lcdm, 300, 2, "uniform:0.3:2", errors: errors, selection: cut),
         };
         var obs = mock.ToObservables();
         var sv = new SurveyModel(
             kind.Contains("luminosity", StringComparison.Ordinal) ? SizeRelationKind.Luminosity : SizeRelationKind.None,
-            Groups: kind == "groups" ? ["early", "late"] : null,
-            EvolutionBinEdges: kind == "binned" ? SurveyModel.EqualCountEdges(obs.Z, 3) : null,
-            MarginaliseRedshift: photoz);
+            Groups: kind.Contains("groups", StringComparison.Ordinal) ? ["early", "late"] : null,
+            EvolutionBinEdges: kind.Contains("binned", StringComparison.Ordinal) ? SurveyModel.EqualCountEdges(obs.Z, 3) : null,
+            MarginaliseRedshift: photoz, ZMarginal: linear ? RedshiftMarginal.Linear : RedshiftMarginal.Quadrature);
         var family = kind.Contains("static", StringComparison.Ordinal) ? WorldModels.Get("static-linear") : WorldModels.LambdaCdm;
         var limits = cut is null ? null : new SelectionLimits(cut.SbLimit, cut.MagLimit);
         var kindOfFit = observable == "sb" ? ObservableKind.SurfaceBrightness : ObservableKind.Joint;
-        var nuisance = new NuisanceModel(kindOfFit, limits, SizeSbRelation: kind.StartsWith("kormendy", StringComparison.Ordinal), Survey: sv);
+        var nuisance = new NuisanceModel(kindOfFit, limits, SizeSbRelation: kind.Contains("kormendy", StringComparison.Ordinal), Survey: sv);
         var overrides = new ParameterOverrides(Free: free.Length == 0 ? null : new HashSet<string> { free });
         var lik = Hypothesis.Create(family, nuisance, overrides).Bind(obs);
         Assert.True(lik.HasSurveyTerms);
-        AssertGradientMatches(lik, 1e-5, $"{observable}/{kind}/{free}");
+        if (linear) Assert.Contains(lik.SurveyNotes, n => n.Contains("linearised marginal", StringComparison.Ordinal));
+        AssertGradientMatches(lik, 1e-5, $"{observable}/{label}/{free}");
     }
 }

@@ -255,21 +255,72 @@ public sealed class SurveyJointRecoveryTests(Xunit.Abstractions.ITestOutputHelpe
     [Theory]
     [InlineData(ObservableKind.SurfaceBrightness, "sb_evolution", 1.0)]
     [InlineData(ObservableKind.Joint, "size_evolution", -1.0)]
+    [InlineData(ObservableKind.Joint, "sb_evolution", 1.0)]
     public void SbAndJointPhotoZIntervalsCoverTheTruthAtTheirNominalRate(ObservableKind kind, string parameter, double truth)
     {
-        // Coverage of the 68.3% Hessian interval over 100 mocks of 400 objects (z uniform [0.3, 2], σ_z = 0.05 (1+z), 5% size errors,
+        // Coverage of the 68.3% Hessian interval over 300 mocks of 400 objects (z uniform [0.3, 2], σ_z = 0.05 (1+z), 5% size errors,
         // 0.1 mag SB errors; the default mock population: a = −1, b = 1), fitted through the CLI's default path (SurveyRequest.Build:
-        // quadrature for sb and joint, population prior). Binomial standard error √(0.683·0.317/100) = 0.047: 61–75% is ±1.5σ
-        // (common practice), the band issue 12 asks for.
-        int hits = 0, m = 100;
+        // the linearised marginal, population prior). Binomial standard error √(0.683·0.317/300) = 0.027: 63–74% is ±2σ (common
+        // practice). The mean bias over the mocks must be below a fifth of the mean half-width (taking z as exact biases b by ≈ +0.1,
+        // IgnoringRedshiftErrorsBiasesTheSbEvolutionAndMarginalisingRemovesIt). (100 mocks of the quadrature gave 64% and 75% for sb b
+        // and joint a: at this N the Hessian half-width of a exceeds the mocks' scatter by ≈ 8% under either marginal.)
+        int hits = 0, m = 300;
+        double bias = 0, half = 0;
         for (int k = 0; k < m; k++)
         {
             var obs = Draw(Lcdm, 400, 3000 + k, "uniform:0.3:2", errors: new Mock.MeasurementErrors(0.05, MuErrorMag: 0.1, PhotoZError: 0.05)).ToObservables();
             var model = new SurveyRequest().Build(obs, kind, new List<string>());
             Assert.True(model.MarginaliseRedshift);
-            if (Within(Est(FitLcdm(kind, obs, model), parameter), truth)) hits++;
+            Assert.Equal(RedshiftMarginal.Linear, model.ZMarginal);
+            var e = Est(FitLcdm(kind, obs, model), parameter);
+            if (Within(e, truth)) hits++;
+            bias += (e.Value - truth) / m;
+            half += 0.5 * (e.Hi - e.Lo) / m;
         }
-        output.WriteLine($"{kind}: coverage of {parameter} over {m} mocks: {hits}%");
-        Assert.InRange(hits / (double)m, 0.61, 0.75);
+        output.WriteLine($"{kind}: coverage of {parameter} over {m} mocks: {100.0 * hits / m:F1}%, mean bias {bias:+0.0000;-0.0000}, mean half-width {half:F4}");
+        Assert.InRange(hits / (double)m, 0.63, 0.74);
+        Assert.True(Math.Abs(bias) < 0.2 * half, $"bias {bias} against half-width {half}");
+    }
+
+    [Theory]
+    [InlineData(ObservableKind.SurfaceBrightness)]
+    [InlineData(ObservableKind.Joint)]
+    public void LinearisedAndQuadratureMarginalsAgree(ObservableKind kind)
+    {
+        // The photo-z mocks of IgnoringRedshiftErrorsBiases… (4000 objects, σ_z = 0.05 (1+z), flat prior [0.3, 2]): the linearised
+        // marginal's a and b lie within 0.35 of the quadrature's 68% half-width of the 20-node quadrature's (exact as the nodes
+        // grow; measured 0.13 for sb b, 0.32 for joint a, whose 7-node value is 0.06 from the linear one). Over 20 such mocks (seeds 41–60), in half-widths of b: linear − 20 nodes = −0.13 ± 0.02 (mean ± its error), linear − truth
+        // = −0.01 ± 0.16, and the default 7 nodes − truth = −0.45 ± 0.16: here the photo-z term (∂m_μ/∂z)² s² ≈ (0.2–0.4 mag)² is as large
+        // as the SB scatter, and 7 Gauss–Hermite nodes under-resolve the integral (20 nodes move b by +0.31).
+        var obs = Draw(Lcdm, 4000, kind == ObservableKind.Joint ? 43 : 41, "uniform:0.3:2",
+            errors: new Mock.MeasurementErrors(0.05, MuErrorMag: 0.1, PhotoZError: 0.05)).ToObservables();
+        var quad = new SurveyModel(MarginaliseRedshift: true, RedshiftNodes: 20, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2);
+        var q = FitLcdm(kind, obs, quad);
+        var l = FitLcdm(kind, obs, quad with { ZMarginal = RedshiftMarginal.Linear });
+        foreach (var name in kind == ObservableKind.Joint ? new[] { "size_evolution", "sb_evolution" } : ["sb_evolution"])
+        {
+            var (eq, el) = (Est(q, name), Est(l, name));
+            double half = 0.5 * (eq.Hi - eq.Lo);
+            output.WriteLine($"{kind} {name}: linear {el.Value:F4} [{el.Lo:F4}, {el.Hi:F4}], quadrature {eq.Value:F4} [{eq.Lo:F4}, {eq.Hi:F4}]: {Math.Abs(el.Value - eq.Value) / half:F3} half-widths");
+            Assert.True(Math.Abs(el.Value - eq.Value) <= 0.35 * half, $"{name}: {el.Value} vs {eq.Value} ± {half}");
+            Assert.InRange((el.Hi - el.Lo) / (eq.Hi - eq.Lo), 0.95, 1.05);
+        }
+    }
+
+    [Fact]
+    public void IsophotalJointFitsTakeTheQuadratureAndSayWhy()
+    {
+        // The isophotal offset ln(r_iso/R_e) is non-linear in μ's mean, which the linearised marginal does not carry: the default request
+        // falls back to the quadrature with a note, and an explicit linear is refused (exit-2 input error naming the setting).
+        var iso = IsophotalLikelihoodTests.Draw(50, 5).Isophotal;
+        var obs = new Observables(iso.Z, iso.LnTheta, iso.LnThetaErr, iso.Mu, iso.MuErr, sizeDefinition: iso.SizeDefinition, isophote: iso.Isophote,
+            sersicIndex: iso.SersicIndex, survey: new SurveyObservables(ZErr: iso.Z.Select(z => 0.03 * (1 + z)).ToArray()));
+        var notes = new List<string>();
+        var model = new SurveyRequest().Build(obs, ObservableKind.Joint, notes);
+        Assert.Equal(RedshiftMarginal.Quadrature, model.ZMarginal);
+        Assert.Contains(notes, n => n.StartsWith("photometric redshifts: quadrature used because the sizes are isophotal", StringComparison.Ordinal));
+        Assert.Equal(RedshiftMarginal.Linear, new SurveyRequest().Build(obs, ObservableKind.SurfaceBrightness, new List<string>()).ZMarginal);
+        var ex = Assert.Throws<SizeTest.Foundation.Errors.InputException>(() => new SurveyRequest(ZMarginal: RedshiftMarginal.Linear).Build(obs, ObservableKind.Joint, new List<string>()));
+        Assert.Contains("z_marginal linear cannot take isophotal sizes", ex.Message, StringComparison.Ordinal);
     }
 }
