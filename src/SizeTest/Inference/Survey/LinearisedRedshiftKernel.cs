@@ -23,18 +23,16 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
 {
     private const double HalfLn2Pi = 0.91893853320467274;
     private const int Block = 256;
-    private static readonly int Lanes = Vector<double>.Count;
+    private static readonly int Lanes = LinearisedDistances.Lanes;
 
     // Per object, padded by one vector (padding: weight 0): ln θ, σ_i², s², ln(1+z̄), 1/(1+z̄), C, weight; fixed cosmology: ln D_A(z̄)
     // and d ln D_A/dz at z̄.
     private readonly double[] _y, _s2, _zVar, _x, _ix, _w;
-    private readonly double[]? _c, _lnDa, _slope;
+    private readonly double[]? _c;
+    private readonly LinearisedDistances _dist;
     private readonly int[] _group, _cell;
     private readonly bool _oneCell;
     private readonly double _lumZSlope;
-    // Grid distances: ln z̄, 1/z̄, the value stencil (grid.Index, grid.Weights) and the slope stencil's weights.
-    private readonly double[]? _lnz, _invZ, _slopeWeights;
-    private readonly RedshiftGrid? _grid;
 
     /// <summary>Binds the per-object arrays (object i at its posterior mean z̄_i).</summary>
     /// <param name="y">ln θ_i (radians).</param>
@@ -55,41 +53,21 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     public LinearisedRedshiftKernel(double[] y, double[] s2, double[] zVar, int[] group, int[] cell, int cells, double[]? weight,
         double[] ln1pz, double[] lnz, double[]? lumBase, double lumZSlope, double[]? lnDaFixed, double[]? slopeFixed, RedshiftGrid? grid, double[]? slopeWeights)
     {
-        if ((lnDaFixed is null || slopeFixed is null) && (grid is null || slopeWeights is null))
-            throw new ArgumentException("the linearised marginal needs fixed distances and slopes or a grid with its slope stencils");
         int n = y.Length;
-        _y = Padded(y, n, 0);
-        _s2 = Padded(s2, n, 1);
-        _zVar = Padded(zVar, n, 0);
-        _x = Padded(ln1pz, n, 0);
-        _ix = Padded(ln1pz.Select(v => Math.Exp(-v)).ToArray(), n, 0);
-        _w = Padded(weight ?? Enumerable.Repeat(1.0, n).ToArray(), n, 0);
-        _c = lumBase is null ? null : Padded(lumBase, n, 0);
+        _y = LinearisedDistances.Padded(y, n, 0);
+        _s2 = LinearisedDistances.Padded(s2, n, 1);
+        _zVar = LinearisedDistances.Padded(zVar, n, 0);
+        _x = LinearisedDistances.Padded(ln1pz, n, 0);
+        _ix = LinearisedDistances.Padded(ln1pz.Select(v => Math.Exp(-v)).ToArray(), n, 0);
+        _w = LinearisedDistances.Padded(weight ?? Enumerable.Repeat(1.0, n).ToArray(), n, 0);
+        _c = lumBase is null ? null : LinearisedDistances.Padded(lumBase, n, 0);
         _lumZSlope = lumZSlope;
         _group = group;
         _cell = cell;
         _oneCell = cells == 1;
-        if (lnDaFixed is not null && slopeFixed is not null)
-        {
-            _lnDa = Padded(lnDaFixed, n, 0);
-            _slope = Padded(slopeFixed, n, 0);
-        }
-        else
-        {
-            _lnz = lnz;
-            _invZ = lnz.Select(v => Math.Exp(-v)).ToArray();
-            _grid = grid;
-            _slopeWeights = slopeWeights;
-        }
+        _dist = new LinearisedDistances(n, lnz, lnDaFixed, slopeFixed, grid, slopeWeights);
     }
 
-    private static double[] Padded(double[] v, int n, double pad)
-    {
-        var p = new double[n + Lanes];
-        Array.Copy(v, p, n);
-        Array.Fill(p, pad, n, Lanes);
-        return p;
-    }
 
     /// <inheritdoc/>
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
@@ -97,7 +75,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
         double[]? grid, int start, int end,
         Span<double> dCell, Span<double> dGroupX, Span<double> dGroupSig, Span<double> dGroupLum, ref double dExp, double[]? nodeAdjoint)
     {
-        bool grad = !dCell.IsEmpty, lum = _c is not null, onGrid = _grid is not null;
+        bool grad = !dCell.IsEmpty, lum = _c is not null, onGrid = _dist.OnGrid;
         int groups = a.Length;
         // Per group: coefficients of ln(1+z̄) and ln D_A in m, of 1/(1+z̄) in m′, and σ_g².
         Span<double> k1 = stackalloc double[groups], k2 = stackalloc double[groups], ks = stackalloc double[groups], sg2 = stackalloc double[groups];
@@ -117,7 +95,7 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
         double[]? daBuf = onGrid ? pool.Rent(size) : null, slBuf = onGrid ? pool.Rent(size) : null;
         double[]? coef = _oneCell ? null : pool.Rent(6 * size);
         double[]? parts = store ? pool.Rent(3 * size) : null;
-        var lane = LaneIndex();
+        var lane = LinearisedDistances.LaneIndex();
         var zero = Vector<double>.Zero;
         Vector<double> accT = zero, accW = zero, accD = zero, accX = zero, accV = zero, accL = zero;
         try
@@ -125,9 +103,9 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
             for (int b0 = start; b0 < end; b0 += Block)
             {
                 int nb = Math.Min(end, b0 + Block) - b0, padded = (nb + Lanes - 1) / Lanes * Lanes;
-                if (onGrid) GridDistances(grid!, b0, nb, padded, daBuf!, slBuf!);
+                _dist.Fill(grid, b0, nb, padded, daBuf, slBuf);
                 if (coef is not null) Coefficients(lnR0, beta, k1, k2, ks, sg2, b0, nb, padded, coef, size);
-                ReadOnlySpan<double> da = onGrid ? daBuf.AsSpan() : _lnDa.AsSpan(b0), dsl = onGrid ? slBuf.AsSpan() : _slope.AsSpan(b0);
+                ReadOnlySpan<double> da = _dist.LnDa(b0, daBuf), dsl = _dist.Slope(b0, slBuf);
                 var y = _y.AsSpan(b0); var s2 = _s2.AsSpan(b0); var zv = _zVar.AsSpan(b0); var x = _x.AsSpan(b0); var ix = _ix.AsSpan(b0);
                 var w = _w.AsSpan(b0);
                 var c = lum ? _c.AsSpan(b0) : default;
@@ -138,19 +116,19 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
                 {
                     if (coef is not null)
                     {
-                        c0 = Load(coef, t); vk1 = Load(coef, size + t); vk2 = Load(coef, 2 * size + t); vks = Load(coef, 3 * size + t);
-                        vsg2 = Load(coef, 4 * size + t); vb = Load(coef, 5 * size + t);
+                        c0 = LinearisedDistances.Load(coef, t); vk1 = LinearisedDistances.Load(coef, size + t); vk2 = LinearisedDistances.Load(coef, 2 * size + t); vks = LinearisedDistances.Load(coef, 3 * size + t);
+                        vsg2 = LinearisedDistances.Load(coef, 4 * size + t); vb = LinearisedDistances.Load(coef, 5 * size + t);
                     }
-                    var vx = Load(x, t); var vix = Load(ix, t); var vda = Load(da, t); var vdsl = Load(dsl, t); var vz = Load(zv, t);
+                    var vx = LinearisedDistances.Load(x, t); var vix = LinearisedDistances.Load(ix, t); var vda = LinearisedDistances.Load(da, t); var vdsl = LinearisedDistances.Load(dsl, t); var vz = LinearisedDistances.Load(zv, t);
                     var slope = vks * vix + vk2 * vdsl;
-                    var v = Load(s2, t) + vsg2 + slope * slope * vz;
+                    var v = LinearisedDistances.Load(s2, t) + vsg2 + slope * slope * vz;
                     var m = c0 + vk1 * vx + vk2 * vda;
-                    if (lum) m += vb * Load(c, t);
-                    var r = Load(y, t) - m;
+                    if (lum) m += vb * LinearisedDistances.Load(c, t);
+                    var r = LinearisedDistances.Load(y, t) - m;
                     var inv = Vector<double>.One / v;
                     var d = r * inv;
                     // Lanes past the slice's end, and objects of weight 0, count for nothing.
-                    var wv = Vector.ConditionalSelect(Vector.LessThan(lane, new Vector<double>(nb - t)), Load(w, t), zero);
+                    var wv = Vector.ConditionalSelect(Vector.LessThan(lane, new Vector<double>(nb - t)), LinearisedDistances.Load(w, t), zero);
                     var on = ~Vector.Equals(wv, zero);
                     accT += Vector.ConditionalSelect(on, wv * (d * r + Vector.Log(v)), zero);
                     accW += wv;
@@ -160,13 +138,13 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
                     var pt = pv * slope * vz;
                     if (store)
                     {
-                        Store(pd, parts!, t); Store(pv, parts!, size + t); Store(pt, parts!, 2 * size + t);
+                        LinearisedDistances.Store(pd, parts!, t); LinearisedDistances.Store(pv, parts!, size + t); LinearisedDistances.Store(pt, parts!, 2 * size + t);
                     }
                     if (!_oneCell) continue;
                     accD += pd;
                     accX += pd * vx + pt * vix;
                     accV += pv;
-                    if (lum) accL += pd * (Load(c, t) + 2 * vda + e2 * vx) + pt * (es * vix + 2 * vdsl);
+                    if (lum) accL += pd * (LinearisedDistances.Load(c, t) + 2 * vda + e2 * vx) + pt * (es * vix + 2 * vdsl);
                 }
                 if (store) Scatter(k2, eExp, lum, b0, nb, da, dsl, parts!, size, sd, sx, sv, sl, nodeAdjoint);
             }
@@ -199,25 +177,6 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
         return -0.5 * Vector.Sum(accT) - HalfLn2Pi * Vector.Sum(accW);
     }
 
-    // ln D_A(z̄) and d ln D_A/dz at z̄ of objects [b0, b0 + nb) from the grid's node values (lanes up to padded: 0).
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private void GridDistances(double[] g, int b0, int nb, int padded, double[] da, double[] slope)
-    {
-        var idx = _grid!.Index;
-        var w = _grid.Weights;
-        var sw = _slopeWeights!;
-        var lnz = _lnz!; var invZ = _invZ!;
-        for (int t = 0; t < nb; t++)
-        {
-            int i = b0 + t, j = idx[i], k = 4 * i;
-            double g0 = g[j], g1 = g[j + 1], g2 = g[j + 2], g3 = g[j + 3];
-            da[t] = lnz[i] + w[k] * g0 + w[k + 1] * g1 + w[k + 2] * g2 + w[k + 3] * g3;
-            slope[t] = invZ[i] + sw[k] * g0 + sw[k + 1] * g1 + sw[k + 2] * g2 + sw[k + 3] * g3;
-        }
-        Array.Clear(da, nb, padded - nb);
-        Array.Clear(slope, nb, padded - nb);
-    }
-
     // Each object's coefficients (ln R0 of its cell, k1, k2, ks, σ² and β of its group) into six rows of length size (lanes past nb: cell 0).
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private void Coefficients(ReadOnlySpan<double> lnR0, ReadOnlySpan<double> beta, ReadOnlySpan<double> k1, ReadOnlySpan<double> k2,
@@ -243,9 +202,9 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
     {
         var x = _x; var ix = _ix; var c = _c;
         double es = 2 * eExp - _lumZSlope;
-        var idx = _grid?.Index;
-        var w = _grid?.Weights;
-        var sw = _slopeWeights;
+        var idx = _dist.Grid?.Index;
+        var w = _dist.Grid?.Weights;
+        var sw = _dist.SlopeWeights;
         for (int t = 0; t < nb; t++)
         {
             int i = b0 + t, g = _group[i];
@@ -269,14 +228,6 @@ internal sealed class LinearisedRedshiftKernel : IRedshiftMarginalKernel
         }
     }
 
-    private static Vector<double> LaneIndex()
-    {
-        Span<double> l = stackalloc double[Lanes];
-        for (int k = 0; k < Lanes; k++) l[k] = k;
-        return new Vector<double>(l);
-    }
 
-    private static Vector<double> Load(ReadOnlySpan<double> s, int t) => Vector.LoadUnsafe(ref MemoryMarshal.GetReference(s), (nuint)t);
 
-    private static void Store(Vector<double> v, double[] a, int t) => v.StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(a), (nuint)t);
 }

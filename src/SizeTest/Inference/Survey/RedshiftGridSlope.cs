@@ -32,4 +32,27 @@ internal static class RedshiftGridSlope
         }
         return w;
     }
+
+    /// <summary>
+    /// ln D_A(z) and d ln D_A/dz of rows [b0, b0 + nb) of <paramref name="grid"/> from its node values <paramref name="g"/>
+    /// (ln D_A − ln z) through the value and slope stencils, into <paramref name="lnDa"/> and <paramref name="slope"/> from index 0
+    /// (entries nb up to <paramref name="padded"/>: 0).
+    /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    public static void Distances(RedshiftGrid grid, double[] slopeWeights, double[] lnz, double[] invZ, double[] g, int b0, int nb, int padded,
+        double[] lnDa, double[] slope)
+    {
+        var idx = grid.Index;
+        var w = grid.Weights;
+        var sw = slopeWeights;
+        for (int t = 0; t < nb; t++)
+        {
+            int i = b0 + t, j = idx[i], k = 4 * i;
+            double g0 = g[j], g1 = g[j + 1], g2 = g[j + 2], g3 = g[j + 3];
+            lnDa[t] = lnz[i] + w[k] * g0 + w[k + 1] * g1 + w[k + 2] * g2 + w[k + 3] * g3;
+            slope[t] = invZ[i] + sw[k] * g0 + sw[k + 1] * g1 + sw[k + 2] * g2 + sw[k + 3] * g3;
+        }
+        Array.Clear(lnDa, nb, padded - nb);
+        Array.Clear(slope, nb, padded - nb);
+    }
 }

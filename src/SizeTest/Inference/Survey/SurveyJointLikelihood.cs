@@ -34,7 +34,7 @@ namespace SizeTest.Inference.Survey;
 /// d ln R̄/dz = a/(1+z̄) + β d ln L/dz, d ln L/dz = (2e − s_C)/(1+z̄) + 2 d ln D_A/dz (s_C = −∂C/∂ln(1+z); d ln D_A/dz from the grid
 /// interpolant's derivative, <see cref="RedshiftGridSlope"/>); K and A stay at the catalogue's values, as in the quadrature, so they
 /// have no slope. Surface brightness alone: μ ~ N(m_μ(z̄), σ_μ,i² + s_μ² + (∂m_μ/∂z)² s²), without a cut on the block-vectorised
-/// <see cref="LinearisedRedshiftKernel"/> (distances 0, β = 0). A selection cut is linearised too: its truncation is taken at z̄ with the
+/// <see cref="LinearisedRedshiftKernel"/> (distances 0, β = 0); joint without a cut on the block-vectorised <see cref="LinearisedJointKernel"/>. A selection cut is linearised too: its truncation is taken at z̄ with the
 /// effective covariance. Isophotal sizes are refused (their offset is non-linear in m_μ; <see cref="SurveyRequest"/> defaults them to the
 /// quadrature). Gradient: ∂ℓ/∂g_t = s²(2D_Vt g_t + D_C g_μ), ∂ℓ/∂g_μ = s²(2D_Vμ g_μ + D_C g_t), chained through g's dependence on a, b, β, γ, κ,
 /// e, n (θ_c) and d ln D_A/dz (the slope stencil onto the grid nodes).</para>
@@ -64,6 +64,8 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     // Surface brightness with photometric redshifts and no cut: the block-vectorised quadrature or linearised marginal (null otherwise:
     // the per-object path).
     private readonly IRedshiftMarginalKernel? _sbKernel;
+    // Joint fits with the linearised marginal and no cut: the block-vectorised kernel (null otherwise).
+    private readonly LinearisedJointKernel? _jointKernel;
     // Linearised photo-z marginal (one node per object, at z̄): 1/(1+z̄) and 1/z̄ per object.
     private readonly bool _linear;
     private readonly double[] _inv1pz = [], _invZ = [];
@@ -108,6 +110,19 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
         _groups = _rows.GroupCount;
         _bins = _rows.BinCount;
         if (_rows.MarginalisesRedshift && !_joint && cut is null) _sbKernel = SbKernel(_rows, cols, _bins, _linear);
+        if (_linear && _joint && cut is null)
+        {
+            var cell = new int[_rows.Count];
+            var ym = new double[_rows.Count];
+            for (int i = 0; i < cell.Length; i++)
+            {
+                cell[i] = _rows.Group[i] * _bins + _rows.Bin[i];
+                ym[i] = cols.Mu[i] - cols.Correction[i];
+            }
+            _jointKernel = new LinearisedJointKernel(cols.LnTheta, ym, cols.VarLnTheta, cols.VarMu, _rows.RedshiftVariance, _rows.Group, cell, _rows.Weight,
+                _rows.NodeLn1pZ, _rows.NodeLnZ, _hasLum ? _rows.NodeLuminosityBase : null, _rows.LuminosityZSlope, _lnPivot,
+                _rows.NodeLnDaFixed, _rows.LnDaSlopeFixed, _rows.NodeGrid, _rows.SlopeWeights);
+        }
         if (_linear)
         {
             _inv1pz = _rows.NodeLn1pZ.Select(x => Math.Exp(-x)).ToArray();
@@ -200,11 +215,66 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
 
     /// <inheritdoc/>
     public double Sum(LikelihoodEvaluation e, in ModelPoint p, int start, int end) =>
-        _sbKernel is not null ? SbKernelSum(e, start, end, null) : Accumulate(e, start, end, null);
+        _sbKernel is not null ? SbKernelSum(e, start, end, null) : _jointKernel is not null ? JointKernelSum(e, start, end, null) : Accumulate(e, start, end, null);
 
     /// <inheritdoc/>
     public double SumWithAdjoint(LikelihoodEvaluation e, in ModelPoint p, int start, int end, ModelAdjoint adjoint) =>
-        _sbKernel is not null ? SbKernelSum(e, start, end, adjoint) : Accumulate(e, start, end, adjoint);
+        _sbKernel is not null ? SbKernelSum(e, start, end, adjoint) : _jointKernel is not null ? JointKernelSum(e, start, end, adjoint) : Accumulate(e, start, end, adjoint);
+
+    // The linearised joint marginal without a cut on the kernel, its partial sums mapped to the free parameters once (see AddPartials and
+    // AddSlopePartials for the per-object forms).
+    private double JointKernelSum(LikelihoodEvaluation e, int start, int end, ModelAdjoint? adj)
+    {
+        var v = e.Values;
+        int gb = _groups * _bins;
+        Span<double> lnR0 = stackalloc double[gb], mu0 = stackalloc double[gb];
+        Span<double> a = stackalloc double[_groups], sig = stackalloc double[_groups], beta = stackalloc double[_groups], nb = stackalloc double[_groups],
+            sm = stackalloc double[_groups], gam = stackalloc double[_groups];
+        for (int q = 0; q < gb; q++)
+        {
+            lnR0[q] = Math.Log(v[_radiusIndex[q]]);
+            mu0[q] = v[_mu0Index[q]];
+        }
+        for (int g = 0; g < _groups; g++)
+        {
+            a[g] = _evolutionIndex[g] >= 0 ? v[_evolutionIndex[g]] : 0;
+            sig[g] = Ln10 * v[_scatterIndex[g]];
+            beta[g] = _slopeIndex[g] >= 0 ? v[_slopeIndex[g]] : 0;
+            nb[g] = e.Dimming - (_sbEvolutionIndex[g] >= 0 ? v[_sbEvolutionIndex[g]] : 0);
+            sm[g] = v[_scatterMagIndex[g]];
+            gam[g] = _sbSlopeIndex[g] >= 0 ? v[_sbSlopeIndex[g]] : 0;
+        }
+        double kap = _iKormendy >= 0 ? v[_iKormendy] / Ln10 : 0;
+        double eExp = _expanding ? 2.0 : _iLumExp >= 0 && double.IsFinite(v[_iLumExp]) ? v[_iLumExp] : _eFixed;
+        var point = new LinearisedJointKernel.Point(lnR0, mu0, a, sig, beta, nb, sm, gam, kap, eExp);
+        if (adj is null) return _jointKernel!.Sum(point, e.GridLnDaOverZ, start, end, null, null);
+        var s = new LinearisedJointKernel.Partials(gb, _groups);
+        double value = _jointKernel!.Sum(point, e.GridLnDaOverZ, start, end, s, adj.NodeAdjoint);
+        var direct = adj.Direct ??= new double[_layout.FreeCount];
+        for (int q = 0; q < gb; q++)
+        {
+            Add(direct, _radiusIndex[q], s.Size[q] / v[_radiusIndex[q]]);
+            Add(direct, _mu0Index[q], s.Mu0[q]);
+        }
+        double sumDmL10 = 0;
+        for (int g = 0; g < _groups; g++)
+        {
+            Add(direct, _evolutionIndex[g], s.A[g]);
+            Add(direct, _sbEvolutionIndex[g], -2.5 * s.Dimming[g] / Ln10);
+            sumDmL10 += s.Dimming[g] / Ln10;
+            Add(direct, _scatterIndex[g], 2 * sig[g] * Ln10 * s.Sig2[g]);
+            Add(direct, _scatterMagIndex[g], 2 * sm[g] * s.Sm2[g]);
+            if (_hasLum)
+            {
+                Add(direct, _slopeIndex[g], s.Beta[g]);
+                Add(direct, _sbSlopeIndex[g], s.Gam[g]);
+            }
+        }
+        if (_hasLum) Add(direct, _iLumExp, s.EExp);
+        if (_iKormendy >= 0) Add(direct, _iKormendy, s.Kappa / Ln10);
+        AddDimming(e, direct, sumDmL10);
+        return value;
+    }
 
     // The surface-brightness quadrature or linearised marginal without a cut on the kernel: mean μ0 per cell, slope 2.5 (n − b_g)/ln 10 in ln(1+z), scatter s_μ,g;
     // the kernel's partials are ∂/∂μ0 per cell, Σ ∂/∂m ln(1+z) per group (so ∂/∂b = −2.5/ln10 times it, ∂/∂θ_c = 2.5/ln10 ∂n/∂θ_c times

@@ -90,7 +90,7 @@ public sealed class SurveyGradientTests
         { "joint", "photoz-linear", "omega_m" }, { "joint", "photoz-linear", "" }, { "joint", "photoz-maglimit-linear", "omega_m" },
         { "joint", "photoz-luminosity-linear", "omega_m" }, { "joint", "kormendy-photoz-linear", "omega_m" },
         { "joint", "photoz-static-luminosity-linear", "luminosity_exponent" }, { "joint", "photoz-binned-linear", "omega_m" },
-        { "joint", "photoz-sblimit-kormendy-linear", "" },
+        { "joint", "photoz-sblimit-kormendy-linear", "" }, { "joint", "photoz-groups-linear", "omega_m" },
     };
 
     [Theory]
