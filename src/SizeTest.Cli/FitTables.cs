@@ -37,7 +37,7 @@ internal static class FitTables
     public static void WriteVerdict(TextWriter o, FitResult r)
     {
         var v = r.Verdict;
-        o.WriteLine($"verdict: {DecisionSummary.Headline(v)} [best: {v.Best ?? "none"}; decided: {(v.Decided ? "yes" : "no")}; strength: {v.Strength}]");
+        o.WriteLine($"verdict: {DecisionSummary.Headline(v)} [best: {v.Best ?? "none"}; decided: {(v.Decided ? "yes" : "no")}; strength: {v.Strength}{(v.Comparable ? "" : "; ranked: no")}]");
         foreach (var line in DecisionSummary.CanTheDataDecide(r)) o.WriteLine($"can the data decide: {line}");
         var rows = EvolutionTestTable.From(r);
         foreach (var row in rows) o.WriteLine(EvolutionTestTable.Statement(row));
@@ -55,14 +55,15 @@ internal static class FitTables
         // the evolution estimate is rounded to its 68% interval by the PDG rule.
         o.WriteLine($"{"rank",4}  {"model",-18} {"k",2} {"ln L",12} {"AIC",11} {"ΔAIC",7} {"BIC",11} {"ΔBIC",7}  {"evidence against",-34} {sym + " (68% interval)",-22} converged");
         int rank = 0;
+        var verdict = r.Verdict;
         foreach (var m in r.Models)
         {
             rank++;
-            // Tied models share a rank, shown as "=1" (no order among them).
-            string shown = m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
+            // Tied models share a rank, shown as "=1" (no order among them); models that cannot be ranked show "—".
+            string shown = !verdict.Comparable ? "—" : m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
             var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
             string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : Estimate(e) + Marker(e);
-            string words = m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
+            string words = !verdict.Comparable ? DecisionSummary.NotRankedWords : m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
             o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }
         o.WriteLine();
@@ -79,7 +80,8 @@ internal static class FitTables
         WriteVerdict(o, r);
         o.WriteLine();
         foreach (var b in r.BayesFactors)
-            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.0}{(b.BicApproximate ? " (BIC approximation)" : "")}: {b.Strength} (Kass & Raftery 1995)"));
+            o.WriteLine(string.Create(Inv, $"ln B({b.Favoured} : {b.Against}) = {b.LnB:0.0}{(b.LnBError is { } be ? string.Create(Inv, $" ± {be:0.0}") : "")}{(b.BicApproximate ? " (BIC approximation)" : "")}: ")
+                + (verdict.Comparable ? $"{b.Strength} (Kass & Raftery 1995)" : "not a ranking (the models cannot be compared under these settings; see the verdict)"));
         foreach (var c in r.CrossValidation)
             o.WriteLine(string.Create(Inv, $"{c.Model}: {c.Folds}-fold cross-validated ln p = {c.LogPredictiveDensity:0.00} ± {c.StandardError:0.00}"));
         foreach (var d in r.CrossValidationDifferences)

@@ -21,10 +21,12 @@ namespace SizeTest.Inference;
 /// <param name="Seed">Seed of every random process in the study.</param>
 /// <param name="Survey">The survey terms (size relation, groups, binned evolution, photometric redshifts, size errors, luminosity
 /// window), or null when none was active.</param>
+/// <param name="CompactRadioSources">The sample is of compact radio sources (it carries radio flux densities): the shipped
+/// expectations for galaxy size and SB evolution are not applied (<see cref="Comparison.EvolutionExpectation.InForce"/>).</param>
 public sealed record FitSettings(
     ObservableKind Observable, SelectionLimits Selection, bool SizeSbRelation, double PivotSizeKpc, double DimmingExponentOffset,
     int GridNodes, int Starts, int Bootstrap, int CrossValidationFolds, SamplerKind Sampler, int Walkers, int Steps, int LivePoints, string? ProfileParameter,
-    IReadOnlyList<ExpectedRange> Expected, int Seed, Survey.SurveySettings? Survey = null);
+    IReadOnlyList<ExpectedRange> Expected, int Seed, Survey.SurveySettings? Survey = null, bool CompactRadioSources = false);
 
 /// <summary>
 /// Everything a fit study produced: sample counts, the ranked models (the <c>models</c> array of results.json), Bayes

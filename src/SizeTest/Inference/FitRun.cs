@@ -88,7 +88,7 @@ public static class FitRun
                     lrts.Add(lrt);
                 }
                 required.Add(RequiredEvolution.Assess(h.Label, est, lrt, request.Expected.FirstOrDefault(e => e.Parameter == name || e.Parameter == Comparison.EvolutionTestTable.BaseName(name)),
-                    h.Nuisance.SbAtFixedLuminosity));
+                    h.Nuisance.SbAtFixedLuminosity, obs.Survey.CompactRadioSources));
             }
 
             request.Timings?.Mark($"evolution tests {h.Label}");
@@ -119,6 +119,8 @@ public static class FitRun
         var notes = StudyNotes(request.Hypotheses, ranked, request.Sampler);
         notes.AddRange(extraNotes);
         if (PhysicalSizePlausibility.Note(ranked) is { } sizeScale) notes.Insert(0, sizeScale);
+        if (obs.Survey.CompactRadioSources)
+            notes.Add("compact radio sources (the catalogue has radio flux densities): the shipped expectations for galaxy size and SB evolution are not applied, so no evolution is judged plausible or implausible unless the study states its own range ({expect} size_evolution=LO:HI)");
         if (first.SurveyTerms.Groups is { Count: > 1 } groups)
             notes.Add(SettingProblem.Text($"populations {string.Join(", ", groups)}: the required evolution is stated for each group ({(first.Observable switch { ObservableKind.Size => "size_evolution@GROUP", ObservableKind.SurfaceBrightness => "sb_evolution@GROUP", _ => "size_evolution@GROUP and sb_evolution@GROUP" })}, each with its own likelihood-ratio test against 0); the model comparison (AIC, BIC, weights, Bayes factors) is one combined comparison over all groups, with the world model shared"));
         if (ranked.Count > 1 && ranked[0].Tied)
@@ -140,7 +142,7 @@ public static class FitRun
                 first.Observable,
                 first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
                 request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
-                request.ProfileParameter, request.Expected, request.Seed, Survey.SurveySettings.From(first.SurveyTerms)),
+                request.ProfileParameter, request.Expected, request.Seed, Survey.SurveySettings.From(first.SurveyTerms), obs.Survey.CompactRadioSources),
             Models = ranked,
             BayesFactors = ModelComparison.BayesFactors(ranked),
             LikelihoodRatioTests = lrts,

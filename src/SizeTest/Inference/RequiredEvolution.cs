@@ -37,7 +37,8 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
     /// <param name="lrt">Its likelihood-ratio test against 0, if run.</param>
     /// <param name="expected">The study's expected range, if given.</param>
     /// <param name="sbAtFixedLuminosity">b is the SB change at fixed luminosity (<see cref="Comparison.EvolutionExpectation.InForce"/>).</param>
-    public static RequiredEvolution Assess(string model, ParameterEstimate estimate, LikelihoodRatioTest? lrt, ExpectedRange? expected, bool sbAtFixedLuminosity = false)
+    /// <param name="compactRadioSources">The objects are compact radio sources: the shipped galaxy expectations do not apply.</param>
+    public static RequiredEvolution Assess(string model, ParameterEstimate estimate, LikelihoodRatioTest? lrt, ExpectedRange? expected, bool sbAtFixedLuminosity = false, bool compactRadioSources = false)
     {
         ArgumentNullException.ThrowIfNull(estimate);
         var inv = System.Globalization.CultureInfo.InvariantCulture;
@@ -49,7 +50,7 @@ public sealed record RequiredEvolution(string Model, string Parameter, double Va
                 expected?.Lo, expected?.Hi, $"{model}: {what} held fixed at {estimate.Value.ToString("0.###", inv)}");
         bool excluded = lrt is not null && lrt.PValue < Comparison.EvolutionTestTable.Alpha;
         // The same words as the report and the CLI (one statement per test, Comparison.EvolutionTestTable).
-        var exp = Comparison.EvolutionExpectation.InForce(expected is null ? [] : [expected], sbAtFixedLuminosity).FirstOrDefault(e => e.Parameter == baseName);
+        var exp = Comparison.EvolutionExpectation.InForce(expected is null ? [] : [expected], sbAtFixedLuminosity, compactRadioSources).FirstOrDefault(e => e.Parameter == baseName);
         var row = new Comparison.EvolutionTestRow(model, estimate.Name, estimate.Value, estimate.Lo, estimate.Hi, lrt?.PValue,
             lrt is null ? Comparison.EvolutionNeed.NotTested : excluded ? Comparison.EvolutionNeed.Needed : Comparison.EvolutionNeed.NotNeeded,
             exp?.Judge(estimate.Value, estimate.Lo, estimate.Hi) ?? Comparison.Plausibility.NotJudged, exp);

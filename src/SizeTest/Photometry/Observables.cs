@@ -119,6 +119,7 @@ public sealed class Observables
         }
         return new Observables(sample.Z, lnTheta, lnErr, sample.Mu, sample.MuErr,
             mag: sample.Mag, magErr: sample.MagErr, sizeDefinition: sample.SizeDefinition,
-            survey: new SurveyObservables(sample.ZErr, null, sample.Survey.SersicN, sample.Survey.Group, sample.Survey.Weight));
+            survey: new SurveyObservables(sample.ZErr, null, sample.Survey.SersicN, sample.Survey.Group, sample.Survey.Weight,
+                CompactRadioSources: sample.Survey.FluxDensityJy is not null));
     }
 }

@@ -10,12 +10,15 @@ namespace SizeTest.Photometry;
 /// <param name="SersicN">Sérsic index per object (overrides the sample-wide index where given).</param>
 /// <param name="Group">Population label per object.</param>
 /// <param name="Weight">Weight per object (&gt; 0), multiplying its log-likelihood.</param>
+/// <param name="CompactRadioSources">The sample carries radio flux densities: its objects are compact radio sources (linear sizes of
+/// parsec scale), not galaxies, so expectations published for galaxy sizes do not apply to them.</param>
 public sealed record SurveyObservables(
     double[]? ZErr = null,
     LuminosityData? Luminosity = null,
     double[]? SersicN = null,
     string[]? Group = null,
-    double[]? Weight = null)
+    double[]? Weight = null,
+    bool CompactRadioSources = false)
 {
     /// <summary>Nothing beyond the basic observables.</summary>
     public static SurveyObservables None { get; } = new();
@@ -24,7 +27,7 @@ public sealed record SurveyObservables(
     public SurveyObservables Take(int[] idx)
     {
         T[]? Pick<T>(T[]? a) => a is null ? null : Array.ConvertAll(idx, i => a[i]);
-        return new SurveyObservables(Pick(ZErr), Luminosity?.Take(idx), Pick(SersicN), Pick(Group), Pick(Weight));
+        return new SurveyObservables(Pick(ZErr), Luminosity?.Take(idx), Pick(SersicN), Pick(Group), Pick(Weight), CompactRadioSources);
     }
 
     internal void CheckLength(int n)

@@ -147,7 +147,7 @@ public sealed class MockCatalogue
             : TrueAbsMag is not null ? new LuminosityData(LuminosityKind.ApparentMagnitude, Mag!) : null;
         return new Observables(Z, lnTheta, lnErr, Mu, MuErr, mag: Mag,
             sizeDefinition: Spec.Design.Kind == MockObjectKind.Galaxy ? SizeDefinition.Effective : new SizeDefinition(SizeKind.GaussianFwhm),
-            survey: new SurveyObservables(ZErr, lum, Group: Group));
+            survey: new SurveyObservables(ZErr, lum, Group: Group, CompactRadioSources: FluxDensityJy is not null));
     }
 
     /// <summary>

@@ -10,15 +10,34 @@ namespace SizeTest.Inference.Comparison;
 /// </summary>
 public static class DecisionSummary
 {
-    /// <summary>"ΛCDM preferred (decided; strong evidence)" or "undecided …".</summary>
+    /// <summary>
+    /// "ΛCDM is preferred; the data decide (strong evidence).", "ΛCDM ranks first (positive evidence), but the data do not decide.",
+    /// "ΛCDM ranks first, but the data do not decide." or "The models are not ranked …" / "The data do not decide between the models."
+    /// </summary>
     public static string Headline(StudyVerdict v)
     {
         ArgumentNullException.ThrowIfNull(v);
+        if (!v.Comparable) return "The models are not ranked: their likelihoods cannot be compared under these settings (see why below).";
         string best = v.Best is null ? "no model" : WorldModelDisplayNames.For(v.Best);
-        return v.Decided
-            ? $"{best} is preferred; the data decide ({EvidenceStrength.Words(v.Strength)} evidence)."
-            : v.Best is null ? "The data do not decide between the models." : $"{best} ranks first, but the data do not decide.";
+        if (v.Decided) return $"{best} is preferred; the data decide ({EvidenceStrength.Words(v.Strength)} evidence).";
+        if (v.Best is null) return "The data do not decide between the models.";
+        return v.Strength is "positive" or "strong" or "very strong"
+            ? $"{best} ranks first ({v.Strength} evidence), but the data do not decide."
+            : $"{best} ranks first, but the data do not decide.";
     }
+
+    /// <summary>
+    /// The words of the comparison tables' "evidence against" column for a model that is not first: "not ranked (see the verdict)"
+    /// when the verdict says the models cannot be compared, else the Kass–Raftery words for its ΔBIC (<see cref="EvidenceStrength.AgainstBest"/>).
+    /// </summary>
+    public static string AgainstBest(StudyVerdict v, double deltaBic)
+    {
+        ArgumentNullException.ThrowIfNull(v);
+        return v.Comparable ? EvidenceStrength.AgainstBest(deltaBic) : NotRankedWords;
+    }
+
+    /// <summary>What a comparison table shows in place of ranking words when the models cannot be ranked.</summary>
+    public const string NotRankedWords = "not ranked (see the verdict)";
 
     /// <summary>The "can the data decide?" lines: the verdict's reason, the block note and convergence.</summary>
     public static IReadOnlyList<string> CanTheDataDecide(FitResult result)

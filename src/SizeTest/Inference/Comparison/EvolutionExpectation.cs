@@ -34,11 +34,14 @@ public sealed record EvolutionExpectation(string Parameter, string Population, d
     /// plus any study range for a parameter the table does not have. <paramref name="sbAtFixedLuminosity"/>: the fit's surface
     /// brightness is conditional on each object's luminosity (a joint fit with a size relation, <c>sb_luminosity_slope</c>), so b is the
     /// SB change at fixed luminosity (−2a when μ and L come from one photometry), not the luminosity evolution the shipped
-    /// <c>sb_evolution</c> row describes: that row is left out (a study's own range still applies).
+    /// <c>sb_evolution</c> row describes: that row is left out (a study's own range still applies). <paramref name="compactRadioSources"/>:
+    /// the shipped rows describe galaxies (effective radii, early-type luminosity evolution), not the parsec-scale structure of compact radio
+    /// sources, so none of them applies; only the study's own ranges are in force.
     /// </summary>
-    public static IReadOnlyList<EvolutionExpectation> InForce(IReadOnlyList<ExpectedRange>? overrides, bool sbAtFixedLuminosity = false)
+    public static IReadOnlyList<EvolutionExpectation> InForce(IReadOnlyList<ExpectedRange>? overrides, bool sbAtFixedLuminosity = false, bool compactRadioSources = false)
     {
-        var list = Shipped.Where(e => !(sbAtFixedLuminosity && e.Parameter == NuisanceParameters.Names.SbEvolution)).ToList();
+        var list = compactRadioSources ? []
+            : Shipped.Where(e => !(sbAtFixedLuminosity && e.Parameter == NuisanceParameters.Names.SbEvolution)).ToList();
         foreach (var o in overrides ?? [])
         {
             int i = list.FindIndex(e => e.Parameter == o.Parameter);

@@ -120,7 +120,7 @@ public static class EvolutionTestTable
     public static IReadOnlyList<EvolutionTestRow> From(FitResult result)
     {
         ArgumentNullException.ThrowIfNull(result);
-        var expectations = EvolutionExpectation.InForce(result.Settings.Expected, SbAtFixedLuminosity(result.Settings));
+        var expectations = EvolutionExpectation.InForce(result.Settings.Expected, SbAtFixedLuminosity(result.Settings), result.Settings.CompactRadioSources);
         var rows = new List<EvolutionTestRow>();
         foreach (var m in result.Models)
             foreach (var name in EvolutionNames(m.Parameters.Select(p => p.Name)))

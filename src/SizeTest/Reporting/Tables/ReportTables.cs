@@ -43,12 +43,16 @@ public static class ReportTables
                 : judged.All(r => r.Plausibility == Plausibility.Plausible) ? "plausible"
                 : string.Join("; ", judged.Where(r => r.Plausibility != Plausibility.Plausible).Select(r => $"{r.Symbol}: {EvolutionTestTable.PlausibilityWords(r.Plausibility)}"));
             bool best = ReferenceEquals(m, ordered[0]);
-            rows.Add([m.Label, DeltaText(m.Fit.DeltaBic), best ? "best by BIC" : EvidenceStrength.AgainstBest(m.Fit.DeltaBic), Need(NuisanceParameters.Names.SizeEvolution), Need(NuisanceParameters.Names.SbEvolution), plaus, m.Fit.Converged ? "yes" : "no"]);
-            raw.Add([m.Fit.Name, R(m.Fit.DeltaBic), best ? "best" : EvidenceStrength.FromTwoLnB(m.Fit.DeltaBic), Raw(m, NuisanceParameters.Names.SizeEvolution), Raw(m, NuisanceParameters.Names.SbEvolution), plaus, m.Fit.Converged ? "true" : "false"]);
+            bool ranked = data.Verdict is not { Comparable: false };
+            string words = !ranked ? DecisionSummary.NotRankedWords : m.Fit.Tied && m.Fit.Rank == 1 ? "tied for first" : best ? "best by BIC" : EvidenceStrength.AgainstBest(m.Fit.DeltaBic);
+            string machineWords = !ranked ? "not_ranked" : m.Fit.Tied && m.Fit.Rank == 1 ? "tied" : best ? "best" : EvidenceStrength.FromTwoLnB(m.Fit.DeltaBic);
+            rows.Add([m.Label, DeltaText(m.Fit.DeltaBic), words, Need(NuisanceParameters.Names.SizeEvolution), Need(NuisanceParameters.Names.SbEvolution), plaus, m.Fit.Converged ? "yes" : "no"]);
+            raw.Add([m.Fit.Name, R(m.Fit.DeltaBic), machineWords, Raw(m, NuisanceParameters.Names.SizeEvolution), Raw(m, NuisanceParameters.Names.SbEvolution), plaus, m.Fit.Converged ? "true" : "false"]);
         }
         return new ReportTable("summary", "Summary", ["model", "ΔBIC", "evidence against the model", "size evolution a", "SB evolution b", "evolution plausible?", "converged"], rows)
         {
-            Caption = "ΔBIC ≈ 2 ln B against the best model, in the words of Kass & Raftery (1995): below 2 not worth more than a bare mention, 2–6 positive, 6–10 strong, above 10 very strong. " +
+            Caption = "ΔBIC ≈ 2 ln B against the best model, in the words of Kass & Raftery (1995): below 2 not worth more than a bare mention, 2–6 positive, 6–10 strong, above 10 very strong; " +
+                      $"the verdict calls a decision only from {StudyVerdict.DecisiveTwoLnB.ToString("0", Inv)} (strong) on. " +
                       "a in R ∝ (1+z)^a and b in Δμ = −2.5 b log10(1+z), each with its 68% interval, rounded by the PDG rule; \"not needed\" when the likelihood-ratio test does not reject zero at the 95% level. " +
                       "Plausibility compares the 68% interval with published expectations (see the evolution tests below).",
             MachineColumns = ["model", "delta_bic", "strength", NuisanceParameters.Names.SizeEvolution, NuisanceParameters.Names.SbEvolution, "plausibility", "converged"],

@@ -40,6 +40,23 @@ public sealed partial class EvolutionTestTableTests
         ],
     };
 
+    [Fact]
+    public void CompactRadioSourcesAreNotJudgedByTheGalaxyExpectations()
+    {
+        // The shipped rows (evolution-expectations.txt) describe galaxy effective radii and early-type luminosity evolution; a sample of
+        // compact radio sources is judged only against the study's own ranges. Without the flag, tired light's a = −0.064 with the
+        // study's range [−1.5, −0.7] is outside it and b = −1.959 has the wrong sign against the shipped sb row (expected positive).
+        var galaxies = EvolutionTestTable.From(DemoLike());
+        Assert.Contains(galaxies, r => r.Model == "tired-light" && r.Parameter == "sb_evolution" && r.Plausibility == Plausibility.WrongSign);
+        var radio = DemoLike() with { Settings = DemoLike().Settings with { CompactRadioSources = true, Expected = [] } };
+        Assert.All(EvolutionTestTable.From(radio), r => Assert.Equal(Plausibility.NotJudged, r.Plausibility));
+        // The study's own range still applies to radio sources.
+        var own = DemoLike() with { Settings = DemoLike().Settings with { CompactRadioSources = true } };
+        var rows = EvolutionTestTable.From(own);
+        Assert.All(rows.Where(r => r.Parameter == "sb_evolution"), r => Assert.Equal(Plausibility.NotJudged, r.Plausibility));
+        Assert.Contains(rows, r => r.Model == "tired-light" && r.Parameter == "size_evolution" && r.Plausibility != Plausibility.NotJudged);
+    }
+
     [GeneratedRegex(@"^(?<model>.+?) (?<verb>needs|does not need) (?<what>size evolution|surface-brightness evolution)[: ]")]
     private static partial Regex Claim();
 

@@ -133,7 +133,78 @@ public sealed class StudyVerdictTests
     {
         var v = Result("size", false, Model("eds", -40), Model("milne", -40 - deltaBic / 2)).Verdict;
         Assert.Equal(strength, v.Strength);
-        Assert.Equal(deltaBic >= 2, v.Decided);
+        // Decided from "strong" (2 ln B ≥ 6) on: StudyVerdict.DecisiveTwoLnB, set from the mock rates of docs/verdict-threshold.md.
+        Assert.Equal(deltaBic >= 6, v.Decided);
+        Assert.Equal("eds", v.Best);
+        Assert.True(v.Comparable);
+    }
+
+    [Fact]
+    public void PositiveEvidenceNamesTheLeaderButDoesNotDecide()
+    {
+        // ΔBIC = 2 × 2 = 4: "positive" on the Kass & Raftery (1995, §3.2) scale, below the decision threshold of 6.
+        var v = Result("size", false, Model("eds", -40), Model("milne", -42)).Verdict;
+        Assert.False(v.Decided);
+        Assert.Equal("eds", v.Best);
+        Assert.Equal("positive", v.Strength);
+        Assert.Contains("ΔBIC = 4.0", v.Reason);
+        Assert.Contains("the data do not decide", v.Reason);
+        Assert.Equal("Einstein–de Sitter ranks first (positive evidence), but the data do not decide.", DecisionSummary.Headline(v));
+    }
+
+    [Theory]
+    // Nested-sampling evidences: 2 ln B = 2 × 4 = 8 is "strong", but with ln Z errors of 0.5 each the error of 2 ln B is
+    // 2 √(0.5² + 0.5²) = 1.41, and 8 − 2 × 1.41 = 5.17 < 6 does not decide; with errors of 0.1 (σ = 0.28): 8 − 0.57 = 7.43 ≥ 6 decides.
+    [InlineData(0.5, false)]
+    [InlineData(0.1, true)]
+    public void NestedSamplingErrorMustClearTheThreshold(double lnZError, bool decided)
+    {
+        var r = Result("size", false, Model("eds", -40) with { LogEvidence = -45, LogEvidenceError = lnZError },
+            Model("milne", -44) with { LogEvidence = -49, LogEvidenceError = lnZError });
+        var v = r.Verdict;
+        Assert.Equal(decided, v.Decided);
+        Assert.Equal("eds", v.Best);
+        Assert.Equal("strong", v.Strength);
+        Assert.Contains("(nested-sampling error)", v.Reason);
+    }
+
+    [Fact]
+    public void BinnedEvolutionIsNotRanked()
+    {
+        // ΔBIC = 20 would be "very strong", but with binned evolution the ranking follows the bin count (docs/verdict-threshold.md).
+        var r = Result("size", false, Model("eds", -40), Model("milne", -50)) with
+        {
+            Settings = Result("size", false).Settings with
+            {
+                Survey = new SizeTest.Inference.Survey.SurveySettings("none", null, null, null, [0.1, 0.5, 1.0, 3.0], false, null, null, null, null, null, "lognormal", null, null),
+            },
+        };
+        var v = r.Verdict;
+        Assert.False(v.Comparable);
+        Assert.False(v.Decided);
+        Assert.Null(v.Best);
+        Assert.Contains("3 redshift bins", v.Reason);
+        Assert.StartsWith("The models are not ranked", DecisionSummary.Headline(v));
+        Assert.Equal(DecisionSummary.NotRankedWords, DecisionSummary.AgainstBest(v, 20));
+        using var doc = System.Text.Json.JsonDocument.Parse(ResultsJson.Serialize(r));
+        Assert.False(doc.RootElement.GetProperty("verdict").GetProperty("comparable").GetBoolean());
+    }
+
+    [Fact]
+    public void TheVerdictTiesExactlyWhenTheTableTies()
+    {
+        // ln L 0.005 apart with equal k: AIC and BIC differ by 0.01 ≤ ModelComparison.TieTolerance (0.02): the table ranks them "=1",
+        // and the verdict must say "tie" too (not "within noise" with a best model).
+        var r = Result("size", false, Model("eds", -40), Model("milne", -40.005));
+        Assert.True(r.Models[0].Tied && r.Models[1].Tied);
+        var v = r.Verdict;
+        Assert.Null(v.Best);
+        Assert.Contains("tie", v.Reason);
+        // 0.015 apart: 0.03 > 0.02, the table ranks them and the verdict names the first (within noise).
+        var r2 = Result("size", false, Model("eds", -40), Model("milne", -40.015));
+        Assert.False(r2.Models[0].Tied);
+        Assert.Equal("eds", r2.Verdict.Best);
+        Assert.Contains("within noise", r2.Verdict.Reason);
     }
 
     [Fact]
