@@ -32,7 +32,8 @@ internal sealed class SurveyCliOptions
     public Option<double?> SpectralIndex { get; } = Number("--spectral-index", "Radio: spectral index α, S_ν ∝ ν^α, in L_ν = 4π D_L² S_ν (1+z)^−(1+α) (default 0).");
     public Option<string?> RefCosmology { get; } = new("--ref-cosmology") { Description = "H0:OMEGA_M of the flat ΛCDM in which the catalogue computed abs_mag or log_mass (default 70:0.3)." };
 
-    public IEnumerable<Option> All => [SizeLuminosity, SizeMass, PivotAbsMag, PivotLogMass, PivotLogLum, AbsMagRange, Group, Evolution, IgnoreZErr, SizeErrors, ZPrior, ZPriorShape, ZMarginal, FrequencyGhz, SpectralIndex, RefCosmology];
+    public Option<int?> ZNodes { get; } = new Option<int?>("--z-nodes") { Description = $"Photometric redshifts with --z-marginal quadrature: Gauss–Hermite nodes per object, {SurveyRequest.MinRedshiftNodes}–{SurveyRequest.MaxRedshiftNodes} (default {SurveyRequest.DefaultRedshiftNodes(SizeTest.Inference.ObservableKind.Size)} for size fits, {SurveyRequest.DefaultRedshiftNodes(SizeTest.Inference.ObservableKind.Joint)} for sb and joint fits; the cost grows in proportion)." };
+    public IEnumerable<Option> All => [SizeLuminosity, SizeMass, PivotAbsMag, PivotLogMass, PivotLogLum, AbsMagRange, Group, Evolution, IgnoreZErr, SizeErrors, ZPrior, ZPriorShape, ZMarginal, ZNodes, FrequencyGhz, SpectralIndex, RefCosmology];
 
     public void AddTo(Command command)
     {
@@ -48,11 +49,14 @@ internal sealed class SurveyCliOptions
         var pivot = new LuminosityPivot(parse.GetValue(PivotAbsMag) ?? d.AbsMag, parse.GetValue(PivotLogMass) ?? d.LogMass, parse.GetValue(PivotLogLum) ?? d.LogRadioLuminosity);
         var (mLo, mHi) = parse.GetValue(AbsMagRange) is { } r ? Range(r, "--abs-mag-range", "-23:-20") : ((double?)null, (double?)null);
         var (zLo, zHi) = parse.GetValue(ZPrior) is { } zp ? Range(zp, "--z-prior", "0.1:3") : ((double?)null, (double?)null);
+        int? nodes = parse.GetValue(ZNodes);
+        if (nodes is { } zn && zn is < SurveyRequest.MinRedshiftNodes or > SurveyRequest.MaxRedshiftNodes)
+            throw new InputException($"--z-nodes {zn} is outside {SurveyRequest.MinRedshiftNodes}–{SurveyRequest.MaxRedshiftNodes}");
         return new SurveyRequest(lum ? SizeRelationKind.Luminosity : mass ? SizeRelationKind.Mass : SizeRelationKind.None, pivot,
             parse.GetValue(Group) is not null, EvolutionBins(parse.GetValue(Evolution) ?? "power"), parse.GetValue(IgnoreZErr),
             parse.GetValue(SizeErrors) == "gaussian" ? SizeErrorKind.Gaussian : SizeErrorKind.LogNormal, mLo, mHi, zLo, zHi,
             parse.GetValue(ZMarginal) switch { "quadrature" => RedshiftMarginal.Quadrature, "linear" => RedshiftMarginal.Linear, _ => null },
-            parse.GetValue(ZPriorShape) == "flat" ? RedshiftPriorShape.Flat : RedshiftPriorShape.Population);
+            parse.GetValue(ZPriorShape) == "flat" ? RedshiftPriorShape.Flat : RedshiftPriorShape.Population, nodes);
     }
 
     /// <summary>The luminosity preparation for the photometry stage, or null when no relation or window is asked.</summary>

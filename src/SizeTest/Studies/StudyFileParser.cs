@@ -23,7 +23,7 @@ public static class StudyFileParser
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
         ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
-        ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, z_prior_shape, z_marginal, frequency_ghz, spectral_index, ref_cosmology",
+        ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, z_prior_shape, z_marginal, z_nodes, frequency_ghz, spectral_index, ref_cosmology",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, figure_width, bins, bin_resamples",
@@ -318,8 +318,16 @@ public static class StudyFileParser
             "flat" => RedshiftPriorShape.Flat,
             _ => throw shapeNode!.Error("'survey.z_prior_shape' must be \"population\" or \"flat\""),
         };
+        int? zNodes = null;
+        if (sv.Get("z_nodes") is { } znNode)
+        {
+            double v = sv.Number("z_nodes") ?? double.NaN;
+            if (!(v == Math.Floor(v) && v >= SurveyRequest.MinRedshiftNodes && v <= SurveyRequest.MaxRedshiftNodes))
+                throw znNode.Error($"'survey.z_nodes' must be a whole number of nodes, {SurveyRequest.MinRedshiftNodes}–{SurveyRequest.MaxRedshiftNodes}; got '{znNode.Scalar}'");
+            zNodes = (int)v;
+        }
         var request = new SurveyRequest(relation, pivot, group is not null, bins, sv.Boolean("ignore_z_err") ?? false, errors,
-            window?[0], window?[1], zPrior?[0], zPrior?[1], marginal, shape);
+            window?[0], window?[1], zPrior?[0], zPrior?[1], marginal, shape, zNodes);
         if (relation == SizeRelationKind.Mass && window is not null)
             throw sv.Get("abs_mag_range")!.Error("'survey.abs_mag_range' selects on luminosity; it cannot be combined with size_relation = \"mass\"");
         double? freq = sv.Number("frequency_ghz"), alpha = sv.Number("spectral_index");

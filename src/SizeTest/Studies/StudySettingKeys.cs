@@ -18,7 +18,7 @@ internal static class StudySettingKeys
         "max_outside_selection" => "selection.max_outside_fraction",
         "col" => "[columns]",
         "size_def" => "catalogue.size_definition",
-        "z_marginal" => "survey.z_marginal",
+        "z_marginal" or "z_nodes" => "survey." + setting,
         "group" or "evolution" or "z_prior" or "z_prior_shape" or "abs_mag_range" or "size_errors" or "ignore_z_err" => "survey." + setting,
         "size_luminosity" => "survey.size_relation = \"luminosity\"",
         "size_mass" => "survey.size_relation = \"mass\"",

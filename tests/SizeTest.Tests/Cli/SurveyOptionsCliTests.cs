@@ -119,6 +119,29 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void TheQuadratureTakesMoreNodesForSurfaceBrightnessAndTheNodeCountOnRequest()
+    {
+        // Defaults (SurveyRequest.DefaultRedshiftNodes): 7 Gauss–Hermite nodes for size fits, 20 for sb and joint fits, where 7 biased b
+        // by −0.45 half-widths over 20 mocks (docs/survey-catalogues.md); --z-nodes sets the count; without the quadrature it is ignored (note).
+        var mock = Simulate("--photoz-err", "0.03", "--z-dist", "uniform:0.3:2");
+        static int Nodes(string dir) => System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "results.json")))
+            .RootElement.GetProperty("settings").GetProperty("survey").GetProperty("redshift_nodes").GetInt32();
+        var size = Fit(mock, "--z-marginal", "quadrature");
+        Assert.True(size.Code == 0, size.Err);
+        Assert.Equal(7, Nodes(size.Dir));
+        var joint = Fit(mock, "--observable", "joint", "--z-marginal", "quadrature");
+        Assert.True(joint.Code == 0, joint.Err);
+        Assert.Equal(20, Nodes(joint.Dir));
+        Assert.Contains("20-point Gauss", File.ReadAllText(Path.Combine(joint.Dir, "results.json")), StringComparison.Ordinal);
+        var asked = Fit(mock, "--z-marginal", "quadrature", "--z-nodes", "12");
+        Assert.True(asked.Code == 0, asked.Err);
+        Assert.Equal(12, Nodes(asked.Dir));
+        var linear = Fit(mock, "--z-nodes", "12");
+        Assert.True(linear.Code == 0, linear.Err);
+        Assert.Contains("--z-nodes is ignored: the linearised photo-z marginal takes no nodes", File.ReadAllText(Path.Combine(linear.Dir, "results.json")), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void GaussianSizeErrorsAndTheLargeErrorWarning()
     {
         var mock = Simulate("--size-errors", "gaussian", "--size-err-frac", "0.05", "--size-err-frac-zmax", "0.5");
@@ -149,6 +172,8 @@ public sealed class SurveyOptionsCliTests : IDisposable
     [InlineData("--z-prior", "1:x", "must be LO:HI")]
     [InlineData("--z-marginal", "cubic", "quadrature")]
     [InlineData("--ref-cosmology", "70", "must be H0:OMEGA_M")]
+    [InlineData("--z-nodes", "1", "--z-nodes 1 is outside 2–40")]
+    [InlineData("--z-nodes", "41", "--z-nodes 41 is outside 2–40")]
     public void BadSurveyOptionsExitWithTwo(string option, string value, string message)
     {
         var mock = Simulate();

@@ -93,6 +93,10 @@ public sealed class StudySurveyTableTests : IDisposable
         var (a2, b2, text2) = FitAndRun("pz", ["lcdm"], "size", [], "");
         foreach (var (k, v) in a2) Assert.True(v == b2[k], $"{k}: fit {v:R}, run {b2[k]:R}");
         Assert.Contains("linearised marginal (survey.z_marginal linear", text2, StringComparison.Ordinal);
+        // survey.z_nodes is fit's --z-nodes.
+        var (a3, b3, text3) = FitAndRun("pz", ["lcdm"], "size", ["--z-marginal", "quadrature", "--z-nodes", "11"], "z_marginal = \"quadrature\"\nz_nodes = 11");
+        foreach (var (k, v) in a3) Assert.True(v == b3[k], $"{k}: fit {v:R}, run {b3[k]:R}");
+        Assert.Contains("11-point Gauss", text3, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -103,6 +107,8 @@ public sealed class StudySurveyTableTests : IDisposable
     [InlineData("sise_errors = \"gaussian\"", "did you mean 'size_errors'")]
     [InlineData("z_marginal = \"cubic\"", "'survey.z_marginal' must be \"quadrature\" or \"linear\"")]
     [InlineData("z_prior_shape = \"bumpy\"", "'survey.z_prior_shape' must be \"population\" or \"flat\"")]
+    [InlineData("z_nodes = 1", "'survey.z_nodes' must be a whole number of nodes, 2–40")]
+    [InlineData("z_nodes = 7.5", "'survey.z_nodes' must be a whole number of nodes, 2–40")]
     public void BadSurveyKeysNameTheirPlace(string lines, string expected)
     {
         string text = $"[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\nobservable = \"size\"\n[survey]\n{lines}\n";
