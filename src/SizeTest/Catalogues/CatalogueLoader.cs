@@ -139,8 +139,8 @@ public static class CatalogueLoader
         // Warnings of the reader (repeated column names) and of the data (sizes implausible in the stated unit) travel with
         // the mapping's, so fit, run and inspect show them on stderr and in the results' notes.
         var readerWarnings = reader.Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray();
-        var dataWarnings = AngularSizePlausibility.Check(sample.ThetaRad, mapping);
-        if (readerWarnings.Length + dataWarnings.Count > 0) mapping = mapping.WithNotes([.. readerWarnings, .. dataWarnings]);
+        var dataWarnings = AngularSizePlausibility.Check(sample.ThetaRad, mapping).Concat(MagnitudeColumnCheck.Check(mapping, reader.Columns)).ToArray();
+        if (readerWarnings.Length + dataWarnings.Length > 0) mapping = mapping.WithNotes([.. readerWarnings, .. dataWarnings]);
         return new CatalogueLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns,
             reader.Notes.Where(n => !n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray(), rowsRead, nulls);
     }

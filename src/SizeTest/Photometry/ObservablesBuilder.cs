@@ -52,19 +52,26 @@ public static class ObservablesBuilder
             if (mag is null || sample.ThetaRad is null)
                 throw new InputException($"{sample.SourceName}: surface brightness from magnitudes needs both a 'mag' and a 'theta' column.");
             mu = new double[n];
-            muErr = sample.MagErr is null ? null : new double[n];
+            // Without a mag_err column the size error still propagates: σ_⟨μ⟩ = 5/ln10 · σ_R/R (the magnitude taken as exact).
+            bool sizeErrors = sample.ThetaErrRad is not null;
+            muErr = sample.MagErr is null && !sizeErrors ? null : new double[n];
             for (int i = 0; i < n; i++)
             {
                 double reArcsec = sample.ThetaRad[i] * AngleUnits.ArcsecPerRadian;
                 mu[i] = SurfaceBrightness.MeanWithinEffective(mag[i], reArcsec);
                 if (muErr is not null)
                 {
-                    // σ_⟨μ⟩² = σ_m² + (5/ln10 · σ_R/R)²  (propagation of m + 5 log10 R_e; errors taken as independent)
+                    // ⟨μ⟩_e = m + 5 log10 R_e + 2.5 log10 2π, so ∂⟨μ⟩/∂ln R_e = 5/ln10 and
+                    // σ_⟨μ⟩² = σ_m² + (5/ln10 · σ_R/R)²  (errors taken as independent)
                     double rel = basic.LnThetaErr is { } le ? le[i] : 0.0;
-                    muErr[i] = Math.Sqrt(sample.MagErr![i] * sample.MagErr[i] + Math.Pow(5.0 / Math.Log(10.0) * rel, 2));
+                    double sm = sample.MagErr?[i] ?? 0.0;
+                    muErr[i] = Math.Sqrt(sm * sm + Math.Pow(5.0 / Math.Log(10.0) * rel, 2));
                 }
             }
-            notes.Add("surface brightness: <mu>_e = m + 2.5 log10(2 pi R_e^2) from the total magnitude and the size column (R_e in arcsec; Graham & Driver 2005); its error combines sigma_m and 5/ln10 sigma_R/R, which correlates it with ln theta.");
+            notes.Add("surface brightness: <mu>_e = m + 2.5 log10(2 pi R_e^2) from the total magnitude and the size column (R_e in arcsec; Graham & Driver 2005); " +
+                      (sample.MagErr is not null ? "its error combines sigma_m and 5/ln10 sigma_R/R, which correlates it with ln theta."
+                       : sizeErrors ? "no mag_err column is mapped, so its error is the size term 5/ln10 sigma_R/R alone (the magnitudes taken as exact; map mag_err to add theirs), which correlates it with ln theta."
+                       : "neither mag_err nor theta_err is mapped, so it has no measurement error and the SB scatter absorbs all of it."));
         }
         else
         {

@@ -101,6 +101,22 @@ public sealed class ObservablesBuilderTests
     }
 
     [Fact]
+    public void SurfaceBrightnessFromMagnitudeWithoutMagErrorsKeepsTheSizeTerm()
+    {
+        // No mag_err column: σ_⟨μ⟩ = 5/ln10 · σ_R/R = 5/ln10 × 0.1 = 0.2171 (propagation of m + 5 log10 R_e with σ_m = 0), not "no error".
+        var s = MakeSample(mag: [18, 19, 20], thetaArcsec: [2, 1, 0.5]);
+        s = new CatalogueRows(s.SourceName, [2, 3, 4], s.Z, thetaRad: s.ThetaRad, thetaErrRad: s.ThetaErrRad, mu: s.Mu, muErr: s.MuErr, mag: s.Mag, magErr: null);
+        var r = ObservablesBuilder.Build(s, new PhotometryOptions { SurfaceBrightness = new SurfaceBrightnessOption(true) });
+        Assert.Equal([0.5 / Math.Log(10), 0.5 / Math.Log(10), 0.5 / Math.Log(10)], r.Observables.MuErr!, new Tol(1e-12));
+        Assert.Contains(r.Corrections, c => c.Contains("no mag_err column is mapped, so its error is the size term", StringComparison.Ordinal));
+        // Neither error: no SB measurement error, and the note says so.
+        var bare = new CatalogueRows(s.SourceName, [2, 3, 4], s.Z, thetaRad: s.ThetaRad, mu: s.Mu, mag: s.Mag);
+        var r2 = ObservablesBuilder.Build(bare, new PhotometryOptions { SurfaceBrightness = new SurfaceBrightnessOption(true) });
+        Assert.Null(r2.Observables.MuErr);
+        Assert.Contains(r2.Corrections, c => c.Contains("neither mag_err nor theta_err is mapped", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void IsophotalSampleCarriesIsophoteAndSersicIndex()
     {
         var zp = new BandTable(new Dictionary<string, double> { ["B"] = -0.1 }, "zp", "AB zero-point offset");
