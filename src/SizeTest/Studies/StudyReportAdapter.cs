@@ -261,7 +261,8 @@ public static class StudyReportAdapter
         if (inputs.Load.Mapping.Warnings.Count > 0)
             list.Add(new Assumption("units", string.Join(" ", inputs.Load.Mapping.Warnings.Select(w => StudySettingKeys.Text(w).TrimEnd('.') + "."))));
         list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6).Select(StudySettingKeys.Text))}."));
-        return list;
+        // Console text pads its columns ("theta     ← theta"); an assumption is prose: one space between words.
+        return list.Select(a => a with { Statement = Foundation.Text.ProseText.Collapse(a.Statement) }).ToList();
     }
 
     private static PowerCurve PowerCurveFrom(PowerResult power)

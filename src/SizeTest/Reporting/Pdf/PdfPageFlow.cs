@@ -61,9 +61,13 @@ internal sealed class PdfPageFlow : IDisposable
     public static SKFont Font(bool bold, float size) =>
         new(bold ? Rendering.FontRegistry.Bold : Rendering.FontRegistry.Regular, size) { Subpixel = true };
 
-    public void Heading(string text, float size = 15f)
+    /// <summary>
+    /// A section heading, kept on one page with at least a few lines of what follows (no orphaned heading), or with
+    /// the first <paramref name="keepWithNext"/> points of it (a figure: the heading moves to the figure's page).
+    /// </summary>
+    public void Heading(string text, float size = 15f, float keepWithNext = 80f)
     {
-        Ensure(size * 2.6f + 80f, text); // keep a heading with at least a few lines of what follows (no orphaned heading)
+        Ensure(size * 2.6f + Math.Min(keepWithNext, Bottom - MarginPt - size * 2.6f), text);
         Y += size * 0.9f;
         using var f = Font(true, size);
         Canvas.DrawText(text, Left, Y + size * 0.8f, SKTextAlign.Left, f, ink);
@@ -75,7 +79,7 @@ internal sealed class PdfPageFlow : IDisposable
     public void Paragraph(string text, float size = 10f, bool bold = false, bool isMuted = false, float indent = 0f, string bullet = "")
     {
         using var f = Font(bold, size);
-        var lines = Wrap(text, f, Width - indent);
+        var lines = Wrap(Foundation.Text.ProseText.Collapse(text), f, Width - indent);
         float lh = size * 1.35f;
         for (int i = 0; i < lines.Count; i++)
         {
@@ -85,6 +89,13 @@ internal sealed class PdfPageFlow : IDisposable
             Y += lh;
         }
         Y += size * 0.45f;
+    }
+
+    /// <summary>A bold run-in heading kept on one page with the first three lines of what follows.</summary>
+    public void SubHeading(string text, float size = 11f)
+    {
+        Ensure(size * 1.35f + 3 * 9.5f * 1.35f, "continued");
+        Paragraph(text, size, bold: true);
     }
 
     public void Space(float pt) => Y += pt;
@@ -108,9 +119,13 @@ internal sealed class PdfPageFlow : IDisposable
         Y += size * 0.6f;
     }
 
+    /// <summary>Smallest font a table is set in (pt); below it columns wrap instead of the type shrinking further.</summary>
+    public const float MinTableFontPt = 7.5f;
+
     /// <summary>
-    /// A table with a caption. Column headings break at '_' and spaces onto several lines; the
-    /// font shrinks (down to 6 pt) until the columns fit the width; numeric columns are right-aligned.
+    /// A table with a caption. Column headings break between words onto several lines; the font shrinks (down to
+    /// <see cref="MinTableFontPt"/>) until the columns fit the width, and when they still do not, text cells wrap
+    /// between words inside their column (numbers never wrap); numeric columns are right-aligned.
     /// </summary>
     public void Table(Tables.ReportTable t)
     {
@@ -125,19 +140,8 @@ internal sealed class PdfPageFlow : IDisposable
         // Headings break only between words, never inside one.
         var heads = t.Columns.Select(c => c.Split(' ', StringSplitOptions.RemoveEmptyEntries)).ToArray();
         var numeric = t.Columns.Select((_, j) => t.Rows.Count > 0 && t.Rows.All(r => r[j].Length == 0 || IsNumber(r[j]))).ToArray();
-        float size = 9f;
-        float[] widths;
-        while (true)
-        {
-            using var f = Font(false, size);
-            using var fb = Font(true, size);
-            widths = t.Columns.Select((c, j) => Math.Max(heads[j].Select(w => fb.MeasureText(w)).DefaultIfEmpty(0).Max(),
-                t.Rows.Select(r => f.MeasureText(r[j])).DefaultIfEmpty(0).Max()) + 1.2f * size).ToArray();
-            if (widths.Sum() <= Width || size <= 6f) break;
-            size -= 0.5f;
-        }
-        float scale = widths.Sum() > Width ? Width / widths.Sum() : 1f;
-        for (int j = 0; j < widths.Length; j++) widths[j] *= scale;
+        var (size, widths) = TableLayout(t, heads, numeric, Width);
+        TableSizes.Add(size);
         float lh = size * 1.5f;
         int headLines = heads.Max(h => Math.Max(1, h.Length));
         using (var fb = Font(true, size))
@@ -150,11 +154,50 @@ internal sealed class PdfPageFlow : IDisposable
         using var fr = Font(false, size);
         foreach (var r in t.Rows)
         {
-            Ensure(lh, "continued");
-            DrawRow(r, widths, numeric, fr, size);
+            // Each text cell wrapped into its column; the row is as tall as its tallest cell.
+            var cells = r.Select((c, j) => numeric[j] ? new List<string> { c } : Wrap(c, fr, widths[j] - 0.6f * size)).ToArray();
+            int lines = cells.Max(c => c.Count);
+            Ensure(lh * lines, "continued");
+            for (int line = 0; line < lines; line++)
+                DrawRow(cells.Select(c => line < c.Count ? c[line] : "").ToArray(), widths, numeric, fr, size);
             Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, rule);
         }
         Y += 10f;
+    }
+
+    /// <summary>The font size of each table drawn, in order (for tests: no table is set below <see cref="MinTableFontPt"/>).</summary>
+    public List<float> TableSizes { get; } = [];
+
+    /// <summary>
+    /// Font size and column widths: the largest size from 9 pt down to <see cref="MinTableFontPt"/> at which every
+    /// column fits unwrapped; otherwise the minimum size, each column at least its widest word (a number: its whole
+    /// cell) and the room left shared in proportion to what each column would need unwrapped.
+    /// </summary>
+    private static (float Size, float[] Widths) TableLayout(Tables.ReportTable t, string[][] heads, bool[] numeric, float width)
+    {
+        float[] Natural(SKFont f, SKFont fb, float size) => t.Columns.Select((c, j) => Math.Max(heads[j].Select(w => fb.MeasureText(w)).DefaultIfEmpty(0).Max(),
+            t.Rows.Select(r => f.MeasureText(r[j])).DefaultIfEmpty(0).Max()) + 1.2f * size).ToArray();
+        for (float size = 9f; size > MinTableFontPt; size -= 0.5f)
+        {
+            using var f = Font(false, size);
+            using var fb = Font(true, size);
+            var w = Natural(f, fb, size);
+            if (w.Sum() <= width) return (size, w);
+        }
+        float s = MinTableFontPt;
+        using var fr = Font(false, s);
+        using var fh = Font(true, s);
+        var natural = Natural(fr, fh, s);
+        var least = t.Columns.Select((c, j) => Math.Max(heads[j].Select(w => fh.MeasureText(w)).DefaultIfEmpty(0).Max(),
+            t.Rows.Select(r => numeric[j] ? fr.MeasureText(r[j]) : r[j].Split(' ').Select(w => fr.MeasureText(w)).DefaultIfEmpty(0).Max()).DefaultIfEmpty(0).Max()) + 1.2f * s).ToArray();
+        float spare = width - least.Sum(), want = natural.Zip(least, (n, l) => n - l).Sum();
+        if (spare <= 0 || want <= 0)
+        {
+            // Not even one word per column fits: scale the widths (text may then overlap; no report table is this wide).
+            float scale = width / least.Sum();
+            return (s, least.Select(l => l * Math.Min(1f, scale)).ToArray());
+        }
+        return (s, least.Select((l, j) => l + spare * (natural[j] - l) / want).ToArray());
     }
 
     private static bool IsNumber(string s) => Html.Html.IsNumeric(s);
@@ -214,16 +257,29 @@ internal sealed class PdfPageFlow : IDisposable
         Y += size * 1.5f;
     }
 
-    /// <summary>Draws a figure scaled to the text width (or to the remaining page height) as vectors.</summary>
-    public void Figure(Figures.FigureSpec spec, int number)
+    /// <summary>The scale a figure is drawn at: the text width, or less when that would be taller than 78% of the page.</summary>
+    private float FigureScale(Figures.FigureSpec spec)
     {
         var (w, h) = Rendering.FigureRenderer.LogicalSize(spec);
         float scale = Width / w;
         float maxH = (Bottom - MarginPt) * 0.78f;
-        if (h * scale > maxH) scale = maxH / h;
+        return h * scale > maxH ? maxH / h : scale;
+    }
+
+    /// <summary>The height (pt) a figure and its caption take on the page.</summary>
+    public float FigureHeight(Figures.FigureSpec spec)
+    {
+        var (_, h) = Rendering.FigureRenderer.LogicalSize(spec);
         using var cf = Font(false, 8.5f);
-        float captionH = Wrap(spec.Caption, cf, Width).Count * 8.5f * 1.35f + 20f;
-        Ensure(h * scale + captionH, $"Figure {number}");
+        return h * FigureScale(spec) + Wrap(spec.Caption, cf, Width).Count * 8.5f * 1.35f + 20f;
+    }
+
+    /// <summary>Draws a figure scaled to the text width (or to the remaining page height) as vectors.</summary>
+    public void Figure(Figures.FigureSpec spec, int number)
+    {
+        var (w, h) = Rendering.FigureRenderer.LogicalSize(spec);
+        float scale = FigureScale(spec);
+        Ensure(FigureHeight(spec), $"Figure {number}");
         Canvas.Save();
         Canvas.Translate(Left + (Width - w * scale) / 2, Y);
         Canvas.Scale(scale);

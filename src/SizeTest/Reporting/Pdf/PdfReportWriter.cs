@@ -30,6 +30,7 @@ public sealed class PdfReportWriter
             Producer = "SizeTest (SkiaSharp PDF)", Creation = null, Modified = null,
         };
         List<string> headings;
+        List<float> tableSizes;
         int pages;
         using (var doc = SKDocument.CreatePdf(ms, meta))
         using (var flow = new PdfPageFlow(doc, Paper, $"SizeTest report: {job.Title}"))
@@ -63,15 +64,15 @@ public sealed class PdfReportWriter
             foreach (var c in ReportConclusions.Statements(data)) flow.Paragraph(c, 9.5f, indent: 12f, bullet: "•");
             if (data.ExtraConclusions.Count > 0)
             {
-                flow.Paragraph("Notes", 11f, bold: true);
+                flow.SubHeading("Notes");
                 foreach (var c in data.ExtraConclusions) flow.Paragraph(c, 9.5f, indent: 12f, bullet: "•");
             }
-            flow.Paragraph("Assumptions these conclusions rest on", 11f, bold: true);
+            flow.SubHeading("Assumptions these conclusions rest on");
             foreach (var a in data.Assumptions) flow.Paragraph($"{a.Topic}: {a.Statement}", 9.5f, indent: 12f, bullet: "•");
             flow.Paragraph("Caution. " + ReportConclusions.Caution, 9.5f, isMuted: true);
 
             // Figures.
-            flow.Heading("Figures");
+            flow.Heading("Figures", keepWithNext: content.Figures.Count > 0 ? flow.FigureHeight(content.Figures[0]) : 80f);
             int n = 0;
             foreach (var f in content.Figures) flow.Figure(f, ++n);
             if (n == 0) flow.Paragraph("No figure could be drawn from these results.", 10f);
@@ -96,7 +97,7 @@ public sealed class PdfReportWriter
                 flow.Paragraph("The full manifest, with machine and timings, is manifest.json beside this report.", 9f, isMuted: true);
                 if (m.StudyFileText.Length > 0)
                 {
-                    flow.Paragraph("Study file" + (m.StudyFilePath.Length > 0 ? $" ({m.StudyFilePath})" : ""), 11f, bold: true);
+                    flow.SubHeading("Study file" + (m.StudyFilePath.Length > 0 ? $" ({m.StudyFilePath})" : ""));
                     flow.Code(m.StudyFileText);
                 }
             }
@@ -104,10 +105,11 @@ public sealed class PdfReportWriter
 
             flow.EndPage();
             headings = flow.PageHeadings;
+            tableSizes = flow.TableSizes;
             pages = flow.Pages;
             doc.Close();
         }
-        return new PdfReport(ms.ToArray(), pages, headings);
+        return new PdfReport(ms.ToArray(), pages, headings) { TableFontSizes = tableSizes };
     }
 
     /// <summary>Renders and writes the PDF atomically to <paramref name="path"/>.</summary>
@@ -123,4 +125,8 @@ public sealed class PdfReportWriter
 /// <param name="Bytes">PDF file bytes.</param>
 /// <param name="Pages">Number of pages.</param>
 /// <param name="PageHeadings">What starts each page ("title", "Summary", "Figures", "continued", "Figure 3", …).</param>
-public sealed record PdfReport(byte[] Bytes, int Pages, IReadOnlyList<string> PageHeadings);
+public sealed record PdfReport(byte[] Bytes, int Pages, IReadOnlyList<string> PageHeadings)
+{
+    /// <summary>The font size (pt) each table was set in, in report order.</summary>
+    public IReadOnlyList<float> TableFontSizes { get; init; } = [];
+}
