@@ -33,6 +33,19 @@ internal static class FitTables
         + (p.IntervalMethod is IntervalMethods.Hessian or IntervalMethods.Fixed ? "" : $" ({p.IntervalMethod})")
         + (p.AtBound is { } b ? $" (at {b} bound, one-sided)" : "");
 
+    // The evolution column: the one exponent; per population "a[early] … ; a[late] …" (--group); with binned evolution the exponent
+    // is replaced by the bins ("binned: K bins of r0_kpc (see the figure)"), never a blank.
+    private static string EvolutionCell(ModelFitSummary m, string evo, string sym, FitSettings settings)
+    {
+        static string One(ParameterEstimate e) => e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : Estimate(e) + Marker(e);
+        if (m.Parameters.FirstOrDefault(p => p.Name == evo) is { } e) return One(e);
+        var perGroup = m.Parameters.Where(p => EvolutionTestTable.BaseName(p.Name) == evo && EvolutionTestTable.GroupOf(p.Name) is not null).ToList();
+        if (perGroup.Count > 0) return string.Join("; ", perGroup.Select(p => $"{sym}[{EvolutionTestTable.GroupOf(p.Name)}] {One(p)}"));
+        if (settings.Survey?.EvolutionBinEdges is { Count: > 1 } edges)
+            return $"binned: {edges.Count - 1} bins of {(evo == NuisanceParameters.Names.SbEvolution ? "mu0" : "r0_kpc")} (see the figure)";
+        return "not fitted";
+    }
+
     /// <summary>The verdict, the "can the data decide" lines, the evolution statements (one per test) and the call-outs.</summary>
     public static void WriteVerdict(TextWriter o, FitResult r)
     {
@@ -61,8 +74,7 @@ internal static class FitTables
             rank++;
             // Tied models share a rank, shown as "=1" (no order among them); models that cannot be ranked show "—".
             string shown = !verdict.Comparable ? "—" : m.Rank > 0 ? (m.Tied ? "=" : "") + m.Rank.ToString(Inv) : rank.ToString(Inv);
-            var e = m.Parameters.FirstOrDefault(p => p.Name == evo);
-            string ev = e is null ? "" : e.Fixed ? $"{PdgRounding.Plain(e.Value)} (fixed)" : Estimate(e) + Marker(e);
+            string ev = EvolutionCell(m, evo, sym, r.Settings);
             string words = !verdict.Comparable ? DecisionSummary.NotRankedWords : m.Tied ? "(tied)" : rank == 1 ? "(best)" : EvidenceStrength.AgainstBest(m.DeltaBic);
             o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }

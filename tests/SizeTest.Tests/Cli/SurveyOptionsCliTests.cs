@@ -52,15 +52,19 @@ public sealed class SurveyOptionsCliTests : IDisposable
     public void GroupsBinnedEvolutionAndPhotometricRedshiftsRunFromTheCommandLine()
     {
         var mock = Simulate("--population", "early:0.5:3:-1.5", "--population", "late:0.5:6:-0.75", "--photoz-err", "0.03");
-        var (code, _, err, dir) = Fit(mock, "--group", "group", "--evolution", "binned:3");
+        var (code, stdout, err, dir) = Fit(mock, "--group", "group", "--evolution", "binned:3");
         Assert.True(code == 0, err);
+        // The table's evolution column names the bins (never a blank).
+        Assert.Contains("binned: 3 bins of r0_kpc (see the figure)", stdout, StringComparison.Ordinal);
         var json = File.ReadAllText(Path.Combine(dir, "results.json"));
         var m = Model(json, "lcdm");
         foreach (var g in new[] { "early", "late" })
             for (int k = 1; k <= 3; k++) Assert.True(Param(m, $"r0_kpc_bin{k}@{g}") > 0);
         Assert.Contains("linearised marginal", json, StringComparison.Ordinal); // the photo-z marginal is stated
-        var (code2, _, err2, dir2) = Fit(mock, "--group", "group", "--ignore-z-err", "--fix", "size_evolution@early=-1.5");
+        var (code2, out2, err2, dir2) = Fit(mock, "--group", "group", "--ignore-z-err", "--fix", "size_evolution@early=-1.5");
         Assert.True(code2 == 0, err2);
+        // Per population the table's a column gives each group's exponent.
+        Assert.Contains("a[early] -1.5 (fixed); a[late] ", out2.Replace('−', '-'), StringComparison.Ordinal);
         var m2 = Model(File.ReadAllText(Path.Combine(dir2, "results.json")), "lcdm");
         Assert.Equal(-1.5, Param(m2, "size_evolution@early"));
     }
