@@ -52,7 +52,9 @@ public static class ReportConclusions
         int room = Math.Max(0, MaxSummarySentences - list.Count - (data.Job.Synthetic ? 1 : 0));
         list.AddRange(callOuts.Take(room));
         if (callOuts.Count > room) list[^1] += $" ({callOuts.Count - room} more in the evolution tests.)";
-        if (data.Power is { } p && p.Target is { } t && list.Count < MaxSummarySentences)
+        if (data.Power is { Statement.Length: > 0 } ps && list.Count < MaxSummarySentences)
+            list.Add(ps.Statement);
+        else if (data.Power is { } p && p.Target is { } t && list.Count < MaxSummarySentences)
             list.Add($"See the power curve: below power {t.ToString("0.##", ic)} the sample size cannot be relied on to separate the models.");
         if (data.Job.Synthetic)
             list.Add("The catalogue is synthetic: these conclusions describe a demonstration or mock, not the sky.");

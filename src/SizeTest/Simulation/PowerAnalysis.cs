@@ -106,6 +106,8 @@ public static class PowerAnalysis
             Seed = request.Template.Seed,
             Mocks = k,
             TargetPower = request.TargetPower,
+            StrongDeltaBic = StrongDeltaBic,
+            DecisiveDeltaBic = DecisiveDeltaBic,
             Points = points,
             RequiredSampleSize = required,
             Conclusion = conclusion,
@@ -209,8 +211,8 @@ public static class PowerAnalysis
         int k = set.Length;
         var deltas = set.Select(o => double.IsNaN(o.DeltaBic) ? double.NegativeInfinity : o.DeltaBic).Order().ToArray();
         double pBest = set.Count(o => o.Winner == trueName) / (double)k;
-        double p6 = set.Count(o => o.DeltaBic > 6) / (double)k;
-        double p10 = set.Count(o => o.DeltaBic > 10) / (double)k;
+        double p6 = set.Count(o => o.DeltaBic > StrongDeltaBic) / (double)k;
+        double p10 = set.Count(o => o.DeltaBic > DecisiveDeltaBic) / (double)k;
         var q = QuantileLevels.Select(l => Quantile(deltas, l)).ToArray();
         var finite = deltas.Where(double.IsFinite).ToArray();
         double mean = finite.Length > 0 ? finite.Average() : double.NaN;
@@ -232,6 +234,12 @@ public static class PowerAnalysis
         string verdict = Verdict(failures.Count > 0, q[2], p6, p10, target);
         return new PowerPoint(n, k, pBest, p6, p10, q, mean, rec, set.Count(o => !o.Converged), verdict) { RecoveryFailures = failures };
     }
+
+    /// <summary>ΔBIC a "strong" win needs (Kass &amp; Raftery 1995: 2 ln B &gt; 6); written to power.json as <c>strong_delta_bic</c>.</summary>
+    public const double StrongDeltaBic = 6;
+
+    /// <summary>ΔBIC a "decisive" win needs (Kass &amp; Raftery 1995, "very strong": 2 ln B &gt; 10); power.json <c>decisive_delta_bic</c>.</summary>
+    public const double DecisiveDeltaBic = 10;
 
     /// <summary>The verdict withheld when the true model's own fit does not recover the truth.</summary>
     public const string NotInterpretable = "not interpretable: the true model is not recovered";

@@ -71,6 +71,12 @@ public sealed record PowerResult
     public required int Mocks { get; init; }
     /// <summary>Decisive-power threshold.</summary>
     public required double TargetPower { get; init; }
+    /// <summary>ΔBIC of a "strong" win, the threshold of <see cref="PowerPoint.ProbabilityStrong"/> (6; a power.json written before
+    /// the field existed reads as 6, the value then).</summary>
+    public double StrongDeltaBic { get; init; } = PowerAnalysis.StrongDeltaBic;
+    /// <summary>ΔBIC of a "decisive" win, the threshold of <see cref="PowerPoint.ProbabilityDecisive"/> and of <see cref="TargetPower"/> (10;
+    /// an older power.json reads as 10).</summary>
+    public double DecisiveDeltaBic { get; init; } = PowerAnalysis.DecisiveDeltaBic;
     /// <summary>Per sample size, ascending.</summary>
     public required IReadOnlyList<PowerPoint> Points { get; init; }
     /// <summary>Smallest N in the grid whose P(ΔBIC &gt; 10) reaches the target, or null.</summary>

@@ -85,7 +85,7 @@ public static class StudyReportAdapter
             Assumptions = Assumptions(result, inputs),
             SurfaceBrightnessZeroPoint = models.Select(m => m.Fit.Parameters.FirstOrDefault(p => p.Name == NuisanceParameters.Names.Mu0)?.Value).FirstOrDefault(v => v is not null),
             Posterior = posterior,
-            Power = power is null ? null : PowerCurveFrom(power),
+            Power = power is null ? null : PowerReport.From(power, result.Models.Count > 0 ? result.Models.Max(m => m.N) : (int)result.Accepted, result.Models.Select(m => m.Name).ToArray()),
             // Caveats only: the evolution statements come from the one table of tests (EvolutionTests), the verdict from results.
             ExtraConclusions = result.BayesFactors.Select(bf => string.Create(Inv, $"ln B({WorldModelDisplayNames.For(bf.Favoured)} : {WorldModelDisplayNames.For(bf.Against)}) = {bf.LnB:0.0}{(bf.BicApproximate ? " (BIC approximation)" : "")}: {bf.Strength}."))
                 .Concat(result.Notes).ToArray(),
@@ -263,21 +263,5 @@ public static class StudyReportAdapter
         list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6).Select(StudySettingKeys.Text))}."));
         // Console text pads its columns ("theta     ← theta"); an assumption is prose: one space between words.
         return list.Select(a => a with { Statement = Foundation.Text.ProseText.Collapse(a.Statement) }).ToList();
-    }
-
-    private static PowerCurve PowerCurveFrom(PowerResult power)
-    {
-        var pts = power.Points.OrderBy(p => p.SampleSize).ToArray();
-        double[] x = pts.Select(p => (double)p.SampleSize).ToArray();
-        static double Lo(double p, int n) => Math.Max(0, p - Math.Sqrt(Math.Max(p * (1 - p), 0) / Math.Max(n, 1)));
-        static double Hi(double p, int n) => Math.Min(1, p + Math.Sqrt(Math.Max(p * (1 - p), 0) / Math.Max(n, 1)));
-        // 68% intervals from the binomial standard error √(p(1−p)/N) (normal approximation; common practice).
-        return new PowerCurve("objects per catalogue", "objects",
-        [
-            new PowerLine($"true model ({power.TrueCandidate}) has the lowest BIC", x, pts.Select(p => p.ProbabilityTrueBest).ToArray(),
-                pts.Select(p => Lo(p.ProbabilityTrueBest, p.Mocks)).ToArray(), pts.Select(p => Hi(p.ProbabilityTrueBest, p.Mocks)).ToArray()),
-            new PowerLine("ΔBIC > 6 for the true model (strong)", x, pts.Select(p => p.ProbabilityStrong).ToArray(),
-                pts.Select(p => Lo(p.ProbabilityStrong, p.Mocks)).ToArray(), pts.Select(p => Hi(p.ProbabilityStrong, p.Mocks)).ToArray()),
-        ]);
     }
 }

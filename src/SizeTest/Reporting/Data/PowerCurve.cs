@@ -11,8 +11,17 @@ public sealed record PowerCurve(string XLabel, string XUnit, IReadOnlyList<Power
 {
     /// <summary>Draw x on a log axis.</summary>
     public bool XLog { get; init; } = true;
-    /// <summary>Target power drawn as a reference line (e.g. 0.8), or null.</summary>
+    /// <summary>Target power drawn as a reference line (a study copies power.json <c>target_power</c>), or null.</summary>
     public double? Target { get; init; } = 0.8;
+
+    /// <summary>ΔBIC the target refers to (a study copies power.json <c>decisive_delta_bic</c>), or null when not stated.</summary>
+    public double? DecisionDeltaBic { get; init; }
+
+    /// <summary>The power conclusion for this sample in one sentence ("with N objects the design decides in X% of mocks …"), or "".</summary>
+    public string Statement { get; init; } = "";
+
+    /// <summary>What the mock catalogues behind the curve assumed (true model, objects, redshifts, candidates, rule), one line each.</summary>
+    public IReadOnlyList<string> Assumptions { get; init; } = [];
 }
 
 /// <summary>Power at each design value with a binomial interval.</summary>

@@ -27,7 +27,10 @@ public static class PowerFigure
             Id = Id,
             Title = "Power of the comparison",
             Caption = "Fraction of mock catalogues in which the decision rule chose the true model, with 68% binomial intervals (bands), " +
-                      "against the design quantity. Below the target power the sample cannot be relied on to tell the models apart. Mock catalogues are synthetic.",
+                      "against the design quantity. " +
+                      (p.Target is { } tp ? $"The dotted line is the target power {tp.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)}" +
+                          (p.DecisionDeltaBic is { } d ? $" for a win by ΔBIC > {d.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)}" : "") + "; below it" : "Below the target power") +
+                      " the sample cannot be relied on to tell the models apart. Mock catalogues are synthetic.",
             Panels = [new PanelSpec
             {
                 X = new AxisSpec(p.XLabel, p.XUnit) { Log = p.XLog },

@@ -72,6 +72,9 @@ public sealed class ConclusionsSection : IHtmlSection
     public string Id => "conclusions";
     /// <inheritdoc />
     public string Heading => "Evolution tests and the assumptions they rest on";
+
+    /// <summary>Heading of the power conclusion (HTML and PDF).</summary>
+    public const string PowerHeading = "Power of this design";
     /// <inheritdoc />
     public void WriteBody(StringBuilder html, ReportContent content)
     {
@@ -84,6 +87,18 @@ public sealed class ConclusionsSection : IHtmlSection
             html.Append("<h3>Notes</h3><ul>\n");
             Html.Items(html, content.Data.ExtraConclusions);
             html.Append("</ul>\n");
+        }
+        if (content.Data.Power is { Statement.Length: > 0 } power)
+        {
+            // The power conclusion beside the assumptions of the mocks it comes from.
+            html.Append("<div class=\"power\" id=\"power\"><h3>").Append(Html.Text(PowerHeading)).Append("</h3>\n<p>").Append(Html.Text(power.Statement)).Append("</p>\n");
+            if (power.Assumptions.Count > 0)
+            {
+                html.Append("<p>It assumes:</p><ul>\n");
+                Html.Items(html, power.Assumptions);
+                html.Append("</ul>\n");
+            }
+            html.Append("</div>\n");
         }
         html.Append("</div>\n<div class=\"assumptions\"><h3>Assumptions</h3><dl>\n");
         foreach (var a in content.Data.Assumptions)

@@ -69,6 +69,13 @@ public sealed class PdfReportWriter
             }
             flow.SubHeading("Assumptions these conclusions rest on");
             foreach (var a in data.Assumptions) flow.Paragraph($"{a.Topic}: {a.Statement}", 9.5f, indent: 12f, bullet: "•");
+            if (data.Power is { Statement.Length: > 0 } power)
+            {
+                flow.SubHeading(Html.ConclusionsSection.PowerHeading);
+                flow.Paragraph(power.Statement, 9.5f);
+                if (power.Assumptions.Count > 0) flow.Paragraph("It assumes:", 9.5f);
+                foreach (var a in power.Assumptions) flow.Paragraph(a, 9.5f, indent: 12f, bullet: "•");
+            }
             flow.Paragraph("Caution. " + ReportConclusions.Caution, 9.5f, isMuted: true);
 
             // Figures.

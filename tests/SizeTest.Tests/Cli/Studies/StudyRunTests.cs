@@ -202,7 +202,7 @@ public sealed class StudyRunTests
         {
             TrueModel = "lcdm", TrueModelParameters = new Dictionary<string, double>(), TrueNuisance = new Dictionary<string, double>(),
             Candidates = ["lcdm", "tired-light"], TrueCandidate = "lcdm", Observable = SizeTest.Inference.ObservableKind.Size, Kind = "galaxy", ZDist = "uniform:0.1:2.5",
-            Seed = 1, Mocks = 10, TargetPower = 0.8, Conclusion = "test", Outcomes = [],
+            Seed = 1, Mocks = 10, TargetPower = 0.6, Conclusion = "test", Outcomes = [],
             Points =
             [
                 new(100, 10, 0.6, 0.3, 0.1, [0, 0, 0, 0, 0], 2, [], 0, "weak"),
@@ -217,6 +217,11 @@ public sealed class StudyRunTests
         Assert.Equal([100.0, 400.0], data.Power!.Lines[0].X);
         Assert.Equal([0.6, 0.9], data.Power.Lines[0].Power);
         Assert.Equal([0.3, 0.7], data.Power.Lines[1].Power);
+        // The target is power.json's (0.6, not a default) and the study's 300 objects read at N = 100: 0.1 < 0.6, no decision.
+        Assert.Equal(0.6, data.Power.Target);
+        Assert.Equal(10, data.Power.DecisionDeltaBic);
+        Assert.Contains("With 100 objects (the largest mock catalogue not above this sample's 300), on mocks drawn from ΛCDM, the sample cannot decide", data.Power.Statement);
+        Assert.Contains(SizeTest.Reporting.Html.Html.Text(data.Power.Statement), File.ReadAllText(Path.Combine(fx.Out(), "report.html")));
         using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(fx.Out(), "manifest.json")));
         Assert.Contains(manifest.RootElement.GetProperty("inputs").EnumerateArray(), i => i.GetProperty("path").GetString()!.EndsWith("power.json", StringComparison.Ordinal));
     }
