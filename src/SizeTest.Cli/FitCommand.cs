@@ -71,6 +71,7 @@ internal static class FitCommand
                 Fixed: choice.Fixed(parse),
                 Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
                 Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
+            FitOptionParsing.CheckContradictions(overrides.Free!, overrides.Fixed!, overrides.Priors, overrides.Bounds);
             var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
             var families = choice.Families(parse);
             if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");

@@ -44,9 +44,31 @@ internal static class FitOptionParsing
         foreach (var t in values ?? [])
         {
             var (n, v) = NameValue(t, "--fix");
-            d[n] = Number(v, "--fix", "the fixed value");
+            double x = Number(v, "--fix", "the fixed value");
+            if (d.TryGetValue(n, out var before) && before != x)
+                throw new InputException($"--fix {n} is given twice, at {before.ToString("R", CultureInfo.InvariantCulture)} and {x.ToString("R", CultureInfo.InvariantCulture)}; give it once");
+            d[n] = x;
         }
         return d;
+    }
+
+    /// <summary>
+    /// Refuses parameter options that contradict each other (exit 2), since no reading of them is what the user meant: a parameter
+    /// both <c>--free</c> and <c>--fix</c>ed, given a <c>--prior</c> while <c>--fix</c>ed, or <c>--bound</c>ed while <c>--fix</c>ed.
+    /// </summary>
+    public static void CheckContradictions(IReadOnlySet<string> free, IReadOnlyDictionary<string, double> fixedValues,
+        IReadOnlyDictionary<string, (double Mean, double Sd)>? priors = null, IReadOnlyDictionary<string, (double Lo, double Hi)>? bounds = null)
+    {
+        foreach (var (name, value) in fixedValues.OrderBy(kv => kv.Key, StringComparer.Ordinal))
+        {
+            string at = value.ToString("R", CultureInfo.InvariantCulture);
+            if (free.Contains(name))
+                throw new InputException($"{name} is both --free and --fix {name}={at}; a parameter is either fitted or held: drop one of the two");
+            if (priors?.ContainsKey(name) == true)
+                throw new InputException($"{name} has a --prior and is held by --fix {name}={at}; a prior needs a fitted parameter: drop --fix to fit it under the prior, or drop --prior");
+            if (bounds?.ContainsKey(name) == true)
+                throw new InputException($"{name} has a --bound and is held by --fix {name}={at}; bounds apply to fitted parameters: drop one of the two");
+        }
     }
 
     /// <summary><c>--prior NAME=MEAN,SD</c>.</summary>

@@ -52,7 +52,9 @@ internal static class PowerCommand
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 var kind = PowerCandidates.Observable(template, parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText) : null);
                 var nuisance = PowerCandidates.Nuisance(template, kind);
-                var hypotheses = PowerCandidates.Create(trueModel, choice.Families(parse), nuisance, choice.Fixed(parse), choice.Freed(parse));
+                var (fixedValues, freed) = (choice.Fixed(parse), choice.Freed(parse));
+                FitOptionParsing.CheckContradictions(freed, fixedValues);
+                var hypotheses = PowerCandidates.Create(trueModel, choice.Families(parse), nuisance, fixedValues, freed);
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads))
                 {
                     Survey = PowerCandidates.Survey(template, kind),

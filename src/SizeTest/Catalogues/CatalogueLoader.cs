@@ -19,7 +19,7 @@ namespace SizeTest.Catalogues;
 /// <see cref="CatalogueLoadOptions.MaxAbsMagnitude"/> → <see cref="RejectReason.OutOfRange"/>.
 /// A file that cannot be read at all throws one <see cref="InputException"/>.
 /// </remarks>
-public static class CatalogueLoader
+public static partial class CatalogueLoader
 {
     private static readonly ColumnRole[] Order =
     [
@@ -87,7 +87,7 @@ public static class CatalogueLoader
                         var buf = chunk.Columns[bindings.Length + k];
                         var name = mapping.Kept[k].Name;
                         if (buf.States[r] == CellState.Null) { reject = new RejectEntry(pos, name, "", RejectReason.MissingValue, "kept column has no value"); break; }
-                        if (buf.States[r] == CellState.Invalid) { reject = new RejectEntry(pos, name, buf.InvalidText(r), RejectReason.Unparsable, "not a number"); break; }
+                        if (buf.States[r] == CellState.Invalid) { reject = new RejectEntry(pos, name, buf.InvalidText(r), RejectReason.Unparsable, NotANumber(buf.InvalidText(r))); break; }
                         if (!double.IsFinite(buf.Numbers![r])) { reject = new RejectEntry(pos, name, Fmt(buf.Numbers[r]), RejectReason.NonFinite, "not a finite number"); break; }
                     }
                 }
@@ -147,6 +147,14 @@ public static class CatalogueLoader
 
     private static string Fmt(double v) => v.ToString("R", CultureInfo.InvariantCulture);
 
+    // "0,53", "-1,2e3": a number written with a decimal comma (European locales), which the invariant reader does not take.
+    [System.Text.RegularExpressions.GeneratedRegex(@"^\s*[+-]?\d*,\d+([eE][+-]?\d+)?\s*$")]
+    private static partial System.Text.RegularExpressions.Regex DecimalComma();
+
+    /// <summary>The reject detail of a cell that is not a number, with a hint when it is a number written with a decimal comma.</summary>
+    internal static string NotANumber(string text) =>
+        DecimalComma().IsMatch(text) ? "not a number (a decimal comma? write the decimal point as '.', e.g. 0.53)" : "not a number";
+
     /// <summary>Validates row <paramref name="r"/>; fills <paramref name="values"/> with normalised values; returns the reject entry or null.</summary>
     private static RejectEntry? Check(RowChunk chunk, int r, RoleBinding[] bindings, ResolvedMapping mapping, double[] values,
         int thetaSlot, int zSlot, CatalogueLoadOptions options)
@@ -160,7 +168,7 @@ public static class CatalogueLoader
             var state = buf.States[r];
             if (state == CellState.Null) return new RejectEntry(pos, b.ColumnName, "", RejectReason.MissingValue, $"{b.Role.Name()} has no value");
             if (state == CellState.Invalid)
-                return new RejectEntry(pos, b.ColumnName, buf.InvalidText(r), RejectReason.Unparsable, b.Role.IsText() ? "cannot be read as text" : "not a number");
+                return new RejectEntry(pos, b.ColumnName, buf.InvalidText(r), RejectReason.Unparsable, b.Role.IsText() ? "cannot be read as text" : NotANumber(buf.InvalidText(r)));
             if (b.Role.IsText()) continue;
             double raw = buf.Numbers![r];
             if (!double.IsFinite(raw)) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonFinite, "not a finite number");

@@ -47,6 +47,7 @@ public sealed record CatalogueShare(CatalogueRows Local, CatalogueRows? Whole, l
             };
         }
         var whole = CatalogueLoader.Load(path, options);
+        NoAcceptedRows.ThrowIfEmpty(whole, path);
         const int chunk = Inference.Evaluation.EvaluationBackend.ChunkRows;
         int n = whole.Rows.Count;
         var (cs, ce) = RowPartition.RowRange((n + chunk - 1) / chunk, rank, size);

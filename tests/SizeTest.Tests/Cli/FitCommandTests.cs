@@ -109,6 +109,21 @@ public sealed class FitCommandTests : IDisposable
         Assert.False(Directory.Exists(Path.Combine(_dir, "x")));
     }
 
+    [Theory]
+    // Options no reading of which is what the user meant (common practice: refuse, name both, say what to drop).
+    [InlineData("omega_m is both --free and --fix omega_m=0.3", "--free", "omega_m", "--fix", "omega_m=0.3")]
+    [InlineData("omega_m has a --prior and is held by --fix omega_m=0.3", "--prior", "omega_m=0.3,0.02", "--fix", "omega_m=0.3")]
+    [InlineData("size_evolution has a --bound and is held by --fix size_evolution=-1", "--bound", "size_evolution=-2:0", "--fix", "size_evolution=-1")]
+    [InlineData("--fix size_evolution is given twice, at -1 and -0.5", "--fix", "size_evolution=-1", "--fix", "size_evolution=-0.5")]
+    public void ContradictoryParameterOptionsAreExitCodeTwo(string message, params string[] options)
+    {
+        var cat = WriteCatalogue(50);
+        var (exit, _, err) = Fit(cat, Path.Combine(_dir, "x"), options);
+        Assert.Equal(2, exit);
+        Assert.Contains(message, err, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(Path.Combine(_dir, "x")));
+    }
+
     [Fact]
     public void MissingCatalogueIsExitCodeTwo()
     {

@@ -37,6 +37,7 @@ public sealed class PowerCommandTests
     [InlineData("--models", "eds,tired-light")]
     [InlineData("--n", "5")]
     [InlineData("--fix", "no_such=1")]
+    [InlineData("--free", "omega_m", "--fix", "omega_m=0.3")]
     [InlineData("--kind", "radio", "--observable", "joint")]
     public void BadRequestsExitTwo(params string[] extra)
     {

@@ -75,7 +75,7 @@ public sealed class UserBracesTests : IDisposable
         Assert.True(code == 0, err);
         var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
         var mapping = data.Assumptions.Single(a => a.Topic == "size definition").Statement;
-        Assert.Contains("theta     ← {seed}", mapping, StringComparison.Ordinal);
+        Assert.Contains("theta ← {seed}", mapping, StringComparison.Ordinal); // prose: console padding collapsed (ProseText.Collapse)
         Assert.Contains("given with [columns]", mapping, StringComparison.Ordinal);
     }
 
