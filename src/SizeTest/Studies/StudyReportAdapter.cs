@@ -93,6 +93,9 @@ public static class StudyReportAdapter
             EvolutionTests = Inference.Comparison.EvolutionTestTable.From(result),
             DecisionLines = Inference.Comparison.DecisionSummary.CanTheDataDecide(result),
             SurfaceBrightnessLimit = result.Settings.Selection.SbLimit,
+            Bootstrap = result.Bootstrap,
+            CrossValidation = result.CrossValidation,
+            CrossValidationDifferences = result.CrossValidationDifferences,
             Manifest = manifest,
         };
         return data.WithBins(study.Report.Bins, study.Report.BinResamples, study.Seed);

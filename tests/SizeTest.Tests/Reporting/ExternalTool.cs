@@ -16,6 +16,19 @@ internal static class ExternalTool
         return null;
     }
 
+    /// <summary>pdftotext of <paramref name="pdf"/> (written to a temporary file) with <paramref name="args"/> before the path.</summary>
+    public static string PdfText(byte[] pdf, params string[] args)
+    {
+        var dir = Directory.CreateTempSubdirectory("sizetest-pdftext-");
+        try
+        {
+            var path = Path.Combine(dir.FullName, "r.pdf");
+            File.WriteAllBytes(path, pdf);
+            return Run("pdftotext", [.. args, path, "-"]).Stdout;
+        }
+        finally { dir.Delete(true); }
+    }
+
     public static (int Exit, string Stdout, string Stderr) Run(string tool, IEnumerable<string> args, int timeoutMs = 120_000)
     {
         var psi = new ProcessStartInfo(Find(tool) ?? tool) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };

@@ -12,17 +12,7 @@ public sealed class PdfLayoutTests
 {
     private static readonly Lazy<ReportContent> Content = new(() => ReportContent.From(SyntheticReport.Create()));
 
-    private static string PdfToText(byte[] pdf, params string[] args)
-    {
-        var dir = Directory.CreateTempSubdirectory("sizetest-pdflayout-");
-        try
-        {
-            var path = Path.Combine(dir.FullName, "r.pdf");
-            File.WriteAllBytes(path, pdf);
-            return ExternalTool.Run("pdftotext", [.. args, path, "-"]).Stdout;
-        }
-        finally { dir.Delete(true); }
-    }
+    private static string PdfToText(byte[] pdf, params string[] args) => ExternalTool.PdfText(pdf, args);
 
     [ToolFact("pdftotext")]
     public void AWideVerdictTableWrapsItsTextColumnsAtReadableType()

@@ -74,6 +74,15 @@ public sealed record ReportData
     /// <summary>The selection's surface-brightness limit μ_lim (mag/arcsec²), drawn on the Tolman figure, or null.</summary>
     public double? SurfaceBrightnessLimit { get; init; }
 
+    /// <summary>Bootstrap percentile intervals per model (results.json <c>bootstrap</c>), when the study ran a bootstrap.</summary>
+    public IReadOnlyList<Inference.BootstrapResult> Bootstrap { get; init; } = [];
+
+    /// <summary>Cross-validated log predictive densities per model (results.json <c>cross_validation</c>), when the study ran them.</summary>
+    public IReadOnlyList<Inference.CrossValidationResult> CrossValidation { get; init; } = [];
+
+    /// <summary>Paired cross-validation differences from the best-scoring model (results.json <c>cross_validation_differences</c>).</summary>
+    public IReadOnlyList<Inference.Comparison.CrossValidationDifference> CrossValidationDifferences { get; init; } = [];
+
     /// <summary>The run manifest shown at the end of the report (may be null before it is known).</summary>
     public Pack.RunManifest? Manifest { get; init; }
 }

@@ -120,6 +120,11 @@ public sealed class TablesSection : IHtmlSection
     {
         Html.Table(html, content.Table("parameters"));
         Html.Table(html, content.Table("comparison"));
+        foreach (var t in content.Tables.Where(t => t.Id is Tables.ResamplingTables.BootstrapId or Tables.ResamplingTables.CrossValidationId))
+        {
+            Html.Table(html, t);
+            if (Tables.ResamplingTables.Sentence(content.Data, t.Id) is { } said) html.Append("<p class=\"resampling\" id=\"says-").Append(t.Id).Append("\">").Append(Html.Text(said)).Append("</p>\n");
+        }
     }
 }
 

@@ -123,7 +123,7 @@ internal sealed class PdfPageFlow : IDisposable
     public const float MinTableFontPt = 7.5f;
 
     /// <summary>
-    /// A table with a caption. Column headings break between words onto several lines; the font shrinks (down to
+    /// A table with a caption. Column headings wrap between words inside their columns; the font shrinks (down to
     /// <see cref="MinTableFontPt"/>) until the columns fit the width, and when they still do not, text cells wrap
     /// between words inside their column (numbers never wrap); numeric columns are right-aligned.
     /// </summary>
@@ -143,12 +143,14 @@ internal sealed class PdfPageFlow : IDisposable
         var (size, widths) = TableLayout(t, heads, numeric, Width);
         TableSizes.Add(size);
         float lh = size * 1.5f;
-        int headLines = heads.Max(h => Math.Max(1, h.Length));
         using (var fb = Font(true, size))
         {
+            // Each heading wrapped between words into its column (a column is at least as wide as its longest heading word).
+            var headCells = t.Columns.Select((c, j) => Wrap(string.Join(' ', heads[j]), fb, widths[j] - 0.6f * size)).ToArray();
+            int headLines = headCells.Max(h => h.Count);
             Ensure(lh * (headLines + 1), "continued");
             for (int line = 0; line < headLines; line++)
-                DrawRow(heads.Select(h => line < h.Length ? h[line] : "").ToArray(), widths, numeric, fb, size);
+                DrawRow(headCells.Select(h => line < h.Count ? h[line] : "").ToArray(), widths, numeric, fb, size);
             Canvas.DrawLine(Left, Y, Left + widths.Sum(), Y, ink);
         }
         using var fr = Font(false, size);

@@ -86,7 +86,11 @@ public sealed class PdfReportWriter
 
             // Tables (the summary, evolution-test and reject tables are shown above).
             flow.Heading("Parameters and model comparison");
-            foreach (var t in content.Tables.Where(t => t.Id is "parameters" or "comparison")) flow.Table(t);
+            foreach (var t in content.Tables.Where(t => t.Id is "parameters" or "comparison" or Tables.ResamplingTables.BootstrapId or Tables.ResamplingTables.CrossValidationId))
+            {
+                flow.Table(t);
+                if (Tables.ResamplingTables.Sentence(data, t.Id) is { } said) flow.Paragraph(said, 9.5f);
+            }
 
             // Provenance.
             flow.Heading("Provenance");

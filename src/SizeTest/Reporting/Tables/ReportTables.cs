@@ -161,7 +161,7 @@ public static class ReportTables
     };
 
     /// <summary>All tables in report order.</summary>
-    public static IReadOnlyList<ReportTable> All(ReportData data) => [Summary(data), EvolutionTests(data), Parameters(data), Comparison(data), Rejects(data)];
+    public static IReadOnlyList<ReportTable> All(ReportData data) => [Summary(data), EvolutionTests(data), Parameters(data), Comparison(data), .. ResamplingTables.All(data), Rejects(data)];
 
     /// <summary>Full precision (round-trip), invariant culture, ASCII minus: for CSV.</summary>
     public static string R(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : (double.IsNaN(v) ? "NaN" : (v > 0 ? "Inf" : "-Inf"));

@@ -227,6 +227,24 @@ public sealed class StudyRunTests
     }
 
     [Fact]
+    public void BootstrapAndCrossValidationReachTheReport()
+    {
+        using var fx = new StudyFixture(extra: "");
+        File.WriteAllText(fx.StudyPath, File.ReadAllText(fx.StudyPath).Replace("starts = 1", "starts = 1\nbootstrap = 8\ncv_folds = 3", StringComparison.Ordinal));
+        var (exit, _, stderr) = CliRunner.Run("run", fx.StudyPath, "--out", fx.Out());
+        Assert.True(exit == 0, stderr);
+        var data = SizeTest.Reporting.Data.ReportDataJson.Load(Path.Combine(fx.Out(), "report-data.json"));
+        Assert.Equal(2, data.Bootstrap.Count);            // lcdm and tired-light, 8 resamples each
+        Assert.Equal(8, data.Bootstrap[0].Resamples);
+        Assert.Equal(2, data.CrossValidation.Count);
+        var html = File.ReadAllText(Path.Combine(fx.Out(), "report.html"));
+        Assert.Contains("id=\"table-bootstrap\"", html);
+        Assert.Contains("id=\"table-cross-validation\"", html);
+        Assert.Contains("Cross-validation (3 folds)", html);
+        Assert.True(File.Exists(Path.Combine(fx.Out(), "tables", "bootstrap.csv")));
+    }
+
+    [Fact]
     [Trait("Category", "Slow")]
     public void DemoRunsTheShippedStudy()
     {
