@@ -79,6 +79,16 @@ internal static class FitTables
             o.WriteLine(string.Create(Inv, $"{shown,4}  {SizeTest.Cosmology.WorldModelDisplayNames.For(m.Name),-18} {m.K,2} {m.LogLikelihood,12:0.00} {m.Aic,11:0.00} {m.DeltaAic,7:0.0} {m.Bic,11:0.00} {m.DeltaBic,7:0.0}  {words,-34} {ev,-22} {(m.Converged ? "yes" : "NO")}"));
         }
         o.WriteLine();
+        // Compact radio sources: the size scale in pc, as ℓ_m of ℓ = ℓ_m L^β (1+z)^n (results.json keeps r0_kpc in kpc).
+        if (r.Settings.CompactRadioSources)
+            foreach (var m in r.Models)
+            {
+                var shown = m.Parameters.Select(p => (p, d: ParameterDisplay.For(p.Name, p.Unit, true))).Where(x => x.d.Converts).ToList();
+                if (shown.Count > 0)
+                    o.WriteLine($"{m.Name}: " + string.Join(", ", shown.Select(x => $"{x.d.Symbol} = " + (x.p.Fixed
+                        ? $"{PdgRounding.Plain(x.p.Value * x.d.Scale)} (fixed)"
+                        : PdgRounding.ValueWithInterval(x.p.Value * x.d.Scale, x.p.Lo * x.d.Scale, x.p.Hi * x.d.Scale)) + $" {x.d.Unit}")));
+            }
         foreach (var m in r.Models)
         {
             var special = m.Parameters.Where(p => !p.Fixed && (p.IntervalMethod != IntervalMethods.Hessian || p.AtBound is not null)).ToArray();
