@@ -94,4 +94,24 @@ public sealed partial class FigurePackTests
         }
         finally { root.Delete(true); }
     }
+
+    [Fact]
+    public void AnHtmlOnlyReportWritesNoFigurePack()
+    {
+        // formats = ["html"]: what was asked, the data files and the tables — no figures/ and no figures.zip.
+        var root = Directory.CreateTempSubdirectory("sizetest-htmlonly-");
+        try
+        {
+            var target = Path.Combine(root.FullName, "out");
+            var options = new ReportPackOptions { Png = false, Svg = false, Pdf = false, PdfReport = false, Html = true };
+            var files = new ReportPackWriter(options).Write(target, false, Make());
+            Assert.Contains("report.html", files);
+            Assert.DoesNotContain(FigurePackZip.FileName, files);
+            Assert.False(File.Exists(Path.Combine(target, FigurePackZip.FileName)));
+            Assert.DoesNotContain(files, f => f.StartsWith("figures/", StringComparison.Ordinal));
+            Assert.DoesNotContain("report.pdf", files);
+            Assert.Contains(files, f => f.StartsWith("tables/", StringComparison.Ordinal));
+        }
+        finally { root.Delete(true); }
+    }
 }

@@ -66,8 +66,12 @@ public sealed class ReportPackWriter
             Text($"tables/{t.Id}.csv", TableFormats.ToCsv(t));
             Text($"tables/{t.Id}.tex", TableFormats.ToLatex(t));
         }
-        var packed = written.Where(r => r.StartsWith("figures/", StringComparison.Ordinal) || r.StartsWith("tables/", StringComparison.Ordinal)).Order(StringComparer.Ordinal).ToList();
-        Bytes(FigurePackZip.FileName, FigurePackZip.Build(folder, packed));
+        // The figure pack (figures.zip) only when a figure format was asked: a study that asks for html alone gets no pack.
+        if (Options.Png || Options.Svg || Options.Pdf)
+        {
+            var packed = written.Where(r => r.StartsWith("figures/", StringComparison.Ordinal) || r.StartsWith("tables/", StringComparison.Ordinal)).Order(StringComparer.Ordinal).ToList();
+            Bytes(FigurePackZip.FileName, FigurePackZip.Build(folder, packed));
+        }
         if (content.Data.Manifest is { } m) Text("manifest.json", m.ToJson());
         Text(Data.ReportDataJson.FileName, Data.ReportDataJson.ToJson(content.Data));
         if (Options.Html) Text("report.html", new HtmlReportWriter().Render(content));
