@@ -232,7 +232,12 @@ public static class StudyReportAdapter
                    " with Gaussian intrinsic scatter (scatter_mag); n is the model's bolometric dimming exponent (4 for FLRW, Tolman 1930)" +
                    (study.Nuisance.DimmingExponentOffset != 0 ? string.Create(Inv, $" plus an offset of {study.Nuisance.DimmingExponentOffset:0.##} for the band convention") : ""));
         if (sv?.Groups is { Count: > 0 } groups)
-            ev.Add($"each population of the group column ({string.Join(", ", groups)}) has its own size and surface-brightness parameters; the world model is shared");
+            ev.Add($"each population of the group column ({string.Join(", ", groups)}) has its own " + study.Nuisance.Observable switch
+            {
+                ObservableKind.Size => binned ? "R0 per bin and scatter_dex" : "R0, a and scatter_dex",
+                ObservableKind.SurfaceBrightness => binned ? "μ0 per bin and scatter_mag" : "μ0, b and scatter_mag",
+                _ => binned ? "R0 and μ0 per bin, scatter_dex and scatter_mag" : "R0, a, scatter_dex, μ0, b and scatter_mag",
+            } + (relation.Length > 0 ? " and β" : "") + "; the world model is shared");
         if (sv?.SizeErrors == "gaussian") ev.Add("size errors are Gaussian in θ as quoted (integrated exactly)");
         if (study.Nuisance.SizeSbRelation)
             ev.Add(string.Create(Inv, $"μ is linked to log10 physical size by a free Kormendy-type slope at pivot {study.Nuisance.PivotSizeKpc:0.##} kpc"));

@@ -46,6 +46,15 @@ public sealed class BinnedEvolutionStudyTests(Xunit.Abstractions.ITestOutputHelp
         Assert.Equal(2, figure.Panels.Count);
         Assert.True(File.Exists(Path.Combine(fx.Out(), "figures", BinnedEvolutionFigure.Id + ".svg")));
         Assert.Contains($"id=\"fig-{BinnedEvolutionFigure.Id}\"", File.ReadAllText(Path.Combine(fx.Out(), "report.html")));
+        // The words fit a binned fit: Figure 1 says why no R0 (1+z)^a line is drawn, the evolution tests do not claim "no free
+        // evolution term", and the Tolman figure of a size-only fit does not describe model lines it does not draw.
+        var figures = ReportFigures.Build(outcome.Report);
+        Assert.Contains("No model line is drawn: with binned evolution each model has one R0 per redshift bin (5 bins)", figures.Single(f => f.Id == AngularSizeFigure.Id).Caption);
+        Assert.Contains("fitted to the sizes only", figures.Single(f => f.Id == SurfaceBrightnessFigure.Id).Caption);
+        var html = File.ReadAllText(Path.Combine(fx.Out(), "report.html"));
+        Assert.DoesNotContain("No model had a free evolution term", html);
+        Assert.Contains("With binned evolution (5 redshift bins) no model has an evolution exponent to test against zero", html);
+        Assert.DoesNotContain("its line is the best fit including its fitted size evolution", html);
     }
 
     [Fact]

@@ -111,7 +111,9 @@ public static class AngularSizeFigure
                       (dense ? "Objects are shown as a density (darker = more objects per cell, square-root scale). "
                              : "Grey points are the accepted objects with their 1σ errors. ") +
                       (data.ThetaBins is { Count: > 0 } ? "Black squares are medians in bins holding equal numbers of objects, drawn at each bin's median redshift, with bootstrap 68% intervals; horizontal bars span each bin. " : "") +
-                      "Each model keeps one colour and line style in every report; its line is the best fit including its fitted size evolution, and the dotted line of the same colour is that model with evolution switched off. " +
+                      (data.Models.Any(m => m.Theta is not null)
+                          ? "Each model keeps one colour and line style in every report; its line is the best fit including its fitted size evolution, and the dotted line of the same colour is that model with evolution switched off. "
+                          : FitForm.WhyNoModelLine(data, "R0, a and scatter") ?? "No model line could be drawn from these fits. ") +
                       (reference is not null ? $"The lower panel shows log₁₀ residuals (dex) against the best-ranked model by BIC ({reference.Label}); coloured lines are the other models relative to it." : ""),
             Panels = panels,
             RowHeights = panels.Count == 2 ? [3.0, 1.2] : [1.0],

@@ -84,10 +84,14 @@ public static class SurfaceBrightnessFigure
                       (dense ? "Objects are shown as a density. " : "Grey points are the objects with 1σ errors. ") +
                       (bins is { Count: > 0 } ? "Black squares are binned means with bootstrap 68% intervals. " : "") +
                       (mu0 is not null ? $"The black dashed line is bolometric (1+z)⁴ dimming expected in an expanding universe and the grey dotted line (1+z)¹ dimming of a static universe, both drawn {anchor}; neither includes evolution or K-corrections beyond those applied to the data. " : "") +
-                      (selected
+                      (!data.Models.Any(m => m.Mu is not null)
+                          ? !data.Models.Any(m => m.Fit.Parameters.Any(p => Inference.Comparison.EvolutionTestTable.BaseName(p.Name).StartsWith(Inference.NuisanceParameters.Names.Mu0, StringComparison.Ordinal)))
+                              ? "No model line is drawn: the models were fitted to the sizes only, so none predicts μ; the points show the catalogue's surface brightness. "
+                              : FitForm.WhyNoModelLine(data, "μ0, b and scatter_mag") ?? "No model line could be drawn from these fits. "
+                      : selected
                           ? "Each model's line is the expected mean μ of the objects that pass the selection cuts (a Gaussian truncated at the SB limit), which is what the binned means estimate; the dotted line of the same colour is the untruncated relation μ0 + 2.5 (n − b) log10(1+z). The dashed orange line is the SB limit. "
                           : "Each model's line is its best fit with its fitted luminosity evolution. ") +
-                      "A model listed as coinciding with another lies under it (with sb_evolution free every model fits μ equally well).",
+                      (data.Models.Any(m => m.Mu is not null) ? "A model listed as coinciding with another lies under it (with sb_evolution free every model fits μ equally well)." : ""),
             Panels = [new PanelSpec { X = new AxisSpec("1 + z", AxisSpec.Dimensionless) { Log = true }, Y = new AxisSpec("surface brightness μ", "mag/arcsec²"), Series = series, Legend = LegendPlace.Below }],
         };
     }

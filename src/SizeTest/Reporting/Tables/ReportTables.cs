@@ -86,7 +86,9 @@ public static class ReportTables
                       (sources.Count > 0 ? " — " + string.Join("; ", sources) : "") + ".",
             MachineColumns = ["model", "parameter", "value", "lo_68", "hi_68", "lrt_p_value", "need", "expected_lo", "expected_hi", "plausibility"],
             MachineRows = raw,
-            EmptyText = "No model had a free evolution term, so no evolution test was run.",
+            EmptyText = FitForm.Bins(data) is > 0 and var bins
+                ? $"With binned evolution ({bins} redshift bins) no model has an evolution exponent to test against zero: the size each bin requires is measured bin by bin (the binned-evolution figure), and each model's power-law counterpart is stated in the notes."
+                : "No model had a free evolution term, so no evolution test was run.",
         };
     }
 
