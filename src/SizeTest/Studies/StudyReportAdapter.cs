@@ -73,11 +73,13 @@ public static class StudyReportAdapter
             },
             Data = new DataSummary(result.RowsRead, result.Accepted, result.Rejected, reasons)
             {
-                SizeDefinition = SizeDefinitions.Format(sample.SizeDefinition) switch
-                {
-                    "effective" => "effective (half-light) radius",
-                    var s => s,
-                },
+                CompactRadioSources = result.Settings.CompactRadioSources,
+                SizeDefinition = result.Settings.CompactRadioSources ? RadioSizeWords
+                    : SizeDefinitions.Format(sample.SizeDefinition) switch
+                    {
+                        "effective" => "effective (half-light) radius",
+                        var s => s,
+                    },
                 Band = sample.Band is { Length: > 0 } b ? string.Join(", ", b.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Take(6)) : "",
             },
             Objects = points,
@@ -100,6 +102,9 @@ public static class StudyReportAdapter
         };
         return data.WithBins(study.Report.Bins, study.Report.BinResamples, study.Seed);
     }
+
+    /// <summary>The size definition of a compact-radio-source sample (it carries radio flux densities).</summary>
+    public const string RadioSizeWords = "angular size of the compact radio structure (core), modelled as a linear size ℓ in pc";
 
     private static string Describe(string parameter) => (Inference.Comparison.EvolutionTestTable.BaseName(parameter) switch
     {
@@ -223,7 +228,12 @@ public static class StudyReportAdapter
             _ => "",
         };
         bool binned = sv?.EvolutionBinEdges is not null;
-        if (study.Nuisance.Observable != ObservableKind.SurfaceBrightness)
+        bool radio = result.Settings.CompactRadioSources;
+        if (radio && study.Nuisance.Observable == ObservableKind.Size)
+            ev.Add((binned ? $"linear sizes follow ℓ = ℓ_m,k{relation} with one ℓ_m per redshift bin ({sv!.EvolutionBinEdges!.Count - 1} bins) instead of a power law"
+                           : $"linear sizes of the compact radio structure follow ℓ(z) = ℓ_m{relation} (1+z)^n (Gurvits, Kellermann & Frey 1999; ℓ_m is r0_kpc, shown in pc, and n is size_evolution)")
+                   + relationWords + ", with log-normal intrinsic scatter (scatter_dex)");
+        else if (study.Nuisance.Observable != ObservableKind.SurfaceBrightness)
             ev.Add((binned ? $"physical sizes follow R = R0,k{relation} with one R0 per redshift bin ({sv!.EvolutionBinEdges!.Count - 1} bins) instead of a power law"
                            : $"physical sizes follow R(z) = R0{relation} (1+z)^a") + relationWords + ", with log-normal intrinsic scatter (scatter_dex)");
         if (study.Nuisance.Observable != ObservableKind.Size)
@@ -268,7 +278,9 @@ public static class StudyReportAdapter
             : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));
         if (inputs.Load.Mapping.Warnings.Count > 0)
             list.Add(new Assumption("units", string.Join(" ", inputs.Load.Mapping.Warnings.Select(w => StudySettingKeys.Text(w).TrimEnd('.') + "."))));
-        list.Add(new Assumption("size definition", $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6).Select(StudySettingKeys.Text))}."));
+        list.Add(new Assumption("size definition", (radio
+            ? "angular sizes are those of the compact radio structure (core) as catalogued, not galaxy effective radii; the model's size is its linear size ℓ in pc"
+            : $"angular sizes are {SizeDefinitions.Format(inputs.Load.Rows.SizeDefinition)} sizes as catalogued") + $"; the mapping used: {string.Join("; ", inputs.Load.DetectionReport.Take(6).Select(StudySettingKeys.Text))}."));
         // Console text pads its columns ("theta     ← theta"); an assumption is prose: one space between words.
         return list.Select(a => a with { Statement = Foundation.Text.ProseText.Collapse(a.Statement) }).ToList();
     }

@@ -10,6 +10,13 @@ public sealed record DataSummary(long RowsRead, long Accepted, long Rejected, IR
     /// <summary>Size definition in words (e.g. "effective (half-light) radius").</summary>
     public string SizeDefinition { get; init; } = "";
 
+    /// <summary>
+    /// The objects are compact radio sources (results.json <c>settings.compact_radio_sources</c>): sizes are the angular sizes of
+    /// the compact structure and the model's size is a linear size ℓ = ℓ_m (1+z)^n, reported in pc (ℓ_m is the fit's
+    /// <c>r0_kpc</c>; Gurvits, Kellermann &amp; Frey 1999).
+    /// </summary>
+    public bool CompactRadioSources { get; init; }
+
     /// <summary>Photometric band(s), or empty.</summary>
     public string Band { get; init; } = "";
 

@@ -108,12 +108,15 @@ public static class ReportTables
         var rows = new List<IReadOnlyList<string>>();
         var raw = new List<IReadOnlyList<string>>();
         foreach (var m in data.Models)
-            foreach (var p in m.Fit.Parameters)
+            foreach (var p0 in m.Fit.Parameters)
             {
-                string status = p.Fixed ? "fixed" : p.AtBound is { } b ? $"free, at its {b} bound" : "free";
-                rows.Add([m.Label, p.Name, p.Fixed ? PdgRounding.Plain(p.Value) : PdgRounding.ValueWithInterval(p.Value, p.Lo, p.Hi),
-                    p.Fixed ? "" : PdgRounding.IntervalBounds(p.Value, p.Lo, p.Hi),
-                    p.Fixed ? "" : Inference.IntervalMethods.Words(p.IntervalMethod), status, p.Unit]);
+                // Compact radio sources: the size scale r0_kpc is ℓ_m, shown in pc (the CSV keeps r0_kpc in kpc as results.json).
+                var shown = data.Data.CompactRadioSources ? RadioLinearSize.InPc(p0) : p0;
+                string status = shown.Fixed ? "fixed" : shown.AtBound is { } b ? $"free, at its {b} bound" : "free";
+                rows.Add([m.Label, shown.Name, shown.Fixed ? PdgRounding.Plain(shown.Value) : PdgRounding.ValueWithInterval(shown.Value, shown.Lo, shown.Hi),
+                    shown.Fixed ? "" : PdgRounding.IntervalBounds(shown.Value, shown.Lo, shown.Hi),
+                    shown.Fixed ? "" : Inference.IntervalMethods.Words(shown.IntervalMethod), status, shown.Unit]);
+                var p = p0;
                 raw.Add([m.Fit.Name, p.Name, R(p.Value), p.Fixed ? "" : R(p.Lo), p.Fixed ? "" : R(p.Hi), p.Fixed ? "" : p.IntervalMethod,
                     p.Fixed ? "fixed" : "free", p.AtBound ?? "", p.Unit]);
             }
