@@ -131,6 +131,20 @@ public static class FitRun
             notes.Add("the bootstrap is a Poisson bootstrap: each replicate weights every row by a Poisson(1) count drawn from (seed, replicate, row), so it does not depend on the number of ranks");
         if (first.Observable != ObservableKind.SurfaceBrightness && obs.SizeDefinition.Kind == Catalogues.SizeKind.Isophotal)
             notes.Insert(Math.Min(2, notes.Count), "sizes are isophotal: the model's ln θ adds ln(r_iso/R_e) for a Sérsic profile at each model's mean observed SB at R_e (mu0 read as the SB at R_e); a parameter vector under which an object's isophote is not reached has ln L = −∞");
+        var settings = new FitSettings(
+            first.Observable,
+            first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
+            request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
+            request.ProfileParameter, request.Expected, request.Seed, Survey.SurveySettings.From(first.SurveyTerms), obs.Survey.CompactRadioSources);
+        // Models that cannot be ranked against each other (Comparison.StudyVerdict.NotComparable: a luminosity window in each model's own
+        // D_L, binned evolution) get no rank, no Akaike weight and no Bayes factors in the machine outputs either, so results.json and
+        // results.csv cannot rank what the verdict refuses to (ΔAIC/ΔBIC stay, as differences of the criteria).
+        bool comparable = Comparison.StudyVerdict.NotComparable(settings) is null;
+        if (!comparable)
+        {
+            ranked = ranked.Select(m => m with { Rank = 0, Tied = false, AkaikeWeight = double.NaN }).ToList();
+            notes.Insert(0, "the models are not ranked (see the verdict): no rank, Akaike weight or Bayes factor is given; ΔAIC and ΔBIC are differences of criteria over different data or bin-dependent fits, not evidence");
+        }
         return new FitResult
         {
             Source = request.Source,
@@ -138,13 +152,9 @@ public static class FitRun
             Accepted = total,
             Rejected = request.Rejected,
             Seed = request.Seed,
-            Settings = new FitSettings(
-                first.Observable,
-                first.Cuts, first.SizeSbRelation, first.PivotSizeKpc, first.DimmingExponentOffset, first.NodesFor(total),
-                request.Starts, request.Bootstrap, request.CrossValidationFolds, request.Sampler, request.Walkers, request.Steps, request.LivePoints,
-                request.ProfileParameter, request.Expected, request.Seed, Survey.SurveySettings.From(first.SurveyTerms), obs.Survey.CompactRadioSources),
+            Settings = settings,
             Models = ranked,
-            BayesFactors = ModelComparison.BayesFactors(ranked),
+            BayesFactors = comparable ? ModelComparison.BayesFactors(ranked) : [],
             LikelihoodRatioTests = lrts,
             RequiredEvolution = required,
             Bootstrap = boots,

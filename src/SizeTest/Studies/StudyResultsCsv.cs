@@ -17,10 +17,13 @@ public static class StudyResultsCsv
         ArgumentNullException.ThrowIfNull(result);
         var sb = new StringBuilder();
         sb.Append("rank,model,parameter,value,lo,hi,fixed,unit,log_likelihood,k,n,aic,aicc,bic,delta_aic,delta_bic,akaike_weight,converged\n");
-        int rank = 0;
+        int position = 0;
+        bool comparable = result.Verdict.Comparable;
         foreach (var m in result.Models)
         {
-            rank++;
+            position++;
+            // The models' own rank (tied models share it); empty when the verdict says they cannot be ranked.
+            string rank = !comparable ? "" : (m.Rank > 0 ? m.Rank : position).ToString(Inv);
             foreach (var p in m.Parameters)
                 sb.Append(Inv, $"{rank},{m.Name},{p.Name},{R(p.Value)},{R(p.Lo)},{R(p.Hi)},{(p.Fixed ? "true" : "false")},{p.Unit},{R(m.LogLikelihood)},{m.K},{m.N},{R(m.Aic)},{R(m.Aicc)},{R(m.Bic)},{R(m.DeltaAic)},{R(m.DeltaBic)},{R(m.AkaikeWeight)},{(m.Converged ? "true" : "false")}\n");
         }

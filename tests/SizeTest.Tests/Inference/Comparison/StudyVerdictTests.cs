@@ -191,6 +191,22 @@ public sealed class StudyVerdictTests
     }
 
     [Fact]
+    public void BinnedEvolutionFitsCarryNoRankWeightOrBayesFactor()
+    {
+        // A real binned fit of two models: the verdict withholds the ranking, and results.json / results.csv must not rank them
+        // either (before: rank 1/2, Akaike weight 0.9994 and a "very strong" Bayes factor for a wrong model; review of 4 Dec 2026).
+        var obs = MockCatalogue.Draw(TestWorldModels.FlatLcdm.Create(Defaults), 400, new MockCatalogue.Truth(), seed: 21, zMin: 0.1, zMax: 3);
+        var survey = new SizeTest.Inference.Survey.SurveyModel(EvolutionBinEdges: SizeTest.Inference.Survey.SurveyModel.EqualCountEdges(obs.Z, 3));
+        var nuisance = new NuisanceModel(ObservableKind.Size, Survey: survey);
+        var r = Fit(obs, Hypothesis.Create(TestWorldModels.FlatLcdm, nuisance).WithFixed("omega_m", 0.3), Hypothesis.Create(TestWorldModels.StaticLinear, nuisance));
+        Assert.False(r.Verdict.Comparable);
+        Assert.All(r.Models, m => { Assert.Equal(0, m.Rank); Assert.True(double.IsNaN(m.AkaikeWeight)); });
+        Assert.Empty(r.BayesFactors);
+        var csv = SizeTest.Studies.StudyResultsCsv.Write(r).Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.All(csv.Skip(1), line => Assert.StartsWith(",", line, StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void TheVerdictTiesExactlyWhenTheTableTies()
     {
         // ln L 0.005 apart with equal k: AIC and BIC differ by 0.01 ≤ ModelComparison.TieTolerance (0.02): the table ranks them "=1",
