@@ -24,6 +24,7 @@ public static class FitRun
         var obs = backend.Local;
         int total = backend.TotalObjects;
         SampleSizeCheck.RefuseUnidentifiable(request.Hypotheses, total);
+        SampleSizeCheck.RefuseSmallGroups(request.Hypotheses, backend.Concurrent ? obs.Survey.Group : null);
         var extraNotes = new List<string>();
         if (SampleSizeCheck.Warning(request.Hypotheses, total) is { } small) extraNotes.Add(small);
         if (backend.TotalWeight != total)

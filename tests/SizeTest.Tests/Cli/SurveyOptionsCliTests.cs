@@ -146,6 +146,23 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void APopulationWithNoMoreObjectsThanItsParametersIsRefused()
+    {
+        // One object relabelled 'solo': R0, a and scatter of its own (3 parameters) cannot be fitted to 1 object; before, the whole
+        // fit failed (exit 1) and printed "a[solo] = −2 +8 −4" (review, 4 Dec 2026). Now exit 2 naming the group and the counts.
+        var mock = Simulate("--population", "early:0.5:4:-1.4", "--population", "late:0.5:6:-0.8");
+        var lines = File.ReadAllLines(mock);
+        int gi = Array.IndexOf(lines[0].Split(','), "group");
+        var cells = lines[1].Split(',');
+        cells[gi] = "solo";
+        lines[1] = string.Join(",", cells);
+        File.WriteAllLines(mock, lines);
+        var (code, _, err, _) = Fit(mock, "--group", "group");
+        Assert.Equal(2, code);
+        Assert.Contains("population 'solo' of the --group column has 1 object but 3 parameters of its own", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void GaussianSizeErrorsAndTheLargeErrorWarning()
     {
         var mock = Simulate("--size-errors", "gaussian", "--size-err-frac", "0.05", "--size-err-frac-zmax", "0.5");
