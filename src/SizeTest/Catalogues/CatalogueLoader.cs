@@ -44,9 +44,18 @@ public static partial class CatalogueLoader
         var source = reader.SourceName;
         var mapping = MappingResolver.Resolve(reader.Columns, options.Mapping, source);
         if (!mapping.Roles.ContainsKey(ColumnRole.Z))
+        {
+            // A column that would be the redshift but is taken by another role (e.g. --group z): say so, not "none found".
+            var taken = mapping.Roles.Values.FirstOrDefault(b => b.Role != ColumnRole.Z && b.ColumnName.Length > 0 &&
+                (b.ColumnName.Equals("z", StringComparison.OrdinalIgnoreCase) || b.ColumnName.Equals("redshift", StringComparison.OrdinalIgnoreCase)));
+            if (taken is not null)
+                throw SettingProblem.Input(
+                    $"column '{taken.ColumnName}' is mapped to {taken.Role.Name()}, so it cannot also be the redshift, and no other redshift column was found; a column takes one role: map the redshift with {{col}} z=NAME or choose another column for {taken.Role.Name()}",
+                    source);
             throw SettingProblem.Input(
                 $"no redshift column found (none is named z/redshift/zspec… or has UCD src.redshift); map one with {{col}} z=NAME — the columns are {string.Join(", ", reader.Columns.Take(30).Select(c => $"'{c.Name}'"))}",
                 source);
+        }
 
         var bindings = Order.Where(mapping.Roles.ContainsKey).Select(r => mapping.Roles[r]).ToArray();
         var requests = bindings.Select(b => new ColumnRequest(b.ColumnIndex, b.Role.IsText()))

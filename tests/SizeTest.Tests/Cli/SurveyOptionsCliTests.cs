@@ -211,6 +211,8 @@ public sealed class SurveyOptionsCliTests : IDisposable
         Assert.Equal(2, Fit(mock, "--size-luminosity", "--size-mass").Code);
         Assert.Contains("log_mass", Fit(mock, "--size-mass").Err, StringComparison.Ordinal);
         Assert.Contains("group", Fit(mock, "--group", "nosuch").Err, StringComparison.Ordinal);
+        // The redshift column named as the group column: one role per column, said as such (was "no redshift column found … the columns are 'z', …").
+        Assert.Contains("column 'z' is mapped to group, so it cannot also be the redshift", Fit(mock, "--group", "z").Err, StringComparison.Ordinal);
         Assert.Contains("--observable size or joint", Fit(mock, "--size-luminosity", "--observable", "sb").Err, StringComparison.Ordinal);
         Assert.Contains("--size-luminosity", Fit(mock, "--frequency-ghz", "5").Err, StringComparison.Ordinal);
     }
