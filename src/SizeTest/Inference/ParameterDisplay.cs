@@ -11,6 +11,12 @@ namespace SizeTest.Inference;
 /// <param name="Unit">The displayed unit ("" when dimensionless).</param>
 public sealed record ParameterDisplay(string Symbol, double Scale, string Unit)
 {
+    /// <summary>The symbol of the compact radio sources' characteristic linear size.</summary>
+    public const string LinearSizeSymbol = "ℓ_m";
+
+    /// <summary>pc per kpc (1 kpc = 1000 pc by definition): the factor from the stored r0_kpc to ℓ_m in pc.</summary>
+    public const double PcPerKpc = 1000;
+
     /// <summary>The display of parameter <paramref name="name"/> with stored unit <paramref name="unit"/>; <paramref name="compactRadioSources"/>:
     /// the sample is of compact radio sources (<see cref="FitSettings.CompactRadioSources"/>).</summary>
     public static ParameterDisplay For(string name, string unit, bool compactRadioSources)
@@ -21,9 +27,25 @@ public sealed record ParameterDisplay(string Symbol, double Scale, string Unit)
         {
             string bin = baseName[NuisanceParameters.Names.R0Kpc.Length..].TrimStart('_');
             string group = Comparison.EvolutionTestTable.GroupOf(name) is { } g ? $"[{g}]" : "";
-            return new ParameterDisplay($"ℓ_m{(bin.Length > 0 ? "," + bin : "")}{group}", 1000, "pc");
+            return new ParameterDisplay($"{LinearSizeSymbol}{(bin.Length > 0 ? "," + bin : "")}{group}", PcPerKpc, "pc");
         }
         return new ParameterDisplay(name, 1, unit ?? "");
+    }
+
+    /// <summary>
+    /// <paramref name="p"/> in its displayed unit (value, interval and its pieces × <see cref="Scale"/>), named
+    /// "ℓ_m (r0_kpc)" (the stored name, with its group or bin suffix, in brackets) when the display converts; otherwise unchanged.
+    /// </summary>
+    public static ParameterEstimate Shown(ParameterEstimate p, bool compactRadioSources)
+    {
+        ArgumentNullException.ThrowIfNull(p);
+        var d = For(p.Name, p.Unit, compactRadioSources);
+        if (!d.Converts) return p;
+        return p with
+        {
+            Name = $"{LinearSizeSymbol} ({p.Name})", Value = p.Value * d.Scale, Lo = p.Lo * d.Scale, Hi = p.Hi * d.Scale, Unit = d.Unit,
+            Regions = [.. p.Regions.Select(r => new IntervalPiece(r.Lo * d.Scale, r.Hi * d.Scale))],
+        };
     }
 
     /// <summary>Whether the display differs from the stored value (a symbol, scale or unit of its own).</summary>

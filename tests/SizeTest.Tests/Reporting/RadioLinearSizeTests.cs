@@ -27,7 +27,27 @@ public sealed class RadioLinearSizeTests
         Assert.Equal("0.012", t.MachineRows!.Single(r => r[1] == "r0_kpc")[2]);
         Assert.Equal("kpc", t.MachineRows!.Single(r => r[1] == "r0_kpc")[8]);
         Assert.Contains(ReportTables.Parameters(data).Rows, r => r[1] == "r0_kpc" && r[6] == "kpc"); // galaxies: unchanged
-        Assert.True(RadioLinearSize.IsSizeScale("r0_kpc_bin2@early"));
-        Assert.False(RadioLinearSize.IsSizeScale("scatter_dex"));
+    }
+
+    [Fact]
+    public void TheReportAndTheCliShareOneConversion()
+    {
+        // The report's parameter table and the CLI's ℓ_m line read the same ParameterDisplay: 1 kpc = 1000 pc, for the plain
+        // size scale, a bin's and a population's; other parameters and galaxy samples are left as stored.
+        var bin = new ParameterEstimate("r0_kpc_bin2@early", 0.0100, 0.0090, 0.0110, false, "kpc")
+        {
+            Regions = [new IntervalPiece(0.0090, 0.0095), new IntervalPiece(0.0105, 0.0110)],
+        };
+        var shown = ParameterDisplay.Shown(bin, compactRadioSources: true);
+        var cli = ParameterDisplay.For(bin.Name, bin.Unit, compactRadioSources: true);
+        Assert.Equal("ℓ_m (r0_kpc_bin2@early)", shown.Name);
+        Assert.Equal("ℓ_m,bin2[early]", cli.Symbol);
+        Assert.Equal(bin.Value * cli.Scale, shown.Value);
+        Assert.Equal(10.0, shown.Value, 12); // 0.0100 kpc = 10 pc, to rounding (relative 1e-12)
+        Assert.Equal([9.0, 9.5, 10.5, 11.0], shown.Regions.SelectMany(r => new[] { r.Lo, r.Hi }).Select(x => Math.Round(x, 9)));
+        Assert.Equal(cli.Unit, shown.Unit);
+        var scatter = new ParameterEstimate("scatter_dex", 0.1, 0.09, 0.11, false, "dex");
+        Assert.Same(scatter, ParameterDisplay.Shown(scatter, compactRadioSources: true));
+        Assert.Same(bin, ParameterDisplay.Shown(bin, compactRadioSources: false));
     }
 }

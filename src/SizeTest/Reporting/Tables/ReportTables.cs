@@ -110,8 +110,8 @@ public static class ReportTables
         foreach (var m in data.Models)
             foreach (var p0 in m.Fit.Parameters)
             {
-                // Compact radio sources: the size scale r0_kpc is ℓ_m, shown in pc (the CSV keeps r0_kpc in kpc as results.json).
-                var shown = data.Data.CompactRadioSources ? RadioLinearSize.InPc(p0) : p0;
+                // Compact radio sources: the size scale r0_kpc is ℓ_m, shown in pc by ParameterDisplay, the conversion the CLI uses too (the CSV keeps r0_kpc in kpc as results.json).
+                var shown = ParameterDisplay.Shown(p0, data.Data.CompactRadioSources);
                 string status = shown.Fixed ? "fixed" : shown.AtBound is { } b ? $"free, at its {b} bound" : "free";
                 rows.Add([m.Label, shown.Name, shown.Fixed ? PdgRounding.Plain(shown.Value) : PdgRounding.ValueWithInterval(shown.Value, shown.Lo, shown.Hi),
                     shown.Fixed ? "" : PdgRounding.IntervalBounds(shown.Value, shown.Lo, shown.Hi),
