@@ -6,7 +6,8 @@ namespace SizeTest.Catalogues;
 /// <summary>
 /// Turns a <see cref="ColumnMapping"/> and a reader's columns into a <see cref="ResolvedMapping"/>:
 /// explicit assignments first, then (for the rest) columns named by role, IVOA UCDs, common
-/// names, and error companions (<c>e_X</c>, <c>X_err</c>, <c>stat.error;…</c>). Every choice carries its reason.
+/// names, and error companions (<c>e_X</c>, <c>X_err</c>, <c>MAGERR_AUTO</c> for <c>MAG_AUTO</c>, <c>stat.error;…</c>). Every choice
+/// carries its reason.
 /// </summary>
 public static class MappingResolver
 {
@@ -15,7 +16,9 @@ public static class MappingResolver
         [ColumnRole.Z] = ["redshift", "zspec", "zphot", "zbest", "zsp", "zph", "specz", "photz", "photoz", "zhelio", "zcmb", "zgal", "zpeak", "zobs"],
         [ColumnRole.Theta] = ["re", "reff", "rhalf", "r50", "rh", "hlr", "halflightradius", "thetaarcsec", "size", "radius", "angsize", "angularsize", "fwhm", "rpetro", "petrorad", "petror50", "theta50", "thetae"],
         [ColumnRole.Mu] = ["sb", "mue", "mueff", "meansb", "surfacebrightness", "mu0", "sbe", "avgsb", "mumean", "sbmean"],
-        [ColumnRole.Mag] = ["magnitude", "m", "magauto", "magtot", "mtot", "totalmag", "petromag", "modelmag", "cmodelmag", "magbest"],
+        // Total magnitudes only: MAG_AUTO, MAG_PETRO, MAG_BEST and MAG_MODEL of source-extraction catalogues, not their isophotal
+        // (MAG_ISO, MAG_ISOCOR) or fixed-aperture (MAG_APER) magnitudes, which miss light: those are mapped by hand.
+        [ColumnRole.Mag] = ["magnitude", "m", "magauto", "magtot", "mtot", "totalmag", "petromag", "modelmag", "cmodelmag", "magbest", "magpetro", "magmodel"],
         [ColumnRole.Id] = ["objid", "objectid", "sourceid", "name", "source", "obj", "galaxy", "seq", "number", "srcid", "galid"],
         [ColumnRole.Band] = ["filter", "passband", "bandpass", "filtername"],
         [ColumnRole.AbsMag] = ["absmag", "mabs", "absolutemag", "absolutemagnitude", "magabs"],
@@ -253,6 +256,7 @@ public static class MappingResolver
         string roleNorm = Norm(role.Name());
         string? v = value is null ? null : Norm(value.ColumnName);
         var candidates = new List<(int Index, int Tier, string Reason)>();
+        var inner = value is null ? [] : InnerErrorNames(value.ColumnName);
         for (int i = 0; i < columns.Count; i++)
         {
             if (used.Contains(i) || !Eligible(role, columns[i])) continue;
@@ -261,12 +265,16 @@ public static class MappingResolver
             var words = UcdWords(c);
             if (n == roleNorm) { candidates.Add((i, 0, "named by role")); continue; }
             if (value is null) continue;
-            if (words.Length > 0 && words[0] == "stat.error" && UcdMatchesValue(valueRole, words.Skip(1)))
-                candidates.Add((i, 1, SettingProblem.Text($"UCD {c.Ucd}")));
-            else if (v is not null && IsCompanionName(n, v))
-                candidates.Add((i, 2, SettingProblem.Text($"error companion of '{value.ColumnName}' by name")));
+            // A name that pairs with this value column is the most specific sign; a UCD alone fits the error of any value of
+            // its kind (a catalogue with MAG_ISO and MAG_AUTO has two stat.error;phot.mag columns).
+            bool byName = IsCompanionName(n, v!) || inner.Contains(n);
+            bool byUcd = words.Length > 0 && words[0] == "stat.error" && UcdMatchesValue(valueRole, words.Skip(1));
+            string companion = SettingProblem.Text($"error companion of '{value.ColumnName}' by name");
+            if (byName && byUcd) candidates.Add((i, 1, SettingProblem.Text($"UCD {c.Ucd}, ") + companion));
+            else if (byName) candidates.Add((i, 2, companion));
+            else if (byUcd) candidates.Add((i, 3, SettingProblem.Text($"UCD {c.Ucd}")));
             else if (words.Length > 0 && words[0] == "stat.error" && i == value.ColumnIndex + 1)
-                candidates.Add((i, 3, SettingProblem.Text($"UCD {c.Ucd} next to '{value.ColumnName}'")));
+                candidates.Add((i, 4, SettingProblem.Text($"UCD {c.Ucd} next to '{value.ColumnName}'")));
         }
         foreach (var cand in candidates.OrderBy(c => c.Tier).ThenBy(c => c.Index))
         {
@@ -276,6 +284,31 @@ public static class MappingResolver
             used.Add(cand.Index);
             return;
         }
+    }
+
+    /// <summary>
+    /// The error names made by putting <c>err</c> inside the value's name, at a boundary between its words (split at
+    /// non-alphanumerics and lower-to-upper case changes), normalised like <see cref="Norm"/>: <c>MAG_AUTO</c> → <c>magerrauto</c>
+    /// (<c>MAGERR_AUTO</c>, the MAGERR_/FLUXERR_ prefixes of source-extraction catalogues), <c>petroMag_r</c> → <c>petromagerrr</c>
+    /// (<c>petroMagErr_r</c>), <c>SPHEROID_REFF_WORLD</c> → <c>spheroidrefferrworld</c>. Names with <c>err</c> at either end are
+    /// <see cref="IsCompanionName"/>'s.
+    /// </summary>
+    internal static string[] InnerErrorNames(string valueName)
+    {
+        var words = new List<string>();
+        var word = new System.Text.StringBuilder();
+        char previous = ' ';
+        foreach (char ch in valueName)
+        {
+            bool boundary = !char.IsLetterOrDigit(ch) || (char.IsUpper(ch) && char.IsLower(previous));
+            if (boundary && word.Length > 0) { words.Add(word.ToString()); word.Clear(); }
+            if (char.IsLetterOrDigit(ch)) word.Append(char.ToLowerInvariant(ch));
+            previous = ch;
+        }
+        if (word.Length > 0) words.Add(word.ToString());
+        var names = new string[Math.Max(0, words.Count - 1)];
+        for (int k = 1; k < words.Count; k++) names[k - 1] = string.Concat(words.Take(k)) + "err" + string.Concat(words.Skip(k));
+        return names;
     }
 
     private static bool IsCompanionName(string n, string v) =>
