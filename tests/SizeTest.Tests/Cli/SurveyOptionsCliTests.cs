@@ -98,12 +98,13 @@ public sealed class SurveyOptionsCliTests : IDisposable
         Assert.True(code2 == 0, err2);
         var json2 = File.ReadAllText(Path.Combine(dir2, "results.json"));
         Assert.Contains("-point Gauss", json2, StringComparison.Ordinal);
-        // 800 objects, σ_z = 0.03(1+z): the linearised a lies within a tenth of the quadrature's 68% half-width (the 2000-object
-        // comparison is PhotometricRedshiftTests.LinearisedAndQuadratureMarginalsAgreeOnAPhotometricMock).
+        // 800 objects, σ_z = 0.03(1+z): the linearised a lies within a fifth of the quadrature's 68% half-width (the 2000-object
+        // comparison, measured 0.107, is PhotometricRedshiftTests.LinearisedAndQuadratureMarginalsAgreeOnAPhotometricMock).
         var (lin, quad) = (Model(json, "lcdm"), Model(json2, "lcdm"));
         var pq = quad.GetProperty("parameters").GetProperty("size_evolution");
         double half = 0.5 * (pq.GetProperty("hi").GetDouble() - pq.GetProperty("lo").GetDouble());
-        Assert.True(Math.Abs(Param(lin, "size_evolution") - Param(quad, "size_evolution")) <= 0.1 * half);
+        double apart = Math.Abs(Param(lin, "size_evolution") - Param(quad, "size_evolution")) / half;
+        Assert.True(apart <= 0.2, $"linearised and quadrature a {apart:F3} half-widths apart");
         // sb and joint: the linearised marginal by default too, the quadrature on request; b agrees within a fifth of the quadrature's
         // half-width (800 objects; the 4000-object comparison is SurveyJointRecoveryTests.LinearisedAndQuadratureMarginalsAgree).
         var (code3, _, err3, dir3) = Fit(mock, "--observable", "joint", "--z-prior", "0.3:2");
@@ -257,7 +258,7 @@ public sealed class SurveyOptionsCliTests : IDisposable
         var rejects = File.ReadAllLines(Path.Combine(dir, "rejects.csv"));
         Assert.Equal(2, rejects.Length);
         Assert.StartsWith("6,z,3.5,outside selection: z_prior,", rejects[1], StringComparison.Ordinal);
-        Assert.Contains("1 object(s) have no Gauss–Hermite node inside the prior", o, StringComparison.Ordinal);
+        Assert.Contains("the prior cuts the redshift error distribution of", o, StringComparison.Ordinal);
     }
 
     [Fact]

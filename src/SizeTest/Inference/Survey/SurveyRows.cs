@@ -15,13 +15,17 @@ namespace SizeTest.Inference.Survey;
 /// <para>Luminosity window: M_i = M_pivot − (C_i + 2 ln D_L(z_i)) / (0.4 ln 10), evaluated once with the world model's start (or fixed)
 /// parameters; an object outside gets weight 0.</para>
 /// <para>Photometric redshifts: p_i = ∫ p_i(· | z) N(z; z_obs, σ_z²) π(z) dz with π flat on [z_lo, z_hi], by Gauss–Hermite with J nodes
-/// z_ij = z_obs + √2 σ_z x_j (Abramowitz &amp; Stegun 1964, 25.4.46); nodes outside the prior are dropped and the rest renormalised
-/// (log weights, −∞ for a dropped node). An object with no node inside the prior is integrated under its truncated normal by
-/// J-point Gauss–Legendre (<see cref="TruncatedRedshiftNodes"/>). Node i·J + j belongs to object i.</para>
+/// z_ij = z_obs + √2 σ_z x_j (Abramowitz &amp; Stegun 1964, 25.4.46) when all J nodes lie inside the prior. An object whose normal the
+/// prior cuts (a node outside it, or none inside) is integrated under its truncated normal on the prior by J-point Gauss–Legendre
+/// (<see cref="TruncatedRedshiftNodes"/>): dropping the outside Hermite nodes and renormalising was biased (400 objects, prior
+/// [1, 2.5] on z_obs in 0.5–3, σ_z = 0.08(1+z): a = −1.539 with 40 nodes against −1.528 exact). Node i·J + j belongs to object i.</para>
 /// </remarks>
 internal sealed class SurveyRows
 {
     private const double Ln10 = 2.302585092994046;
+
+    // Up to this many nodes an object cut by the redshift prior takes the quantile rule (TruncatedRedshiftNodes.FillQuantile), beyond it the window rule.
+    private const int QuantileRuleMaxNodes = 5;
 
     /// <summary>Objects.</summary>
     public int Count { get; }
@@ -214,11 +218,21 @@ internal sealed class SurveyRows
             }
             for (int i = 0; i < n && !linear; i++)
             {
+                // Every Gauss–Hermite node inside the prior: the normal is whole there (to the nodes' reach, ±√2·x_max σ) and
+                // Gauss–Hermite integrates it. Otherwise the prior cuts the normal within the nodes' reach, and dropping the
+                // outside nodes and renormalising is a poor rule for a truncated normal (a few coarse nodes carry the cut
+                // side): the object goes to the Gauss–Legendre path on the prior below, under its truncated normal.
+                bool whole = zErr[i] > 0;
+                for (int j = 0; j < J && whole; j++)
+                {
+                    double z = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
+                    whole = z >= priorMinZ && z <= priorMaxZ && z > 0;
+                }
                 double sum = 0;
                 for (int j = 0; j < J; j++)
                 {
                     double z = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
-                    bool inside = z >= priorMinZ && z <= priorMaxZ && z > 0;
+                    bool inside = whole || (!(zErr[i] > 0) && z >= priorMinZ && z <= priorMaxZ && z > 0);
                     int q = i * J + j;
                     nodeZ[q] = inside ? z : o.Z[i];
                     NodeLogWeight[q] = inside ? gh.Weights[j] : 0;
@@ -235,12 +249,25 @@ internal sealed class SurveyRows
                     }
                 else
                 {
-                    // No node inside the prior: the truncated normal on the prior by Gauss–Legendre (TruncatedRedshiftNodes).
+                    // The prior cuts the object's normal (or no node lies inside it): the truncated normal on the prior by
+                    // Gauss–Legendre (TruncatedRedshiftNodes).
                     if (!(zErr[i] > 0))
                         throw SettingProblem.Exception([new($"object {i + 1} of the fitted sample has z = {o.Z[i]:G6} outside the redshift prior [{priorMinZ:G4}, {priorMaxZ:G4}] and z_err = 0, so it has no density under the prior; widen {{z_prior}} or drop the object")]);
                     truncated++;
                     gl ??= new GaussLegendre(J);
-                    TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), NodeLogWeight.AsSpan(i * J, J));
+                    // Cut but not excluded (a Hermite node inside): Gauss–Legendre in the normal's probability; excluded (no node
+                    // inside: z_obs far outside the prior): Gauss–Legendre in z on the Gaussian's window at the prior's end.
+                    bool cut = false;
+                    for (int j = 0; j < J && !cut; j++)
+                    {
+                        double zj = o.Z[i] + Math.Sqrt(2) * zErr[i] * gh.Nodes[j];
+                        cut = zj >= priorMinZ && zj <= priorMaxZ && zj > 0;
+                    }
+                    // Measured on 400 objects cut by a prior (TruncatedPriorQuadratureCliTests): the window rule is exact to 10⁻⁴ in a
+                    // from 7 nodes on (the quantile rule, whose integrand has a log singularity at the uncut end, to 2·10⁻³), the quantile
+                    // rule the better one with 3–5 nodes (TruncatedRedshiftNodesTests).
+                    if (!cut || J > QuantileRuleMaxNodes || !TruncatedRedshiftNodes.FillQuantile(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), NodeLogWeight.AsSpan(i * J, J)))
+                        TruncatedRedshiftNodes.Fill(o.Z[i], zErr[i], Math.Max(priorMinZ, 0), priorMaxZ, gl, nodeZ.AsSpan(i * J, J), NodeLogWeight.AsSpan(i * J, J));
                     for (int j = 0; j < J; j++)
                     {
                         int q = i * J + j;
@@ -293,7 +320,7 @@ internal sealed class SurveyRows
                 notes.Add($"photometric redshifts: each object integrated over z with a prior on [{priorMinZ:G4}, {priorMaxZ:G4}]{(sv.RedshiftPriorMin is null && sv.RedshiftPriorMax is null ? " (the sample's redshift range; set it with {z_prior})" : "")}, " +
                     (sv.RedshiftPopulation is { } pop ? pop.Describe() + " ({z_prior_shape} flat for a flat prior)" : "flat in z") + $", times N(z_obs; z, z_err²), by {J}-point Gauss–Hermite quadrature in z (nodes through the redshift grid); {{ignore_z_err}} turns this off.");
             if (truncated > 0)
-                notes.Add($"photometric redshifts: {truncated} object(s) have no Gauss–Hermite node inside the prior; each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
+                notes.Add($"photometric redshifts: the prior cuts the redshift error distribution of {truncated} object(s) (a Gauss–Hermite node outside it); each is integrated over the prior by {J}-point Gauss–Legendre under its truncated normal N(z; z_obs, z_err²).");
             }
         }
         Notes = notes;

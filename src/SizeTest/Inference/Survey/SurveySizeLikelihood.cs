@@ -25,7 +25,7 @@ namespace SizeTest.Inference.Survey;
 /// <para>Photometric redshifts: p_i = ∫ p_i(θ | z) N(z; z_obs, σ_z²) π(z) dz with π flat in z over [z_lo, z_hi] (the stated prior:
 /// <see cref="SurveyModel.RedshiftPriorMin"/>…<see cref="SurveyModel.RedshiftPriorMax"/>, default the sample's observed range; σ_z is the
 /// quoted z_err, taken as the error at the object's z), by Gauss–Hermite with <see cref="SurveyModel.RedshiftNodes"/> nodes
-/// z_ij = z_obs + √2 σ_z x_j; nodes outside the prior range are dropped and the rest renormalised. D_A at the nodes comes from the
+/// z_ij = z_obs + √2 σ_z x_j (an object whose normal the prior cuts: Gauss–Legendre under the truncated normal, <see cref="TruncatedRedshiftNodes"/>). D_A at the nodes comes from the
 /// same redshift grid (its nodes are computed once per parameter vector; fixed cosmology: exact per node). The luminosity of
 /// flux-density objects is re-evaluated at each node (flux and magnitudes held fixed, K and A at the catalogue's values).
 /// Log-normal errors without a size cut run on the block-vectorised <see cref="RedshiftQuadratureKernel"/> (the linearised marginal below on

@@ -90,13 +90,15 @@ public sealed class PhotometricRedshiftTests(Xunit.Abstractions.ITestOutputHelpe
         return Hypothesis.Create(family, new NuisanceModel(ObservableKind.Size, Survey: sv), overrides).Bind(mock.ToObservables());
     }
 
-    // ln L, then the gradient, at the suggested start moved by +3% (at least 0.02) in every free parameter.
+    // ln L, then the gradient, at the suggested start moved by +3% (at least 0.02) in every free parameter. Re-recorded (2026-12-04)
+    // when objects whose redshift normal the prior cuts moved from dropped Hermite nodes to the truncated-normal rule (their nodes
+    // and weights changed, the kernel did not; that rule is checked against scipy in TruncatedPriorQuadratureCliTests).
     private static readonly Dictionary<string, double[]> Stored = new()
     {
-        ["prior"] = [-243.84066944024772, -34.00963269511166, 5.457680576151736, -48.29071383339799, 179.68727753650435],
-        ["groups"] = [-260.8177574218861, 14.072879868254955, -34.3641581017029, -2.4618953158412364, 144.61349564321276, -3.886624561635915, -42.611102552566265, 291.08845929144655, 276.812957407289],
-        ["radio"] = [-779.3150817263479, -799.3856096965848, -40669.26407554599, -1081.5289466568404, 4955.981387944142, 287.8093618438473],
-        ["static"] = [-300.2515976608737, 0.0895049108742454, -7.494646889388013, 2.237622771856144, 501.7885957466855, 656.0034375655969],
+        ["prior"] = [-242.47653893249714, -36.196333277926456, 4.426471144314766, -51.0254547218643, 166.63322730976853],
+        ["groups"] = [-260.47498364237043, 12.313857049966357, -35.03295632570911, -14.978148007602012, 141.08836177032296, -2.830669695011817, -41.75071911819572, 297.65936368135806, 273.8984261811669],
+        ["radio"] = [-779.5914409076854, -799.2815533872839, -40690.203195737464, -1081.508278876098, 4961.2761225807235, 290.19918095202365],
+        ["static"] = [-300.1525292622717, 0.0748518215487404, -7.590609565982567, 1.871295538718518, 501.28065332211787, 656.6758397598586],
     };
 
     [Theory]
@@ -223,20 +225,26 @@ public sealed class PhotometricRedshiftTests(Xunit.Abstractions.ITestOutputHelpe
     }
 
     // The linearised marginal against the quadrature on the cost harness's design (2000 objects, σ_z = 0.08(1+z), prior [0.3, 2],
-    // Ωm free): a and Ωm agree within a tenth of their 68% half-widths (measured: 0.01σ and 0.005σ).
+    // Ωm free). The quadrature has converged at 20 nodes (40 nodes: the same a and Ωm to 10⁻⁴). Measured: the linearised a lies
+    // 0.107 half-widths from it, Ωm 0.071; the default 7 nodes 0.049 and 0.055 half-widths. (Before objects cut by the prior took the
+    // truncated-normal rule, the 7-node quadrature dropped their outside nodes and agreed with the linearised a to 0.01 half-widths,
+    // both 0.1 half-widths from the converged value.) Bounds: a fifth of a half-width for the approximation, a tenth for 7 nodes.
     [Fact]
     public void LinearisedAndQuadratureMarginalsAgreeOnAPhotometricMock()
     {
         var obs = Mock(2000, 31).ToObservables();
         var free = new ParameterOverrides(Free: new HashSet<string> { "omega_m" });
-        var (q, _) = Fit(WorldModels.LambdaCdm, obs, new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2), free);
-        var (l, lik) = Fit(WorldModels.LambdaCdm, obs, new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2, ZMarginal: RedshiftMarginal.Linear), free);
+        var sv = new SurveyModel(MarginaliseRedshift: true, RedshiftPriorMin: 0.3, RedshiftPriorMax: 2);
+        var (q, _) = Fit(WorldModels.LambdaCdm, obs, sv with { RedshiftNodes = 20 }, free);
+        var (q7, _) = Fit(WorldModels.LambdaCdm, obs, sv, free);
+        var (l, lik) = Fit(WorldModels.LambdaCdm, obs, sv with { ZMarginal = RedshiftMarginal.Linear }, free);
         foreach (var name in new[] { "size_evolution", "omega_m" })
         {
-            var (eq, el) = (Est(q, name), Est(l, name));
+            var (eq, e7, el) = (Est(q, name), Est(q7, name), Est(l, name));
             double half = 0.5 * (eq.Hi - eq.Lo);
-            output.WriteLine($"{name}: quadrature {eq.Value:F4} [{eq.Lo:F4}, {eq.Hi:F4}], linearised {el.Value:F4} [{el.Lo:F4}, {el.Hi:F4}]: {Math.Abs(el.Value - eq.Value) / half:F3} σ");
-            Assert.True(Math.Abs(el.Value - eq.Value) <= 0.1 * half, $"{name}: linearised {el.Value}, quadrature {eq.Value}, half-width {half}");
+            output.WriteLine($"{name}: quadrature (20 nodes) {eq.Value:F4} [{eq.Lo:F4}, {eq.Hi:F4}], 7 nodes {e7.Value:F4}: {Math.Abs(e7.Value - eq.Value) / half:F3} σ, linearised {el.Value:F4}: {Math.Abs(el.Value - eq.Value) / half:F3} σ");
+            Assert.True(Math.Abs(el.Value - eq.Value) <= 0.2 * half, $"{name}: linearised {el.Value}, quadrature {eq.Value}, half-width {half}");
+            Assert.True(Math.Abs(e7.Value - eq.Value) <= 0.1 * half, $"{name}: 7 nodes {e7.Value}, 20 nodes {eq.Value}, half-width {half}");
         }
         Assert.Contains(lik.SurveyNotes, n => n.Contains("linearised marginal", StringComparison.Ordinal));
     }
