@@ -185,7 +185,10 @@ public static partial class CatalogueLoader
             switch (b.Role)
             {
                 case ColumnRole.Z:
-                    if (v <= 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonPositiveRedshift, "z must be > 0");
+                    if (v <= 0) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.NonPositiveRedshift,
+                        bindings.Any(x => x.Role == ColumnRole.ZErr)
+                            ? "z must be > 0 (a photometric redshift too: its K-correction and catalogue-cosmology distance are taken at z, so a z at or below 0 is rejected rather than integrated over; the fit's redshift prior starts above 0)"
+                            : "z must be > 0");
                     if (v > options.MaxRedshift) return new RejectEntry(pos, b.ColumnName, Fmt(raw), RejectReason.OutOfRange, $"z above {Fmt(options.MaxRedshift)}");
                     break;
                 case ColumnRole.Theta:

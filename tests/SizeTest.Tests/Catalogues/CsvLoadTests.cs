@@ -63,6 +63,21 @@ public sealed class CsvLoadTests
     }
 
     [Fact]
+    public void APhotometricRedshiftAtOrBelowZeroIsRejectedWithTheReasonItCannotBeIntegrated()
+    {
+        // A photo-z catalogue's z can reach 0 or below (z_err > 0). Distances and K-corrections are taken at the catalogue z
+        // (ObservablesBuilder), where z ≤ 0 has no distance, so the row is rejected, and the detail says why for a photo-z.
+        using var t = new TempFiles();
+        var p = t.Write("pz.csv", "z,z_err,theta,theta_err\n0.5,0.05,1.0,0.1\n-0.02,0.05,1.0,0.1\n0,0.05,1.0,0.1\n");
+        var load = CatalogueLoader.Load(p);
+        Assert.Equal((3L, 1L, 2L), (load.RowsRead, load.Accepted, load.Rejected));
+        Assert.All(load.RejectLog.Entries, e => Assert.Equal(RejectReason.NonPositiveRedshift, e.Reason));
+        Assert.All(load.RejectLog.Entries, e => Assert.Contains("a photometric redshift too", e.Detail, StringComparison.Ordinal));
+        var spec = CatalogueLoader.Load(t.Write("sz.csv", "z,theta\n0.5,1.0\n0,1.0\n"));
+        Assert.Equal("z must be > 0", spec.RejectLog.Entries.Single().Detail);
+    }
+
+    [Fact]
     public void RejectLogIsWrittenAtomicallyAndNotOverwrittenWithoutForce()
     {
         using var t = new TempFiles();
