@@ -24,7 +24,7 @@ public static class MappingResolver
         [ColumnRole.AbsMag] = ["absmag", "mabs", "absolutemag", "absolutemagnitude", "magabs"],
         [ColumnRole.LogMass] = ["logmass", "logmstar", "lmass", "lmstar", "logm", "logsm", "logmstellar", "logstellarmass"],
         [ColumnRole.FluxDensity] = ["fluxdensity", "snu", "sint", "stot", "stotal", "speak", "fnu", "flux"],
-        [ColumnRole.SersicN] = ["sersicn", "nsersic", "sersic", "nser", "sersicindex"],
+        [ColumnRole.SersicN] = ["sersicn", "nsersic", "sersic", "nser", "sersicindex", "spheroidsersicn"],
         [ColumnRole.Group] = ["population", "morphtype", "galtype", "subsample"],
         [ColumnRole.Weight] = ["wt", "wgt", "weights"],
     };
@@ -45,7 +45,7 @@ public static class MappingResolver
         ColumnRole.AbsMag => words.Any(w => w.StartsWith("phys.magabs", StringComparison.Ordinal)),
         ColumnRole.LogMass => words.Any(w => w.StartsWith("phys.mass", StringComparison.Ordinal)),
         ColumnRole.FluxDensity => words.Any(w => w.StartsWith("phot.flux.density", StringComparison.Ordinal)),
-        ColumnRole.SersicN => words.Any(w => w.StartsWith("src.morph.param", StringComparison.Ordinal)) && words.Any(w => w.Contains("sersic", StringComparison.Ordinal)),
+        ColumnRole.SersicN => false, // by SersicIndexColumn, which reads the name and description too
         ColumnRole.Group => words.Any(w => w == "src.class" || w.StartsWith("src.morph.type", StringComparison.Ordinal)),
         ColumnRole.Weight => words.Any(w => w == "stat.weight"),
         _ => false,
@@ -234,6 +234,8 @@ public static class MappingResolver
             string n = Norm(c.Name);
             if (n == roleNorm) candidates.Add((i, 0, "named by role"));
             else if (UcdMatchesValue(role, words)) candidates.Add((i, words.Contains("meta.main") ? 1 : 2, SettingProblem.Text($"UCD {c.Ucd}")));
+            else if (role == ColumnRole.SersicN && SersicIndexColumn.Reason(c, words) is { } why)
+                candidates.Add((i, words.Contains("meta.main") ? 1 : 2, SettingProblem.Text($"UCD {c.Ucd} and {why}")));
             else if (CommonNames.TryGetValue(role, out var names) && names.Contains(n)) candidates.Add((i, 3, $"common name for {role.Name()}"));
         }
         foreach (var cand in candidates.OrderBy(c => c.Tier).ThenBy(c => c.Index))
@@ -295,17 +297,7 @@ public static class MappingResolver
     /// </summary>
     internal static string[] InnerErrorNames(string valueName)
     {
-        var words = new List<string>();
-        var word = new System.Text.StringBuilder();
-        char previous = ' ';
-        foreach (char ch in valueName)
-        {
-            bool boundary = !char.IsLetterOrDigit(ch) || (char.IsUpper(ch) && char.IsLower(previous));
-            if (boundary && word.Length > 0) { words.Add(word.ToString()); word.Clear(); }
-            if (char.IsLetterOrDigit(ch)) word.Append(char.ToLowerInvariant(ch));
-            previous = ch;
-        }
-        if (word.Length > 0) words.Add(word.ToString());
+        var words = ColumnNameWords.Split(valueName);
         var names = new string[Math.Max(0, words.Count - 1)];
         for (int k = 1; k < words.Count; k++) names[k - 1] = string.Concat(words.Take(k)) + "err" + string.Concat(words.Skip(k));
         return names;
