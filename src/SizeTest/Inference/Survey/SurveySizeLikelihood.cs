@@ -116,7 +116,7 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
             if (o.LnThetaErr is null) throw SettingProblem.Exception([new("{size_errors} gaussian needs a 'theta_err' column (the error quoted in θ)")]);
             for (int i = 0; i < _n; i++)
                 if (!(_sTheta[i] > 0)) throw SettingProblem.Exception([new($"{{size_errors}} gaussian needs a positive theta_err for every object; object {i + 1} has none")]);
-            notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (20-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0).");
+            notes.Add("size errors: Gaussian in θ with the quoted theta_err, convolved exactly with the log-normal intrinsic scatter (20-point adaptive Gauss–Hermite; Liu & Pierce 1994) and normalised by P(θ_obs > 0). ln L is then a density in θ (per radian), the log-normal model's a density in ln θ: the two differ by Σ ln θ_i, so compare ln L, AIC or BIC between world models of one fit, never across {size_errors} settings.");
         }
 
         // --- groups, bins, luminosities, weights and window, photometric-redshift nodes (shared with the other survey kernels)
