@@ -218,6 +218,22 @@ public sealed class HypothesisLikelihood : ISlicedLogLikelihood
     /// <summary>Notes on the survey terms applied (empty when none).</summary>
     public IReadOnlyList<string> SurveyNotes => _survey?.Notes ?? _surveyJoint?.Notes ?? [];
 
+    /// <summary>Σ w and the number of objects with w &gt; 0 over rows [<paramref name="start"/>, <paramref name="end"/>) under this
+    /// model's survey weights (the weight column times the luminosity window; every weight 1 without survey weights).</summary>
+    internal (double WeightSum, int Objects) ModelWeights(int start, int end)
+    {
+        var w = _survey?.RowWeights ?? _surveyJoint?.RowWeights;
+        if (w is null) return (end - start, end - start);
+        double sum = 0;
+        int count = 0;
+        for (int i = start; i < end; i++)
+        {
+            sum += w[i];
+            if (w[i] > 0) count++;
+        }
+        return (sum, count);
+    }
+
     /// <summary>
     /// A data-driven starting vector: the hypothesis's start values, with r0_kpc set to the median physical size
     /// implied by the default world model and mu0 to the median surface brightness corrected for dimming.

@@ -35,7 +35,8 @@ public static class ModelFitRefinement
         var search = scanPoints >= 2
             ? ModeSearch.Run(backend, likelihood, fit, scanPoints, cancel)
             : new ModeSearchResult(fit, [fit], new Dictionary<string, ProfileSample[]>());
-        var summary = FitSummaries.From(likelihood.Hypothesis, backend.TotalObjects, search.Best, weightSum: backend.TotalWeight);
+        var summary = FitSummaries.From(likelihood.Hypothesis, likelihood.ModelObjects >= 0 ? likelihood.ModelObjects : backend.TotalObjects, search.Best,
+            weightSum: double.IsNaN(likelihood.InformationWeight) ? backend.TotalWeight : likelihood.InformationWeight);
         if (!double.IsFinite(search.Best.LogLikelihood)) return new RefinedFit(search.Best, summary, []);
         var assessed = IntervalAssessment.Apply(backend, likelihood, search, summary, posteriorFollows);
         return new RefinedFit(search.Best, assessed.Summary, assessed.Notes);

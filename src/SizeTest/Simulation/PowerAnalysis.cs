@@ -191,7 +191,7 @@ public static class PowerAnalysis
                 converged = false;
                 continue;
             }
-            bic[c] = double.IsFinite(fit.LogLikelihood) ? InformationCriteria.Bic(fit.LogLikelihood, h.K, lik.Count) : double.PositiveInfinity;
+            bic[c] = double.IsFinite(fit.LogLikelihood) ? InformationCriteria.Bic(fit.LogLikelihood, h.K, lik.ModelWeights(0, lik.Count).Objects) : double.PositiveInfinity;
             converged &= fit.Converged;
             if (isTrue) estimates = FitSummaries.From(lik, fit).Parameters.Where(p => !p.Fixed).ToArray();
         }

@@ -102,6 +102,34 @@ public sealed class DistributedFitStudyTests : IDisposable
         }
     }
 
+    [Fact]
+    public void ALuminosityWindowsObjectCountAndWeightSumAreTheSameOnOneTwoAndFourRanks()
+    {
+        // Each world model's luminosity window keeps its own objects, so each model's n of BIC/AICc (RowSumLikelihood.InformationWeight)
+        // is a sum over every rank's kept objects; 3000 rows = 3 chunks of 1024 (the last partial), so 4 ranks include one without rows.
+        var mock = MockSurveyGenerator.Generate(new MockSurveySpec(new LambdaCdmModel(70, 0.3),
+            new SurveyDesign(3000, UniformZ(0.2, 1.5), MockObjectKind.Galaxy, new MeasurementErrors(0.05)),
+            5, null, null, new SurveyPopulation(new SchechterLuminosityFunction(), SizeLuminositySlope: 0.3)), parallel: false);
+        var obs = mock.ToObservables();
+        var sv = new SizeTest.Inference.Survey.SurveyModel(SizeTest.Inference.Survey.SizeRelationKind.Luminosity, AbsMagMin: -22, AbsMagMax: -20);
+        var hs = new[] { WorldModels.LambdaCdm, WorldModels.StaticLinear }
+            .Select(f => Hypothesis.Create(f, new NuisanceModel(ObservableKind.Size, Survey: sv))).ToArray();
+        (double, int)[] Counts(IProcessGroup group)
+        {
+            var (s, e) = RowPartition.RowRange(obs.Count, group.Rank, group.Size);
+            var local = ObservablesSubset.Take(obs, Enumerable.Range((int)s, (int)(e - s)).ToArray());
+            var backend = new EvaluationBackend(group, local);
+            return hs.Select(h => { var l = backend.Bind(h); return (l.InformationWeight, l.ModelObjects); }).ToArray();
+        }
+        var one = Counts(SingleProcessGroup.Instance);
+        // The window keeps part of the sample, and the two models' D_L keep different parts (cf. LuminosityWindowCliTests: 236 vs 206 of 800).
+        Assert.All(one, c => Assert.InRange(c.Item2, 1, obs.Count - 1));
+        Assert.All(one, c => Assert.Equal(c.Item2, c.Item1));
+        Assert.NotEqual(one[0].Item2, one[1].Item2);
+        foreach (int size in new[] { 2, 4 })
+            foreach (var r in ThreadRanks.Run(size, Counts)) Assert.Equal(one, r);
+    }
+
     private static RedshiftDistribution UniformZ(double lo, double hi)
     {
         Assert.True(RedshiftDistribution.TryParse(FormattableString.Invariant($"uniform:{lo}:{hi}"), out var d, out var err), err);

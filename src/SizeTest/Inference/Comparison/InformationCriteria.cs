@@ -10,7 +10,8 @@ namespace SizeTest.Inference.Comparison;
 /// the evidence, whose Hessian grows as N) gives the penalty k ln N with that N; Hurvich &amp; Tsai's AICc is likewise the
 /// small-sample correction of that expanded sample. Non-integer weights keep the same reading (ln L and N scale together:
 /// doubling every weight doubles −2 ln L̂ and adds k ln 2 to the penalty, as duplicating every row does). So the n here is
-/// Σ w_i (<see cref="Evaluation.EvaluationBackend.TotalWeight"/>), the number of objects when every weight is 1.
+/// Σ w_i (<see cref="Evaluation.EvaluationBackend.TotalWeight"/>), the number of objects when every weight is 1; under a
+/// luminosity window, the sum over the objects that model's window keeps (<see cref="Evaluation.RowSumLikelihood.InformationWeight"/>).
 /// </remarks>
 public static class InformationCriteria
 {

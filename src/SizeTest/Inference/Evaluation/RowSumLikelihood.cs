@@ -52,10 +52,31 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
             }
         }
         _posterior = new PriorTimesLikelihood(this, hypothesis.FreeParameters.Select(p => p.Prior).ToArray());
+        (InformationWeight, ModelObjects) = hypothesis.Nuisance.SurveyTerms?.HasWindow == true
+            ? SumModelWeights()
+            : (multiplicity is null ? backend.TotalWeight : double.NaN, multiplicity is null ? backend.TotalObjects : -1);
+    }
+
+    // Σ w and the count of objects with w > 0 under this model's survey weights, over every process (two collective sums, in
+    // global chunk order: the same for any number of processes). A rank without rows contributes zeros but still takes part.
+    private (double WeightSum, int Objects) SumModelWeights()
+    {
+        var sums = new double[_backend.TotalChunks];
+        var counts = new double[_backend.TotalChunks];
+        int off = _backend.ChunkOffset;
+        for (int c = 0; c + 1 < _bounds.Length && _local is not null; c++)
+        {
+            var (w, k) = _local.ModelWeights(_bounds[c], _bounds[c + 1]);
+            sums[off + c] = w;
+            counts[off + c] = k;
+        }
+        return (_backend.SumChunks(sums), (int)_backend.SumChunks(counts));
     }
 
     private RowSumLikelihood(RowSumLikelihood parent, Hypothesis hypothesis, HypothesisLikelihood? local, Photometry.Observables? localObs)
     {
+        InformationWeight = parent.InformationWeight;
+        ModelObjects = parent.ModelObjects;
         _localObs = localObs;
         _backend = parent._backend;
         Hypothesis = hypothesis;
@@ -107,6 +128,15 @@ public sealed class RowSumLikelihood : ILogDensityWithGradient
 
     /// <summary>The hypothesis.</summary>
     public Hypothesis Hypothesis { get; }
+
+    /// <summary>The n of AICc and BIC for this model: Σ w over the objects its likelihood keeps (the weight column times a
+    /// luminosity window, which each world model judges with its own D_L, so two models may keep different objects);
+    /// <see cref="EvaluationBackend.TotalWeight"/> without a window. NaN for a re-weighted (resampled) likelihood without a window.</summary>
+    public double InformationWeight { get; }
+
+    /// <summary>Objects this model's likelihood keeps (weight &gt; 0) over all processes; <see cref="EvaluationBackend.TotalObjects"/>
+    /// without a window; −1 for a re-weighted likelihood without a window.</summary>
+    public int ModelObjects { get; }
 
     /// <inheritdoc/>
     public int Dimension => Hypothesis.K;

@@ -73,6 +73,9 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
     /// <summary>Notes for the results (what the survey terms did).</summary>
     public IReadOnlyList<string> Notes { get; }
 
+    /// <summary>Each object's weight under this model (null: all 1): the weight column times the luminosity window.</summary>
+    internal double[]? RowWeights => _rows.Weight;
+
     /// <param name="h">The hypothesis (observable sb or joint, with survey terms).</param>
     /// <param name="layout">Its parameter layout.</param>
     /// <param name="o">The objects.</param>

@@ -71,6 +71,9 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
     /// <summary>Notes for the results (window membership, prior, quadrature).</summary>
     public IReadOnlyList<string> Notes { get; }
 
+    /// <summary>Each object's weight under this model (null: all 1): the weight column times the luminosity window.</summary>
+    internal double[]? RowWeights => _weight;
+
     private readonly ParameterLayout _layout;
 
     public SurveySizeLikelihood(Hypothesis h, ParameterLayout layout, Observables o, double[]? lnDaFixed, RedshiftGrid? grid, double gridMinZ, double gridMaxZ,

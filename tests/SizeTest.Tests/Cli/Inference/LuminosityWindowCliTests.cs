@@ -35,6 +35,17 @@ public sealed class LuminosityWindowCliTests : IDisposable
         Assert.False(verdict.GetProperty("decided").GetBoolean());
         Assert.Equal(JsonValueKind.Null, verdict.GetProperty("best").ValueKind);
         Assert.Contains("different objects", verdict.GetProperty("reason").GetString()!, StringComparison.Ordinal);
+        // Each model's n is the objects its own window keeps (astropy: 236 and 206), and its BIC and AICc take that n:
+        // BIC = −2 ln L + k ln n (Schwarz 1978), AICc = AIC + 2k(k+1)/(n − k − 1) (Hurvich & Tsai 1989).
+        foreach (var (model, kept) in new[] { ("lcdm", 236), ("static-linear", 206) })
+        {
+            var m = results.GetProperty("models").EnumerateArray().Single(x => x.GetProperty("name").GetString() == model);
+            Assert.Equal(kept, m.GetProperty("n").GetInt32());
+            double lnL = m.GetProperty("log_likelihood").GetDouble();
+            int k = m.GetProperty("k").GetInt32();
+            Assert.Equal(-2 * lnL + k * Math.Log(kept), m.GetProperty("bic").GetDouble(), 6);
+            Assert.Equal(-2 * lnL + 2 * k + 2.0 * k * (k + 1) / (kept - k - 1), m.GetProperty("aicc").GetDouble(), 6);
+        }
     }
 
     [Fact]
