@@ -165,14 +165,15 @@ public static class PowerAnalysis
         var catalogue = MockSurveyGenerator.Generate(spec, parallel: false);
         var obs = catalogue.ToObservables();
         var candidates = request.Candidates;
+        bool converged = true;
         if (request.Survey is { } survey)
         {
             // The survey terms of this mock, as fit builds them for a catalogue (group labels, the photo-z prior estimated from it).
             var model = survey.Build(obs, candidates[0].Nuisance.Observable, new List<string>());
             candidates = candidates.Select(h => h.WithNuisance(h.Nuisance with { Survey = model })).ToArray();
+            converged = model.RedshiftPopulation?.Converged ?? true; // a prior whose EM hit its cap counts as a fit that did not converge
         }
         var bic = new double[request.Candidates.Count];
-        bool converged = true;
         IReadOnlyList<ParameterEstimate> estimates = [];
         var settings = new OptimizerSettings(Starts: request.Starts, Seed: mock + 1);
         for (int c = 0; c < request.Candidates.Count; c++)

@@ -7,7 +7,7 @@ namespace SizeTest.Simulation;
 /// <param name="Winner">Candidate with the lowest BIC.</param>
 /// <param name="DeltaBic">BIC of the best other candidate minus BIC of the true one (&gt; 0: the true model wins).</param>
 /// <param name="Bic">BIC per candidate, in candidate order.</param>
-/// <param name="Converged">Whether every candidate's fit converged.</param>
+/// <param name="Converged">Whether every candidate's fit converged, and the mock's population redshift prior when one was estimated.</param>
 /// <param name="Estimates">The true candidate's estimates of the recovered parameters (value, lo, hi of the 68% interval).</param>
 public sealed record MockOutcome(int SampleSize, int Mock, long Seed, string Winner, double DeltaBic, IReadOnlyList<double> Bic, bool Converged,
     IReadOnlyList<Inference.ParameterEstimate> Estimates);
@@ -32,7 +32,7 @@ public sealed record ParameterRecovery(string Name, double Truth, double Bias, d
 /// <param name="DeltaBicQuantiles">ΔBIC at the 5, 16, 50, 84 and 95 % points of the mocks.</param>
 /// <param name="DeltaBicMean">Mean ΔBIC.</param>
 /// <param name="Recovery">Recovery of each evolution (and scatter) parameter by the true model.</param>
-/// <param name="NotConverged">Mocks in which at least one fit did not converge.</param>
+/// <param name="NotConverged">Mocks in which at least one fit (or the population redshift prior's EM iteration) did not converge.</param>
 /// <param name="Verdict"><c>decisive</c>, <c>strong</c>, <c>weak</c>, <c>unable to decide</c>, <c>favours a wrong model</c> (median
 /// ΔBIC &lt; −2) or, withheld, <c>not interpretable: the true model is not recovered</c> (see <see cref="PowerAnalysis"/>).</param>
 public sealed record PowerPoint(int SampleSize, int Mocks, double ProbabilityTrueBest, double ProbabilityStrong, double ProbabilityDecisive,

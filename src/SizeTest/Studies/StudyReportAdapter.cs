@@ -272,7 +272,8 @@ public static class StudyReportAdapter
             + window));
         if (sv is { PhotometricRedshifts: true })
             list.Add(new Assumption("redshifts", string.Create(Inv,
-                $"photometric: each object is integrated over its redshift, N(z_obs, z_err²) times a {(sv.RedshiftPriorShape == "population" ? "prior deconvolved from the sample's own redshift distribution" : "flat prior")} on {(sv.RedshiftPriorMin is { } a ? $"{a:0.###}" : "the sample's lowest z")} – {(sv.RedshiftPriorMax is { } b ? $"{b:0.###}" : "its highest z")}, by {(sv.ZMarginal == "linear" ? "the linearised (effective-variance) marginal" : $"Gauss–Hermite quadrature with {sv.RedshiftNodes} nodes")}; K-corrections stay at the catalogue's values.")));
+                $"photometric: each object is integrated over its redshift, N(z_obs, z_err²) times a {(sv.RedshiftPriorShape == "population" ? "prior deconvolved from the sample's own redshift distribution" : "flat prior")} on {(sv.RedshiftPriorMin is { } a ? $"{a:0.###}" : "the sample's lowest z")} – {(sv.RedshiftPriorMax is { } b ? $"{b:0.###}" : "its highest z")}, by {(sv.ZMarginal == "linear" ? "the linearised (effective-variance) marginal" : $"Gauss–Hermite quadrature with {sv.RedshiftNodes} nodes")}; K-corrections stay at the catalogue's values.")
+                + (sv.RedshiftPopulation is { Converged: false } pp ? string.Create(Inv, $" The deconvolved prior's EM iteration did not converge (stopped at {pp.EmSteps} steps, last weight change {pp.FinalChange:G3}): its weights are the last iterate.") : "")));
         list.Add(new Assumption("K-corrections", inputs.CorrectionLines.Count == 0
             ? "no photometric corrections were applied (magnitudes and surface brightnesses as catalogued)."
             : string.Join(" ", inputs.CorrectionLines.Select(l => l.TrimEnd('.') + "."))));

@@ -222,13 +222,25 @@ public sealed class SurveyOptionsCliTests : IDisposable
     public void TheRedshiftPriorShapeIsStatedAndCanBeFlat()
     {
         var mock = Simulate("--photoz-err", "0.03");
-        var (code, o, err, _) = Fit(mock);
+        var (code, o, err, dir) = Fit(mock);
         Assert.True(code == 0, err);
         Assert.Contains("deconvolved from the quoted z errors", o, StringComparison.Ordinal);
-        (code, o, err, _) = Fit(mock, "--z-prior-shape", "flat");
+        Assert.Contains("steps, converged", o, StringComparison.Ordinal);
+        Assert.DoesNotContain("did not converge", err, StringComparison.Ordinal);
+        // results.json records the prior used and how its EM iteration ended.
+        var survey = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "results.json"))).RootElement.GetProperty("settings").GetProperty("survey");
+        var pop = survey.GetProperty("redshift_population");
+        Assert.True(pop.GetProperty("converged").GetBoolean());
+        Assert.InRange(pop.GetProperty("final_change").GetDouble(), 0, SizeTest.Inference.Survey.PopulationRedshiftPrior.Tolerance);
+        Assert.InRange(pop.GetProperty("em_steps").GetInt32(), 1, SizeTest.Inference.Survey.PopulationRedshiftPrior.MaxIterations - 1);
+        Assert.Equal(1.0, pop.GetProperty("weights").EnumerateArray().Sum(w => w.GetDouble()), 12); // weights on the simplex, to rounding
+        Assert.Equal(pop.GetProperty("weights").GetArrayLength(), pop.GetProperty("centres").GetArrayLength());
+        (code, o, err, dir) = Fit(mock, "--z-prior-shape", "flat");
         Assert.True(code == 0, err);
         Assert.Contains("flat in z", o, StringComparison.Ordinal);
         Assert.DoesNotContain("deconvolved", o, StringComparison.Ordinal);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "results.json"))).RootElement
+            .GetProperty("settings").GetProperty("survey").GetProperty("redshift_population").ValueKind);
         Assert.Equal(2, Fit(mock, "--z-prior-shape", "bumpy").Code);
         // The study file's key reads the same two words.
         var study = SizeTest.Studies.StudyFileParser.Parse("[catalogue]\npath = \"x.csv\"\n[models]\nnames = [\"lcdm\"]\n[survey]\nz_prior_shape = \"flat\"\n", "s.toml", _t.Dir);

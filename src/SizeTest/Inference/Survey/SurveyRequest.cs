@@ -48,6 +48,10 @@ public sealed record SurveyRequest(
     /// </summary>
     public static int DefaultRedshiftNodes(ObservableKind observable) => observable == ObservableKind.Size ? 7 : 20;
 
+    /// <summary>Most EM steps of the population redshift prior (<see cref="PopulationRedshiftPrior.MaxIterations"/>; tests lower it
+    /// to make the iteration stop unconverged).</summary>
+    internal int PopulationPriorMaxSteps { get; init; } = PopulationRedshiftPrior.MaxIterations;
+
     /// <summary>Fewest and most nodes of the photo-z quadrature.</summary>
     public const int MinRedshiftNodes = 2, MaxRedshiftNodes = 40;
 
@@ -129,7 +133,11 @@ public sealed record SurveyRequest(
             else
             {
                 double lo = RedshiftPriorMin ?? observables.Z.Min(), hi = RedshiftPriorMax ?? observables.Z.Max();
-                if (hi > lo) population = PopulationRedshiftPrior.Estimate(observables.Z, observables.Survey.ZErr!, lo, hi);
+                if (hi > lo)
+                {
+                    population = PopulationRedshiftPrior.Estimate(observables.Z, observables.Survey.ZErr!, lo, hi, PopulationPriorMaxSteps);
+                    if (population.ConvergenceWarning() is { } w) notes.Add(w);
+                }
             }
         }
         var marginal = Marginal(observables, observable, marginalise, notes);

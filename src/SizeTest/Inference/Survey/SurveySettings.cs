@@ -18,10 +18,12 @@ namespace SizeTest.Inference.Survey;
 /// <param name="SizeErrors"><c>lognormal</c> or <c>gaussian</c>.</param>
 /// <param name="AbsMagMin">Luminosity window, bright end (null: open).</param>
 /// <param name="AbsMagMax">Luminosity window, faint end (null: open).</param>
+/// <param name="RedshiftPopulation">The population redshift prior used, with its EM convergence (null unless <paramref name="RedshiftPriorShape"/>
+/// is <c>population</c>).</param>
 public sealed record SurveySettings(
     string SizeRelation, double? PivotAbsMag, double? PivotLogMass, IReadOnlyList<string>? Groups, IReadOnlyList<double>? EvolutionBinEdges,
     bool PhotometricRedshifts, string? ZMarginal, int? RedshiftNodes, double? RedshiftPriorMin, double? RedshiftPriorMax, string? RedshiftPriorShape,
-    string SizeErrors, double? AbsMagMin, double? AbsMagMax)
+    string SizeErrors, double? AbsMagMin, double? AbsMagMax, PopulationPriorRecord? RedshiftPopulation = null)
 {
     /// <summary>The record of <paramref name="survey"/>, or null when none of its terms is active.</summary>
     public static SurveySettings? From(SurveyModel survey)
@@ -41,6 +43,7 @@ public sealed record SurveySettings(
             survey.RedshiftPriorMin, survey.RedshiftPriorMax,
             z ? survey.RedshiftPopulation is null ? "flat" : "population" : null,
             survey.SizeErrors == SizeErrorKind.Gaussian ? "gaussian" : "lognormal",
-            survey.AbsMagMin, survey.AbsMagMax);
+            survey.AbsMagMin, survey.AbsMagMax,
+            z && survey.RedshiftPopulation is { } population ? PopulationPriorRecord.From(population) : null);
     }
 }
