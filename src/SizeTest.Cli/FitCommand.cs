@@ -101,7 +101,7 @@ internal static class FitCommand
             if (parse.GetValue(surveyOptions.Group) is { } groupColumn)
                 loadOptions = loadOptions with { Mapping = loadOptions.Mapping with { Assignments = [.. loadOptions.Mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] } };
             if (SizeTest.Distributed.RankContext.IsDistributed && surveyRequest.NeedsWholeSample(parse.GetValue(surveyOptions.Group) is not null) is { Count: > 0 } whole)
-                throw new InputException($"{SettingFlags.Text(string.Join(", ", whole))} do not run under mpirun (group labels, equal-count redshift bins and the luminosity window's counts need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
+                throw new InputException($"{SettingFlags.Text(string.Join(", ", whole))} do not run under mpirun (group labels and equal-count redshift bins need the whole sample in one process); run fit on one machine or drop {(whole.Count == 1 ? "it" : "them")}");
             string? profileName = parse.GetValue(profile);
             // Survey terms need the sample (group labels, bin edges, z_err): the hypotheses are rebuilt once it is loaded.
             Func<Observables, RedshiftGridSpan?, RedshiftPriorCoverage?, SurveyBinding> survey = (obs, whole, coverage) => SurveyBinding.Bind(surveyRequest, surveyAsked, obs, nuisance, hypotheses, nm =>

@@ -113,6 +113,25 @@ internal static class FitRunner
             return code;
         }
 
+        // A luminosity window's per-model counts over the whole sample (one process: Bind counted them already).
+        if (ranks.Size > 1 && survey is { HasWindow: true })
+        {
+            var keptHere = new double[survey.Hypotheses.Count + 1];
+            var keptAll = new double[keptHere.Length];
+            code = Agree(context, ranks, () => survey.WindowObjects(built!.Observables, wholeSample).CopyTo(keptHere, 0));
+            if (code == 0)
+            {
+                keptHere[^1] = built!.Observables.Count;
+                ranks.SumAll(keptHere, keptAll);
+                code = Agree(context, ranks, () => survey = survey.WithWindowCounts(keptAll[..^1], (long)keptAll[^1]));
+            }
+            if (code != 0)
+            {
+                folder?.Abandon();
+                return code;
+            }
+        }
+
         // The selection decision over all ranks (every rank gets the same sums, so all decide alike).
         var sums = new double[6];
         ranks.SumAll([split!.Outside.Count + built!.Observables.Count, split.Outside.Count,

@@ -46,12 +46,50 @@ public sealed record SurveyBinding(IReadOnlyList<Hypothesis> Hypotheses, IReadOn
             hypotheses = rebuild(withSurvey);
             if (observables.Count > 0)
                 foreach (var h in hypotheses)
-                    foreach (var note in new HypothesisLikelihood(h, observables, wholeSample).SurveyNotes)
+                {
+                    var likelihood = new HypothesisLikelihood(h, observables, wholeSample);
+                    foreach (var note in likelihood.SurveyNotes)
                         if (!notes.Contains(note)) notes.Add(note);
+                    // Under mpirun (a share of the sample) the caller adds these with the whole sample's counts (WithWindowCounts).
+                    if (model.HasWindow && wholeSample is null)
+                        notes.Add(LuminosityWindowNote.Text(likelihood.ModelWeights(0, observables.Count).Objects, observables.Count, model, h.Family.Name));
+                }
         }
         string? warning = nuisance.Observable != ObservableKind.SurfaceBrightness ? SizeErrorCheck.LargeErrorWarning(observables, model.SizeErrors) : null;
         if (warning is not null) notes.Add("warning: " + warning);
         return new SurveyBinding(hypotheses, notes, warning);
+    }
+
+    /// <summary>Whether the hypotheses carry a luminosity window, whose per-model counts need the whole sample.</summary>
+    public bool HasWindow => Hypotheses.Count > 0 && Hypotheses[0].Nuisance.SurveyTerms.HasWindow;
+
+    /// <summary>Objects of <paramref name="share"/> (one rank's part of the sample) that each hypothesis's luminosity window keeps,
+    /// in hypothesis order (zeros for an empty share); the caller sums them over ranks for <see cref="WithWindowCounts"/>.</summary>
+    /// <param name="share">This rank's objects.</param>
+    /// <param name="wholeSample">The whole sample's redshift range (as given to <see cref="Bind"/>).</param>
+    public double[] WindowObjects(Observables share, RedshiftGridSpan? wholeSample)
+    {
+        ArgumentNullException.ThrowIfNull(share);
+        var kept = new double[Hypotheses.Count];
+        if (!HasWindow || share.Count == 0) return kept;
+        for (int m = 0; m < kept.Length; m++) kept[m] = new HypothesisLikelihood(Hypotheses[m], share, wholeSample).ModelWeights(0, share.Count).Objects;
+        return kept;
+    }
+
+    /// <summary>This binding with the luminosity window's notes for the whole sample: <paramref name="kept"/>[m] of
+    /// <paramref name="total"/> objects inside hypothesis m's window (sums of <see cref="WindowObjects"/> over ranks).</summary>
+    /// <exception cref="Foundation.Errors.InputException">A world model keeps no object.</exception>
+    public SurveyBinding WithWindowCounts(IReadOnlyList<double> kept, long total)
+    {
+        ArgumentNullException.ThrowIfNull(kept);
+        if (!HasWindow) return this;
+        var notes = Notes.ToList();
+        for (int m = 0; m < Hypotheses.Count; m++)
+        {
+            if (kept[m] == 0) throw LuminosityWindowNote.NoneInside(Hypotheses[m].Family.Name);
+            notes.Add(LuminosityWindowNote.Text((long)kept[m], total, Hypotheses[m].Nuisance.SurveyTerms, Hypotheses[m].Family.Name));
+        }
+        return this with { Notes = notes };
     }
 
     /// <summary>Whether <paramref name="request"/> asks for anything beyond the basic model (a group column counts).</summary>

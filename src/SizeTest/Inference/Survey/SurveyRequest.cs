@@ -89,12 +89,11 @@ public sealed record SurveyRequest(
     public static SurveyRequest None { get; } = new();
 
     /// <summary>
-    /// What of this request cannot run with the sample split over MPI ranks (group labels, equal-count bin edges and the
-    /// luminosity window's counts need the whole sample in one process), as option names; empty when all of it can.
+    /// What of this request cannot run with the sample split over MPI ranks (group labels and equal-count bin edges need the whole
+    /// sample in one process; a luminosity window runs, its per-model counts summed over ranks), as option names; empty when all of it can.
     /// </summary>
     public IReadOnlyList<string> NeedsWholeSample(bool groupColumn) =>
-        [.. (Groups || groupColumn ? new[] { "{group}" } : []), .. (EvolutionBins is not null ? new[] { "{evolution} binned" } : []),
-         .. (AbsMagMin is not null || AbsMagMax is not null ? new[] { "{abs_mag_range}" } : [])];
+        [.. (Groups || groupColumn ? new[] { "{group}" } : []), .. (EvolutionBins is not null ? new[] { "{evolution} binned" } : [])];
 
     /// <summary>Whether the photometry stage must prepare luminosities or masses.</summary>
     public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;

@@ -183,8 +183,8 @@ internal sealed class SurveyRows
                 bool inside = (sv.AbsMagMin is not { } lo || absMag >= lo) && (sv.AbsMagMax is not { } hi || absMag <= hi);
                 if (!inside) w[i] = 0; else kept++;
             }
-            if (kept == 0 && wholeSample) throw SettingProblem.Exception([new($"no object of the sample lies in {{abs_mag_range}} under world model '{h.Family.Name}'")]);
-            notes.Add($"luminosity window: {kept} of {n} objects have M in [{sv.AbsMagMin?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "-inf"}, {sv.AbsMagMax?.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) ?? "+inf"}] under {h.Family.Name} (its own D_L, at its start parameters); the others do not enter its likelihood, so its n differs from other models'.");
+            if (kept == 0 && wholeSample) throw LuminosityWindowNote.NoneInside(h.Family.Name);
+            // The note (with counts over the whole sample) is written by SurveyBinding: under mpirun these are one rank's objects.
         }
         Weight = w;
 

@@ -153,6 +153,33 @@ public sealed class MpiFitCommandTests : IDisposable
     }
 
     [MpiFact]
+    public void ALuminosityWindowOnTwoRanksGivesTheSingleProcessNumbersAndCounts()
+    {
+        // 2500 objects in 1024-row chunks: rank 0 holds rows 1–1024 and 2049–2500, rank 1 rows 1025–2048. Each world model's window
+        // (its own D_L) keeps a different number of objects; n, BIC and the window notes must be the whole sample's, as one process.
+        string mock = Path.Combine(_dir, "window.csv");
+        var (code, _, err) = CliRunner.Run(["simulate", "--model", "static-linear", "--n", "2500", "--seed", "7", "--z-dist", "uniform:0.2:1.5",
+            "--luminosity-function", "schechter:-21:-1.2:-24:-18", "--size-lum-slope", "0.3", "--size-evolution", "0", "--out", mock]);
+        Assert.True(code == 0, err);
+        string[] Args(string o) => ["fit", mock, "--models", "lcdm,static-linear", "--abs-mag-range", "-22:-20", "--cv-folds", "0", "--starts", "1", "--out", o];
+        string single = Path.Combine(_dir, "window-single");
+        (code, _, err) = CliRunner.Run(Args(single));
+        Assert.True(code == 0, err);
+        var (exit, _, stderr) = MpiRunner.Run(2, Args(Path.Combine(_dir, "window-np2")));
+        Assert.True(exit == 0, stderr);
+        Assert.Equal(Numbers(single), Numbers(Path.Combine(_dir, "window-np2")));
+        static string[] WindowNotes(JsonElement r) => [.. r.GetProperty("notes").EnumerateArray().Select(n => n.GetString()!).Where(n => n.Contains("luminosity window:", StringComparison.Ordinal))];
+        var notes = WindowNotes(Results(single));
+        Assert.Equal(2, notes.Length);
+        Assert.All(notes, n => Assert.Contains("of 2500 objects", n, StringComparison.Ordinal));
+        Assert.Equal(notes, WindowNotes(Results(Path.Combine(_dir, "window-np2"))));
+        // The two models keep different objects, so their n differ (the per-model n of the window).
+        var n = Results(single).GetProperty("models").EnumerateArray().Select(m => m.GetProperty("n").GetInt32()).ToArray();
+        Assert.NotEqual(n[0], n[1]);
+        Assert.All(n, k => Assert.Contains($"luminosity window: {k} of 2500", string.Join("\n", notes), StringComparison.Ordinal));
+    }
+
+    [MpiFact]
     public void ThePopulationRedshiftPriorIsRefusedUnderMpirunNotSilentlyReplaced()
     {
         string mock = Path.Combine(_dir, "photoz.csv");
