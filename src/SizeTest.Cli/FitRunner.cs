@@ -187,7 +187,7 @@ internal static class FitRunner
             var result = FitRun.Run(request, root ? new FitProgressReporter(context) : null);
             if (!root) return result.AllConverged ? ExitCodes.Success : ExitCodes.AnalysisFailed; // rank 0 writes and prints
             result = result with { Notes = [.. built.Corrections.Select(c => "photometry: " + c), .. (selectionWarning is null ? [] : new[] { "selection: " + selectionWarning }), .. (survey?.Notes ?? []).Select(c => "survey: " + c),
-                .. share.UnitWarnings.Select(w => "catalogue: warning: " + w), .. result.Notes] };
+                .. share.UnitWarnings.Select(w => "catalogue: warning: " + w), .. share.PopulationNotes.Select(n => "catalogue: " + n), .. result.Notes] };
             // Inner stages name settings ({expect}, {col}); the notes written and shown are in the CLI's flags.
             result = result with { Notes = result.Notes.Select(SettingFlags.Text).ToArray() };
 

@@ -37,8 +37,14 @@ public sealed class CatalogueLoad
             throw new ArgumentException($"{keep.Count} kept and {rejected.Count} rejected do not add up to {Rows.Count} accepted objects");
         var log = new RejectLog(RejectLog.SourceName);
         foreach (var e in RejectLog.Entries.Concat(rejected).OrderBy(e => e.Row)) log.Add(e);
-        return new CatalogueLoad(Rows.Take(keep), log, Mapping, Format, Table, Columns, LayoutNotes, RowsRead, NullCounts);
+        return new CatalogueLoad(Rows.Take(keep), log, Mapping, Format, Table, Columns, LayoutNotes, RowsRead, NullCounts) { PopulationLabels = PopulationLabels };
     }
+
+    /// <summary>
+    /// Columns that look like population labels with a few well-filled labels (counted over the accepted rows as loaded), when
+    /// the group column was not given: each could be fitted as separate populations (<see cref="PopulationLabelColumn.Note"/>).
+    /// </summary>
+    public IReadOnlyList<PopulationLabelColumn> PopulationLabels { get; init; } = [];
 
     /// <summary>The accepted objects in normalised units.</summary>
     public CatalogueRows Rows { get; }
@@ -49,8 +55,9 @@ public sealed class CatalogueLoad
     /// <summary>The mapping used.</summary>
     public ResolvedMapping Mapping { get; }
 
-    /// <summary>The detection report: one <c>role ← column (because …)</c> line per role, then size definition, kept columns and notes.</summary>
-    public IReadOnlyList<string> DetectionReport => Mapping.ReportLines();
+    /// <summary>The detection report: one <c>role ← column (because …)</c> line per role, then size definition, kept columns and
+    /// notes, then the population-label notes (<see cref="PopulationLabels"/>).</summary>
+    public IReadOnlyList<string> DetectionReport => [.. Mapping.ReportLines(), .. PopulationLabels.Select(p => p.Note)];
 
     /// <summary>The file format.</summary>
     public CatalogueFormat Format { get; }

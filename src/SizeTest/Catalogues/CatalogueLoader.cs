@@ -58,8 +58,16 @@ public static partial class CatalogueLoader
         }
 
         var bindings = Order.Where(mapping.Roles.ContainsKey).Select(r => mapping.Roles[r]).ToArray();
+        // Columns that look like population labels, counted over the accepted rows for a note (the group column, when
+        // detected, is counted from the sample; the others are read as text beside the mapped and kept columns).
+        var labelCandidates = PopulationLabelColumns.Candidates(reader.Columns, mapping,
+            options.Mapping.Assignments.Any(a => a.Role == ColumnRole.Group));
+        int groupIndex = mapping.Roles.TryGetValue(ColumnRole.Group, out var groupBinding) ? groupBinding.ColumnIndex : -1;
+        var labelTallies = labelCandidates.Select(c => new PopulationLabelColumns.Tally(reader.Columns[c.Index], c.Reason, reader.Columns[c.Index].Kind == ColumnKind.Real)).ToArray();
+        var labelSlots = labelCandidates.Select(c => c.Index).Where(i => i != groupIndex).ToArray();
         var requests = bindings.Select(b => new ColumnRequest(b.ColumnIndex, b.Role.IsText()))
-            .Concat(mapping.Kept.Select(k => new ColumnRequest(k.ColumnIndex, false))).ToList();
+            .Concat(mapping.Kept.Select(k => new ColumnRequest(k.ColumnIndex, false)))
+            .Concat(labelSlots.Select(i => new ColumnRequest(i, true))).ToList();
 
         long? hint = reader.RowCountHint;
         if (hint is > int.MaxValue) hint = int.MaxValue;
@@ -112,6 +120,12 @@ public static partial class CatalogueLoader
                     else numeric[k]!.Add(values[k]);
                 }
                 for (int k = 0; k < kept.Length; k++) kept[k].Add(chunk.Columns[bindings.Length + k].Numbers![r]);
+                for (int k = 0, slot = bindings.Length + kept.Length; k < labelCandidates.Count; k++)
+                {
+                    if (labelCandidates[k].Index == groupIndex) continue;
+                    var buf = chunk.Columns[slot++];
+                    labelTallies[k].Add(buf.States[r] == CellState.Value ? buf.Texts![r] : null);
+                }
             }
             pipeline.Return(chunk);
             if (options.Progress is { } progress && rowsRead >= nextProgress)
@@ -150,8 +164,12 @@ public static partial class CatalogueLoader
         var readerWarnings = reader.Notes.Where(n => n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray();
         var dataWarnings = AngularSizePlausibility.Check(sample.ThetaRad, mapping).Concat(MagnitudeColumnCheck.Check(mapping, reader.Columns)).ToArray();
         if (readerWarnings.Length + dataWarnings.Length > 0) mapping = mapping.WithNotes([.. readerWarnings, .. dataWarnings]);
+        for (int k = 0; k < labelCandidates.Count; k++)
+            if (labelCandidates[k].Index == groupIndex)
+                foreach (var label in sample.Survey.Group!) labelTallies[k].Add(label);
+        var populations = labelTallies.Select(t => t.Result()).OfType<PopulationLabelColumn>().ToArray();
         return new CatalogueLoad(sample, rejects, mapping, reader.Format, reader.TableName, reader.Columns,
-            reader.Notes.Where(n => !n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray(), rowsRead, nulls);
+            reader.Notes.Where(n => !n.StartsWith("warning: ", StringComparison.Ordinal)).ToArray(), rowsRead, nulls) { PopulationLabels = populations };
     }
 
     private static string Fmt(double v) => v.ToString("R", CultureInfo.InvariantCulture);

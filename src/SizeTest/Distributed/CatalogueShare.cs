@@ -24,6 +24,10 @@ public sealed record CatalogueShare(CatalogueRows Local, CatalogueRows? Whole, l
     /// <summary>Unit warnings of the column mapping (<see cref="ResolvedMapping.Warnings"/>), for the CLI to print once.</summary>
     public IReadOnlyList<string> UnitWarnings { get; init; } = [];
 
+    /// <summary>Notes on columns that could be fitted as separate populations (<see cref="CatalogueLoad.PopulationLabels"/>),
+    /// for one process only: a group fit does not run under MPI (and a Parquet share counts only its own rows).</summary>
+    public IReadOnlyList<string> PopulationNotes { get; init; } = [];
+
     /// <summary>Loads the share of rank <paramref name="rank"/> of <paramref name="size"/>; no collective calls (may throw per rank).</summary>
     public static CatalogueShare Load(string path, CatalogueLoadOptions options, int rank, int size)
     {
@@ -44,6 +48,7 @@ public sealed record CatalogueShare(CatalogueRows Local, CatalogueRows? Whole, l
             {
                 ChunkKeys = ParquetChunkKeys(load.Rows.SourceRows, groups),
                 UnitWarnings = load.Mapping.Warnings,
+                PopulationNotes = size == 1 ? load.PopulationLabels.Select(p => p.Note).ToArray() : [],
             };
         }
         var whole = CatalogueLoader.Load(path, options);
@@ -55,7 +60,11 @@ public sealed record CatalogueShare(CatalogueRows Local, CatalogueRows? Whole, l
         bool root = rank == 0;
         return new CatalogueShare(Slice(whole.Rows, (int)s, (int)e), whole.Rows,
             root ? whole.RowsRead : 0, root ? whole.Rows.Count : 0, root ? whole.RejectLog.Count : 0,
-            root ? whole.RejectLog : new RejectLog(whole.RejectLog.SourceName)) { UnitWarnings = whole.Mapping.Warnings };
+            root ? whole.RejectLog : new RejectLog(whole.RejectLog.SourceName))
+        {
+            UnitWarnings = whole.Mapping.Warnings,
+            PopulationNotes = size == 1 ? whole.PopulationLabels.Select(p => p.Note).ToArray() : [],
+        };
     }
 
     /// <summary>

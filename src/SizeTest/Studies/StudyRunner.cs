@@ -55,6 +55,7 @@ public static class StudyRunner
             inputs.Add(study.CataloguePath);
             options.Log?.Invoke($"{load.RowsRead} rows read, {load.Accepted} accepted, {load.Rejected} rejected");
             foreach (var w in load.Mapping.Warnings) options.Log?.Invoke("warning: " + StudySettingKeys.Text(w));
+            foreach (var p in load.PopulationLabels) options.Log?.Invoke("note: " + StudySettingKeys.Text(p.Note));
             NoAcceptedRows.ThrowIfEmpty(load, Rel(study.CataloguePath));
             Stage("load");
 

@@ -23,6 +23,19 @@ internal sealed class TempFiles : IDisposable
 
     public string PathOf(string name) => Path.Combine(Dir, name);
 
+    /// <summary>A VOTable 1.4 of one TABLE with the FIELD elements <paramref name="fields"/> and TABLEDATA rows <paramref name="rows"/>.</summary>
+    public string WriteVoTable(string name, string fields, string rows) => Write(name, $"""
+        <?xml version="1.0"?>
+        <VOTABLE version="1.4" xmlns="http://www.ivoa.net/xml/VOTable/v1.3">
+         <RESOURCE><TABLE>
+        {fields}
+          <DATA><TABLEDATA>
+        {rows}
+          </TABLEDATA></DATA>
+         </TABLE></RESOURCE>
+        </VOTABLE>
+        """);
+
     public void Dispose()
     {
         try { Directory.Delete(Dir, true); } catch (IOException) { }
