@@ -172,9 +172,11 @@ public static class StudyRunner
             options.Log?.Invoke($"wrote {files.Count} files to {Rel(folder.Target)}");
             return new StudyRunOutcome(result, data, folder.Target, files);
         }
-        catch
+        catch (Exception e)
         {
             folder.Abandon();
+            // An inner stage names its settings ({kcorr}, {hdu}, …): a study author wrote keys, not flags.
+            if (StudySettingKeys.Respelled(e) is { } respelled && !ReferenceEquals(respelled, e)) throw respelled;
             throw;
         }
     }

@@ -48,6 +48,17 @@ public sealed class InputException : Exception
     public string Render(Func<string, string> spell) =>
         SettingProblems.Count == 0 ? Message : Compose(string.Join("; ", SettingProblems.Select(p => p.Render(spell))), File, Line, Column, _lineLabel);
 
+    /// <summary>This error with the settings <paramref name="spell"/> spells written in (<see cref="SettingProblem.Respell"/>),
+    /// the others left to the front end that shows it; the same location, and this error as the inner one (for
+    /// <c>--verbose</c>). Itself when it names no setting.</summary>
+    /// <param name="spell">The spelling of a setting, or null to leave it to the caller.</param>
+    public InputException Respelled(Func<string, string?> spell)
+    {
+        if (SettingProblems.Count == 0) return this;
+        var problems = SettingProblems.Select(p => p.Respell(spell)).ToArray();
+        return new InputException(string.Join("; ", problems.Select(p => p.ToString())), File, Line, Column, this, _lineLabel) { SettingProblems = problems };
+    }
+
     private static string Compose(string message, string? file, long? line, string? column, string lineLabel)
     {
         var where = new List<string>();

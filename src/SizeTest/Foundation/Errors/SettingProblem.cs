@@ -45,6 +45,15 @@ public sealed partial record SettingProblem(string Template)
     public static string RenderText(string text, Func<string, string> spell) =>
         Placeholder().Replace(text, m => m.Groups[1].Success ? spell(m.Groups[1].Value) : "{");
 
+    /// <summary>
+    /// The problem with the settings <paramref name="spell"/> has a spelling for written in it as text, and the others
+    /// still <c>{name}</c> placeholders: a front end spells the settings it owns (a study its keys) and leaves the rest
+    /// to the one that shows the message (the CLI's flags, e.g. <c>run</c>'s own <c>{out}</c>).
+    /// </summary>
+    /// <param name="spell">The spelling of a setting, or null to leave its placeholder.</param>
+    public SettingProblem Respell(Func<string, string?> spell) =>
+        new(Placeholder().Replace(Template, m => m.Groups[1].Success && spell(m.Groups[1].Value) is { } s ? Literal(s) : m.Value));
+
     /// <summary>The sentence with the setting names themselves.</summary>
     public override string ToString() => Render(s => s);
 
