@@ -56,7 +56,7 @@ internal static class FitCommand
         catalogueOptions.AddTo(command);
         photometryOptions.AddTo(command);
         surveyOptions.AddTo(command);
-        foreach (var o in new Option[] { choice.Models, observable, relation, pivot, dimOffset, choice.Free, choice.Fix, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, limits.MaxMemory, expect, nodes, limits.Force, output, format })
+        foreach (var o in new Option[] { choice.Models, observable, relation, pivot, dimOffset, choice.Free, choice.Fix, choice.FluxConvention, prior, bound, bootstrap, folds, profile, sampler, walkers, steps, maxSteps, live, seed, starts, sbLimit, magLimit, minSize, maxOutside, limits.MaxMemory, expect, nodes, limits.Force, output, format })
             command.Options.Add(o);
 
         context.SetAction(command, parse =>
@@ -66,15 +66,18 @@ internal static class FitCommand
                 new SelectionLimits(parse.GetValue(sbLimit), parse.GetValue(magLimit), parse.GetValue(minSize)),
                 parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
             nuisance.Validate();
+            var families = choice.Families(parse);
+            if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
             var overrides = new ParameterOverrides(
                 Free: choice.Freed(parse),
                 Fixed: choice.Fixed(parse),
                 Priors: FitOptionParsing.Priors(parse.GetValue(prior)),
                 Bounds: FitOptionParsing.Ranges(parse.GetValue(bound), "--bound"));
             FitOptionParsing.CheckContradictions(overrides.Free!, overrides.Fixed!, overrides.Priors, overrides.Bounds);
+            // --flux-convention holds luminosity_exponent of every static model, as --fix would.
+            if (choice.ConventionExponent(parse, families, overrides.Names) is { } q)
+                overrides = overrides with { Fixed = new Dictionary<string, double>(overrides.Fixed!, StringComparer.Ordinal) { [WorldModelParameters.Names.LuminosityExponent] = q } };
             var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
-            var families = choice.Families(parse);
-            if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
             var surveyRequest = surveyOptions.Request(parse);
             var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
             bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));

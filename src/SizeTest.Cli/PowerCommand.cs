@@ -20,12 +20,12 @@ internal static class PowerCommand
     public static Command Create(CliContext context)
     {
         var command = new Command("power", "Power analysis: can a survey design tell the world models apart? Fits every candidate model to K mocks drawn under a true model, over a grid of sample sizes.");
-        var models = new WorldModelOptions();
+        var models = new WorldModelOptions("Static models: 'energy-loss' (D_L = d(1+z)^0.5, default) or 'time-dilation' (D_L = d(1+z)) for the true model when it is static and for every static candidate (as --fix luminosity_exponent=0.5 or 1).");
         var survey = new MockSurveyOptions("Sample sizes to try, comma-separated (e.g. 250,500,1000,2000).");
         var sizes = new Option<string?>("--n") { Description = "Sample sizes N to try, comma-separated (e.g. 250,500,1000,2000); default 2000." };
         var mocks = new Option<int>("--mocks") { Description = "Mocks per sample size (default 100).", DefaultValueFactory = _ => 100 };
         var choice = new CandidateModelOptions($"Candidate world models fitted to every mock, comma-separated ({string.Join(", ", WorldModels.Names)}).",
-            "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable.", "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated.");
+            "NAME=VALUE: hold a parameter fixed in every candidate's fit (e.g. size_evolution=0); repeatable.", "Parameter(s) to fit in every candidate (e.g. omega_m); repeatable or comma-separated.", models.FluxConvention);
         var limits = new OutputLimitOptions("Replace an existing output folder.", "an analysis whose estimated memory (mock outcomes, and one mock catalogue per thread at the largest N)");
         var observable = new Option<string?>("--observable") { Description = "What the fits use: size, sb or joint (default joint for galaxies, size for radio sources)." };
         observable.AcceptOnlyFromAmong([.. ObservableKinds.Names]);
@@ -47,14 +47,20 @@ internal static class PowerCommand
                 long s = parse.GetValue(seed) ?? throw new InputException("--seed is required so that the mocks can be reproduced, e.g. --seed 1");
                 string outDir = parse.GetValue(output) ?? throw new InputException("--out is required: the folder for power.json, power.csv and mocks.csv");
                 var grid = ParseSizes(parse.GetValue(sizes) ?? "2000");
-                var trueModel = models.Create(parse);
+                // --flux-convention applies to the true model when it is static and to every static candidate.
+                var trueModel = models.Create(parse, conventionForOtherModels: true);
                 var design = survey.Design(parse, grid.Max());
                 var template = new MockSurveySpec(trueModel, design, s, survey.Galaxies(parse), survey.Radio(parse), survey.Survey(parse));
                 var kind = PowerCandidates.Observable(template, parse.GetValue(observable) is { } obsText ? FitOptionParsing.Observable(obsText) : null);
                 var nuisance = PowerCandidates.Nuisance(template, kind);
                 var (fixedValues, freed) = (choice.Fixed(parse), choice.Freed(parse));
                 FitOptionParsing.CheckContradictions(freed, fixedValues);
-                var hypotheses = PowerCandidates.Create(trueModel, choice.Families(parse), nuisance, fixedValues, freed);
+                var families = choice.Families(parse);
+                var trueFamily = WorldModels.Get(trueModel.Name);
+                if (choice.ConventionExponent(parse, FluxConventions.Applies(trueFamily) ? [.. families, trueFamily] : families, [.. fixedValues.Keys, .. freed]) is { } q
+                    && families.Any(FluxConventions.Applies))
+                    fixedValues[WorldModelParameters.Names.LuminosityExponent] = q;
+                var hypotheses = PowerCandidates.Create(trueModel, families, nuisance, fixedValues, freed);
                 var request = new PowerRequest(template, hypotheses, trueModel.Name, parse.GetValue(mocks), grid, parse.GetValue(target), parse.GetValue(starts), parse.GetValue(threads))
                 {
                     Survey = PowerCandidates.Survey(template, kind),

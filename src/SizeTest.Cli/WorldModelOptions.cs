@@ -7,15 +7,17 @@ namespace SizeTest.Cli;
 /// <summary>
 /// The world-model options shared by verbs: <c>--model</c> and one option per parameter of any
 /// family (<c>omega_m</c> → <c>--omega-m</c>), generated from the <see cref="ParameterSpec"/>s, plus
-/// <c>--flux-convention</c> as a readable alias for the static models' luminosity exponent.
+/// <c>--flux-convention</c> as a readable alias for the static models' luminosity exponent
+/// (<see cref="FluxConventions"/>; <c>fit</c> and <c>power</c> also apply it to their static candidates, <see cref="CandidateModelOptions"/>).
 /// Holds no physics: it only collects values and asks the family to build the model.
 /// </summary>
 internal sealed class WorldModelOptions
 {
     private readonly List<(ParameterSpec Spec, Option<double?> Option)> _parameters = new();
 
-    /// <summary>Creates the options (new instances for each command).</summary>
-    public WorldModelOptions()
+    /// <summary>Creates the options (new instances for each command); <paramref name="fluxConventionDescription"/> words
+    /// <c>--flux-convention</c>'s help where it does more than set <c>--model</c>'s exponent (power).</summary>
+    public WorldModelOptions(string? fluxConventionDescription = null)
     {
         Model = new Option<string>("--model")
         {
@@ -44,18 +46,29 @@ internal sealed class WorldModelOptions
                 };
                 _parameters.Add((spec, option));
             }
-        FluxConvention = new Option<string?>("--flux-convention")
-        {
-            Description = "Static models: 'energy-loss' (D_L = d(1+z)^0.5, default) or 'time-dilation' (D_L = d(1+z)); same as --luminosity-exponent 0.5 or 1.",
-        };
-        FluxConvention.HelpName = "energy-loss|time-dilation";
-        FluxConvention.Validators.Add(result =>
+        FluxConvention = CreateFluxConvention(fluxConventionDescription ??
+            "Static models: 'energy-loss' (D_L = d(1+z)^0.5, default) or 'time-dilation' (D_L = d(1+z)); same as --luminosity-exponent 0.5 or 1.");
+    }
+
+    /// <summary>
+    /// A <c>--flux-convention</c> option (energy-loss|time-dilation) with <paramref name="description"/>; its value is read with
+    /// <see cref="Convention(ParseResult, Option{string?})"/>.
+    /// </summary>
+    public static Option<string?> CreateFluxConvention(string description)
+    {
+        var option = new Option<string?>("--flux-convention") { Description = description, HelpName = string.Join('|', FluxConventions.Names) };
+        option.Validators.Add(result =>
         {
             string? value = result.GetValueOrDefault<string?>();
-            if (value is not ("energy-loss" or "time-dilation"))
-                result.AddError($"--flux-convention must be energy-loss or time-dilation; got '{value}'.");
+            if (!FluxConventions.TryParse(value, out _))
+                result.AddError($"--flux-convention must be {string.Join(" or ", FluxConventions.Names)}; got '{value}'.");
         });
+        return option;
     }
+
+    /// <summary>The convention given with <paramref name="option"/>, or null.</summary>
+    public static FluxConvention? Convention(ParseResult parse, Option<string?> option) =>
+        FluxConventions.TryParse(parse.GetValue(option), out var c) ? c : null;
 
     /// <summary><c>--model</c>.</summary>
     public Option<string> Model { get; }
@@ -84,8 +97,12 @@ internal sealed class WorldModelOptions
         command.Options.Add(FluxConvention);
     }
 
-    /// <summary>Builds the chosen model; options that do not apply, or refused values, throw <see cref="ArgumentException"/>.</summary>
-    public IWorldModel Create(ParseResult parse)
+    /// <summary>
+    /// Builds the chosen model; options that do not apply, or refused values, throw <see cref="ArgumentException"/>. A
+    /// <c>--flux-convention</c> sets a static model's luminosity exponent; for another model it is refused unless
+    /// <paramref name="conventionForOtherModels"/> (power: it then applies to the static candidates only).
+    /// </summary>
+    public IWorldModel Create(ParseResult parse, bool conventionForOtherModels = false)
     {
         var family = WorldModels.Get(parse.GetValue(Model) ?? "lcdm");
         var values = new Dictionary<string, double>();
@@ -96,14 +113,18 @@ internal sealed class WorldModelOptions
                 throw new ArgumentException($"Option {option.Name} does not apply to world model '{family.Name}'; its options are {Describe(family)}.");
             values[spec.Name] = value;
         }
-        if (parse.GetValue(FluxConvention) is { } convention)
+        if (Convention(parse, FluxConvention) is { } convention)
         {
             string q = WorldModelParameters.LuminosityExponent.Name;
-            if (family.Parameters.All(p => p.Name != q))
-                throw new ArgumentException($"Option --flux-convention applies only to static world models (static-linear, tired-light), not to '{family.Name}'.");
-            if (values.ContainsKey(q))
+            if (!FluxConventions.Applies(family))
+            {
+                if (!conventionForOtherModels)
+                    throw new ArgumentException($"Option --flux-convention applies only to static world models ({string.Join(", ", FluxConventions.StaticFamilyNames)}), not to '{family.Name}'.");
+            }
+            else if (values.ContainsKey(q))
                 throw new ArgumentException("Give either --flux-convention or --luminosity-exponent, not both.");
-            values[q] = convention == "time-dilation" ? 1.0 : 0.5;
+            else
+                values[q] = convention.LuminosityExponent();
         }
         return family.Create(values);
     }

@@ -56,6 +56,7 @@ public static class FitSummaries
         {
             Name = name ?? h.Label,
             Parameters = list,
+            FluxConvention = FluxConventionOf(h, values),
             LogLikelihood = fit.LogLikelihood,
             K = k,
             N = n,
@@ -65,6 +66,16 @@ public static class FitSummaries
             Converged = fit.Converged,
             ExitReason = fit.ExitReason,
         };
+    }
+
+    /// <summary>The label of a static model's flux convention (<see cref="Cosmology.FluxConventions.Label"/>), null for other models.</summary>
+    internal static string? FluxConventionOf(Hypothesis h, double[] values)
+    {
+        if (!Cosmology.FluxConventions.Applies(h.Family)) return null;
+        for (int i = 0; i < h.Parameters.Count; i++)
+            if (h.Parameters[i].Name == Cosmology.WorldModelParameters.Names.LuminosityExponent)
+                return Cosmology.FluxConventions.Label(values[i], h.Parameters[i].IsFree);
+        return null;
     }
 
     /// <summary>The value a world model derived for a parameter left "not given" (NaN), or NaN if it defines none.</summary>

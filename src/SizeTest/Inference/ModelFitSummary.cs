@@ -13,6 +13,12 @@ public sealed record ModelFitSummary
     public required string Name { get; init; }
     /// <summary>Every parameter, free and fixed.</summary>
     public required IReadOnlyList<ParameterEstimate> Parameters { get; init; }
+    /// <summary>
+    /// A static world model's flux convention, D_L = d (1+z)^q (<see cref="Cosmology.FluxConventions.Label"/>):
+    /// <c>energy-loss</c> (q = 1/2), <c>time-dilation</c> (q = 1), <c>other</c> (luminosity_exponent fixed at another
+    /// value) or <c>fitted</c> (luminosity_exponent free); null for an FLRW model (D_L = (1+z)² D_A).
+    /// </summary>
+    public string? FluxConvention { get; init; }
     /// <summary>Maximum log-likelihood ln L̂.</summary>
     public required double LogLikelihood { get; init; }
     /// <summary>Number of free parameters k.</summary>

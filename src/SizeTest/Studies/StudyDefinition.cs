@@ -38,6 +38,9 @@ public sealed record StudyDefinition
     public double MaxOutsideSelection { get; init; } = SelectionConsistency.DefaultMaxOutsideFraction;
     /// <summary>Parameter settings for every model that has the parameter.</summary>
     public IReadOnlyList<StudyParameter> Parameters { get; init; } = [];
+    /// <summary>The flux convention of every static model (<c>models.flux_convention</c>; it fixes their
+    /// <c>luminosity_exponent</c>), or null for the models' own setting (default energy-loss).</summary>
+    public Cosmology.FluxConvention? FluxConvention { get; init; }
     /// <summary>Per-model parameter settings (by world-model name), applied after <see cref="Parameters"/>.</summary>
     public IReadOnlyDictionary<string, IReadOnlyList<StudyParameter>> ModelParameters { get; init; } = new Dictionary<string, IReadOnlyList<StudyParameter>>();
     /// <summary>Expected ranges of evolution parameters.</summary>

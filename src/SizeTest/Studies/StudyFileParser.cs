@@ -21,7 +21,7 @@ public static class StudyFileParser
         ["catalogue"] = "[catalogue] takes path, format, table, size_definition, synthetic, keep",
         ["columns"] = $"[columns] takes one ROLE = \"NAME[:UNIT]\" per role ({string.Join(", ", ColumnRoles.All.Select(r => r.Name()))})",
         ["corrections"] = "[corrections] takes kcorr, extinction, zero_points, band, band_match, sersic_n, sb",
-        ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes and one [models.NAME] table of parameter settings per listed model",
+        ["models"] = "[models] takes names, observable, size_sb_relation, pivot_kpc, dimming_offset, grid_nodes, flux_convention and one [models.NAME] table of parameter settings per listed model",
         ["selection"] = "[selection] takes sb_limit, mag_limit, min_size, max_outside_fraction",
         ["survey"] = "[survey] takes size_relation, pivot_abs_mag, pivot_log_mass, pivot_log_lum, abs_mag_range, group, evolution, ignore_z_err, size_errors, z_prior, z_prior_shape, z_marginal, z_nodes, frequency_ghz, spectral_index, ref_cosmology",
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
@@ -154,13 +154,15 @@ public static class StudyFileParser
         var perModelNodes = new Dictionary<string, TomlNode>(StringComparer.Ordinal);
         foreach (var key in modelsNode.Keys)
         {
-            if (key is "names" or "observable" or "size_sb_relation" or "pivot_kpc" or "dimming_offset" or "grid_nodes") continue;
+            if (key is "names" or "observable" or "size_sb_relation" or "pivot_kpc" or "dimming_offset" or "grid_nodes" or FluxConventions.Setting) continue;
             var node = modelsNode.Get(key)!;
             if (!node.IsTable || !names.Contains(key))
                 throw node.Error($"unknown key 'models.{key}'; {TableKeys["models"]} (listed: {string.Join(", ", names)})");
             perModel[key] = Parameters(node, StudyHypotheses.KnownNames(WorldModels.Get(key), named), $"world model '{key}' with this observable", grouped);
             perModelNodes[key] = node;
         }
+
+        var fluxConvention = FluxConventionSetting(modelsNode, families, root.Table("parameters"), perModelNodes);
 
         // [expected]
         var expected = new List<ExpectedRange>();
@@ -255,6 +257,7 @@ public static class StudyFileParser
             Survey = survey,
             Luminosity = luminosity,
             Report = report,
+            FluxConvention = fluxConvention,
         };
         // Build every hypothesis now, so a setting a model cannot take is reported at parse time with its place.
         foreach (var f in families)
@@ -272,6 +275,21 @@ public static class StudyFileParser
             }
         }
         return study;
+    }
+
+    // models.flux_convention: the flux convention of every listed static model, as fit's --flux-convention. It sets their
+    // luminosity_exponent, so a setting of that parameter as well is refused at its line.
+    private static FluxConvention? FluxConventionSetting(TomlNode modelsNode, IWorldModelFamily[] families, TomlNode? shared, IReadOnlyDictionary<string, TomlNode> perModel)
+    {
+        if (modelsNode.Get(FluxConventions.Setting) is not { } node) return null;
+        if (!FluxConventions.TryParse(node.Scalar as string, out var convention))
+            throw node.Error($"'models.{FluxConventions.Setting}' must be {string.Join(" or ", FluxConventions.Names.Select(n => $"\"{n}\""))}; got '{node.Scalar}'");
+        if (FluxConventions.Unused(families, "models") is { } unused) throw node.Error(unused.Render(StudySettingKeys.Key));
+        string q = WorldModelParameters.Names.LuminosityExponent;
+        foreach (var (table, where) in new[] { (shared, "parameters") }.Concat(perModel.Select(kv => ((TomlNode?)kv.Value, $"models.{kv.Key}"))))
+            if (table?.Get(q) is { } set)
+                throw set.Error($"'{where}.{q}' and 'models.{FluxConventions.Setting}' (line {node.Line}) both set the static models' luminosity exponent; keep one");
+        return convention;
     }
 
     // [survey]: the study-file form of fit's survey options (docs/study-file.md).

@@ -42,6 +42,9 @@ public static class StudyHypotheses
             if (known.Contains(p.Name)) merged[p.Name] = p;
         if (study.ModelParameters.TryGetValue(family.Name, out var own))
             foreach (var p in own) merged[p.Name] = p;
+        // models.flux_convention fixes a static model's luminosity exponent (the parser refuses a setting of it as well).
+        if (study.FluxConvention is { } convention && FluxConventions.Applies(family))
+            merged[WorldModelParameters.Names.LuminosityExponent] = new StudyParameter(WorldModelParameters.Names.LuminosityExponent, ParameterStatus.Fixed, convention.LuminosityExponent());
         return Hypothesis.Create(family, study.Nuisance, Overrides(family, study.Nuisance, merged.Values));
     }
 

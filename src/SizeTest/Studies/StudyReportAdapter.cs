@@ -218,6 +218,16 @@ public static class StudyReportAdapter
             list.Add(new Assumption("cosmology priors",
                 $"{h.Label} ({h.Family.Description}): {(cosmo.Length == 0 ? "no cosmological parameters" : string.Join("; ", cosmo.Select(Words)))}."));
         }
+        // Each static model's flux convention (D_L = d (1+z)^q), which sets its luminosities and its default dimming.
+        var conventions = result.Models.Where(m => m.FluxConvention is not null).Select(m =>
+        {
+            var q = m.Parameters.FirstOrDefault(p => p.Name == WorldModelParameters.Names.LuminosityExponent);
+            var n = m.Parameters.FirstOrDefault(p => p.Name == WorldModelParameters.Names.DimmingExponent);
+            return $"{WorldModelDisplayNames.For(m.Name)} ({m.Name}): " + (q is null ? m.FluxConvention : FluxConventions.Words(q.Value, !q.Fixed))
+                   + (n is { Fixed: true } ? string.Create(Inv, $", bolometric SB dimming (1+z)^−{n.Value:0.###}") : "");
+        }).ToArray();
+        if (conventions.Length > 0)
+            list.Add(new Assumption("flux convention", "static models' luminosity distance: " + string.Join("; ", conventions) + "."));
         var ev = new List<string>();
         var sv = result.Settings.Survey;
         string relation = sv?.SizeRelation switch { "luminosity" => " (L/L_pivot)^β", "mass" => " (M*/M_pivot)^β", _ => "" };

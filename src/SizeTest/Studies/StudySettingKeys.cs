@@ -19,6 +19,7 @@ internal static class StudySettingKeys
         "observable" => "models.observable",
         "size_sb_relation" or "grid_nodes" or "pivot_kpc" or "dimming_offset" => "models." + setting,
         "models" => "models.names",
+        "flux_convention" => "models.flux_convention",
         "sb_limit" or "mag_limit" or "min_size" => "selection." + setting,
         "max_outside_selection" => "selection.max_outside_fraction",
         "col" => "[columns]",
