@@ -382,7 +382,8 @@ public static class StudyFileParser
             "csv" or "text" or "tsv" or "txt" => CatalogueFormat.Text,
             "fits" => CatalogueFormat.Fits,
             "votable" or "vot" => CatalogueFormat.VoTable,
-            _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\" or \"votable\" (or left out to detect)"),
+            "parquet" => CatalogueFormat.Parquet,
+            _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\", \"votable\" or \"parquet\" (or left out to detect)"),
         };
     }
 

@@ -89,6 +89,18 @@ public sealed class StudyFileParserTests
         Assert.Equal(column.ToString(System.Globalization.CultureInfo.InvariantCulture), e.Column);
     }
 
+    [Theory]
+    // Every format the readers have (CatalogueFormat) can be forced from a study, as with fit's --catalog-format.
+    [InlineData("csv", SizeTest.Catalogues.CatalogueFormat.Text)]
+    [InlineData("fits", SizeTest.Catalogues.CatalogueFormat.Fits)]
+    [InlineData("votable", SizeTest.Catalogues.CatalogueFormat.VoTable)]
+    [InlineData("parquet", SizeTest.Catalogues.CatalogueFormat.Parquet)]
+    public void CatalogueFormatTakesEveryReader(string format, SizeTest.Catalogues.CatalogueFormat expected)
+    {
+        var s = Parse($"[catalogue]\npath = \"a.dat\"\nformat = \"{format}\"\n[models]\nnames = [\"lcdm\"]\n");
+        Assert.Equal(expected, s.Reader.Format);
+    }
+
     [Fact]
     public void UnknownKeyMessageNamesTheKey()
     {
