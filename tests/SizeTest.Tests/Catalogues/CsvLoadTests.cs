@@ -137,6 +137,33 @@ public sealed class CsvLoadTests
         Assert.Contains(load.DetectionReport, l => l.Contains("[arcmin, from the file]"));
     }
 
+    [Theory]
+    // Writers that end every line with the delimiter (a print loop writing "value," per column): the empty field after the
+    // last column holds nothing, so the rows are read, not rejected for "8 fields, the header has 7".
+    [InlineData("z,theta,theta_err\n0.5,1.0,0.1,\n1.5,0.5,0.05,\n0.7,2.0,0.2\n")]   // data lines end with ','
+    [InlineData("z,theta,theta_err,\n0.5,1.0,0.1\n1.5,0.5,0.05\n0.7,2.0,0.2\n")]     // the header line ends with ','
+    [InlineData("z;theta;theta_err;\n0.5;1.0;0.1;\n1.5;0.5;0.05;\n0.7;2.0;0.2;\n")]  // both, with ';'
+    public void AnEmptyFieldAfterTheLastColumnIsNoColumn(string text)
+    {
+        using var t = new TempFiles();
+        var load = CatalogueLoader.Load(t.Write("t.csv", text));
+        Assert.Equal(3, load.RowsRead);
+        Assert.Equal(3, load.Accepted);
+        Assert.Equal(["z", "theta", "theta_err"], load.Columns.Select(c => c.Name));
+        Assert.Equal(new[] { 0.5, 1.5, 0.7 }, load.Rows.Z);
+        Rel.Equal(0.1 * Math.PI / 648000.0, load.Rows.ThetaErrRad![0]);    // 1″ = π/648000 rad (definition)
+    }
+
+    [Fact]
+    public void AnExtraFieldThatHoldsAValueIsStillRejected()
+    {
+        using var t = new TempFiles();
+        var load = CatalogueLoader.Load(t.Write("x.csv", "z,theta\n0.5,1.0,7\n0.6,1.0, \n0.7,1.0,,\n"));
+        Assert.Equal(3, load.RowsRead);
+        Assert.Equal([2L, 4L], load.RejectLog.Entries.Select(e => e.Row));   // '7' is a value; two trailing fields are not one delimiter
+        Assert.All(load.RejectLog.Entries, e => Assert.Equal(RejectReason.Unparsable, e.Reason));
+    }
+
     [Fact]
     public void WhitespaceTableWithHeaderLineQuotedNamesAndNulls()
     {

@@ -57,6 +57,8 @@ internal sealed class DelimitedTextReader : TextTableReader
         return false;
     }
 
+    protected override bool FieldIsEmpty(int index) => _csv.GetSpan(index).IsEmpty;
+
     protected override void DecodeField(int index, ColumnBuffer buffer, bool asText, int row) => Cells.Decode(_csv.GetSpan(index), buffer, asText, row);
 
     public override void Dispose() => _csv.Dispose();

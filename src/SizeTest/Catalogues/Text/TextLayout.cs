@@ -104,6 +104,16 @@ internal sealed class TextLayout
         var seen = new UniqueColumnNames();
         // Kinds are judged on the first lines: 200 of them, fewer for wide tables (at most ~200 000 cells are split).
         var sampleCells = data.Take(Math.Clamp(200_000 / Math.Max(1, names.Length), 2, 200)).Select(d => Split(d.Text, delim, maxColumns)).ToList();
+        // A header line ending with the delimiter ("z,theta,") has an empty field after its last name: no column, when no
+        // sampled line has a value there (each line ends one field earlier, or with the delimiter too).
+        if (headerFirst && delim != ' ' && names.Length > 1 && names[^1].Trim().Length == 0
+            && sampleCells.All(f => f.Length < names.Length || f[names.Length - 1].Length == 0))
+        {
+            names = names[..^1];
+            notes.Add($"header: line {headerLine} ends with the delimiter; the empty field after its last name is no column");
+        }
+        if (sampleCells.Count > 0 && delim != ' ' && sampleCells[0].Length == names.Length + 1 && sampleCells[0][^1].Length == 0)
+            notes.Add("data lines end with the delimiter; the empty field after the last column is ignored");
         for (int i = 0; i < names.Length; i++)
         {
             var (name, unit) = SplitUnit(names[i].Trim());

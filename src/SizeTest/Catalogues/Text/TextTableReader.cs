@@ -3,7 +3,8 @@ namespace SizeTest.Catalogues.Text;
 /// <summary>
 /// What the two text readers share: the table description from <see cref="TextLayout"/> and the
 /// record loop that turns each record into a row of the chunk — the file line as its position, a
-/// row problem when the field count differs from the header's, a missing field as null, and every
+/// row problem when the field count differs from the header's (one empty field more, a line ending with the delimiter,
+/// is none), a missing field as null, and every
 /// requested field through the one <see cref="TextCellDecoder"/>. A reader supplies only how to
 /// find the next record and its fields.
 /// </summary>
@@ -32,6 +33,9 @@ internal abstract class TextTableReader(string path, TextLayout layout, ReaderOp
     /// <param name="fieldCount">How many fields the record has.</param>
     protected abstract bool NextRecord(out long line, out int fieldCount);
 
+    /// <summary>Whether field <paramref name="index"/> of the current record (index &lt; field count) is empty.</summary>
+    protected abstract bool FieldIsEmpty(int index);
+
     /// <summary>Decodes field <paramref name="index"/> of the current record (index &lt; field count) with <see cref="Cells"/>.</summary>
     protected abstract void DecodeField(int index, ColumnBuffer buffer, bool asText, int row);
 
@@ -44,7 +48,9 @@ internal abstract class TextTableReader(string path, TextLayout layout, ReaderOp
         {
             if (!NextRecord(out long line, out int fieldCount)) { _done = true; break; }
             int row = chunk.BeginRow(line);
-            if (fieldCount != nCols) chunk.SetRowProblem(row, $"{fieldCount} fields, the header has {nCols}");
+            // A line ending with the delimiter has one empty field after the last column: nothing is in it.
+            if (fieldCount != nCols && !(fieldCount == nCols + 1 && FieldIsEmpty(nCols)))
+                chunk.SetRowProblem(row, $"{fieldCount} fields, the header has {nCols}");
             for (int k = 0; k < chunk.Requests.Count; k++)
             {
                 var req = chunk.Requests[k];

@@ -37,6 +37,8 @@ internal sealed class WhitespaceTextReader : TextTableReader
         return false;
     }
 
+    protected override bool FieldIsEmpty(int index) => _fields[index].Length == 0;
+
     protected override void DecodeField(int index, ColumnBuffer buffer, bool asText, int row) => Cells.Decode(_fields[index], buffer, asText, row);
 
     public override void Dispose() => _reader.Dispose();

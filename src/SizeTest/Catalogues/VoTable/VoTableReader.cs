@@ -9,7 +9,7 @@ namespace SizeTest.Catalogues.VoTable;
 /// <summary>
 /// Reads one TABLE of a VOTable document (IVOA VOTable 1.3/1.4) as a stream: FIELD datatype,
 /// arraysize, unit, ucd, DESCRIPTION and VALUES null; data in the TABLEDATA serialisation
-/// (empty TD, the VALUES null text and NaN are null) or the BINARY2 serialisation (base64 STREAM,
+/// (empty TD and the VALUES null text are null; a written-out NaN or inf is a non-finite number) or the BINARY2 serialisation (base64 STREAM,
 /// a null-flag bitmap before each row, big-endian values; §5.5) — and BINARY, which lacks the flags.
 /// Numeric arrays are listed as unsupported; char/unicodeChar arrays are text. Row positions
 /// are 1-based table rows.
