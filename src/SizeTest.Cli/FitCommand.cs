@@ -45,7 +45,7 @@ internal static class FitCommand
         var seed = new Option<int>("--seed") { Description = "Seed of every random process (starts, bootstrap, folds).", DefaultValueFactory = _ => 1 };
         var starts = new Option<int>("--starts") { Description = "Optimiser starting points per model.", DefaultValueFactory = _ => 4 };
         var sbLimit = new Option<double?>("--sb-limit") { Description = "Survey surface-brightness limit μ < MU (mag/arcsec²), modelled as a truncation." };
-        var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M, modelled as a truncation (needs --observable joint)." };
+        var magLimit = new Option<double?>("--mag-limit") { Description = "Survey magnitude limit m < M: a truncation in μ and θ with --observable joint; with --size-luminosity (size or joint) the fit conditions on the magnitudes it selects on, so it is no truncation (rows are checked on the mag column)." };
         var minSize = new Option<double?>("--min-size") { Description = "Smallest resolvable angular size θ > ARCSEC, modelled as a truncation." };
         var expect = new Option<string[]>("--expect") { Description = "NAME=LO:HI: expected range of an evolution parameter (e.g. size_evolution=-1.5:-0.7); repeatable." };
         var maxOutside = new Option<double>("--max-outside-selection") { Description = "Largest fraction (0–1) of objects that may lie outside --sb-limit/--mag-limit/--min-size; they go to the reject log, and beyond it the fit is refused.", DefaultValueFactory = _ => SelectionConsistency.DefaultMaxOutsideFraction };
@@ -62,9 +62,12 @@ internal static class FitCommand
         context.SetAction(command, parse =>
         {
             var kind = FitOptionParsing.Observable(parse.GetValue(observable)!);
+            var surveyRequest = surveyOptions.Request(parse);
+            // The size relation decides what a magnitude limit means, so the nuisance model carries it from the start (the sample's own
+            // survey terms are bound once it is loaded).
             var nuisance = new NuisanceModel(kind,
                 new SelectionLimits(parse.GetValue(sbLimit), parse.GetValue(magLimit), parse.GetValue(minSize)),
-                parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes));
+                parse.GetValue(relation), parse.GetValue(pivot), parse.GetValue(dimOffset), parse.GetValue(nodes), surveyRequest.RelationTerms);
             nuisance.Validate();
             var families = choice.Families(parse);
             if (families.Length == 0) throw new InputException("--models is empty; name at least one world model");
@@ -78,7 +81,6 @@ internal static class FitCommand
             if (choice.ConventionExponent(parse, families, overrides.Names) is { } q)
                 overrides = overrides with { Fixed = new Dictionary<string, double>(overrides.Fixed!, StringComparer.Ordinal) { [WorldModelParameters.Names.LuminosityExponent] = q } };
             var expected = FitOptionParsing.Ranges(parse.GetValue(expect), "--expect").Select(kv => new ExpectedRange(kv.Key, kv.Value.Lo, kv.Value.Hi)).ToArray();
-            var surveyRequest = surveyOptions.Request(parse);
             var luminosity = surveyOptions.Luminosity(parse, surveyRequest);
             bool surveyAsked = SurveyBinding.IsAsked(surveyRequest, parse.GetValue(surveyOptions.Group));
             if (!surveyAsked) CheckNames(overrides, expected, families, nuisance, parse.GetValue(profile));

@@ -37,10 +37,14 @@ public sealed record NuisanceModel(
     public void Validate()
     {
         var s = Cuts;
-        if (Observable == ObservableKind.Size && (s.SbLimit is not null || s.MagLimit is not null))
-            throw SettingProblem.Input("a surface-brightness or magnitude limit needs {observable} sb or joint (a size-only fit has no surface-brightness model)");
-        if (Observable == ObservableKind.SurfaceBrightness && (s.MinThetaArcsec is not null || s.MagLimit is not null))
-            throw SettingProblem.Input("a minimum size or magnitude limit needs {observable} size or joint (a surface-brightness-only fit has no size model)");
+        if (Observable == ObservableKind.Size && s.SbLimit is not null)
+            throw SettingProblem.Input("a surface-brightness limit needs {observable} sb or joint (a size-only fit has no surface-brightness model)");
+        if (Observable == ObservableKind.SurfaceBrightness && s.MinThetaArcsec is not null)
+            throw SettingProblem.Input("a minimum size needs {observable} size or joint (a surface-brightness-only fit has no size model)");
+        // A magnitude limit is modelled in two ways: as a truncation in μ and θ together (joint: m = μ − 5 log10 θ − 2.5 log10 2π), or,
+        // with the size–luminosity relation, not at all, because the fit conditions on the magnitudes the limit selects on.
+        if (s.MagLimit is not null && Observable != ObservableKind.Joint && SurveyTerms.Relation != Inference.Survey.SizeRelationKind.Luminosity)
+            throw SettingProblem.Input(MagLimitProblem(Observable, SurveyTerms.Relation));
         int cuts = (s.SbLimit is null ? 0 : 1) + (s.MagLimit is null ? 0 : 1) + (s.MinThetaArcsec is null ? 0 : 1);
         if (cuts > 2)
             throw SettingProblem.Input("at most two selection cuts can be modelled together (the joint truncation is bivariate); drop one of {sb_limit}, {mag_limit}, {min_size}");
@@ -60,10 +64,33 @@ public sealed record NuisanceModel(
     public bool SbAtFixedLuminosity => Observable == ObservableKind.Joint && SurveyTerms.Relation != Inference.Survey.SizeRelationKind.None;
 
     /// <summary>
-    /// The magnitude limit selects on the magnitudes the luminosities come from, which a joint fit with the size–luminosity relation
-    /// conditions on: there it is not a truncation of the likelihood (<see cref="Inference.Survey.SurveyJointLikelihood"/>).
+    /// The magnitude limit selects on the magnitudes the luminosities come from, which a size or joint fit with the size–luminosity
+    /// relation conditions on: there it is not a truncation of the likelihood (<see cref="Inference.Survey.SurveySizeLikelihood"/>,
+    /// <see cref="Inference.Survey.SurveyJointLikelihood"/>). The selection depends only on (m, z), so p(θ | z, L, selected) = p(θ | z, L).
     /// </summary>
-    public bool MagLimitIsConditioned => Observable == ObservableKind.Joint && SurveyTerms.Relation == Inference.Survey.SizeRelationKind.Luminosity && Cuts.MagLimit is not null;
+    public bool MagLimitIsConditioned => Observable != ObservableKind.SurfaceBrightness && SurveyTerms.Relation == Inference.Survey.SizeRelationKind.Luminosity && Cuts.MagLimit is not null;
+
+    /// <summary>The note of a fit whose magnitude limit is conditioned on (<see cref="MagLimitIsConditioned"/>).</summary>
+    public const string ConditionedMagLimitNote =
+        "magnitude limit with the size–luminosity relation: the limit selects on the apparent magnitude the luminosities come from, which the fit " +
+        "conditions on, so it does not truncate the likelihood; the rows outside it are rejected against the magnitude column.";
+
+    // Why a magnitude limit cannot be modelled in a size or sb fit without the size–luminosity relation, and what to do instead.
+    private static string MagLimitProblem(ObservableKind observable, Inference.Survey.SizeRelationKind relation) => observable switch
+    {
+        ObservableKind.SurfaceBrightness =>
+            "a magnitude limit cannot be modelled in a surface-brightness-only fit ({observable} sb): m = μ − 5 log10 θ − 2.5 log10 2π selects on sizes and surface brightnesses together, " +
+            "and this fit has no size model; fit {observable} joint (the limit is then a truncation in μ and θ), or {observable} size with {size_luminosity} " +
+            "(the sizes are then conditional on the magnitudes the limit selects on, so it does not bias them)",
+        _ when relation == Inference.Survey.SizeRelationKind.Mass =>
+            "a magnitude limit cannot be modelled in a size-only fit ({observable} size) with {size_mass}: the limit selects on luminosity, which the size–mass relation " +
+            "does not condition on; use {size_luminosity} (the sizes are then conditional on the magnitudes the limit selects on), or fit {observable} joint " +
+            "(the limit is then a truncation in μ and θ)",
+        _ =>
+            "a magnitude limit cannot be modelled in a size-only fit ({observable} size) without the size–luminosity relation: the limit selects on m = μ − 5 log10 θ − 2.5 log10 2π, " +
+            "which a size-only fit does not describe; add {size_luminosity} (the sizes are then conditional on the magnitudes in the mag column, so the limit does not " +
+            "bias them), or fit {observable} joint (the limit is then a truncation in μ and θ)",
+    };
 
     /// <summary>The node count used for a sample of <paramref name="objects"/> objects.</summary>
     public int NodesFor(int objects) => GridNodes != 0 ? GridNodes : objects < 20000 ? 48 : 96;

@@ -20,8 +20,8 @@ namespace SizeTest.Inference;
 /// The cuts are applied exactly as the likelihood applies them to the observables: μ &lt; sb_limit on the
 /// zero-pointed surface brightness, θ &gt; min_size, and m &lt; mag_limit with
 /// m = μ − 5 log10(θ/arcsec) − 2.5 log10(2π) (the mean surface brightness within the half-light radius;
-/// see <see cref="SelectionLimits"/>); in a joint fit with the size–luminosity relation the limit is checked on the magnitude column
-/// the luminosities come from instead (the likelihood conditions on those magnitudes and does not truncate on them). Only cuts the fitted observable models are applied
+/// see <see cref="SelectionLimits"/>); in a size or joint fit with the size–luminosity relation the limit is checked on the magnitude column
+/// the luminosities come from instead (a size fit whose luminosities come from another column is refused) (the likelihood conditions on those magnitudes and does not truncate on them). Only cuts the fitted observable models are applied
 /// (<see cref="NuisanceModel.Validate"/> refuses the others).
 /// </remarks>
 public static class SelectionConsistency
@@ -81,7 +81,11 @@ public static class SelectionConsistency
         double[]? lnTheta = size ? observables.LnTheta : null;
         double[]? mu = sb ? observables.Mu : null;
         var relation = survey?.Relation ?? nuisance.SurveyTerms.Relation;
-        double[]? magnitudes = sb && size && relation == Survey.SizeRelationKind.Luminosity ? observables.Mag : null;
+        double[]? magnitudes = size && relation == Survey.SizeRelationKind.Luminosity ? observables.Mag : null;
+        // A size fit conditioned on the luminosities can only honour a magnitude limit on the apparent magnitudes they come from.
+        if (cuts.MagLimit is not null && !sb && relation == Survey.SizeRelationKind.Luminosity
+            && (magnitudes is null || observables.Survey.Luminosity is { Kind: not LuminosityKind.ApparentMagnitude }))
+            throw SettingProblem.Input($"a magnitude limit in a size-only fit ({{observable}} size) with {{size_luminosity}} selects on the apparent magnitudes the luminosities come from, but this sample's luminosities come from {LuminositySource(observables)}; map the catalogue's apparent magnitudes with {{col}} mag=NAME, or drop {{mag_limit}}");
         double lnMin = cuts.MinThetaArcsec is { } t ? Math.Log(t * AngleUnits.RadiansPerArcsec) : double.NaN;
         for (int i = 0; i < n; i++)
         {
@@ -121,6 +125,14 @@ public static class SelectionConsistency
             throw SettingProblem.Input($"{outside} of {total} objects ({Pct(fraction, "0.0")}) lie outside the stated selection ({detail}), more than the {Pct(maxOutsideFraction, "0.##")} allowed; the cut does not describe this catalogue; check the limits (or raise {{max_outside_selection}})", source);
         return $"{outside} of {total} objects lie outside the stated selection ({detail}); they were moved to the reject log and not fitted";
     }
+
+    private static string LuminositySource(Observables o) => o.Survey.Luminosity?.Kind switch
+    {
+        LuminosityKind.FluxDensity => "radio flux densities (flux_density)",
+        LuminosityKind.AbsoluteMagnitude => "absolute magnitudes (abs_mag)",
+        LuminosityKind.StellarMass => "stellar masses (log_mass)",
+        _ => "no mag column",
+    };
 
     private static string Pct(double f, string format) => (100 * f).ToString(format, CultureInfo.InvariantCulture) + "%";
 

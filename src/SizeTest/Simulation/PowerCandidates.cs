@@ -10,7 +10,7 @@ namespace SizeTest.Simulation;
 /// <item>the observable defaults to <c>joint</c> for galaxies and <c>size</c> for compact radio sources (which have
 /// no surface brightness, so only <c>size</c> is allowed for them);</item>
 /// <item>the fits model the template's selection cuts that enter the observable (the SB limit unless size-only, the
-/// magnitude limit only for joint, the smallest size unless SB-only), and the size–SB relation when the truth has a
+/// magnitude limit for joint, and for size with the size–luminosity relation, which conditions on it; the smallest size unless SB-only), and the size–SB relation when the truth has a
 /// Kormendy slope;</item>
 /// <item>the fits take the survey terms the design implies, as <c>fit</c> would for such a catalogue (<see cref="Survey"/>): the
 /// size–luminosity relation when galaxies are drawn from a luminosity function (not for SB alone), each population's own
@@ -37,11 +37,13 @@ public static class PowerCandidates
     public static NuisanceModel Nuisance(MockSurveySpec template, ObservableKind kind)
     {
         var cuts = template.Design.Cuts;
+        var survey = Survey(template, kind);
+        // A magnitude limit is a truncation in joint fits, or conditioned on in size fits with the size–luminosity relation.
+        bool sizeConditioned = kind == ObservableKind.Size && survey?.Relation == Inference.Survey.SizeRelationKind.Luminosity;
         var selection = new SelectionLimits(
             kind == ObservableKind.Size ? null : cuts.SbLimit,
-            kind == ObservableKind.Joint ? cuts.MagLimit : null,
+            kind == ObservableKind.Joint || sizeConditioned ? cuts.MagLimit : null,
             kind == ObservableKind.SurfaceBrightness ? null : cuts.MinThetaArcsec);
-        var survey = Survey(template, kind);
         // The parameter names of the survey terms (group labels sorted as SurveyRequest.Build sorts them); each mock's fit rebuilds the
         // model from its own objects (PowerAnalysis), which changes no name.
         var named = survey is null ? null : new Inference.Survey.SurveyModel(survey.Relation, survey.Pivot,
@@ -76,7 +78,7 @@ public static class PowerCandidates
         ArgumentNullException.ThrowIfNull(survey);
         ArgumentNullException.ThrowIfNull(template);
         if (survey.Relation == Inference.Survey.SizeRelationKind.Luminosity)
-            yield return FormattableString.Invariant($"the size–luminosity relation (pivot M = {template.SurveyTruth.PivotAbsMag:0.##}; in joint fits μ is conditional on L too and the magnitude limit is not a truncation)");
+            yield return FormattableString.Invariant($"the size–luminosity relation (pivot M = {template.SurveyTruth.PivotAbsMag:0.##}; in joint fits μ is conditional on L too; the fits condition on the magnitudes a magnitude limit selects on, so it is not a truncation)");
         if (survey.Groups) yield return "one set of nuisance parameters per population";
         if (template.Design.MeasurementErrors.PhotoZError > 0) yield return "each object marginalised over its photometric redshift (population prior estimated from each mock)";
     }

@@ -126,12 +126,13 @@ public static class StudyFileParser
         var (survey, luminosity, groupColumn) = root.Table("survey") is { } sv ? Survey(sv) : (null, null, null);
         if (groupColumn is not null)
             mapping = mapping with { Assignments = [.. mapping.Assignments.Where(a => a.Role != ColumnRole.Group), new ColumnAssignment(ColumnRole.Group, groupColumn)] };
+        // The size relation is known now and decides what a magnitude limit means (SurveyRequest.RelationTerms); the sample's own
+        // survey terms are bound once it is loaded.
         var nuisance = new NuisanceModel(observable, selection, modelsNode.Boolean("size_sb_relation") ?? false,
-            modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96);
+            modelsNode.Number("pivot_kpc") ?? 5.0, modelsNode.Number("dimming_offset") ?? 0.0, modelsNode.Integer("grid_nodes") ?? 96, survey?.RelationTerms);
         try
         {
-            nuisance.Validate();
-            if (survey is not null) (nuisance with { Survey = ProvisionalSurvey(survey) }).Validate();
+            (survey is null ? nuisance : nuisance with { Survey = ProvisionalSurvey(survey) }).Validate();
         }
         catch (InputException e) when (e.SettingProblems.Count > 0)
         {

@@ -270,8 +270,8 @@ public static class StudyReportAdapter
         if (cuts.SbLimit is { } sb) cutWords.Add(string.Create(Inv, $"μ < {sb:0.##} mag/arcsec²"));
         if (cuts.MagLimit is { } m) cutWords.Add(string.Create(Inv, $"m < {m:0.##} mag"));
         if (cuts.MinThetaArcsec is { } t) cutWords.Add(string.Create(Inv, $"θ > {t:0.###} arcsec"));
-        // A joint fit with the size–luminosity relation conditions on the magnitudes a magnitude limit selects on: not a truncation there.
-        bool magConditioned = cuts.MagLimit is not null && study.Nuisance.Observable == ObservableKind.Joint && sv?.SizeRelation == "luminosity";
+        // A size or joint fit with the size–luminosity relation conditions on the magnitudes a magnitude limit selects on: not a truncation there.
+        bool magConditioned = cuts.MagLimit is not null && study.Nuisance.Observable != ObservableKind.SurfaceBrightness && sv?.SizeRelation == "luminosity";
         if (magConditioned) cutWords.RemoveAll(w => w.StartsWith("m <", StringComparison.Ordinal));
         string window = sv is { AbsMagMin: not null } or { AbsMagMax: not null }
             ? string.Create(Inv, $" Only objects with {(sv.AbsMagMin is { } lo ? $"{lo:0.##} ≤ " : "")}M{(sv.AbsMagMax is { } hi ? $" ≤ {hi:0.##}" : "")} are fitted, recomputed for each world model.") : "";

@@ -185,9 +185,7 @@ internal sealed class SurveyJointLikelihood : IObservableKernel
                       "Where μ and L come from one photometry (μ = m + 5 log10 θ + 2.5 log10 2π), γ = 1 − 2β and b = −2a without a size–SB slope; " +
                       "the μ and size scatters are then one scatter, which this model takes as independent, so its intervals on b, μ0 and γ are too narrow. " +
                       "b is the SB change at fixed luminosity here, not luminosity evolution, so it is not judged against the expected range of luminosity evolution.");
-        if (h.Nuisance.MagLimitIsConditioned)
-            notes.Add("magnitude limit with the size–luminosity relation: the limit selects on the apparent magnitude the luminosities come from, which the fit " +
-                      "conditions on, so it does not truncate the likelihood; the rows outside it are rejected against the magnitude column.");
+        if (h.Nuisance.MagLimitIsConditioned) notes.Add(NuisanceModel.ConditionedMagLimitNote);
         Notes = notes;
     }
 

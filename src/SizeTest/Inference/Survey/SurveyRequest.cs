@@ -95,6 +95,13 @@ public sealed record SurveyRequest(
     public IReadOnlyList<string> NeedsWholeSample(bool groupColumn) =>
         [.. (Groups || groupColumn ? new[] { "{group}" } : []), .. (EvolutionBins is not null ? new[] { "{evolution} binned" } : [])];
 
+    /// <summary>
+    /// The survey terms a nuisance model carries before the sample is loaded: the size relation and its pivots, which decide what a
+    /// selection cut means (<see cref="NuisanceModel.MagLimitIsConditioned"/>); null without a relation. The sample-dependent terms
+    /// (groups, bin edges, photo-z) come with <see cref="Build"/>.
+    /// </summary>
+    public SurveyModel? RelationTerms => Relation == SizeRelationKind.None ? null : new SurveyModel(Relation, Pivot);
+
     /// <summary>Whether the photometry stage must prepare luminosities or masses.</summary>
     public bool NeedsLuminosity => Relation != SizeRelationKind.None || AbsMagMin is not null || AbsMagMax is not null;
 

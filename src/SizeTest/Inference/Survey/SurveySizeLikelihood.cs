@@ -112,6 +112,9 @@ internal sealed class SurveySizeLikelihood : IObservableKernel
                 (sv.MarginaliseRedshift ? sv.ZMarginal == RedshiftMarginal.Linear ? ", with the linearised photo-z variance" : ", at every redshift node of the photo-z integral" : "") + ").");
         }
 
+        // A magnitude limit selects on the magnitudes the luminosities come from, which this likelihood conditions on: no truncation.
+        if (h.Nuisance.MagLimitIsConditioned) notes.Add(NuisanceModel.ConditionedMagLimitNote);
+
         // --- size errors
         _gaussian = sv.SizeErrors == SizeErrorKind.Gaussian;
         if (_gaussian)
