@@ -128,6 +128,24 @@ public sealed class CsvLoadTests
     }
 
     [Fact]
+    public void HeaderUnitsInParenthesesAreUsedWhenTheyAreUnits()
+    {
+        using var t = new TempFiles();
+        // "theta (mas)" was a column of that whole name with no unit: mapped by hand it was read in arcsec, 1000× too large.
+        var p = t.Write("p.csv", "z,Re (mas),e_Re(mas),mu (mag/arcsec2),mag(r),r_e(kpc)\n1,500,20,22.5,21.0,4.0\n");
+        var load = CatalogueLoader.Load(p);
+        Assert.Equal(["z", "Re", "e_Re", "mu", "mag(r)", "r_e"], load.Columns.Select(c => c.Name));   // '(r)' is a band, not a unit
+        Assert.Equal([null, "mas", "mas", "mag/arcsec2", null, "kpc"], load.Columns.Select(c => c.Unit));
+        Rel.Equal(0.5 * Math.PI / 648000.0, load.Rows.ThetaRad![0]);     // 500 mas = 0.5″; 1″ = π/648000 rad (definition)
+        Rel.Equal(0.02 * Math.PI / 648000.0, load.Rows.ThetaErrRad![0]);
+        Assert.Contains(load.DetectionReport, l => l.Contains("[mas, from the file]"));
+        // r_e in kpc is a physical size: passed over for theta, naming its unit.
+        var onlyKpc = CatalogueLoader.Load(t.Write("k.csv", "z,r_e(kpc)\n1,4.0\n"));
+        Assert.Null(onlyKpc.Rows.ThetaRad);
+        Assert.Contains(onlyKpc.DetectionReport, l => l.Contains("unit 'kpc', which is not an angle"));
+    }
+
+    [Fact]
     public void HeaderUnitsInBracketsAreUsed()
     {
         using var t = new TempFiles();

@@ -213,7 +213,9 @@ internal sealed class TextLayout
 
     public static bool IsNumber(string s) => double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out _);
 
-    /// <summary>Splits <c>name [unit]</c> into name and unit.</summary>
+    /// <summary>Splits <c>name [unit]</c> into name and unit; also <c>name (unit)</c> when the parenthesised text is a unit
+    /// SizeTest reads (an angle, mag/arcsec², a magnitude system, a relative error, or a length in pc/kpc/Mpc), so that
+    /// <c>Re (mas)</c> is column Re in mas while <c>mag(r)</c>, a band, keeps its name.</summary>
     public static (string Name, string? Unit) SplitUnit(string header)
     {
         if (header.EndsWith(']'))
@@ -225,8 +227,31 @@ internal sealed class TextLayout
                 return (header[..open].Trim(), unit.Length == 0 ? null : unit);
             }
         }
+        if (header.EndsWith(')') && MatchingOpen(header) is int po and > 0)
+        {
+            var unit = header[(po + 1)..^1].Trim();
+            var name = header[..po].Trim();
+            if (name.Length > 0 && IsUnitWord(unit)) return (name, unit);
+        }
         return (header, null);
     }
+
+    // The index of the '(' that the final ')' closes, or -1.
+    private static int MatchingOpen(string s)
+    {
+        int depth = 0;
+        for (int i = s.Length - 1; i >= 0; i--)
+        {
+            if (s[i] == ')') depth++;
+            else if (s[i] == '(' && --depth == 0) return i;
+        }
+        return -1;
+    }
+
+    private static bool IsUnitWord(string unit) =>
+        unit.Length > 0 && unit != "sec"
+        && (CatalogueUnits.TryParseAngle(unit, out _, out _) || CatalogueUnits.IsSurfaceBrightness(unit) || CatalogueUnits.IsMagnitude(unit)
+            || CatalogueUnits.TryParseRelative(unit, out _) || unit.ToLowerInvariant() is "pc" or "kpc" or "mpc" or "kpc/h" or "mpc/h");
 
     /// <summary>
     /// Counts lines that are neither empty nor comments: an upper bound on the data records
