@@ -142,13 +142,20 @@ public static class MappingResolver
         return string.Join(", ", names) + (columns.Count > 30 ? $" and {columns.Count - 30} more" : "");
     }
 
-    /// <summary>Finds a column by name: exactly, then ignoring case; −1 if absent.</summary>
+    /// <summary>Finds a column by name: exactly, then ignoring case, then as the header writes it with its unit
+    /// (<c>theta [arcsec]</c>, <c>Re (mas)</c>, ignoring blanks and case); −1 if absent.</summary>
     public static int FindColumn(IReadOnlyList<CatalogueColumn> columns, string name)
     {
         for (int i = 0; i < columns.Count; i++) if (columns[i].Name == name) return i;
         for (int i = 0; i < columns.Count; i++) if (string.Equals(columns[i].Name, name, StringComparison.OrdinalIgnoreCase)) return i;
+        // The header as the file writes it, unit included ("theta [arcsec]", "Re (mas)"): the column whose name and unit it is.
+        var asWritten = Compact(name);
+        for (int i = 0; i < columns.Count; i++)
+            if (columns[i].Unit is { Length: > 0 } u && (asWritten == Compact($"{columns[i].Name}[{u}]") || asWritten == Compact($"{columns[i].Name}({u})"))) return i;
         return -1;
     }
+
+    private static string Compact(string s) => new string(s.Where(c => !char.IsWhiteSpace(c)).ToArray()).ToLowerInvariant();
 
     private static bool Eligible(ColumnRole role, CatalogueColumn c) =>
         role.IsText() ? c.Kind != ColumnKind.Unsupported : c.Kind is ColumnKind.Real or ColumnKind.Integer or ColumnKind.Text;

@@ -139,6 +139,9 @@ public sealed class CsvLoadTests
         Rel.Equal(0.5 * Math.PI / 648000.0, load.Rows.ThetaRad![0]);     // 500 mas = 0.5″; 1″ = π/648000 rad (definition)
         Rel.Equal(0.02 * Math.PI / 648000.0, load.Rows.ThetaErrRad![0]);
         Assert.Contains(load.DetectionReport, l => l.Contains("[mas, from the file]"));
+        // A --col naming the header as written, unit included, finds the column (and takes the unit from the file).
+        var byHeader = CatalogueLoader.Load(p, new CatalogueLoadOptions { Mapping = ColumnMapping.FromOptions(["theta=Re (mas)", "theta_err=e_Re (mas)"]) });
+        Rel.Equal(0.5 * Math.PI / 648000.0, byHeader.Rows.ThetaRad![0]);
         // r_e in kpc is a physical size: passed over for theta, naming its unit.
         var onlyKpc = CatalogueLoader.Load(t.Write("k.csv", "z,r_e(kpc)\n1,4.0\n"));
         Assert.Null(onlyKpc.Rows.ThetaRad);
