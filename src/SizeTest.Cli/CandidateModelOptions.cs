@@ -1,6 +1,7 @@
 using System.CommandLine;
 using SizeTest.Cosmology;
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -28,7 +29,7 @@ internal sealed class CandidateModelOptions(string modelsDescription, string fix
     /// <summary>The named families, each once, in the order given (empty when none is named).</summary>
     public IWorldModelFamily[] Families(ParseResult parse) =>
         FitOptionParsing.List([parse.GetValue(Models) ?? ""]).Distinct().Select(n =>
-            WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
+            WorldModels.TryGet(n, out var f) ? f : throw new InputException($"--models: unknown world model '{n}'{NameSuggestions.Hint(n, WorldModels.Names)}; known models are {string.Join(", ", WorldModels.Names)}")).ToArray();
 
     /// <summary>The fixed values of <c>--fix</c>.</summary>
     public Dictionary<string, double> Fixed(ParseResult parse) => FitOptionParsing.Fixed(parse.GetValue(Fix));

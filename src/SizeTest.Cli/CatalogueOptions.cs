@@ -2,6 +2,7 @@ using System.CommandLine;
 using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Files;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -62,7 +63,7 @@ internal sealed class CatalogueOptions
         CatalogueFormat? format = null;
         if (parse.GetValue(CatalogueFormat) is { } f)
         {
-            if (!CatalogueReaders.TryParseFormat(f, out var cf)) throw new InputException($"unknown catalogue format '{f}'; use csv, fits or votable");
+            if (!CatalogueReaders.TryParseFormat(f, out var cf)) throw new InputException($"unknown catalogue format '{f}'{NameSuggestions.Hint(f, CatalogueReaders.FormatNames)}; use {string.Join(", ", CatalogueReaders.FormatNames)}");
             format = cf;
         }
         char? delimiter = parse.GetValue(Delimiter) switch
@@ -78,7 +79,7 @@ internal sealed class CatalogueOptions
             null or "auto" => null,
             "yes" or "true" => true,
             "no" or "false" => false,
-            var h => throw new InputException($"--header '{h}' must be auto, yes or no"),
+            var h => throw new InputException($"--header '{h}' must be auto, yes or no{NameSuggestions.Hint(h, ["auto", "yes", "no"])}"),
         };
         return new CatalogueLoadOptions
         {

@@ -6,6 +6,7 @@ using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Inference.Survey;
 using SizeTest.Photometry;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -124,7 +125,7 @@ internal static class FitCommand
         option.Validators.Add(result =>
         {
             string? v = result.GetValueOrDefault<string>();
-            if (v is null || !allowed.Contains(v)) result.AddError($"{name} must be one of {string.Join(", ", allowed)}; got '{v}'.");
+            if (v is null || !allowed.Contains(v)) result.AddError($"{name} must be one of {string.Join(", ", allowed)}; got '{v}'{NameSuggestions.Hint(v ?? "", allowed)}.");
         });
 
     private static void CheckNames(ParameterOverrides o, IEnumerable<ExpectedRange> expected, IWorldModelFamily[] families, NuisanceModel nuisance, string? profile)
@@ -133,6 +134,6 @@ internal static class FitCommand
             .Concat(NuisanceParameters.For(nuisance).Select(p => p.Name)).ToHashSet(StringComparer.Ordinal);
         foreach (var name in o.Names.Concat(expected.Select(e => e.Parameter)).Concat(profile is null ? [] : [profile]))
             if (!known.Contains(name))
-                throw new InputException($"unknown parameter '{name}' for these models and --observable; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
+                throw new InputException($"unknown parameter '{name}' for these models and --observable{NameSuggestions.Hint(name, known)}; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
     }
 }

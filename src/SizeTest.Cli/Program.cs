@@ -1,4 +1,6 @@
 using System.CommandLine;
+using System.CommandLine.Completions;
+using System.CommandLine.Parsing;
 using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
@@ -25,7 +27,8 @@ public static class Program
         if (parse.Errors.Count > 0)
         {
             var message = PlainTypeNames(string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)));
-            message += UnknownWordHint(parse);
+            if (!message.Contains("did you mean", StringComparison.Ordinal)) message += UnknownWordHint(parse);
+            if (!message.Contains("did you mean", StringComparison.Ordinal)) message += AllowedValueHint(parse.Errors[0]);
             stderr.WriteLine($"sizetest: {message} (see 'sizetest {CommandPath(parse)} --help')");
             return ExitCodes.BadInput;
         }
@@ -39,18 +42,35 @@ public static class Program
         }
     }
 
-    // An unrecognised first word is most often a mistyped verb, a later one a mistyped option: suggest the closest.
+    // An unrecognised first word is most often a mistyped verb, a later one a mistyped option: suggest the closest. Options
+    // are compared without their leading dashes ('-modle' is one edit from '--model'; '--h0' is a name of two characters).
     private static string UnknownWordHint(ParseResult parse)
     {
         var command = parse.CommandResult.Command;
         foreach (var word in parse.UnmatchedTokens)
         {
-            var known = word.StartsWith('-')
-                ? command.Options.SelectMany(o => o.Aliases.Prepend(o.Name))
-                : command.Subcommands.Where(c => !c.Hidden).Select(c => c.Name);
-            string hint = SizeTest.Foundation.Text.NameSuggestions.Hint(word, known);
-            if (hint.Length > 0) return hint;
+            string? closest;
+            if (word.StartsWith('-'))
+            {
+                var options = command.Options.Where(o => !o.Hidden).SelectMany(o => o.Aliases.Prepend(o.Name)).DistinctBy(n => n.TrimStart('-')).ToDictionary(n => n.TrimStart('-'));
+                closest = NameSuggestions.Closest(word.TrimStart('-'), options.Keys) is { } bare ? options[bare] : null;
+            }
+            else closest = NameSuggestions.Closest(word, command.Subcommands.Where(c => !c.Hidden).Select(c => c.Name));
+            if (closest is not null) return NameSuggestions.DidYouMean(closest);
         }
+        return "";
+    }
+
+    // A value outside an option's list (AcceptOnlyFromAmong, whose values are the option's completions): suggest the closest.
+    private static string AllowedValueHint(ParseError error)
+    {
+        if (error.SymbolResult is not (OptionResult or ArgumentResult { Parent: OptionResult })) return "";
+        var result = error.SymbolResult as OptionResult ?? (OptionResult)((ArgumentResult)error.SymbolResult).Parent!;
+        var allowed = result.Option.GetCompletions(CompletionContext.Empty).Select(c => c.Label).ToArray();
+        if (allowed.Length == 0) return "";
+        foreach (var token in result.Tokens)
+            if (!allowed.Contains(token.Value) && NameSuggestions.Closest(token.Value, allowed) is { } closest)
+                return NameSuggestions.DidYouMean(closest);
         return "";
     }
 

@@ -4,6 +4,7 @@ using SizeTest.Foundation.Errors;
 using SizeTest.Cosmology;
 using SizeTest.Inference.Survey;
 using SizeTest.Photometry;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -85,7 +86,7 @@ internal sealed class SurveyCliOptions
     /// <summary>Parses <c>--evolution power|binned:K</c>: null for the power law, else K.</summary>
     public static int? EvolutionBins(string text) =>
         SurveyRequest.TryParseEvolution(text, out var bins) ? bins
-            : throw new InputException($"--evolution must be power or binned:K with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins} (e.g. binned:5); got '{text}'");
+            : throw new InputException($"--evolution must be power or binned:K with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins} (e.g. binned:5); got '{text}'{SurveyRequest.EvolutionHint(text)}");
 
     /// <summary>Parses <c>LO:HI</c> (either end may be negative).</summary>
     public static (double? Lo, double? Hi) Range(string text, string option, string example)

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using SizeTest.Cosmology;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Cli;
 
@@ -30,7 +31,7 @@ internal sealed class WorldModelOptions
         {
             string? name = result.GetValueOrDefault<string>();
             if (name is null || !WorldModels.TryGet(name, out _))
-                result.AddError($"Unknown world model '{name}' for --model; known models are {string.Join(", ", WorldModels.Names)}.");
+                result.AddError($"Unknown world model '{name}' for --model{NameSuggestions.Hint(name ?? "", WorldModels.Names)}; known models are {string.Join(", ", WorldModels.Names)}.");
         });
         var seen = new HashSet<string>();
         foreach (var family in WorldModels.All)

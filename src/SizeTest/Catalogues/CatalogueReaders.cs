@@ -75,6 +75,9 @@ public static class CatalogueReaders
         }
     }
 
+    /// <summary>The formats' names as <see cref="TryParseFormat"/> reads them (each also takes other spellings), for messages.</summary>
+    public static IReadOnlyList<string> FormatNames { get; } = ["csv", "fits", "votable", "parquet"];
+
     /// <summary>Parses a <c>--format</c> text for catalogues: <c>csv</c>/<c>text</c>/<c>tsv</c>, <c>fits</c>, <c>votable</c>/<c>vot</c>, <c>parquet</c>.</summary>
     public static bool TryParseFormat(string? text, out CatalogueFormat format)
     {

@@ -1,4 +1,5 @@
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Catalogues;
 
@@ -34,7 +35,8 @@ public sealed record ColumnAssignment(ColumnRole Role, string ColumnName, string
         var roleText = t[..eq].Trim();
         if (!ColumnRoles.TryParse(roleText, out var role))
         {
-            error = $"unknown column role '{roleText}' in '{text}'; roles are {string.Join(", ", ColumnRoles.All.Select(r => r.Name()))}";
+            var roles = ColumnRoles.All.Select(r => r.Name()).ToArray();
+            error = $"unknown column role '{roleText}' in '{text}'{NameSuggestions.Hint(roleText, roles)}; roles are {string.Join(", ", roles)}";
             return false;
         }
         var rest = t[(eq + 1)..].Trim();

@@ -1,5 +1,6 @@
 using SizeTest.Foundation.Errors;
 using SizeTest.Foundation.Angles;
+using SizeTest.Foundation.Text;
 
 namespace SizeTest.Catalogues;
 
@@ -68,7 +69,7 @@ public static class MappingResolver
         {
             int idx = FindColumn(columns, a.ColumnName);
             if (idx < 0)
-                throw new InputException($"there is no column '{a.ColumnName}' for {a.Role.Name()}; the columns are {ListNames(columns)}", sourceName, column: a.ColumnName);
+                throw new InputException($"there is no column '{a.ColumnName}' for {a.Role.Name()}{ColumnHint(columns, a.ColumnName)}; the columns are {ListNames(columns)}", sourceName, column: a.ColumnName);
             var col = columns[idx];
             if (!Eligible(a.Role, col))
                 throw new InputException($"column '{col.Name}' ({col.NativeType}) cannot hold {a.Role.Name()} values", sourceName, column: col.Name);
@@ -117,7 +118,7 @@ public static class MappingResolver
         foreach (var name in mapping.Keep)
         {
             int idx = FindColumn(columns, name);
-            if (idx < 0) throw new InputException($"there is no column '{name}' to keep; the columns are {ListNames(columns)}", sourceName, column: name);
+            if (idx < 0) throw new InputException($"there is no column '{name}' to keep{ColumnHint(columns, name)}; the columns are {ListNames(columns)}", sourceName, column: name);
             if (columns[idx].Kind is ColumnKind.Unsupported or ColumnKind.Boolean)
                 throw new InputException($"column '{name}' ({columns[idx].NativeType}) is not numeric and cannot be kept", sourceName, column: name);
             if (!kept.Any(k => k.Item2 == idx)) kept.Add((columns[idx].Name, idx));
@@ -135,6 +136,8 @@ public static class MappingResolver
 
         return new ResolvedMapping(roles, kept, def, defReason, notes);
     }
+
+    private static string ColumnHint(IReadOnlyList<CatalogueColumn> columns, string name) => NameSuggestions.Hint(name, columns.Select(c => c.Name));
 
     private static string ListNames(IReadOnlyList<CatalogueColumn> columns)
     {

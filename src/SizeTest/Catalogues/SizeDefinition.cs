@@ -1,3 +1,5 @@
+using SizeTest.Foundation.Text;
+
 namespace SizeTest.Catalogues;
 
 /// <summary>How the catalogue's angular size was measured. Travels with the sample.</summary>
@@ -58,7 +60,9 @@ public static class SizeDefinitions
                 definition = new SizeDefinition(SizeKind.Isophotal, level);
                 return true;
             default:
-                error = $"unknown size definition '{text}'; use effective, petrosian, isophotal:LEVEL or fwhm";
+                string hint = NameSuggestions.Closest(t, ["effective", "petrosian", "isophotal", "fwhm"]) is { } close
+                    ? NameSuggestions.DidYouMean(close == "isophotal" ? "isophotal:" + (arg ?? "LEVEL") : close) : "";
+                error = $"unknown size definition '{text}'{hint}; use effective, petrosian, isophotal:LEVEL or fwhm";
                 return false;
         }
     }

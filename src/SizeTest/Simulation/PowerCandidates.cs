@@ -1,5 +1,6 @@
 using SizeTest.Cosmology;
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 using SizeTest.Inference;
 
 namespace SizeTest.Simulation;
@@ -102,7 +103,7 @@ public static class PowerCandidates
         var allKnown = hypotheses.SelectMany(h => h.Parameters.Select(p => p.Name)).ToHashSet();
         foreach (var name in userFixed.Keys.Concat(userFree))
             if (!allKnown.Contains(name))
-                throw SettingProblem.Exception([new($"unknown parameter '{name}' for these models and {{observable}} {nuisance.Observable.Name()}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}")]);
+                throw SettingProblem.Exception([new($"unknown parameter '{name}' for these models and {{observable}} {nuisance.Observable.Name()}{NameSuggestions.Hint(name, allKnown)}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}")]);
         return hypotheses;
     }
 }

@@ -1,5 +1,6 @@
 using SizeTest.Catalogues;
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 using SizeTest.Cosmology;
 using SizeTest.Inference;
 using SizeTest.Inference.Survey;
@@ -27,6 +28,17 @@ public static class StudyFileParser
         ["inference"] = "[inference] takes starts, bootstrap, cv_folds, sampler, sampler_steps, sampler_max_steps, sampler_walkers",
         ["power"] = "[power] takes results (a power.json written by 'sizetest power')",
         ["report"] = "[report] takes title, paper, formats, figure_width, bins, bin_resamples",
+    };
+
+    // The keys of [models] other than its per-model tables.
+    private static readonly string[] ModelKeys = ["names", "observable", "size_sb_relation", "pivot_kpc", "dimming_offset", "grid_nodes", FluxConventions.Setting];
+
+    // "; got 'X'" for a value outside the allowed ones, with a did-you-mean among them when it is a string.
+    private static string Got(TomlNode node, IReadOnlyList<string> allowed) => node.Scalar switch
+    {
+        string s => $"; got '{s}'{NameSuggestions.Hint(s, allowed)}",
+        { } v => $"; got {Convert.ToString(v, System.Globalization.CultureInfo.InvariantCulture)}",
+        _ => "",
     };
 
     /// <summary>Reads and parses <paramref name="path"/>; the path is kept as given for the manifest.</summary>
@@ -108,13 +120,13 @@ public static class StudyFileParser
         if (names.Count == 0) throw namesNode.Error("'models.names' is empty; name at least one world model");
         foreach (var (n, i) in names.Select((n, i) => (n, i)))
         {
-            if (!WorldModels.TryGet(n, out _)) throw (namesNode.Items?[i] ?? namesNode).Error($"unknown world model '{n}'; known models are {string.Join(", ", WorldModels.Names)}");
+            if (!WorldModels.TryGet(n, out _)) throw (namesNode.Items?[i] ?? namesNode).Error($"unknown world model '{n}'{NameSuggestions.Hint(n, WorldModels.Names)}; known models are {string.Join(", ", WorldModels.Names)}");
             if (names.Take(i).Contains(n)) throw (namesNode.Items?[i] ?? namesNode).Error($"world model '{n}' is listed twice");
         }
         var obsNode = modelsNode.Get("observable");
         var observable = ObservableKind.Size;
         if (obsNode is not null && !(obsNode.Scalar is string obsText && ObservableKinds.TryParse(obsText, out observable)))
-            throw obsNode.Error("'models.observable' must be \"size\", \"sb\" or \"joint\"");
+            throw obsNode.Error($"'models.observable' must be \"size\", \"sb\" or \"joint\"{Got(obsNode, [.. ObservableKinds.Names])}");
 
         // [selection]
         var selection = SelectionLimits.None;
@@ -155,10 +167,10 @@ public static class StudyFileParser
         var perModelNodes = new Dictionary<string, TomlNode>(StringComparer.Ordinal);
         foreach (var key in modelsNode.Keys)
         {
-            if (key is "names" or "observable" or "size_sb_relation" or "pivot_kpc" or "dimming_offset" or "grid_nodes" or FluxConventions.Setting) continue;
+            if (ModelKeys.Contains(key)) continue;
             var node = modelsNode.Get(key)!;
             if (!node.IsTable || !names.Contains(key))
-                throw node.Error($"unknown key 'models.{key}'; {TableKeys["models"]} (listed: {string.Join(", ", names)})");
+                throw node.Error($"unknown key 'models.{key}'{NameSuggestions.Hint(key, [.. names, .. ModelKeys])}; {TableKeys["models"]} (listed: {string.Join(", ", names)})");
             perModel[key] = Parameters(node, StudyHypotheses.KnownNames(WorldModels.Get(key), named), $"world model '{key}' with this observable", grouped);
             perModelNodes[key] = node;
         }
@@ -171,7 +183,7 @@ public static class StudyFileParser
             foreach (var key in ex.Keys)
             {
                 var node = ex.Get(key)!;
-                if (!allKnown.Contains(key)) throw node.Error($"unknown parameter '{key}' in [expected]; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
+                if (!allKnown.Contains(key)) throw node.Error($"unknown parameter '{key}' in [expected]{NameSuggestions.Hint(key, allKnown)}; known parameters are {string.Join(", ", allKnown.Order(StringComparer.Ordinal))}");
                 var r = node.AsNumbers(2, "[-1.5, -0.7]");
                 if (!(r[0] < r[1])) throw node.Error($"'expected.{key}': the lower end must be below the upper end");
                 expected.Add(new ExpectedRange(key, r[0], r[1]));
@@ -188,7 +200,7 @@ public static class StudyFileParser
         if (starts < 1) throw inf!.Get("starts")!.Error("'inference.starts' must be at least 1");
         if (bootstrap < 0) throw inf!.Get("bootstrap")!.Error("'inference.bootstrap' must be 0 or more");
         if (folds is < 0 or 1) throw inf!.Get("cv_folds")!.Error("'inference.cv_folds' must be 0 (none) or at least 2");
-        if (samplerName is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error("'inference.sampler' must be \"none\" or \"mcmc\"");
+        if (samplerName is not ("none" or "mcmc")) throw inf!.Get("sampler")!.Error($"'inference.sampler' must be \"none\" or \"mcmc\"{Got(inf.Get("sampler")!, ["none", "mcmc"])}");
         if (steps is > 0 and < 100) throw inf!.Get("sampler_steps")!.Error("'inference.sampler_steps' must be \"auto\" or at least 100");
         if (maxSteps < 100) throw inf!.Get("sampler_max_steps")!.Error("'inference.sampler_max_steps' must be at least 100");
         if (walkers is < 4 or > 100_000) throw inf!.Get("sampler_walkers")!.Error("'inference.sampler_walkers' must be between 4 and 100000");
@@ -202,12 +214,12 @@ public static class StudyFileParser
         if (root.Table("report") is { } rep)
         {
             var paper = PaperSize.A4;
-            if (rep.Get("paper") is { } pn && !PaperSize.TryParse(pn.Scalar as string, out paper)) throw pn.Error("'report.paper' must be \"a4\" or \"letter\"");
+            if (rep.Get("paper") is { } pn && !PaperSize.TryParse(pn.Scalar as string, out paper)) throw pn.Error($"'report.paper' must be \"a4\" or \"letter\"{Got(pn, ["a4", "letter"])}");
             report = report with { Title = rep.String("title"), Paper = paper, Bins = rep.Integer("bins") ?? 8, BinResamples = rep.Integer("bin_resamples") ?? 200 };
             if (rep.Get("figure_width") is { } fw)
             {
                 if (!Reporting.Figures.FigureWidth.TryParse(fw.Scalar, out var width))
-                    throw fw.Error($"'report.figure_width' must be \"single-column\", \"double-column\" or a width in inches between {Reporting.Figures.FigureWidth.MinInches} and {Reporting.Figures.FigureWidth.MaxInches}");
+                    throw fw.Error($"'report.figure_width' must be \"single-column\", \"double-column\" or a width in inches between {Reporting.Figures.FigureWidth.MinInches} and {Reporting.Figures.FigureWidth.MaxInches}{Got(fw, ["single-column", "double-column"])}");
                 report = report with { FigureWidth = width };
             }
             if (report.Bins < 1) throw rep.Get("bins")!.Error("'report.bins' must be at least 1");
@@ -218,7 +230,7 @@ public static class StudyFileParser
                 var formats = rep.Strings("formats") ?? [];
                 for (int i = 0; i < formats.Count; i++)
                     if (!StudyReportOptions.FormatNames.Contains(formats[i]))
-                        throw (fnode.Items?[i] ?? fnode).Error($"unknown report format '{formats[i]}'; formats are {string.Join(", ", StudyReportOptions.FormatNames)}");
+                        throw (fnode.Items?[i] ?? fnode).Error($"unknown report format '{formats[i]}'{NameSuggestions.Hint(formats[i], StudyReportOptions.FormatNames)}; formats are {string.Join(", ", StudyReportOptions.FormatNames)}");
                 report = report with
                 {
                     Html = formats.Contains("html"), Pdf = formats.Contains("pdf"), FigurePng = formats.Contains("png"),
@@ -284,7 +296,7 @@ public static class StudyFileParser
     {
         if (modelsNode.Get(FluxConventions.Setting) is not { } node) return null;
         if (!FluxConventions.TryParse(node.Scalar as string, out var convention))
-            throw node.Error($"'models.{FluxConventions.Setting}' must be {string.Join(" or ", FluxConventions.Names.Select(n => $"\"{n}\""))}; got '{node.Scalar}'");
+            throw node.Error($"'models.{FluxConventions.Setting}' must be {string.Join(" or ", FluxConventions.Names.Select(n => $"\"{n}\""))}{Got(node, [.. FluxConventions.Names])}");
         if (FluxConventions.Unused(families, "models") is { } unused) throw node.Error(unused.Render(StudySettingKeys.Key));
         string q = WorldModelParameters.Names.LuminosityExponent;
         foreach (var (table, where) in new[] { (shared, "parameters") }.Concat(perModel.Select(kv => ((TomlNode?)kv.Value, $"models.{kv.Key}"))))
@@ -302,7 +314,7 @@ public static class StudyFileParser
             null or "none" => SizeRelationKind.None,
             "luminosity" => SizeRelationKind.Luminosity,
             "mass" => SizeRelationKind.Mass,
-            _ => throw relNode!.Error("'survey.size_relation' must be \"none\", \"luminosity\" or \"mass\""),
+            _ => throw relNode!.Error($"'survey.size_relation' must be \"none\", \"luminosity\" or \"mass\"{Got(relNode, ["none", "luminosity", "mass"])}"),
         };
         var d = LuminosityPivot.Default;
         var pivot = new LuminosityPivot(sv.Number("pivot_abs_mag") ?? d.AbsMag, sv.Number("pivot_log_mass") ?? d.LogMass, sv.Number("pivot_log_lum") ?? d.LogRadioLuminosity);
@@ -319,23 +331,23 @@ public static class StudyFileParser
         if (group is { Length: 0 }) throw sv.Get("group")!.Error("'survey.group' names the column of population labels; it is empty");
         int? bins = null;
         if (sv.Get("evolution") is { } evNode && !SurveyRequest.TryParseEvolution(evNode.Scalar as string ?? "", out bins))
-            throw evNode.Error($"'survey.evolution' must be \"power\" or \"binned:K\" with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins}; got '{evNode.Scalar}'");
+            throw evNode.Error($"'survey.evolution' must be \"power\" or \"binned:K\" with 2 ≤ K ≤ {SurveyRequest.MaxEvolutionBins}; got '{evNode.Scalar}'{SurveyRequest.EvolutionHint(evNode.Scalar as string ?? "")}");
         var errNode = sv.Get("size_errors");
         var errors = errNode?.Scalar switch
         {
             null or "lognormal" => SizeErrorKind.LogNormal,
             "gaussian" => SizeErrorKind.Gaussian,
-            _ => throw errNode!.Error("'survey.size_errors' must be \"lognormal\" or \"gaussian\""),
+            _ => throw errNode!.Error($"'survey.size_errors' must be \"lognormal\" or \"gaussian\"{Got(errNode, ["lognormal", "gaussian"])}"),
         };
         RedshiftMarginal? marginal = null;
         if (sv.Get("z_marginal") is { } zmNode && !SurveyRequest.TryParseZMarginal(zmNode.Scalar as string, out marginal))
-            throw zmNode.Error($"'survey.z_marginal' must be \"quadrature\" or \"linear\"; got '{zmNode.Scalar}'");
+            throw zmNode.Error($"'survey.z_marginal' must be \"quadrature\" or \"linear\"{Got(zmNode, ["quadrature", "linear"])}");
         var shapeNode = sv.Get("z_prior_shape");
         var shape = shapeNode?.Scalar switch
         {
             null or "population" => RedshiftPriorShape.Population,
             "flat" => RedshiftPriorShape.Flat,
-            _ => throw shapeNode!.Error("'survey.z_prior_shape' must be \"population\" or \"flat\""),
+            _ => throw shapeNode!.Error($"'survey.z_prior_shape' must be \"population\" or \"flat\"{Got(shapeNode, ["population", "flat"])}"),
         };
         int? zNodes = null;
         if (sv.Get("z_nodes") is { } znNode)
@@ -384,7 +396,7 @@ public static class StudyFileParser
             "fits" => CatalogueFormat.Fits,
             "votable" or "vot" => CatalogueFormat.VoTable,
             "parquet" => CatalogueFormat.Parquet,
-            _ => throw node.Error("'catalogue.format' must be \"csv\", \"text\", \"fits\", \"votable\" or \"parquet\" (or left out to detect)"),
+            _ => throw node.Error($"'catalogue.format' must be \"csv\", \"text\", \"fits\", \"votable\" or \"parquet\" (or left out to detect){Got(node, ["csv", "text", "fits", "votable", "parquet"])}"),
         };
     }
 
@@ -398,7 +410,7 @@ public static class StudyFileParser
             var node = table.Get(key)!;
             bool groupName = grouped && key.IndexOf('@', StringComparison.Ordinal) is > 0 and var at && at < key.Length - 1 && known.Contains(key[..at]);
             if (!known.Contains(key) && !groupName)
-                throw node.Error($"unknown parameter '{key}' for {what}; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
+                throw node.Error($"unknown parameter '{key}' for {what}{NameSuggestions.Hint(key, known)}; known parameters are {string.Join(", ", known.Order(StringComparer.Ordinal))}");
             list.Add(Setting(key, node));
         }
         return list;

@@ -15,7 +15,7 @@ public sealed class RootCommandTests
     [Fact]
     public void MistypedVerbAndOptionGetADidYouMean()
     {
-        // 'fitt' is one Levenshtein edit from 'fit'; '--modle' two from '--model' (limit: a third of the length, at most 3).
+        // 'fitt' is one Damerau–Levenshtein edit from 'fit'; 'modle' one (a transposition) from 'model' (NameSuggestionsTests).
         var (exit, _, err) = CliRunner.Run("fitt");
         Assert.Equal(2, exit);
         Assert.Contains("did you mean 'fit'?", err);

@@ -112,11 +112,42 @@ public sealed class StudyFileParserTests
     [Fact]
     public void UnknownKeyCloseToAKnownOneGetsADidYouMean()
     {
-        // Levenshtein distance 1 from 'bootstrap' (a key [inference] takes); a far-off key gets no guess.
+        // Damerau–Levenshtein distance 1 from 'bootstrap' (a key [inference] takes); a far-off key gets no guess.
         var e = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nbootstrapp = 3\n"));
         Assert.Contains("did you mean 'bootstrap'?", e.Message);
         var far = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[inference]\nzzzzzz = 3\n"));
         Assert.DoesNotContain("did you mean", far.Message);
+    }
+
+    [Theory]
+    // (lines after [catalogue] path, the line of the bad value, what was given, the suggestion): each 1 or 2 edits away.
+    [InlineData("[models]\nnames = [\"lcmd\"]", 4, "'lcmd'", "lcdm")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\nobservable = \"siz\"", 5, "'siz'", "size")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[models.lcmd]\nh0 = \"free\"", 5, "'models.lcmd'", "lcdm")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[survey]\nsize_errors = \"gausian\"", 6, "'gausian'", "gaussian")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[survey]\nevolution = \"binnd:3\"", 6, "'binnd:3'", "binned:3")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[survey]\nz_prior_shape = \"flt\"", 6, "'flt'", "flat")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[survey]\nz_marginal = \"linaer\"", 6, "'linaer'", "linear")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[survey]\nsize_relation = \"mas\"", 6, "'mas'", "mass")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[inference]\nsampler = \"mcm\"", 6, "'mcm'", "mcmc")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[parameters]\nomega_n = \"free\"", 6, "'omega_n'", "omega_m")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[report]\npaper = \"leter\"", 6, "'leter'", "letter")]
+    [InlineData("[models]\nnames = [\"lcdm\"]\n[columns]\nthta = \"Re\"", 6, "'thta", "theta")]
+    public void AMistypedValueOrNameGetsADidYouMeanAtItsLine(string lines, int line, string given, string suggestion)
+    {
+        var e = Assert.Throws<InputException>(() => Parse($"[catalogue]\npath = \"a.csv\"\n{lines}\n"));
+        Assert.Equal("s.toml", e.File);
+        Assert.Equal(line, e.Line);
+        Assert.Contains(given, e.Message);
+        Assert.Contains($"(did you mean '{suggestion}'?)", e.Message);
+    }
+
+    [Fact]
+    public void ANumberWhereAWordIsExpectedIsNamed()
+    {
+        var e = Assert.Throws<InputException>(() => Parse("[catalogue]\npath = \"a.csv\"\n[models]\nnames = [\"lcdm\"]\n[survey]\nz_marginal = 3\n"));
+        Assert.Contains("got 3", e.Message);
+        Assert.DoesNotContain("did you mean", e.Message);
     }
 
     [Theory]

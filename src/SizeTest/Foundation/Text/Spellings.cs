@@ -34,5 +34,5 @@ public sealed class Spellings<T>(string noun, IReadOnlyList<(T Kind, string Name
 
     /// <summary>The value spelt <paramref name="name"/>; an <see cref="ArgumentException"/> naming the choices otherwise.</summary>
     public T Parse(string name) =>
-        TryParse(name, out var kind) ? kind : throw new ArgumentException($"unknown {noun} '{name}'; use {string.Join(", ", Names)}");
+        TryParse(name, out var kind) ? kind : throw new ArgumentException($"unknown {noun} '{name}'{NameSuggestions.Hint(name, Names)}; use {string.Join(", ", Names)}");
 }

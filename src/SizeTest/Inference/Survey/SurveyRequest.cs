@@ -1,5 +1,6 @@
 using System.Globalization;
 using SizeTest.Foundation.Errors;
+using SizeTest.Foundation.Text;
 using SizeTest.Photometry;
 
 namespace SizeTest.Inference.Survey;
@@ -76,6 +77,23 @@ public sealed record SurveyRequest(
             return true;
         }
         return false;
+    }
+
+    /// <summary>
+    /// " (did you mean 'power'?)" or " (did you mean 'binned:5'?)" for a mistyped evolution form (its part before a colon
+    /// within <see cref="NameSuggestions.MaxDistance"/> of <c>power</c> or <c>binned</c>, the bins kept), or empty.
+    /// </summary>
+    public static string EvolutionHint(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        int colon = text.IndexOf(':', StringComparison.Ordinal);
+        string form = colon < 0 ? text : text[..colon];
+        return NameSuggestions.Closest(form, ["power", "binned"]) switch
+        {
+            "power" => NameSuggestions.DidYouMean("power"),
+            "binned" => NameSuggestions.DidYouMean("binned:" + (colon < 0 ? "K" : text[(colon + 1)..])),
+            _ => "",
+        };
     }
 
     /// <summary>Reads <c>quadrature</c> or <c>linear</c> (fit's z_marginal setting); false (and null) for any other text.</summary>
