@@ -62,7 +62,7 @@ internal sealed class WorldModelOptions
         {
             string? value = result.GetValueOrDefault<string?>();
             if (!FluxConventions.TryParse(value, out _))
-                result.AddError($"--flux-convention must be {string.Join(" or ", FluxConventions.Names)}; got '{value}'.");
+                result.AddError($"--flux-convention must be {string.Join(" or ", FluxConventions.Names)}; got '{value}'{NameSuggestions.Hint(value ?? "", FluxConventions.Names)}.");
         });
         return option;
     }

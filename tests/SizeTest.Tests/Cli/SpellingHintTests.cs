@@ -44,6 +44,7 @@ public sealed class SpellingHintTests
     [InlineData("fit CAT --col thta=theta", "'thta'", "theta")]                   // 1: a role
     [InlineData("fit CAT --keep theta_er", "'theta_er'", "theta_err")]            // 1
     [InlineData("inspect CAT --col z_err=theta_er", "'theta_er'", "theta_err")]
+    [InlineData("predict --z 1 --model static-linear --flux-convention energy_loss", "'energy_loss'", "energy-loss")] // 1
     [InlineData("fit CAT --models lcdm --free omega_n", "'omega_n'", "omega_m")]   // 1: a parameter
     public void AMistypedNameGetsADidYouMean(string command, string given, string suggestion)
     {
