@@ -149,6 +149,37 @@ public sealed class CsvLoadTests
     }
 
     [Fact]
+    public void AUnitsLineAndADashedRuleUnderTheHeaderAreReadAsSuch()
+    {
+        using var t = new TempFiles();
+        // The layout of a VizieR tab-separated download: names, units, a rule of dashes, then the data. Before, the units
+        // line and the rule were two rejected rows, every column was text, and Re in mas was read as arcsec.
+        var p = t.Write("vizier.tsv", "#\n#   VizieR Astronomical Server\n#Column\tRe\t(F6.1)\tEffective radius\n"
+            + "ID\tz\tRe\te_Re\n\t\tmas\tmas\n--------\t------\t------\t-----\nG1\t0.5000\t412.0\t30.0\nG2\t1.2000\t210.0\t20.0\n");
+        var load = CatalogueLoader.Load(p);
+        Assert.Equal(2, load.RowsRead);
+        Assert.Equal(2, load.Accepted);
+        Assert.Equal([ColumnKind.Text, ColumnKind.Real, ColumnKind.Real, ColumnKind.Real], load.Columns.Select(c => c.Kind));
+        Assert.Equal([null, null, "mas", "mas"], load.Columns.Select(c => c.Unit));
+        Rel.Equal(0.412 * Math.PI / 648000.0, load.Rows.ThetaRad![0]);     // 412 mas = 0.412″; 1″ = π/648000 rad (definition)
+        Assert.Equal(new long[] { 7, 8 }, load.Rows.SourceRows.ToArray());  // file lines
+        Assert.Contains(load.LayoutNotes, n => n.Contains("units: line 5", StringComparison.Ordinal));
+        Assert.Contains(load.LayoutNotes, n => n.Contains("line 6", StringComparison.Ordinal) && n.Contains("dashes", StringComparison.Ordinal));
+
+        // A rule alone under a whitespace header; and a units line of known units without a rule.
+        var ws = CatalogueLoader.Load(t.Write("ws.dat", "name  z    Re\n----  ---  --\nG1    0.5  0.4\n"));
+        Assert.Equal((1L, 1L), (ws.RowsRead, ws.Accepted));
+        var csv = CatalogueLoader.Load(t.Write("u.csv", "id,z,theta,theta_err\n,,arcmin,arcmin\nG1,0.5,0.01,0.001\n"));
+        Assert.Equal((1L, 1L), (csv.RowsRead, csv.Accepted));
+        Rel.Equal(0.01 * Math.PI / 10800.0, csv.Rows.ThetaRad![0]);          // 1′ = π/10800 rad (definition)
+
+        // A second line holding a number is data, not units.
+        var data = CatalogueLoader.Load(t.Write("d.csv", "id,z,theta\nG1,0.5,0.4\n"));
+        Assert.Equal(1L, data.Accepted);
+        Assert.Null(data.Columns[2].Unit);
+    }
+
+    [Fact]
     public void HeaderUnitsInBracketsAreUsed()
     {
         using var t = new TempFiles();

@@ -45,6 +45,7 @@ internal sealed class DelimitedTextReader : TextTableReader
             {
                 int fc = _csv.FieldCount;
                 if (fc <= 1 && _fieldCount > 1 && _csv.RawRecord.Trim(" \t\r"u8).IsEmpty) continue; // a blank line (spaces only) is no row
+                if (Layout.SkippedLines.Contains(_csv.LineNumber)) continue;                              // units or a rule under the header
                 (line, fieldCount) = (_csv.LineNumber, fc);
                 return true;
             }

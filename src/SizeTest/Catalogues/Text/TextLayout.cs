@@ -18,6 +18,7 @@ internal sealed class TextLayout
     public required bool HeaderFromComment { get; init; }
     public required IReadOnlyList<CatalogueColumn> Columns { get; init; }
     public required IReadOnlyList<string> Notes { get; init; }
+    public IReadOnlySet<long> SkippedLines { get; init; } = new HashSet<long>();   // 1-based lines under the header that are no rows (units, a rule)
 
     public static TextLayout Detect(string path, ReaderOptions options)
     {
@@ -99,6 +100,9 @@ internal sealed class TextLayout
             notes.Add("header: none; columns are named col1, col2, …");
         }
 
+        var skipped = new HashSet<long>();
+        var lineUnits = headerFirst ? UnitsAndRule(data, names.Length, delim, maxColumns, skipped, notes) : null;
+
         var nulls = new HashSet<string>(options.NullTokens) { "" };
         var columns = new List<CatalogueColumn>();
         var seen = new UniqueColumnNames();
@@ -117,6 +121,7 @@ internal sealed class TextLayout
         for (int i = 0; i < names.Length; i++)
         {
             var (name, unit) = SplitUnit(names[i].Trim());
+            if (unit is null && lineUnits is not null && i < lineUnits.Length && lineUnits[i].Length > 0) unit = lineUnits[i];
             if (name.Length == 0) name = $"col{i + 1}";
             var unique = seen.Take(name, i + 1);
             bool numeric = true;
@@ -135,7 +140,42 @@ internal sealed class TextLayout
             HeaderFromComment = fromComment,
             Columns = columns,
             Notes = notes,
+            SkippedLines = skipped,
         };
+    }
+
+    /// <summary>
+    /// The lines archives put under a header (a VizieR tab-separated download: a line of units, then a rule of dashes):
+    /// removed from <paramref name="data"/> into <paramref name="skipped"/>, so they are neither rows nor evidence of a
+    /// text column. A line with no number in it is a units line when a rule follows it, or when every field in it is a
+    /// unit SizeTest reads; it returns those units (one per column, empty where none), or null.
+    /// </summary>
+    private static string[]? UnitsAndRule(List<(long No, string Text)> data, int columns, char delim, int maxColumns, HashSet<long> skipped, List<string> notes)
+    {
+        string[] Fields(int k) => Split(data[k].Text, delim, maxColumns).Select(f => f.Trim()).ToArray();
+        static bool IsRule(string[] f) => f.Any(x => x.Length > 0) && f.All(x => x.Length == 0 || x.All(c => c is '-' or '='));
+        if (data.Count == 0) return null;
+        string[]? units = null;
+        int k = 0;
+        var next = Fields(0);
+        bool ruleAfter = data.Count > 1 && IsRule(Fields(1));
+        bool aligned = delim == ' ' ? next.Length == columns : next.Length <= columns;   // blanks collapse between spaced fields
+        if (!IsRule(next) && aligned && next.Any(f => f.Length > 0) && next.All(f => f.Length == 0 || !IsNumber(f))
+            && (ruleAfter || next.All(f => f.Length == 0 || IsUnitWord(f))))
+        {
+            units = next;
+            skipped.Add(data[0].No);
+            notes.Add($"units: line {data[0].No} (a line of units under the header)");
+            k = 1;
+        }
+        if (data.Count > k && IsRule(Fields(k)))
+        {
+            skipped.Add(data[k].No);
+            notes.Add($"line {data[k].No}: a rule of dashes under the header, skipped");
+            k++;
+        }
+        data.RemoveRange(0, k);
+        return units;
     }
 
     private static char DetectDelimiter(string path, string line, int maxColumns)
@@ -290,6 +330,7 @@ internal sealed class TextLayout
         }
         if (!atLineStart && lineHasContent && !lineIsComment) count++;
         if (HeaderInFirstLine) count--;
+        count -= SkippedLines.Count;
         return Math.Max(0, count);
     }
 }

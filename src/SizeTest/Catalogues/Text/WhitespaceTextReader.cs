@@ -29,6 +29,7 @@ internal sealed class WhitespaceTextReader : TextTableReader
             var t = text.AsSpan().Trim();
             if (t.IsEmpty || t[0] == '#') continue;
             if (!_headerSkipped) { _headerSkipped = true; continue; }
+            if (Layout.SkippedLines.Contains(_lineNo)) continue;   // units or a rule under the header
             _fields = TextLayout.Split(text, ' ');
             (line, fieldCount) = (_lineNo, _fields.Length);
             return true;
