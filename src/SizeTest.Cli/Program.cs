@@ -26,10 +26,14 @@ public static class Program
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {
-            var message = PlainTypeNames(string.Join(" ", parse.Errors[0].Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)));
+            // An unknown verb gives "Required command was not provided" first and "Unrecognized command or argument 'fitt'" after it:
+            // the second says what is wrong.
+            var first = parse.Errors.Count > 1 && parse.Errors[0].Message.StartsWith("Required command", StringComparison.Ordinal)
+                && parse.Errors[1].Message.StartsWith("Unrecognized", StringComparison.Ordinal) ? parse.Errors[1] : parse.Errors[0];
+            var message = PlainTypeNames(string.Join(" ", first.Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)));
             if (!message.Contains("did you mean", StringComparison.Ordinal)) message += UnknownWordHint(parse);
-            if (!message.Contains("did you mean", StringComparison.Ordinal)) message += AllowedValueHint(parse.Errors[0]);
-            stderr.WriteLine($"sizetest: {message} (see 'sizetest {CommandPath(parse)} --help')");
+            if (!message.Contains("did you mean", StringComparison.Ordinal)) message += AllowedValueHint(first);
+            stderr.WriteLine($"sizetest: {message} (see '{string.Join(' ', new[] { "sizetest", CommandPath(parse) }.Where(s => s.Length > 0))} --help')");
             return ExitCodes.BadInput;
         }
         try

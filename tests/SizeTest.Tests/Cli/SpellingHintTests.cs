@@ -46,6 +46,7 @@ public sealed class SpellingHintTests
     [InlineData("inspect CAT --col z_err=theta_er", "'theta_er'", "theta_err")]
     [InlineData("predict --z 1 --model static-linear --flux-convention energy_loss", "'energy_loss'", "energy-loss")] // 1
     [InlineData("fit CAT --models lcdm --free omega_n", "'omega_n'", "omega_m")]   // 1: a parameter
+    [InlineData("fitt CAT", "Unrecognized command or argument 'fitt'", "fit")]   // a verb: 1 (said as unrecognised, not "required command not provided")
     public void AMistypedNameGetsADidYouMean(string command, string given, string suggestion)
     {
         var err = Run(command);

@@ -164,6 +164,19 @@ public sealed class SurveyOptionsCliTests : IDisposable
     }
 
     [Fact]
+    public void AGroupColumnWithMoreLabelsThanPopulationsIsRefusedBeforeAnyModelIsBuilt()
+    {
+        // The magnitude column as a group column: every object its own label (800 labels > MaxGroups = 50). Before, the fit built
+        // models with k = 3·800 parameters and reached the small-population refusal only after minutes (3000 objects: 3 min 10 s).
+        var mock = Simulate("--luminosity-function", "schechter:-21:-1.2:-24:-16");
+        var (code, _, err, dir) = Fit(mock, "--group", "mag");
+        Assert.Equal(2, code);
+        int n = File.ReadAllLines(mock).Length - 1;
+        Assert.Contains($"the --group column has {n} distinct labels among {n} objects ({n} of them held by a single object); at most 50 populations", err, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(dir));
+    }
+
+    [Fact]
     public void GaussianSizeErrorsAndTheLargeErrorWarning()
     {
         var mock = Simulate("--size-errors", "gaussian", "--size-err-frac", "0.05", "--size-err-frac-zmax", "0.5");

@@ -106,6 +106,20 @@ public sealed record SurveyRequest(
     /// <summary>Nothing asked.</summary>
     public static SurveyRequest None { get; } = new();
 
+    /// <summary>Most populations a group column may hold: each brings its own R0, a, (β,) scatter, so a column with more labels
+    /// is almost surely not a population label (a magnitude, an id) and its fit would have thousands of parameters.</summary>
+    public const int MaxGroups = 50;
+
+    // Refuses, before any model is built, a group column with more than MaxGroups labels (its fit would have thousands of
+    // parameters and take minutes to reach the small-population refusal of SampleSizeCheck). Counts how many labels one object holds.
+    private static void RefuseNonLabelGroups(IReadOnlyList<string> labels, int distinct)
+    {
+        if (distinct <= MaxGroups) return;
+        int single = labels.GroupBy(l => l, StringComparer.Ordinal).Count(c => c.Count() == 1);
+        throw SettingProblem.Exception([new(FormattableString.Invariant(
+            $"the {{group}} column has {distinct} distinct labels among {labels.Count} objects ({single} of them held by a single object); at most {MaxGroups} populations are fitted, each with its own R0, a and scatter. Is it a population label (e.g. a morphological type), not a measured quantity or an id? Merge the labels into a few populations, or fit without {{group}}"))]);
+    }
+
     /// <summary>
     /// What of this request cannot run with the sample split over MPI ranks (group labels and equal-count bin edges need the whole
     /// sample in one process; a luminosity window runs, its per-model counts summed over ranks), as option names; empty when all of it can.
@@ -142,6 +156,7 @@ public sealed record SurveyRequest(
         {
             var g = observables.Survey.Group ?? throw SettingProblem.Exception([new("{group} needs a group column; name it with {group} COLUMN")]);
             groups = g.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+            RefuseNonLabelGroups(g, groups.Count);
             if (groups.Count == 1) notes.Add(SettingProblem.Text($"{{group}}: the group column has a single label '{groups[0]}'; fitting one population."));
         }
         double[]? edges = EvolutionBins is { } k ? SurveyModel.EqualCountEdges(observables.Z, k) : null;
