@@ -16,6 +16,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "--mcmc-timing") { McmcTiming.Run(args[1..], Console.Out); return; }
         if (args.Length > 0 && args[0] == "--fit-stages") { FitStageTimings.Run(args[1..], Console.Out); return; }
         if (args.Length > 0 && args[0] == "--photoz-cost") { PhotoZCost.Run(args[1..], Console.Out); return; }
+        if (args.Length > 0 && args[0] == "--nested-calibration") { NestedCalibration.Run(args[1..], Console.Out); return; }
         if (args.Length > 0 && args[0] == "--reader-scale") { ReaderScaleHarness.Run(args[1..]); return; }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }

@@ -16,10 +16,18 @@ public sealed record NestedSamplerOptions
     public double Tolerance { get; init; } = 0.01;
 
     /// <summary>
-    /// Slice-sampling steps per replacement (each along a random direction shaped by the live
-    /// points' covariance). Null (default) for max(5, 3·d).
+    /// Slice-sampling steps per replacement (each along the difference of two random live points).
+    /// Null (default) for <see cref="DefaultSliceSteps"/>: 10·d.
     /// </summary>
     public int? SliceSteps { get; init; }
+
+    /// <summary>
+    /// The default steps per replacement for <paramref name="dimension"/> parameters, 10·d. Fewer leave each new point
+    /// correlated with the live point it started from, and the scatter of ln Z across seeds then exceeds the quoted
+    /// √(H/N): measured on a curved 4-D likelihood and a real 4-parameter size fit, the ratio is 1.2–1.3 at 5·d and
+    /// 1.03 at 10·d (docs/sampling.md §3).
+    /// </summary>
+    public static int DefaultSliceSteps(int dimension) => 10 * Math.Max(1, dimension);
 
     /// <summary>Hard limit on iterations (dead points); reaching it gives a not-converged result. Default 1 000 000.</summary>
     public int MaxIterations { get; init; } = 1_000_000;
