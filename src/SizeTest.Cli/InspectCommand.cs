@@ -91,6 +91,7 @@ internal static class InspectCommand
         CatalogueFormat.Fits => "FITS binary table",
         CatalogueFormat.VoTable => "VOTable",
         CatalogueFormat.Parquet => "Parquet",
+        _ when load.LayoutNotes.Count > 0 && load.LayoutNotes[0].StartsWith("layout: IPAC table", StringComparison.Ordinal) => "IPAC table (column-aligned text)",
         _ => "delimited text",
     };
 

@@ -13,7 +13,8 @@ public static class CatalogueReaders
     /// <summary>
     /// Detects the format: FITS if the file starts with <c>SIMPLE  =</c>; VOTable if it is XML
     /// with a <c>VOTABLE</c> element near the start; Parquet if it starts with <c>PAR1</c>; otherwise by extension
-    /// (<c>.fits .fit .fts</c> → FITS, <c>.vot .votable .xml</c> → VOTable, <c>.parquet .pq</c> → Parquet), otherwise text.
+    /// (<c>.fits .fit .fts</c> → FITS, <c>.vot .votable .xml</c> → VOTable, <c>.parquet .pq</c> → Parquet), otherwise text
+    /// (an IPAC table, with its <c>|</c> header lines, is text read by <see cref="IpacTableReader"/>).
     /// </summary>
     public static CatalogueFormat DetectFormat(string path)
     {
@@ -59,6 +60,8 @@ public static class CatalogueReaders
                 default:
                     if (options.Table is not null)
                         throw SettingProblem.Input($"a text table has only one table; drop {{hdu}} '{options.Table}'", path);
+                    if (options.Delimiter is null && options.HasHeader is null && IpacTableReader.Looks(path, options))
+                        return IpacTableReader.Open(path, options);
                     var layout = TextLayout.Detect(path, options);
                     return layout.Delimiter == ' '
                         ? new WhitespaceTextReader(path, layout, options)

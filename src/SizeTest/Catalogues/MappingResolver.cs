@@ -20,7 +20,7 @@ public static class MappingResolver
         // Total magnitudes only: MAG_AUTO, MAG_PETRO, MAG_BEST and MAG_MODEL of source-extraction catalogues, not their isophotal
         // (MAG_ISO, MAG_ISOCOR) or fixed-aperture (MAG_APER) magnitudes, which miss light: those are mapped by hand.
         [ColumnRole.Mag] = ["magnitude", "m", "magauto", "magtot", "mtot", "totalmag", "petromag", "modelmag", "cmodelmag", "magbest", "magpetro", "magmodel"],
-        [ColumnRole.Id] = ["objid", "objectid", "sourceid", "name", "source", "obj", "galaxy", "seq", "number", "srcid", "galid"],
+        [ColumnRole.Id] = ["objid", "objectid", "sourceid", "name", "objname", "source", "obj", "galaxy", "seq", "number", "srcid", "galid"],
         [ColumnRole.Band] = ["filter", "passband", "bandpass", "filtername"],
         [ColumnRole.AbsMag] = ["absmag", "mabs", "absolutemag", "absolutemagnitude", "magabs"],
         [ColumnRole.LogMass] = ["logmass", "logmstar", "lmass", "lmstar", "logm", "logsm", "logmstellar", "logstellarmass"],

@@ -75,7 +75,7 @@ public sealed class CataloguePropertyTests
         }, seed: Seed, iter: 60, threads: 1);
     }
 
-    private static readonly string[] CorruptionSources = ["csv", "fixture_tables.fits", "fixture_tabledata.vot", "fixture_binary2.vot"];
+    private static readonly string[] CorruptionSources = ["csv", "fixture_tables.fits", "fixture_tabledata.vot", "fixture_binary2.vot", "fixture_ipac.tbl"];
 
     private static byte[] Source(string name) => name == "csv"
         ? System.Text.Encoding.UTF8.GetBytes("# synthetic\nid,z,theta,theta_err,mu\nA,0.5,1.2,0.1,21\n\"B,x\",1.0,0.8,0.05,22\nC,2.0,0.4,0.02,23.5\n")

@@ -33,6 +33,9 @@ internal abstract class TextTableReader(string path, TextLayout layout, ReaderOp
     /// <param name="fieldCount">How many fields the record has.</param>
     protected abstract bool NextRecord(out long line, out int fieldCount);
 
+    /// <summary>What is wrong with the current record as a whole (it becomes the row's reject detail), or null.</summary>
+    protected virtual string? RecordProblem() => null;
+
     /// <summary>Whether field <paramref name="index"/> of the current record (index &lt; field count) is empty.</summary>
     protected abstract bool FieldIsEmpty(int index);
 
@@ -49,7 +52,8 @@ internal abstract class TextTableReader(string path, TextLayout layout, ReaderOp
             if (!NextRecord(out long line, out int fieldCount)) { _done = true; break; }
             int row = chunk.BeginRow(line);
             // A line ending with the delimiter has one empty field after the last column: nothing is in it.
-            if (fieldCount != nCols && !(fieldCount == nCols + 1 && FieldIsEmpty(nCols)))
+            if (RecordProblem() is { } problem) chunk.SetRowProblem(row, problem);
+            else if (fieldCount != nCols && !(fieldCount == nCols + 1 && FieldIsEmpty(nCols)))
                 chunk.SetRowProblem(row, $"{fieldCount} fields, the header has {nCols}");
             for (int k = 0; k < chunk.Requests.Count; k++)
             {
